@@ -1,0 +1,13 @@
+/** Jest for the API: unit specs beside the source, integration specs in test/ against a real MariaDB. */
+module.exports = {
+  rootDir: __dirname,
+  testEnvironment: 'node',
+  roots: ['<rootDir>/src', '<rootDir>/test'],
+  testMatch: ['**/*.spec.ts'],
+  transform: { '^.+\\.(t|j|mj)s$': ['@swc/jest'] },
+  transformIgnorePatterns: [
+    '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|@tokenizer|@borewit|uint8array-extras|cookie|set-cookie-parser)/)',
+  ],
+  moduleNameMapper: { '^@crumbproof/shared$': '<rootDir>/../shared/src/index.ts' },
+  testTimeout: 30000,
+};

@@ -1,0 +1,106 @@
+import { z } from 'zod';
+import { ALLERGEN_SOURCES, CLAIMS, CONTROLS, EXEMPT_FORMS, LINE_ROLES, MEASURE_SYSTEMS, REGIMES, UNITS } from './allergens';
+
+/**
+ * The recipe book: one JSON document holding a whole kitchen. It is the import, export and
+ * backup format, and the input of the rules engine. Its JSON Schema is published as
+ * reference-data/book.schema.json (generated from this file; a test keeps them equal).
+ */
+const id = z.string().trim().min(1, 'An id cannot be empty.').max(80, 'Use an id of at most 80 characters.');
+
+export const sourceEntrySchema = z.union([
+  z.enum(ALLERGEN_SOURCES),
+  z.strictObject({
+    source: z.enum(ALLERGEN_SOURCES),
+    form: z.enum(EXEMPT_FORMS).optional(),
+    species: z.string().trim().min(1).max(60).optional(),
+  }),
+]);
+export type SourceEntry = z.infer<typeof sourceEntrySchema>;
+
+/** Nutrition per 100 g as eaten raw, in grams (cholesterol in mg). A key left out is not known. */
+export const nutritionSchema = z.strictObject({
+  energyKj: z.number().min(0).optional(),
+  energyKcal: z.number().min(0).optional(),
+  fat: z.number().min(0).max(100).optional(),
+  saturates: z.number().min(0).max(100).optional(),
+  transFat: z.number().min(0).max(100).optional(),
+  cholesterolMg: z.number().min(0).max(100000).optional(),
+  carbohydrate: z.number().min(0).max(100).optional(),
+  sugars: z.number().min(0).max(100).optional(),
+  addedSugars: z.number().min(0).max(100).optional(),
+  polyols: z.number().min(0).max(100).optional(),
+  erythritol: z.number().min(0).max(100).optional(),
+  fibre: z.number().min(0).max(100).optional(),
+  protein: z.number().min(0).max(100).optional(),
+  salt: z.number().min(0).max(100).optional(),
+  sodium: z.number().min(0).max(100).optional(),
+  alcohol: z.number().min(0).max(100).optional(),
+  organicAcids: z.number().min(0).max(100).optional(),
+  salatrims: z.number().min(0).max(100).optional(),
+  source: z.string().max(300).optional(),
+});
+export type Nutrition = z.infer<typeof nutritionSchema>;
+
+export const bookIngredientSchema = z.strictObject({
+  id,
+  name: z.string().trim().min(1, 'Give the ingredient a name.').max(160),
+  supplier: z.string().trim().max(160).optional(),
+  supplierCode: z.string().trim().max(80).optional(),
+  /** Left out: the supplier gave no allergen statement (unknown). Empty: verified none. */
+  contains: z.array(sourceEntrySchema).optional(),
+  mayContain: z.array(sourceEntrySchema).default([]),
+  composition: z.string().max(4000).optional(),
+  vegan: z.boolean().nullable(),
+  vegetarian: z.boolean().nullable(),
+  sulphiteMgPerKg: z.number().min(0).max(100000).optional(),
+  /** Gluten measured or specified by the supplier, mg/kg. */
+  glutenMgPerKg: z.number().min(0).max(1000000).optional(),
+  gPerMl: z.number().positive().max(5).optional(),
+  gEach: z.number().positive().max(100000).optional(),
+  /** Sugars in this ingredient count as added sugars (US). */
+  addsSugars: z.boolean().optional(),
+  nutrition: nutritionSchema.optional(),
+});
+export type BookIngredient = z.infer<typeof bookIngredientSchema>;
+
+export const recipeLineSchema = z.strictObject({
+  use: id,
+  qty: z.number().positive('Give a quantity above zero.').max(1_000_000),
+  unit: z.enum(UNITS),
+  role: z.enum(LINE_ROLES).optional(),
+});
+export type RecipeLine = z.infer<typeof recipeLineSchema>;
+
+export const saleSchema = z.strictObject({
+  portionG: z.number().positive().max(100000),
+  claims: z.array(z.enum(CLAIMS)).optional(),
+  quid: z.array(id).optional(),
+});
+export type Sale = z.infer<typeof saleSchema>;
+
+export const bookRecipeSchema = z.strictObject({
+  id,
+  name: z.string().trim().min(1, 'Give the recipe a name.').max(160),
+  lines: z.array(recipeLineSchema).min(1, 'A recipe needs at least one line.'),
+  finishedWeightG: z.number().positive().max(10_000_000).optional(),
+  sale: saleSchema.optional(),
+});
+export type BookRecipe = z.infer<typeof bookRecipeSchema>;
+
+export const siteSchema = z.strictObject({
+  name: z.string().trim().min(1).max(160),
+  regime: z.enum(REGIMES),
+  measures: z.enum(MEASURE_SYSTEMS).optional(),
+  handles: z.array(z.strictObject({ allergen: z.enum(ALLERGEN_SOURCES), controls: z.enum(CONTROLS) })).default([]),
+});
+export type Site = z.infer<typeof siteSchema>;
+
+export const bookSchema = z.strictObject({
+  crumbproofBook: z.literal(1),
+  site: siteSchema,
+  ingredients: z.array(bookIngredientSchema),
+  recipes: z.array(bookRecipeSchema),
+});
+export type Book = z.infer<typeof bookSchema>;
+export type BookInput = z.input<typeof bookSchema>;
