@@ -9,5 +9,6 @@ module.exports = {
     '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|@tokenizer|@borewit|uint8array-extras|cookie|set-cookie-parser)/)',
   ],
   moduleNameMapper: { '^@crumbproof/shared$': '<rootDir>/../shared/src/index.ts' },
+  setupFiles: ['<rootDir>/test/support/env.ts'],
   testTimeout: 30000,
 };

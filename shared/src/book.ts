@@ -58,6 +58,11 @@ export const bookIngredientSchema = z.strictObject({
   glutenMgPerKg: z.number().min(0).max(1000000).optional(),
   gPerMl: z.number().positive().max(5).optional(),
   gEach: z.number().positive().max(100000).optional(),
+  /**
+   * This ingredient is added water (EU 1169/2011 Annex VII A.1). The engine also recognises
+   * an ingredient whose id or name is 'water'.
+   */
+  isWater: z.boolean().optional(),
   /** Sugars in this ingredient count as added sugars (US). */
   addsSugars: z.boolean().optional(),
   nutrition: nutritionSchema.optional(),

@@ -3,3 +3,5 @@ export * from './auth';
 export * from './errors';
 export * from './allergens';
 export * from './book';
+export * from './nutrition';
+export * from './declaration';

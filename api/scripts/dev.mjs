@@ -1,0 +1,46 @@
+// npm run dev: the private database, the API rebuilt and restarted on every change, and Vite's
+// dev server with hot reload for the web app (http://127.0.0.1:5173, /api proxied to :3000).
+import { join } from 'node:path';
+import { ensureMariadbInstalled, instance } from './lib/mariadb.mjs';
+import { dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step } from './lib/workspace.mjs';
+
+const DB_PORT = Number(process.env.DB_PORT ?? 3307);
+const dataDir = join(ROOT, '.data');
+
+ensureNodeModules();
+ensureMariadbInstalled((m) => step(m));
+const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
+db.claim('npm run dev');
+const children = [];
+const stop = async () => {
+  for (const c of children) if (c.exitCode === null) c.kill('SIGTERM');
+  await db.stop();
+  db.release();
+  process.exit(0);
+};
+process.on('SIGINT', stop);
+process.on('SIGTERM', stop);
+
+try {
+  if (db.runningPid()) await db.stop();
+  await db.start();
+  db.createDatabase({ database: 'crumbproof', user: 'crumbproof', password: 'crumbproof-local' });
+  const env = {
+    ...dbEnv({ port: DB_PORT, database: 'crumbproof' }),
+    NODE_ENV: 'development',
+    JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
+  };
+  step('Building shared and api once, then watching…');
+  run('npm', ['run', 'build', '-w', 'shared']);
+  run('npm', ['run', 'build', '-w', 'api']);
+  run('node', ['api/dist/cli/db.js', 'setup'], { env });
+  const bin = (name) => join(ROOT, 'node_modules', '.bin', name);
+  children.push(startChild(bin('tsc'), ['-p', 'shared/tsconfig.json', '--watch', '--preserveWatchOutput'], {}));
+  children.push(startChild(bin('tsc'), ['-p', 'api/tsconfig.build.json', '--watch', '--preserveWatchOutput'], {}));
+  children.push(startChild('node', ['--watch-path=api/dist', '--watch-path=shared/dist', 'api/dist/main.js'], env));
+  children.push(startChild(bin('vite'), ['--host', '127.0.0.1'], {}, { cwd: join(ROOT, 'web') }));
+  console.log('\n  Web app with hot reload: http://127.0.0.1:5173   API: http://127.0.0.1:3000/api/docs\n');
+} catch (err) {
+  console.error(err instanceof Error ? err.message : err);
+  await stop();
+}

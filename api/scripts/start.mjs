@@ -1,0 +1,92 @@
+// npm start: installs what is missing, starts the private MariaDB under .data/, migrates,
+// seeds the demo kitchen into an empty database, builds the web app and serves it from the API.
+import { join } from 'node:path';
+import { ensureMariadbInstalled, instance, isPortFree } from './lib/mariadb.mjs';
+import { buildAll, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
+
+const PORT = Number(process.env.PORT ?? 3000);
+const DB_PORT = Number(process.env.DB_PORT ?? 3307);
+const HOST = '127.0.0.1';
+const dataDir = join(ROOT, '.data');
+
+async function main() {
+  ensureNodeModules();
+  ensureMariadbInstalled((m) => step(m));
+
+  const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
+  db.claim('npm start');
+  let api = null;
+  let stopping = false;
+  const stop = async (code = 0) => {
+    if (stopping) return;
+    stopping = true;
+    console.log('\nStopping Crumbproof…');
+    if (api && api.exitCode === null) {
+      api.kill('SIGTERM');
+      await new Promise((r) => {
+        const t = setTimeout(() => (api.kill('SIGKILL'), r()), 10_000);
+        api.once('exit', () => (clearTimeout(t), r()));
+      });
+    }
+    await db.stop();
+    db.release();
+    console.log('Stopped. Your data is kept in .data/ for the next npm start.');
+    process.exit(code);
+  };
+  process.on('SIGINT', () => void stop(0));
+  process.on('SIGTERM', () => void stop(0));
+
+  try {
+    if (!(await isPortFree(PORT))) {
+      throw new Error(`Port ${PORT} on ${HOST} is in use. Stop what uses it, or run PORT=3100 npm start.`);
+    }
+    if (db.runningPid()) {
+      step('A database from an earlier run is still up: stopping it first…');
+      await db.stop();
+    }
+    step(`Starting the private MariaDB on ${HOST}:${DB_PORT} (data in .data/mariadb)…`);
+    await db.start();
+    db.createDatabase({ database: 'crumbproof', user: 'crumbproof', password: 'crumbproof-local' });
+
+    buildAll();
+
+    const env = {
+      ...dbEnv({ port: DB_PORT, database: 'crumbproof' }),
+      NODE_ENV: 'production',
+      HOST,
+      PORT: String(PORT),
+      JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
+      WEB_DIST: join(ROOT, 'web', 'dist'),
+    };
+    step('Migrating and seeding…');
+    run('node', ['api/dist/cli/db.js', 'setup'], { env });
+
+    step('Starting the API and web app…');
+    api = startChild('node', ['api/dist/main.js'], env);
+    api.on('exit', (code) => {
+      if (!stopping) {
+        console.error(`The API stopped (exit ${code}).`);
+        void stop(1);
+      }
+    });
+    await waitForHttp(`http://${HOST}:${PORT}/api/health`, 60_000, api);
+    console.log(`
+  Crumbproof is running at http://${HOST}:${PORT}
+
+  Demo sign-ins (password for each: crumbproof-demo)
+    manager@example.com   Manager
+    chef@example.com      Pastry chef
+    counter@example.com   Front of house
+
+  API documentation: http://${HOST}:${PORT}/api/docs
+  Press Ctrl-C to stop.`);
+  } catch (err) {
+    console.error(`\n${err instanceof Error ? err.message : err}`);
+    await stop(1);
+  }
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

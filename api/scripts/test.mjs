@@ -1,0 +1,128 @@
+// npm test: the same provisioning as npm start on a throwaway datadir and another port, then
+// every suite (api on the real MariaDB, web, end-to-end in Chromium), closing with one line
+// "N passed, N failed" over all of them. `npm test -- api|web|e2e` runs one suite.
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { ensureMariadbInstalled, freePort, instance } from './lib/mariadb.mjs';
+import { buildAll, dbEnv, ensureChromium, ensureNodeModules, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
+
+const wanted = new Set(process.argv.slice(2).filter((a) => ['api', 'web', 'e2e'].includes(a)));
+const all = wanted.size === 0;
+const suites = { api: all || wanted.has('api'), web: all || wanted.has('web'), e2e: all || wanted.has('e2e') };
+
+const results = [];
+const scratch = mkdtempSync(join(tmpdir(), 'crumbproof-test-'));
+
+function readJson(file) {
+  try {
+    return JSON.parse(readFileSync(file, 'utf8'));
+  } catch {
+    return null;
+  }
+}
+
+/** Runs a suite; counts come from its JSON report, and a suite that could not report counts as one failure. */
+function runSuite(name, cmd, args, env, reportFile, count, cwd = ROOT) {
+  step(`Suite: ${name}`);
+  let exit = 0;
+  try {
+    run(cmd, args, { env, cwd });
+  } catch {
+    exit = 1;
+  }
+  const report = existsSync(reportFile) ? readJson(reportFile) : null;
+  const counted = report ? count(report) : { passed: 0, failed: 1 };
+  if (exit !== 0 && counted.failed === 0) counted.failed = 1; // the runner failed outside any test
+  results.push({ name, ...counted });
+}
+
+const jestCount = (r) => ({ passed: r.numPassedTests ?? 0, failed: (r.numFailedTests ?? 0) + (r.numRuntimeErrorTestSuites ?? 0) });
+const vitestCount = jestCount; // vitest's json reporter writes the same totals
+
+async function main() {
+  ensureNodeModules();
+  ensureMariadbInstalled((m) => step(m));
+  if (suites.e2e) ensureChromium();
+
+  const port = await freePort();
+  const db = instance({ dir: join(scratch, 'mariadb'), port });
+  let server = null;
+  const cleanup = async () => {
+    if (server && server.exitCode === null) server.kill('SIGTERM');
+    await db.stop();
+    rmSync(scratch, { recursive: true, force: true });
+  };
+  process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
+
+  try {
+    step(`Starting a throwaway MariaDB on 127.0.0.1:${port}…`);
+    await db.start();
+    db.createDatabase({ database: 'crumbproof_test', user: 'crumbproof', password: 'crumbproof-local' });
+
+    if (suites.api) {
+      const report = join(scratch, 'jest.json');
+      runSuite(
+        'api (jest, real MariaDB)',
+        'node',
+        ['node_modules/jest/bin/jest.js', '--config', 'api/jest.config.js', '--json', `--outputFile=${report}`],
+        { ...dbEnv({ port, database: 'crumbproof_test' }), NODE_OPTIONS: '--experimental-vm-modules --no-warnings' },
+        report,
+        jestCount,
+      );
+    }
+    if (suites.web) {
+      const report = join(scratch, 'vitest-web.json');
+      runSuite(
+        'web (vitest)',
+        'node',
+        [join(ROOT, 'node_modules/vitest/vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`],
+        { FORCE_COLOR: '0' },
+        report,
+        vitestCount,
+        join(ROOT, 'web'),
+      );
+    }
+    if (suites.e2e) {
+      buildAll();
+      const appPort = await freePort();
+      db.createDatabase({ database: 'crumbproof_test_e2e', user: 'crumbproof', password: 'crumbproof-local' });
+      const env = {
+        ...dbEnv({ port, database: 'crumbproof_test_e2e' }),
+        NODE_ENV: 'test',
+        HOST: '127.0.0.1',
+        PORT: String(appPort),
+        JWT_SECRET: 'test-secret-for-the-end-to-end-run-only-0123456789',
+        WEB_DIST: join(ROOT, 'web', 'dist'),
+        LOG_LEVEL: 'warn',
+        SIGN_IN_LIMIT: '50',
+      };
+      run('node', ['api/dist/cli/db.js', 'setup'], { env });
+      server = startChild('node', ['api/dist/main.js'], env);
+      await waitForHttp(`http://127.0.0.1:${appPort}/api/health`, 60_000, server);
+      const report = join(scratch, 'vitest-e2e.json');
+      runSuite(
+        'end-to-end and cross-package (vitest + playwright-core on Chromium)',
+        'node',
+        ['node_modules/vitest/vitest.mjs', 'run', '--config', 'tests/vitest.config.ts', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`],
+        { BASE_URL: `http://127.0.0.1:${appPort}`, DB_TEST_PORT: String(port), FORCE_COLOR: '0' },
+        report,
+        vitestCount,
+      );
+    }
+  } catch (err) {
+    console.error(`\n${err instanceof Error ? err.message : err}`);
+    results.push({ name: 'set-up', passed: 0, failed: 1 });
+  } finally {
+    await cleanup();
+  }
+
+  console.log('\nSuites:');
+  for (const r of results) console.log(`  ${r.name}: ${r.passed} passed, ${r.failed} failed`);
+  const passed = results.reduce((n, r) => n + r.passed, 0);
+  const failed = results.reduce((n, r) => n + r.failed, 0);
+  console.log(`${passed} passed, ${failed} failed`);
+  process.exit(failed > 0 || results.length === 0 ? 1 : 0);
+}
+
+main();

@@ -1,0 +1,71 @@
+import 'reflect-metadata';
+import { existsSync, readFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { Logger, type LogLevel } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { NestFactory } from '@nestjs/core';
+import { FastifyAdapter, type NestFastifyApplication } from '@nestjs/platform-fastify';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import fastifyCookie from '@fastify/cookie';
+import fastifyMultipart from '@fastify/multipart';
+import fastifyStatic from '@fastify/static';
+import { AppModule } from './app.module';
+import type { AppConfig } from './config/config';
+
+const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
+  silent: false,
+  error: ['error', 'fatal'],
+  warn: ['error', 'fatal', 'warn'],
+  info: ['error', 'fatal', 'warn', 'log'],
+  debug: ['error', 'fatal', 'warn', 'log', 'debug', 'verbose'],
+};
+
+export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
+
+/** Builds the API (and, when a web build is given, serves the web app beside it). */
+export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } = {}): Promise<NestFastifyApplication> {
+  const adapter = new FastifyAdapter({ bodyLimit: 2 * 1024 * 1024, trustProxy: false });
+  const app = await NestFactory.create<NestFastifyApplication>(AppModule, adapter, {
+    logger: LOG_LEVELS[options.logLevel ?? (process.env.LOG_LEVEL as AppConfig['LOG_LEVEL']) ?? 'info'],
+  });
+  const config = app.get<ConfigService<AppConfig, true>>(ConfigService);
+  app.setGlobalPrefix('api');
+  await app.register(fastifyCookie);
+  await app.register(fastifyMultipart, { limits: { fileSize: MAX_UPLOAD_BYTES, files: 1 } });
+
+  const doc = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Crumbproof API')
+      .setDescription('Ingredients, recipes, declarations and labels of a pastry kitchen. Sessions are an httpOnly cookie set by POST /api/auth/sign-in.')
+      .setVersion('1')
+      .addCookieAuth('cp_session')
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, doc, { jsonDocumentUrl: 'api/docs-json', useGlobalPrefix: false });
+
+  const webDist = config.get('WEB_DIST', { infer: true });
+  if (webDist) serveWeb(app, resolve(webDist));
+  await app.init();
+  await app.getHttpAdapter().getInstance().ready();
+  return app;
+}
+
+/** Serves the built web app; any non-API path falls back to index.html for the client router. */
+function serveWeb(app: NestFastifyApplication, dir: string) {
+  const index = join(dir, 'index.html');
+  if (!existsSync(index)) {
+    new Logger('Web').warn(`No web build at ${dir}: run npm run build.`);
+    return;
+  }
+  const fastify = app.getHttpAdapter().getInstance();
+  void fastify.register(fastifyStatic, { root: dir, prefix: '/', wildcard: false, index: ['index.html'] });
+  const html = readFileSync(index, 'utf8');
+  fastify.setNotFoundHandler((req, reply) => {
+    if (req.method === 'GET' && !req.url.startsWith('/api')) {
+      void reply.type('text/html').send(html);
+      return;
+    }
+    void reply.status(404).send({ statusCode: 404, code: 'not-found', message: 'There is nothing at this address.' });
+  });
+}

@@ -1,0 +1,28 @@
+import { Body, Controller, Get, Post } from '@nestjs/common';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { bookSchema } from '@crumbproof/shared';
+import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
+import { Roles } from '../common/roles.decorator';
+import { ApiZodBody } from '../common/zod.pipe';
+import { BooksService } from './books.service';
+
+@ApiTags('recipe book')
+@Controller('book')
+export class BooksController {
+  constructor(private readonly books: BooksService) {}
+
+  @Get()
+  @Roles(['manager', 'pastry-chef'])
+  @ApiOperation({ summary: 'Export the whole kitchen as a recipe book (also the backup format)' })
+  export() {
+    return this.books.exportBook();
+  }
+
+  @Post('import')
+  @Roles(['manager'])
+  @ApiOperation({ summary: 'Import a recipe book, merging by id; all or nothing' })
+  @ApiZodBody(bookSchema)
+  import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
+    return this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
+  }
+}

@@ -1,0 +1,191 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { bookSchema, type Book, type BookIngredient, type BookProblem, type BookRecipe } from '@crumbproof/shared';
+import type { Transaction } from 'sequelize';
+import { AppError } from '../common/app-error';
+import { TransactionRunner } from '../common/transaction';
+import { validationError } from '../common/zod.pipe';
+import { IngredientsRepository } from '../ingredients/ingredients.repository';
+import { parseJson } from '../kitchen/kitchen.service';
+import { SiteModel } from '../kitchen/site.model';
+import { RecipesRepository } from '../recipes/recipes.repository';
+import { RulesService } from '../rules/rules.service';
+
+export interface ImportSummary {
+  site: 'created' | 'updated' | 'unchanged';
+  ingredients: { created: string[]; revised: string[]; unchanged: number };
+  recipes: { created: string[]; revised: string[]; unchanged: number };
+}
+
+const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
+  const { id: _id, ...body } = item;
+  return body;
+};
+const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+/**
+ * The kitchen as one recipe book: export, import (all or nothing), and the checked write path
+ * every change to ingredients and recipes goes through.
+ */
+@Injectable()
+export class BooksService {
+  constructor(
+    @InjectModel(SiteModel) private readonly sites: typeof SiteModel,
+    private readonly ingredients: IngredientsRepository,
+    private readonly recipes: RecipesRepository,
+    private readonly rules: RulesService,
+    private readonly tx: TransactionRunner,
+  ) {}
+
+  async site(t?: Transaction): Promise<SiteModel | null> {
+    return this.sites.findOne({ order: [['id', 'ASC']], transaction: t });
+  }
+
+  /** The whole kitchen as it stands now, in the recipe book format. */
+  async exportBook(t?: Transaction): Promise<Book> {
+    const site = await this.site(t);
+    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
+    const [ings, recs] = await Promise.all([this.ingredients.listCurrent(site.id, t), this.recipes.listCurrent(site.id, t)]);
+    return {
+      crumbproofBook: 1,
+      site: {
+        name: site.name,
+        regime: site.regime,
+        ...(site.measures ? { measures: site.measures } : {}),
+        handles: parseJson(site.handles),
+      },
+      ingredients: ings.map((i) => ({ id: i.code, ...i.body })),
+      recipes: recs.map((r) => ({ id: r.code, ...r.body })),
+    };
+  }
+
+  /** Parses a book against the published schema; every problem names where it is. */
+  parse(input: unknown): Book {
+    const result = bookSchema.safeParse(input);
+    if (!result.success) throw withNames(validationError(result.error), input);
+    return result.data;
+  }
+
+  /** Refuses a book the rules engine cannot declare (cycles, unknown ids, unweighable lines). */
+  assertDeclarable(book: Book) {
+    const problems = this.rules.check(book);
+    if (problems.length > 0) throw bookRefused(problems);
+  }
+
+  /** Imports a book into the kitchen, merging by id; all or nothing. */
+  async importBook(input: unknown, meta: { authorId: number | null; note: string; address?: string }): Promise<ImportSummary> {
+    const book = this.parse(input);
+    return this.tx.run(async (t) => {
+      const site = await this.site(t);
+      const current = site ? await this.exportBook(t) : null;
+      const merged: Book = {
+        ...book,
+        ingredients: mergeById(current?.ingredients ?? [], book.ingredients),
+        recipes: mergeById(current?.recipes ?? [], book.recipes),
+      };
+      this.assertDeclarable(merged);
+
+      let siteRow = site;
+      let siteState: ImportSummary['site'] = 'unchanged';
+      const siteFields = { name: book.site.name, regime: book.site.regime, measures: book.site.measures ?? null, handles: book.site.handles };
+      if (!siteRow) {
+        siteRow = await this.sites.create({ ...siteFields, address: meta.address ?? '' }, { transaction: t });
+        siteState = 'created';
+      } else if (!same(current?.site, book.site)) {
+        await siteRow.update({ ...siteFields, version: siteRow.version + 1 }, { transaction: t });
+        siteState = 'updated';
+      }
+
+      const summary: ImportSummary = {
+        site: siteState,
+        ingredients: { created: [], revised: [], unchanged: 0 },
+        recipes: { created: [], revised: [], unchanged: 0 },
+      };
+      const existingIng = new Map((current?.ingredients ?? []).map((i) => [i.id, i]));
+      for (const ing of book.ingredients) {
+        const before = existingIng.get(ing.id);
+        if (before && same(bodyOf(before), bodyOf(ing))) {
+          summary.ingredients.unchanged++;
+          continue;
+        }
+        await this.ingredients.write(siteRow.id, ing.id, bodyOf(ing), meta, t);
+        (before ? summary.ingredients.revised : summary.ingredients.created).push(ing.id);
+      }
+      const existingRec = new Map((current?.recipes ?? []).map((r) => [r.id, r]));
+      for (const rec of book.recipes) {
+        const before = existingRec.get(rec.id);
+        if (before && same(bodyOf(before), bodyOf(rec))) {
+          summary.recipes.unchanged++;
+          continue;
+        }
+        await this.recipes.write(siteRow.id, rec.id, bodyOf(rec), meta, t);
+        (before ? summary.recipes.revised : summary.recipes.created).push(rec.id);
+      }
+      return summary;
+    });
+  }
+
+  /**
+   * Writes one ingredient or recipe as a new revision, after checking that the whole kitchen
+   * with the change can still be declared. Nothing is saved when it cannot.
+   */
+  async writeItem(
+    kind: 'ingredient' | 'recipe',
+    item: BookIngredient | BookRecipe,
+    meta: { authorId: number | null; note: string },
+    expect: 'new' | 'existing',
+  ): Promise<number> {
+    return this.tx.run(async (t) => {
+      const book = await this.exportBook(t);
+      const list = kind === 'ingredient' ? book.ingredients : book.recipes;
+      const exists = list.some((x) => x.id === item.id);
+      const other = (kind === 'ingredient' ? book.recipes : book.ingredients).some((x) => x.id === item.id);
+      if (expect === 'new' && (exists || other)) {
+        throw new AppError('conflict', `The id '${item.id}' is already used. Choose another id.`, [{ path: 'id', message: 'This id is already used.' }]);
+      }
+      if (expect === 'existing' && !exists) throw new AppError('not-found', `There is no ${kind} '${item.id}'.`);
+      const merged: Book =
+        kind === 'ingredient'
+          ? { ...book, ingredients: mergeById(book.ingredients, [item as BookIngredient]) }
+          : { ...book, recipes: mergeById(book.recipes, [item as BookRecipe]) };
+      this.assertDeclarable(merged);
+      const site = (await this.site(t))!;
+      const repo = kind === 'ingredient' ? this.ingredients : this.recipes;
+      return repo.write(site.id, item.id, bodyOf(item) as never, meta, t);
+    });
+  }
+}
+
+function mergeById<T extends { id: string }>(base: T[], incoming: T[]): T[] {
+  const map = new Map(base.map((x) => [x.id, x]));
+  for (const x of incoming) map.set(x.id, x);
+  return [...map.values()];
+}
+
+export function bookRefused(problems: BookProblem[]): AppError {
+  const fields = problems.map((p) => ({ path: problemPath(p), message: p.message }));
+  const first = problems[0];
+  const more = problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : '';
+  return new AppError(first.code === 'duplicate-id' ? 'book-invalid' : first.code, `${first.message}${more}`, fields, { problems });
+}
+
+function problemPath(p: BookProblem): string {
+  const r = p as BookProblem & { recipe?: string; ingredient?: string; line?: number };
+  if (r.recipe && r.line !== undefined) return `recipes.${r.recipe}.lines.${r.line}`;
+  if (r.recipe) return `recipes.${r.recipe}`;
+  if (r.ingredient) return `ingredients.${r.ingredient}`;
+  return '(book)';
+}
+
+/** Rewrites "ingredients.3.contains" to name the ingredient: "ingredients.3 (butter).contains". */
+function withNames(err: AppError, input: unknown): AppError {
+  const doc = (input ?? {}) as { ingredients?: { id?: unknown }[]; recipes?: { id?: unknown }[] };
+  const fields = (err.fields ?? []).map((f) => {
+    const m = /^(ingredients|recipes)\.(\d+)(.*)$/.exec(f.path);
+    if (!m) return f;
+    const id = doc[m[1] as 'ingredients' | 'recipes']?.[Number(m[2])]?.id;
+    return typeof id === 'string' ? { path: `${m[1]}.${m[2]} (${id})${m[3]}`, message: f.message } : f;
+  });
+  const summary = fields.map((f) => `${f.path}: ${f.message}`).join(' ');
+  return new AppError('book-invalid', `The recipe book is not valid. ${summary}`, fields);
+}

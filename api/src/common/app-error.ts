@@ -1,0 +1,41 @@
+import type { ErrorCode, FieldError } from '@crumbproof/shared';
+
+/** The one error type services throw; the exception filter maps its code to HTTP. */
+export class AppError extends Error {
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly fields?: FieldError[],
+    readonly details?: unknown,
+  ) {
+    super(message);
+  }
+}
+
+export function httpStatusOf(code: ErrorCode): number {
+  switch (code) {
+    case 'validation':
+    case 'book-invalid':
+    case 'recipe-cycle':
+    case 'unknown-reference':
+    case 'unweighable-line':
+      return 400;
+    case 'unauthenticated':
+    case 'bad-credentials':
+      return 401;
+    case 'forbidden':
+      return 403;
+    case 'not-found':
+      return 404;
+    case 'conflict':
+      return 409;
+    case 'too-many-requests':
+      return 429;
+    case 'internal':
+      return 500;
+    default: {
+      const never: never = code;
+      return never;
+    }
+  }
+}

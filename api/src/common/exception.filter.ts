@@ -1,0 +1,49 @@
+import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Logger } from '@nestjs/common';
+import { ThrottlerException } from '@nestjs/throttler';
+import type { FastifyReply } from 'fastify';
+import type { ApiErrorBody, ErrorCode } from '@crumbproof/shared';
+import { AppError, httpStatusOf } from './app-error';
+
+/** Turns every error into an ApiErrorBody; unknown errors become a logged 500 with a plain message. */
+@Catch()
+export class ApiExceptionFilter implements ExceptionFilter {
+  private readonly logger = new Logger('Errors');
+
+  catch(exception: unknown, host: ArgumentsHost) {
+    const reply = host.switchToHttp().getResponse<FastifyReply>();
+    const body = this.toBody(exception);
+    void reply.status(body.statusCode).send(body);
+  }
+
+  private toBody(exception: unknown): ApiErrorBody & { details?: unknown } {
+    if (exception instanceof AppError) {
+      return {
+        statusCode: httpStatusOf(exception.code),
+        code: exception.code,
+        message: exception.message,
+        ...(exception.fields ? { fields: exception.fields } : {}),
+        ...(exception.details !== undefined ? { details: exception.details } : {}),
+      };
+    }
+    if (exception instanceof ThrottlerException) {
+      return { statusCode: 429, code: 'too-many-requests', message: 'Too many attempts. Wait a minute, then try again.' };
+    }
+    if (exception instanceof HttpException) {
+      const status = exception.getStatus();
+      const code: ErrorCode =
+        status === 401 ? 'unauthenticated' : status === 403 ? 'forbidden' : status === 404 ? 'not-found' : status === 429 ? 'too-many-requests' : status >= 500 ? 'internal' : 'validation';
+      const message =
+        status === 404 ? 'There is nothing at this address.' : status === 401 ? 'Sign in to continue.' : status === 403 ? 'Your role cannot do this.' : exception.message;
+      return { statusCode: status, code, message };
+    }
+    const fastifyStatus = (exception as { statusCode?: number })?.statusCode;
+    if (typeof fastifyStatus === 'number' && fastifyStatus >= 400 && fastifyStatus < 500) {
+      // Errors raised by Fastify itself (malformed JSON, body too large, wrong content type).
+      const message =
+        fastifyStatus === 413 ? 'The upload is too large.' : 'The request could not be read: send valid JSON.';
+      return { statusCode: fastifyStatus, code: 'validation', message };
+    }
+    this.logger.error(exception instanceof Error ? exception.stack ?? exception.message : String(exception));
+    return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server. It has been logged; try again.' };
+  }
+}

@@ -1,0 +1,37 @@
+import { Sequelize } from 'sequelize';
+import { SequelizeStorage, Umzug } from 'umzug';
+
+export interface MigrationContext {
+  sequelize: Sequelize;
+}
+
+/**
+ * Versioned schema changes. Names drop their extension so that the TypeScript sources (tests)
+ * and the compiled JavaScript (dist) are the same migration.
+ */
+export function migrator(sequelize: Sequelize, log: (m: string) => void = () => {}) {
+  return new Umzug<MigrationContext>({
+    migrations: {
+      glob: ['migrations/*.{js,ts}', { cwd: __dirname, ignore: ['**/*.d.ts', '**/*.spec.ts'] }],
+      resolve: ({ name, path, context }) => {
+        // eslint-disable-next-line @typescript-eslint/no-require-imports
+        const migration = require(path!) as {
+          up: (c: MigrationContext) => Promise<void>;
+          down: (c: MigrationContext) => Promise<void>;
+        };
+        return {
+          name: name.replace(/\.(js|ts)$/, ''),
+          up: () => migration.up(context),
+          down: () => migration.down(context),
+        };
+      },
+    },
+    context: { sequelize },
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: { info: (m) => log(typeof m === 'string' ? m : JSON.stringify(m)), warn: () => {}, error: () => {}, debug: () => {} },
+  });
+}
+
+export async function migrateUp(sequelize: Sequelize, log?: (m: string) => void) {
+  return migrator(sequelize, log).up();
+}

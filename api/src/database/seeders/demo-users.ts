@@ -1,0 +1,12 @@
+import type { Role } from '@crumbproof/shared';
+
+/** The demo kitchen's staff. Every demo account shares one password, printed by npm start. */
+export const DEMO_PASSWORD = 'crumbproof-demo';
+
+export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
+  { email: 'manager@example.com', name: 'Maren Holloway', role: 'manager' },
+  { email: 'chef@example.com', name: 'Tobiah Quill', role: 'pastry-chef' },
+  { email: 'counter@example.com', name: 'Priya Santangelo', role: 'front-of-house' },
+];
+
+export const DEMO_SITE_ADDRESS = '14 Tannery Row, Wexcombe (an invented address)';

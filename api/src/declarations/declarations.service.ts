@@ -1,0 +1,86 @@
+import { createHash } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { bookRecipeSchema, type Book, type Declaration, type Regime } from '@crumbproof/shared';
+import { UniqueConstraintError } from 'sequelize';
+import { AppError } from '../common/app-error';
+import { BooksService } from '../books/books.service';
+import { parseJson } from '../kitchen/kitchen.service';
+import { RecipesRepository } from '../recipes/recipes.repository';
+import { RulesService } from '../rules/rules.service';
+import { validationError } from '../common/zod.pipe';
+import { DeclarationModel } from './declaration.model';
+
+/** Everything a product's declaration depends on: the site, and every item it reaches. */
+export function closureOf(book: Book, productId: string): Book {
+  const ing = new Map(book.ingredients.map((i) => [i.id, i]));
+  const rec = new Map(book.recipes.map((r) => [r.id, r]));
+  const seenI = new Set<string>();
+  const seenR = new Set<string>();
+  const visit = (id: string) => {
+    if (ing.has(id)) return void seenI.add(id);
+    if (!rec.has(id) || seenR.has(id)) return;
+    seenR.add(id);
+    for (const line of rec.get(id)!.lines) visit(line.use);
+  };
+  visit(productId);
+  return {
+    ...book,
+    ingredients: book.ingredients.filter((i) => seenI.has(i.id)),
+    recipes: book.recipes.filter((r) => seenR.has(r.id)),
+  };
+}
+
+/**
+ * Declarations of products, kept per recipe revision and regime and reused until anything they
+ * depend on changes (an ingredient, a sub-recipe, the site's handling, the reference data).
+ */
+@Injectable()
+export class DeclarationsService {
+  constructor(
+    @InjectModel(DeclarationModel) private readonly saved: typeof DeclarationModel,
+    private readonly books: BooksService,
+    private readonly recipes: RecipesRepository,
+    private readonly rules: RulesService,
+  ) {}
+
+  async forProduct(code: string, regime?: Regime): Promise<Declaration> {
+    const book = await this.books.exportBook();
+    const recipe = book.recipes.find((r) => r.id === code);
+    if (!recipe) throw new AppError('not-found', `There is no recipe '${code}'.`);
+    const site = (await this.books.site())!;
+    const head = (await this.recipes.findCurrent(site.id, code))!;
+    const useRegime = regime ?? book.site.regime;
+    const slice = closureOf(book, code);
+    const inputHash = createHash('sha256')
+      .update(JSON.stringify({ slice, regime: useRegime, refs: this.rules.referenceVersion }))
+      .digest('hex');
+    const hit = await this.saved.findOne({ where: { recipeId: head.id, regime: useRegime, inputHash } });
+    if (hit) return parseJson(hit.body) as Declaration;
+    const declaration = this.rules.declare(slice, code, useRegime);
+    try {
+      await this.saved.create({ recipeId: head.id, recipeRevision: head.revision, regime: useRegime, inputHash, body: declaration });
+    } catch (e) {
+      if (!(e instanceof UniqueConstraintError)) throw e; // computed at the same time elsewhere
+    }
+    return declaration;
+  }
+
+  /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */
+  async preview(input: unknown, regime?: Regime): Promise<Declaration> {
+    const parsed = bookRecipeSchema.safeParse(input);
+    if (!parsed.success) throw validationError(parsed.error);
+    const book = await this.books.exportBook();
+    const merged: Book = { ...book, recipes: [...book.recipes.filter((r) => r.id !== parsed.data.id), parsed.data] };
+    this.books.assertDeclarable(merged);
+    return this.rules.declare(closureOf(merged, parsed.data.id), parsed.data.id, regime ?? book.site.regime);
+  }
+
+  /** Declarations of every product for sale. */
+  async all(regime?: Regime): Promise<Declaration[]> {
+    const book = await this.books.exportBook();
+    const out: Declaration[] = [];
+    for (const r of book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime));
+    return out;
+  }
+}

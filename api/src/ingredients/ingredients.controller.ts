@@ -1,0 +1,47 @@
+import { Body, Controller, Get, HttpCode, Param, Post, Put } from '@nestjs/common';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { bookIngredientSchema, KITCHEN_WRITERS, type BookIngredient } from '@crumbproof/shared';
+import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
+import { Roles } from '../common/roles.decorator';
+import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
+import { IngredientsService } from './ingredients.service';
+
+@ApiTags('ingredients')
+@Controller('ingredients')
+@Roles(KITCHEN_WRITERS)
+export class IngredientsController {
+  constructor(private readonly ingredients: IngredientsService) {}
+
+  @Get()
+  @ApiOperation({ summary: 'Every ingredient with its current revision' })
+  list() {
+    return this.ingredients.list();
+  }
+
+  @Get(':code')
+  @ApiOperation({ summary: 'One ingredient, current revision' })
+  get(@Param('code') code: string) {
+    return this.ingredients.get(code);
+  }
+
+  @Get(':code/revisions')
+  @ApiOperation({ summary: 'Every revision of an ingredient, newest first' })
+  history(@Param('code') code: string) {
+    return this.ingredients.history(code);
+  }
+
+  @Post()
+  @HttpCode(201)
+  @ApiOperation({ summary: 'Add a bought-in ingredient' })
+  @ApiZodBody(bookIngredientSchema)
+  create(@CurrentUser() user: AuthUser, @Body(new ZodPipe(bookIngredientSchema)) body: BookIngredient) {
+    return this.ingredients.create(body, user.id);
+  }
+
+  @Put(':code')
+  @ApiOperation({ summary: 'Save an ingredient as a new revision' })
+  @ApiZodBody(bookIngredientSchema)
+  update(@CurrentUser() user: AuthUser, @Param('code') code: string, @Body(new ZodPipe(bookIngredientSchema)) body: BookIngredient) {
+    return this.ingredients.update(code, body, user.id);
+  }
+}

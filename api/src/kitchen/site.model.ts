@@ -1,0 +1,28 @@
+import { Column, DataType, Model, Table } from 'sequelize-typescript';
+import type { Control, AllergenSource, MeasureSystem, Regime } from '@crumbproof/shared';
+
+export interface Handling {
+  allergen: AllergenSource;
+  controls: Control;
+}
+
+@Table({ tableName: 'sites', underscored: true, timestamps: true })
+export class SiteModel extends Model {
+  @Column({ type: DataType.STRING(160), allowNull: false })
+  name: string;
+
+  @Column({ type: DataType.STRING(300), allowNull: false, defaultValue: '' })
+  address: string;
+
+  @Column({ type: DataType.ENUM('EU', 'UK', 'US', 'CA', 'ANZ'), allowNull: false })
+  regime: Regime;
+
+  @Column({ type: DataType.STRING(20), allowNull: true })
+  measures: MeasureSystem | null;
+
+  @Column({ type: DataType.JSON, allowNull: false })
+  handles: Handling[];
+
+  @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 1 })
+  version: number;
+}

@@ -1,0 +1,51 @@
+import { Body, Controller, Get, HttpCode, Param, Post, Put } from '@nestjs/common';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { bookRecipeSchema, KITCHEN_WRITERS, ROLES, type BookRecipe } from '@crumbproof/shared';
+import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
+import { Roles } from '../common/roles.decorator';
+import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
+import { RecipesService } from './recipes.service';
+
+@ApiTags('recipes')
+@Controller('recipes')
+export class RecipesController {
+  constructor(private readonly recipes: RecipesService) {}
+
+  @Get()
+  @Roles(ROLES)
+  @ApiOperation({ summary: 'Every recipe and product with its current revision' })
+  list() {
+    return this.recipes.list();
+  }
+
+  @Get(':code')
+  @Roles(ROLES)
+  @ApiOperation({ summary: 'One recipe, current revision' })
+  get(@Param('code') code: string) {
+    return this.recipes.get(code);
+  }
+
+  @Get(':code/revisions')
+  @Roles(KITCHEN_WRITERS)
+  @ApiOperation({ summary: 'Every revision of a recipe, newest first' })
+  history(@Param('code') code: string) {
+    return this.recipes.history(code);
+  }
+
+  @Post()
+  @Roles(KITCHEN_WRITERS)
+  @HttpCode(201)
+  @ApiOperation({ summary: 'Add a recipe or product; refused if it cannot be declared' })
+  @ApiZodBody(bookRecipeSchema)
+  create(@CurrentUser() user: AuthUser, @Body(new ZodPipe(bookRecipeSchema)) body: BookRecipe) {
+    return this.recipes.create(body, user.id);
+  }
+
+  @Put(':code')
+  @Roles(KITCHEN_WRITERS)
+  @ApiOperation({ summary: 'Save a recipe as a new revision; refused if it cannot be declared' })
+  @ApiZodBody(bookRecipeSchema)
+  update(@CurrentUser() user: AuthUser, @Param('code') code: string, @Body(new ZodPipe(bookRecipeSchema)) body: BookRecipe) {
+    return this.recipes.update(code, body, user.id);
+  }
+}

@@ -1,0 +1,52 @@
+import { Injectable } from '@nestjs/common';
+import type { BookRecipe } from '@crumbproof/shared';
+import { AppError } from '../common/app-error';
+import { BooksService } from '../books/books.service';
+import { RecipesRepository } from './recipes.repository';
+
+export interface RecipeView extends BookRecipe {
+  revision: number;
+  updatedAt: string;
+}
+
+@Injectable()
+export class RecipesService {
+  constructor(
+    private readonly repo: RecipesRepository,
+    private readonly books: BooksService,
+  ) {}
+
+  private async siteId() {
+    const site = await this.books.site();
+    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
+    return site.id;
+  }
+
+  async list(): Promise<RecipeView[]> {
+    const rows = await this.repo.listCurrent(await this.siteId());
+    return rows.map((r) => ({ id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() }));
+  }
+
+  async get(code: string): Promise<RecipeView> {
+    const r = await this.repo.findCurrent(await this.siteId(), code);
+    if (!r) throw new AppError('not-found', `There is no recipe '${code}'.`);
+    return { id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() };
+  }
+
+  async history(code: string) {
+    const revs = await this.repo.history(await this.siteId(), code);
+    if (!revs) throw new AppError('not-found', `There is no recipe '${code}'.`);
+    return revs.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+  }
+
+  async create(item: BookRecipe, authorId: number) {
+    await this.books.writeItem('recipe', item, { authorId, note: 'Created' }, 'new');
+    return this.get(item.id);
+  }
+
+  async update(code: string, item: BookRecipe, authorId: number, note?: string) {
+    if (item.id !== code) throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [{ path: 'id', message: 'Must match the address.' }]);
+    await this.books.writeItem('recipe', item, { authorId, note: note ?? 'Edited' }, 'existing');
+    return this.get(code);
+  }
+}

@@ -1,0 +1,177 @@
+import {
+  CONTROL_LABELS,
+  SOURCE_LABELS,
+  type AllergenSource,
+  type BookIngredient,
+  type ContainedAllergen,
+  type ExemptForm,
+  type ExemptUse,
+  type MayContainAllergen,
+  type Site,
+  type SourceEntry,
+  type UnknownAllergens,
+} from '@crumbproof/shared';
+import { scanComposition, type CompositionScan } from './composition-scan';
+import type { AllergenGroup, Exemption, Lexicon, RegimeRules } from './reference-schema';
+import type { TreeNode } from './tree';
+
+export interface SourceUse {
+  source: AllergenSource;
+  form?: ExemptForm;
+  species?: string;
+  /** 'composition': found by the composition scan although the supplier's list omits it. */
+  origin: 'supplier' | 'composition' | 'sulphite-content';
+  /** The composition text that named it. */
+  term?: string;
+}
+
+/** What one leaf of the tree brings, before any regime is applied. */
+export interface LeafFacts {
+  node: TreeNode;
+  ingredient: BookIngredient;
+  /** False when the supplier gave no allergen statement (contains left out). */
+  known: boolean;
+  contains: SourceUse[];
+  mayContain: SourceUse[];
+  scan: CompositionScan;
+}
+
+export function normalise(entry: SourceEntry): Omit<SourceUse, 'origin'> {
+  return typeof entry === 'string' ? { source: entry } : { ...entry };
+}
+
+/** Supplier statement, composition scan and stated sulphite content of each leaf. */
+export function leafFacts(leaves: TreeNode[], lexicon: Lexicon): LeafFacts[] {
+  const scans = new Map<string, CompositionScan>();
+  return leaves.map((node) => {
+    const ingredient = node.ingredient;
+    if (!ingredient) throw new Error(`${node.name} is not an ingredient.`);
+    let scan = scans.get(ingredient.id);
+    if (!scan) {
+      scan = scanComposition(ingredient.composition ?? '', lexicon);
+      scans.set(ingredient.id, scan);
+    }
+    const contains: SourceUse[] = (ingredient.contains ?? []).map((e) => ({ ...normalise(e), origin: 'supplier' }));
+    for (const hit of scan.allergens) {
+      if (!contains.some((c) => c.source === hit.source)) {
+        contains.push({ source: hit.source, ...(hit.species ? { species: hit.species } : {}), origin: 'composition', term: hit.matched });
+      }
+    }
+    if ((ingredient.sulphiteMgPerKg ?? 0) > 0 && !contains.some((c) => c.source === 'sulphites')) {
+      contains.push({ source: 'sulphites', origin: 'sulphite-content' });
+    }
+    return {
+      node,
+      ingredient,
+      known: ingredient.contains !== undefined,
+      contains,
+      mayContain: ingredient.mayContain.map((e) => ({ ...normalise(e), origin: 'supplier' as const })),
+      scan,
+    };
+  });
+}
+
+export function groupsOf(source: AllergenSource, rules: RegimeRules): AllergenGroup[] {
+  return rules.groups.filter((g) => g.members.includes(source));
+}
+
+/** The exemption that keeps this use out of the declaration under this regime, if any. */
+export function exemptionOf(use: Pick<SourceUse, 'source' | 'form'>, rules: RegimeRules): Exemption | undefined {
+  if (!use.form) return undefined;
+  return rules.exemptions.find((e) => e.source === use.source && e.form === use.form && !e.declared);
+}
+
+/** Sources this leaf declares under the regime (exempt forms left out; sulphites only when the product declares them). */
+export function declaredUses(facts: LeafFacts, rules: RegimeRules, sulphitesDeclared: boolean): SourceUse[] {
+  return facts.contains.filter((u) => !exemptionOf(u, rules) && (u.source !== 'sulphites' || sulphitesDeclared));
+}
+
+const pathKey = (p: string[]) => p.join('\u0000');
+const pushUnique = <T>(list: T[], item: T) => {
+  if (!list.includes(item)) list.push(item);
+};
+const pushPath = (list: string[][], path: string[]) => {
+  if (!list.some((p) => pathKey(p) === pathKey(path))) list.push(path);
+};
+
+export function containsFor(all: LeafFacts[], rules: RegimeRules, sulphitesDeclared: boolean): ContainedAllergen[] {
+  const found = new Map<string, ContainedAllergen>();
+  for (const facts of all) {
+    for (const use of declaredUses(facts, rules, sulphitesDeclared)) {
+      for (const group of groupsOf(use.source, rules)) {
+        const entry = found.get(group.code) ?? { allergen: group.code, label: group.label, sources: [], via: [] };
+        pushUnique(entry.sources, use.source);
+        if (use.species) {
+          entry.species ??= [];
+          pushUnique(entry.species, use.species);
+        }
+        pushPath(entry.via, facts.node.path);
+        found.set(group.code, entry);
+      }
+    }
+  }
+  return rules.groups.flatMap((g) => found.get(g.code) ?? []);
+}
+
+export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
+  const out: ExemptUse[] = [];
+  for (const facts of all) {
+    for (const use of facts.contains) {
+      const ex = exemptionOf(use, rules);
+      if (!ex || !use.form) continue;
+      const same = out.find((o) => o.ingredient === facts.ingredient.id && o.source === use.source && o.form === use.form);
+      if (same) pushPath(same.via, facts.node.path);
+      else out.push({ ingredient: facts.ingredient.id, name: facts.ingredient.name, source: use.source, form: use.form, basis: ex.basis, via: [facts.node.path] });
+    }
+  }
+  return out;
+}
+
+export function unknownFor(all: LeafFacts[]): UnknownAllergens[] {
+  const out: UnknownAllergens[] = [];
+  for (const facts of all.filter((f) => !f.known)) {
+    const same = out.find((o) => o.ingredient === facts.ingredient.id);
+    if (same) pushPath(same.via, facts.node.path);
+    else out.push({ ingredient: facts.ingredient.id, name: facts.ingredient.name, via: [facts.node.path] });
+  }
+  return out;
+}
+
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/**
+ * Supplier precautionary statements and the kitchen's shared handling, as the regime's groups.
+ * 'segregated' handling gives none; a group the product contains is never repeated.
+ */
+export function mayContainFor(all: LeafFacts[], site: Site, rules: RegimeRules, contained: ContainedAllergen[]): MayContainAllergen[] {
+  const found = new Map<string, MayContainAllergen>();
+  const add = (source: AllergenSource, why: string) => {
+    for (const group of groupsOf(source, rules)) {
+      if (contained.some((c) => c.allergen === group.code)) continue;
+      const entry = found.get(group.code) ?? { allergen: group.code, label: group.label, why: [] };
+      pushUnique(entry.why, why);
+      found.set(group.code, entry);
+    }
+  };
+  for (const facts of all) {
+    for (const use of facts.mayContain) {
+      if (exemptionOf(use, rules)) continue;
+      add(use.source, `Supplier of ${facts.ingredient.name}: may contain ${SOURCE_LABELS[use.source]}`);
+    }
+  }
+  for (const handled of site.handles) {
+    switch (handled.controls) {
+      case 'segregated':
+        break;
+      case 'shared-equipment':
+      case 'shared-area':
+        add(handled.allergen, `${capitalise(SOURCE_LABELS[handled.allergen])}: ${CONTROL_LABELS[handled.controls]}`);
+        break;
+      default: {
+        const never: never = handled.controls;
+        throw new Error(`Unknown control ${String(never)}`);
+      }
+    }
+  }
+  return rules.groups.flatMap((g) => found.get(g.code) ?? []);
+}

@@ -1,0 +1,92 @@
+import type { AllergenSource } from '@crumbproof/shared';
+import type { Lexicon } from './reference-schema';
+
+export type DietClaim = 'vegan' | 'vegetarian';
+
+interface Hit {
+  /** The lexicon term. */
+  term: string;
+  /** The text as written, e.g. "whey powder" matched "whey". */
+  matched: string;
+  start: number;
+  end: number;
+}
+export interface AllergenHit extends Hit {
+  source: AllergenSource;
+  species?: string;
+}
+export interface AnimalHit extends Hit {
+  fails: DietClaim[];
+  unverified: DietClaim[];
+}
+export interface VagueHit extends Hit {
+  message: string;
+}
+export interface CompositionScan {
+  allergens: AllergenHit[];
+  animal: AnimalHit[];
+  vague: VagueHit[];
+}
+
+const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+const LETTER = '[\\p{L}\\p{N}]';
+
+/** Whole-word occurrences of a phrase (an optional plural s/es allowed). */
+function occurrences(text: string, phrase: string, plural: boolean): Array<{ start: number; end: number }> {
+  const re = new RegExp(`(?<!${LETTER})${escape(phrase)}${plural ? '(?:e?s)?' : ''}(?!${LETTER})`, 'gu');
+  return [...text.matchAll(re)].map((m) => ({ start: m.index, end: m.index + m[0].length }));
+}
+
+/** Precautionary and "made in a factory" clauses, up to the next full stop or semicolon, are not composition. */
+function maskClauses(text: string, clauses: string[]): string {
+  let out = text;
+  for (const clause of clauses) {
+    for (const { start } of occurrences(out, clause, false)) {
+      const rest = out.slice(start);
+      const stop = rest.search(/[.;]/);
+      const end = stop < 0 ? out.length : start + stop;
+      out = out.slice(0, start) + ' '.repeat(end - start) + out.slice(end);
+    }
+  }
+  return out;
+}
+
+function negated(text: string, start: number, end: number, lexicon: Lexicon): boolean {
+  const before = text.slice(0, start).replace(/[\s-]+$/u, '');
+  const after = text.slice(end);
+  const endsWithWord = (s: string, w: string) => new RegExp(`(?<!${LETTER})${escape(w)}$`, 'u').test(s);
+  if (lexicon.negations.before.some((w) => endsWithWord(before, w))) return true;
+  return lexicon.negations.after.some((w) => new RegExp(`^\\s*${escape(w)}(?!${LETTER})`, 'u').test(after));
+}
+
+function find(text: string, term: string, except: string[] | undefined, lexicon: Lexicon): Hit[] {
+  const excepted = (except ?? []).flatMap((e) => occurrences(text, e, true));
+  return occurrences(text, term, true)
+    .filter(({ start, end }) => !excepted.some((x) => x.start <= start && end <= x.end))
+    .filter(({ start, end }) => !negated(text, start, end, lexicon))
+    .map(({ start, end }) => ({ term, matched: text.slice(start, end), start, end }));
+}
+
+/**
+ * Reads a supplier's composition text for terms that name an allergen source or an
+ * animal-derived ingredient (reference-data/lexicon.json). Whole words only: "nutmeg",
+ * "buckwheat" and "butternut" are not hits; look-alikes such as "cocoa butter" and
+ * "coconut milk" are listed as exceptions; negated ("peanut-free") and precautionary
+ * ("may contain nuts") mentions are skipped.
+ */
+export function scanComposition(composition: string, lexicon: Lexicon): CompositionScan {
+  const text = maskClauses(composition.toLowerCase(), lexicon.negations.clauses);
+  const allergens: AllergenHit[] = lexicon.allergenTerms.flatMap((t) =>
+    find(text, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), source: t.source, ...(t.species ? { species: t.species } : {}) })),
+  );
+  const animal: AnimalHit[] = lexicon.animalTerms.flatMap((t) =>
+    find(text, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), fails: t.fails ?? [], unverified: t.unverified ?? [] })),
+  );
+  const covered = (h: Hit) => allergens.some((a) => a.start <= h.start && h.end <= a.end);
+  const vague: VagueHit[] = lexicon.vagueTerms.flatMap((t) =>
+    find(text, t.term, t.except, lexicon)
+      .filter((h) => !covered(h))
+      .map((h) => ({ ...h, matched: composition.slice(h.start, h.end), message: t.message })),
+  );
+  return { allergens, animal, vague };
+}

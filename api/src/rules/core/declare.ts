@@ -1,0 +1,182 @@
+import {
+  SOURCE_LABELS,
+  type Book,
+  type Declaration,
+  type DeclarationNotice,
+  type DeclarationSet,
+  type Regime,
+} from '@crumbproof/shared';
+import {
+  containsFor,
+  declaredUses,
+  exemptUses,
+  groupsOf,
+  leafFacts,
+  mayContainFor,
+  unknownFor,
+  type LeafFacts,
+} from './allergens';
+import { checkBook } from './book-check';
+import { claimsFor } from './claims';
+import { BookProblemsError, UnknownProductError } from './errors';
+import { ingredientList } from './ingredient-list';
+import { quidFor } from './quid';
+import type { ReferenceData, RegimeRules } from './reference-schema';
+import { mayContainText, renderList, type Mark } from './statement';
+import { sulphitesFor } from './sulphites';
+import { buildTree, leavesOf, type TreeNode } from './tree';
+
+export interface DeclareOptions {
+  /** Defaults to the book's site regime. */
+  regime?: Regime;
+}
+
+/** Declares one product. Throws BookProblemsError when checkBook finds problems. */
+export function declare(book: Book, productId: string, refs: ReferenceData, opts: DeclareOptions = {}): Declaration {
+  const problems = checkBook(book);
+  if (problems.length > 0) throw new BookProblemsError(problems);
+  if (!book.recipes.some((r) => r.id === productId)) throw new UnknownProductError(productId);
+  return declareChecked(book, productId, refs, opts.regime ?? book.site.regime);
+}
+
+/** One declaration for each recipe with sale details. */
+export function declareAll(book: Book, refs: ReferenceData, opts: DeclareOptions = {}): DeclarationSet {
+  const problems = checkBook(book);
+  if (problems.length > 0) throw new BookProblemsError(problems);
+  const regime = opts.regime ?? book.site.regime;
+  return { declarations: book.recipes.filter((r) => r.sale).map((r) => declareChecked(book, r.id, refs, regime)) };
+}
+
+const NOT_VEGAN = new Set(['milk', 'egg', 'fish', 'crustacean', 'mollusc']);
+const NOT_VEGETARIAN = new Set(['fish', 'crustacean', 'mollusc']);
+
+function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNotice[] {
+  const warnings: DeclarationNotice[] = [];
+  const seen = new Set<string>();
+  for (const f of all) {
+    const i = f.ingredient;
+    if (seen.has(i.id)) continue;
+    seen.add(i.id);
+    for (const use of f.contains.filter((u) => u.origin === 'composition')) {
+      const source = SOURCE_LABELS[use.source];
+      warnings.push({
+        code: 'composition-discrepancy',
+        ingredient: i.id,
+        message: f.known
+          ? `The composition of ${i.name} names '${use.term}' (${source}), but its allergen list leaves ${source} out; ${source} is taken as contained. Check with the supplier.`
+          : `The composition of ${i.name} names '${use.term}' (${source}); ${i.name} has no allergen statement, so ${source} is taken as contained.`,
+      });
+    }
+    for (const hit of f.scan.vague) {
+      warnings.push({ code: 'composition-vague', ingredient: i.id, message: `The composition of ${i.name} ${hit.message} ('${hit.matched}'). Ask the supplier which.` });
+    }
+    const animalVegan = f.contains.some((u) => NOT_VEGAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegan'));
+    const animalVegetarian = f.contains.some((u) => NOT_VEGETARIAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegetarian'));
+    if (i.vegan === true && animalVegan) {
+      warnings.push({ code: 'dietary-discrepancy', ingredient: i.id, message: `${i.name} is recorded as vegan but its allergens or composition name an animal product; vegan is not taken as met.` });
+    }
+    if (i.vegetarian === true && animalVegetarian) {
+      warnings.push({ code: 'dietary-discrepancy', ingredient: i.id, message: `${i.name} is recorded as vegetarian but its allergens or composition name meat or fish; vegetarian is not taken as met.` });
+    }
+    if (!f.known) {
+      warnings.push({ code: 'allergens-unknown', ingredient: i.id, message: `Not known: ${i.name} has no allergen statement. Nothing about its allergens is proved.` });
+    }
+    for (const use of f.contains) {
+      const group = groupsOf(use.source, rules).find((g) => g.nameSpecies);
+      if (group && !use.species && rules.statement.contains?.names === 'sources') {
+        warnings.push({ code: 'species-missing', ingredient: i.id, message: `${i.name} contains ${SOURCE_LABELS[use.source]} with no species recorded; the statement must name the species.` });
+      }
+    }
+  }
+  return warnings;
+}
+
+function declareChecked(book: Book, productId: string, refs: ReferenceData, regime: Regime): Declaration {
+  const rules = refs.regimes[regime];
+  const tree = buildTree(book, productId);
+  const facts = leafFacts(leavesOf(tree.children), refs.lexicon);
+  const byNode = new Map<TreeNode, LeafFacts>(facts.map((f) => [f.node, f]));
+
+  const sulphites = sulphitesFor(facts, tree.finishedG, rules);
+  const contains = containsFor(facts, rules, sulphites.declared);
+  const mayContain = mayContainFor(facts, book.site, rules, contains);
+  const claims = claimsFor(facts, book.site, rules, tree.finishedG);
+
+  const groupsAt = (node: TreeNode): string[] => {
+    const codes = new Set<string>();
+    for (const leaf of node.kind === 'ingredient' ? [node] : leavesOf(node.children)) {
+      const f = byNode.get(leaf);
+      if (!f) continue;
+      for (const use of declaredUses(f, rules, sulphites.declared)) groupsOf(use.source, rules).forEach((g) => codes.add(g.code));
+    }
+    return rules.groups.map((g) => g.code).filter((c) => codes.has(c));
+  };
+  const list = ingredientList(tree, rules, groupsAt);
+
+  const marksOf = (ingredientId: string): Mark[] => {
+    const f = facts.find((x) => x.ingredient.id === ingredientId);
+    if (!f) return [];
+    const emphasis = rules.statement.marksInList;
+    const marks: Mark[] = [];
+    const add = (m: Mark) => {
+      if (!marks.some((x) => x.name === m.name)) marks.push(m);
+    };
+    for (const use of declaredUses(f, rules, sulphites.declared)) {
+      if (use.source === 'sulphites') {
+        if (rules.sulphites.markInList) add({ name: rules.sulphites.name, match: rules.sourceNames.sulphites?.match ?? [rules.sulphites.name], emphasis });
+        continue;
+      }
+      const name = rules.sourceNames[use.source];
+      if (!emphasis || !name || groupsOf(use.source, rules).length === 0) continue;
+      add({ name: name.name, match: name.match ?? [name.name], emphasis });
+      if (name.also) add({ name: name.also, match: [name.also], emphasis });
+    }
+    return marks;
+  };
+  const rendered = renderList(list.entries, contains, rules, marksOf);
+  const quid = quidFor(tree, tree.recipe.sale?.quid ?? []);
+
+  const warnings: DeclarationNotice[] = [...ingredientWarnings(facts, rules), ...sulphites.warnings, ...list.warnings];
+  const exempt = exemptUses(facts, rules);
+  for (const e of exempt) {
+    warnings.push({ code: 'exempt-form', ingredient: e.ingredient, message: `${e.name}: ${SOURCE_LABELS[e.source]} in this form is not declared (${e.basis}).` });
+  }
+  if (claims.vegan.status === 'ok' && mayContain.some((m) => groupsOf('milk', rules).some((g) => g.code === m.allergen))) {
+    warnings.push({ code: 'vegan-not-dairy-free', message: `${tree.recipe.name} is vegan as recorded but may contain milk: vegan is not dairy-free.` });
+  }
+
+  const errors: DeclarationNotice[] = [...quid.errors];
+  for (const claim of tree.recipe.sale?.claims ?? []) {
+    const result = claims[claim];
+    if (result.status !== 'ok') {
+      const why = result.reasons.map((r) => r.message).join(' ');
+      errors.push({
+        code: 'claim-not-met',
+        message: `${tree.recipe.name} is sold as ${claim}, but the claim ${result.status === 'fails' ? 'fails' : 'cannot be verified'}: ${why}`,
+      });
+    }
+  }
+
+  return {
+    product: tree.recipe.id,
+    name: tree.recipe.name,
+    regime,
+    finishedWeightG: tree.finishedG,
+    mixWeightG: tree.mixG,
+    portionG: tree.recipe.sale?.portionG ?? null,
+    contains,
+    mayContain,
+    unknown: unknownFor(facts),
+    exempt,
+    claims,
+    ingredients: list.entries,
+    ingredientsText: rendered.text,
+    ingredientsSegments: rendered.segments,
+    ingredientsMarkdown: rendered.markdown,
+    mayContainText: mayContainText(mayContain),
+    quid: quid.quid,
+    sulphites: { mgPerKg: sulphites.mgPerKg, declared: sulphites.declared },
+    warnings,
+    errors,
+  };
+}

@@ -1,0 +1,19 @@
+/**
+ * The pure rules engine: plain functions over the recipe book and the reference data.
+ * No framework, no database, no I/O (reference data is passed in).
+ */
+export { checkBook } from './book-check';
+export { declare, declareAll, type DeclareOptions } from './declare';
+export { BookProblemsError, UnknownProductError } from './errors';
+export { scanComposition, type CompositionScan } from './composition-scan';
+export { buildTree, leavesOf, type ProductTree, type TreeNode } from './tree';
+export { bookJsonSchema, bookJsonSchemaText } from './book-schema';
+export { defaultMeasures, toGrams } from './quantities';
+export {
+  lexiconFileSchema,
+  regimesFileSchema,
+  type Lexicon,
+  type ReferenceData,
+  type RegimeRules,
+  type RegimesFile,
+} from './reference-schema';

@@ -1,0 +1,12 @@
+export { computeNutrition, ENERGY_NEEDS } from './compute';
+export type { NutritionOptions } from './compute';
+export { EU_ENERGY_FACTORS, SALT_PER_SODIUM, US_CALORIE_FACTORS, euEnergy, usCalories } from './energy';
+export type { EnergyInputs, UsCalorieInputs } from './energy';
+export { euText } from './rounding-eu';
+export type { EuRoundingKind } from './rounding-eu';
+export { usText, percentDvText } from './rounding-us';
+export type { UsRoundingKind } from './rounding-us';
+export { US_DAILY_VALUES, percentDv } from './daily-values';
+export { ingredientFigures } from './ingredient-figures';
+export { nutrientTableSchema } from './nutrient-table';
+export type { NutrientTable, NutrientTableRow } from './nutrient-table';

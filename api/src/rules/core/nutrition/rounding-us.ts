@@ -1,0 +1,67 @@
+import { decimalsOf, roundToStep } from './round';
+
+/**
+ * Printed amounts per serving for the US Nutrition Facts label, after 21 CFR 101.9(c) and the
+ * FDA Food Labeling Guide, Appendix H (rounding rules; DOMAIN.md 3.3).
+ *
+ * Decisions where the rules leave a choice:
+ * - Protein from 0.5 g to under 1 g prints "less than 1 g" (101.9(c)(7) also allows "1 g").
+ * - Cholesterol from 2 mg to 5 mg inclusive prints "less than 5 mg".
+ * - Exact ties round half up (see round.ts).
+ */
+export type UsRoundingKind = 'calories' | 'fat' | 'cholesterol' | 'sodium' | 'carbohydrate' | 'protein';
+
+export const US_INCOMPLETE_TEXT = 'incomplete';
+
+function fixed(value: number, step: number): string {
+  return roundToStep(value, step).toFixed(decimalsOf(step));
+}
+
+/** The printed amount per serving, or "incomplete". */
+export function usText(kind: UsRoundingKind, value: number | null): string {
+  if (value === null) return US_INCOMPLETE_TEXT;
+  switch (kind) {
+    case 'calories':
+      // (c)(1): < 5 → 0; ≤ 50 → nearest 5; > 50 → nearest 10.
+      if (value < 5) return '0';
+      return value <= 50 ? fixed(value, 5) : fixed(value, 10);
+    case 'fat':
+      // (c)(2) total, saturated and trans fat: < 0.5 → 0; < 5 → nearest 0.5; ≥ 5 → nearest 1.
+      if (value < 0.5) return '0 g';
+      return value < 5 ? `${trimHalf(roundToStep(value, 0.5))} g` : `${fixed(value, 1)} g`;
+    case 'cholesterol':
+      // (c)(3): < 2 → 0; 2 to 5 → "less than 5 mg"; > 5 → nearest 5.
+      if (value < 2) return '0 mg';
+      return value <= 5 ? 'less than 5 mg' : `${fixed(value, 5)} mg`;
+    case 'sodium':
+      // (c)(4): < 5 → 0; 5 to 140 → nearest 5; > 140 → nearest 10.
+      if (value < 5) return '0 mg';
+      return value <= 140 ? `${fixed(value, 5)} mg` : `${fixed(value, 10)} mg`;
+    case 'carbohydrate':
+    case 'protein':
+      // (c)(6) carbohydrate, fibre, sugars, added sugars; (c)(7) protein:
+      // < 0.5 → 0; < 1 → "less than 1 g"; ≥ 1 → nearest 1.
+      if (value < 0.5) return '0 g';
+      return value < 1 ? 'less than 1 g' : `${fixed(value, 1)} g`;
+    default: {
+      const never: never = kind;
+      throw new Error(`Unknown rounding kind ${String(never)}`);
+    }
+  }
+}
+
+/** 4.5 → "4.5", 4 → "4", 5 → "5". */
+function trimHalf(value: number): string {
+  return Number.isInteger(value) ? value.toFixed(0) : value.toFixed(1);
+}
+
+/** True when the printed amount is zero ("0 g", "0 mg", "0"). */
+export function printsZero(text: string): boolean {
+  return /^0( g| mg)?$/.test(text);
+}
+
+/** %DV, nearest 1 % (Appendix H). */
+export function percentDvText(percent: number | null): string {
+  if (percent === null) return US_INCOMPLETE_TEXT;
+  return `${roundToStep(percent, 1).toFixed(0)}%`;
+}

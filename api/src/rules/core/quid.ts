@@ -1,0 +1,44 @@
+import type { DeclarationNotice, QuidEntry } from '@crumbproof/shared';
+import { round } from './compare';
+import type { ProductTree, TreeNode } from './tree';
+
+function all(nodes: TreeNode[]): TreeNode[] {
+  return nodes.flatMap((n) => [n, ...all(n.children)]);
+}
+
+/** Whole numbers from 1 % up, one decimal below (rounding is common practice, not fixed by the Regulation; from memory). */
+export function formatPercent(percent: number): string {
+  return percent >= 1 ? `${round(percent, 0)}%` : `${round(percent, 1)}%`;
+}
+
+const lowerFirst = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
+
+/**
+ * QUID for the ids in sale.quid, related to the finished product after moisture loss
+ * (EU 1169/2011 Annex VIII 4(a)): 100 × weight used / finished weight. The weight used adds
+ * every use of the id in the product (sub-recipes scaled to the amount used). When any one
+ * figure or the total of those shown exceeds 100 %, every entry is given as
+ * "prepared with X g of Y per 100 g" instead.
+ */
+export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; errors: DeclarationNotice[] } {
+  const nodes = all(tree.children).filter((n) => n.role !== 'contact');
+  const errors: DeclarationNotice[] = [];
+  const found = ids.flatMap((id) => {
+    const uses = nodes.filter((n) => n.id === id);
+    const grams = uses.reduce((s, n) => s + n.massG, 0);
+    if (uses.length === 0 || grams <= 0) {
+      errors.push({ code: 'quid-not-in-product', ingredient: id, message: `The quantity of '${id}' is asked for, but ${tree.recipe.name} does not use it.` });
+      return [];
+    }
+    return [{ id, name: uses[0].name, percent: tree.finishedG > 0 ? (100 * grams) / tree.finishedG : 0 }];
+  });
+  const total = found.reduce((s, f) => s + f.percent, 0);
+  const perHundred = found.some((f) => f.percent > 100) || total > 100;
+  const quid = found.map((f) => ({
+    ingredient: f.id,
+    name: f.name,
+    percent: f.percent,
+    text: perHundred ? `Prepared with ${round(f.percent, 1)} g of ${lowerFirst(f.name)} per 100 g` : `${f.name} ${formatPercent(f.percent)}`,
+  }));
+  return { quid, errors };
+}

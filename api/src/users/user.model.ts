@@ -1,0 +1,22 @@
+import { Column, DataType, Model, Table } from 'sequelize-typescript';
+import type { Role } from '@crumbproof/shared';
+
+@Table({ tableName: 'users', underscored: true, timestamps: true })
+export class UserModel extends Model {
+  @Column({ type: DataType.STRING(254), allowNull: false, unique: true })
+  email: string;
+
+  @Column({ type: DataType.STRING(120), allowNull: false })
+  name: string;
+
+  @Column({ type: DataType.ENUM('manager', 'pastry-chef', 'front-of-house'), allowNull: false })
+  role: Role;
+
+  @Column({ type: DataType.STRING(100), allowNull: false, field: 'password_hash' })
+  passwordHash: string;
+
+  @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: true })
+  active: boolean;
+
+  declare createdAt: Date;
+}

@@ -1,0 +1,165 @@
+import type { AllergenSource, Claim, ClaimStatus, ExemptForm, LineRole, Regime } from './allergens';
+
+/**
+ * The declaration of one product under one regime: what the rules engine proves from the
+ * recipe book, and what it cannot. The web app and the label renderer read it as is.
+ */
+
+/** What checkBook refuses. Nothing is declared from a book with problems. */
+export const BOOK_PROBLEM_CODES = ['recipe-cycle', 'unknown-reference', 'unweighable-line', 'duplicate-id'] as const;
+export type BookProblemCode = (typeof BOOK_PROBLEM_CODES)[number];
+
+export interface BookProblem {
+  code: BookProblemCode;
+  message: string;
+  recipe?: string;
+  ingredient?: string;
+  /** 1-based line number within `recipe`. */
+  line?: number;
+}
+
+/** Ids from the product down to the ingredient that brings something, e.g. ['cake', 'sponge', 'eggs']. */
+export type IdPath = string[];
+
+export interface ContainedAllergen {
+  /** The regime's group code, e.g. 'gluten' (EU) or 'tree-nuts' (US). */
+  allergen: string;
+  label: string;
+  sources: AllergenSource[];
+  /** Species recorded for fish, crustaceans and molluscs (named in the US statement). */
+  species?: string[];
+  /** Every path from the product to a leaf that brings this group. */
+  via: IdPath[];
+}
+
+export interface MayContainAllergen {
+  allergen: string;
+  label: string;
+  /** Short sentences, e.g. "Supplier of Dark chocolate: may contain milk". */
+  why: string[];
+}
+
+/** A leaf with no allergen statement: nothing about it can be proved. */
+export interface UnknownAllergens {
+  ingredient: string;
+  name: string;
+  via: IdPath[];
+}
+
+/** A source present in a form that this regime exempts from declaration. */
+export interface ExemptUse {
+  ingredient: string;
+  name: string;
+  source: AllergenSource;
+  form: ExemptForm;
+  basis: string;
+  via: IdPath[];
+}
+
+export interface ClaimReason {
+  /** The leaf ingredient id; null when the reason is the kitchen itself (shared handling). */
+  leaf: string | null;
+  path: IdPath;
+  message: string;
+}
+
+export interface ClaimResult {
+  status: ClaimStatus;
+  reasons: ClaimReason[];
+}
+
+export type DeclaredClaims = Record<Claim, ClaimResult>;
+
+export interface DeclaredIngredient {
+  id: string;
+  name: string;
+  kind: 'ingredient' | 'recipe';
+  /**
+   * Share of the product's mix (the product's own lines at the time of use), in percent.
+   * A sub-recipe's components split their parent's share in proportion to the sub-recipe's
+   * own mix, so siblings add up to their parent. Added water placed by Annex VII A.1 carries
+   * its share of the finished product instead. Contact lines: 0.
+   */
+  percent: number;
+  /** Weight that orders the list, in grams (0 for contact lines). */
+  orderWeightG: number;
+  /** The regime's group codes this entry brings (for a sub-recipe: everything below it). */
+  allergens: string[];
+  role: LineRole;
+  children: DeclaredIngredient[];
+}
+
+export interface TextSegment {
+  text: string;
+  emphasis: boolean;
+}
+
+export interface QuidEntry {
+  ingredient: string;
+  name: string;
+  /** 100 × weight used / finished weight (Annex VIII 4(a)), unrounded. */
+  percent: number;
+  /** "Butter 28%" or, when over 100 % in total, "Prepared with 27.8 g of butter per 100 g". */
+  text: string;
+}
+
+export interface SulphiteResult {
+  /** Total SO2 in the product as eaten; null when some sulphite source has no stated content. */
+  mgPerKg: number | null;
+  declared: boolean;
+}
+
+export const DECLARATION_NOTICE_CODES = [
+  'claim-not-met',
+  'quid-not-in-product',
+  'composition-discrepancy',
+  'composition-vague',
+  'dietary-discrepancy',
+  'allergens-unknown',
+  'sulphites-unstated',
+  'species-missing',
+  'vegan-not-dairy-free',
+  'added-water-omitted',
+  'exempt-form',
+] as const;
+export type DeclarationNoticeCode = (typeof DECLARATION_NOTICE_CODES)[number];
+
+export interface DeclarationNotice {
+  code: DeclarationNoticeCode;
+  message: string;
+  ingredient?: string;
+}
+
+export interface Declaration {
+  product: string;
+  name: string;
+  regime: Regime;
+  /** Weight after baking (finishedWeightG), else the sum of the product's line weights. */
+  finishedWeightG: number;
+  /** Sum of the product's own line weights at the time of use (contact lines excluded). */
+  mixWeightG: number;
+  portionG: number | null;
+  contains: ContainedAllergen[];
+  mayContain: MayContainAllergen[];
+  unknown: UnknownAllergens[];
+  exempt: ExemptUse[];
+  claims: DeclaredClaims;
+  ingredients: DeclaredIngredient[];
+  /** The list in the regime's own form, as plain text (emphasis is in the segments). */
+  ingredientsText: string;
+  /** The same text in runs, each emphasised (bold) or not, so renderers never parse. */
+  ingredientsSegments: TextSegment[];
+  /** The same text with emphasised runs between ** marks. */
+  ingredientsMarkdown: string;
+  /** Precautionary statement, e.g. "May contain: sesame.", or null. */
+  mayContainText: string | null;
+  quid: QuidEntry[];
+  sulphites: SulphiteResult;
+  warnings: DeclarationNotice[];
+  /** Anything here blocks printing the product's labels. */
+  errors: DeclarationNotice[];
+}
+
+export interface DeclarationSet {
+  declarations: Declaration[];
+}

@@ -1,0 +1,67 @@
+import type { Role } from '@crumbproof/shared';
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { mockApi, signedInAs } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render-app';
+
+const cases: { role: Role; links: string[]; first: string }[] = [
+  {
+    role: 'manager',
+    links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Users'],
+    first: 'Ingredients',
+  },
+  { role: 'pastry-chef', links: ['Ingredients', 'Recipes', 'Counter', 'Labels'], first: 'Ingredients' },
+  { role: 'front-of-house', links: ['Counter', 'Recipes'], first: 'Counter' },
+];
+
+describe('Main navigation', () => {
+  it.each(cases)('shows $role exactly their pages and opens $first first', async ({ role, links, first }) => {
+    mockApi(signedInAs(role, { 'GET /api/users': { body: [] } }));
+    renderApp('/');
+
+    expect(await screen.findByRole('heading', { level: 1, name: first })).toBeInTheDocument();
+    const nav = screen.getByRole('navigation', { name: 'Main' });
+    const names = within(nav)
+      .getAllByRole('link')
+      .map((link) => link.textContent);
+    expect(names).toEqual(links);
+    expect(within(nav).getByRole('link', { name: first })).toHaveAttribute('aria-current', 'page');
+  });
+
+  it('moves between pages', async () => {
+    mockApi(signedInAs('front-of-house'));
+    const { user } = renderApp('/counter');
+
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    await user.click(within(nav).getByRole('link', { name: 'Recipes' }));
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Recipes' })).toBeInTheDocument();
+    expect(screen.getByText(/This page is not built yet\. It will list recipes/)).toBeInTheDocument();
+    expect(screen.getAllByRole('heading', { level: 1 })).toHaveLength(1);
+  });
+
+  it('keeps the page working when the kitchen cannot be fetched', async () => {
+    mockApi(
+      signedInAs('pastry-chef', {
+        'GET /api/kitchen': { status: 500, body: { statusCode: 500, code: 'internal', message: 'Down.' } },
+      }),
+    );
+    renderApp('/labels');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Labels' })).toBeInTheDocument();
+    expect(within(screen.getByRole('banner')).getByText('Teodor Lind')).toBeInTheDocument();
+    expect(screen.queryByText('Larch Street Bakehouse')).not.toBeInTheDocument();
+  });
+
+  it('gives every page a skip link, a main landmark and the caution', async () => {
+    mockApi(signedInAs('manager'));
+    renderApp('/audit');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Audit' })).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Skip to main content' })).toHaveAttribute('href', '#main');
+    expect(screen.getByRole('main')).toHaveAttribute('id', 'main');
+    expect(screen.getByRole('contentinfo')).toHaveTextContent(
+      'Crumbproof computes declarations from the recipes and supplier information entered.',
+    );
+  });
+});

@@ -1,0 +1,37 @@
+import { Box, Link, List } from '@chakra-ui/react';
+import type { Role } from '@crumbproof/shared';
+import { NavLink } from 'react-router-dom';
+import { PAGES, pagesFor } from '../navigation';
+
+interface MainNavProps {
+  role: Role;
+}
+
+/** The pages this role may open, and only those. Wraps onto two lines at tablet width. */
+export function MainNav({ role }: MainNavProps) {
+  return (
+    <Box as="nav" aria-label="Main" maxW="6xl" mx="auto" px={{ base: '2', md: '6' }}>
+      <List.Root as="ul" listStyle="none" display="flex" flexWrap="wrap" gap="1">
+        {pagesFor(role).map((key) => (
+          <List.Item key={key}>
+            <Link
+              asChild
+              display="inline-flex"
+              alignItems="center"
+              minH="11"
+              px="3"
+              color="fg"
+              textDecoration="none"
+              borderBottomWidth="3px"
+              borderColor="transparent"
+              _hover={{ bg: 'accent.subtle', textDecoration: 'none' }}
+              _currentPage={{ borderColor: 'accent.solid', color: 'accent.fg', fontWeight: 'bold' }}
+            >
+              <NavLink to={PAGES[key].path}>{PAGES[key].label}</NavLink>
+            </Link>
+          </List.Item>
+        ))}
+      </List.Root>
+    </Box>
+  );
+}

@@ -1,0 +1,31 @@
+import type { Role } from '@crumbproof/shared';
+import { screen } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { mockApi, signedInAs, USERS } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render-app';
+
+describe('Pages a role may not use', () => {
+  it('refuses /users to front of house, naming the role and who can open it', async () => {
+    const { calls } = mockApi(signedInAs('front-of-house', { 'GET /api/users': { body: USERS } }));
+    renderApp('/users');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Not available to your role' })).toBeInTheDocument();
+    expect(screen.getByText(/You are signed in as Front of house\. Users can be opened by Manager\./)).toBeInTheDocument();
+    expect(screen.queryByRole('heading', { name: 'Users' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('table')).not.toBeInTheDocument();
+    expect(calls.some((call) => call.path === '/api/users')).toBe(false);
+    expect(screen.getByRole('link', { name: 'Go to your first page' })).toHaveAttribute('href', '/counter');
+  });
+
+  it.each<{ role: Role; path: string; sentence: RegExp }>([
+    { role: 'front-of-house', path: '/ingredients', sentence: /Ingredients can be opened by Manager and Pastry chef\./ },
+    { role: 'pastry-chef', path: '/approvals', sentence: /Approvals can be opened by Manager\./ },
+    { role: 'pastry-chef', path: '/users', sentence: /Users can be opened by Manager\./ },
+  ])('refuses $path to $role', async ({ role, path, sentence }) => {
+    mockApi(signedInAs(role));
+    renderApp(path);
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Not available to your role' })).toBeInTheDocument();
+    expect(screen.getByText(sentence)).toBeInTheDocument();
+  });
+});

@@ -1,0 +1,73 @@
+import type { Me } from '@crumbproof/shared';
+import type { ReactNode } from 'react';
+import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { SignInRoute } from '@/features/auth/routes/sign-in';
+import { ApprovalsRoute } from '@/features/approvals/routes/approvals';
+import { AuditRoute } from '@/features/audit/routes/audit';
+import { CounterRoute } from '@/features/counter/routes/counter';
+import { IngredientsRoute } from '@/features/ingredients/routes/ingredients';
+import { LabelsRoute } from '@/features/labels/routes/labels';
+import { RecipesRoute } from '@/features/recipes/routes/recipes';
+import { UsersRoute } from '@/features/users/routes/users';
+import { AppShell, PublicShell, ShellFrame } from './layout/app-shell';
+import { RequireSignIn } from './layout/require-sign-in';
+import { RoleGate } from './layout/role-gate';
+import { firstPathFor, PAGES, type PageKey } from './navigation';
+import { HomeRedirect } from './routes/home-redirect';
+import { NotFoundRoute } from './routes/not-found';
+import { RouteError } from './routes/route-error';
+
+const PAGE_ELEMENTS: Record<PageKey, ReactNode> = {
+  ingredients: <IngredientsRoute />,
+  recipes: <RecipesRoute />,
+  counter: <CounterRoute />,
+  labels: <LabelsRoute />,
+  approvals: <ApprovalsRoute />,
+  audit: <AuditRoute />,
+  users: <UsersRoute />,
+};
+
+const homeFor = (me: Me) => firstPathFor(me.role);
+
+/** Every route of the web app, in one place. */
+export const routes: RouteObject[] = [
+  {
+    errorElement: (
+      <ShellFrame>
+        <RouteError />
+      </ShellFrame>
+    ),
+    children: [
+      {
+        element: <PublicShell />,
+        children: [{ path: '/sign-in', element: <SignInRoute homeFor={homeFor} /> }],
+      },
+      {
+        path: '/',
+        element: (
+          <RequireSignIn>
+            <AppShell />
+          </RequireSignIn>
+        ),
+        children: [
+          {
+            // Errors inside a page keep the header and navigation around them.
+            errorElement: <RouteError />,
+            children: [
+              { index: true, element: <HomeRedirect /> },
+              ...(Object.keys(PAGES) as PageKey[]).map((key) => ({
+                path: PAGES[key].path.slice(1),
+                element: <RoleGate page={key}>{PAGE_ELEMENTS[key]}</RoleGate>,
+              })),
+              { path: '*', element: <NotFoundRoute /> },
+            ],
+          },
+        ],
+      },
+    ],
+  },
+];
+
+export function createAppRouter() {
+  return createBrowserRouter(routes);
+}

@@ -1,0 +1,30 @@
+import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiClient } from '@/lib/api-client';
+
+export async function signOut(): Promise<void> {
+  await apiClient.post<void>('/auth/sign-out');
+}
+
+export function signOutMutationOptions() {
+  return mutationOptions({ mutationKey: ['auth', 'sign-out'], mutationFn: signOut });
+}
+
+interface UseSignOutOptions {
+  /** Leave the signed-in pages (go to /sign-in); the cache is cleared once they are gone. */
+  onSignedOut: () => void | Promise<void>;
+}
+
+/**
+ * Signs out, leaves the signed-in pages, then forgets everything cached for that person.
+ * Clearing after leaving keeps the old pages from refetching on their way out.
+ */
+export function useSignOut({ onSignedOut }: UseSignOutOptions) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    ...signOutMutationOptions(),
+    onSettled: async () => {
+      await onSignedOut();
+      queryClient.clear();
+    },
+  });
+}

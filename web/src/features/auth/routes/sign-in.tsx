@@ -1,0 +1,48 @@
+import { Box, Heading, Stack, Text } from '@chakra-ui/react';
+import type { Me } from '@crumbproof/shared';
+import { useEffect } from 'react';
+import { useLocation, useNavigate } from 'react-router-dom';
+import { BrandMark } from '@/components/ui/brand-mark';
+import { SignInForm } from '../components/sign-in-form';
+
+interface SignInRouteProps {
+  /** Where a person lands when they did not ask for a particular page. */
+  homeFor: (me: Me) => string;
+}
+
+function wantedPath(state: unknown): string | null {
+  if (typeof state !== 'object' || state === null) return null;
+  const from = (state as { from?: unknown }).from;
+  if (typeof from !== 'string' || !from.startsWith('/') || from.startsWith('//') || from.startsWith('/sign-in')) {
+    return null;
+  }
+  return from === '/' ? null : from;
+}
+
+export function SignInRoute({ homeFor }: SignInRouteProps) {
+  const navigate = useNavigate();
+  const location = useLocation();
+
+  useEffect(() => {
+    document.title = 'Sign in · Crumbproof';
+  }, []);
+
+  function handleSignedIn(me: Me) {
+    navigate(wantedPath(location.state) ?? homeFor(me), { replace: true });
+  }
+
+  return (
+    <Box w="full" maxW="md" mx="auto" bg="bg.panel" borderWidth="1px" borderColor="border.muted" rounded="lg" p={{ base: '6', md: '8' }}>
+      <Stack gap="6">
+        <Stack gap="3" align="flex-start">
+          <BrandMark size="40px" />
+          <Heading as="h1" size="2xl">
+            Sign in to Crumbproof
+          </Heading>
+          <Text color="fg.muted">Use the email and password your kitchen manager gave you.</Text>
+        </Stack>
+        <SignInForm onSignedIn={handleSignedIn} />
+      </Stack>
+    </Box>
+  );
+}

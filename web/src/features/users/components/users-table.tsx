@@ -1,0 +1,113 @@
+import { Badge, Button, HStack, Text } from '@chakra-ui/react';
+import { ROLE_LABELS, ROLES, type Role, type User } from '@crumbproof/shared';
+import { useMemo } from 'react';
+import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
+import { SelectInput } from '@/components/ui/form-field';
+import { Quantity } from '@/components/ui/quantity';
+import { useUpdateUser } from '../api/update-user';
+
+const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+
+function formatDate(iso: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+}
+
+const column = dataTableColumns<User>();
+
+interface UsersTableProps {
+  users: User[];
+  /** The signed-in manager: their own row cannot be demoted or deactivated from here. */
+  currentUserId: number;
+  onUpdate: ReturnType<typeof useUpdateUser>['mutate'];
+  pendingUserId: number | null;
+}
+
+export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: UsersTableProps) {
+  const columns = useMemo<DataTableColumn<User>[]>(
+    () => [
+      column.accessor('name', {
+        header: 'Name',
+        cell: (info) => (
+          <Text as="span" fontWeight="bold">
+            {info.getValue()}
+            {info.row.original.id === currentUserId ? (
+              <Text as="span" fontWeight="normal" color="fg.muted">
+                {' '}
+                (you)
+              </Text>
+            ) : null}
+          </Text>
+        ),
+      }),
+      column.accessor('email', { header: 'Email' }),
+      column.accessor('role', {
+        header: 'Role',
+        cell: (info) => {
+          const user = info.row.original;
+          return (
+            <SelectInput
+              aria-label={`Role for ${user.name}`}
+              options={ROLE_OPTIONS}
+              value={info.getValue()}
+              disabled={user.id === currentUserId || pendingUserId === user.id}
+              onChange={(event) => onUpdate({ id: user.id, changes: { role: event.currentTarget.value as Role } })}
+            />
+          );
+        },
+      }),
+      column.accessor('active', {
+        header: 'Active',
+        cell: (info) =>
+          info.getValue() ? (
+            <Badge variant="subtle" colorPalette="accent" size="lg">
+              Active
+            </Badge>
+          ) : (
+            <Badge variant="outline" color="fg.muted" size="lg">
+              Deactivated
+            </Badge>
+          ),
+      }),
+      column.accessor('createdAt', {
+        header: 'Created',
+        cell: (info) => <Quantity>{formatDate(info.getValue())}</Quantity>,
+      }),
+      column.display({
+        id: 'actions',
+        header: 'Access',
+        cell: (info) => {
+          const user = info.row.original;
+          if (user.id === currentUserId) return <Text color="fg.muted">Your own account</Text>;
+          const action = user.active ? 'Deactivate' : 'Reactivate';
+          return (
+            <HStack>
+              <Button
+                size="lg"
+                variant="outline"
+                aria-label={`${action} ${user.name}`}
+                loading={pendingUserId === user.id}
+                onClick={() => onUpdate({ id: user.id, changes: { active: !user.active } })}
+              >
+                {action}
+              </Button>
+            </HStack>
+          );
+        },
+      }),
+    ],
+    [currentUserId, onUpdate, pendingUserId],
+  );
+
+  return (
+    <DataTable
+      caption="People who can sign in to this kitchen"
+      columns={columns}
+      data={users}
+      getRowId={(user) => String(user.id)}
+      empty="No users yet. Add the first one below."
+    />
+  );
+}

@@ -1,0 +1,173 @@
+import type { User } from '@crumbproof/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { mockApi, signedInAs, USERS } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render-app';
+
+function rowFor(name: string): HTMLElement {
+  const cell = within(screen.getByRole('table')).getByText(name);
+  const row = cell.closest('tr');
+  if (!row) throw new Error(`No row for ${name}`);
+  return row;
+}
+
+describe('Users page', () => {
+  it('lists the kitchen’s users with role, status and date', async () => {
+    mockApi(signedInAs('manager', { 'GET /api/users': { body: USERS } }));
+    renderApp('/users');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Users' })).toBeInTheDocument();
+    const table = await screen.findByRole('table', { name: 'People who can sign in to this kitchen' });
+    const headers = within(table)
+      .getAllByRole('columnheader')
+      .map((header) => header.textContent);
+    expect(headers).toEqual(['Name', 'Email', 'Role', 'Active', 'Created', 'Access']);
+    // One header row and one row per user.
+    expect(within(table).getAllByRole('row')).toHaveLength(USERS.length + 1);
+
+    const chef = rowFor('Teodor Lind');
+    expect(within(chef).getByText('teodor@crumbproof.test')).toBeInTheDocument();
+    expect(within(chef).getByRole('combobox', { name: 'Role for Teodor Lind' })).toHaveValue('pastry-chef');
+    expect(within(chef).getByText('Active')).toBeInTheDocument();
+    expect(within(chef).getByText('4 Mar 2026')).toBeInTheDocument();
+    expect(within(chef).getByRole('button', { name: 'Deactivate Teodor Lind' })).toBeInTheDocument();
+
+    const counter = rowFor('Priya Sandhu');
+    expect(within(counter).getByText('Deactivated')).toBeInTheDocument();
+    expect(within(counter).getByRole('button', { name: 'Reactivate Priya Sandhu' })).toBeInTheDocument();
+
+    // A manager cannot lock themself out from this table.
+    const own = rowFor('Maren Okafor');
+    expect(within(own).getByRole('combobox', { name: 'Role for Maren Okafor' })).toBeDisabled();
+    expect(within(own).queryByRole('button')).not.toBeInTheDocument();
+  });
+
+  it('changes a role and deactivates a user, then reloads the list', async () => {
+    let users: User[] = USERS.map((user) => ({ ...user }));
+    const { calls } = mockApi(
+      signedInAs('manager', {
+        'GET /api/users': () => ({ body: users }),
+        'PATCH /api/users/2': ({ body }) => {
+          users = users.map((user) => (user.id === 2 ? { ...user, ...(body as Partial<User>) } : user));
+          return { body: users.find((user) => user.id === 2) };
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    const select = await screen.findByRole('combobox', { name: 'Role for Teodor Lind' });
+    await user.selectOptions(select, 'Front of house');
+    await waitFor(() => expect(screen.getByRole('combobox', { name: 'Role for Teodor Lind' })).toHaveValue('front-of-house'));
+
+    await user.click(screen.getByRole('button', { name: 'Deactivate Teodor Lind' }));
+    expect(await screen.findByRole('button', { name: 'Reactivate Teodor Lind' })).toBeInTheDocument();
+
+    const patches = calls.filter((call) => call.method === 'PATCH');
+    expect(patches.map((call) => call.body)).toEqual([{ role: 'front-of-house' }, { active: false }]);
+    // Each change invalidated the users query, so the list was fetched again.
+    expect(calls.filter((call) => call.method === 'GET' && call.path === '/api/users')).toHaveLength(3);
+  });
+
+  it('adds a user and shows them in the list', async () => {
+    let users: User[] = [...USERS];
+    const { calls } = mockApi(
+      signedInAs('manager', {
+        'GET /api/users': () => ({ body: users }),
+        'POST /api/users': ({ body }) => {
+          const input = body as { email: string; name: string; role: User['role'] };
+          const created: User = { id: 4, ...input, active: true, createdAt: '2026-12-01T10:00:00.000Z' };
+          users = [...users, created];
+          return { status: 201, body: created };
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    const form = await screen.findByRole('form', { name: 'Add a user' });
+    await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
+    await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
+    await user.selectOptions(within(form).getByLabelText('Role'), 'Pastry chef');
+    await user.type(within(form).getByLabelText('Password'), 'tempering-91-chocolate');
+    await user.click(within(form).getByRole('button', { name: 'Add user' }));
+
+    expect(await within(screen.getByRole('table')).findByText('Ines Moreau')).toBeInTheDocument();
+    expect(screen.getByText('Ines Moreau can now sign in as Pastry chef.')).toBeInTheDocument();
+    expect(calls.find((call) => call.method === 'POST')?.body).toEqual({
+      name: 'Ines Moreau',
+      email: 'ines@crumbproof.test',
+      role: 'pastry-chef',
+      password: 'tempering-91-chocolate',
+    });
+    expect(within(form).getByLabelText('Name')).toHaveValue('');
+  });
+
+  it('checks the password rule before sending, with the hint beside the field', async () => {
+    const { calls } = mockApi(signedInAs('manager', { 'GET /api/users': { body: USERS } }));
+    const { user } = renderApp('/users');
+
+    const form = await screen.findByRole('form', { name: 'Add a user' });
+    const password = within(form).getByLabelText('Password');
+    expect(password).toHaveAccessibleDescription(expect.stringContaining('At least 12 characters'));
+
+    await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
+    await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
+    await user.type(password, 'short1');
+    await user.click(within(form).getByRole('button', { name: 'Add user' }));
+
+    expect(await within(form).findByText('Use at least 12 characters.')).toBeInTheDocument();
+    expect(calls.some((call) => call.method === 'POST')).toBe(false);
+  });
+
+  it('shows a field error from the API in place', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/users': { body: USERS },
+        'POST /api/users': {
+          status: 400,
+          body: {
+            statusCode: 400,
+            code: 'validation',
+            message: 'Some fields need attention.',
+            fields: [{ path: 'password', message: 'This password appears in lists of leaked passwords. Choose another.' }],
+          },
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    const form = await screen.findByRole('form', { name: 'Add a user' });
+    await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
+    await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
+    await user.type(within(form).getByLabelText('Password'), 'password1234');
+    await user.click(within(form).getByRole('button', { name: 'Add user' }));
+
+    const message = 'This password appears in lists of leaked passwords. Choose another.';
+    expect(await within(form).findByText(message)).toBeInTheDocument();
+    const password = within(form).getByLabelText('Password');
+    expect(password).toHaveAttribute('aria-invalid', 'true');
+    await waitFor(() => expect(password).toHaveAccessibleDescription(expect.stringContaining(message)));
+    expect(within(form).getByLabelText('Name')).not.toHaveAttribute('aria-invalid', 'true');
+  });
+
+  it('puts the API’s duplicate-email answer under Email', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/users': { body: USERS },
+        'POST /api/users': {
+          status: 409,
+          body: { statusCode: 409, code: 'conflict', message: 'A user with that email already exists.' },
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    const form = await screen.findByRole('form', { name: 'Add a user' });
+    await user.type(within(form).getByLabelText('Name'), 'Teodor Again');
+    await user.type(within(form).getByLabelText('Email'), 'teodor@crumbproof.test');
+    await user.type(within(form).getByLabelText('Password'), 'tempering-91-chocolate');
+    await user.click(within(form).getByRole('button', { name: 'Add user' }));
+
+    expect(await within(form).findByText('A user with that email already exists.')).toBeInTheDocument();
+    expect(within(form).getByLabelText('Email')).toHaveAttribute('aria-invalid', 'true');
+  });
+});

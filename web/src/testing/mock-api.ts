@@ -1,0 +1,77 @@
+import type { Me, Role, User } from '@crumbproof/shared';
+import { vi } from 'vitest';
+
+export interface MockResponse {
+  status?: number;
+  body?: unknown;
+}
+
+type Handler = MockResponse | ((request: { body: unknown; url: string }) => MockResponse);
+
+/** Keys are "METHOD /api/path", e.g. "POST /api/auth/sign-in". */
+export type ApiHandlers = Record<string, Handler>;
+
+export interface RecordedCall {
+  method: string;
+  path: string;
+  body: unknown;
+  credentials: RequestCredentials | undefined;
+}
+
+/**
+ * Replaces fetch for one test. Unknown routes answer 404 in the API's error shape, so a test
+ * that forgets a route fails loudly instead of hanging.
+ */
+export function mockApi(handlers: ApiHandlers) {
+  const calls: RecordedCall[] = [];
+  const fetchMock = vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
+    const url = typeof input === 'string' ? input : input instanceof URL ? input.href : input.url;
+    const method = (init?.method ?? 'GET').toUpperCase();
+    const path = new URL(url, 'http://crumbproof.test').pathname;
+    const body = typeof init?.body === 'string' ? (JSON.parse(init.body) as unknown) : undefined;
+    calls.push({ method, path, body, credentials: init?.credentials });
+
+    const handler = handlers[`${method} ${path}`];
+    const answer: MockResponse =
+      handler === undefined
+        ? { status: 404, body: { statusCode: 404, code: 'not-found', message: `No mock for ${method} ${path}.` } }
+        : typeof handler === 'function'
+          ? handler({ body, url })
+          : handler;
+    const status = answer.status ?? 200;
+    return new Response(answer.body === undefined || status === 204 ? null : JSON.stringify(answer.body), {
+      status,
+      headers: { 'Content-Type': 'application/json' },
+    });
+  });
+  vi.stubGlobal('fetch', fetchMock);
+  return { calls, fetchMock };
+}
+
+export const PEOPLE: Record<Role, Me> = {
+  manager: { id: 1, email: 'maren@crumbproof.test', name: 'Maren Okafor', role: 'manager' },
+  'pastry-chef': { id: 2, email: 'teodor@crumbproof.test', name: 'Teodor Lind', role: 'pastry-chef' },
+  'front-of-house': { id: 3, email: 'priya@crumbproof.test', name: 'Priya Sandhu', role: 'front-of-house' },
+};
+
+export const KITCHEN = { name: 'Larch Street Bakehouse', regime: 'UK', address: '14 Larch Street' };
+
+export const USERS: User[] = [
+  { ...PEOPLE.manager, active: true, createdAt: '2026-03-02T09:00:00.000Z' },
+  { ...PEOPLE['pastry-chef'], active: true, createdAt: '2026-03-04T09:00:00.000Z' },
+  { ...PEOPLE['front-of-house'], active: false, createdAt: '2026-05-20T09:00:00.000Z' },
+];
+
+/** The API as seen by a signed-in person of the given role. */
+export function signedInAs(role: Role, extra: ApiHandlers = {}): ApiHandlers {
+  return {
+    'GET /api/me': { body: PEOPLE[role] },
+    'GET /api/kitchen': { body: KITCHEN },
+    'POST /api/auth/sign-out': { status: 204 },
+    ...extra,
+  };
+}
+
+export const signedOut: ApiHandlers = {
+  'GET /api/me': { status: 401, body: { statusCode: 401, code: 'unauthenticated', message: 'Sign in first.' } },
+};

@@ -1,0 +1,21 @@
+import { fileURLToPath } from 'node:url';
+import react from '@vitejs/plugin-react';
+import { defaultClientConditions, defineConfig } from 'vite';
+
+export default defineConfig({
+  plugins: [react()],
+  resolve: {
+    alias: { '@': fileURLToPath(new URL('./src', import.meta.url)) },
+    // Read @crumbproof/shared from its TypeScript source rather than a built copy.
+    conditions: ['source', ...defaultClientConditions],
+  },
+  server: {
+    proxy: {
+      '/api': { target: 'http://127.0.0.1:3000', changeOrigin: false },
+    },
+  },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+  },
+});

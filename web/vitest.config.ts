@@ -1,0 +1,17 @@
+import { defineConfig, mergeConfig } from 'vitest/config';
+import viteConfig from './vite.config.ts';
+
+export default mergeConfig(
+  viteConfig,
+  defineConfig({
+    test: {
+      environment: 'jsdom',
+      globals: true,
+      include: ['src/**/*.test.{ts,tsx}'],
+      setupFiles: ['./src/testing/setup-tests.ts'],
+      css: false,
+      restoreMocks: true,
+      unstubGlobals: true,
+    },
+  }),
+);
