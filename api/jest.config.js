@@ -6,7 +6,7 @@ module.exports = {
   testMatch: ['**/*.spec.ts'],
   transform: { '^.+\\.(t|j|mj)s$': ['@swc/jest'] },
   transformIgnorePatterns: [
-    '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|@tokenizer|@borewit|uint8array-extras|cookie|set-cookie-parser)/)',
+    '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|@tokenizer|@borewit|uint8array-extras|cookie|set-cookie-parser|content-disposition)/)',
   ],
   moduleNameMapper: { '^@crumbproof/shared$': '<rootDir>/../shared/src/index.ts' },
   setupFiles: ['<rootDir>/test/support/env.ts'],

@@ -26,6 +26,7 @@ export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
 export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } = {}): Promise<NestFastifyApplication> {
   const adapter = new FastifyAdapter({ bodyLimit: 2 * 1024 * 1024, trustProxy: false });
   const app = await NestFactory.create<NestFastifyApplication>(AppModule, adapter, {
+    abortOnError: false,
     logger: LOG_LEVELS[options.logLevel ?? (process.env.LOG_LEVEL as AppConfig['LOG_LEVEL']) ?? 'info'],
   });
   const config = app.get<ConfigService<AppConfig, true>>(ConfigService);

@@ -10,9 +10,10 @@ import { KitchenModule } from './kitchen/kitchen.module';
 import { UsersModule } from './users/users.module';
 import { BooksModule } from './books/books.module';
 import { SeedModule } from './database/seed.module';
+import { SwapsModule } from './swaps/swaps.module';
 
 @Module({
-  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule],
+  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule, SwapsModule],
   controllers: [HealthController],
   providers: [
     { provide: APP_GUARD, useClass: SessionGuard },

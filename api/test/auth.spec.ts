@@ -49,11 +49,11 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
   it('throttles repeated sign-in attempts for one email, without locking out colleagues', async () => {
     const statuses: number[] = [];
     for (let i = 0; i < 11; i++) {
-      statuses.push((await post('/api/auth/sign-in', { email: 'counter@example.com', password: `guess-${i}` })).statusCode);
+      statuses.push((await post('/api/auth/sign-in', { email: 'guesser@example.com', password: `guess-${i}` })).statusCode);
     }
     expect(statuses.slice(0, 10).every((s) => s === 401)).toBe(true);
     expect(statuses[10]).toBe(429);
-    const blocked = await post('/api/auth/sign-in', { email: 'counter@example.com', password: 'crumbproof-demo' });
+    const blocked = await post('/api/auth/sign-in', { email: 'Guesser@example.com', password: 'crumbproof-demo' });
     expect(blocked.json()).toMatchObject({ code: 'too-many-requests' });
     const colleague = await post('/api/auth/sign-in', { email: 'chef@example.com', password: 'crumbproof-demo' });
     expect(colleague.statusCode).toBe(200);

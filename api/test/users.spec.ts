@@ -30,7 +30,7 @@ describe('users (manager)', () => {
   it('names each bad field and saves nothing', async () => {
     const res = await call('POST', '/api/users', { email: 'bad', name: '', role: 'baker', password: 'short' });
     expect(res.statusCode).toBe(400);
-    expect(res.json().fields.map((f: { path: string }) => f.path).sort()).toEqual(['email', 'name', 'password', 'role']);
+    expect([...new Set(res.json().fields.map((f: { path: string }) => f.path))].sort()).toEqual(['email', 'name', 'password', 'role']);
     expect((await call('GET', '/api/users')).json()).toHaveLength(4);
   });
 

@@ -104,7 +104,10 @@ export interface QuidEntry {
 }
 
 export interface SulphiteResult {
-  /** Total SO2 in the product as eaten; null when some sulphite source has no stated content. */
+  /**
+   * Total SO2 in the product as eaten (mg/kg on the finished weight); null when a sulphite
+   * source has no stated content, or a leaf with no allergen statement has none either.
+   */
   mgPerKg: number | null;
   declared: boolean;
 }

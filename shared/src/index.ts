@@ -5,3 +5,4 @@ export * from './allergens';
 export * from './book';
 export * from './nutrition';
 export * from './declaration';
+export * from './declaration-diff';

@@ -126,33 +126,59 @@ export class BooksService {
   }
 
   /**
-   * Writes one ingredient or recipe as a new revision, after checking that the whole kitchen
-   * with the change can still be declared. Nothing is saved when it cannot.
+   * Writes ingredients and recipes as new revisions, after checking that the whole kitchen with
+   * the changes can still be declared. All or nothing: when it cannot, nothing is saved.
    */
+  async writeItems(
+    changes: { ingredients?: BookIngredient[]; recipes?: BookRecipe[] },
+    meta: { authorId: number | null; note: string },
+    expect: 'new' | 'existing' | 'any',
+  ): Promise<{ id: string; revision: number }[]> {
+    return this.tx.run(async (t) => {
+      const book = await this.exportBook(t);
+      const all = new Set([...book.ingredients, ...book.recipes].map((x) => x.id));
+      for (const [kind, items, own] of [
+        ['ingredient', changes.ingredients ?? [], book.ingredients],
+        ['recipe', changes.recipes ?? [], book.recipes],
+      ] as const) {
+        for (const item of items) {
+          const exists = own.some((x) => x.id === item.id);
+          if (expect === 'new' && all.has(item.id)) {
+            throw new AppError('conflict', `The id '${item.id}' is already used. Choose another id.`, [{ path: 'id', message: 'This id is already used.' }]);
+          }
+          if (expect === 'existing' && !exists) throw new AppError('not-found', `There is no ${kind} '${item.id}'.`);
+          if (!exists && all.has(item.id)) {
+            throw new AppError('conflict', `The id '${item.id}' is already used by a${kind === 'recipe' ? 'n ingredient' : ' recipe'}.`);
+          }
+        }
+      }
+      const merged: Book = {
+        ...book,
+        ingredients: mergeById(book.ingredients, changes.ingredients ?? []),
+        recipes: mergeById(book.recipes, changes.recipes ?? []),
+      };
+      this.assertDeclarable(merged);
+      const site = (await this.site(t))!;
+      const written: { id: string; revision: number }[] = [];
+      for (const ing of changes.ingredients ?? []) {
+        written.push({ id: ing.id, revision: await this.ingredients.write(site.id, ing.id, bodyOf(ing), meta, t) });
+      }
+      for (const rec of changes.recipes ?? []) {
+        written.push({ id: rec.id, revision: await this.recipes.write(site.id, rec.id, bodyOf(rec), meta, t) });
+      }
+      return written;
+    });
+  }
+
   async writeItem(
     kind: 'ingredient' | 'recipe',
     item: BookIngredient | BookRecipe,
     meta: { authorId: number | null; note: string },
     expect: 'new' | 'existing',
   ): Promise<number> {
-    return this.tx.run(async (t) => {
-      const book = await this.exportBook(t);
-      const list = kind === 'ingredient' ? book.ingredients : book.recipes;
-      const exists = list.some((x) => x.id === item.id);
-      const other = (kind === 'ingredient' ? book.recipes : book.ingredients).some((x) => x.id === item.id);
-      if (expect === 'new' && (exists || other)) {
-        throw new AppError('conflict', `The id '${item.id}' is already used. Choose another id.`, [{ path: 'id', message: 'This id is already used.' }]);
-      }
-      if (expect === 'existing' && !exists) throw new AppError('not-found', `There is no ${kind} '${item.id}'.`);
-      const merged: Book =
-        kind === 'ingredient'
-          ? { ...book, ingredients: mergeById(book.ingredients, [item as BookIngredient]) }
-          : { ...book, recipes: mergeById(book.recipes, [item as BookRecipe]) };
-      this.assertDeclarable(merged);
-      const site = (await this.site(t))!;
-      const repo = kind === 'ingredient' ? this.ingredients : this.recipes;
-      return repo.write(site.id, item.id, bodyOf(item) as never, meta, t);
-    });
+    const changes = kind === 'ingredient' ? { ingredients: [item as BookIngredient] } : { recipes: [item as BookRecipe] };
+    const [written] = await this.writeItems(changes, meta, expect);
+    return written.revision;
   }
 }
 

@@ -60,14 +60,13 @@ export function leafFacts(leaves: TreeNode[], lexicon: Lexicon): LeafFacts[] {
     if ((ingredient.sulphiteMgPerKg ?? 0) > 0 && !contains.some((c) => c.source === 'sulphites')) {
       contains.push({ source: 'sulphites', origin: 'sulphite-content' });
     }
-    return {
-      node,
-      ingredient,
-      known: ingredient.contains !== undefined,
-      contains,
-      mayContain: ingredient.mayContain.map((e) => ({ ...normalise(e), origin: 'supplier' as const })),
-      scan,
-    };
+    const mayContain: SourceUse[] = ingredient.mayContain.map((e) => ({ ...normalise(e), origin: 'supplier' as const }));
+    for (const hit of scan.precautionary) {
+      if (!mayContain.some((m) => m.source === hit.source) && !contains.some((c) => c.source === hit.source)) {
+        mayContain.push({ source: hit.source, origin: 'composition', term: hit.matched });
+      }
+    }
+    return { node, ingredient, known: ingredient.contains !== undefined, contains, mayContain, scan };
   });
 }
 
@@ -137,6 +136,11 @@ export function unknownFor(all: LeafFacts[]): UnknownAllergens[] {
   return out;
 }
 
+/** Who made a precautionary statement: the supplier's list, or the composition text. */
+export function precautionWho(facts: LeafFacts, use: SourceUse): string {
+  return use.origin === 'composition' ? `Composition of ${facts.ingredient.name}` : `Supplier of ${facts.ingredient.name}`;
+}
+
 const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /**
@@ -156,7 +160,7 @@ export function mayContainFor(all: LeafFacts[], site: Site, rules: RegimeRules, 
   for (const facts of all) {
     for (const use of facts.mayContain) {
       if (exemptionOf(use, rules)) continue;
-      add(use.source, `Supplier of ${facts.ingredient.name}: may contain ${SOURCE_LABELS[use.source]}`);
+      add(use.source, `${precautionWho(facts, use)}: may contain ${SOURCE_LABELS[use.source]}`);
     }
   }
   for (const handled of site.handles) {

@@ -10,7 +10,7 @@ import {
   type DeclaredClaims,
   type Site,
 } from '@crumbproof/shared';
-import { exemptionOf, type LeafFacts } from './allergens';
+import { exemptionOf, precautionWho, type LeafFacts } from './allergens';
 import { compare, round } from './compare';
 import type { DietClaim } from './composition-scan';
 import type { FreeFromClaim, RegimeRules } from './reference-schema';
@@ -69,6 +69,19 @@ function sharedHandling(site: Site, sources: readonly AllergenSource[]): Found[]
     }));
 }
 
+/** A composition that names e.g. "nuts" without saying which: a may-contain fails the claim, an ingredient leaves it unproved. */
+function vagueMentions(claim: Claim, all: LeafFacts[]): Found[] {
+  return all.flatMap((f) =>
+    f.scan.vague
+      .filter((h) => h.unverifies.includes(claim))
+      .map((h) =>
+        h.precautionary
+          ? { status: 'fails' as const, reason: reason(f, `The composition of ${f.ingredient.name} says it may contain '${h.matched}'.`) }
+          : { status: 'unverified' as const, reason: reason(f, `The composition of ${f.ingredient.name} ${h.message} ('${h.matched}').`) },
+      ),
+  );
+}
+
 function unknownLeaves(all: LeafFacts[]): Found[] {
   return all
     .filter((f) => !f.known)
@@ -84,10 +97,10 @@ function freeFrom(claim: FreeFromClaim, all: LeafFacts[], site: Site, rules: Reg
       found.push({ status: 'fails', reason: reason(f, `${f.ingredient.name} contains ${SOURCE_LABELS[use.source]}.`) });
     }
     for (const use of f.mayContain.filter((u) => sources.includes(u.source))) {
-      found.push({ status: 'fails', reason: reason(f, `Supplier of ${f.ingredient.name}: may contain ${SOURCE_LABELS[use.source]}.`) });
+      found.push({ status: 'fails', reason: reason(f, `${precautionWho(f, use)}: may contain ${SOURCE_LABELS[use.source]}.`) });
     }
   }
-  return settle([...found, ...sharedHandling(site, sources), ...unknownLeaves(all)]);
+  return settle([...found, ...vagueMentions(claim, all), ...sharedHandling(site, sources), ...unknownLeaves(all)]);
 }
 
 /**
@@ -126,10 +139,10 @@ function glutenFree(all: LeafFacts[], site: Site, rules: RegimeRules, finishedG:
       measured = true;
     }
     for (const use of f.mayContain.filter((u) => isGlutenUse(u.source))) {
-      found.push({ status: 'fails', reason: reason(f, `Supplier of ${name}: may contain ${SOURCE_LABELS[use.source]}.`) });
+      found.push({ status: 'fails', reason: reason(f, `${precautionWho(f, use)}: may contain ${SOURCE_LABELS[use.source]}.`) });
     }
   }
-  found.push(...sharedHandling(site, cereals.filter(isGlutenUse)), ...unknownLeaves(all));
+  found.push(...vagueMentions('gluten-free', all), ...sharedHandling(site, cereals.filter(isGlutenUse)), ...unknownLeaves(all));
   if (measured && finishedG > 0) {
     const perKg = mg / (finishedG / 1000);
     if (!compare(perKg, gf.comparison, gf.limitMgPerKg)) {

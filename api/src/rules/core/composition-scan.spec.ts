@@ -48,6 +48,12 @@ describe('scanComposition', () => {
     expect(sources(text)).toEqual([]);
   });
 
+  it('keeps precautionary clauses apart from the composition', () => {
+    const scan = scanComposition('Sugar, cocoa butter. May contain traces of milk, peanuts; produced in a factory that handles sesame.', lexicon);
+    expect(scan.allergens).toEqual([]);
+    expect(scan.precautionary.map((h) => h.source)).toEqual(['milk', 'peanut', 'sesame']);
+  });
+
   it('keeps the species of fish and crustaceans it names', () => {
     const hits = scanComposition('Anchovy paste, shrimp', lexicon).allergens;
     expect(hits.map((h) => [h.source, h.species])).toEqual([

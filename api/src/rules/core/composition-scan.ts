@@ -1,4 +1,4 @@
-import type { AllergenSource } from '@crumbproof/shared';
+import type { AllergenSource, Claim } from '@crumbproof/shared';
 import type { Lexicon } from './reference-schema';
 
 export type DietClaim = 'vegan' | 'vegetarian';
@@ -21,9 +21,14 @@ export interface AnimalHit extends Hit {
 }
 export interface VagueHit extends Hit {
   message: string;
+  unverifies: Claim[];
+  /** Found in a precautionary clause ("may contain nuts"). */
+  precautionary: boolean;
 }
 export interface CompositionScan {
   allergens: AllergenHit[];
+  /** Sources named in a precautionary clause ("may contain milk"): may-contain, not contains. */
+  precautionary: AllergenHit[];
   animal: AnimalHit[];
   vague: VagueHit[];
 }
@@ -37,18 +42,22 @@ function occurrences(text: string, phrase: string, plural: boolean): Array<{ sta
   return [...text.matchAll(re)].map((m) => ({ start: m.index, end: m.index + m[0].length }));
 }
 
-/** Precautionary and "made in a factory" clauses, up to the next full stop or semicolon, are not composition. */
-function maskClauses(text: string, clauses: string[]): string {
+/**
+ * Precautionary and "made in a factory" clauses, up to the next full stop or semicolon, are not
+ * composition: they are blanked out of `text` and returned separately.
+ */
+function splitClauses(text: string, clauses: string[]): { text: string; clauses: string } {
   let out = text;
+  let taken = ' '.repeat(text.length);
   for (const clause of clauses) {
     for (const { start } of occurrences(out, clause, false)) {
-      const rest = out.slice(start);
-      const stop = rest.search(/[.;]/);
+      const stop = out.slice(start).search(/[.;]/);
       const end = stop < 0 ? out.length : start + stop;
+      taken = taken.slice(0, start) + out.slice(start, end) + taken.slice(end);
       out = out.slice(0, start) + ' '.repeat(end - start) + out.slice(end);
     }
   }
-  return out;
+  return { text: out, clauses: taken };
 }
 
 function negated(text: string, start: number, end: number, lexicon: Lexicon): boolean {
@@ -75,18 +84,22 @@ function find(text: string, term: string, except: string[] | undefined, lexicon:
  * ("may contain nuts") mentions are skipped.
  */
 export function scanComposition(composition: string, lexicon: Lexicon): CompositionScan {
-  const text = maskClauses(composition.toLowerCase(), lexicon.negations.clauses);
-  const allergens: AllergenHit[] = lexicon.allergenTerms.flatMap((t) =>
-    find(text, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), source: t.source, ...(t.species ? { species: t.species } : {}) })),
-  );
+  const { text, clauses } = splitClauses(composition.toLowerCase(), lexicon.negations.clauses);
+  const allergenHits = (within: string): AllergenHit[] =>
+    lexicon.allergenTerms.flatMap((t) =>
+      find(within, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), source: t.source, ...(t.species ? { species: t.species } : {}) })),
+    );
+  const allergens = allergenHits(text);
   const animal: AnimalHit[] = lexicon.animalTerms.flatMap((t) =>
     find(text, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), fails: t.fails ?? [], unverified: t.unverified ?? [] })),
   );
-  const covered = (h: Hit) => allergens.some((a) => a.start <= h.start && h.end <= a.end);
-  const vague: VagueHit[] = lexicon.vagueTerms.flatMap((t) =>
-    find(text, t.term, t.except, lexicon)
-      .filter((h) => !covered(h))
-      .map((h) => ({ ...h, matched: composition.slice(h.start, h.end), message: t.message })),
-  );
-  return { allergens, animal, vague };
+  const precautionary = allergenHits(clauses);
+  const vagueHits = (within: string, named: AllergenHit[], inClause: boolean): VagueHit[] =>
+    lexicon.vagueTerms.flatMap((t) =>
+      find(within, t.term, t.except, lexicon)
+        .filter((h) => !named.some((a) => a.start <= h.start && h.end <= a.end))
+        .map((h) => ({ ...h, matched: composition.slice(h.start, h.end), message: t.message, unverifies: t.unverifies ?? [], precautionary: inClause })),
+    );
+  const vague = [...vagueHits(text, allergens, false), ...vagueHits(clauses, precautionary, true)];
+  return { allergens, precautionary, animal, vague };
 }

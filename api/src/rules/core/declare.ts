@@ -68,7 +68,8 @@ function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNo
       });
     }
     for (const hit of f.scan.vague) {
-      warnings.push({ code: 'composition-vague', ingredient: i.id, message: `The composition of ${i.name} ${hit.message} ('${hit.matched}'). Ask the supplier which.` });
+      const what = hit.precautionary ? `says it may contain '${hit.matched}' and so ${hit.message}` : `${hit.message} ('${hit.matched}')`;
+      warnings.push({ code: 'composition-vague', ingredient: i.id, message: `The composition of ${i.name} ${what}. Ask the supplier which.` });
     }
     const animalVegan = f.contains.some((u) => NOT_VEGAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegan'));
     const animalVegetarian = f.contains.some((u) => NOT_VEGETARIAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegetarian'));

@@ -31,7 +31,7 @@ export interface IngredientList {
 export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: (node: TreeNode) => string[]): IngredientList {
   const warnings: DeclarationNotice[] = [];
 
-  const level = (nodes: TreeNode[], finishedG: number, parentPercent: number): DeclaredIngredient[] => {
+  const level = (nodes: TreeNode[], finishedG: number, parentPercent: number, of: string): DeclaredIngredient[] => {
     const omitUpTo = rules.addedWater.omitUpToPercent;
     const othersG = nodes.filter((n) => !isWater(n)).reduce((s, n) => s + n.usedG, 0);
     const entries: DeclaredIngredient[] = [];
@@ -45,7 +45,7 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
           warnings.push({
             code: 'added-water-omitted',
             ingredient: node.id,
-            message: `${node.name} is left out of the list: about ${round(shareOfFinished, 1)} % of the finished product remains, at most ${omitUpTo} % (${rules.addedWater.basis}).`,
+            message: `${node.name} is left out of the list: about ${round(shareOfFinished, 1)} % of ${of} as finished is added water, at most ${omitUpTo} % (${rules.addedWater.basis}).`,
           });
           continue;
         }
@@ -53,7 +53,9 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
         percent = (parentPercent * shareOfFinished) / 100;
       }
       const children =
-        node.kind === 'recipe' && node.recipe ? level(node.children, node.recipe.finishedWeightG ?? node.children.reduce((s, c) => s + c.usedG, 0), node.share * 100) : [];
+        node.kind === 'recipe' && node.recipe
+          ? level(node.children, node.recipe.finishedWeightG ?? node.children.reduce((s, c) => s + c.usedG, 0), node.share * 100, node.name)
+          : [];
       entries.push({
         id: node.id,
         name: node.name,
@@ -71,5 +73,5 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
     return [...used.sort((a, b) => b.orderWeightG - a.orderWeightG), ...contact];
   };
 
-  return { entries: level(tree.children, tree.finishedG, 100), warnings };
+  return { entries: level(tree.children, tree.finishedG, 100, tree.recipe.name), warnings };
 }

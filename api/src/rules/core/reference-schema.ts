@@ -129,7 +129,15 @@ export const lexiconFileSchema = z.strictObject({
   allergenTerms: z.array(
     z.strictObject({ term, source, species: z.string().min(1).optional(), except: z.array(term).optional() }),
   ),
-  vagueTerms: z.array(z.strictObject({ term, message: z.string().min(1), except: z.array(term).optional() })),
+  vagueTerms: z.array(
+    z.strictObject({
+      term,
+      message: z.string().min(1),
+      /** Claims that cannot be proved while the composition is this vague. */
+      unverifies: z.array(z.enum(CLAIMS)).optional(),
+      except: z.array(term).optional(),
+    }),
+  ),
   animalTerms: z.array(
     z.strictObject({
       term,

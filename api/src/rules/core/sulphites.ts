@@ -12,7 +12,8 @@ export interface SulphiteOutcome extends SulphiteResult {
  * the finished weight (after baking). Declared by the regime's own threshold and comparison
  * (EU/UK: more than 10 mg/kg; Canada, ANZ and US: 10 or more). A sulphite source with no
  * stated content, or one that only touches the product (contact line), cannot be computed:
- * it is declared, with a warning.
+ * it is declared, with a warning. A leaf with no allergen statement and no stated content
+ * leaves the figure unknown (null); what is known still decides the declaration.
  */
 export function sulphitesFor(all: LeafFacts[], finishedG: number, rules: RegimeRules): SulphiteOutcome {
   const warnings: DeclarationNotice[] = [];
@@ -41,6 +42,11 @@ export function sulphitesFor(all: LeafFacts[], finishedG: number, rules: RegimeR
     mg += (facts.node.massG / 1000) * stated;
   }
   if (unstated) return { mgPerKg: null, declared: true, warnings };
+  // A leaf with no allergen statement and no stated content may hold sulphites: the figure is not known.
+  if (all.some((f) => !f.known && f.ingredient.sulphiteMgPerKg === undefined)) {
+    const known = finishedG > 0 ? mg / (finishedG / 1000) : 0;
+    return { mgPerKg: null, declared: compare(known, rules.sulphites.comparison, rules.sulphites.thresholdMgPerKg), warnings };
+  }
   const mgPerKg = finishedG > 0 ? mg / (finishedG / 1000) : 0;
   return { mgPerKg, declared: compare(mgPerKg, rules.sulphites.comparison, rules.sulphites.thresholdMgPerKg), warnings };
 }

@@ -3,7 +3,7 @@ import { ROLE_LABELS } from '@crumbproof/shared';
 import { useNavigate } from 'react-router-dom';
 import { BrandMark } from '@/components/ui/brand-mark';
 import { useSignOut } from '@/features/auth/api/sign-out';
-import { useSignedInUser } from '@/features/auth/hooks/use-signed-in-user';
+import { useSignedInUser } from '@/lib/signed-in-user';
 import { useKitchen } from '@/features/kitchen/api/get-kitchen';
 import { MainNav } from './main-nav';
 
@@ -38,7 +38,7 @@ export function AppHeader() {
             </Text>
             {/* The kitchen's name is a courtesy: if it cannot be fetched the header simply goes without. */}
             {kitchen.data ? (
-              <Text color="fg.muted" fontSize="sm" data-testid="kitchen-name">
+              <Text color="fg.muted" fontSize="sm">
                 {kitchen.data.name}
               </Text>
             ) : null}

@@ -36,6 +36,7 @@ describe('Main navigation', () => {
     await user.click(within(nav).getByRole('link', { name: 'Recipes' }));
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Recipes' })).toBeInTheDocument();
+    expect(screen.getByRole('main')).toHaveFocus();
     expect(screen.getByText(/This page is not built yet\. It will list recipes/)).toBeInTheDocument();
     expect(screen.getAllByRole('heading', { level: 1 })).toHaveLength(1);
   });

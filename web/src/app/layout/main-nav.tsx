@@ -11,7 +11,7 @@ interface MainNavProps {
 export function MainNav({ role }: MainNavProps) {
   return (
     <Box as="nav" aria-label="Main" maxW="6xl" mx="auto" px={{ base: '2', md: '6' }}>
-      <List.Root as="ul" listStyle="none" display="flex" flexWrap="wrap" gap="1">
+      <List.Root as="ul" listStyle="none" flexDirection="row" flexWrap="wrap" gap="1">
         {pagesFor(role).map((key) => (
           <List.Item key={key}>
             <Link

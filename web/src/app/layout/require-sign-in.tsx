@@ -3,7 +3,7 @@ import type { ReactNode } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { useMe } from '@/features/auth/api/get-me';
-import { SignedInUserProvider } from '@/features/auth/hooks/use-signed-in-user';
+import { SignedInUserProvider } from '@/lib/signed-in-user';
 
 interface RequireSignInProps {
   children: ReactNode;

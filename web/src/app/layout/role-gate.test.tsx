@@ -10,7 +10,7 @@ describe('Pages a role may not use', () => {
     renderApp('/users');
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Not available to your role' })).toBeInTheDocument();
-    expect(screen.getByText(/You are signed in as Front of house\. Users can be opened by Manager\./)).toBeInTheDocument();
+    expect(screen.getByText('You are signed in as Front of house. Only Manager accounts can open Users. Ask your manager if you need it.')).toBeInTheDocument();
     expect(screen.queryByRole('heading', { name: 'Users' })).not.toBeInTheDocument();
     expect(screen.queryByRole('table')).not.toBeInTheDocument();
     expect(calls.some((call) => call.path === '/api/users')).toBe(false);
@@ -18,9 +18,9 @@ describe('Pages a role may not use', () => {
   });
 
   it.each<{ role: Role; path: string; sentence: RegExp }>([
-    { role: 'front-of-house', path: '/ingredients', sentence: /Ingredients can be opened by Manager and Pastry chef\./ },
-    { role: 'pastry-chef', path: '/approvals', sentence: /Approvals can be opened by Manager\./ },
-    { role: 'pastry-chef', path: '/users', sentence: /Users can be opened by Manager\./ },
+    { role: 'front-of-house', path: '/ingredients', sentence: /Only Manager and Pastry chef accounts can open Ingredients\./ },
+    { role: 'pastry-chef', path: '/approvals', sentence: /Only Manager accounts can open Approvals\./ },
+    { role: 'pastry-chef', path: '/users', sentence: /Only Manager accounts can open Users\./ },
   ])('refuses $path to $role', async ({ role, path, sentence }) => {
     mockApi(signedInAs(role));
     renderApp(path);

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { useSignedInUser } from '@/features/auth/hooks/use-signed-in-user';
+import { useSignedInUser } from '@/lib/signed-in-user';
 import { canOpen, type PageKey } from '../navigation';
 import { RefusedRoute } from '../routes/refused';
 

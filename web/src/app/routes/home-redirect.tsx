@@ -1,5 +1,5 @@
 import { Navigate } from 'react-router-dom';
-import { useSignedInUser } from '@/features/auth/hooks/use-signed-in-user';
+import { useSignedInUser } from '@/lib/signed-in-user';
 import { firstPathFor } from '../navigation';
 
 /** "/" has no page of its own: it opens the first page of the person's role. */

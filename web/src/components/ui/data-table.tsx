@@ -54,15 +54,17 @@ export function DataTable<TData extends RowData>({
 
   return (
     <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel">
-      <Table.Root size="md" stickyHeader interactive={false}>
+      {/* Body text stays at 16 px in tables too. */}
+      <Table.Root size="md" stickyHeader interactive={false} css={{ '& th, & td': { textStyle: 'md' } }}>
         <Table.Caption
           captionSide="top"
           textAlign="start"
           fontWeight="bold"
+          textStyle="md"
           color="fg"
           px="4"
           py="3"
-          srOnly={captionHidden}
+          {...(captionHidden ? { srOnly: true } : {})}
         >
           {caption}
         </Table.Caption>

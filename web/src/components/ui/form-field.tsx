@@ -14,12 +14,12 @@ interface FormFieldProps {
 export function FormField({ label, error, hint, required, children }: FormFieldProps) {
   return (
     <Field.Root invalid={Boolean(error)} required={required}>
-      <Field.Label fontWeight="bold" color="fg">
+      <Field.Label fontWeight="bold" color="fg" textStyle="md">
         {label}
       </Field.Label>
       {children}
-      {hint ? <Field.HelperText color="fg.muted">{hint}</Field.HelperText> : null}
-      {error ? <Field.ErrorText color="fg.error">{error}</Field.ErrorText> : null}
+      {hint ? <Field.HelperText color="fg.muted" textStyle="sm">{hint}</Field.HelperText> : null}
+      {error ? <Field.ErrorText color="fg.error" textStyle="sm" fontWeight="bold">{error}</Field.ErrorText> : null}
     </Field.Root>
   );
 }

@@ -379,7 +379,29 @@ describe('computeNutrition: lines that cannot be weighed', () => {
     expect(d.finishedWeightG).toBeNull();
     expect(d.unweighed).toEqual([{ recipeId: 'batter', use: 'milk', needs: 'gPerMl' }]);
     expect(d.per100g.fat).toBeNull();
-    expect(d.missing.find((m) => m.nutrient === 'fat')?.ingredients.map((i) => i.id)).toEqual(['milk', 'flour']);
+    expect(d.missing.find((m) => m.nutrient === 'fat')?.ingredients).toEqual([
+      { id: 'milk', name: 'milk' },
+      { id: 'flour', name: 'flour' },
+    ]);
+  });
+
+  it('passes an unweighed line of a sub-recipe up once, however often the sub-recipe is used', () => {
+    const b2 = book(b.ingredients, [
+      ...b.recipes,
+      {
+        id: 'tray',
+        name: 'Tray',
+        lines: [
+          { use: 'batter', qty: 100, unit: 'g' },
+          { use: 'batter', qty: 50, unit: 'g' },
+          { use: 'flour', qty: 10, unit: 'g' },
+        ],
+      },
+    ]);
+    const d = computeNutrition(b2, 'tray', EU);
+    expect(d.unweighed).toEqual([{ recipeId: 'batter', use: 'milk', needs: 'gPerMl' }]);
+    expect(d.finishedWeightG).toBe(160);
+    expect(d.per100g.protein).toBeNull();
   });
 
   it('with a finished weight, still cannot count the unweighed line', () => {

@@ -84,7 +84,10 @@ export class NutritionRoller {
     let allWeighed = true;
 
     const markAll = (refs: Iterable<IngredientRef>): void => {
-      for (const ref of refs) for (const k of NUTRIENT_KEYS) missing[k].set(ref.id, ref);
+      for (const { id, name } of refs) for (const k of NUTRIENT_KEYS) missing[k].set(id, { id, name });
+    };
+    const addUnweighed = (u: UnweighedLine): void => {
+      if (!unweighed.some((x) => x.recipeId === u.recipeId && x.use === u.use && x.needs === u.needs)) unweighed.push(u);
     };
 
     for (const line of recipe.lines) {
@@ -95,12 +98,12 @@ export class NutritionRoller {
       const lineLeaves: NutritionSource[] =
         item.kind === 'ingredient' ? [sourceOf(item.ingredient)] : [...(child as Rollup).leaves.values()];
       for (const l of lineLeaves) if (!leaves.has(l.id)) leaves.set(l.id, l);
-      for (const u of child?.unweighed ?? []) unweighed.push(u);
+      for (const u of child?.unweighed ?? []) addUnweighed(u);
 
       const weighable = item.kind === 'ingredient' ? item.ingredient : {};
       const w = toGrams(line.qty, line.unit, weighable, this.measures);
       if (!w.ok) {
-        unweighed.push({ recipeId, use: line.use, needs: w.needs });
+        addUnweighed({ recipeId, use: line.use, needs: w.needs });
         allWeighed = false;
         markAll(lineLeaves);
         continue;

@@ -50,6 +50,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: Us
           return (
             <SelectInput
               aria-label={`Role for ${user.name}`}
+              minW="44"
               options={ROLE_OPTIONS}
               value={info.getValue()}
               disabled={user.id === currentUserId || pendingUserId === user.id}

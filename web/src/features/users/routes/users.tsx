@@ -1,7 +1,7 @@
 import { Button, Spinner, Stack, Text } from '@chakra-ui/react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { Page } from '@/components/ui/page';
-import { useSignedInUser } from '@/features/auth/hooks/use-signed-in-user';
+import { useSignedInUser } from '@/lib/signed-in-user';
 import { useUpdateUser } from '../api/update-user';
 import { useUsers } from '../api/get-users';
 import { AddUserForm } from '../components/add-user-form';

@@ -1,0 +1,123 @@
+import { PayloadTooLargeException, applyDecorators } from '@nestjs/common';
+import { ApiBody, ApiConsumes } from '@nestjs/swagger';
+import type { FastifyRequest } from 'fastify';
+import type {} from '@fastify/multipart';
+import { MAX_UPLOAD_BYTES } from '../app.factory';
+import { AppError } from '../common/app-error';
+
+type FileTypeModule = typeof import('file-type', { with: { 'resolution-mode': 'import' } });
+// file-type is ESM only; Node loads it through require(esm), jest transforms it.
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const { fileTypeFromBuffer } = require('file-type') as FileTypeModule;
+
+export interface UploadedFile {
+  /** The name the browser sent, sanitised (no folders, no control or reserved characters). */
+  filename: string;
+  bytes: Buffer;
+}
+
+/** A multipart form with at most one file, in the field `file`, and plain text fields. */
+export interface Upload {
+  file: UploadedFile | null;
+  fields: Record<string, string>;
+}
+
+export interface DetectedType {
+  ext: string;
+  mime: string;
+}
+
+/**
+ * Reads the whole multipart form. Every problem with the form itself becomes a plain message:
+ * a file over the upload limit is a 413, anything else malformed a 400.
+ */
+export async function readUpload(req: FastifyRequest, allowedFields: readonly string[]): Promise<Upload> {
+  if (!req.isMultipart()) {
+    throw new AppError('validation', "Send the form as multipart/form-data, with the file in a field named 'file'.", [
+      { path: 'file', message: 'Attach a file.' },
+    ]);
+  }
+  const upload: Upload = { file: null, fields: {} };
+  const problems: { path: string; message: string }[] = [];
+  try {
+    for await (const part of req.parts()) {
+      if (part.type === 'file') {
+        const bytes = await part.toBuffer();
+        if (part.fieldname !== 'file') {
+          problems.push({ path: part.fieldname, message: `Attach the file in the field 'file', not '${part.fieldname}'.` });
+        } else {
+          upload.file = { filename: safeFilename(part.filename), bytes };
+        }
+      } else if (!allowedFields.includes(part.fieldname)) {
+        problems.push({ path: part.fieldname, message: `This form has no field '${part.fieldname}'; it takes ${['file', ...allowedFields].map((f) => `'${f}'`).join(', ')}.` });
+      } else if (part.fieldname in upload.fields) {
+        problems.push({ path: part.fieldname, message: `Send '${part.fieldname}' once.` });
+      } else {
+        upload.fields[part.fieldname] = String(part.value ?? '');
+      }
+    }
+  } catch (err) {
+    throw uploadError(err);
+  }
+  if (problems.length > 0) {
+    throw new AppError('validation', `The form needs attention. ${problems.map((p) => `${p.path}: ${p.message}`).join(' ')}`, problems);
+  }
+  return upload;
+}
+
+function uploadError(err: unknown): unknown {
+  const code = (err as { code?: string })?.code;
+  const status = (err as { statusCode?: number })?.statusCode;
+  if (code === 'FST_REQ_FILE_TOO_LARGE') {
+    return new PayloadTooLargeException(`The file is larger than ${Math.round(MAX_UPLOAD_BYTES / (1024 * 1024))} MB, the most an upload may be. Attach a smaller file.`);
+  }
+  if (code === 'FST_FILES_LIMIT') return new AppError('validation', 'Attach one file only.', [{ path: 'file', message: 'Attach one file only.' }]);
+  if (code === 'FST_PARTS_LIMIT' || code === 'FST_FIELDS_LIMIT') return new AppError('validation', 'The form has too many fields.');
+  if (typeof status === 'number' && status >= 400 && status < 500) {
+    return new AppError('validation', 'The upload could not be read: the form data is incomplete or malformed. Try again.');
+  }
+  return err;
+}
+
+/** What the bytes are, found by their content (magic numbers), never by the name or declared type. */
+export async function detectType(bytes: Buffer): Promise<DetectedType | undefined> {
+  const found = await fileTypeFromBuffer(bytes);
+  return found ? { ext: found.ext, mime: found.mime } : undefined;
+}
+
+/** "a GIF file (image/gif)", or "not a recognised type". */
+export function describeType(type: DetectedType | undefined): string {
+  if (!type) return 'not a recognised type';
+  const name = type.ext.toUpperCase();
+  return `${/^[AEFHILMNORSX]/.test(name) ? 'an' : 'a'} ${name} file (${type.mime})`;
+}
+
+/** Keeps the last path segment, drops control and reserved characters, and keeps it short. */
+export function safeFilename(name: string | undefined, fallback = 'upload'): string {
+  const base = (name ?? '').split(/[\\/]/).pop() ?? '';
+  // eslint-disable-next-line no-control-regex
+  let clean = base.normalize('NFC').replace(/[\u0000-\u001f\u007f"<>:|?*]/g, '').replace(/\s+/g, ' ').trim().replace(/^\.+/, '');
+  if (clean.length > 200) {
+    const dot = clean.lastIndexOf('.');
+    const ext = dot > 0 && clean.length - dot <= 10 ? clean.slice(dot) : '';
+    clean = clean.slice(0, 200 - ext.length) + ext;
+  }
+  return clean || fallback;
+}
+
+/** Documents a multipart form with a `file` and text fields in the OpenAPI document. */
+export function ApiUpload(fields: Record<string, { description: string; format?: string; required?: boolean }> = {}) {
+  return applyDecorators(
+    ApiConsumes('multipart/form-data'),
+    ApiBody({
+      schema: {
+        type: 'object',
+        required: ['file', ...Object.entries(fields).filter(([, f]) => f.required).map(([k]) => k)],
+        properties: {
+          file: { type: 'string', format: 'binary' },
+          ...Object.fromEntries(Object.entries(fields).map(([k, f]) => [k, { type: 'string', description: f.description, ...(f.format ? { format: f.format } : {}) }])),
+        },
+      },
+    }),
+  );
+}

@@ -1,0 +1,52 @@
+import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
+import { IngredientModel } from '../ingredients/ingredient.model';
+import { UserModel } from '../users/user.model';
+
+/** One uploaded version of a supplier's specification for an ingredient. */
+@Table({ tableName: 'specifications', underscored: true, timestamps: true, updatedAt: false })
+export class SpecificationModel extends Model {
+  @ForeignKey(() => IngredientModel)
+  @Column({ type: DataType.INTEGER, allowNull: false })
+  ingredientId: number;
+
+  @BelongsTo(() => IngredientModel, { onDelete: 'CASCADE' })
+  ingredient: IngredientModel;
+
+  /** 1, 2, … per ingredient; the highest is the current specification. */
+  @Column({ type: DataType.INTEGER, allowNull: false })
+  version: number;
+
+  /** The uploaded file's name, sanitised. */
+  @Column({ type: DataType.STRING(200), allowNull: false })
+  filename: string;
+
+  /** The type found in the bytes, never the name or the declared type. */
+  @Column({ type: DataType.STRING(100), allowNull: false })
+  mediaType: string;
+
+  @Column({ type: DataType.INTEGER, allowNull: false })
+  sizeBytes: number;
+
+  @Column({ type: DataType.CHAR(64), allowNull: false })
+  sha256: string;
+
+  @Column({ type: DataType.BLOB('long'), allowNull: false })
+  content: Buffer;
+
+  /** YYYY-MM-DD: when the kitchen must check the specification again. */
+  @Column({ type: DataType.DATEONLY, allowNull: false })
+  reviewBy: string;
+
+  @Column({ type: DataType.STRING(500), allowNull: false, defaultValue: '' })
+  note: string;
+
+  @ForeignKey(() => UserModel)
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  uploadedBy: number | null;
+
+  @BelongsTo(() => UserModel, { foreignKey: 'uploadedBy', onDelete: 'SET NULL' })
+  uploader: UserModel | null;
+
+  declare id: number;
+  declare createdAt: Date;
+}

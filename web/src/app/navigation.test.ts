@@ -1,0 +1,31 @@
+import { ROLES } from '@crumbproof/shared';
+import { describe, expect, it } from 'vitest';
+import { canOpen, describeRoles, firstPathFor, PAGES, pagesFor, rolesThatCanOpen } from './navigation';
+
+describe('navigation map', () => {
+  it('sends each role to its first page', () => {
+    expect(firstPathFor('manager')).toBe('/ingredients');
+    expect(firstPathFor('pastry-chef')).toBe('/ingredients');
+    expect(firstPathFor('front-of-house')).toBe('/counter');
+  });
+
+  it('lets only managers open users, approvals and audit', () => {
+    for (const page of ['users', 'approvals', 'audit'] as const) {
+      expect(rolesThatCanOpen(page)).toEqual(['manager']);
+    }
+    expect(canOpen('front-of-house', 'ingredients')).toBe(false);
+  });
+
+  it('gives every role at least one page, and every page a role', () => {
+    for (const role of ROLES) expect(pagesFor(role).length).toBeGreaterThan(0);
+    for (const page of Object.keys(PAGES) as (keyof typeof PAGES)[]) {
+      expect(rolesThatCanOpen(page).length).toBeGreaterThan(0);
+    }
+  });
+
+  it('names roles in a sentence', () => {
+    expect(describeRoles(['manager'])).toBe('Manager');
+    expect(describeRoles(['manager', 'pastry-chef'])).toBe('Manager and Pastry chef');
+    expect(describeRoles([...ROLES])).toBe('Manager, Pastry chef and Front of house');
+  });
+});

@@ -1,0 +1,60 @@
+import { describe, expect, it, vi } from 'vitest';
+import { ApiError, apiClient } from './api-client';
+
+function answer(status: number, body?: unknown) {
+  const fetchMock = vi.fn(async () => new Response(body === undefined ? null : JSON.stringify(body), { status }));
+  vi.stubGlobal('fetch', fetchMock);
+  return fetchMock;
+}
+
+describe('apiClient', () => {
+  it('sends JSON with the session cookie to /api and returns the parsed body', async () => {
+    const fetchMock = answer(200, { id: 1 });
+    await expect(apiClient.post('/users', { name: 'Ines' })).resolves.toEqual({ id: 1 });
+    expect(fetchMock).toHaveBeenCalledWith(
+      '/api/users',
+      expect.objectContaining({
+        method: 'POST',
+        credentials: 'include',
+        body: JSON.stringify({ name: 'Ines' }),
+        headers: expect.objectContaining({ 'Content-Type': 'application/json' }),
+      }),
+    );
+  });
+
+  it('returns nothing for 204', async () => {
+    answer(204);
+    await expect(apiClient.post('/auth/sign-out')).resolves.toBeUndefined();
+  });
+
+  it('throws an ApiError carrying the API’s status, code, message and fields', async () => {
+    answer(400, {
+      statusCode: 400,
+      code: 'validation',
+      message: 'password: Use at least 12 characters.',
+      fields: [{ path: 'password', message: 'Use at least 12 characters.' }],
+    });
+    const error = await apiClient.post('/users', {}).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error).toMatchObject({
+      status: 400,
+      code: 'validation',
+      message: 'password: Use at least 12 characters.',
+      fields: [{ path: 'password', message: 'Use at least 12 characters.' }],
+    });
+  });
+
+  it('explains an error answer that has no body', async () => {
+    answer(502);
+    await expect(apiClient.get('/me')).rejects.toMatchObject({ status: 502, code: 'internal' });
+  });
+
+  it('explains a request that never reached the server', async () => {
+    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    await expect(apiClient.get('/me')).rejects.toMatchObject({
+      status: 0,
+      code: 'network',
+      message: 'Crumbproof could not reach the server. Check the connection and try again.',
+    });
+  });
+});
