@@ -11,9 +11,11 @@ import { UsersModule } from './users/users.module';
 import { BooksModule } from './books/books.module';
 import { SeedModule } from './database/seed.module';
 import { SwapsModule } from './swaps/swaps.module';
+import { ReferenceModule } from './reference/reference.module';
+import { SpecificationsModule } from './specifications/specifications.module';
 
 @Module({
-  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule, SwapsModule],
+  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule, SwapsModule, SpecificationsModule, ReferenceModule],
   controllers: [HealthController],
   providers: [
     { provide: APP_GUARD, useClass: SessionGuard },

@@ -23,6 +23,7 @@ export const ERROR_CODES = [
   'recipe-cycle',
   'unknown-reference',
   'unweighable-line',
+  'duplicate-id',
   'book-invalid',
   'internal',
 ] as const;

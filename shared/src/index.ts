@@ -6,3 +6,4 @@ export * from './book';
 export * from './nutrition';
 export * from './declaration';
 export * from './declaration-diff';
+export * from './product-declaration';

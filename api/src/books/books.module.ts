@@ -14,6 +14,7 @@ import { RecipesController } from '../recipes/recipes.controller';
 import { RecipesRepository } from '../recipes/recipes.repository';
 import { RecipesService } from '../recipes/recipes.service';
 import { RulesModule } from '../rules/rules.module';
+import { UsersModule } from '../users/users.module';
 import { BooksController } from './books.controller';
 import { BooksService } from './books.service';
 
@@ -24,6 +25,7 @@ import { BooksService } from './books.service';
 @Module({
   imports: [
     RulesModule,
+    UsersModule,
     SequelizeModule.forFeature([SiteModel, IngredientModel, IngredientRevisionModel, RecipeModel, RecipeRevisionModel, DeclarationModel]),
   ],
   controllers: [BooksController, IngredientsController, RecipesController, DeclarationsController],

@@ -192,7 +192,7 @@ export function bookRefused(problems: BookProblem[]): AppError {
   const fields = problems.map((p) => ({ path: problemPath(p), message: p.message }));
   const first = problems[0];
   const more = problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : '';
-  return new AppError(first.code === 'duplicate-id' ? 'book-invalid' : first.code, `${first.message}${more}`, fields, { problems });
+  return new AppError(first.code, `${first.message}${more}`, fields, { problems });
 }
 
 function problemPath(p: BookProblem): string {

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { REGIMES, bookSchema, type Regime } from '@crumbproof/shared';
-import { BookProblemsError, UnknownProductError, checkBook, declare, declareAll } from '../rules/core';
+import { BookProblemsError, UnknownProductError, checkBook, declareProduct, declareProducts } from '../rules/core';
 import { loadReferenceData } from '../rules/reference-data';
 
 /**
@@ -73,7 +73,7 @@ function main(): void {
 
   const refs = loadReferenceData();
   try {
-    const out = args.product ? { declarations: [declare(book, args.product, refs, { regime: args.regime })] } : declareAll(book, refs, { regime: args.regime });
+    const out = args.product ? { declarations: [declareProduct(book, args.product, refs, { regime: args.regime })] } : declareProducts(book, refs, { regime: args.regime });
     process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
   } catch (e) {
     if (e instanceof BookProblemsError) fail(e.problems.map((p) => `${p.code}: ${p.message}`), 1);

@@ -19,6 +19,7 @@ export function httpStatusOf(code: ErrorCode): number {
     case 'recipe-cycle':
     case 'unknown-reference':
     case 'unweighable-line':
+    case 'duplicate-id':
       return 400;
     case 'unauthenticated':
     case 'bad-credentials':

@@ -1,5 +1,6 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { BooksService } from '../books/books.service';
+import { DeclarationsService } from '../declarations/declarations.service';
 import { hashPassword } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
 import demoBook from './seeders/demo-book.json';
@@ -13,6 +14,7 @@ export class SeedService {
   constructor(
     private readonly users: UsersRepository,
     private readonly books: BooksService,
+    private readonly declarations: DeclarationsService,
   ) {}
 
   async seedDemo(): Promise<'seeded' | 'kept'> {
@@ -23,6 +25,7 @@ export class SeedService {
     const hash = await hashPassword(DEMO_PASSWORD);
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
     for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash });
+    await this.declarations.recordAll();
     this.logger.log(`Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`);
     return 'seeded';
   }

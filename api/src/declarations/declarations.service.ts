@@ -10,6 +10,7 @@ import { RecipesRepository } from '../recipes/recipes.repository';
 import { RulesService } from '../rules/rules.service';
 import { validationError } from '../common/zod.pipe';
 import { DeclarationModel } from './declaration.model';
+import type { ProductDeclaration } from '../rules/rules.service';
 
 /** Everything a product's declaration depends on: the site, and every item it reaches. */
 export function closureOf(book: Book, productId: string): Book {
@@ -44,7 +45,7 @@ export class DeclarationsService {
     private readonly rules: RulesService,
   ) {}
 
-  async forProduct(code: string, regime?: Regime): Promise<Declaration> {
+  async forProduct(code: string, regime?: Regime): Promise<ProductDeclaration> {
     const book = await this.books.exportBook();
     const recipe = book.recipes.find((r) => r.id === code);
     if (!recipe) throw new AppError('not-found', `There is no recipe '${code}'.`);
@@ -56,7 +57,7 @@ export class DeclarationsService {
       .update(JSON.stringify({ slice, regime: useRegime, refs: this.rules.referenceVersion }))
       .digest('hex');
     const hit = await this.saved.findOne({ where: { recipeId: head.id, regime: useRegime, inputHash } });
-    if (hit) return parseJson(hit.body) as Declaration;
+    if (hit) return parseJson(hit.body) as ProductDeclaration;
     const declaration = this.rules.declare(slice, code, useRegime);
     try {
       await this.saved.create({ recipeId: head.id, recipeRevision: head.revision, regime: useRegime, inputHash, body: declaration });
@@ -67,7 +68,7 @@ export class DeclarationsService {
   }
 
   /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */
-  async preview(input: unknown, regime?: Regime): Promise<Declaration> {
+  async preview(input: unknown, regime?: Regime): Promise<ProductDeclaration> {
     const parsed = bookRecipeSchema.safeParse(input);
     if (!parsed.success) throw validationError(parsed.error);
     const book = await this.books.exportBook();
@@ -76,10 +77,26 @@ export class DeclarationsService {
     return this.rules.declare(closureOf(merged, parsed.data.id), parsed.data.id, regime ?? book.site.regime);
   }
 
-  /** Declarations of every product for sale. */
-  async all(regime?: Regime): Promise<Declaration[]> {
+  /** The first declaration kept for each revision of a recipe, in the kitchen's regime. */
+  async savedByRevision(recipeId: number): Promise<Map<number, Declaration>> {
+    const site = (await this.books.site())!;
+    const rows = await this.saved.findAll({ where: { recipeId, regime: site.regime }, order: [['id', 'ASC']] });
+    const out = new Map<number, Declaration>();
+    for (const r of rows) if (!out.has(r.recipeRevision)) out.set(r.recipeRevision, parseJson(r.body) as Declaration);
+    return out;
+  }
+
+  /** Declares every recipe once, so each current revision has its declaration on record. */
+  async recordAll(): Promise<number> {
     const book = await this.books.exportBook();
-    const out: Declaration[] = [];
+    for (const r of book.recipes) await this.forProduct(r.id);
+    return book.recipes.length;
+  }
+
+  /** Declarations of every product for sale. */
+  async all(regime?: Regime): Promise<ProductDeclaration[]> {
+    const book = await this.books.exportBook();
+    const out: ProductDeclaration[] = [];
     for (const r of book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime));
     return out;
   }

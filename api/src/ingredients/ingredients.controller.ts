@@ -30,6 +30,12 @@ export class IngredientsController {
     return this.ingredients.history(code);
   }
 
+  @Get(':code/used-in')
+  @ApiOperation({ summary: 'Every recipe and product that uses the ingredient at any depth' })
+  usedIn(@Param('code') code: string) {
+    return this.ingredients.usedIn(code);
+  }
+
   @Post()
   @HttpCode(201)
   @ApiOperation({ summary: 'Add a bought-in ingredient' })

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import type { BookIngredient } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
+import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
 import { IngredientsRepository } from './ingredients.repository';
 
@@ -37,6 +38,13 @@ export class IngredientsService {
     const revs = await this.repo.history(await this.siteId(), code);
     if (!revs) throw new AppError('not-found', `There is no ingredient '${code}'.`);
     return revs.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+  }
+
+  /** Every recipe and product that uses the ingredient at any depth, with each path. */
+  async usedIn(code: string) {
+    const book = await this.books.exportBook();
+    if (!book.ingredients.some((i) => i.id === code)) throw new AppError('not-found', `There is no ingredient '${code}'.`);
+    return usedIn(book, code);
   }
 
   async create(item: BookIngredient, authorId: number) {

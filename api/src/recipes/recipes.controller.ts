@@ -32,6 +32,13 @@ export class RecipesController {
     return this.recipes.history(code);
   }
 
+  @Get(':code/used-in')
+  @Roles(KITCHEN_WRITERS)
+  @ApiOperation({ summary: 'Every recipe and product that uses this recipe at any depth' })
+  usedIn(@Param('code') code: string) {
+    return this.recipes.usedIn(code);
+  }
+
   @Post()
   @Roles(KITCHEN_WRITERS)
   @HttpCode(201)

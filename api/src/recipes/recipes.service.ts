@@ -1,8 +1,23 @@
 import { Injectable } from '@nestjs/common';
-import type { BookRecipe } from '@crumbproof/shared';
+import { diffDeclarations, type BookRecipe, type Declaration, type DeclarationDiff } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
+import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
+import { DeclarationsService } from '../declarations/declarations.service';
+import { UsersRepository } from '../users/users.repository';
 import { RecipesRepository } from './recipes.repository';
+
+export interface RecipeRevisionView {
+  revision: number;
+  note: string;
+  authorName: string | null;
+  createdAt: string;
+  body: Omit<BookRecipe, 'id'>;
+  /** The declaration as it stood when this revision was saved (the kitchen's regime). */
+  declaration: Declaration | null;
+  /** What changed in the declaration against the revision before. */
+  diff: DeclarationDiff | null;
+}
 
 export interface RecipeView extends BookRecipe {
   revision: number;
@@ -14,6 +29,8 @@ export class RecipesService {
   constructor(
     private readonly repo: RecipesRepository,
     private readonly books: BooksService,
+    private readonly declarations: DeclarationsService,
+    private readonly users: UsersRepository,
   ) {}
 
   private async siteId() {
@@ -33,20 +50,47 @@ export class RecipesService {
     return { id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() };
   }
 
-  async history(code: string) {
-    const revs = await this.repo.history(await this.siteId(), code);
+  async history(code: string): Promise<RecipeRevisionView[]> {
+    const site = await this.siteId();
+    const revs = await this.repo.history(site, code);
     if (!revs) throw new AppError('not-found', `There is no recipe '${code}'.`);
-    return revs.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+    const head = (await this.repo.findCurrent(site, code))!;
+    const saved = await this.declarations.savedByRevision(head.id);
+    const names = new Map((await this.users.list()).map((u) => [u.id, u.name]));
+    const oldestFirst = [...revs].reverse();
+    const views = oldestFirst.map((r, i) => {
+      const declaration = saved.get(r.revision) ?? null;
+      const previous = i > 0 ? (saved.get(oldestFirst[i - 1].revision) ?? null) : null;
+      return {
+        revision: r.revision,
+        note: r.note,
+        authorName: r.authorId ? (names.get(r.authorId) ?? null) : null,
+        createdAt: r.createdAt.toISOString(),
+        body: r.body,
+        declaration,
+        diff: declaration && previous ? diffDeclarations(previous, declaration) : null,
+      };
+    });
+    return views.reverse();
+  }
+
+  /** Every recipe that uses this one at any depth. */
+  async usedIn(code: string) {
+    const book = await this.books.exportBook();
+    if (!book.recipes.some((r) => r.id === code)) throw new AppError('not-found', `There is no recipe '${code}'.`);
+    return usedIn(book, code);
   }
 
   async create(item: BookRecipe, authorId: number) {
     await this.books.writeItem('recipe', item, { authorId, note: 'Created' }, 'new');
+    await this.declarations.forProduct(item.id);
     return this.get(item.id);
   }
 
   async update(code: string, item: BookRecipe, authorId: number, note?: string) {
     if (item.id !== code) throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [{ path: 'id', message: 'Must match the address.' }]);
     await this.books.writeItem('recipe', item, { authorId, note: note ?? 'Edited' }, 'existing');
+    await this.declarations.forProduct(code);
     return this.get(code);
   }
 }

@@ -1,22 +1,55 @@
 import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
-import type { Book, BookProblem, Declaration, Regime } from '@crumbproof/shared';
-import { checkBook, declare } from './core';
+import {
+  ALLERGEN_SOURCES,
+  SOURCE_LABELS,
+  type AllergenSource,
+  type Book,
+  type BookProblem,
+  type ProductDeclaration,
+  type Regime,
+  type SourceEntry,
+} from '@crumbproof/shared';
+import { checkBook, declareProduct, scanComposition } from './core';
+import type { NutrientTable } from './core/nutrition/nutrient-table';
 import type { ReferenceData } from './core/reference-schema';
+import { loadNutrientTable } from './nutrients-data';
 import { loadReferenceData } from './reference-data';
+
+export type { ProductDeclaration };
 
 /** The rules engine as a Nest provider: reference data is loaded and validated once, at start. */
 @Injectable()
 export class RulesService {
   readonly refs: ReferenceData = loadReferenceData();
+  readonly nutrients: NutrientTable = loadNutrientTable();
   /** Changes whenever the reference data changes, so cached declarations follow it. */
-  readonly referenceVersion = createHash('sha256').update(JSON.stringify(this.refs)).digest('hex').slice(0, 16);
+  readonly referenceVersion = createHash('sha256').update(JSON.stringify([this.refs, this.nutrients])).digest('hex').slice(0, 16);
 
   check(book: Book): BookProblem[] {
     return checkBook(book);
   }
 
-  declare(book: Book, productId: string, regime?: Regime): Declaration {
-    return declare(book, productId, this.refs, { regime });
+  declare(book: Book, productId: string, regime?: Regime): ProductDeclaration {
+    return declareProduct(book, productId, this.refs, { regime });
+  }
+
+  /** The terms the engine reads in a supplier's composition text, and where they disagree with the supplier's list. */
+  scan(text: string, contains?: SourceEntry[]) {
+    const scan = scanComposition(text, this.refs.lexicon);
+    const listed = new Set<AllergenSource>((contains ?? []).map((c) => (typeof c === 'string' ? c : c.source)));
+    const discrepancies =
+      contains === undefined
+        ? []
+        : [...new Map(scan.allergens.filter((h) => !listed.has(h.source)).map((h) => [h.source, h])).values()].map((h) => ({
+            source: h.source,
+            term: h.matched,
+            message: `Composition names '${h.matched}' (${SOURCE_LABELS[h.source]}) but the supplier's list does not include ${SOURCE_LABELS[h.source]}.`,
+          }));
+    return { ...scan, discrepancies };
+  }
+
+  sources() {
+    return ALLERGEN_SOURCES.map((s) => ({ source: s, label: SOURCE_LABELS[s] }));
   }
 }

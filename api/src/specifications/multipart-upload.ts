@@ -11,7 +11,7 @@ type FileTypeModule = typeof import('file-type', { with: { 'resolution-mode': 'i
 const { fileTypeFromBuffer } = require('file-type') as FileTypeModule;
 
 export interface UploadedFile {
-  /** The name the browser sent, sanitised (no folders, no control or reserved characters). */
+  /** The name the browser sent, sanitised (no folders, no control or reserved characters); may be empty. */
   filename: string;
   bytes: Buffer;
 }
@@ -93,7 +93,7 @@ export function describeType(type: DetectedType | undefined): string {
 }
 
 /** Keeps the last path segment, drops control and reserved characters, and keeps it short. */
-export function safeFilename(name: string | undefined, fallback = 'upload'): string {
+export function safeFilename(name: string | undefined): string {
   const base = (name ?? '').split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
   let clean = base.normalize('NFC').replace(/[\u0000-\u001f\u007f"<>:|?*]/g, '').replace(/\s+/g, ' ').trim().replace(/^\.+/, '');
@@ -102,7 +102,7 @@ export function safeFilename(name: string | undefined, fallback = 'upload'): str
     const ext = dot > 0 && clean.length - dot <= 10 ? clean.slice(dot) : '';
     clean = clean.slice(0, 200 - ext.length) + ext;
   }
-  return clean || fallback;
+  return clean;
 }
 
 /** Documents a multipart form with a `file` and text fields in the OpenAPI document. */

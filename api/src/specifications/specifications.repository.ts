@@ -99,13 +99,8 @@ export class SpecificationsRepository {
     return rows.map(toRow);
   }
 
-  async findFile(id: number): Promise<{ row: SpecificationRow; content: Buffer; ingredientId: number } | null> {
-    const row = await this.specs.findByPk(id, { include: [{ model: UserModel, attributes: ['id', 'name'] }] });
-    return row ? { row: toRow(row), content: row.content, ingredientId: row.ingredientId } : null;
-  }
-
-  async ingredientOf(id: number): Promise<IngredientRef | null> {
-    const row = await this.ingredients.findByPk(id, { attributes: ['id', 'code', 'name', 'siteId'] });
-    return row ? { id: row.id, code: row.code, name: row.name } : null;
+  async findFile(id: number): Promise<{ filename: string; mediaType: string; content: Buffer } | null> {
+    const row = await this.specs.findByPk(id, { attributes: ['id', 'filename', 'mediaType', 'content'] });
+    return row ? { filename: row.filename, mediaType: row.mediaType, content: row.content } : null;
   }
 }

@@ -17,3 +17,4 @@ export {
   type RegimeRules,
   type RegimesFile,
 } from './reference-schema';
+export { declareProduct, declareProducts } from './product';

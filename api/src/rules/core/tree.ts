@@ -79,6 +79,7 @@ export function buildTree(book: Book, productId: string): ProductTree {
         return { kind: 'ingredient', id: ingredient.id, name: ingredient.name, role, usedG, massG, share: nodeShare, path: nodePath, ingredient, children: [] };
       }
       if (!sub) throw new Error(`${recipe.name} uses '${line.use}', which is not in this book; check the book first.`);
+      if (path.includes(sub.id)) throw new Error(`${sub.name} contains itself; check the book first.`);
       const batch = sub.finishedWeightG ?? mixOf(sub);
       const childFactor = batch > 0 ? massG / batch : 0;
       return {

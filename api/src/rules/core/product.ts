@@ -1,0 +1,18 @@
+import type { Book, ProductDeclaration, Regime } from '@crumbproof/shared';
+import { declare } from './declare';
+import { computeNutrition } from './nutrition';
+import { defaultMeasures } from './quantities';
+import type { ReferenceData } from './reference-schema';
+
+/** A product's full declaration: allergens, claims and list (declare) with its nutrition. */
+export function declareProduct(book: Book, productId: string, refs: ReferenceData, opts: { regime?: Regime } = {}): ProductDeclaration {
+  const regime = opts.regime ?? book.site.regime;
+  const declaration = declare(book, productId, refs, { regime });
+  const nutrition = computeNutrition(book, productId, { regime, measures: book.site.measures ?? defaultMeasures(regime) });
+  return { ...declaration, nutrition };
+}
+
+/** Every product for sale in the book, in book order. */
+export function declareProducts(book: Book, refs: ReferenceData, opts: { regime?: Regime } = {}): { declarations: ProductDeclaration[] } {
+  return { declarations: book.recipes.filter((r) => r.sale).map((r) => declareProduct(book, r.id, refs, opts)) };
+}

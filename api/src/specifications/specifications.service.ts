@@ -1,0 +1,135 @@
+import { createHash } from 'node:crypto';
+import { Injectable, StreamableFile } from '@nestjs/common';
+import { AppError } from '../common/app-error';
+import { TransactionRunner } from '../common/transaction';
+import { validationError } from '../common/zod.pipe';
+import { BooksService } from '../books/books.service';
+import {
+  ACCEPTED_SPECIFICATION_TYPES,
+  specificationFieldsSchema,
+  today,
+  type SpecificationStatus,
+  type SpecificationView,
+} from './specification.dto';
+import { describeType, detectType, type Upload } from './multipart-upload';
+import { SpecificationsRepository, type IngredientRef, type SpecificationRow } from './specifications.repository';
+
+/** Supplier specifications of ingredients: versioned uploads with a date to check them again. */
+@Injectable()
+export class SpecificationsService {
+  constructor(
+    private readonly repo: SpecificationsRepository,
+    private readonly books: BooksService,
+    private readonly tx: TransactionRunner,
+  ) {}
+
+  private async siteId(): Promise<number> {
+    const site = await this.books.site();
+    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
+    return site.id;
+  }
+
+  private async ingredient(code: string): Promise<IngredientRef> {
+    const found = await this.repo.findIngredient(await this.siteId(), code);
+    if (!found) throw new AppError('not-found', `There is no ingredient '${code}'.`);
+    return found;
+  }
+
+  /** Checks the whole upload before anything is written: fields, then the file's content. */
+  async upload(code: string, upload: Upload, userId: number): Promise<SpecificationView> {
+    const ingredient = await this.ingredient(code);
+    const parsed = specificationFieldsSchema.safeParse(upload.fields);
+    const fieldErrors = parsed.success ? [] : validationError(parsed.error).fields ?? [];
+    if (!upload.file) fieldErrors.push({ path: 'file', message: 'Attach the specification (a PDF or an image) in the field file.' });
+    else if (upload.file.bytes.length === 0) fieldErrors.push({ path: 'file', message: 'The file is empty.' });
+    if (fieldErrors.length > 0 || !parsed.success || !upload.file) {
+      throw new AppError('validation', `Some fields need attention. ${fieldErrors.map((f) => `${f.path}: ${f.message}`).join(' ')}`, fieldErrors);
+    }
+    const { bytes, filename } = upload.file;
+    const type = await detectType(bytes);
+    if (!type || !(type.mime in ACCEPTED_SPECIFICATION_TYPES)) {
+      const message = `Only PDF files and images (PNG, JPEG, WebP) can be attached; this file is ${describeType(type)}.`;
+      throw new AppError('validation', message, [{ path: 'file', message }]);
+    }
+    const row = await this.tx.run((t) =>
+      this.repo.add(
+        {
+          ingredientId: ingredient.id,
+          filename: filename || `specification.${ACCEPTED_SPECIFICATION_TYPES[type.mime]}`,
+          mediaType: type.mime,
+          sizeBytes: bytes.length,
+          sha256: createHash('sha256').update(bytes).digest('hex'),
+          content: bytes,
+          reviewBy: parsed.data.reviewBy,
+          note: parsed.data.note ?? '',
+          uploadedBy: userId,
+        },
+        t,
+      ),
+    );
+    return view(row, ingredient.code, true, today());
+  }
+
+  /** Every version, newest first. */
+  async list(code: string): Promise<SpecificationView[]> {
+    const ingredient = await this.ingredient(code);
+    const rows = await this.repo.listFor([ingredient.id]);
+    const now = today();
+    return rows.map((r, i) => view(r, ingredient.code, i === 0, now));
+  }
+
+  /** The stored bytes, served inline with the type found at upload. */
+  async file(id: string): Promise<StreamableFile> {
+    const n = /^\d{1,9}$/.test(id) ? Number(id) : NaN;
+    const found = Number.isNaN(n) ? null : await this.repo.findFile(n);
+    if (!found) throw new AppError('not-found', `There is no specification ${id}.`);
+    return new StreamableFile(found.content, {
+      type: found.mediaType,
+      length: found.content.length,
+      disposition: contentDisposition(found.filename),
+    });
+  }
+
+  /** For every ingredient: its newest specification, and whether it is missing, overdue or current. */
+  async status(): Promise<SpecificationStatus[]> {
+    const ingredients = await this.repo.listIngredients(await this.siteId());
+    const rows = await this.repo.listFor(ingredients.map((i) => i.id));
+    const latest = new Map<number, SpecificationRow>();
+    for (const r of rows) if (!latest.has(r.ingredientId)) latest.set(r.ingredientId, r);
+    const now = today();
+    return ingredients.map((i) => {
+      const r = latest.get(i.id);
+      return {
+        ingredient: i.code,
+        name: i.name,
+        latest: r ? { id: r.id, version: r.version, reviewBy: r.reviewBy, uploadedAt: r.createdAt.toISOString() } : null,
+        state: !r ? 'missing' : r.reviewBy < now ? 'overdue' : 'current',
+      };
+    });
+  }
+}
+
+function view(r: SpecificationRow, ingredient: string, current: boolean, now: string): SpecificationView {
+  return {
+    id: r.id,
+    ingredient,
+    version: r.version,
+    filename: r.filename,
+    mediaType: r.mediaType,
+    sizeBytes: r.sizeBytes,
+    sha256: r.sha256,
+    reviewBy: r.reviewBy,
+    note: r.note,
+    uploadedBy: r.uploadedBy,
+    uploadedAt: r.createdAt.toISOString(),
+    current,
+    reviewOverdue: r.reviewBy < now,
+    fileUrl: `/api/specifications/${r.id}/file`,
+  };
+}
+
+/** inline, with an ASCII fallback name and the exact name in RFC 5987 form. */
+export function contentDisposition(filename: string): string {
+  const ascii = filename.replace(/[^\x20-\x7e]/g, '_').replace(/["\\;]/g, '_');
+  return `inline; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(filename).replace(/['()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)}`;
+}
