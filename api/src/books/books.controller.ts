@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Post } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { bookSchema } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
@@ -19,6 +19,7 @@ export class BooksController {
   }
 
   @Post('import')
+  @HttpCode(200)
   @Roles(['manager'])
   @ApiOperation({ summary: 'Import a recipe book, merging by id; all or nothing' })
   @ApiZodBody(bookSchema)

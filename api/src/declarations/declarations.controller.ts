@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
 import { bookRecipeSchema, REGIMES, ROLES, KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
 import { z } from 'zod';
@@ -30,6 +30,7 @@ export class DeclarationsController {
   }
 
   @Post('declarations/preview')
+  @HttpCode(200)
   @Roles(KITCHEN_WRITERS)
   @ApiOperation({ summary: 'Declare a recipe as edited, without saving it' })
   @ApiZodBody(bookRecipeSchema)

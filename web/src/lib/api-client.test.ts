@@ -22,6 +22,22 @@ describe('apiClient', () => {
     );
   });
 
+  it('sends FormData as multipart, leaving the Content-Type (and its boundary) to the browser', async () => {
+    const fetchMock = answer(201, { id: 7 });
+    const form = new FormData();
+    form.append('reviewBy', '2027-01-31');
+    await expect(apiClient.post('/ingredients/flour/specifications', form)).resolves.toEqual({ id: 7 });
+    const init = (fetchMock.mock.calls[0] as unknown as [string, RequestInit])[1];
+    expect(init.body).toBe(form);
+    expect(init.headers).not.toHaveProperty('Content-Type');
+  });
+
+  it('sends PUT with a JSON body', async () => {
+    const fetchMock = answer(200, { id: 'flour' });
+    await apiClient.put('/ingredients/flour', { id: 'flour' });
+    expect(fetchMock).toHaveBeenCalledWith('/api/ingredients/flour', expect.objectContaining({ method: 'PUT', body: '{"id":"flour"}' }));
+  });
+
   it('returns nothing for 204', async () => {
     answer(204);
     await expect(apiClient.post('/auth/sign-out')).resolves.toBeUndefined();

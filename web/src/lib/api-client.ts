@@ -56,7 +56,9 @@ async function readJson(response: Response): Promise<unknown> {
 
 async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  // FormData (file uploads) goes as multipart: the browser writes the Content-Type with its boundary.
+  const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+  if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
 
   let response: Response;
   try {
@@ -64,7 +66,7 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
       method,
       headers,
       credentials: 'include',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
     });
   } catch (error) {
@@ -86,11 +88,16 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
   return body as T;
 }
 
-/** The one way the web talks to the API: same origin, cookie credentials, JSON both ways. */
+/**
+ * The one way the web talks to the API: same origin, cookie credentials, JSON both ways.
+ * A FormData body is sent as multipart/form-data (file uploads); the answer is still JSON.
+ */
 export const apiClient = {
   get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) => request<T>('GET', path, options),
   post: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'body'>) =>
     request<T>('POST', path, { ...options, body }),
   patch: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'body'>) =>
     request<T>('PATCH', path, { ...options, body }),
+  put: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'body'>) =>
+    request<T>('PUT', path, { ...options, body }),
 };

@@ -1,0 +1,163 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Book, ProductDeclaration } from '@crumbproof/shared';
+import { QueryTypes } from 'sequelize';
+import { startTestApp, type TestApp } from './support/test-app';
+
+const shortbread: Book = JSON.parse(readFileSync(join(__dirname, '..', '..', 'tests', 'fixtures', 'shortbread.book.json'), 'utf8'));
+
+describe('recipe book, declarations and the checked write path (real MariaDB)', () => {
+  let t: TestApp;
+  let chef: string;
+  let manager: string;
+  let counter: string;
+  beforeAll(async () => {
+    t = await startTestApp({ seed: true });
+    chef = await t.signIn('chef@example.com');
+    manager = await t.signIn('manager@example.com');
+    counter = await t.signIn('counter@example.com');
+  });
+  afterAll(() => t.close());
+
+  const req = (method: 'GET' | 'POST' | 'PUT', url: string, cookie: string, payload?: unknown) =>
+    t.app.inject({ method, url, headers: { cookie }, ...(payload !== undefined ? { payload: payload as object } : {}) });
+  const count = async (table: string) =>
+    Number((await t.sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM ${table}`, { type: QueryTypes.SELECT }))[0].n);
+
+  it('exports the seeded demo kitchen as a recipe book that validates against the published schema', async () => {
+    const res = await req('GET', '/api/book', chef);
+    expect(res.statusCode).toBe(200);
+    const book = res.json() as Book;
+    expect(book.crumbproofBook).toBe(1);
+    expect(book.site.regime).toBe('UK');
+    expect(book.recipes.filter((r) => r.sale).length).toBeGreaterThanOrEqual(5);
+  });
+
+  it('declares a demo product for the counter, with nutrition, and serves the same declaration from the store', async () => {
+    const first = await req('GET', '/api/recipes/vegan-brownie/declaration', counter);
+    expect(first.statusCode).toBe(200);
+    const d = first.json() as ProductDeclaration;
+    expect(d.claims.vegan.status).toBe('ok');
+    expect(d.nutrition.per100g.energyKj).toBeGreaterThan(0);
+    const stored = await count('declarations');
+    const again = await req('GET', '/api/recipes/vegan-brownie/declaration', counter);
+    expect(again.json()).toEqual(d);
+    expect(await count('declarations')).toBe(stored);
+  });
+
+  it('gives a declaration in another regime on request, and refuses an unknown regime by name', async () => {
+    const us = await req('GET', '/api/recipes/apricot-walnut-loaf/declaration?regime=US', counter);
+    expect(us.statusCode).toBe(200);
+    expect(us.json().regime).toBe('US');
+    expect(us.json().contains.map((c: { allergen: string }) => c.allergen)).toEqual(expect.arrayContaining(['tree-nuts', 'wheat']));
+    const bad = await req('GET', '/api/recipes/apricot-walnut-loaf/declaration?regime=XX', counter);
+    expect(bad.statusCode).toBe(400);
+  });
+
+  it('imports a book all or nothing: one bad recipe and nothing is saved, naming the recipe and line', async () => {
+    const before = await count('recipe_revisions');
+    const bad: Book = {
+      ...shortbread,
+      site: { name: 'Wrenfield Lane Bakehouse', regime: 'UK', handles: [] },
+      ingredients: [...shortbread.ingredients, { id: 'lemon', name: 'Lemon', contains: [], mayContain: [], vegan: true, vegetarian: true }],
+      recipes: [
+        shortbread.recipes[0],
+        { id: 'lemon-curd', name: 'Lemon curd', lines: [{ use: 'butter', qty: 50, unit: 'g' }, { use: 'flour', qty: 5, unit: 'g' }, { use: 'butter', qty: 1, unit: 'g' }, { use: 'lemon', qty: 2, unit: 'each' }] },
+      ],
+    };
+    const res = await req('POST', '/api/book/import', manager, bad);
+    expect(res.statusCode).toBe(400);
+    expect(res.json().code).toBe('unweighable-line');
+    expect(res.json().message).toMatch(/Line 4 of Lemon curd uses 'lemon' in 'each', but Lemon has no weight per unit/);
+    expect(res.json().fields[0].path).toBe('recipes.lemon-curd.lines.4');
+    expect(await count('recipe_revisions')).toBe(before);
+    expect((await req('GET', '/api/recipes/shortbread', chef)).statusCode).toBe(404);
+  });
+
+  it('refuses a book that fails the schema, naming the ingredient and field', async () => {
+    const res = await req('POST', '/api/book/import', manager, { ...shortbread, ingredients: [{ ...shortbread.ingredients[0], vegan: 'maybe' }] });
+    expect(res.statusCode).toBe(400);
+    expect(res.json().fields[0].path).toBe('ingredients.0 (flour).vegan');
+  });
+
+  it('imports a good book, merging by id, and reports what it created', async () => {
+    const book = { ...shortbread, site: (await req('GET', '/api/book', chef)).json().site };
+    const res = await req('POST', '/api/book/import', manager, book);
+    expect(res.statusCode).toBe(200);
+    expect(res.json().recipes.created).toEqual(['shortbread']);
+    const d = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json() as ProductDeclaration;
+    expect(d.contains.map((c) => c.allergen)).toEqual(['gluten', 'milk']);
+    expect(d.claims.vegan.status).toBe('fails');
+    expect(d.errors.map((e) => e.code)).toContain('claim-not-met');
+    const again = await req('POST', '/api/book/import', manager, book);
+    expect(again.json().recipes).toEqual({ created: [], revised: [], unchanged: 1 });
+  });
+
+  it('refuses a recipe that contains itself through a sub-recipe, and saves nothing', async () => {
+    const sponge = (await req('GET', '/api/recipes/vanilla-sponge', chef)).json();
+    const { revision: _r, updatedAt: _u, ...body } = sponge;
+    const looped = { ...body, lines: [...body.lines, { use: 'strawberry-layer-cake', qty: 10, unit: 'g' }] };
+    const res = await req('PUT', '/api/recipes/vanilla-sponge', chef, looped);
+    expect(res.statusCode).toBe(400);
+    expect(res.json().code).toBe('recipe-cycle');
+    expect((await req('GET', '/api/recipes/vanilla-sponge', chef)).json().revision).toBe(sponge.revision);
+  });
+
+  it('refuses a line that uses an unknown id', async () => {
+    const res = await req('POST', '/api/recipes', chef, { id: 'mystery-bun', name: 'Mystery bun', lines: [{ use: 'unicorn-dust', qty: 5, unit: 'g' }] });
+    expect(res.statusCode).toBe(400);
+    expect(res.json().code).toBe('unknown-reference');
+    expect(res.json().message).toMatch(/unicorn-dust/);
+  });
+
+  it('changing an ingredient gives every product above it a new declaration (the store follows)', async () => {
+    const before = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json() as ProductDeclaration;
+    expect(before.claims['dairy-free'].status).toBe('fails');
+    const butter = (await req('GET', '/api/ingredients/butter', chef)).json();
+    const { revision: _r, updatedAt: _u, ...body } = butter;
+    const res = await req('PUT', '/api/ingredients/butter', chef, { ...body, name: 'Plant butter', contains: [], vegan: true });
+    expect(res.statusCode).toBe(200);
+    expect(res.json().revision).toBe(butter.revision + 1);
+    const after = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json() as ProductDeclaration;
+    expect(after.contains.map((c) => c.allergen)).toEqual(['gluten']);
+    expect(after.claims.vegan.status).toBe('ok');
+  });
+
+  it('lists where an ingredient is used at any depth, with paths', async () => {
+    const book = (await req('GET', '/api/book', chef)).json() as Book;
+    const cakeLines = book.recipes.find((r) => r.id === 'strawberry-layer-cake')!.lines.map((l) => l.use);
+    const sub = cakeLines.find((id) => book.recipes.some((r) => r.id === id))!;
+    const leaf = book.recipes.find((r) => r.id === sub)!.lines.find((l) => book.ingredients.some((i) => i.id === l.use))!.use;
+    const res = await req('GET', `/api/ingredients/${leaf}/used-in`, chef);
+    expect(res.statusCode).toBe(200);
+    const cake = res.json().find((u: { id: string }) => u.id === 'strawberry-layer-cake');
+    expect(cake.paths).toContainEqual(['strawberry-layer-cake', sub, leaf]);
+  });
+
+  it('keeps a recipe’s revisions with what changed in its declaration', async () => {
+    const rec = (await req('GET', '/api/recipes/shortbread', chef)).json();
+    const { revision: _r, updatedAt: _u, ...body } = rec;
+    const withEgg = { ...body, lines: [...body.lines, { use: 'free-range-eggs', qty: 50, unit: 'g' }] };
+    const ingredients = (await req('GET', '/api/ingredients', chef)).json() as { id: string; contains?: string[] }[];
+    const egg = ingredients.find((i) => (i.contains ?? []).includes('egg'))!;
+    withEgg.lines[withEgg.lines.length - 1].use = egg.id;
+    expect((await req('PUT', '/api/recipes/shortbread', chef, withEgg)).statusCode).toBe(200);
+    const revs = (await req('GET', '/api/recipes/shortbread/revisions', chef)).json();
+    expect(revs[0].revision).toBe(2);
+    expect(revs[0].authorName).toBe('Tobiah Quill');
+    expect(revs[0].diff.containsAdded.map((g: { allergen: string }) => g.allergen)).toContain('eggs');
+  });
+
+  it('previews a recipe as edited without saving it', async () => {
+    const before = await count('recipe_revisions');
+    const res = await req('POST', '/api/declarations/preview', chef, { id: 'draft-biscuit', name: 'Draft biscuit', lines: [{ use: 'flour', qty: 100, unit: 'g' }], sale: { portionG: 20, claims: ['gluten-free'] } });
+    expect(res.statusCode).toBe(200);
+    expect(res.json().claims['gluten-free'].status).toBe('fails');
+    expect(await count('recipe_revisions')).toBe(before);
+  });
+
+  it('front-of-house cannot write', async () => {
+    expect((await req('PUT', '/api/ingredients/butter', counter, {})).statusCode).toBe(403);
+    expect((await req('POST', '/api/book/import', counter, shortbread)).statusCode).toBe(403);
+  });
+});

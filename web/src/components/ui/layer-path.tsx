@@ -1,0 +1,93 @@
+import { Box, Link } from '@chakra-ui/react';
+import { Link as RouterLink } from 'react-router-dom';
+
+/** What a screen knows about an id it shows: its name, and whether it is a recipe or an ingredient. */
+export interface ItemInfo {
+  name: string;
+  kind: 'recipe' | 'ingredient';
+}
+
+export type ItemLookup = (id: string) => ItemInfo | undefined;
+
+export interface LayerStep {
+  id: string;
+  name: string;
+  href: string;
+}
+
+export function hrefFor(id: string, kind: ItemInfo['kind']): string {
+  const segment = encodeURIComponent(id);
+  return kind === 'recipe' ? `/recipes/${segment}` : `/ingredients/${segment}`;
+}
+
+/**
+ * Turns a path of ids (product first, leaf last) into named, linked steps. Every step above the
+ * leaf is a recipe; the leaf is an ingredient unless the lookup says otherwise.
+ */
+export function layerSteps(path: readonly string[], lookup: ItemLookup): LayerStep[] {
+  return path.map((id, index) => {
+    const info = lookup(id);
+    const kind = info?.kind ?? (index < path.length - 1 ? 'recipe' : 'ingredient');
+    return { id, name: info?.name ?? id, href: hrefFor(id, kind) };
+  });
+}
+
+/** "Victoria sponge → Vanilla sponge → Butter". */
+export function pathText(path: readonly string[], lookup: ItemLookup): string {
+  return path.map((id) => lookup(id)?.name ?? id).join(' → ');
+}
+
+interface LayerPathProps {
+  path: readonly string[];
+  lookup: ItemLookup;
+}
+
+/**
+ * Crumbproof's provenance mark: a short stack of bars, the product on top and the leaf at the
+ * bottom, each bar a link to that recipe or ingredient. Each layer steps in a little, like the
+ * brand mark, and the leaf bar is outlined rather than filled.
+ */
+export function LayerPath({ path, lookup }: LayerPathProps) {
+  const steps = layerSteps(path, lookup);
+  return (
+    <Box
+      as="ol"
+      listStyleType="none"
+      m="0"
+      p="0"
+      display="flex"
+      flexDirection="column"
+      gap="1"
+      minW="0"
+      aria-label={`Layer path: ${steps.map((step) => step.name).join(' → ')}`}
+    >
+      {steps.map((step, index) => {
+        const leaf = index === steps.length - 1;
+        return (
+          <Box as="li" key={`${step.id}-${index}`} ps={`${Math.min(index, 4) * 0.75}rem`} minW="0">
+            <Link
+              asChild
+              display="block"
+              px="2.5"
+              py="0.5"
+              rounded="full"
+              textStyle="sm"
+              lineHeight="1.6"
+              overflowWrap="anywhere"
+              textDecoration="none"
+              borderWidth="1.5px"
+              borderColor="accent.solid"
+              borderStyle={leaf ? 'dashed' : 'solid'}
+              bg={leaf ? 'bg.panel' : index === 0 ? 'accent.solid' : 'accent.emphasized'}
+              color={leaf ? 'accent.fg' : index === 0 ? 'accent.contrast' : 'fg'}
+              fontWeight={leaf ? 'bold' : 'normal'}
+              _hover={{ textDecoration: 'underline' }}
+            >
+              <RouterLink to={step.href}>{step.name}</RouterLink>
+            </Link>
+          </Box>
+        );
+      })}
+    </Box>
+  );
+}
