@@ -10,6 +10,7 @@ import fastifyCookie from '@fastify/cookie';
 import fastifyMultipart from '@fastify/multipart';
 import fastifyStatic from '@fastify/static';
 import { AppModule } from './app.module';
+import { ApiExceptionFilter } from './common/exception.filter';
 import type { AppConfig } from './config/config';
 
 const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
@@ -52,7 +53,7 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
   return app;
 }
 
-/** Serves the built web app; any non-API path falls back to index.html for the client router. */
+/** Serves the built web app; any other non-API GET falls back to index.html for the client router. */
 function serveWeb(app: NestFastifyApplication, dir: string) {
   const index = join(dir, 'index.html');
   if (!existsSync(index)) {
@@ -61,12 +62,5 @@ function serveWeb(app: NestFastifyApplication, dir: string) {
   }
   const fastify = app.getHttpAdapter().getInstance();
   void fastify.register(fastifyStatic, { root: dir, prefix: '/', wildcard: false, index: ['index.html'] });
-  const html = readFileSync(index, 'utf8');
-  fastify.setNotFoundHandler((req, reply) => {
-    if (req.method === 'GET' && !req.url.startsWith('/api')) {
-      void reply.type('text/html').send(html);
-      return;
-    }
-    void reply.status(404).send({ statusCode: 404, code: 'not-found', message: 'There is nothing at this address.' });
-  });
+  ApiExceptionFilter.webFallbackHtml = readFileSync(index, 'utf8');
 }

@@ -13,9 +13,10 @@ import { SeedModule } from './database/seed.module';
 import { SwapsModule } from './swaps/swaps.module';
 import { ReferenceModule } from './reference/reference.module';
 import { SpecificationsModule } from './specifications/specifications.module';
+import { IngredientImportModule } from './ingredient-import/ingredient-import.module';
 
 @Module({
-  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule, SwapsModule, SpecificationsModule, ReferenceModule],
+  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule, SwapsModule, SpecificationsModule, IngredientImportModule, ReferenceModule],
   controllers: [HealthController],
   providers: [
     { provide: APP_GUARD, useClass: SessionGuard },

@@ -1,5 +1,6 @@
 import { Controller, Get } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { Public } from './common/roles.decorator';
 
@@ -12,7 +13,7 @@ export class HealthController {
   @Public()
   @ApiOperation({ summary: 'Is the API up and can it reach its database?' })
   async health() {
-    await this.sequelize.query('SELECT 1');
+    await this.sequelize.query('SELECT 1 AS ok', { type: QueryTypes.SELECT });
     return { status: 'ok' };
   }
 }

@@ -156,6 +156,26 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(await count('recipe_revisions')).toBe(before);
   });
 
+  it('the manager changes how the kitchen handles an allergen, and may-contain follows on every product', async () => {
+    const before = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json() as ProductDeclaration;
+    expect(before.mayContain.map((m) => m.allergen)).not.toContain('lupin');
+    const kitchen = (await req('GET', '/api/kitchen', counter)).json();
+    expect((await t.app.inject({ method: 'PATCH', url: '/api/kitchen', headers: { cookie: chef }, payload: { handles: [] } })).statusCode).toBe(403);
+    const bad = await t.app.inject({ method: 'PATCH', url: '/api/kitchen', headers: { cookie: manager }, payload: { handles: [{ allergen: 'lupin', controls: 'sometimes' }] } });
+    expect(bad.statusCode).toBe(400);
+    expect(bad.json().fields[0].path).toBe('handles.0.controls');
+    const res = await t.app.inject({
+      method: 'PATCH',
+      url: '/api/kitchen',
+      headers: { cookie: manager },
+      payload: { handles: [...kitchen.handles, { allergen: 'lupin', controls: 'shared-area' }] },
+    });
+    expect(res.statusCode).toBe(200);
+    const after = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json() as ProductDeclaration;
+    const lupin = after.mayContain.find((m) => m.allergen === 'lupin')!;
+    expect(lupin.why.join(' ')).toMatch(/same area/i);
+  });
+
   it('front-of-house cannot write', async () => {
     expect((await req('PUT', '/api/ingredients/butter', counter, {})).statusCode).toBe(403);
     expect((await req('POST', '/api/book/import', counter, shortbread)).statusCode).toBe(403);

@@ -101,6 +101,21 @@ describe('supplier specifications (real MariaDB)', () => {
     expect(res.statusCode).toBe(413);
     expect(res.json()).toMatchObject({ message: 'The file is larger than 10 MB, the most an upload may be. Attach a smaller file.' });
     expect(await storedRows()).toBe(before);
+
+    const atTheLimit = Buffer.concat([pdf, Buffer.alloc(10 * 1024 * 1024 - pdf.length, 0x20)]);
+    const accepted = await upload('yeast', { reviewBy: isoDay(30) }, { name: 'scan.pdf', bytes: atTheLimit });
+    expect(accepted.statusCode).toBe(201);
+    expect(accepted.json().sizeBytes).toBe(10 * 1024 * 1024);
+    expect(sha256((await get(accepted.json().fileUrl)).rawPayload)).toBe(sha256(atTheLimit));
+  });
+
+  it('refuses a second file in the form', async () => {
+    const before = await storedRows();
+    const form = await multipart({ reviewBy: isoDay(30) }, { name: 'a.pdf', bytes: pdf }, { name: 'b.pdf', bytes: pdf });
+    const res = await t.app.inject({ method: 'POST', url: '/api/ingredients/butter/specifications', payload: form.payload, headers: { ...form.headers, cookie: chef } });
+    expect(res.statusCode).toBe(400);
+    expect(res.json().message).toBe('Attach one file only.');
+    expect(await storedRows()).toBe(before);
   });
 
   it.each([

@@ -1,6 +1,6 @@
-import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Logger } from '@nestjs/common';
+import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Logger, NotFoundException } from '@nestjs/common';
 import { ThrottlerException } from '@nestjs/throttler';
-import type { FastifyReply } from 'fastify';
+import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { ApiErrorBody, ErrorCode } from '@crumbproof/shared';
 import { AppError, httpStatusOf } from './app-error';
 
@@ -8,9 +8,21 @@ import { AppError, httpStatusOf } from './app-error';
 @Catch()
 export class ApiExceptionFilter implements ExceptionFilter {
   private readonly logger = new Logger('Errors');
+  /** The web app's index.html when the API also serves the web build (see app.factory.ts). */
+  static webFallbackHtml: string | null = null;
 
   catch(exception: unknown, host: ArgumentsHost) {
     const reply = host.switchToHttp().getResponse<FastifyReply>();
+    const request = host.switchToHttp().getRequest<FastifyRequest>();
+    if (
+      ApiExceptionFilter.webFallbackHtml &&
+      exception instanceof NotFoundException &&
+      request.method === 'GET' &&
+      !request.url.startsWith('/api')
+    ) {
+      void reply.status(200).type('text/html; charset=utf-8').send(ApiExceptionFilter.webFallbackHtml);
+      return;
+    }
     const body = this.toBody(exception);
     void reply.status(body.statusCode).send(body);
   }

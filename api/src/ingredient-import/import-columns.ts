@@ -97,17 +97,25 @@ for (const def of DEFS) for (const h of [def.header, ...def.aliases]) BY_HEADER.
 export interface HeaderMap {
   /** Column index → definition, for the columns understood. */
   columns: Map<number, ColumnDef>;
+  /** Indexes of header cells left empty: anything under them is a problem of its row. */
+  blank: Set<number>;
+  /** How many cells the header row has. */
+  width: number;
   problems: string[];
 }
 
 /** Reads the header row: every cell must name a known column once; id and name must be there. */
 export function mapHeader(header: Cell[]): HeaderMap {
   const columns = new Map<number, ColumnDef>();
+  const blank = new Set<number>();
   const problems: string[] = [];
   const seen = new Map<string, string>();
   header.forEach((cell, i) => {
     const text = cellText(cell);
-    if (text === '') return;
+    if (text === '') {
+      blank.add(i);
+      return;
+    }
     const def = BY_HEADER.get(normaliseHeader(text));
     if (!def) {
       const near = closest(normaliseHeader(text), [...BY_HEADER.keys()]);
@@ -125,7 +133,7 @@ export function mapHeader(header: Cell[]): HeaderMap {
   for (const def of DEFS.filter((d) => d.required)) {
     if (!seen.has(def.field)) problems.push(`The header row has no '${def.header}' column; every ingredient needs one.`);
   }
-  return { columns, problems };
+  return { columns, blank, width: header.length, problems };
 }
 
 export function cellText(cell: Cell): string {

@@ -1,8 +1,9 @@
-import { Controller, Get } from '@nestjs/common';
+import { Body, Controller, Get, Patch } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { ROLES } from '@crumbproof/shared';
 import { Roles } from '../common/roles.decorator';
-import { KitchenService } from './kitchen.service';
+import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
+import { KitchenService, kitchenUpdateSchema, type KitchenUpdate } from './kitchen.service';
 
 @ApiTags('kitchen')
 @Controller('kitchen')
@@ -14,5 +15,13 @@ export class KitchenController {
   @ApiOperation({ summary: 'The kitchen: name, address, declaring regime and allergen handling' })
   get() {
     return this.kitchen.view();
+  }
+
+  @Patch()
+  @Roles(['manager'])
+  @ApiOperation({ summary: 'Change the kitchen’s regime, measures or allergen handling (manager)' })
+  @ApiZodBody(kitchenUpdateSchema)
+  update(@Body(new ZodPipe(kitchenUpdateSchema)) body: KitchenUpdate) {
+    return this.kitchen.update(body);
   }
 }

@@ -2,7 +2,6 @@ import { PayloadTooLargeException, applyDecorators } from '@nestjs/common';
 import { ApiBody, ApiConsumes } from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import type {} from '@fastify/multipart';
-import { MAX_UPLOAD_BYTES } from '../app.factory';
 import { AppError } from '../common/app-error';
 
 type FileTypeModule = typeof import('file-type', { with: { 'resolution-mode': 'import' } });
@@ -22,6 +21,9 @@ export interface Upload {
   fields: Record<string, string>;
 }
 
+/** The most one uploaded file may weigh (the same as the app-wide multipart limit). */
+export const MAX_FILE_BYTES = 10 * 1024 * 1024;
+
 export interface DetectedType {
   ext: string;
   mime: string;
@@ -31,7 +33,7 @@ export interface DetectedType {
  * Reads the whole multipart form. Every problem with the form itself becomes a plain message:
  * a file over the upload limit is a 413, anything else malformed a 400.
  */
-export async function readUpload(req: FastifyRequest, allowedFields: readonly string[]): Promise<Upload> {
+export async function readUpload(req: FastifyRequest, allowedFields: readonly string[], maxBytes = MAX_FILE_BYTES): Promise<Upload> {
   if (!req.isMultipart()) {
     throw new AppError('validation', "Send the form as multipart/form-data, with the file in a field named 'file'.", [
       { path: 'file', message: 'Attach a file.' },
@@ -40,7 +42,7 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
   const upload: Upload = { file: null, fields: {} };
   const problems: { path: string; message: string }[] = [];
   try {
-    for await (const part of req.parts()) {
+    for await (const part of req.parts({ limits: { fileSize: maxBytes, files: 1 } })) {
       if (part.type === 'file') {
         const bytes = await part.toBuffer();
         if (part.fieldname !== 'file') {
@@ -57,7 +59,7 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
       }
     }
   } catch (err) {
-    throw uploadError(err);
+    throw uploadError(err, maxBytes);
   }
   if (problems.length > 0) {
     throw new AppError('validation', `The form needs attention. ${problems.map((p) => `${p.path}: ${p.message}`).join(' ')}`, problems);
@@ -65,11 +67,11 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
   return upload;
 }
 
-function uploadError(err: unknown): unknown {
+function uploadError(err: unknown, maxBytes: number): unknown {
   const code = (err as { code?: string })?.code;
   const status = (err as { statusCode?: number })?.statusCode;
   if (code === 'FST_REQ_FILE_TOO_LARGE') {
-    return new PayloadTooLargeException(`The file is larger than ${Math.round(MAX_UPLOAD_BYTES / (1024 * 1024))} MB, the most an upload may be. Attach a smaller file.`);
+    return new PayloadTooLargeException(`The file is larger than ${Math.round(maxBytes / (1024 * 1024))} MB, the most an upload may be. Attach a smaller file.`);
   }
   if (code === 'FST_FILES_LIMIT') return new AppError('validation', 'Attach one file only.', [{ path: 'file', message: 'Attach one file only.' }]);
   if (code === 'FST_PARTS_LIMIT' || code === 'FST_FIELDS_LIMIT') return new AppError('validation', 'The form has too many fields.');

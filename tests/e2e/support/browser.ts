@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
-export const BASE_URL = process.env.BASE_URL ?? 'http://127.0.0.1:3000';
+export const BASE_URL = process.env.CRUMBPROOF_URL ?? 'http://127.0.0.1:3000';
 export const SCREENS = join(new URL('../..', import.meta.url).pathname, 'artifacts', 'screens');
 export const DEMO_PASSWORD = 'crumbproof-demo';
 

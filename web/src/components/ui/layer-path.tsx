@@ -37,18 +37,33 @@ export function pathText(path: readonly string[], lookup: ItemLookup): string {
   return path.map((id) => lookup(id)?.name ?? id).join(' → ');
 }
 
-interface LayerPathProps {
-  path: readonly string[];
-  lookup: ItemLookup;
+/** A bar already named and linked (a screen that knows its names without a lookup). */
+export interface LayerPathItem {
+  label: string;
+  href: string;
 }
+
+type LayerPathProps =
+  | { path: readonly string[]; lookup: ItemLookup; items?: never; label?: never }
+  | {
+      /** From the product (top) down to the leaf (bottom). */
+      items: readonly LayerPathItem[];
+      /** Names the path for assistive technology; defaults to "Layer path: A → B → C". */
+      label?: string;
+      path?: never;
+      lookup?: never;
+    };
 
 /**
  * Crumbproof's provenance mark: a short stack of bars, the product on top and the leaf at the
  * bottom, each bar a link to that recipe or ingredient. Each layer steps in a little, like the
  * brand mark, and the leaf bar is outlined rather than filled.
  */
-export function LayerPath({ path, lookup }: LayerPathProps) {
-  const steps = layerSteps(path, lookup);
+export function LayerPath(props: LayerPathProps) {
+  const steps =
+    props.items !== undefined
+      ? props.items.map((item, index) => ({ id: `${index}`, name: item.label, href: item.href }))
+      : layerSteps(props.path, props.lookup);
   return (
     <Box
       as="ol"
@@ -59,7 +74,7 @@ export function LayerPath({ path, lookup }: LayerPathProps) {
       flexDirection="column"
       gap="1"
       minW="0"
-      aria-label={`Layer path: ${steps.map((step) => step.name).join(' → ')}`}
+      aria-label={props.label ?? `Layer path: ${steps.map((step) => step.name).join(' → ')}`}
     >
       {steps.map((step, index) => {
         const leaf = index === steps.length - 1;

@@ -1,0 +1,31 @@
+import { Controller, HttpCode, Post, Req } from '@nestjs/common';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import type { FastifyRequest } from 'fastify';
+import { KITCHEN_WRITERS } from '@crumbproof/shared';
+import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
+import { Roles } from '../common/roles.decorator';
+import { ApiUpload, readUpload } from '../specifications/multipart-upload';
+import { IngredientImportService } from './ingredient-import.service';
+
+@ApiTags('ingredients')
+@Controller('ingredients/import')
+@Roles(KITCHEN_WRITERS)
+export class IngredientImportController {
+  constructor(private readonly imports: IngredientImportService) {}
+
+  @Post('preview')
+  @HttpCode(200)
+  @ApiOperation({ summary: 'Read a CSV file or an .xlsx workbook of ingredients: what each row would become, and its problems; nothing is saved' })
+  @ApiUpload()
+  async preview(@Req() req: FastifyRequest) {
+    return this.imports.preview(await readUpload(req, []));
+  }
+
+  @Post()
+  @HttpCode(200)
+  @ApiOperation({ summary: 'Import a CSV file or an .xlsx workbook of ingredients in one transaction; refused, saving nothing, when any row has a problem' })
+  @ApiUpload()
+  async import(@CurrentUser() user: AuthUser, @Req() req: FastifyRequest) {
+    return this.imports.import(await readUpload(req, []), user.id);
+  }
+}

@@ -1,0 +1,189 @@
+import { Injectable } from '@nestjs/common';
+import { bookIngredientSchema, type Book, type BookIngredient, type FieldError } from '@crumbproof/shared';
+import type { z } from 'zod';
+import { AppError } from '../common/app-error';
+import { BooksService } from '../books/books.service';
+import { RulesService } from '../rules/rules.service';
+import type { Upload } from '../specifications/multipart-upload';
+import { cellText, columnOfPath, IMPORT_COLUMNS, mapHeader, rowToCandidate, valueAtPath, type ImportColumn } from './import-columns';
+import { readSheet } from './spreadsheet';
+
+export type ImportAction = 'create' | 'update' | 'unchanged';
+
+export interface ImportRow {
+  /** 1-based row number as the spreadsheet program shows it (the header is row 1). */
+  row: number;
+  /** The ingredient the row would become; null when its cells do not make a valid ingredient. */
+  ingredient: BookIngredient | null;
+  action: ImportAction;
+  /** Each names the column and the value. */
+  problems: string[];
+}
+
+export interface ImportCounts {
+  create: number;
+  update: number;
+  unchanged: number;
+  withProblems: number;
+}
+
+export interface ImportPreview {
+  format: 'csv' | 'xlsx';
+  columns: ImportColumn[];
+  /** How the file is read: what an empty cell, 'none' and an absent column mean. */
+  rules: string[];
+  /** Problems with the file as a whole (unknown or missing columns, no rows, …). */
+  problems: string[];
+  rows: ImportRow[];
+  summary: ImportCounts;
+}
+
+export interface ImportResult {
+  summary: ImportCounts;
+  /** Every ingredient written, with its new revision; unchanged rows are not written. */
+  written: { id: string; revision: number }[];
+}
+
+export const IMPORT_RULES = [
+  'Row 1 is the header; headers are matched without regard to case, spaces, underscores, hyphens or brackets.',
+  "contains: 'none' means the supplier states there are no allergens (verified none); an empty cell means no allergen statement (unknown).",
+  "may contain: an empty cell or 'none' means no precautionary statement.",
+  "vegan, vegetarian: yes, no or unknown; an empty cell is unknown.",
+  'Numbers may use a decimal point or a decimal comma; nutrition figures are per 100 g.',
+  'A row whose id exists becomes a new revision of that ingredient: columns in the file replace its fields (an empty cell clears the field), fields without a column in the file keep their current value.',
+  'Rows that are entirely empty are skipped. Each id may appear on one row only.',
+];
+
+/** Previews and imports ingredients from a CSV file or an Excel workbook; all or nothing. */
+@Injectable()
+export class IngredientImportService {
+  constructor(
+    private readonly books: BooksService,
+    private readonly rules: RulesService,
+  ) {}
+
+  /** What the file would change; nothing is saved. */
+  async preview(upload: Upload): Promise<ImportPreview> {
+    if (!upload.file) throw new AppError('validation', 'Attach a CSV file or an Excel workbook (.xlsx) in the field file.', [{ path: 'file', message: 'Attach a file.' }]);
+    const sheet = await readSheet(upload.file.bytes);
+    const book = await this.books.exportBook();
+    const header = mapHeader(sheet.header);
+    const problems = [...sheet.problems, ...header.problems];
+    const idColumn = [...header.columns].find(([, d]) => d.field === 'id')?.[0];
+    const nameColumn = [...header.columns].find(([, d]) => d.field === 'name')?.[0];
+    const rows = idColumn === undefined || nameColumn === undefined ? [] : this.readRows(sheet.rows, header, idColumn, book);
+    if (rows.length > 0) this.checkDeclarable(rows, book, problems);
+    return { format: sheet.format, columns: IMPORT_COLUMNS, rules: IMPORT_RULES, problems, rows, summary: count(rows) };
+  }
+
+  /** Imports every row in one transaction, or nothing when any row or the file has a problem. */
+  async import(upload: Upload, authorId: number): Promise<ImportResult> {
+    const preview = await this.preview(upload);
+    const bad = preview.rows.filter((r) => r.problems.length > 0);
+    if (preview.problems.length > 0 || bad.length > 0) throw refused(preview.problems, bad);
+    const changes = preview.rows.filter((r) => r.action !== 'unchanged').map((r) => r.ingredient!);
+    const note = `Imported from ${upload.file!.filename || 'a spreadsheet'}`.slice(0, 300);
+    const written = changes.length > 0 ? await this.books.writeItems({ ingredients: changes }, { authorId, note }, 'any') : [];
+    return { summary: preview.summary, written };
+  }
+
+  private readRows(sheetRows: { row: number; cells: (string | number | boolean | null)[] }[], header: ReturnType<typeof mapHeader>, idColumn: number, book: Book): ImportRow[] {
+    const existing = new Map(book.ingredients.map((i) => [i.id.toLowerCase(), i]));
+    const recipes = new Map(book.recipes.map((r) => [r.id.toLowerCase(), r.id]));
+    const rows = sheetRows.map(({ row, cells }): ImportRow => {
+      const id = cellText(cells[idColumn] ?? null);
+      const base = existing.get(id.toLowerCase());
+      const { candidate, problems } = rowToCandidate(cells, header, base);
+      cells.forEach((cell, i) => {
+        if ((header.blank.has(i) || i >= header.width) && cellText(cell) !== '') {
+          problems.push(`column ${columnLetter(i)}: '${cellText(cell)}' is under no header; name the column in row 1 or clear the cell.`);
+        }
+      });
+      if (base && base.id !== id) problems.push(`id: '${id}' differs only in capitals from the existing ingredient '${base.id}'; write '${base.id}'.`);
+      if (recipes.has(id.toLowerCase())) problems.push(`id: '${id}' is already the id of the recipe '${recipes.get(id.toLowerCase())}'; give the ingredient an id of its own.`);
+      const parsed = bookIngredientSchema.safeParse(candidate);
+      if (!parsed.success) for (const finding of parsed.error.issues) problems.push(describeFinding(finding, candidate));
+      const ingredient = parsed.success && problems.length === 0 ? parsed.data : null;
+      const action: ImportAction = !base ? 'create' : ingredient && same(base, ingredient) ? 'unchanged' : 'update';
+      return { row, ingredient, action, problems };
+    });
+    const ids = sheetRows.map(({ cells }) => cellText(cells[idColumn] ?? null));
+    const byId = new Map<string, number[]>();
+    ids.forEach((id, i) => {
+      if (id !== '') byId.set(id.toLowerCase(), [...(byId.get(id.toLowerCase()) ?? []), i]);
+    });
+    for (const group of byId.values()) {
+      if (group.length < 2) continue;
+      const numbers = group.map((i) => rows[i].row).join(', ');
+      for (const i of group) rows[i].problems.push(`id: '${ids[i]}' is on rows ${numbers}; each ingredient may be on one row only.`);
+    }
+    return rows;
+  }
+
+  /** The kitchen must still be declarable with the new ingredients (e.g. a recipe in ml needs g per ml). */
+  private checkDeclarable(rows: ImportRow[], book: Book, fileProblems: string[]) {
+    const good = rows.filter((r) => r.ingredient && r.problems.length === 0).map((r) => r.ingredient!);
+    if (good.length === 0) return;
+    const incoming = new Map(good.map((g) => [g.id, g]));
+    const merged: Book = { ...book, ingredients: [...book.ingredients.filter((i) => !incoming.has(i.id)), ...good] };
+    for (const p of this.rules.check(merged)) {
+      const line = p.recipe && p.line !== undefined ? book.recipes.find((r) => r.id === p.recipe)?.lines[p.line - 1] : undefined;
+      const id = p.ingredient ?? line?.use;
+      const target = id ? rows.find((r) => r.ingredient?.id === id) : undefined;
+      if (target) target.problems.push(p.message);
+      else fileProblems.push(p.message);
+    }
+  }
+}
+
+/** 0 → A, 25 → Z, 26 → AA. */
+function columnLetter(i: number): string {
+  return i < 26 ? String.fromCharCode(65 + i) : columnLetter(Math.floor(i / 26) - 1) + String.fromCharCode(65 + (i % 26));
+}
+
+function count(rows: ImportRow[]): ImportCounts {
+  return {
+    create: rows.filter((r) => r.action === 'create').length,
+    update: rows.filter((r) => r.action === 'update').length,
+    unchanged: rows.filter((r) => r.action === 'unchanged').length,
+    withProblems: rows.filter((r) => r.problems.length > 0).length,
+  };
+}
+
+function refused(fileProblems: string[], bad: ImportRow[]): AppError {
+  const fields: FieldError[] = [
+    ...fileProblems.map((message) => ({ path: 'file', message })),
+    ...bad.flatMap((r) => r.problems.map((message) => ({ path: `row ${r.row}`, message }))),
+  ];
+  const parts: string[] = [];
+  if (bad.length > 0) {
+    const numbers = bad.map((r) => r.row);
+    parts.push(`${bad.length} row${bad.length > 1 ? 's need' : ' needs'} attention (row${bad.length > 1 ? 's' : ''} ${numbers.slice(0, 20).join(', ')}${numbers.length > 20 ? ', …' : ''}).`);
+    for (const r of bad.slice(0, 5)) parts.push(`Row ${r.row}: ${r.problems.join(' ')}`);
+    if (bad.length > 5) parts.push(`… and ${bad.length - 5} more rows.`);
+  }
+  parts.push(...fileProblems);
+  return new AppError('validation', `Nothing was imported: ${parts.join(' ')}`, fields, { problems: fileProblems, rows: bad });
+}
+
+/** A schema finding as a sentence naming the column and its value. */
+function describeFinding(finding: z.core.$ZodIssue, candidate: Record<string, unknown>): string {
+  const column = columnOfPath(finding.path);
+  const value = valueAtPath(candidate, finding.path);
+  const shown = value === undefined || value === '' ? null : `'${String(value).length > 40 ? `${String(value).slice(0, 40)}…` : String(value)}'`;
+  let human: string | undefined;
+  if (finding.code === 'too_big' && /^Too big/.test(finding.message)) {
+    human = finding.origin === 'string' ? `is longer than ${finding.maximum} characters` : `must be at most ${finding.maximum}`;
+  } else if (finding.code === 'too_small' && /^Too small/.test(finding.message)) {
+    human = finding.origin === 'string' ? `must have at least ${finding.minimum} characters` : finding.inclusive ? `must be at least ${finding.minimum}` : `must be more than ${finding.minimum}`;
+  }
+  if (human && shown) return `${column}: ${shown} ${human}.`;
+  return shown ? `${column}: ${shown}: ${finding.message}` : `${column}: ${finding.message}`;
+}
+
+/** Equal as data, whatever the order of keys. */
+function same(a: unknown, b: unknown): boolean {
+  const canon = (v: unknown): unknown =>
+    Array.isArray(v) ? v.map(canon) : v && typeof v === 'object' ? Object.fromEntries(Object.entries(v).filter(([, x]) => x !== undefined).sort(([x], [y]) => (x < y ? -1 : 1)).map(([k, x]) => [k, canon(x)])) : v;
+  return JSON.stringify(canon(a)) === JSON.stringify(canon(b));
+}

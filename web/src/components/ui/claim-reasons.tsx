@@ -1,0 +1,59 @@
+import { Box, Link, Text } from '@chakra-ui/react';
+import type { ClaimReason } from '@crumbproof/shared';
+import { Fragment } from 'react';
+import { Link as RouterLink } from 'react-router-dom';
+import { layerSteps, type ItemLookup } from './layer-path';
+
+interface InlinePathProps {
+  path: readonly string[];
+  lookup: ItemLookup;
+}
+
+/** A layer path on one line, for places where a stack would be too tall: "Cake → Sponge → Butter". */
+export function InlinePath({ path, lookup }: InlinePathProps) {
+  const steps = layerSteps(path, lookup);
+  return (
+    <Text as="span" color="fg.muted" textStyle="sm">
+      {steps.map((step, index) => (
+        <Fragment key={`${step.id}-${index}`}>
+          {index > 0 ? <span aria-hidden="true"> → </span> : null}
+          {index > 0 ? <Box as="span" srOnly>then</Box> : null}
+          <Link asChild color="accent.fg">
+            <RouterLink to={step.href}>{step.name}</RouterLink>
+          </Link>
+        </Fragment>
+      ))}
+    </Text>
+  );
+}
+
+interface ClaimReasonListProps {
+  reasons: readonly ClaimReason[];
+  lookup: ItemLookup;
+}
+
+/** Every leaf (or the kitchen's own handling) that stops a claim, with where it sits in the product. */
+export function ClaimReasonList({ reasons, lookup }: ClaimReasonListProps) {
+  if (reasons.length === 0) return null;
+  return (
+    <Box as="ul" ps="5" m="0" display="flex" flexDirection="column" gap="1">
+      {reasons.map((reason, index) => (
+        <Box as="li" key={`${reason.leaf ?? 'kitchen'}-${index}`}>
+          <Text as="span">{reason.message}</Text>
+          {reason.path.length > 1 ? (
+            <>
+              {' '}
+              <Text as="span" color="fg.muted" textStyle="sm">
+                (via{' '}
+              </Text>
+              <InlinePath path={reason.path} lookup={lookup} />
+              <Text as="span" color="fg.muted" textStyle="sm">
+                )
+              </Text>
+            </>
+          ) : null}
+        </Box>
+      ))}
+    </Box>
+  );
+}

@@ -1,0 +1,18 @@
+import { mutationOptions, useMutation } from '@tanstack/react-query';
+import { apiClient } from '@/lib/api-client';
+import type { ImportPreview } from './types';
+
+/** Reads a spreadsheet and says what importing it would do. Nothing is saved. */
+export async function previewImport(file: File): Promise<ImportPreview> {
+  const form = new FormData();
+  form.append('file', file, file.name);
+  return apiClient.post<ImportPreview>('/ingredients/import/preview', form);
+}
+
+export function previewImportMutationOptions() {
+  return mutationOptions({ mutationKey: ['ingredients', 'import', 'preview'], mutationFn: previewImport });
+}
+
+export function usePreviewImport() {
+  return useMutation(previewImportMutationOptions());
+}

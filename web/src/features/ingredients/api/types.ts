@@ -1,0 +1,120 @@
+import type { AllergenSource, BookIngredient, Claim } from '@crumbproof/shared';
+
+/**
+ * An ingredient as the API lists it: the book body plus its current revision. Not re-validated
+ * here: the API checked it with bookIngredientSchema when it was saved, and one odd stored row
+ * must not hide the whole library.
+ */
+export type IngredientView = BookIngredient & { revision: number; updatedAt: string };
+
+export const ingredientsQueryKey = ['ingredients'] as const;
+
+export interface AllergenHit {
+  term: string;
+  matched: string;
+  start: number;
+  end: number;
+  source: AllergenSource;
+  species?: string;
+}
+export interface AnimalHit {
+  term: string;
+  matched: string;
+  start: number;
+  end: number;
+  fails: ('vegan' | 'vegetarian')[];
+  unverified: ('vegan' | 'vegetarian')[];
+}
+export interface VagueHit {
+  term: string;
+  matched: string;
+  start: number;
+  end: number;
+  message: string;
+  unverifies: Claim[];
+  precautionary: boolean;
+}
+export interface Discrepancy {
+  source: AllergenSource;
+  term: string;
+  message: string;
+}
+export interface CompositionScan {
+  allergens: AllergenHit[];
+  precautionary: AllergenHit[];
+  animal: AnimalHit[];
+  vague: VagueHit[];
+  discrepancies: Discrepancy[];
+}
+
+export type SpecificationState = 'missing' | 'overdue' | 'current';
+
+export interface SpecificationStatus {
+  ingredient: string;
+  name: string;
+  latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
+  state: SpecificationState;
+}
+
+export interface Specification {
+  id: number;
+  version: number;
+  filename: string;
+  mediaType: string;
+  sizeBytes: number;
+  reviewBy: string;
+  note: string;
+  uploadedAt: string;
+  current: boolean;
+  reviewOverdue: boolean;
+  /** Sent by the API; the web falls back to /api/specifications/:id/file. */
+  fileUrl?: string;
+}
+
+export interface IngredientRevision {
+  revision: number;
+  body: BookIngredient;
+  note: string;
+  authorId: number | null;
+  createdAt: string;
+}
+
+export interface UsedInEntry {
+  id: string;
+  name: string;
+  forSale: boolean;
+  /** Ids from the recipe down to this ingredient. */
+  paths: string[][];
+}
+
+export interface ImportPreviewRow {
+  row: number;
+  ingredient: BookIngredient | null;
+  action: 'create' | 'update' | 'unchanged';
+  problems: string[];
+}
+export interface ImportSummary {
+  create: number;
+  update: number;
+  unchanged: number;
+  withProblems: number;
+}
+export interface ImportPreview {
+  columns: string[];
+  rows: ImportPreviewRow[];
+  summary: ImportSummary;
+}
+
+export interface NutrientReferenceRow {
+  id: string;
+  name: string;
+  ifct?: string;
+  gPerMl?: number;
+  gEach?: number;
+  addsSugars?: boolean;
+  nutrition: NonNullable<BookIngredient['nutrition']>;
+}
+export interface NutrientReference {
+  note: string;
+  rows: NutrientReferenceRow[];
+}

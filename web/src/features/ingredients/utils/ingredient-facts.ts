@@ -1,0 +1,88 @@
+import {
+  EXEMPT_FORM_LABELS,
+  SOURCE_LABELS,
+  type AllergenSource,
+  type BookIngredient,
+  type SourceEntry,
+} from '@crumbproof/shared';
+import type { SpecificationState } from '../api/types';
+
+export function sourceOf(entry: SourceEntry): AllergenSource {
+  return typeof entry === 'string' ? entry : entry.source;
+}
+
+/** "milk", "wheat (glucose syrup)", "fish (cod)". */
+export function describeEntry(entry: SourceEntry): string {
+  if (typeof entry === 'string') return SOURCE_LABELS[entry];
+  const details = [entry.species, entry.form ? EXEMPT_FORM_LABELS[entry.form] : undefined].filter(Boolean);
+  return details.length > 0 ? `${SOURCE_LABELS[entry.source]} (${details.join(', ')})` : SOURCE_LABELS[entry.source];
+}
+
+export type AllergenStatement = 'stated' | 'none' | 'unknown';
+
+/** Left out: no statement (not known). Empty: the supplier states none. */
+export function allergenStatementOf(ingredient: Pick<BookIngredient, 'contains'>): AllergenStatement {
+  if (ingredient.contains === undefined) return 'unknown';
+  return ingredient.contains.length === 0 ? 'none' : 'stated';
+}
+
+const FIGURES = ['fat', 'saturates', 'carbohydrate', 'sugars', 'fibre', 'protein', 'salt', 'sodium'] as const;
+
+/** True when at least one nutrition figure is recorded. */
+export function hasNutrition(ingredient: Pick<BookIngredient, 'nutrition'>): boolean {
+  const nutrition = ingredient.nutrition;
+  if (!nutrition) return false;
+  return FIGURES.some((key) => typeof nutrition[key] === 'number');
+}
+
+export const MISSING_DATA = {
+  'allergen-statement': 'No allergen statement',
+  nutrition: 'No nutrition',
+  vegan: 'Vegan not known',
+  vegetarian: 'Vegetarian not known',
+  specification: 'No specification',
+} as const;
+export type MissingData = keyof typeof MISSING_DATA;
+
+/** What the library lacks for this ingredient, in the order a chef would fix it. */
+export function missingDataOf(ingredient: BookIngredient, specification: SpecificationState | undefined): MissingData[] {
+  const missing: MissingData[] = [];
+  if (ingredient.contains === undefined) missing.push('allergen-statement');
+  if (!hasNutrition(ingredient)) missing.push('nutrition');
+  if (ingredient.vegan === null || ingredient.vegan === undefined) missing.push('vegan');
+  if (ingredient.vegetarian === null || ingredient.vegetarian === undefined) missing.push('vegetarian');
+  if (specification === 'missing') missing.push('specification');
+  return missing;
+}
+
+export function yesNoUnknown(value: boolean | null | undefined): 'Yes' | 'No' | 'Not known' {
+  if (value === true) return 'Yes';
+  if (value === false) return 'No';
+  return 'Not known';
+}
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+});
+
+export function formatDate(iso: string): string {
+  // A bare YYYY-MM-DD is a calendar date: read it at noon so no time zone moves it a day.
+  const date = new Date(/^\d{4}-\d{2}-\d{2}$/.test(iso) ? `${iso}T12:00:00` : iso);
+  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+}
+
+export function formatDateTime(iso: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
+}
+
+export function formatBytes(bytes: number): string {
+  if (bytes < 1024) return `${bytes} bytes`;
+  if (bytes < 1024 * 1024) return `${Math.round(bytes / 1024)} KB`;
+  return `${(bytes / (1024 * 1024)).toLocaleString('en-GB', { maximumFractionDigits: 1 })} MB`;
+}

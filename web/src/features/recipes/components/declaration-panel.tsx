@@ -1,0 +1,193 @@
+import { Box, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { CLAIMS, EXEMPT_FORM_LABELS, SOURCE_LABELS, type Declaration } from '@crumbproof/shared';
+import { ClaimReasonList } from '@/components/ui/claim-reasons';
+import { ClaimStatusLine } from '@/components/ui/claim-status';
+import { ErrorAlert } from '@/components/ui/error-alert';
+import { LayerPath, type ItemLookup } from '@/components/ui/layer-path';
+import { Quantity } from '@/components/ui/quantity';
+import { StatusMark } from '@/components/ui/status-mark';
+import { PanelSection, type HeadingLevel } from './panel-section';
+
+export const DECLARATION_CAUTION =
+  'Computed from the recipes and supplier information recorded in Crumbproof. Check it against current supplier specifications before relying on it; local law and your kitchen’s food-safety system decide.';
+
+interface DeclarationPanelProps {
+  declaration: Declaration;
+  lookup: ItemLookup;
+  level?: HeadingLevel;
+}
+
+function Paths({ paths, lookup }: { paths: readonly string[][]; lookup: ItemLookup }) {
+  if (paths.length === 0) return null;
+  return (
+    <Box display="flex" flexWrap="wrap" gap="3" mt="2">
+      {paths.map((path) => (
+        <Box key={path.join('/')} minW="10rem" maxW="16rem">
+          <LayerPath path={path} lookup={lookup} />
+        </Box>
+      ))}
+    </Box>
+  );
+}
+
+function formatPercent(value: number): string {
+  return `${value.toLocaleString('en-GB', { maximumFractionDigits: 1 })}%`;
+}
+
+/** A product's declaration as Crumbproof computed it, in the order a label reads. */
+export function DeclarationPanel({ declaration, lookup, level = 'h2' }: DeclarationPanelProps) {
+  const { contains, mayContain, unknown, exempt, claims, warnings, errors } = declaration;
+  return (
+    <Stack gap="4">
+      <Text borderStartWidth="4px" borderColor="accent.solid" bg="accent.subtle" px="3" py="2" rounded="sm" maxW="80ch">
+        {DECLARATION_CAUTION}
+      </Text>
+
+      {errors.length > 0 ? (
+        <ErrorAlert title="Labels cannot be printed until these are fixed">
+          <Box as="ul" ps="5" m="0">
+            {errors.map((error, index) => (
+              <li key={`${error.code}-${index}`}>{error.message}</li>
+            ))}
+          </Box>
+        </ErrorAlert>
+      ) : null}
+
+      <SimpleGrid minChildWidth="20rem" gap="4" alignItems="start">
+        <PanelSection title="Contains" level={level}>
+          {contains.length === 0 ? (
+            <StatusMark status="none-recorded">allergens</StatusMark>
+          ) : (
+            <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="4">
+              {contains.map((group) => (
+                <Box as="li" key={group.allergen}>
+                  <StatusMark status="contains">{group.label}</StatusMark>
+                  <Text color="fg.muted" textStyle="sm">
+                    {`From ${group.sources.map((source) => SOURCE_LABELS[source] ?? source).join(', ')}`}
+                    {group.species && group.species.length > 0 ? ` (species: ${group.species.join(', ')})` : ''}
+                  </Text>
+                  <Paths paths={group.via} lookup={lookup} />
+                </Box>
+              ))}
+            </Box>
+          )}
+        </PanelSection>
+
+        <PanelSection title="May contain" level={level}>
+          {mayContain.length === 0 ? (
+            <Text>No may-contain recorded.</Text>
+          ) : (
+            <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="3">
+              {mayContain.map((group) => (
+                <Box as="li" key={group.allergen}>
+                  <StatusMark status="may-contain">{group.label}</StatusMark>
+                  <Box as="ul" ps="5" m="0" mt="1">
+                    {group.why.map((why) => (
+                      <li key={why}>{why}</li>
+                    ))}
+                  </Box>
+                </Box>
+              ))}
+            </Box>
+          )}
+        </PanelSection>
+
+        <PanelSection title="Not known" level={level}>
+          {unknown.length === 0 ? (
+            <Text>Every ingredient has an allergen statement recorded.</Text>
+          ) : (
+            <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="3">
+              {unknown.map((leaf) => (
+                <Box as="li" key={leaf.ingredient}>
+                  <StatusMark status="not-known">{leaf.name}</StatusMark>
+                  <Text color="fg.muted" textStyle="sm">
+                    {`${leaf.name} has no allergen statement, so nothing about it can be proved.`}
+                  </Text>
+                  <Paths paths={leaf.via} lookup={lookup} />
+                </Box>
+              ))}
+            </Box>
+          )}
+          {exempt.length > 0 ? (
+            <Box>
+              <Text fontWeight="bold">Exempt from declaration under {declaration.regime}</Text>
+              <Box as="ul" ps="5" m="0">
+                {exempt.map((use) => (
+                  <li key={`${use.ingredient}-${use.source}`}>
+                    {`${use.name}: ${SOURCE_LABELS[use.source] ?? use.source} as ${EXEMPT_FORM_LABELS[use.form] ?? use.form} (${use.basis})`}
+                  </li>
+                ))}
+              </Box>
+            </Box>
+          ) : null}
+        </PanelSection>
+
+        <PanelSection title="Claims" level={level}>
+          <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="2">
+            {CLAIMS.filter((claim) => claims[claim]).map((claim) => (
+              <Box as="li" key={claim} data-claim={claim}>
+                <ClaimStatusLine claim={claim} status={claims[claim].status} />
+                {claims[claim].status !== 'ok' ? <ClaimReasonList reasons={claims[claim].reasons} lookup={lookup} /> : null}
+              </Box>
+            ))}
+          </Box>
+        </PanelSection>
+      </SimpleGrid>
+
+      <PanelSection title="Ingredients as printed" level={level}>
+        <Text maxW="80ch" data-testid="ingredients-text">
+          {declaration.ingredientsSegments.map((segment, index) =>
+            segment.emphasis ? (
+              <Text as="strong" fontWeight="bold" key={index}>
+                {segment.text}
+              </Text>
+            ) : (
+              <span key={index}>{segment.text}</span>
+            ),
+          )}
+        </Text>
+        {declaration.mayContainText ? <Text fontWeight="bold">{declaration.mayContainText}</Text> : null}
+        {declaration.quid.length > 0 ? (
+          <Box>
+            <Text fontWeight="bold">Quantity of ingredients (QUID)</Text>
+            <Box as="ul" ps="5" m="0">
+              {declaration.quid.map((entry) => (
+                <li key={entry.ingredient}>
+                  <Quantity>{entry.text}</Quantity>
+                  <Text as="span" color="fg.muted" textStyle="sm">
+                    {` (${formatPercent(entry.percent)} of the finished weight)`}
+                  </Text>
+                </li>
+              ))}
+            </Box>
+          </Box>
+        ) : null}
+        <Text>
+          <Text as="span" fontWeight="bold">
+            Sulphites:{' '}
+          </Text>
+          {declaration.sulphites.mgPerKg === null
+            ? 'Not known: a sulphite source has no stated content.'
+            : `${declaration.sulphites.mgPerKg.toLocaleString('en-GB', { maximumFractionDigits: 1 })} mg/kg as eaten, ${
+                declaration.sulphites.declared ? 'declared (over 10 mg/kg)' : 'below the 10 mg/kg declaration threshold'
+              }.`}
+        </Text>
+        <Text color="fg.muted" textStyle="sm">
+          <Quantity>{`Finished weight ${declaration.finishedWeightG} g; mix ${declaration.mixWeightG} g${
+            declaration.portionG ? `; portion ${declaration.portionG} g` : ''
+          }.`}</Quantity>
+        </Text>
+        {warnings.length > 0 ? (
+          <Box>
+            <Text fontWeight="bold">Warnings</Text>
+            <Box as="ul" ps="5" m="0">
+              {warnings.map((warning, index) => (
+                <li key={`${warning.code}-${index}`}>{warning.message}</li>
+              ))}
+            </Box>
+          </Box>
+        ) : null}
+      </PanelSection>
+    </Stack>
+  );
+}
