@@ -2,7 +2,7 @@
 module.exports = {
   rootDir: __dirname,
   testEnvironment: 'node',
-  roots: ['<rootDir>/src', '<rootDir>/test'],
+  roots: ['<rootDir>/src', '<rootDir>/test', '<rootDir>/../shared/src'],
   testMatch: ['**/*.spec.ts'],
   transform: { '^.+\\.(t|j|mj)s$': ['@swc/jest'] },
   transformIgnorePatterns: [

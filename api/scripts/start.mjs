@@ -57,6 +57,7 @@ async function main() {
       PORT: String(PORT),
       JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
       WEB_DIST: join(ROOT, 'web', 'dist'),
+      LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
     };
     step('Migrating and seeding…');
     run('node', ['api/dist/cli/db.js', 'setup'], { env });

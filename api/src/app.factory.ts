@@ -11,6 +11,7 @@ import fastifyMultipart from '@fastify/multipart';
 import fastifyStatic from '@fastify/static';
 import { AppModule } from './app.module';
 import { ApiExceptionFilter } from './common/exception.filter';
+import { MAX_UPLOAD_BYTES } from './common/limits';
 import type { AppConfig } from './config/config';
 
 const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
@@ -21,7 +22,6 @@ const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
   debug: ['error', 'fatal', 'warn', 'log', 'debug', 'verbose'],
 };
 
-export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
 
 /** Builds the API (and, when a web build is given, serves the web app beside it). */
 export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } = {}): Promise<NestFastifyApplication> {

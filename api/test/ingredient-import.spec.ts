@@ -102,7 +102,10 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     const res = await importFile(fixture('new-ingredients.csv'), 'new-ingredients.csv');
     expect(res.statusCode).toBe(200);
     expect(res.json()).toEqual({
-      summary: { create: 3, update: 0, unchanged: 0, withProblems: 0 },
+      create: 3,
+      update: 0,
+      unchanged: 0,
+      withProblems: 0,
       written: [
         { id: 'pistachio-paste', revision: 1 },
         { id: 'oat-drink', revision: 1 },
@@ -171,7 +174,7 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     expect(body.rows.map((r: Row) => [r.row, r.action])).toEqual([[2, 'unchanged'], [3, 'update']]);
     const res = await importFile(file);
     expect(res.statusCode).toBe(200);
-    expect(res.json()).toEqual({ summary: { create: 0, update: 1, unchanged: 1, withProblems: 0 }, written: [{ id: 'butter', revision: butter.revision + 1 }] });
+    expect(res.json()).toEqual({ create: 0, update: 1, unchanged: 1, withProblems: 0, written: [{ id: 'butter', revision: butter.revision + 1 }] });
     const after = (await ingredient('butter')).json();
     expect(after).toMatchObject({ supplier: 'Pellow Creamery', revision: butter.revision + 1, nutrition: butter.nutrition, composition: butter.composition });
     expect((await ingredient('caster-sugar')).json().revision).toBe(1);

@@ -20,7 +20,7 @@ async function main(command: string) {
     console.error('Use: db migrate | db seed | db setup');
     process.exit(2);
   }
-  const ctx = await NestFactory.createApplicationContext(DbCliModule, { logger: ['error', 'warn', 'log'] });
+  const ctx = await NestFactory.createApplicationContext(DbCliModule, { logger: ['error', 'warn'] });
   try {
     if (command !== 'seed') {
       const done = await migrateUp(ctx.get(Sequelize));

@@ -5,8 +5,8 @@ import { AppError } from '../common/app-error';
 import { BooksService } from '../books/books.service';
 import { RulesService } from '../rules/rules.service';
 import type { Upload } from '../specifications/multipart-upload';
-import { cellText, columnOfPath, IMPORT_COLUMNS, mapHeader, rowToCandidate, valueAtPath, type ImportColumn } from './import-columns';
-import { readSheet } from './spreadsheet';
+import { cellText, columnOfPath, IMPORT_COLUMNS, mapHeader, rowToCandidate, valueAtPath, type HeaderMap, type ImportColumn } from './import-columns';
+import { readSheet, type SheetRow } from './spreadsheet';
 
 export type ImportAction = 'create' | 'update' | 'unchanged';
 
@@ -38,8 +38,8 @@ export interface ImportPreview {
   summary: ImportCounts;
 }
 
-export interface ImportResult {
-  summary: ImportCounts;
+/** The summary of what was imported, and each ingredient written. */
+export interface ImportResult extends ImportCounts {
   /** Every ingredient written, with its new revision; unchanged rows are not written. */
   written: { id: string; revision: number }[];
 }
@@ -84,10 +84,10 @@ export class IngredientImportService {
     const changes = preview.rows.filter((r) => r.action !== 'unchanged').map((r) => r.ingredient!);
     const note = `Imported from ${upload.file!.filename || 'a spreadsheet'}`.slice(0, 300);
     const written = changes.length > 0 ? await this.books.writeItems({ ingredients: changes }, { authorId, note }, 'any') : [];
-    return { summary: preview.summary, written };
+    return { ...preview.summary, written };
   }
 
-  private readRows(sheetRows: { row: number; cells: (string | number | boolean | null)[] }[], header: ReturnType<typeof mapHeader>, idColumn: number, book: Book): ImportRow[] {
+  private readRows(sheetRows: SheetRow[], header: HeaderMap, idColumn: number, book: Book): ImportRow[] {
     const existing = new Map(book.ingredients.map((i) => [i.id.toLowerCase(), i]));
     const recipes = new Map(book.recipes.map((r) => [r.id.toLowerCase(), r.id]));
     const rows = sheetRows.map(({ row, cells }): ImportRow => {

@@ -22,7 +22,9 @@ export interface Upload {
 }
 
 /** The most one uploaded file may weigh (the same as the app-wide multipart limit). */
-export const MAX_FILE_BYTES = 10 * 1024 * 1024;
+import { MAX_UPLOAD_BYTES } from '../common/limits';
+
+export const MAX_FILE_BYTES = MAX_UPLOAD_BYTES;
 
 export interface DetectedType {
   ext: string;

@@ -95,6 +95,8 @@ export function VirtualDataTable<TData extends RowData>({
     initialState: { sorting: initialSorting },
     state: { columnVisibility },
     enableSortingRemoval: false,
+    // Every column sorts A→Z / low→high on the first click, whatever its type.
+    sortDescFirst: false,
   });
   const rows = table.getRowModel().rows;
   const leafColumns = table.getVisibleLeafColumns();
@@ -106,6 +108,8 @@ export function VirtualDataTable<TData extends RowData>({
     estimateSize: () => ROW_ESTIMATE_PX,
     overscan: 10,
     observeElementRect: observeRectWithFallback,
+    // A row with no layout (jsdom, a hidden tab) keeps its estimate rather than collapsing to 0.
+    measureElement: (element) => element.getBoundingClientRect().height || ROW_ESTIMATE_PX,
     getItemKey: (index) => rows[index]?.id ?? index,
   });
   const items = virtualizer.getVirtualItems();

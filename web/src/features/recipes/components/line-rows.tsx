@@ -1,0 +1,166 @@
+import { Box, Button, HStack, Table, Text } from '@chakra-ui/react';
+import { LINE_ROLES, UNITS } from '@crumbproof/shared';
+import type { ReactNode } from 'react';
+import { Controller, type Control, type FieldErrors, type UseFieldArrayReturn, type UseFormRegister } from 'react-hook-form';
+import { SelectInput, TextInput } from '@/components/ui/form-field';
+import { ItemCombobox, type ComboboxOption } from '@/components/ui/item-combobox';
+import { EMPTY_LINE, numberOrUndefined, type EditorValues } from './editor-values';
+
+const UNIT_OPTIONS = UNITS.map((unit) => ({ value: unit, label: unit }));
+const ROLE_LABELS: Record<(typeof LINE_ROLES)[number], string> = {
+  ingredient: 'Ingredient',
+  contact: 'Contact: greasing, dusting',
+};
+const ROLE_OPTIONS = LINE_ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
+
+interface LineRowsProps {
+  control: Control<EditorValues>;
+  register: UseFormRegister<EditorValues>;
+  lines: UseFieldArrayReturn<EditorValues, 'lines'>;
+  errors: FieldErrors<EditorValues>;
+  /** Messages from the API for a line, by 0-based index (unknown id, unweighable unit, cycle). */
+  apiErrors: ReadonlyMap<number, string[]>;
+  options: readonly ComboboxOption[];
+}
+
+function errorIdFor(index: number) {
+  return `recipe-line-${index + 1}-error`;
+}
+
+/** The recipe's lines as an editable table: pick by typing, quantity, unit, role, move, remove. */
+export function LineRows({ control, register, lines, errors, apiErrors, options }: LineRowsProps) {
+  const { fields, append, remove, move } = lines;
+  return (
+    <Box as="fieldset" minW="0">
+      <Text as="legend" fontWeight="bold" mb="2">
+        Lines
+      </Text>
+      <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel">
+        <Table.Root size="sm" css={{ '& th, & td': { textStyle: 'md', verticalAlign: 'top' } }}>
+          <Table.Header>
+            <Table.Row bg="bg.subtle">
+              <Table.ColumnHeader scope="col" w="8" textAlign="end">
+                #
+              </Table.ColumnHeader>
+              <Table.ColumnHeader scope="col" minW="14rem">
+                Ingredient or recipe
+              </Table.ColumnHeader>
+              <Table.ColumnHeader scope="col" w="7rem" textAlign="end">
+                Quantity
+              </Table.ColumnHeader>
+              <Table.ColumnHeader scope="col" w="6rem">
+                Unit
+              </Table.ColumnHeader>
+              <Table.ColumnHeader scope="col" w="11rem">
+                Role
+              </Table.ColumnHeader>
+              <Table.ColumnHeader scope="col">
+                <Box srOnly>Order and removal</Box>
+              </Table.ColumnHeader>
+            </Table.Row>
+          </Table.Header>
+          <Table.Body>
+            {fields.map((field, index) => {
+              const n = index + 1;
+              const lineErrors = errors.lines?.[index];
+              const fromApi = apiErrors.get(index) ?? [];
+              const messages: ReactNode[] = [
+                lineErrors?.use?.message,
+                lineErrors?.qty?.message ? `Quantity: ${lineErrors.qty.message}` : undefined,
+                lineErrors?.unit?.message,
+                ...fromApi,
+              ].filter(Boolean);
+              const describedBy = messages.length > 0 ? errorIdFor(index) : undefined;
+              return (
+                <Table.Row key={field.id} bg="bg.panel" data-line={n}>
+                  <Table.Cell textAlign="end" textStyle="quantity" pt="4">
+                    {n}
+                  </Table.Cell>
+                  <Table.Cell>
+                    <Controller
+                      control={control}
+                      name={`lines.${index}.use`}
+                      render={({ field: use }) => (
+                        <ItemCombobox
+                          ref={use.ref}
+                          name={use.name}
+                          aria-label={`Ingredient or recipe for line ${n}`}
+                          aria-describedby={describedBy}
+                          invalid={Boolean(lineErrors?.use) || fromApi.length > 0}
+                          options={options}
+                          value={use.value}
+                          onChange={use.onChange}
+                          onBlur={use.onBlur}
+                        />
+                      )}
+                    />
+                    {messages.length > 0 ? (
+                      <Box id={errorIdFor(index)} color="fg.error" fontWeight="bold" textStyle="sm" mt="1">
+                        {messages.map((message, i) => (
+                          <Text key={i}>{message}</Text>
+                        ))}
+                      </Box>
+                    ) : null}
+                  </Table.Cell>
+                  <Table.Cell>
+                    <TextInput
+                      type="number"
+                      inputMode="decimal"
+                      step="any"
+                      min="0"
+                      textAlign="end"
+                      textStyle="quantity"
+                      aria-label={`Quantity for line ${n}`}
+                      aria-invalid={Boolean(lineErrors?.qty) || undefined}
+                      aria-describedby={describedBy}
+                      {...register(`lines.${index}.qty`, { setValueAs: numberOrUndefined })}
+                    />
+                  </Table.Cell>
+                  <Table.Cell>
+                    <SelectInput aria-label={`Unit for line ${n}`} options={UNIT_OPTIONS} {...register(`lines.${index}.unit`)} />
+                  </Table.Cell>
+                  <Table.Cell>
+                    <SelectInput aria-label={`Role for line ${n}`} options={ROLE_OPTIONS} {...register(`lines.${index}.role`)} />
+                  </Table.Cell>
+                  <Table.Cell>
+                    <HStack gap="1">
+                      <Button
+                        size="md"
+                        variant="outline"
+                        aria-label={`Move line ${n} up`}
+                        disabled={index === 0}
+                        onClick={() => move(index, index - 1)}
+                      >
+                        ↑
+                      </Button>
+                      <Button
+                        size="md"
+                        variant="outline"
+                        aria-label={`Move line ${n} down`}
+                        disabled={index === fields.length - 1}
+                        onClick={() => move(index, index + 1)}
+                      >
+                        ↓
+                      </Button>
+                      <Button size="md" variant="ghost" aria-label={`Remove line ${n}`} disabled={fields.length === 1} onClick={() => remove(index)}>
+                        Remove
+                      </Button>
+                    </HStack>
+                  </Table.Cell>
+                </Table.Row>
+              );
+            })}
+          </Table.Body>
+        </Table.Root>
+      </Table.ScrollArea>
+      {errors.lines?.root?.message || errors.lines?.message ? (
+        <Text color="fg.error" fontWeight="bold" mt="1">
+          {errors.lines?.root?.message ?? errors.lines?.message}
+        </Text>
+      ) : null}
+      <Button mt="3" size="lg" variant="outline" onClick={() => append({ ...EMPTY_LINE })}>
+        Add line
+      </Button>
+    </Box>
+  );
+}

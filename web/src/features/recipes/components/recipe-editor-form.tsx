@@ -1,0 +1,262 @@
+import { Box, Button, Grid, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { bookRecipeSchema, CLAIM_LABELS, CLAIMS, type BookRecipe, type Claim } from '@crumbproof/shared';
+import { useEffect, useMemo, useState } from 'react';
+import { useFieldArray, useForm, useWatch } from 'react-hook-form';
+import { Checkbox } from '@/components/ui/checkbox';
+import { ErrorAlert } from '@/components/ui/error-alert';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import type { ComboboxOption } from '@/components/ui/item-combobox';
+import type { ItemLookup } from '@/components/ui/layer-path';
+import { isApiError, type ApiError } from '@/lib/api-client';
+import { usePreviewDeclaration } from '../api/preview-declaration';
+import { useSaveRecipe } from '../api/save-recipe';
+import type { RecipeView } from '../api/types';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { editorResolver, lineIndexOf, numberOrUndefined, toBookRecipe, toEditorValues, type EditorValues } from './editor-values';
+import { LineRows } from './line-rows';
+import { LiveDeclaration } from './live-declaration';
+
+/** The id a new recipe is previewed under until it has one of its own. */
+const PREVIEW_ID = 'new-recipe-preview';
+export const PREVIEW_DELAY_MS = 400;
+
+interface RecipeEditorFormProps {
+  /** The recipe as saved; null for a new one. */
+  initial: RecipeView | null;
+  options: readonly ComboboxOption[];
+  lookup: ItemLookup;
+  onSaved: (saved: RecipeView) => void;
+}
+
+/** Problems the API names on a line of this recipe, by 0-based index. */
+function lineProblems(error: ApiError | null, recipeId: string, lines: EditorValues['lines']): Map<number, string[]> {
+  const byLine = new Map<number, string[]>();
+  if (!error) return byLine;
+  const add = (index: number, message: string) => byLine.set(index, [...(byLine.get(index) ?? []), message]);
+  for (const field of error.fields) {
+    const index = lineIndexOf(field.path, recipeId);
+    if (index !== null && index < lines.length) add(index, field.message);
+  }
+  // A cycle names no line: mark the lines that lead back into this recipe, as far as the form can tell.
+  if (error.code === 'recipe-cycle' && byLine.size === 0) {
+    lines.forEach((line, index) => {
+      if (line.use === recipeId || error.message.includes(`'${line.use}'`)) add(index, error.message);
+    });
+  }
+  return byLine;
+}
+
+/** A short sentence on what stops the preview, from the form's own validation. */
+function firstIssue(recipe: BookRecipe): string | null {
+  const parsed = bookRecipeSchema.safeParse(recipe);
+  if (parsed.success) return null;
+  const issue = parsed.error.issues[0];
+  if (!issue) return null;
+  const [head, index, field] = issue.path;
+  if (head === 'lines' && typeof index === 'number') {
+    const what = field === 'use' ? 'choose an ingredient or recipe' : field === 'qty' ? 'give a quantity above zero' : 'finish it';
+    return `Line ${index + 1}: ${what} to see the declaration.`;
+  }
+  if (head === 'sale') return 'Give the portion weight to see the declaration for sale.';
+  return `Finish the form to see the declaration: ${issue.message}`;
+}
+
+export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEditorFormProps) {
+  const creating = initial === null;
+  const defaults = useMemo(() => toEditorValues(initial), [initial]);
+  const {
+    control,
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isDirty },
+  } = useForm<EditorValues>({ resolver: editorResolver, defaultValues: defaults });
+  const lines = useFieldArray({ control, name: 'lines' });
+  const save = useSaveRecipe();
+  const [saveMessage, setSaveMessage] = useState<string | null>(null);
+
+  const watched = useWatch({ control }) as EditorValues;
+  const forSale = Boolean(watched.forSale);
+  const wantedClaims = (Array.isArray(watched.claims) ? watched.claims : watched.claims ? [watched.claims] : []) as Claim[];
+
+  // The preview: the recipe as it would be sent, once typing pauses.
+  const asTyped = toBookRecipe(watched);
+  const forPreview: BookRecipe = { ...asTyped, id: asTyped.id || PREVIEW_ID, name: asTyped.name.trim() || 'New recipe' };
+  const previewKey = JSON.stringify(forPreview);
+  const settledKey = useDebouncedValue(previewKey, PREVIEW_DELAY_MS);
+  const settled = useMemo(() => JSON.parse(settledKey) as BookRecipe, [settledKey]);
+  const incomplete = firstIssue(settled);
+  const preview = usePreviewDeclaration(incomplete ? null : settled, undefined);
+  const previewError = preview.isError && isApiError(preview.error) ? preview.error : null;
+
+  // A refused save stays on screen until the recipe changes.
+  const { reset: resetSave, isError: saveFailed } = save;
+  useEffect(() => {
+    if (saveFailed) resetSave();
+    setSaveMessage(null);
+    // Only a change of the recipe clears the message.
+  }, [settledKey]);
+
+  const saveError = save.isError && isApiError(save.error) ? save.error : null;
+  const shownError = saveError ?? previewError;
+  const apiLineErrors = lineProblems(shownError, forPreview.id, watched.lines ?? []);
+  const previewLookup = useMemo<ItemLookup>(
+    () => (id) => (id === forPreview.id ? { name: forPreview.name, kind: 'recipe' } : lookup(id)),
+    [lookup, forPreview.id, forPreview.name],
+  );
+
+  function handleSave(values: EditorValues) {
+    setSaveMessage(null);
+    const recipe = toBookRecipe(values);
+    save.mutate(
+      { recipe, code: creating ? undefined : initial.id },
+      {
+        onSuccess: (saved) => onSaved(saved),
+        onError: (error) => {
+          if (!isApiError(error)) {
+            setSaveMessage('Nothing was saved. Try again in a moment.');
+            return;
+          }
+          if (error.code === 'conflict') setError('id', { message: error.message });
+          for (const field of error.fields) {
+            if (field.path === 'name' || field.path === 'finishedWeightG') setError(field.path, { message: field.message });
+            if (field.path === 'id' && creating) setError('id', { message: field.message });
+            if (field.path === 'sale.portionG') setError('portionG', { message: field.message });
+          }
+          setSaveMessage(`Nothing was saved. ${error.message}`);
+        },
+      },
+    );
+  }
+
+  const lineOptions = useMemo(() => {
+    const seen = new Set<string>();
+    return (watched.lines ?? [])
+      .map((line) => line.use)
+      .filter((use) => use && !seen.has(use) && seen.add(use))
+      .map((use) => ({ id: use, name: lookup(use)?.name ?? use }));
+  }, [watched.lines, lookup]);
+
+  return (
+    <Grid templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 26rem)' }} gap="6" alignItems="start">
+      <form aria-label={creating ? 'New recipe' : `Edit ${initial.name}`} noValidate onSubmit={handleSubmit(handleSave)}>
+        <Stack gap="5" minW="0">
+          {saveMessage ? <ErrorAlert title="The recipe was not saved">{saveMessage}</ErrorAlert> : null}
+          <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+            <FormField label="Recipe name" error={errors.name?.message} required>
+              <TextInput autoComplete="off" {...register('name')} />
+            </FormField>
+            {creating ? (
+              <FormField label="Recipe id" hint="Short and lasting, e.g. lemon-tart. It cannot be changed later." error={errors.id?.message} required>
+                <TextInput autoComplete="off" spellCheck={false} {...register('id')} />
+              </FormField>
+            ) : (
+              <Box>
+                <Text fontWeight="bold">Recipe id</Text>
+                <Text textStyle="quantity" pt="2">
+                  {initial.id}
+                </Text>
+              </Box>
+            )}
+          </SimpleGrid>
+
+          <LineRows
+            control={control}
+            register={register}
+            lines={lines}
+            errors={errors}
+            apiErrors={apiLineErrors}
+            options={options}
+          />
+
+          <Box maxW="xs">
+            <FormField label="Weight after baking (g)" hint="Leave empty to use the sum of the lines." error={errors.finishedWeightG?.message}>
+              <TextInput
+                type="number"
+                inputMode="decimal"
+                step="any"
+                min="0"
+                textStyle="quantity"
+                {...register('finishedWeightG', { setValueAs: numberOrUndefined })}
+              />
+            </FormField>
+          </Box>
+
+          <Box as="fieldset" borderWidth="1px" borderColor="border.muted" rounded="md" p="4" bg="bg.panel" minW="0">
+            <Text as="legend" fontWeight="bold" px="1">
+              Sale details
+            </Text>
+            <Stack gap="4">
+              <Checkbox {...register('forSale')}>For sale</Checkbox>
+              {forSale ? (
+                <>
+                  <Box maxW="xs">
+                    <FormField label="Portion (g)" error={errors.portionG?.message} required>
+                      <TextInput
+                        type="number"
+                        inputMode="decimal"
+                        step="any"
+                        min="0"
+                        textStyle="quantity"
+                        {...register('portionG', { setValueAs: numberOrUndefined })}
+                      />
+                    </FormField>
+                  </Box>
+                  <Box as="fieldset" minW="0">
+                    <Text as="legend" fontWeight="bold">
+                      Claims wanted
+                    </Text>
+                    <SimpleGrid columns={{ base: 2, md: 4 }} gapX="4">
+                      {CLAIMS.map((claim) => (
+                        <Checkbox key={claim} value={claim} {...register('claims')}>
+                          {CLAIM_LABELS[claim]}
+                        </Checkbox>
+                      ))}
+                    </SimpleGrid>
+                  </Box>
+                  <Box as="fieldset" minW="0">
+                    <Text as="legend" fontWeight="bold">
+                      Give a percentage for (QUID)
+                    </Text>
+                    {lineOptions.length === 0 ? (
+                      <Text color="fg.muted">Add lines first.</Text>
+                    ) : (
+                      <SimpleGrid columns={{ base: 1, md: 2 }} gapX="4">
+                        {lineOptions.map((option) => (
+                          <Checkbox key={option.id} value={option.id} {...register('quid')}>
+                            {option.name}
+                          </Checkbox>
+                        ))}
+                      </SimpleGrid>
+                    )}
+                  </Box>
+                </>
+              ) : null}
+            </Stack>
+          </Box>
+
+          <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ md: 'center' }}>
+            <Button type="submit" size="lg" alignSelf="flex-start" loading={save.isPending} loadingText="Saving…">
+              Save recipe
+            </Button>
+            <Text color="fg.muted">
+              {creating ? 'Saving creates revision 1.' : `Saving creates revision ${initial.revision + 1}.`}
+            </Text>
+          </Stack>
+        </Stack>
+      </form>
+
+      <Box position={{ lg: 'sticky' }} top={{ lg: '4' }} maxH={{ lg: 'calc(100dvh - 2rem)' }} overflowY={{ lg: 'auto' }} minW="0">
+        <LiveDeclaration
+          declaration={preview.data}
+          computing={preview.isFetching || previewKey !== settledKey}
+          unsaved={creating || isDirty}
+          incomplete={incomplete}
+          error={previewError ? previewError.message : preview.isError ? 'The declaration could not be computed. Try again in a moment.' : null}
+          wantedClaims={forSale ? wantedClaims : []}
+          lookup={previewLookup}
+        />
+      </Box>
+    </Grid>
+  );
+}
