@@ -7,8 +7,9 @@ import { fileURLToPath } from 'node:url';
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const tsx = join(root, 'node_modules', '.bin', process.platform === 'win32' ? 'tsx.cmd' : 'tsx');
 // --conditions=source resolves @crumbproof/shared to its TypeScript source (no build needed).
-const run = spawnSync(tsx, ['--conditions=source', join('api', 'src', 'cli', 'declare.ts'), ...process.argv.slice(2)], {
-  cwd: root,
+// Paths on the command line are read from where the user ran npm (INIT_CWD), not the root.
+const run = spawnSync(tsx, ['--conditions=source', join(root, 'api', 'src', 'cli', 'declare.ts'), ...process.argv.slice(2)], {
+  cwd: process.env.INIT_CWD ?? process.cwd(),
   stdio: 'inherit',
 });
 if (run.error) {
