@@ -176,6 +176,23 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(lupin.why.join(' ')).toMatch(/same area/i);
   });
 
+  it('searches, filters and pages the ingredient library, giving the total', async () => {
+    const all = await req('GET', '/api/ingredients', chef);
+    const total = Number(all.headers['x-total-count']);
+    expect(total).toBe(all.json().length);
+    const page = await req('GET', '/api/ingredients?limit=5&offset=5', chef);
+    expect(page.json()).toHaveLength(5);
+    expect(page.json()[0].id).toBe(all.json()[5].id);
+    expect(page.headers['x-total-count']).toBe(String(total));
+    const milk = (await req('GET', '/api/ingredients?source=milk', chef)).json() as { contains?: string[] }[];
+    expect(milk.length).toBeGreaterThan(0);
+    expect(milk.every((i) => (i.contains ?? []).includes('milk'))).toBe(true);
+    expect((await req('GET', '/api/ingredients?q=SPELT', chef)).json().map((i: { id: string }) => i.id)).toContain('spelt-flour');
+    const bad = await req('GET', '/api/ingredients?source=unicorn', chef);
+    expect(bad.statusCode).toBe(400);
+    expect(bad.json().fields[0].path).toBe('source');
+  });
+
   it('front-of-house cannot write', async () => {
     expect((await req('PUT', '/api/ingredients/butter', counter, {})).statusCode).toBe(403);
     expect((await req('POST', '/api/book/import', counter, shortbread)).statusCode).toBe(403);

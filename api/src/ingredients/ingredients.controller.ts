@@ -1,10 +1,11 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Put } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Put, Query, Res } from '@nestjs/common';
+import type { FastifyReply } from 'fastify';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { bookIngredientSchema, KITCHEN_WRITERS, type BookIngredient } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
-import { IngredientsService } from './ingredients.service';
+import { IngredientsService, ingredientQuerySchema, type IngredientQuery } from './ingredients.service';
 
 @ApiTags('ingredients')
 @Controller('ingredients')
@@ -13,9 +14,13 @@ export class IngredientsController {
   constructor(private readonly ingredients: IngredientsService) {}
 
   @Get()
-  @ApiOperation({ summary: 'Every ingredient with its current revision' })
-  list() {
-    return this.ingredients.list();
+  @ApiOperation({
+    summary: 'Ingredients with their current revision; q, source, sort, limit and offset narrow and page the list (the total is in X-Total-Count)',
+  })
+  async list(@Query(new ZodPipe(ingredientQuerySchema)) query: IngredientQuery, @Res({ passthrough: true }) reply: FastifyReply) {
+    const { items, total } = await this.ingredients.list(query);
+    void reply.header('X-Total-Count', String(total));
+    return items;
   }
 
   @Get(':code')

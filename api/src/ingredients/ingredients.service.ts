@@ -1,9 +1,19 @@
 import { Injectable } from '@nestjs/common';
-import type { BookIngredient } from '@crumbproof/shared';
+import { ALLERGEN_SOURCES, type BookIngredient } from '@crumbproof/shared';
+import { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
 import { IngredientsRepository } from './ingredients.repository';
+
+export const ingredientQuerySchema = z.strictObject({
+  q: z.string().trim().max(100).optional(),
+  source: z.enum(ALLERGEN_SOURCES).optional(),
+  sort: z.enum(['name', 'supplier', 'updated']).optional(),
+  limit: z.coerce.number().int().min(1).max(1000).optional(),
+  offset: z.coerce.number().int().min(0).optional(),
+});
+export type IngredientQuery = z.infer<typeof ingredientQuerySchema>;
 
 export interface IngredientView extends BookIngredient {
   revision: number;
@@ -23,9 +33,22 @@ export class IngredientsService {
     return site.id;
   }
 
-  async list(): Promise<IngredientView[]> {
+  async list(query: IngredientQuery = {}): Promise<{ items: IngredientView[]; total: number }> {
     const rows = await this.repo.listCurrent(await this.siteId());
-    return rows.map((r) => ({ id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() }));
+    let items = rows.map((r) => ({ id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() }));
+    if (query.q) {
+      const q = query.q.toLowerCase();
+      items = items.filter((i) => [i.name, i.id, i.supplier ?? '', i.supplierCode ?? ''].some((f) => f.toLowerCase().includes(q)));
+    }
+    if (query.source) {
+      const has = (list: IngredientView['mayContain'] | undefined) => (list ?? []).some((c) => (typeof c === 'string' ? c : c.source) === query.source);
+      items = items.filter((i) => has(i.contains));
+    }
+    if (query.sort === 'updated') items.sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
+    else if (query.sort === 'supplier') items.sort((a, b) => (a.supplier ?? '').localeCompare(b.supplier ?? '') || a.name.localeCompare(b.name));
+    const total = items.length;
+    const offset = query.offset ?? 0;
+    return { items: query.limit ? items.slice(offset, offset + query.limit) : items.slice(offset), total };
   }
 
   async get(code: string): Promise<IngredientView> {

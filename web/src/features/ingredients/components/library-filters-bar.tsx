@@ -52,7 +52,6 @@ export function LibraryFiltersBar({ filters, onChange, specificationsKnown }: Li
       <FormField label="Search ingredients">
         <TextInput
           type="search"
-          size="md"
           placeholder="Name, supplier or code"
           value={filters.search}
           onChange={(event) => onChange({ ...filters, search: event.currentTarget.value })}

@@ -1,0 +1,113 @@
+import type { BookIngredient, Nutrition } from '@crumbproof/shared';
+import type { z } from 'zod';
+import type { bookIngredientSchema } from '@crumbproof/shared';
+
+/** What the form holds: the schema's input (mayContain may be missing before defaults). */
+export type IngredientFormValues = z.input<typeof bookIngredientSchema>;
+
+/** The nutrition fields the form shows, per 100 g, in label order. */
+export const NUTRITION_FIELDS = [
+  { key: 'fat', label: 'Fat' },
+  { key: 'saturates', label: 'of which saturates' },
+  { key: 'carbohydrate', label: 'Carbohydrate' },
+  { key: 'sugars', label: 'of which sugars' },
+  { key: 'fibre', label: 'Fibre' },
+  { key: 'protein', label: 'Protein' },
+  { key: 'salt', label: 'Salt' },
+] as const satisfies readonly { key: keyof Nutrition; label: string }[];
+
+/** Every figure a nutrition record may hold (what "Fill from reference table" replaces). */
+export const ALL_NUTRITION_KEYS = [
+  'energyKj', 'energyKcal', 'fat', 'saturates', 'transFat', 'cholesterolMg', 'carbohydrate', 'sugars', 'addedSugars',
+  'polyols', 'erythritol', 'fibre', 'protein', 'salt', 'sodium', 'alcohol', 'organicAcids', 'salatrims',
+] as const satisfies readonly Exclude<keyof Nutrition, 'source'>[];
+
+const EXTRA_LABELS: Partial<Record<(typeof ALL_NUTRITION_KEYS)[number], [string, string]>> = {
+  energyKj: ['energy', 'kJ'],
+  energyKcal: ['energy', 'kcal'],
+  transFat: ['trans fat', 'g'],
+  cholesterolMg: ['cholesterol', 'mg'],
+  addedSugars: ['added sugars', 'g'],
+  polyols: ['polyols', 'g'],
+  erythritol: ['erythritol', 'g'],
+  sodium: ['sodium', 'g'],
+  alcohol: ['alcohol', 'g'],
+  organicAcids: ['organic acids', 'g'],
+  salatrims: ['salatrims', 'g'],
+};
+
+/** Figures kept with the ingredient that the form has no field for: "energy 1472 kJ, sodium 0.0015 g". */
+export function extraFigures(nutrition: Partial<Nutrition> | undefined): string[] {
+  if (!nutrition) return [];
+  return (Object.keys(EXTRA_LABELS) as (keyof typeof EXTRA_LABELS)[])
+    .filter((key) => typeof nutrition[key] === 'number')
+    .map((key) => {
+      const [name, unit] = EXTRA_LABELS[key] as [string, string];
+      return `${name} ${(nutrition[key] as number).toLocaleString('en-GB', { maximumFractionDigits: 5 })} ${unit}`;
+    });
+}
+
+/** A typed number, or undefined for an empty box; anything else is passed on for the schema to refuse. */
+export function parseNumberInput(value: unknown): unknown {
+  if (value === null || value === undefined) return undefined;
+  if (typeof value === 'number') return Number.isNaN(value) ? undefined : value;
+  const text = String(value).trim().replace(',', '.');
+  if (text === '') return undefined;
+  const number = Number(text);
+  return Number.isFinite(number) ? number : text;
+}
+
+/** An empty optional text box is left out, not saved as "". */
+export function parseOptionalText(value: unknown): string | undefined {
+  if (typeof value !== 'string') return undefined;
+  return value.trim() === '' ? undefined : value;
+}
+
+/** Turns zod's default wording into a sentence that says what to do. */
+export function humaniseMessage(message: string | undefined): string | undefined {
+  if (!message) return message;
+  if (/expected number/i.test(message)) return 'Write a number, such as 0.5.';
+  const big = /Too big: expected number to be <=?\s*([\d.]+)/i.exec(message);
+  if (big) return `Use a number no larger than ${big[1]}.`;
+  if (/Too small: expected number to be >0\b/i.test(message)) return 'Use a number above zero.';
+  const small = /Too small: expected number to be >=?\s*([\d.]+)/i.exec(message);
+  if (small) return `Use a number of at least ${small[1]}.`;
+  const long = /Too big: expected string to have <=?\s*(\d+)/i.exec(message);
+  if (long) return `Keep this to ${long[1]} characters or fewer.`;
+  return message;
+}
+
+/** Drops figures left empty, and the whole nutrition record when it holds no figure at all. */
+export function cleanNutrition(nutrition: Nutrition | undefined): Nutrition | undefined {
+  if (!nutrition) return undefined;
+  const entries = Object.entries(nutrition).filter(([, value]) => value !== undefined && value !== '');
+  const figures = entries.filter(([key]) => key !== 'source');
+  if (figures.length === 0) return undefined;
+  return Object.fromEntries(entries) as Nutrition;
+}
+
+/** The body sent to the API: no empty strings, no undefined keys. */
+export function toPayload(values: BookIngredient): BookIngredient {
+  const payload: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(values)) {
+    if (value === undefined) continue;
+    if (typeof value === 'string' && value.trim() === '' && key !== 'id' && key !== 'name') continue;
+    payload[key] = value;
+  }
+  const nutrition = cleanNutrition(values.nutrition);
+  if (nutrition) payload.nutrition = nutrition;
+  else delete payload.nutrition;
+  return payload as BookIngredient;
+}
+
+/** "Plain flour (T55)" → "plain-flour-t55". */
+export function slugify(name: string): string {
+  return name
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/&/g, ' and ')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 80);
+}
