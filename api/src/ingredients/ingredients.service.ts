@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
+import { UsersRepository } from '../users/users.repository';
 import { IngredientsRepository } from './ingredients.repository';
 
 export const ingredientQuerySchema = z.strictObject({
@@ -25,6 +26,7 @@ export class IngredientsService {
   constructor(
     private readonly repo: IngredientsRepository,
     private readonly books: BooksService,
+    private readonly users: UsersRepository,
   ) {}
 
   private async siteId() {
@@ -60,7 +62,8 @@ export class IngredientsService {
   async history(code: string) {
     const revs = await this.repo.history(await this.siteId(), code);
     if (!revs) throw new AppError('not-found', `There is no ingredient '${code}'.`);
-    return revs.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+    const names = new Map((await this.users.list()).map((u) => [u.id, u.name]));
+    return revs.map((r) => ({ ...r, authorName: r.authorId ? (names.get(r.authorId) ?? null) : null, createdAt: r.createdAt.toISOString() }));
   }
 
   /** Every recipe and product that uses the ingredient at any depth, with each path. */

@@ -6,8 +6,13 @@ import { ApprovalsRoute } from '@/features/approvals/routes/approvals';
 import { AuditRoute } from '@/features/audit/routes/audit';
 import { CounterRoute } from '@/features/counter/routes/counter';
 import { IngredientsRoute } from '@/features/ingredients/routes/ingredients';
+import { ImportIngredientsRoute } from '@/features/ingredients/routes/import-ingredients';
+import { IngredientRoute, NewIngredientRoute } from '@/features/ingredients/routes/ingredient';
 import { LabelsRoute } from '@/features/labels/routes/labels';
+import { RecipeRoute } from '@/features/recipes/routes/recipe';
+import { NewRecipeRoute, RecipeEditorRoute } from '@/features/recipes/routes/recipe-editor';
 import { RecipesRoute } from '@/features/recipes/routes/recipes';
+import { SwapCheckRoute } from '@/features/swaps/routes/swap-check';
 import { UsersRoute } from '@/features/users/routes/users';
 import { AppShell, PublicShell, ShellFrame } from './layout/app-shell';
 import { RequireSignIn } from './layout/require-sign-in';
@@ -59,6 +64,14 @@ export const routes: RouteObject[] = [
                 path: PAGES[key].path.slice(1),
                 element: <RoleGate page={key}>{PAGE_ELEMENTS[key]}</RoleGate>,
               })),
+              // Inside Recipes: the page gate first; the editor and swap check refuse front of house themselves.
+              { path: 'recipes/new', element: <RoleGate page="recipes"><NewRecipeRoute /></RoleGate> },
+              { path: 'recipes/swap', element: <RoleGate page="recipes"><SwapCheckRoute /></RoleGate> },
+              { path: 'recipes/:code', element: <RoleGate page="recipes"><RecipeRoute /></RoleGate> },
+              { path: 'recipes/:code/edit', element: <RoleGate page="recipes"><RecipeEditorRoute /></RoleGate> },
+              { path: 'ingredients/new', element: <RoleGate page="ingredients"><NewIngredientRoute /></RoleGate> },
+              { path: 'ingredients/import', element: <RoleGate page="ingredients"><ImportIngredientsRoute /></RoleGate> },
+              { path: 'ingredients/:code', element: <RoleGate page="ingredients"><IngredientRoute /></RoleGate> },
               { path: '*', element: <NotFoundRoute /> },
             ],
           },

@@ -29,7 +29,7 @@ describe('Main navigation', () => {
   });
 
   it('moves between pages', async () => {
-    mockApi(signedInAs('front-of-house'));
+    mockApi(signedInAs('front-of-house', { 'GET /api/recipes': { body: [] }, 'GET /api/declarations': { body: [] } }));
     const { user } = renderApp('/counter');
 
     const nav = await screen.findByRole('navigation', { name: 'Main' });
@@ -37,7 +37,7 @@ describe('Main navigation', () => {
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Recipes' })).toBeInTheDocument();
     expect(screen.getByRole('main')).toHaveFocus();
-    expect(screen.getByText(/This page is not built yet\. It will list recipes/)).toBeInTheDocument();
+    expect(await screen.findByRole('table', { name: 'Recipes and products' })).toBeInTheDocument();
     expect(screen.getAllByRole('heading', { level: 1 })).toHaveLength(1);
   });
 

@@ -2,7 +2,7 @@ import { Box, Link, Text } from '@chakra-ui/react';
 import type { ClaimReason } from '@crumbproof/shared';
 import { Fragment } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
-import { layerSteps, type ItemLookup } from './layer-path';
+import { layerSteps, useCanOpenPath, type ItemLookup } from './layer-path';
 
 interface InlinePathProps {
   path: readonly string[];
@@ -12,15 +12,20 @@ interface InlinePathProps {
 /** A layer path on one line, for places where a stack would be too tall: "Cake → Sponge → Butter". */
 export function InlinePath({ path, lookup }: InlinePathProps) {
   const steps = layerSteps(path, lookup);
+  const canOpen = useCanOpenPath();
   return (
     <Text as="span" color="fg.muted" textStyle="sm">
       {steps.map((step, index) => (
         <Fragment key={`${step.id}-${index}`}>
           {index > 0 ? <span aria-hidden="true"> → </span> : null}
           {index > 0 ? <Box as="span" srOnly>then</Box> : null}
-          <Link asChild color="accent.fg">
-            <RouterLink to={step.href}>{step.name}</RouterLink>
-          </Link>
+          {canOpen(step.href) ? (
+            <Link asChild color="accent.fg">
+              <RouterLink to={step.href}>{step.name}</RouterLink>
+            </Link>
+          ) : (
+            <span>{step.name}</span>
+          )}
         </Fragment>
       ))}
     </Text>

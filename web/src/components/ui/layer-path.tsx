@@ -1,4 +1,5 @@
 import { Box, Link } from '@chakra-ui/react';
+import { createContext, useContext, type ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 
 /** What a screen knows about an id it shows: its name, and whether it is a recipe or an ingredient. */
@@ -37,6 +38,25 @@ export function pathText(path: readonly string[], lookup: ItemLookup): string {
   return path.map((id) => lookup(id)?.name ?? id).join(' → ');
 }
 
+/**
+ * Which bars may be links: a page whose reader cannot open ingredient pages (front of house)
+ * says so once, and the bars that lead there are drawn as plain bars. Default: every bar links.
+ */
+const LinkPolicyContext = createContext<(href: string) => boolean>(() => true);
+
+interface LayerPathLinksProps {
+  canOpen: (href: string) => boolean;
+  children: ReactNode;
+}
+
+export function LayerPathLinks({ canOpen, children }: LayerPathLinksProps) {
+  return <LinkPolicyContext.Provider value={canOpen}>{children}</LinkPolicyContext.Provider>;
+}
+
+export function useCanOpenPath(): (href: string) => boolean {
+  return useContext(LinkPolicyContext);
+}
+
 /** A bar already named and linked (a screen that knows its names without a lookup). */
 export interface LayerPathItem {
   label: string;
@@ -60,6 +80,7 @@ type LayerPathProps =
  * brand mark, and the leaf bar is outlined rather than filled.
  */
 export function LayerPath(props: LayerPathProps) {
+  const canOpen = useCanOpenPath();
   const steps =
     props.items !== undefined
       ? props.items.map((item, index) => ({ id: `${index}`, name: item.label, href: item.href }))
@@ -78,6 +99,7 @@ export function LayerPath(props: LayerPathProps) {
     >
       {steps.map((step, index) => {
         const leaf = index === steps.length - 1;
+        const linked = canOpen(step.href);
         return (
           <Box as="li" key={`${step.id}-${index}`} ps={`${Math.min(index, 4) * 0.75}rem`} minW="0">
             <Link
@@ -96,9 +118,9 @@ export function LayerPath(props: LayerPathProps) {
               bg={leaf ? 'bg.panel' : index === 0 ? 'accent.solid' : 'accent.emphasized'}
               color={leaf ? 'accent.fg' : index === 0 ? 'accent.contrast' : 'fg'}
               fontWeight={leaf ? 'bold' : 'normal'}
-              _hover={{ textDecoration: 'underline' }}
+              _hover={linked ? { textDecoration: 'underline' } : undefined}
             >
-              <RouterLink to={step.href}>{step.name}</RouterLink>
+              {linked ? <RouterLink to={step.href}>{step.name}</RouterLink> : <span>{step.name}</span>}
             </Link>
           </Box>
         );

@@ -8,15 +8,17 @@ import {
   sortFn_basic,
   sortFn_datetime,
   sortFn_text,
+  flexRender,
   tableFeatures,
   useTable,
   type ColumnDef,
+  type Row,
   type ColumnVisibilityState,
   type RowData,
   type SortingState,
 } from '@tanstack/react-table';
 import { observeElementRect, useVirtualizer, type Virtualizer } from '@tanstack/react-virtual';
-import { useRef, type ReactNode } from 'react';
+import { memo, useRef, type ReactNode } from 'react';
 
 /**
  * The features of a long table: sorting by header and hiding columns. Module scope keeps them
@@ -42,7 +44,11 @@ export interface VirtualTableColumnMeta {
   width?: number;
   /** Right-align and use tabular figures (quantities, dates, counts). */
   numeric?: boolean;
+  /** Keep the column in view when the table scrolls sideways (the column that names the row). */
+  sticky?: boolean;
 }
+
+const stickyCell = { position: 'sticky', insetStart: 0, zIndex: 1, boxShadow: 'inset -1px 0 0 var(--chakra-colors-border-muted)' } as const;
 
 export type VirtualTableColumn<TData extends RowData> = ColumnDef<VirtualTableFeatures, TData, any>;
 
@@ -55,6 +61,63 @@ function observeRectWithFallback(instance: Virtualizer<HTMLDivElement, Element>,
 }
 
 const HeaderButton = chakra('button');
+
+/**
+ * Body rows are plain <tr>/<td> styled from here rather than one styled component per cell:
+ * scrolling 2,000 rows renders dozens of rows a frame, and this keeps each one cheap.
+ */
+const BODY_CSS = {
+  '& th, & td': { textStyle: 'md' },
+  '& tbody tr[data-row]': { bg: 'bg.panel' },
+  '& tbody tr[data-tone=attention]': { bg: 'bg.error' },
+  '& tbody td[data-cell]': {
+    px: '3',
+    py: '2',
+    borderBottomWidth: '1px',
+    borderColor: 'border.subtle',
+    verticalAlign: 'top',
+    overflowWrap: 'anywhere',
+    textAlign: 'start',
+  },
+  '& tbody td[data-numeric]': { textAlign: 'end', fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' },
+  // Borders of a collapsed table stay behind when a cell sticks; shadows travel with it.
+  '& tbody td[data-sticky]': {
+    position: 'sticky',
+    insetStart: 0,
+    zIndex: 1,
+    bg: 'inherit',
+    borderBottomWidth: '0',
+    boxShadow: 'inset -1px 0 0 var(--chakra-colors-border-muted), inset 0 -1px 0 var(--chakra-colors-border-subtle)',
+  },
+  // The header row stays above the sticky body cells that scroll under it.
+  '& thead tr': { zIndex: 3 },
+} as const;
+
+interface VirtualRowProps<TFeatures extends VirtualTableFeatures, TData extends RowData> {
+  row: Row<TFeatures, TData>;
+  index: number;
+  tone: 'attention' | undefined;
+  measure: (element: Element | null) => void;
+  /** The visible column ids and the column definitions: a change re-renders the row. */
+  visibility: string;
+  columns: unknown;
+}
+
+/** One body row; memoised so rows already on screen do not re-render as the list scrolls. */
+const VirtualRow = memo(function VirtualRow<TData extends RowData>({ row, index, tone, measure }: VirtualRowProps<VirtualTableFeatures, TData>) {
+  return (
+    <tr ref={measure} data-index={index} data-row="" data-tone={tone} aria-rowindex={index + 2}>
+      {row.getVisibleCells().map((cell) => {
+        const meta = cell.column.columnDef.meta as VirtualTableColumnMeta | undefined;
+        return (
+          <td key={cell.id} data-cell="" data-numeric={meta?.numeric ? '' : undefined} data-sticky={meta?.sticky ? '' : undefined}>
+            {flexRender(cell.column.columnDef.cell, cell.getContext())}
+          </td>
+        );
+      })}
+    </tr>
+  );
+}) as <TData extends RowData>(props: VirtualRowProps<VirtualTableFeatures, TData>) => ReactNode;
 
 const ARIA_SORT = { asc: 'ascending', desc: 'descending' } as const;
 
@@ -106,13 +169,14 @@ export function VirtualDataTable<TData extends RowData>({
     count: rows.length,
     getScrollElement: () => scrollRef.current,
     estimateSize: () => ROW_ESTIMATE_PX,
-    overscan: 10,
+    overscan: 6,
     observeElementRect: observeRectWithFallback,
     // A row with no layout (jsdom, a hidden tab) keeps its estimate rather than collapsing to 0.
     measureElement: (element) => element.getBoundingClientRect().height || ROW_ESTIMATE_PX,
     getItemKey: (index) => rows[index]?.id ?? index,
   });
   const items = virtualizer.getVirtualItems();
+  const visibilityKey = leafColumns.map((column) => column.id).join(' ');
   const padTop = items[0]?.start ?? 0;
   const padBottom = items.length > 0 ? virtualizer.getTotalSize() - (items.at(-1)?.end ?? 0) : 0;
   const minWidth = leafColumns.reduce(
@@ -142,7 +206,7 @@ export function VirtualDataTable<TData extends RowData>({
         tableLayout="fixed"
         width="100%"
         minW={`${minWidth}px`}
-        css={{ '& th, & td': { textStyle: 'md' } }}
+        css={BODY_CSS}
       >
         <Table.Caption srOnly>{caption}</Table.Caption>
         <colgroup>
@@ -168,6 +232,7 @@ export function VirtualDataTable<TData extends RowData>({
                     textAlign={meta?.numeric ? 'end' : 'start'}
                     aria-sort={sorted ? ARIA_SORT[sorted] : undefined}
                     px="3"
+                    {...(meta?.sticky ? { ...stickyCell, zIndex: 2 } : {})}
                   >
                     {header.isPlaceholder ? null : canSort ? (
                       <HeaderButton
@@ -215,32 +280,16 @@ export function VirtualDataTable<TData extends RowData>({
               {items.map((item) => {
                 const row = rows[item.index];
                 if (!row) return null;
-                const tone = rowTone?.(row.original);
                 return (
-                  <Table.Row
+                  <VirtualRow
                     key={row.id}
-                    data-index={item.index}
-                    ref={virtualizer.measureElement}
-                    aria-rowindex={item.index + 2}
-                    bg={tone === 'attention' ? 'bg.error' : 'bg.panel'}
-                  >
-                    {row.getVisibleCells().map((cell) => {
-                      const meta = cell.column.columnDef.meta as VirtualTableColumnMeta | undefined;
-                      return (
-                        <Table.Cell
-                          key={cell.id}
-                          px="3"
-                          borderColor="border.subtle"
-                          textAlign={meta?.numeric ? 'end' : 'start'}
-                          textStyle={meta?.numeric ? 'quantity' : undefined}
-                          verticalAlign="top"
-                          overflowWrap="anywhere"
-                        >
-                          <table.FlexRender cell={cell} />
-                        </Table.Cell>
-                      );
-                    })}
-                  </Table.Row>
+                    row={row}
+                    index={item.index}
+                    tone={rowTone?.(row.original)}
+                    measure={virtualizer.measureElement}
+                    visibility={visibilityKey}
+                    columns={columns}
+                  />
                 );
               })}
               {padBottom > 0 ? (

@@ -76,6 +76,7 @@ export interface IngredientRevision {
   body: BookIngredient;
   note: string;
   authorId: number | null;
+  authorName: string | null;
   createdAt: string;
 }
 
@@ -99,10 +100,28 @@ export interface ImportSummary {
   unchanged: number;
   withProblems: number;
 }
+/** A column the import understands (the API sends these; older drafts sent plain header names). */
+export interface ImportColumn {
+  header: string;
+  aliases?: string[];
+  /** The ingredient field it fills: 'contains', 'nutrition.fat', … */
+  field?: string;
+  required?: boolean;
+  description?: string;
+}
 export interface ImportPreview {
-  columns: string[];
+  format?: 'csv' | 'xlsx';
+  columns: (ImportColumn | string)[];
+  /** How the file is read: what an empty cell, 'none' and an absent column mean. */
+  rules?: string[];
+  /** Problems with the file as a whole (unknown or missing columns, no rows…). */
+  problems?: string[];
   rows: ImportPreviewRow[];
   summary: ImportSummary;
+}
+/** What an import saved. */
+export interface ImportResult extends ImportSummary {
+  written?: { id: string; revision: number }[];
 }
 
 export interface NutrientReferenceRow {

@@ -75,24 +75,10 @@ function SpecificationCell({ row }: { row: LibraryRow }) {
       return (
         <Text as="span" fontWeight="bold">
           Review overdue
-          {row.specificationReviewBy ? (
-            <Text as="span" display="block" fontWeight="normal" color="fg.muted" textStyle="sm">
-              since {formatDate(row.specificationReviewBy)}
-            </Text>
-          ) : null}
         </Text>
       );
     case 'current':
-      return (
-        <Text as="span">
-          Current
-          {row.specificationReviewBy ? (
-            <Text as="span" display="block" color="fg.muted" textStyle="sm">
-              review by {formatDate(row.specificationReviewBy)}
-            </Text>
-          ) : null}
-        </Text>
-      );
+      return <Text as="span">Current</Text>;
   }
 }
 
@@ -102,7 +88,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     header: 'Name',
     sortFn: 'text',
     enableHiding: false,
-    meta: meta({ width: 220 }),
+    meta: meta({ width: 200, sticky: true }),
     cell: (info) => (
       <Link asChild color="accent.fg" fontWeight="bold">
         <RouterLink to={`/ingredients/${encodeURIComponent(info.row.original.ingredient.id)}`}>{info.getValue()}</RouterLink>
@@ -113,7 +99,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     id: 'supplier',
     header: 'Supplier',
     sortFn: 'text',
-    meta: meta({ width: 150 }),
+    meta: meta({ width: 140 }),
     cell: (info) => info.getValue() || <Muted>Not recorded</Muted>,
   }),
   column.accessor((row) => row.ingredient.supplierCode ?? '', {
@@ -127,7 +113,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     id: 'code',
     header: 'Code',
     sortFn: 'text',
-    meta: meta({ width: 140 }),
+    meta: meta({ width: 130 }),
     cell: (info) => <Text as="span" textStyle="sm">{info.getValue()}</Text>,
   }),
   column.accessor((row) => (row.ingredient.contains === undefined ? undefined : row.ingredient.contains.map(describeEntry).join(', ')), {
@@ -135,7 +121,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     header: 'Contains',
     sortFn: 'text',
     sortUndefined: 'last',
-    meta: meta({ width: 200 }),
+    meta: meta({ width: 180 }),
     cell: (info) => {
       const contains = info.row.original.ingredient.contains;
       if (contains === undefined) return <StatusMark status="not-known" />;
@@ -147,7 +133,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     id: 'mayContain',
     header: 'May contain',
     sortFn: 'text',
-    meta: meta({ width: 170 }),
+    meta: meta({ width: 160 }),
     cell: (info) => {
       const mayContain = info.row.original.ingredient.mayContain ?? [];
       return mayContain.length === 0 ? <StatusMark status="none-recorded" /> : <EntryList entries={mayContain} />;
@@ -157,7 +143,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     id: 'vegan',
     header: 'Vegan',
     sortFn: 'text',
-    meta: meta({ width: 100 }),
+    meta: meta({ width: 105 }),
     cell: (info) => (info.getValue() === 'Not known' ? <Muted>Not known</Muted> : info.getValue()),
   }),
   column.accessor((row) => yesNoUnknown(row.ingredient.vegetarian), {
@@ -171,21 +157,21 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     id: 'specification',
     header: 'Specification',
     sortFn: 'text',
-    meta: meta({ width: 150 }),
+    meta: meta({ width: 165 }),
     cell: (info) => <SpecificationCell row={info.row.original} />,
   }),
   column.accessor((row) => row.ingredient.revision, {
     id: 'revision',
     header: 'Revision',
     sortFn: 'basic',
-    meta: meta({ width: 95, numeric: true }),
+    meta: meta({ width: 100, numeric: true }),
     cell: (info) => <Quantity>{info.getValue()}</Quantity>,
   }),
   column.accessor((row) => row.ingredient.updatedAt, {
     id: 'updated',
     header: 'Updated',
     sortFn: 'text',
-    meta: meta({ width: 120, numeric: true }),
+    meta: meta({ width: 125, numeric: true }),
     cell: (info) => <Quantity>{formatDate(info.getValue())}</Quantity>,
   }),
 ];

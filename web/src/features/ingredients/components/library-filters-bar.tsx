@@ -73,9 +73,9 @@ export function LibraryFiltersBar({ filters, onChange, specificationsKnown }: Li
       </FormField>
       <FormField label="Specification" hint={specificationsKnown ? undefined : 'Specification status could not be loaded.'}>
         <SelectInput
-          options={SPECIFICATION_OPTIONS}
-          value={filters.specification}
-          disabled={!specificationsKnown}
+          // Without the status, offering "Missing" or "Review overdue" would find nothing and mislead.
+          options={specificationsKnown ? SPECIFICATION_OPTIONS : SPECIFICATION_OPTIONS.slice(0, 1)}
+          value={specificationsKnown ? filters.specification : ''}
           onChange={(event) => onChange({ ...filters, specification: event.currentTarget.value as SpecificationFilter })}
         />
       </FormField>

@@ -129,6 +129,21 @@ describe('Ingredient library', () => {
     expect(screen.getByRole('button', { name: /Columns/ })).toHaveAttribute('aria-expanded', 'false');
   });
 
+  it('still lists the ingredients when the specification status cannot be loaded, without claiming any is missing', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/ingredients': { body: INGREDIENTS },
+        'GET /api/specifications/status': { status: 503, body: { statusCode: 503, code: 'internal', message: 'Down for a moment.' } },
+      }),
+    );
+    await openLibrary();
+    await waitFor(() => expect(screen.getByText('Specification status could not be loaded.')).toBeInTheDocument());
+    expect(within(screen.getByRole('combobox', { name: 'Specification' })).getAllByRole('option').map((o) => o.textContent)).toEqual(['All']);
+    const table = screen.getByRole('table', { name: 'Ingredients in the library' });
+    expect(within(table).getAllByText('Not checked')).toHaveLength(4);
+    expect(within(table).queryByText('Missing')).not.toBeInTheDocument();
+  });
+
   it('renders only the rows in view of a long list', async () => {
     const many: IngredientView[] = Array.from({ length: 2000 }, (_, index) => ({
       ...INGREDIENTS[0]!,

@@ -66,7 +66,7 @@ export function parseOptionalText(value: unknown): string | undefined {
 /** Turns zod's default wording into a sentence that says what to do. */
 export function humaniseMessage(message: string | undefined): string | undefined {
   if (!message) return message;
-  if (/expected number/i.test(message)) return 'Write a number, such as 0.5.';
+  if (/expected number, received/i.test(message)) return 'Write a number, such as 0.5.';
   const big = /Too big: expected number to be <=?\s*([\d.]+)/i.exec(message);
   if (big) return `Use a number no larger than ${big[1]}.`;
   if (/Too small: expected number to be >0\b/i.test(message)) return 'Use a number above zero.';

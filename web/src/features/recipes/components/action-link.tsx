@@ -24,6 +24,7 @@ export function ActionLink({ to, children, variant = 'solid' }: ActionLinkProps)
       bg={solid ? 'accent.solid' : 'bg.panel'}
       color={solid ? 'accent.contrast' : 'accent.fg'}
       fontWeight="bold"
+      whiteSpace="nowrap"
       textDecoration="none"
       _hover={{ bg: solid ? 'accent.hover' : 'accent.subtle', textDecoration: 'none' }}
     >

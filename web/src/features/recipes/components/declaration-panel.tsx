@@ -53,7 +53,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
         </ErrorAlert>
       ) : null}
 
-      <SimpleGrid minChildWidth="20rem" gap="4" alignItems="start">
+      <SimpleGrid minChildWidth="min(100%, 18rem)" gap="4" alignItems="start">
         <PanelSection title="Contains" level={level}>
           {contains.length === 0 ? (
             <StatusMark status="none-recorded">allergens</StatusMark>
@@ -169,7 +169,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
           {declaration.sulphites.mgPerKg === null
             ? 'Not known: a sulphite source has no stated content.'
             : `${declaration.sulphites.mgPerKg.toLocaleString('en-GB', { maximumFractionDigits: 1 })} mg/kg as eaten, ${
-                declaration.sulphites.declared ? 'declared (over 10 mg/kg)' : 'below the 10 mg/kg declaration threshold'
+                declaration.sulphites.declared ? 'declared on the label' : 'not declared (below the threshold)'
               }.`}
         </Text>
         <Text color="fg.muted" textStyle="sm">

@@ -89,8 +89,9 @@ export function numberOrUndefined(value: unknown): number | undefined {
 }
 
 function plainMessages(errors: FieldErrors): FieldErrors {
-  for (const value of Object.values(errors)) {
-    if (!value || typeof value !== 'object') continue;
+  for (const [key, value] of Object.entries(errors)) {
+    // `ref` is the DOM control; `types` holds raw messages by rule.
+    if (key === 'ref' || key === 'types' || !value || typeof value !== 'object') continue;
     const error = value as { message?: unknown };
     if (typeof error.message === 'string' && /expected number/i.test(error.message)) error.message = 'Enter a number.';
     plainMessages(value as FieldErrors);

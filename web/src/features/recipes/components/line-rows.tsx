@@ -7,10 +7,12 @@ import { ItemCombobox, type ComboboxOption } from '@/components/ui/item-combobox
 import { EMPTY_LINE, numberOrUndefined, type EditorValues } from './editor-values';
 
 const UNIT_OPTIONS = UNITS.map((unit) => ({ value: unit, label: unit }));
+/** Short words fit the column; the title says what a contact line is. */
 const ROLE_LABELS: Record<(typeof LINE_ROLES)[number], string> = {
   ingredient: 'Ingredient',
-  contact: 'Contact: greasing, dusting',
+  contact: 'Contact',
 };
+const ROLE_TITLES = 'Ingredient: part of the recipe. Contact: greasing or dusting, carries allergens but no weight.';
 const ROLE_OPTIONS = LINE_ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
 interface LineRowsProps {
@@ -36,24 +38,20 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
         Lines
       </Text>
       <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel">
-        <Table.Root size="sm" css={{ '& th, & td': { textStyle: 'md', verticalAlign: 'top' } }}>
+        <Table.Root size="sm" css={{ '& th, & td': { textStyle: 'md', verticalAlign: 'top', paddingInline: '0.375rem' } }}>
           <Table.Header>
             <Table.Row bg="bg.subtle">
-              <Table.ColumnHeader scope="col" w="8" textAlign="end">
+              <Table.ColumnHeader scope="col" w="6" textAlign="end">
                 #
               </Table.ColumnHeader>
-              <Table.ColumnHeader scope="col" minW="14rem">
+              <Table.ColumnHeader scope="col" minW="12rem">
                 Ingredient or recipe
               </Table.ColumnHeader>
-              <Table.ColumnHeader scope="col" w="7rem" textAlign="end">
+              <Table.ColumnHeader scope="col" textAlign="end">
                 Quantity
               </Table.ColumnHeader>
-              <Table.ColumnHeader scope="col" w="6rem">
-                Unit
-              </Table.ColumnHeader>
-              <Table.ColumnHeader scope="col" w="11rem">
-                Role
-              </Table.ColumnHeader>
+              <Table.ColumnHeader scope="col">Unit</Table.ColumnHeader>
+              <Table.ColumnHeader scope="col">Role</Table.ColumnHeader>
               <Table.ColumnHeader scope="col">
                 <Box srOnly>Order and removal</Box>
               </Table.ColumnHeader>
@@ -110,6 +108,8 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                       min="0"
                       textAlign="end"
                       textStyle="quantity"
+                      w="5.5rem"
+                      px="2"
                       aria-label={`Quantity for line ${n}`}
                       aria-invalid={Boolean(lineErrors?.qty) || undefined}
                       aria-describedby={describedBy}
@@ -117,15 +117,23 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                     />
                   </Table.Cell>
                   <Table.Cell>
-                    <SelectInput aria-label={`Unit for line ${n}`} options={UNIT_OPTIONS} {...register(`lines.${index}.unit`)} />
+                    <SelectInput aria-label={`Unit for line ${n}`} options={UNIT_OPTIONS} w="5.25rem" {...register(`lines.${index}.unit`)} />
                   </Table.Cell>
                   <Table.Cell>
-                    <SelectInput aria-label={`Role for line ${n}`} options={ROLE_OPTIONS} {...register(`lines.${index}.role`)} />
+                    <SelectInput
+                      aria-label={`Role for line ${n}`}
+                      title={ROLE_TITLES}
+                      options={ROLE_OPTIONS}
+                      w="8.75rem"
+                      {...register(`lines.${index}.role`)}
+                    />
                   </Table.Cell>
                   <Table.Cell>
-                    <HStack gap="1">
+                    <HStack gap="1" pt="0.5">
                       <Button
                         size="md"
+                        px="0"
+                        minW="10"
                         variant="outline"
                         aria-label={`Move line ${n} up`}
                         disabled={index === 0}
@@ -135,6 +143,8 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                       </Button>
                       <Button
                         size="md"
+                        px="0"
+                        minW="10"
                         variant="outline"
                         aria-label={`Move line ${n} down`}
                         disabled={index === fields.length - 1}
@@ -142,8 +152,17 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                       >
                         ↓
                       </Button>
-                      <Button size="md" variant="ghost" aria-label={`Remove line ${n}`} disabled={fields.length === 1} onClick={() => remove(index)}>
-                        Remove
+                      <Button
+                        size="md"
+                        px="0"
+                        minW="10"
+                        variant="ghost"
+                        aria-label={`Remove line ${n}`}
+                        title="Remove this line"
+                        disabled={fields.length === 1}
+                        onClick={() => remove(index)}
+                      >
+                        <span aria-hidden="true">✕</span>
                       </Button>
                     </HStack>
                   </Table.Cell>
@@ -158,6 +177,9 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
           {errors.lines?.root?.message ?? errors.lines?.message}
         </Text>
       ) : null}
+      <Text color="fg.muted" textStyle="sm" mt="1">
+        A contact line (greasing a tin, dusting a board) brings its allergens but no weight.
+      </Text>
       <Button mt="3" size="lg" variant="outline" onClick={() => append({ ...EMPTY_LINE })}>
         Add line
       </Button>

@@ -1,9 +1,9 @@
-import { Box, Link, Stack, Text } from '@chakra-ui/react';
+import { Box, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import type { EuLabelRow, FigureKey, NutritionDeclaration, UsLabelRow } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
-import { hrefFor } from '@/components/ui/layer-path';
+import { hrefFor, useCanOpenPath } from '@/components/ui/layer-path';
 import { PanelSection, type HeadingLevel } from './panel-section';
 
 export const FIGURE_LABELS: Record<FigureKey, string> = {
@@ -57,6 +57,7 @@ interface NutritionPanelProps {
 
 /** The nutrition declaration: the EU/UK table, a plain per-serving table for the US, and where each figure comes from. */
 export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps) {
+  const canOpen = useCanOpenPath();
   const euColumns = useMemo<DataTableColumn<EuLabelRow>[]>(() => {
     const portion = nutrition?.label.eu?.portionG ?? null;
     const columns: DataTableColumn<EuLabelRow>[] = [
@@ -108,16 +109,26 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
   return (
     <PanelSection title="Nutrition" level={level}>
       {label.note ? <Text>{label.note}</Text> : null}
-      {label.eu ? (
-        <DataTable caption="Nutrition declaration (EU and UK)" columns={euColumns} data={label.eu.rows} getRowId={(row) => row.key} />
-      ) : null}
-      {label.us ? (
-        <DataTable
-          caption={`Nutrition per serving (${label.us.servingG} g), United States`}
-          columns={usColumns}
-          data={label.us.rows}
-          getRowId={(row) => row.key}
-        />
+      {label.eu || label.us ? (
+        <SimpleGrid
+          minChildWidth="min(100%, 18rem)"
+          gap="4"
+          alignItems="start"
+          // Narrow columns (the editor's live panel) wrap names and headings instead of scrolling.
+          css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' } }}
+        >
+          {label.eu ? (
+            <DataTable caption="Nutrition declaration (EU and UK)" columns={euColumns} data={label.eu.rows} getRowId={(row) => row.key} />
+          ) : null}
+          {label.us ? (
+            <DataTable
+              caption={`Nutrition per serving (${label.us.servingG} g), United States`}
+              columns={usColumns}
+              data={label.us.rows}
+              getRowId={(row) => row.key}
+            />
+          ) : null}
+        </SimpleGrid>
       ) : null}
       {incomplete.length > 0 ? (
         <Box borderStartWidth="4px" borderColor="border.emphasized" borderStyle="dashed" ps="3">
@@ -138,9 +149,15 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
         <Stack as="ul" gap="1" ps="5" m="0" mt="2">
           {sources.map((source) => (
             <li key={source.id}>
-              <Link asChild color="accent.fg" fontWeight="bold">
-                <RouterLink to={hrefFor(source.id, 'ingredient')}>{source.name}</RouterLink>
-              </Link>
+              {canOpen(hrefFor(source.id, 'ingredient')) ? (
+                <Link asChild color="accent.fg" fontWeight="bold">
+                  <RouterLink to={hrefFor(source.id, 'ingredient')}>{source.name}</RouterLink>
+                </Link>
+              ) : (
+                <Text as="span" fontWeight="bold">
+                  {source.name}
+                </Text>
+              )}
               {': '}
               {!source.hasNutrition
                 ? 'no nutrition recorded'

@@ -29,7 +29,12 @@ interface RecipeEditorFormProps {
 }
 
 /** Problems the API names on a line of this recipe, by 0-based index. */
-function lineProblems(error: ApiError | null, recipeId: string, lines: EditorValues['lines']): Map<number, string[]> {
+function lineProblems(
+  error: ApiError | null,
+  recipeId: string,
+  lines: EditorValues['lines'],
+  nameOf: (id: string) => string | undefined,
+): Map<number, string[]> {
   const byLine = new Map<number, string[]>();
   if (!error) return byLine;
   const add = (index: number, message: string) => byLine.set(index, [...(byLine.get(index) ?? []), message]);
@@ -37,10 +42,13 @@ function lineProblems(error: ApiError | null, recipeId: string, lines: EditorVal
     const index = lineIndexOf(field.path, recipeId);
     if (index !== null && index < lines.length) add(index, field.message);
   }
-  // A cycle names no line: mark the lines that lead back into this recipe, as far as the form can tell.
+  // A cycle names no line, only recipes ("A contains itself: A → B → A."): mark the lines using them.
   if (error.code === 'recipe-cycle' && byLine.size === 0) {
+    const chain = error.message.split(':').slice(1).join(':');
     lines.forEach((line, index) => {
-      if (line.use === recipeId || error.message.includes(`'${line.use}'`)) add(index, error.message);
+      const name = nameOf(line.use);
+      const inChain = name !== undefined && chain.split('→').some((part) => part.trim().replace(/\.$/, '') === name);
+      if (line.use === recipeId || inChain) add(index, error.message);
     });
   }
   return byLine;
@@ -99,7 +107,10 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
 
   const saveError = save.isError && isApiError(save.error) ? save.error : null;
   const shownError = saveError ?? previewError;
-  const apiLineErrors = lineProblems(shownError, forPreview.id, watched.lines ?? []);
+  const apiLineErrors = lineProblems(shownError, forPreview.id, watched.lines ?? [], (id) => {
+    const info = lookup(id);
+    return info?.kind === 'recipe' ? info.name : undefined;
+  });
   const previewLookup = useMemo<ItemLookup>(
     () => (id) => (id === forPreview.id ? { name: forPreview.name, kind: 'recipe' } : lookup(id)),
     [lookup, forPreview.id, forPreview.name],
@@ -138,7 +149,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
   }, [watched.lines, lookup]);
 
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 26rem)' }} gap="6" alignItems="start">
+    <Grid templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)' }} gap="6" alignItems="start">
       <form aria-label={creating ? 'New recipe' : `Edit ${initial.name}`} noValidate onSubmit={handleSubmit(handleSave)}>
         <Stack gap="5" minW="0">
           {saveMessage ? <ErrorAlert title="The recipe was not saved">{saveMessage}</ErrorAlert> : null}

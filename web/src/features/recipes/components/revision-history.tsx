@@ -12,7 +12,7 @@ import { PanelSection, type HeadingLevel } from './panel-section';
 /** How many revisions show before "Show earlier revisions". */
 export const REVISIONS_SHOWN = 3;
 
-function RevisionItem({ revision, lookup }: { revision: RecipeRevision; lookup: ItemLookup }) {
+function RevisionItem({ revision, lookup, oldest }: { revision: RecipeRevision; lookup: ItemLookup; oldest: boolean }) {
   return (
     <Box as="li" borderTopWidth="1px" borderColor="border.subtle" pt="3">
       <Text>
@@ -28,7 +28,7 @@ function RevisionItem({ revision, lookup }: { revision: RecipeRevision; lookup: 
           <DeclarationDiffView diff={revision.diff} lookup={lookup} />
         ) : (
           <Text color="fg.muted">
-            {revision.declaration ? 'The first revision: nothing earlier to compare with.' : 'No declaration was recorded for this revision.'}
+            {oldest ? 'The first revision: nothing earlier to compare with.' : 'No declaration was recorded for this revision.'}
           </Text>
         )}
       </Box>
@@ -62,12 +62,17 @@ export function RevisionHistory({ code, lookup, level = 'h2' }: RevisionHistoryP
         <>
           <Box as="ol" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="3">
             {(showAll ? revisions.data : revisions.data.slice(0, REVISIONS_SHOWN)).map((revision) => (
-              <RevisionItem key={revision.revision} revision={revision} lookup={lookup} />
+              <RevisionItem
+                key={revision.revision}
+                revision={revision}
+                lookup={lookup}
+                oldest={revision.revision === revisions.data.at(-1)?.revision}
+              />
             ))}
           </Box>
           {revisions.data.length > REVISIONS_SHOWN ? (
             <Button variant="outline" size="md" alignSelf="flex-start" aria-expanded={showAll} onClick={() => setShowAll((value) => !value)}>
-              {showAll ? 'Show fewer revisions' : `Show ${revisions.data.length - REVISIONS_SHOWN} earlier revisions`}
+              {showAll ? 'Show fewer revisions' : `Show ${revisions.data.length - REVISIONS_SHOWN} earlier ${revisions.data.length - REVISIONS_SHOWN === 1 ? 'revision' : 'revisions'}`}
             </Button>
           ) : null}
         </>

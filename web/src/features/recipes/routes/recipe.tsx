@@ -4,6 +4,7 @@ import { KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink, useLocation, useParams, useSearchParams } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
+import { LayerPathLinks } from '@/components/ui/layer-path';
 import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
 import { useSignedInUser } from '@/lib/signed-in-user';
@@ -95,10 +96,13 @@ export function RecipeRoute() {
         <ErrorAlert title="The declaration could not be computed">{declaration.error.message}</ErrorAlert>
       ) : (
         <Box opacity={declaration.isPlaceholderData ? 0.6 : 1} aria-busy={declaration.isPlaceholderData || undefined}>
-          <Stack gap="4">
-            <DeclarationPanel declaration={declaration.data} lookup={lookup} />
-            <NutritionPanel nutrition={declaration.data.nutrition} />
-          </Stack>
+          {/* Front of house cannot open ingredient pages: those bars are drawn without a link. */}
+          <LayerPathLinks canOpen={(href) => writer || !href.startsWith('/ingredients/')}>
+            <Stack gap="4">
+              <DeclarationPanel declaration={declaration.data} lookup={lookup} />
+              <NutritionPanel nutrition={declaration.data.nutrition} />
+            </Stack>
+          </LayerPathLinks>
         </Box>
       )}
       {writer ? <RevisionHistory code={data.id} lookup={lookup} /> : null}

@@ -111,7 +111,15 @@ function SwapCheck() {
         <Stack gap="4">
           <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
             <FormField label="Replace" error={fieldMessage(preview.error, 'from')}>
-              <ItemCombobox options={options} value={from} onChange={setFrom} />
+              <ItemCombobox
+                options={options}
+                value={from}
+                onChange={(next) => {
+                  setFrom(next);
+                  // The scope lists recipes that use the ingredient replaced; a new one starts from everywhere.
+                  setWhere(EVERYWHERE);
+                }}
+              />
             </FormField>
             <FormField label="With" error={fieldMessage(preview.error, 'to')}>
               <ItemCombobox options={options} value={to} onChange={setTo} />

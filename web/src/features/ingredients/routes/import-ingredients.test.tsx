@@ -1,0 +1,101 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { mockApi, signedInAs } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render-app';
+import type { ImportPreview } from '../api/types';
+
+const CSV = new File(['id,name\nbutter,Unsalted butter\n'], 'ingredients.csv', { type: 'text/csv' });
+
+const WITH_PROBLEM: ImportPreview = {
+  format: 'csv',
+  columns: [
+    { header: 'id', aliases: ['code'], field: 'id', required: true, description: 'The ingredient id used in recipes.' },
+    { header: 'contains', aliases: [], field: 'contains', required: false, description: "Allergen sources, or 'none'." },
+  ],
+  rules: ["contains: 'none' means the supplier states there are no allergens (verified none); an empty cell means no allergen statement (unknown)."],
+  problems: [],
+  rows: [
+    { row: 2, ingredient: { id: 'butter', name: 'Unsalted butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true }, action: 'update', problems: [] },
+    { row: 3, ingredient: { id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: true, vegetarian: true }, action: 'create', problems: [] },
+    { row: 4, ingredient: null, action: 'create', problems: ["Column 'contains' names 'nuts', which is not an allergen source. Use e.g. 'almond' or 'hazelnut'."] },
+  ],
+  summary: { create: 2, update: 1, unchanged: 0, withProblems: 1 },
+};
+
+const CLEAN: ImportPreview = {
+  ...WITH_PROBLEM,
+  rows: WITH_PROBLEM.rows.slice(0, 2),
+  summary: { create: 1, update: 1, unchanged: 0, withProblems: 0 },
+};
+
+async function openImport() {
+  const view = renderApp('/ingredients/import');
+  expect(await screen.findByRole('heading', { level: 1, name: 'Import from spreadsheet' })).toBeInTheDocument();
+  return view;
+}
+
+describe('Spreadsheet import', () => {
+  it('shows each row’s action and problem in words and refuses to import while a row has a problem', async () => {
+    const { fetchMock } = mockApi(signedInAs('pastry-chef', { 'POST /api/ingredients/import/preview': { body: WITH_PROBLEM } }));
+    const { user } = await openImport();
+
+    await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+
+    const table = await screen.findByRole('table', { name: 'Rows of the spreadsheet' });
+    const rows = within(table).getAllByRole('row').slice(1);
+    expect(rows).toHaveLength(3);
+    expect(rows[0]).toHaveTextContent('Update');
+    expect(rows[1]).toHaveTextContent('Add new');
+    expect(rows[2]).toHaveTextContent('Not imported');
+    expect(rows[2]).toHaveTextContent("Problem: Column 'contains' names 'nuts', which is not an allergen source.");
+    expect(screen.getByText(/2 new ingredients, 1 update, 0 unchanged, 1 row with problems/)).toBeInTheDocument();
+
+    expect(screen.getByRole('button', { name: 'Import 2 ingredients' })).toBeDisabled();
+    expect(screen.getByText(/The ingredient id used in recipes/)).toBeInTheDocument();
+    expect(screen.getByText(/Correct the rows with problems/)).toBeInTheDocument();
+
+    const sent = fetchMock.mock.calls.find(([url]) => String(url).endsWith('/import/preview'))?.[1]?.body as FormData;
+    expect((sent.get('file') as File).name).toBe('ingredients.csv');
+  });
+
+  it('imports a clean file and says what was saved', async () => {
+    const { calls } = mockApi(
+      signedInAs('pastry-chef', {
+        'POST /api/ingredients/import/preview': { body: CLEAN },
+        'POST /api/ingredients/import': { body: { create: 1, update: 1, unchanged: 0, withProblems: 0 } },
+      }),
+    );
+    const { user } = await openImport();
+
+    await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+    const importButton = await screen.findByRole('button', { name: 'Import 2 ingredients' });
+    expect(importButton).toBeEnabled();
+    await user.click(importButton);
+
+    expect(await screen.findByText('Imported 2 ingredients: 1 added, 1 updated.')).toBeInTheDocument();
+    await waitFor(() => expect(calls.filter((call) => call.path === '/api/ingredients/import')).toHaveLength(1));
+  });
+
+  it('refuses to import when the file as a whole has a problem', async () => {
+    mockApi(
+      signedInAs('pastry-chef', {
+        'POST /api/ingredients/import/preview': { body: { ...CLEAN, problems: ["There is no 'name' column; add one to row 1."] } },
+      }),
+    );
+    const { user } = await openImport();
+    await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+    expect(await screen.findByText("There is no 'name' column; add one to row 1.")).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Import 2 ingredients' })).toBeDisabled();
+  });
+
+  it('asks for a file before checking', async () => {
+    const { calls } = mockApi(signedInAs('pastry-chef'));
+    const { user } = await openImport();
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+    expect(await screen.findByText(/Choose a spreadsheet first/)).toBeInTheDocument();
+    expect(calls.some((call) => call.method === 'POST' && call.path.includes('import'))).toBe(false);
+  });
+});

@@ -1,0 +1,207 @@
+import { Box, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { useRef, useState, type FormEvent } from 'react';
+import { Link as RouterLink } from 'react-router-dom';
+import { ErrorAlert } from '@/components/ui/error-alert';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { Page } from '@/components/ui/page';
+import { isApiError } from '@/lib/api-client';
+import { useImportIngredients } from '../api/import-ingredients';
+import { usePreviewImport } from '../api/preview-import';
+import type { ImportPreview, ImportResult, ImportSummary } from '../api/types';
+import { ImportPreviewTable } from '../components/import-preview-table';
+
+const ACCEPT = '.csv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+
+function plural(count: number, one: string, many: string): string {
+  return `${count} ${count === 1 ? one : many}`;
+}
+
+function describeSummary(summary: ImportSummary): string {
+  return [
+    `${plural(summary.create, 'new ingredient', 'new ingredients')}`,
+    `${plural(summary.update, 'update', 'updates')}`,
+    `${summary.unchanged} unchanged`,
+    `${plural(summary.withProblems, 'row', 'rows')} with problems`,
+  ].join(', ');
+}
+
+function errorText(error: unknown, fallback: string): string[] {
+  if (!isApiError(error)) return [fallback];
+  if (error.status === 413) return ['The file is too large to import. Split it into smaller files and import each.'];
+  return [error.message, ...error.fields.map((field) => `${field.path}: ${field.message}`)];
+}
+
+function ImportHelp({ columns, rules }: { columns: ImportPreview['columns']; rules: string[] }) {
+  if (columns.length === 0 && rules.length === 0) return null;
+  return (
+    <Box as="details" borderWidth="1px" borderColor="border.muted" rounded="md" p="3" bg="bg.panel">
+      <Box as="summary" fontWeight="bold" cursor="pointer">
+        How the spreadsheet is read
+      </Box>
+      <Stack gap="3" mt="3" textStyle="sm">
+        {rules.length > 0 ? (
+          <Box as="ul" ps="5" m="0">
+            {rules.map((rule, index) => (
+              <li key={index}>{rule}</li>
+            ))}
+          </Box>
+        ) : null}
+        {columns.length > 0 ? (
+          <Box>
+            <Text fontWeight="bold">Columns</Text>
+            <Box as="ul" ps="5" m="0">
+              {columns.map((column) =>
+                typeof column === 'string' ? (
+                  <li key={column}>{column}</li>
+                ) : (
+                  <li key={column.header}>
+                    <Text as="span" fontWeight="bold">
+                      {column.header}
+                    </Text>
+                    {column.required ? ' (required)' : ''}
+                    {column.description ? `: ${column.description}` : ''}
+                  </li>
+                ),
+              )}
+            </Box>
+          </Box>
+        ) : null}
+      </Stack>
+    </Box>
+  );
+}
+
+export function ImportIngredientsRoute() {
+  const fileRef = useRef<HTMLInputElement>(null);
+  const [file, setFile] = useState<File | null>(null);
+  const [fileError, setFileError] = useState<string | undefined>();
+  const [preview, setPreview] = useState<ImportPreview | null>(null);
+  const [imported, setImported] = useState<ImportResult | null>(null);
+  const previewImport = usePreviewImport();
+  const importIngredients = useImportIngredients();
+
+  function handleCheck(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    setImported(null);
+    importIngredients.reset();
+    const chosen = fileRef.current?.files?.[0];
+    if (!chosen) {
+      setFileError('Choose a spreadsheet first: a CSV file, or an Excel workbook (.xlsx).');
+      return;
+    }
+    setFileError(undefined);
+    setFile(chosen);
+    setPreview(null);
+    previewImport.mutate(chosen, { onSuccess: setPreview });
+  }
+
+  function handleImport() {
+    if (!file) return;
+    importIngredients.mutate(file, {
+      onSuccess: (summary) => {
+        setImported(summary);
+        setPreview(null);
+        setFile(null);
+        if (fileRef.current) fileRef.current.value = '';
+      },
+    });
+  }
+
+  // Rows that would change something; a row with problems is never imported.
+  const count = preview ? preview.rows.filter((row) => row.problems.length === 0 && row.action !== 'unchanged').length : 0;
+  const fileProblems = preview?.problems ?? [];
+  const blocked = preview
+    ? fileProblems.length > 0 || preview.summary.withProblems > 0 || preview.rows.some((row) => row.problems.length > 0)
+    : true;
+
+  return (
+    <Page
+      title="Import from spreadsheet"
+      lead="Add or update many ingredients at once. Crumbproof checks every row first; nothing is saved until you import, and nothing at all if any row has a problem."
+      actions={
+        <Link asChild color="accent.fg">
+          <RouterLink to="/ingredients">← All ingredients</RouterLink>
+        </Link>
+      }
+    >
+      <Box maxW="2xl">
+        <form aria-label="Choose a spreadsheet" noValidate onSubmit={handleCheck}>
+        <Stack gap="3">
+          <FormField label="Spreadsheet (CSV or XLSX)" hint="One ingredient per row, with a header row naming the columns." error={fileError}>
+            <TextInput
+              ref={fileRef}
+              type="file"
+              accept={ACCEPT}
+              p="1.5"
+              onChange={() => {
+                setPreview(null);
+                setImported(null);
+              }}
+            />
+          </FormField>
+          <Button type="submit" size="lg" alignSelf="flex-start" variant="outline" loading={previewImport.isPending} loadingText="Checking…">
+            Check the file
+          </Button>
+        </Stack>
+        </form>
+      </Box>
+
+      {previewImport.isError ? (
+        <ErrorAlert title="The file could not be checked">
+          {errorText(previewImport.error, 'Try again in a moment.').map((line, index) => (
+            <Text key={index}>{line}</Text>
+          ))}
+        </ErrorAlert>
+      ) : null}
+
+      {imported ? (
+        <Box role="status" borderStartWidth="4px" borderColor="accent.solid" bg="accent.subtle" p="4" rounded="md">
+          <Text fontWeight="bold">
+            Imported {plural(imported.create + imported.update, 'ingredient', 'ingredients')}: {imported.create} added, {imported.update} updated
+            {imported.unchanged > 0 ? `, ${imported.unchanged} unchanged` : ''}.
+          </Text>
+          <Link asChild color="accent.fg">
+            <RouterLink to="/ingredients">See them in the ingredient library</RouterLink>
+          </Link>
+        </Box>
+      ) : null}
+
+      {preview ? (
+        <Stack gap="4">
+          <Text role="status" fontWeight="bold">
+            {file?.name ? `${file.name}: ` : ''}
+            {describeSummary(preview.summary)}.
+          </Text>
+          {fileProblems.length > 0 ? (
+            <ErrorAlert title="The file as a whole has problems">
+              {fileProblems.map((line, index) => (
+                <Text key={index}>{line}</Text>
+              ))}
+            </ErrorAlert>
+          ) : null}
+          {preview.rows.length > 0 ? <ImportPreviewTable preview={preview} /> : null}
+          <ImportHelp columns={preview.columns} rules={preview.rules ?? []} />
+          {importIngredients.isError ? (
+            <ErrorAlert title="Nothing was imported">
+              {errorText(importIngredients.error, 'Try again in a moment.').map((line, index) => (
+                <Text key={index}>{line}</Text>
+              ))}
+            </ErrorAlert>
+          ) : null}
+          <HStack gap="4" flexWrap="wrap">
+            <Button size="lg" disabled={blocked || count === 0} loading={importIngredients.isPending} loadingText="Importing…" onClick={handleImport}>
+              Import {plural(count, 'ingredient', 'ingredients')}
+            </Button>
+            <Text color="fg.muted">
+              {blocked
+                ? 'Correct the rows with problems in the spreadsheet, then check the file again.'
+                : count === 0
+                  ? 'Every row matches what is already saved: there is nothing to import.'
+                  : null}
+            </Text>
+          </HStack>
+        </Stack>
+      ) : null}
+    </Page>
+  );
+}

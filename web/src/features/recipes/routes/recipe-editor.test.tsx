@@ -1,0 +1,204 @@
+import type { BookRecipe } from '@crumbproof/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { mockApi, signedInAs, type ApiHandlers } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render-app';
+import { declarationFor, INGREDIENTS, RECIPES } from '../testing/fixtures';
+
+function editorApi(extra: ApiHandlers = {}) {
+  return mockApi(
+    signedInAs('pastry-chef', {
+      'GET /api/recipes': { body: RECIPES },
+      'GET /api/ingredients': { body: INGREDIENTS },
+      'GET /api/recipes/victoria-sponge': { body: RECIPES[0] },
+      'POST /api/declarations/preview': { body: declarationFor() },
+      ...extra,
+    }),
+  );
+}
+
+const unweighable = {
+  status: 400,
+  body: {
+    statusCode: 400,
+    code: 'unweighable-line',
+    message:
+      "Line 2 of Victoria sponge uses 'jam' in 'each', but Raspberry jam has no weight per unit. Add the weight of one raspberry jam, or write the line in grams.",
+    fields: [
+      {
+        path: 'recipes.victoria-sponge.lines.2',
+        message:
+          "Line 2 of Victoria sponge uses 'jam' in 'each', but Raspberry jam has no weight per unit. Add the weight of one raspberry jam, or write the line in grams.",
+      },
+    ],
+  },
+};
+
+describe('Recipe editor', () => {
+  it('loads the recipe into the form with its lines, and the live declaration beside it', async () => {
+    const { calls } = editorApi();
+    renderApp('/recipes/victoria-sponge/edit');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Edit Victoria sponge' })).toBeInTheDocument();
+    expect(screen.getByLabelText('Recipe name')).toHaveValue('Victoria sponge');
+    await waitFor(() => expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 1' })).toHaveValue('Vanilla sponge'));
+    expect(screen.getByRole('spinbutton', { name: 'Quantity for line 1' })).toHaveValue(800);
+    expect(screen.getByRole('combobox', { name: 'Unit for line 1' })).toHaveValue('g');
+    expect(screen.getByRole('combobox', { name: 'Role for line 3' })).toHaveValue('contact');
+    expect(screen.getByLabelText('Weight after baking (g)')).toHaveValue(900);
+    expect(screen.getByLabelText('For sale')).toBeChecked();
+    expect(screen.getByLabelText('Portion (g)')).toHaveValue(90);
+
+    const live = screen.getByRole('region', { name: 'Live declaration' });
+    expect(await within(live).findByText('Vegan: Fails')).toBeInTheDocument();
+    const preview = calls.find((call) => call.path === '/api/declarations/preview');
+    expect(preview?.body).toEqual({
+      id: 'victoria-sponge',
+      name: 'Victoria sponge',
+      lines: RECIPES[0]!.lines,
+      finishedWeightG: 900,
+      sale: { portionG: 90, claims: ['vegetarian'], quid: ['jam'] },
+    });
+  });
+
+  it('adds a line picked by typing, previews it and saves it, then opens the product page at the new revision', async () => {
+    let saved: BookRecipe | null = null;
+    const { calls } = editorApi({
+      'PUT /api/recipes/victoria-sponge': ({ body }) => {
+        saved = body as BookRecipe;
+        return { body: { ...(body as BookRecipe), revision: 5, updatedAt: '2026-12-01T19:00:00.000Z' } };
+      },
+      'GET /api/recipes/victoria-sponge/declaration': { body: declarationFor() },
+      'GET /api/recipes/victoria-sponge/revisions': { body: [] },
+    });
+    const { user, router } = renderApp('/recipes/victoria-sponge/edit');
+
+    await screen.findByRole('heading', { level: 1, name: 'Edit Victoria sponge' });
+    await user.click(screen.getByRole('button', { name: 'Add line' }));
+    const picker = screen.getByRole('combobox', { name: 'Ingredient or recipe for line 4' });
+    await user.type(picker, 'plant');
+    await user.click(await screen.findByRole('option', { name: /Plant spread/ }));
+    expect(picker).toHaveValue('Plant spread');
+    await user.type(screen.getByRole('spinbutton', { name: 'Quantity for line 4' }), '50');
+
+    // The preview follows the form once typing pauses.
+    await waitFor(() =>
+      expect(
+        calls.some(
+          (call) =>
+            call.path === '/api/declarations/preview' &&
+            (call.body as BookRecipe).lines.some((line) => line.use === 'plant-spread' && line.qty === 50),
+        ),
+      ).toBe(true),
+    );
+    expect(within(screen.getByRole('region', { name: 'Live declaration' })).getByText('Not saved yet')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/recipes/victoria-sponge'));
+    expect(saved!.lines.at(-1)).toEqual({ use: 'plant-spread', qty: 50, unit: 'g' });
+    expect(await screen.findByText('Saved. This is revision 5.')).toBeInTheDocument();
+  });
+
+  it('shows a line the API cannot weigh in place on that line, and in an alert', async () => {
+    editorApi({ 'POST /api/declarations/preview': unweighable });
+    renderApp('/recipes/victoria-sponge/edit');
+
+    const line2 = await screen.findByRole('combobox', { name: 'Ingredient or recipe for line 2' });
+    await waitFor(() => expect(line2).toHaveAttribute('aria-invalid', 'true'));
+    expect(line2).toHaveAccessibleDescription(expect.stringContaining('Raspberry jam has no weight per unit'));
+    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 1' })).not.toHaveAttribute('aria-invalid');
+    const live = screen.getByRole('region', { name: 'Live declaration' });
+    expect(within(live).getByRole('alert')).toHaveTextContent("Line 2 of Victoria sponge uses 'jam' in 'each'");
+  });
+
+  it('marks the line that closes a recipe cycle', async () => {
+    const message = 'Vanilla sponge contains itself: Vanilla sponge → Victoria sponge → Vanilla sponge. Remove one of these lines.';
+    editorApi({
+      'POST /api/declarations/preview': {
+        status: 400,
+        body: { statusCode: 400, code: 'recipe-cycle', message, fields: [{ path: 'recipes.vanilla-sponge', message }] },
+      },
+    });
+    renderApp('/recipes/victoria-sponge/edit');
+
+    const line1 = await screen.findByRole('combobox', { name: 'Ingredient or recipe for line 1' });
+    await waitFor(() => expect(line1).toHaveAttribute('aria-invalid', 'true'));
+    expect(line1).toHaveAccessibleDescription(expect.stringContaining('contains itself'));
+    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 2' })).not.toHaveAttribute('aria-invalid');
+    expect(within(screen.getByRole('region', { name: 'Live declaration' })).getByRole('alert')).toHaveTextContent(message);
+  });
+
+  it('keeps the form and says nothing was saved when the API refuses the save', async () => {
+    const { calls } = editorApi({ 'PUT /api/recipes/victoria-sponge': unweighable });
+    const { user, router } = renderApp('/recipes/victoria-sponge/edit');
+
+    await screen.findByRole('heading', { level: 1, name: 'Edit Victoria sponge' });
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+    const alert = await screen.findByText(/^Nothing was saved\./);
+    expect(alert).toHaveTextContent('Raspberry jam has no weight per unit');
+    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 2' })).toHaveAttribute('aria-invalid', 'true');
+    expect(router.state.location.pathname).toBe('/recipes/victoria-sponge/edit');
+    expect(calls.filter((call) => call.method === 'PUT')).toHaveLength(1);
+  });
+
+  it('warns before saving when a claim the sale details want does not hold', async () => {
+    editorApi();
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+
+    const vegan = await screen.findByRole('checkbox', { name: 'Vegan' });
+    await user.click(vegan);
+    const live = screen.getByRole('region', { name: 'Live declaration' });
+    const notice = await within(live).findByText(/^Vegan is wanted but fails/);
+    expect(notice).toHaveTextContent('Vegan is wanted but fails: Butter (Vanilla sponge → Butter) contains milk.');
+    // Vegetarian is wanted too, and holds: no notice for it.
+    expect(within(live).queryByText(/^Vegetarian is wanted/)).not.toBeInTheDocument();
+  });
+
+  it('checks the form with the book schema before sending', async () => {
+    const { calls } = editorApi();
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+
+    const name = await screen.findByLabelText('Recipe name');
+    await user.clear(name);
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+    expect(await screen.findByText('Give the recipe a name.')).toBeInTheDocument();
+    expect(calls.some((call) => call.method === 'PUT')).toBe(false);
+  });
+
+  it('creates a new recipe with its own id', async () => {
+    const { calls } = editorApi({
+      'POST /api/recipes': ({ body }) => ({ status: 201, body: { ...(body as BookRecipe), revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' } }),
+      'GET /api/recipes/lemon-curd': { body: { id: 'lemon-curd', name: 'Lemon curd', lines: [{ use: 'butter', qty: 100, unit: 'g' }], revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' } },
+      'GET /api/recipes/lemon-curd/declaration': { body: declarationFor({ product: 'lemon-curd', name: 'Lemon curd' }) },
+      'GET /api/recipes/lemon-curd/revisions': { body: [] },
+    });
+    const { user, router } = renderApp('/recipes/new');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'New recipe' })).toBeInTheDocument();
+    await user.type(screen.getByLabelText('Recipe name'), 'Lemon curd');
+    await user.type(screen.getByLabelText('Recipe id'), 'lemon-curd');
+    const picker = screen.getByRole('combobox', { name: 'Ingredient or recipe for line 1' });
+    await user.type(picker, 'butt');
+    await user.keyboard('{ArrowDown}{Enter}');
+    expect(picker).toHaveValue('Butter');
+    await user.type(screen.getByRole('spinbutton', { name: 'Quantity for line 1' }), '100');
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/recipes/lemon-curd'));
+    expect(calls.find((call) => call.method === 'POST' && call.path === '/api/recipes')?.body).toEqual({
+      id: 'lemon-curd',
+      name: 'Lemon curd',
+      lines: [{ use: 'butter', qty: 100, unit: 'g' }],
+    });
+  });
+
+  it('refuses front of house, naming who can edit', async () => {
+    const { calls } = mockApi(signedInAs('front-of-house', { 'GET /api/recipes/victoria-sponge': { body: RECIPES[0] } }));
+    renderApp('/recipes/victoria-sponge/edit');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Not available to your role' })).toBeInTheDocument();
+    expect(screen.getByText(/Only Manager and Pastry chef accounts can edit recipes\./)).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Save recipe' })).not.toBeInTheDocument();
+    expect(calls.some((call) => call.path === '/api/ingredients')).toBe(false);
+  });
+});

@@ -1,0 +1,90 @@
+import { CLAIMS, diffDeclarations, type Claim, type ClaimResult, type Declaration } from '@crumbproof/shared';
+import type { IngredientView, RecipeView, SwapPreview } from '../api/types';
+
+export const RECIPES: RecipeView[] = [
+  {
+    id: 'shortbread',
+    name: 'Shortbread',
+    lines: [
+      { use: 'flour', qty: 300, unit: 'g' },
+      { use: 'butter', qty: 200, unit: 'g' },
+    ],
+    sale: { portionG: 40, claims: ['vegan'] },
+    revision: 3,
+    updatedAt: '2026-11-28T10:00:00.000Z',
+  },
+  {
+    id: 'scone',
+    name: 'Scone',
+    lines: [{ use: 'flour', qty: 300, unit: 'g' }],
+    sale: { portionG: 80 },
+    revision: 1,
+    updatedAt: '2026-11-28T10:00:00.000Z',
+  },
+];
+
+export const INGREDIENTS: IngredientView[] = [
+  { id: 'flour', name: 'Plain wheat flour', contains: ['wheat'], mayContain: [], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
+  { id: 'butter', name: 'Butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
+  { id: 'plant-spread', name: 'Plant spread', contains: [], mayContain: ['milk'], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
+];
+
+function claims(overrides: Partial<Record<Claim, ClaimResult>>): Record<Claim, ClaimResult> {
+  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<Claim, ClaimResult>;
+}
+
+function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
+  const fat = leaf === 'butter' ? 'Butter' : 'Plant spread';
+  return {
+    product: 'shortbread',
+    name: 'Shortbread',
+    regime: 'UK',
+    finishedWeightG: 460,
+    mixWeightG: 500,
+    portionG: 40,
+    contains: [
+      { allergen: 'gluten', label: 'cereals containing gluten', sources: ['wheat'], via: [['shortbread', 'flour']] },
+      ...(leaf === 'butter' ? [{ allergen: 'milk', label: 'milk', sources: ['milk' as const], via: [['shortbread', 'butter']] }] : []),
+    ],
+    mayContain: leaf === 'butter' ? [] : [{ allergen: 'milk', label: 'milk', why: ['Supplier of Plant spread: may contain milk'] }],
+    unknown: [],
+    exempt: [],
+    claims: claims(
+      leaf === 'butter'
+        ? {
+            vegan: { status: 'fails', reasons: [{ leaf: 'butter', path: ['shortbread', 'butter'], message: 'Butter contains milk.' }] },
+            'dairy-free': { status: 'fails', reasons: [{ leaf: 'butter', path: ['shortbread', 'butter'], message: 'Butter contains milk.' }] },
+            'gluten-free': { status: 'fails', reasons: [{ leaf: 'flour', path: ['shortbread', 'flour'], message: 'Plain wheat flour contains wheat.' }] },
+          }
+        : {
+            'dairy-free': {
+              status: 'fails',
+              reasons: [{ leaf: 'plant-spread', path: ['shortbread', 'plant-spread'], message: 'May contain milk: Supplier of Plant spread says it may contain milk.' }],
+            },
+            'gluten-free': { status: 'fails', reasons: [{ leaf: 'flour', path: ['shortbread', 'flour'], message: 'Plain wheat flour contains wheat.' }] },
+          },
+    ),
+    ingredients: [
+      { id: 'flour', name: 'Plain wheat flour', kind: 'ingredient', percent: 60, orderWeightG: 300, allergens: ['gluten'], role: 'ingredient', children: [] },
+      { id: leaf, name: fat, kind: 'ingredient', percent: 40, orderWeightG: 200, allergens: leaf === 'butter' ? ['milk'] : [], role: 'ingredient', children: [] },
+    ],
+    ingredientsText: `Wheat flour, ${fat.toLowerCase()}.`,
+    ingredientsSegments: [{ text: `Wheat flour, ${fat.toLowerCase()}.`, emphasis: false }],
+    ingredientsMarkdown: `Wheat flour, ${fat.toLowerCase()}.`,
+    mayContainText: leaf === 'butter' ? null : 'May contain: milk.',
+    quid: [],
+    sulphites: { mgPerKg: 0, declared: false },
+    warnings: [],
+    errors: [],
+  };
+}
+
+const before = shortbread('butter');
+const after = shortbread('plant-spread');
+
+export const PREVIEW: SwapPreview = {
+  from: { id: 'butter', name: 'Butter' },
+  to: { id: 'plant-spread', name: 'Plant spread' },
+  recipes: [{ id: 'shortbread', name: 'Shortbread', lines: 1 }],
+  products: [{ product: 'shortbread', name: 'Shortbread', before, after, diff: diffDeclarations(before, after) }],
+};
