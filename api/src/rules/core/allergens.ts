@@ -141,7 +141,7 @@ export function precautionWho(facts: LeafFacts, use: SourceUse): string {
   return use.origin === 'composition' ? `Composition of ${facts.ingredient.name}` : `Supplier of ${facts.ingredient.name}`;
 }
 
-const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+export const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /**
  * Supplier precautionary statements and the kitchen's shared handling, as the regime's groups.

@@ -10,7 +10,7 @@ import {
   type DeclaredClaims,
   type Site,
 } from '@crumbproof/shared';
-import { exemptionOf, precautionWho, type LeafFacts } from './allergens';
+import { capitalise, exemptionOf, precautionWho, type LeafFacts } from './allergens';
 import { compare, round } from './compare';
 import type { DietClaim } from './composition-scan';
 import type { FreeFromClaim, RegimeRules } from './reference-schema';
@@ -65,7 +65,7 @@ function sharedHandling(site: Site, sources: readonly AllergenSource[]): Found[]
     .filter((h) => sources.includes(h.allergen) && h.controls !== 'segregated')
     .map((h) => ({
       status: 'fails' as const,
-      reason: { leaf: null, path: [], message: `${SOURCE_LABELS[h.allergen]} is handled in this kitchen (${CONTROL_LABELS[h.controls]}).` },
+      reason: { leaf: null, path: [], message: `${capitalise(SOURCE_LABELS[h.allergen])} is handled in this kitchen (${CONTROL_LABELS[h.controls]}).` },
     }));
 }
 

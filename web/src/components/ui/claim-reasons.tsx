@@ -1,6 +1,6 @@
-import { Box, Link, Text } from '@chakra-ui/react';
+import { Box, Button, Link, Text } from '@chakra-ui/react';
 import type { ClaimReason } from '@crumbproof/shared';
-import { Fragment } from 'react';
+import { Fragment, useState } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { layerSteps, useCanOpenPath, type ItemLookup } from './layer-path';
 
@@ -37,12 +37,18 @@ interface ClaimReasonListProps {
   lookup: ItemLookup;
 }
 
+/** Reasons shown before "Show N more reasons". */
+const FIRST_REASONS = 3;
+
 /** Every leaf (or the kitchen's own handling) that stops a claim, with where it sits in the product. */
 export function ClaimReasonList({ reasons, lookup }: ClaimReasonListProps) {
+  const [all, setAll] = useState(false);
   if (reasons.length === 0) return null;
+  const shown = all ? reasons : reasons.slice(0, FIRST_REASONS);
+  const hidden = reasons.length - shown.length;
   return (
     <Box as="ul" ps="5" m="0" display="flex" flexDirection="column" gap="1">
-      {reasons.map((reason, index) => (
+      {shown.map((reason, index) => (
         <Box as="li" key={`${reason.leaf ?? 'kitchen'}-${index}`}>
           <Text as="span">{reason.message}</Text>
           {reason.path.length > 1 ? (
@@ -59,6 +65,13 @@ export function ClaimReasonList({ reasons, lookup }: ClaimReasonListProps) {
           ) : null}
         </Box>
       ))}
+      {hidden > 0 ? (
+        <Box as="li" listStyleType="none">
+          <Button variant="plain" size="sm" px="0" color="accent.fg" textDecoration="underline" onClick={() => setAll(true)}>
+            Show {hidden} more reason{hidden === 1 ? '' : 's'}
+          </Button>
+        </Box>
+      ) : null}
     </Box>
   );
 }

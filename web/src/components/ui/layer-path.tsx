@@ -114,7 +114,8 @@ export function LayerPath(props: LayerPathProps) {
               textDecoration="none"
               borderWidth="1.5px"
               borderColor="accent.solid"
-              borderStyle={leaf ? 'dashed' : 'solid'}
+              borderStyle="solid"
+              borderBottomWidth={leaf ? '3px' : '1.5px'}
               bg={leaf ? 'bg.panel' : index === 0 ? 'accent.solid' : 'accent.emphasized'}
               color={leaf ? 'accent.fg' : index === 0 ? 'accent.contrast' : 'fg'}
               fontWeight={leaf ? 'bold' : 'normal'}

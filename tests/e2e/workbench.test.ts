@@ -1,0 +1,170 @@
+import AxeBuilder from '@axe-core/playwright';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
+
+const FIXTURES = join(new URL('../fixtures', import.meta.url).pathname);
+
+/** Types into a line's picker and chooses the suggestion with that exact name. */
+async function pick(page: Page, label: string, name: string) {
+  const box = page.getByLabel(label, { exact: true });
+  await box.click();
+  await box.fill(name);
+  await page.getByRole('option', { name: new RegExp(`^${name.replace(/[()]/g, '\\$&')}`) }).first().click();
+}
+
+async function axeViolations(page: Page) {
+  const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
+  return result.violations.map((v) => `${v.id}: ${v.help} (${v.nodes.length})`);
+}
+
+describe('the pastry chef’s workbench, in Chromium', () => {
+  let s: Session;
+  beforeAll(async () => {
+    s = await openBrowser();
+    await signIn(s.page, 'chef@example.com');
+  });
+  afterAll(() => s.close());
+
+  it('adds an ingredient with its allergen statement and attaches a specification PDF', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/ingredients/new`);
+    await page.getByRole('heading', { name: 'New ingredient', level: 1 }).waitFor();
+    await page.getByLabel('Name', { exact: true }).fill('Oat cream alternative');
+    await page.getByLabel('Ingredient id').fill('oat-cream');
+    await page.getByLabel('Supplier', { exact: true }).fill('Fernhollow Oat Co.');
+    await page.getByLabel('Supplier states these allergens').check();
+    await page.getByRole('group', { name: 'Contains' }).getByLabel('oats', { exact: true }).check();
+    await page.getByRole('group', { name: 'Vegan' }).getByLabel('Yes').check();
+    await page.getByRole('group', { name: 'Vegetarian' }).getByLabel('Yes').check();
+    await page.getByLabel('Weight per millilitre (g)').fill('1.01');
+    await page.getByLabel("Composition (supplier's ingredients text)").fill('Water, oats (10%), rapeseed oil, acidity regulator: potassium phosphates, salt');
+    await page.getByRole('region', { name: 'Found in the composition' }).getByText('oats', { exact: false }).first().waitFor();
+    await screenshot(page, 'ingredient-new-1280');
+    await page.getByRole('button', { name: 'Save ingredient' }).click();
+    await page.waitForURL(/\/ingredients\/oat-cream$/);
+    await page.getByRole('heading', { name: 'Oat cream alternative', level: 1 }).waitFor();
+
+    await page.getByLabel('Specification file').setInputFiles(join(FIXTURES, 'oat-cream-spec.pdf'));
+    await page.getByLabel('Review by').fill('2027-06-30');
+    await page.getByRole('button', { name: 'Upload specification' }).click();
+    const versions = page.getByRole('list', { name: 'Specification versions, newest first' });
+    await versions.getByText(/oat-cream-spec\.pdf/).waitFor();
+    await page.getByRole('link', { name: 'Open the current specification' }).waitFor();
+    await screenshot(page, 'ingredient-with-specification-1280');
+  });
+
+  it('builds a sub-recipe and a product, and the live declaration follows each line before saving', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/recipes/new`);
+    await page.getByRole('heading', { name: 'New recipe', level: 1 }).waitFor();
+    await page.getByLabel('Recipe name').fill('Vanilla cream filling');
+    await page.getByLabel('Recipe id').fill('vanilla-cream-filling');
+    await pick(page, 'Ingredient or recipe for line 1', 'Double cream');
+    await page.getByLabel('Quantity for line 1').fill('200');
+    await page.getByLabel('Unit for line 1').selectOption('ml');
+    await page.getByRole('button', { name: 'Add line' }).click();
+    await pick(page, 'Ingredient or recipe for line 2', 'Caster sugar');
+    await page.getByLabel('Quantity for line 2').fill('30');
+    const live = page.getByRole('region', { name: 'Live declaration' });
+    await live.getByText(/Contains\s*milk/).waitFor();
+    await page.getByRole('button', { name: 'Save recipe' }).click();
+    await page.waitForURL(/\/recipes\/vanilla-cream-filling$/);
+
+    await page.goto(`${BASE_URL}/recipes/new`);
+    await page.getByLabel('Recipe name').fill('Vanilla cream cup');
+    await page.getByLabel('Recipe id').fill('vanilla-cream-cup');
+    await pick(page, 'Ingredient or recipe for line 1', 'Vanilla cream filling');
+    await page.getByLabel('Quantity for line 1').fill('200');
+    await page.getByRole('button', { name: 'Add line' }).click();
+    await pick(page, 'Ingredient or recipe for line 2', 'Strawberries');
+    await page.getByLabel('Quantity for line 2').fill('100');
+    await page.getByLabel('For sale').check();
+    await page.getByLabel('Portion (g)').fill('150');
+    await page.getByRole('checkbox', { name: 'Vegan', exact: true }).check();
+    await live.getByText(/Contains\s*milk/).waitFor();
+    // A wanted claim that the recipe breaks is shown before saving.
+    await page.getByText(/Vegan is wanted but fails/).first().waitFor();
+    await screenshot(page, 'recipe-editor-1280');
+    await page.getByRole('button', { name: 'Save recipe' }).click();
+    await page.waitForURL(/\/recipes\/vanilla-cream-cup$/);
+    await page.getByText('Vegan: Fails').waitFor();
+    const contains = page.getByRole('region', { name: 'Contains' });
+    await contains.getByRole('link', { name: 'Double cream' }).first().waitFor();
+    expect(await axeViolations(page)).toEqual([]);
+    await screenshot(page, 'product-page-1280');
+  });
+
+  it('runs a swap check that turns the product vegan, applies it and sees the new revision', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/recipes/swap`);
+    await page.getByRole('heading', { name: 'Swap check', level: 1 }).waitFor();
+    await pick(page, 'Replace', 'Double cream');
+    await pick(page, 'With', 'Oat cream alternative');
+    await page.getByRole('button', { name: 'Check the swap' }).click();
+    const result = page.getByRole('region', { name: 'Swap result' });
+    await result.getByRole('heading', { name: 'Vanilla cream cup' }).waitFor();
+    await result.getByText('Vegan: Fails → Holds').waitFor();
+    await result.getByText(/Dairy-free: Fails → /).waitFor();
+    await screenshot(page, 'swap-check-1280');
+    // Nothing is saved by the check.
+    await page.goto(`${BASE_URL}/recipes/vanilla-cream-cup`);
+    await page.getByText('Vegan: Fails').waitFor();
+
+    await page.goto(`${BASE_URL}/recipes/swap`);
+    await pick(page, 'Replace', 'Double cream');
+    await pick(page, 'With', 'Oat cream alternative');
+    await page.getByRole('button', { name: 'Check the swap' }).click();
+    await page.getByRole('region', { name: 'Swap result' }).getByRole('heading', { name: 'Vanilla cream cup' }).waitFor();
+    await page.getByRole('button', { name: 'Apply swap' }).click();
+    await page.getByRole('button', { name: 'Yes, apply to 1 recipe' }).click();
+    await page.getByText(/Vanilla cream filling.*: revision 2/).first().waitFor();
+
+    await page.goto(`${BASE_URL}/recipes/vanilla-cream-cup`);
+    await page.getByText('Vegan: Holds').waitFor();
+    await page.goto(`${BASE_URL}/recipes/vanilla-cream-filling`);
+    const history = page.getByRole('region', { name: 'Revision history' });
+    await history.getByText(/Revision 2/).waitFor();
+    await history.getByText(/Swapped Double cream for Oat cream alternative/).waitFor();
+    await screenshot(page, 'revision-history-1280');
+  });
+
+  it('reads well at tablet width', async () => {
+    await s.page.setViewportSize({ width: 768, height: 1024 });
+    for (const [path, name] of [
+      ['/recipes/vanilla-cream-cup', 'product-page-768'],
+      ['/recipes/vanilla-cream-cup/edit', 'recipe-editor-768'],
+      ['/ingredients', 'ingredients-768'],
+      ['/recipes/swap', 'swap-check-768'],
+    ] as const) {
+      await s.page.goto(`${BASE_URL}${path}`);
+      await s.page.getByRole('heading', { level: 1 }).waitFor();
+      await s.page.waitForLoadState('networkidle');
+      const overflow = await s.page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+      expect(overflow, `${path} scrolls sideways at 768 px`).toBeLessThanOrEqual(0);
+      await screenshot(s.page, name);
+    }
+    await s.page.setViewportSize({ width: 1280, height: 900 });
+  });
+});
+
+describe('front of house', () => {
+  let s: Session;
+  beforeAll(async () => {
+    s = await openBrowser();
+    await signIn(s.page, 'counter@example.com');
+  });
+  afterAll(() => s.close());
+
+  it('reads a product’s declaration but cannot reach the editors', async () => {
+    await s.page.goto(`${BASE_URL}/recipes/vegan-brownie`);
+    await s.page.getByText('Vegan: Holds').waitFor();
+    expect(await s.page.getByRole('link', { name: 'Edit recipe' }).count()).toBe(0);
+    for (const path of ['/recipes/vegan-brownie/edit', '/recipes/new', '/recipes/swap', '/ingredients/new', '/ingredients/butter']) {
+      await s.page.goto(`${BASE_URL}${path}`);
+      await s.page.getByRole('heading', { name: 'Not available to your role' }).waitFor();
+      expect(await s.page.getByRole('button', { name: /Save/ }).count()).toBe(0);
+    }
+  });
+});
