@@ -127,10 +127,12 @@ export interface UsLabel {
 }
 
 export interface NutritionLabel {
-  /** EU and UK declaration (Reg 1169/2011); null for other regimes. */
+  /** EU and UK declaration (Reg 1169/2011), given for every regime so both formats can be read. */
   eu: EuLabel | null;
-  /** US Nutrition Facts per serving; null for other regimes or without a portion size. */
+  /** US Nutrition Facts per serving; null without a portion size. */
   us: UsLabel | null;
+  /** The format the declaring regime prints on its labels; null where Crumbproof has none yet. */
+  printed: 'eu' | 'us' | null;
   /** Why a label is not given, when it is not. */
   note: string | null;
 }

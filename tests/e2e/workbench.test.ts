@@ -160,6 +160,13 @@ describe('front of house', () => {
   it('reads a product’s declaration but cannot reach the editors', async () => {
     await s.page.goto(`${BASE_URL}/recipes/vegan-brownie`);
     await s.page.getByText('Vegan: Holds').waitFor();
+    // The demo product's declaration: allergens with their paths, the caution, nutrition in both formats.
+    await s.page.getByRole('region', { name: 'Contains' }).getByText('cereals containing gluten').waitFor();
+    await s.page.getByRole('region', { name: 'May contain' }).getByText(/Supplier of Plant-based baking spread: may contain milk/).waitFor();
+    await s.page.getByText(/Computed from the recipes and supplier information recorded in Crumbproof/).first().waitFor();
+    await s.page.getByRole('table', { name: 'Nutrition declaration (EU and UK): as this kitchen prints it' }).waitFor();
+    await s.page.getByRole('table', { name: 'Nutrition per serving (70 g), United States' }).waitFor();
+    await screenshot(s.page, 'product-page-counter-1280');
     expect(await s.page.getByRole('link', { name: 'Edit recipe' }).count()).toBe(0);
     for (const path of ['/recipes/vegan-brownie/edit', '/recipes/new', '/recipes/swap', '/ingredients/new', '/ingredients/butter']) {
       await s.page.goto(`${BASE_URL}${path}`);

@@ -10,7 +10,7 @@ import {
   type Regime,
   type SourceEntry,
 } from '@crumbproof/shared';
-import { checkBook, declareProduct, scanComposition } from './core';
+import { checkBook, declareProduct, ENGINE_VERSION, scanComposition } from './core';
 import type { NutrientTable } from './core/nutrition/nutrient-table';
 import type { ReferenceData } from './core/reference-schema';
 import { loadNutrientTable } from './nutrients-data';
@@ -23,8 +23,8 @@ export type { ProductDeclaration };
 export class RulesService {
   readonly refs: ReferenceData = loadReferenceData();
   readonly nutrients: NutrientTable = loadNutrientTable();
-  /** Changes whenever the reference data changes, so cached declarations follow it. */
-  readonly referenceVersion = createHash('sha256').update(JSON.stringify([this.refs, this.nutrients])).digest('hex').slice(0, 16);
+  /** Changes whenever the engine or the reference data changes, so kept declarations follow it. */
+  readonly referenceVersion = createHash('sha256').update(JSON.stringify([ENGINE_VERSION, this.refs, this.nutrients])).digest('hex').slice(0, 16);
 
   check(book: Book): BookProblem[] {
     return checkBook(book);

@@ -17,4 +17,4 @@ export {
   type RegimeRules,
   type RegimesFile,
 } from './reference-schema';
-export { declareProduct, declareProducts } from './product';
+export { declareProduct, declareProducts, ENGINE_VERSION } from './product';

@@ -4,6 +4,12 @@ import { computeNutrition } from './nutrition';
 import { defaultMeasures } from './quantities';
 import type { ReferenceData } from './reference-schema';
 
+/**
+ * Changes whenever the engine's output changes shape or meaning, so that declarations kept in
+ * the database are computed again rather than served stale.
+ */
+export const ENGINE_VERSION = 2;
+
 /** A product's full declaration: allergens, claims and list (declare) with its nutrition. */
 export function declareProduct(book: Book, productId: string, refs: ReferenceData, opts: { regime?: Regime } = {}): ProductDeclaration {
   const regime = opts.regime ?? book.site.regime;

@@ -177,7 +177,7 @@ describe('computeNutrition: worked recipe with baking loss, a sub-recipe and a c
       ['salt', '0.12 g', '0.07 g'],
     ]);
     expect(rows[2].per100g.value).toBeCloseTo(30.5357, 3); // unrounded beside the printed text
-    expect(d.label.us).toBeNull();
+    expect(d.label.printed).toBe('eu');
   });
 
   it('lists the source of each leaf ingredient, not of contact lines', () => {
@@ -208,7 +208,7 @@ describe('computeNutrition: US Nutrition Facts per serving', () => {
   const rows = d.label.us?.rows ?? [];
 
   it('prints amounts and %DV', () => {
-    expect(d.label.eu).toBeNull();
+    expect(d.label.printed).toBe('us');
     expect(d.label.us?.servingG).toBe(60);
     expect(rows.map((r) => [r.key, r.amount.text, r.percentDv?.text ?? null])).toEqual([
       ['calories', '250', null],
@@ -445,15 +445,17 @@ describe('computeNutrition: defensive checks', () => {
     expect(() => computeNutrition(b, 'a', EU)).toThrow(/sweetener/);
   });
 
-  it('gives no label where the format is not supported, but keeps the figures', () => {
+  it('prints no format where the regime has none yet, showing the EU one for reference and keeping the figures', () => {
     const b = book([ing('flour', n)], [{ id: 'a', name: 'A', lines: [{ use: 'flour', qty: 10, unit: 'g' }] }]);
     const d = computeNutrition(b, 'a', { measures: 'metric', regime: 'ANZ' });
-    expect(d.label.eu).toBeNull();
-    expect(d.label.us).toBeNull();
+    expect(d.label.printed).toBeNull();
+    expect(d.label.eu?.rows.length).toBeGreaterThan(0);
+    expect(d.label.us).toBeNull(); // no portion size
     expect(d.label.note).toMatch(/ANZ/);
     expect(d.per100g.fat).toBeCloseTo(1, 9);
     const us = computeNutrition(b, 'a', US);
     expect(us.label.us).toBeNull(); // no portion size
+    expect(us.label.printed).toBeNull();
     expect(us.label.note).toMatch(/portion/);
   });
 });

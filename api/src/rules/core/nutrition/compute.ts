@@ -81,17 +81,18 @@ function labelFor(
   perPortion: NutrientFigures | null,
   portionG: number | null,
 ): NutritionLabel {
+  const eu = euLabel(per100g, perPortion, portionG);
+  const us = perPortion && portionG !== null ? usLabel(perPortion, portionG) : null;
+  const noPortion = us ? null : 'A US Nutrition Facts label is per serving: give the recipe a portion size.';
   switch (regime) {
     case 'EU':
     case 'UK':
-      return { eu: euLabel(per100g, perPortion, portionG), us: null, note: null };
+      return { eu, us, printed: 'eu', note: null };
     case 'US':
-      return perPortion && portionG !== null
-        ? { eu: null, us: usLabel(perPortion, portionG), note: null }
-        : { eu: null, us: null, note: 'A US Nutrition Facts label is per serving: give the recipe a portion size.' };
+      return { eu, us, printed: us ? 'us' : null, note: noPortion };
     case 'CA':
     case 'ANZ':
-      return { eu: null, us: null, note: `No nutrition label format for ${regime} yet; the figures above are unrounded.` };
+      return { eu, us, printed: null, note: `No nutrition label format for ${regime} yet: the EU and US formats are shown for reference.` };
     default: {
       const never: never = regime;
       throw new Error(`Unknown regime ${String(never)}`);

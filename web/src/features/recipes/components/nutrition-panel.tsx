@@ -118,11 +118,11 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
           css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' } }}
         >
           {label.eu ? (
-            <DataTable caption="Nutrition declaration (EU and UK)" columns={euColumns} data={label.eu.rows} getRowId={(row) => row.key} />
+            <DataTable caption={`Nutrition declaration (EU and UK)${label.printed === 'eu' ? ': as this kitchen prints it' : ''}`} columns={euColumns} data={label.eu.rows} getRowId={(row) => row.key} />
           ) : null}
           {label.us ? (
             <DataTable
-              caption={`Nutrition per serving (${label.us.servingG} g), United States`}
+              caption={`Nutrition per serving (${label.us.servingG} g), United States${label.printed === 'us' ? ': as this kitchen prints it' : ''}`}
               columns={usColumns}
               data={label.us.rows}
               getRowId={(row) => row.key}

@@ -107,7 +107,7 @@ describe('Product page: nutrition', () => {
     renderApp('/recipes/victoria-sponge');
 
     const nutrition = await screen.findByRole('region', { name: 'Nutrition' });
-    const eu = within(nutrition).getByRole('table', { name: 'Nutrition declaration (EU and UK)' });
+    const eu = within(nutrition).getByRole('table', { name: 'Nutrition declaration (EU and UK): as this kitchen prints it' });
     expect(within(eu).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Nutrient', 'Per 100 g', 'Per portion (90 g)']);
     const fat = within(eu).getByText('Fat').closest('tr')!;
     expect(within(fat).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Fat', '21 g', '18.9 g']);
@@ -123,7 +123,7 @@ describe('Product page: nutrition', () => {
     renderApp('/recipes/victoria-sponge');
 
     const nutrition = await screen.findByRole('region', { name: 'Nutrition' });
-    const eu = within(nutrition).getByRole('table', { name: 'Nutrition declaration (EU and UK)' });
+    const eu = within(nutrition).getByRole('table', { name: 'Nutrition declaration (EU and UK): as this kitchen prints it' });
     const fibre = within(eu).getByText('Fibre').closest('tr')!;
     expect(within(fibre).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Fibre', 'Incomplete', 'Incomplete']);
     expect(within(nutrition).getByText('Incomplete: Fibre')).toBeInTheDocument();

@@ -77,6 +77,7 @@ export const NUTRITION: NutritionDeclaration = {
         { key: 'dietaryFiber', name: 'Dietary Fiber', indent: true, unit: 'g', amount: { value: null, text: 'incomplete' }, percentDv: { value: null, text: 'incomplete' } },
       ],
     },
+    printed: 'eu',
     note: null,
   },
 };
