@@ -61,7 +61,7 @@ const cakeBook = (): Book =>
         fibre: 3,
         protein: 10,
         salt: 0,
-      }),
+      }, { addsSugars: false }),
       ing(
         'sugar',
         { fat: 0, saturates: 0, transFat: 0, cholesterolMg: 0, carbohydrate: 100, sugars: 100, fibre: 0, protein: 0, salt: 0 },
@@ -90,7 +90,7 @@ const cakeBook = (): Book =>
         protein: 1,
         salt: 0.1,
         energyKj: 9999, // a stated energy is ignored: energy is recomputed from the nutrients
-      }),
+      }, { addsSugars: false }),
       ing('cream', {
         fat: 40,
         saturates: 25,
@@ -101,7 +101,7 @@ const cakeBook = (): Book =>
         fibre: 0,
         protein: 2,
         salt: 0.1,
-      }),
+      }, { addsSugars: false }),
       ing('hazelnuts'), // no nutrition: would make everything incomplete if the contact line counted
     ],
     [
@@ -283,12 +283,12 @@ describe('computeNutrition: missing figures are incomplete, never zero', () => {
     expect(d.label.eu?.rows.find((r) => r.key === 'energyKj')?.per100g.text).toBe('incomplete');
   });
 
-  it('keeps the other figures when one ingredient lacks fibre (and neither gives trans fat or cholesterol)', () => {
+  it('keeps the other figures when one ingredient lacks fibre (neither gives trans fat or cholesterol, nor says whether its sugars are added)', () => {
     const b2 = book(b.ingredients.filter((i) => i.id !== 'sprinkles'), [
       { ...b.recipes[0], lines: b.recipes[0].lines.filter((l) => l.use !== 'sprinkles') },
     ]);
     const d2 = computeNutrition(b2, 'bake', EU);
-    expect(d2.incomplete).toEqual(['energyKj', 'energyKcal', 'transFat', 'cholesterolMg', 'fibre']);
+    expect(d2.incomplete).toEqual(['energyKj', 'energyKcal', 'transFat', 'cholesterolMg', 'addedSugars', 'fibre']);
     // fat: (1 + 10) / 150 g × 100
     expect(d2.per100g.fat).toBeCloseTo((11 / 150) * 100, 9);
     const us = computeNutrition(b2, 'bake', US).label.us?.rows ?? [];
@@ -330,7 +330,7 @@ describe('computeNutrition: energy, salt and added sugars from ingredient figure
       [
         ing('syrup', base, { addsSugars: true }),
         ing('fruit-paste', { ...base, addedSugars: 20 }, { addsSugars: true }),
-        ing('dates', base),
+        ing('dates', base, { addsSugars: false }),
       ],
       [
         {
@@ -345,6 +345,7 @@ describe('computeNutrition: energy, salt and added sugars from ingredient figure
       ],
     );
     // (80 + 20 + 0) g added sugars in 300 g → 33.33 g/100 g; sugars 240/300 → 80 g/100 g.
+    // Dates that say nothing about added sugars would leave the figure incomplete (checked below).
     const d = computeNutrition(b, 'r', EU);
     expect(d.per100g.addedSugars).toBeCloseTo(100 / 3, 9);
     expect(d.per100g.sugars).toBeCloseTo(80, 9);

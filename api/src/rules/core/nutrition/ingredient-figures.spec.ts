@@ -26,7 +26,9 @@ describe('ingredientFigures', () => {
   it.each([
     { what: 'flagged: all sugars', extra: { addsSugars: true }, n: {}, added: 10 },
     { what: 'flagged, stated figure wins', extra: { addsSugars: true }, n: { addedSugars: 4 }, added: 4 },
-    { what: 'not flagged: none', extra: {}, n: {}, added: 0 },
+    { what: 'flagged as adding none', extra: { addsSugars: false }, n: {}, added: 0 },
+    { what: 'not flagged and no sugars: none', extra: {}, n: { sugars: 0 }, added: 0 },
+    { what: 'not flagged, with sugars: unknown, never zero', extra: {}, n: {}, added: null },
     { what: 'flagged but sugars unknown', extra: { addsSugars: true }, n: { sugars: undefined }, added: null },
   ])('added sugars, $what', ({ extra, n, added }) => {
     const f = ingredientFigures({ ...base, ...extra, nutrition: { ...core, ...n } });

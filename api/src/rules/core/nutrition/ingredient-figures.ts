@@ -9,7 +9,9 @@ export type IngredientFigures = Record<NutrientKey, number | null>;
  * - salt = sodium × 2.5 (Reg 1169/2011 Annex I pt 11) when only sodium is given, and
  *   sodium = salt ÷ 2.5 when only salt is given;
  * - added sugars = `nutrition.addedSugars` when given; otherwise all its sugars when the
- *   ingredient is flagged `addsSugars` (unknown if its sugars are unknown); otherwise none;
+ *   ingredient is flagged `addsSugars: true` (unknown if its sugars are unknown), none when it is
+ *   flagged `addsSugars: false` or has no sugars; an ingredient with sugars that says neither is
+ *   unknown, so the US added-sugars figure stays incomplete until the kitchen says;
  * - polyols include erythritol: left out, they are at least the erythritol given;
  * - polyols, erythritol, alcohol, organic acids and salatrims are components a supplier states
  *   when present: an ingredient that has a nutrition statement and leaves one out contains none.
@@ -42,7 +44,13 @@ export function ingredientFigures(ingredient: BookIngredient): IngredientFigures
   const salt = n.salt !== undefined ? n.salt : n.sodium !== undefined ? n.sodium * SALT_PER_SODIUM : null;
   const sodium = n.sodium !== undefined ? n.sodium : n.salt !== undefined ? n.salt / SALT_PER_SODIUM : null;
   const addedSugars =
-    n.addedSugars !== undefined ? n.addedSugars : ingredient.addsSugars === true ? known(n.sugars) : 0;
+    n.addedSugars !== undefined
+      ? n.addedSugars
+      : ingredient.addsSugars === true
+        ? known(n.sugars)
+        : ingredient.addsSugars === false || n.sugars === 0
+          ? 0
+          : null;
   const erythritol = n.erythritol ?? 0;
   const polyols = n.polyols ?? erythritol;
   const salatrims = n.salatrims ?? 0;

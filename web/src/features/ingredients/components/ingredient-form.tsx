@@ -41,7 +41,7 @@ const fromDiet = (value: Diet): boolean | null => (value === 'yes' ? true : valu
 
 /** Paths the form shows a control for: an API message on one of them goes in place. */
 const PLACEABLE = new Set<string>([
-  'id', 'name', 'supplier', 'supplierCode', 'composition', 'vegan', 'vegetarian', 'sulphiteMgPerKg', 'gPerMl', 'gEach',
+  'id', 'name', 'supplier', 'supplierCode', 'composition', 'vegan', 'vegetarian', 'sulphiteMgPerKg', 'gPerMl', 'gEach', 'addsSugars',
   'contains', 'mayContain', 'nutrition.source', ...NUTRITION_FIELDS.map((field) => `nutrition.${field.key}`),
 ]);
 
@@ -147,6 +147,7 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
       setValue(`nutrition.${key}`, row.nutrition[key], { shouldDirty: true, shouldValidate: false });
     }
     setValue('nutrition.source', row.nutrition.source ?? `Reference table: ${row.name}`, { shouldDirty: true });
+    if (row.addsSugars !== undefined) setValue('addsSugars', row.addsSugars, { shouldDirty: true });
     clearErrors('nutrition');
     setFilledFrom(row.name);
   }
@@ -332,6 +333,20 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
               {typeof nutrition?.sodium === 'number' && typeof nutrition?.salt !== 'number' ? ' Salt is worked out from sodium (× 2.5).' : ''}
             </Text>
           ) : null}
+          <Controller
+            control={control}
+            name="addsSugars"
+            render={({ field }) => (
+              <ChoiceGroup
+                legend="Its sugars count as added sugars (US labels)"
+                name="addsSugars"
+                options={DIET_OPTIONS}
+                value={toDiet(field.value)}
+                onChange={(value) => field.onChange(fromDiet(value) ?? undefined)}
+                error={errorAt(errors, 'addsSugars')}
+              />
+            )}
+          />
           <FormField label="Figures from" hint="Where these figures come from: a supplier specification, or a reference table row." error={errorAt(errors, 'nutrition.source')}>
             <TextInput autoComplete="off" {...register('nutrition.source', { setValueAs: parseOptionalText })} />
           </FormField>

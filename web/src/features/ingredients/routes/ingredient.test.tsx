@@ -64,6 +64,20 @@ describe('New ingredient form', () => {
     expect(postedBody(calls)).toMatchObject({ contains: [], vegan: true, vegetarian: false });
   });
 
+  it('says whether its sugars count as added sugars, and leaves it out while not known', async () => {
+    const { calls } = newIngredientApi();
+    const { user } = await openNew();
+
+    await user.type(screen.getByLabelText(/^Name/), 'Rice flour');
+    const added = screen.getByRole('group', { name: 'Its sugars count as added sugars (US labels)' });
+    expect(within(added).getByRole('radio', { name: 'Not known' })).toBeChecked();
+    await user.click(within(added).getByRole('radio', { name: 'Yes' }));
+    await user.click(screen.getByRole('button', { name: 'Save ingredient' }));
+
+    await waitFor(() => expect(postedBody(calls)).toBeDefined());
+    expect(postedBody(calls)).toMatchObject({ addsSugars: true });
+  });
+
   it('sends the ticked sources, with a species, when the supplier states them', async () => {
     const { calls } = newIngredientApi();
     const { user } = await openNew();
