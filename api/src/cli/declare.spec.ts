@@ -5,7 +5,9 @@ import { join } from 'node:path';
 
 /** The command line as a user runs it: npm run declare -- BOOK.json [--regime R] [--product ID]. */
 const ROOT = join(__dirname, '..', '..', '..');
-const run = (...args: string[]) => spawnSync('node', [join(ROOT, 'api', 'scripts', 'declare.mjs'), ...args], { cwd: ROOT, encoding: 'utf8' });
+// npm sets INIT_CWD to where the user ran it; paths in the arguments are read from there.
+const run = (...args: string[]) =>
+  spawnSync('node', [join(ROOT, 'api', 'scripts', 'declare.mjs'), ...args], { cwd: ROOT, encoding: 'utf8', env: { ...process.env, INIT_CWD: ROOT } });
 const SHORTBREAD = 'tests/fixtures/shortbread.book.json';
 
 function tempBook(book: unknown): string {
