@@ -2,9 +2,17 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
 import { ingredientsQueryKey, type IngredientView } from './types';
 
-/** The whole library in one answer: the API does not page it yet. */
+/** Rows asked for at a time: a large kitchen's library comes in pages, not one long answer. */
+export const INGREDIENT_PAGE_SIZE = 500;
+
+/** The whole library, read page by page from the API until a page comes back short. */
 export async function getIngredients({ signal }: { signal?: AbortSignal } = {}): Promise<IngredientView[]> {
-  return apiClient.get<IngredientView[]>('/ingredients', { signal });
+  const all: IngredientView[] = [];
+  for (let offset = 0; ; offset += INGREDIENT_PAGE_SIZE) {
+    const page = await apiClient.get<IngredientView[]>(`/ingredients?limit=${INGREDIENT_PAGE_SIZE}&offset=${offset}`, { signal });
+    all.push(...page);
+    if (page.length < INGREDIENT_PAGE_SIZE) return all;
+  }
 }
 
 export function getIngredientsQueryOptions() {

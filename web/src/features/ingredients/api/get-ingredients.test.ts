@@ -1,0 +1,26 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { getIngredients, INGREDIENT_PAGE_SIZE } from './get-ingredients';
+
+describe('getIngredients', () => {
+  afterEach(() => vi.unstubAllGlobals());
+
+  it('reads a large library page by page until a short page', async () => {
+    const total = INGREDIENT_PAGE_SIZE * 2 + 7;
+    const asked: string[] = [];
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async (input: RequestInfo | URL) => {
+        const url = new URL(String(input), 'http://crumbproof.test');
+        asked.push(url.search);
+        const offset = Number(url.searchParams.get('offset'));
+        const limit = Number(url.searchParams.get('limit'));
+        const rows = Array.from({ length: Math.max(0, Math.min(limit, total - offset)) }, (_, i) => ({ id: `i${offset + i}`, name: `I ${offset + i}` }));
+        return new Response(JSON.stringify(rows), { status: 200, headers: { 'content-type': 'application/json' } });
+      }),
+    );
+    const rows = await getIngredients();
+    expect(rows).toHaveLength(total);
+    expect(rows[total - 1]?.id).toBe(`i${total - 1}`);
+    expect(asked).toEqual([0, 1, 2].map((p) => `?limit=${INGREDIENT_PAGE_SIZE}&offset=${p * INGREDIENT_PAGE_SIZE}`));
+  });
+});
