@@ -10,6 +10,8 @@ export async function getIngredients({ signal }: { signal?: AbortSignal } = {}):
   const all: IngredientView[] = [];
   for (let offset = 0; ; offset += INGREDIENT_PAGE_SIZE) {
     const page = await apiClient.get<IngredientView[]>(`/ingredients?limit=${INGREDIENT_PAGE_SIZE}&offset=${offset}`, { signal });
+    // An answer longer than a page means the list came whole (the server did not page it).
+    if (page.length > INGREDIENT_PAGE_SIZE) return page;
     all.push(...page);
     if (page.length < INGREDIENT_PAGE_SIZE) return all;
   }

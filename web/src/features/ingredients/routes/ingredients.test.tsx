@@ -8,7 +8,13 @@ import { INGREDIENTS, SPEC_STATUS } from '../testing/fixtures';
 function api(ingredients: IngredientView[] = INGREDIENTS) {
   return mockApi(
     signedInAs('pastry-chef', {
-      'GET /api/ingredients': { body: ingredients },
+      // Pages as the API does: limit and offset.
+      'GET /api/ingredients': ({ url }) => {
+        const query = new URL(url, 'http://crumbproof.test').searchParams;
+        const offset = Number(query.get('offset') ?? 0);
+        const limit = Number(query.get('limit') ?? ingredients.length);
+        return { body: ingredients.slice(offset, offset + limit) };
+      },
       'GET /api/specifications/status': { body: SPEC_STATUS },
     }),
   );
