@@ -7,3 +7,4 @@ export * from './nutrition';
 export * from './declaration';
 export * from './declaration-diff';
 export * from './product-declaration';
+export * from './views';

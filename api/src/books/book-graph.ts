@@ -1,12 +1,4 @@
-import type { Book } from '@crumbproof/shared';
-
-export interface UsedIn {
-  id: string;
-  name: string;
-  forSale: boolean;
-  /** Paths of ids from this recipe down to the item, e.g. ['layer-cake', 'sponge', 'butter']. */
-  paths: string[][];
-}
+import type { Book, UsedIn } from '@crumbproof/shared';
 
 /** Every recipe that uses an item at any depth, with each path that reaches it. */
 export function usedIn(book: Book, itemId: string): UsedIn[] {

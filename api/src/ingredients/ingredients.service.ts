@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { ALLERGEN_SOURCES, type BookIngredient } from '@crumbproof/shared';
+import { ALLERGEN_SOURCES, type BookIngredient, type IngredientRevisionView, type IngredientView } from '@crumbproof/shared';
 import { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
@@ -15,11 +15,6 @@ export const ingredientQuerySchema = z.strictObject({
   offset: z.coerce.number().int().min(0).optional(),
 });
 export type IngredientQuery = z.infer<typeof ingredientQuerySchema>;
-
-export interface IngredientView extends BookIngredient {
-  revision: number;
-  updatedAt: string;
-}
 
 @Injectable()
 export class IngredientsService {
@@ -59,7 +54,7 @@ export class IngredientsService {
     return { id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() };
   }
 
-  async history(code: string) {
+  async history(code: string): Promise<IngredientRevisionView[]> {
     const revs = await this.repo.history(await this.siteId(), code);
     if (!revs) throw new AppError('not-found', `There is no ingredient '${code}'.`);
     const names = new Map((await this.users.list()).map((u) => [u.id, u.name]));

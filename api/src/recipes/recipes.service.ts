@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { diffDeclarations, type BookRecipe, type Declaration, type DeclarationDiff } from '@crumbproof/shared';
+import { diffDeclarations, type BookRecipe, type RecipeRevisionView, type RecipeView } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
@@ -7,22 +7,6 @@ import { DeclarationsService } from '../declarations/declarations.service';
 import { UsersRepository } from '../users/users.repository';
 import { RecipesRepository } from './recipes.repository';
 
-export interface RecipeRevisionView {
-  revision: number;
-  note: string;
-  authorName: string | null;
-  createdAt: string;
-  body: Omit<BookRecipe, 'id'>;
-  /** The declaration as it stood when this revision was saved (the kitchen's regime). */
-  declaration: Declaration | null;
-  /** What changed in the declaration against the revision before. */
-  diff: DeclarationDiff | null;
-}
-
-export interface RecipeView extends BookRecipe {
-  revision: number;
-  updatedAt: string;
-}
 
 @Injectable()
 export class RecipesService {
@@ -64,6 +48,7 @@ export class RecipesService {
       return {
         revision: r.revision,
         note: r.note,
+        authorId: r.authorId,
         authorName: r.authorId ? (names.get(r.authorId) ?? null) : null,
         createdAt: r.createdAt.toISOString(),
         body: r.body,

@@ -1,10 +1,9 @@
 import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { KITCHEN_WRITERS } from '@crumbproof/shared';
+import { KITCHEN_WRITERS, swapRequestSchema, type SwapRequest } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
-import { swapRequestSchema, type SwapRequest } from './swap.dto';
 import { SwapsService } from './swaps.service';
 
 @ApiTags('swap check')

@@ -1,27 +1,9 @@
 import { Injectable } from '@nestjs/common';
-import { diffDeclarations, type Book, type BookRecipe, type Declaration, type DeclarationDiff } from '@crumbproof/shared';
+import { diffDeclarations, type Book, type BookRecipe, type SwapApplied, type SwapPreview, type SwapRequest } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService, bookRefused } from '../books/books.service';
 import { RulesService } from '../rules/rules.service';
-import type { SwapRequest } from './swap.dto';
-
-export interface SwapProductResult {
-  product: string;
-  name: string;
-  before: Declaration;
-  after: Declaration;
-  diff: DeclarationDiff;
-}
-
-export interface SwapPreview {
-  from: { id: string; name: string };
-  to: { id: string; name: string };
-  /** The recipes whose lines change (new revisions when applied). */
-  recipes: { id: string; name: string; lines: number }[];
-  /** Every product affected at any depth. */
-  products: SwapProductResult[];
-}
 
 /**
  * The swap check: replace one ingredient (or sub-recipe) by another in one recipe or in every
@@ -82,7 +64,7 @@ export class SwapsService {
   }
 
   /** Writes new revisions of every changed recipe in one transaction. */
-  async apply(req: SwapRequest, authorId: number) {
+  async apply(req: SwapRequest, authorId: number): Promise<SwapApplied> {
     const book = await this.books.exportBook();
     const { changed } = this.plan(book, req);
     const name = (id: string) => [...book.ingredients, ...book.recipes].find((x) => x.id === id)!.name;

@@ -1,11 +1,11 @@
 import type { AllergenSource, BookIngredient, Claim } from '@crumbproof/shared';
 
 /**
- * An ingredient as the API lists it: the book body plus its current revision. Not re-validated
- * here: the API checked it with bookIngredientSchema when it was saved, and one odd stored row
- * must not hide the whole library.
+ * An ingredient as the API lists it (the shared IngredientView). Not re-validated here: the API
+ * checked it with bookIngredientSchema when it was saved, and one odd stored row must not hide
+ * the whole library.
  */
-export type IngredientView = BookIngredient & { revision: number; updatedAt: string };
+export type { IngredientView, IngredientRevisionView as IngredientRevision, UsedIn as UsedInEntry } from '@crumbproof/shared';
 
 export const ingredientsQueryKey = ['ingredients'] as const;
 
@@ -71,22 +71,6 @@ export interface Specification {
   fileUrl?: string;
 }
 
-export interface IngredientRevision {
-  revision: number;
-  body: BookIngredient;
-  note: string;
-  authorId: number | null;
-  authorName: string | null;
-  createdAt: string;
-}
-
-export interface UsedInEntry {
-  id: string;
-  name: string;
-  forSale: boolean;
-  /** Ids from the recipe down to this ingredient. */
-  paths: string[][];
-}
 
 export interface ImportPreviewRow {
   row: number;

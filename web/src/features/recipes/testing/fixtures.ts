@@ -151,6 +151,7 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
 export const REVISIONS: RecipeRevision[] = [4, 3, 2, 1].map((revision) => ({
   revision,
   note: revision === 4 ? 'Swapped Margarine for Butter' : revision === 1 ? 'Created' : 'Edited',
+  authorId: revision % 2 === 0 ? 2 : 1,
   authorName: revision % 2 === 0 ? 'Teodor Lind' : 'Maren Okafor',
   createdAt: `2026-11-2${revision}T09:30:00.000Z`,
   body: { name: 'Victoria sponge', lines: RECIPES[0]!.lines },

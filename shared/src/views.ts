@@ -1,0 +1,71 @@
+import { z } from 'zod';
+import type { BookIngredient, BookRecipe } from './book';
+import type { Declaration } from './declaration';
+import type { DeclarationDiff } from './declaration-diff';
+
+/**
+ * What the API sends for the kitchen's items, revisions and the swap check: one definition for
+ * the API that builds them and the web app that reads them.
+ */
+
+/** An ingredient as listed: its current revision's body with the revision number. */
+export type IngredientView = BookIngredient & { revision: number; updatedAt: string };
+/** A recipe or product as listed: its current revision's body with the revision number. */
+export type RecipeView = BookRecipe & { revision: number; updatedAt: string };
+
+export interface RevisionMeta {
+  revision: number;
+  note: string;
+  authorId: number | null;
+  authorName: string | null;
+  createdAt: string;
+}
+
+export interface IngredientRevisionView extends RevisionMeta {
+  body: Omit<BookIngredient, 'id'>;
+}
+
+export interface RecipeRevisionView extends RevisionMeta {
+  body: Omit<BookRecipe, 'id'>;
+  /** The declaration as it stood when this revision was saved (the kitchen's regime). */
+  declaration: Declaration | null;
+  /** What changed in the declaration against the revision before. */
+  diff: DeclarationDiff | null;
+}
+
+/** A recipe that uses an item at any depth, with every path of ids from the recipe down to it. */
+export interface UsedIn {
+  id: string;
+  name: string;
+  forSale: boolean;
+  paths: string[][];
+}
+
+export const swapRequestSchema = z.strictObject({
+  from: z.string().trim().min(1, 'Choose the ingredient to replace.'),
+  to: z.string().trim().min(1, 'Choose the replacement.'),
+  /** One recipe; left out, every recipe that uses `from` directly. */
+  recipe: z.string().trim().min(1).optional(),
+});
+export type SwapRequest = z.infer<typeof swapRequestSchema>;
+
+export interface SwapProduct {
+  product: string;
+  name: string;
+  before: Declaration;
+  after: Declaration;
+  diff: DeclarationDiff;
+}
+
+export interface SwapPreview {
+  from: { id: string; name: string };
+  to: { id: string; name: string };
+  /** The recipes whose lines change (new revisions when applied); `lines` is how many lines of each. */
+  recipes: { id: string; name: string; lines: number }[];
+  /** Every product affected at any depth. */
+  products: SwapProduct[];
+}
+
+export interface SwapApplied {
+  recipes: { id: string; revision: number }[];
+}
