@@ -34,34 +34,3 @@ export const ACCEPTED_SPECIFICATION_TYPES: Record<string, string> = {
   'image/webp': 'webp',
 };
 
-export interface SpecificationView {
-  id: number;
-  /** The ingredient's id (code). */
-  ingredient: string;
-  version: number;
-  filename: string;
-  mediaType: string;
-  sizeBytes: number;
-  sha256: string;
-  /** YYYY-MM-DD. */
-  reviewBy: string;
-  note: string;
-  uploadedBy: { id: number; name: string } | null;
-  /** ISO timestamp. */
-  uploadedAt: string;
-  /** The newest version of this ingredient's specification. */
-  current: boolean;
-  /** reviewBy is before today. */
-  reviewOverdue: boolean;
-  /** Where the file itself is served (inline). */
-  fileUrl: string;
-}
-
-export type SpecificationState = 'missing' | 'overdue' | 'current';
-
-export interface SpecificationStatus {
-  ingredient: string;
-  name: string;
-  latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
-  state: SpecificationState;
-}

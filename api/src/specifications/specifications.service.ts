@@ -8,9 +8,8 @@ import {
   ACCEPTED_SPECIFICATION_TYPES,
   specificationFieldsSchema,
   today,
-  type SpecificationStatus,
-  type SpecificationView,
 } from './specification.dto';
+import type { SpecificationStatus, SpecificationView } from '@crumbproof/shared';
 import { describeType, detectType, type Upload } from './multipart-upload';
 import { SpecificationsRepository, type IngredientRef, type SpecificationRow } from './specifications.repository';
 

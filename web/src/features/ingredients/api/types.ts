@@ -47,29 +47,7 @@ export interface CompositionScan {
   discrepancies: Discrepancy[];
 }
 
-export type SpecificationState = 'missing' | 'overdue' | 'current';
-
-export interface SpecificationStatus {
-  ingredient: string;
-  name: string;
-  latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
-  state: SpecificationState;
-}
-
-export interface Specification {
-  id: number;
-  version: number;
-  filename: string;
-  mediaType: string;
-  sizeBytes: number;
-  reviewBy: string;
-  note: string;
-  uploadedAt: string;
-  current: boolean;
-  reviewOverdue: boolean;
-  /** Sent by the API; the web falls back to /api/specifications/:id/file. */
-  fileUrl?: string;
-}
+export type { SpecificationState, SpecificationStatus, SpecificationView as Specification } from '@crumbproof/shared';
 
 
 export interface ImportPreviewRow {

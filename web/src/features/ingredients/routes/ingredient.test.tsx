@@ -191,8 +191,8 @@ describe('New ingredient form', () => {
 });
 
 const SPECS: Specification[] = [
-  { id: 12, version: 2, filename: 'butter-2026.pdf', mediaType: 'application/pdf', sizeBytes: 204800, reviewBy: '2027-06-01', note: '', uploadedAt: '2026-11-20T10:00:00.000Z', current: true, reviewOverdue: false, fileUrl: '/api/specifications/12/file' },
-  { id: 5, version: 1, filename: 'butter-2025.pdf', mediaType: 'application/pdf', sizeBytes: 102400, reviewBy: '2026-06-01', note: 'First one', uploadedAt: '2025-06-01T10:00:00.000Z', current: false, reviewOverdue: true, fileUrl: '/api/specifications/5/file' },
+  { id: 12, ingredient: 'butter', sha256: 'a'.repeat(64), uploadedBy: { id: 2, name: 'Tobiah Quill' }, version: 2, filename: 'butter-2026.pdf', mediaType: 'application/pdf', sizeBytes: 204800, reviewBy: '2027-06-01', note: '', uploadedAt: '2026-11-20T10:00:00.000Z', current: true, reviewOverdue: false, fileUrl: '/api/specifications/12/file' },
+  { id: 5, ingredient: 'butter', sha256: 'b'.repeat(64), uploadedBy: null, version: 1, filename: 'butter-2025.pdf', mediaType: 'application/pdf', sizeBytes: 102400, reviewBy: '2026-06-01', note: 'First one', uploadedAt: '2025-06-01T10:00:00.000Z', current: false, reviewOverdue: true, fileUrl: '/api/specifications/5/file' },
 ];
 
 function butterApi(extra: ApiHandlers = {}) {

@@ -61,25 +61,7 @@ export function yesNoUnknown(value: boolean | null | undefined): 'Yes' | 'No' | 
   return 'Not known';
 }
 
-const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
-const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
-  day: 'numeric',
-  month: 'short',
-  year: 'numeric',
-  hour: '2-digit',
-  minute: '2-digit',
-});
-
-export function formatDate(iso: string): string {
-  // A bare YYYY-MM-DD is a calendar date: read it at noon so no time zone moves it a day.
-  const date = new Date(/^\d{4}-\d{2}-\d{2}$/.test(iso) ? `${iso}T12:00:00` : iso);
-  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
-}
-
-export function formatDateTime(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
-}
+export { formatDate, formatDateTime } from '@/lib/format';
 
 export function formatBytes(bytes: number): string {
   if (bytes < 1024) return `${bytes} bytes`;

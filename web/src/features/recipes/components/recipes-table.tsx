@@ -5,7 +5,7 @@ import { Link as RouterLink } from 'react-router-dom';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
 import { Quantity } from '@/components/ui/quantity';
 import type { DeclarationView, RecipeView } from '../api/types';
-import { formatDate } from './format';
+import { formatDate } from '@/lib/format';
 
 export interface RecipeRow {
   recipe: RecipeView;

@@ -6,7 +6,7 @@ import type { ItemLookup } from '@/components/ui/layer-path';
 import { Quantity } from '@/components/ui/quantity';
 import { useRevisions } from '../api/get-revisions';
 import type { RecipeRevision } from '../api/types';
-import { formatDateTime } from './format';
+import { formatDateTime } from '@/lib/format';
 import { PanelSection, type HeadingLevel } from './panel-section';
 
 /** How many revisions show before "Show earlier revisions". */

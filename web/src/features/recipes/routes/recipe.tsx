@@ -13,7 +13,7 @@ import { isRegime, useKitchenRegime } from '../api/get-kitchen-regime';
 import { useRecipe } from '../api/get-recipe';
 import { useRecipes } from '../api/get-recipes';
 import { DeclarationPanel } from '../components/declaration-panel';
-import { formatDate } from '../components/format';
+import { formatDate } from '@/lib/format';
 import { buildLookup } from '../components/item-index';
 import { Loading } from '../components/loading';
 import { NutritionPanel } from '../components/nutrition-panel';
