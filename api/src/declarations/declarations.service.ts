@@ -45,12 +45,15 @@ export class DeclarationsService {
     private readonly rules: RulesService,
   ) {}
 
-  async forProduct(code: string, regime?: Regime): Promise<ProductDeclaration> {
-    const book = await this.books.exportBook();
+  /**
+   * A product's declaration, from the store when nothing it depends on has changed. Callers that
+   * declare many products pass the book and the recipes' heads they already read.
+   */
+  async forProduct(code: string, regime?: Regime, loaded?: { book: Book; heads: Map<string, { id: number; revision: number }> }): Promise<ProductDeclaration> {
+    const book = loaded?.book ?? (await this.books.exportBook());
     const recipe = book.recipes.find((r) => r.id === code);
     if (!recipe) throw new AppError('not-found', `There is no recipe '${code}'.`);
-    const site = (await this.books.site())!;
-    const head = (await this.recipes.findCurrent(site.id, code))!;
+    const head = loaded?.heads.get(code) ?? (await this.recipes.findCurrent((await this.books.site())!.id, code))!;
     const useRegime = regime ?? book.site.regime;
     const slice = closureOf(book, code);
     const inputHash = createHash('sha256')
@@ -88,16 +91,23 @@ export class DeclarationsService {
 
   /** Declares every recipe once, so each current revision has its declaration on record. */
   async recordAll(): Promise<number> {
+    const loaded = await this.loadAll();
+    for (const r of loaded.book.recipes) await this.forProduct(r.id, undefined, loaded);
+    return loaded.book.recipes.length;
+  }
+
+  private async loadAll() {
     const book = await this.books.exportBook();
-    for (const r of book.recipes) await this.forProduct(r.id);
-    return book.recipes.length;
+    const site = (await this.books.site())!;
+    const heads = new Map((await this.recipes.listCurrent(site.id)).map((r) => [r.code, { id: r.id, revision: r.revision }]));
+    return { book, heads };
   }
 
   /** Declarations of every product for sale. */
   async all(regime?: Regime): Promise<ProductDeclaration[]> {
-    const book = await this.books.exportBook();
+    const loaded = await this.loadAll();
     const out: ProductDeclaration[] = [];
-    for (const r of book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime));
+    for (const r of loaded.book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime, loaded));
     return out;
   }
 }
