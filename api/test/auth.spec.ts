@@ -1,3 +1,4 @@
+import { JwtService } from '@nestjs/jwt';
 import { startTestApp, type TestApp } from './support/test-app';
 
 describe('sign-in, sessions and roles (real MariaDB)', () => {
@@ -68,6 +69,28 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
     expect(out.statusCode).toBe(204);
     const cleared = out.cookies.find((c) => c.name === 'cp_session')!;
     expect(cleared.value).toBe('');
+  });
+
+  it('renews a session past half its life on use, and leaves a fresh one alone', async () => {
+    const jwt = t.app.get(JwtService);
+    const { id } = (await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: await t.signIn('chef@example.com') } })).json();
+    const now = Math.floor(Date.now() / 1000);
+    const old = await jwt.signAsync({ sub: id, iat: now - 20 * 60 });
+    const renewed = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: `cp_session=${old}` } });
+    expect(renewed.statusCode).toBe(200);
+    const cookie = renewed.cookies.find((c) => c.name === 'cp_session')!;
+    expect(cookie.value).not.toBe(old);
+    expect((jwt.decode(cookie.value) as { iat: number }).iat).toBeGreaterThanOrEqual(now);
+    const fresh = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: `cp_session=${await jwt.signAsync({ sub: id })}` } });
+    expect(fresh.cookies.find((c) => c.name === 'cp_session')).toBeUndefined();
+    expect(fresh.json()).toEqual({ id, email: 'chef@example.com', name: 'Tobiah Quill', role: 'pastry-chef' });
+  });
+
+  it('refuses an expired session', async () => {
+    const jwt = t.app.get(JwtService);
+    const expired = await jwt.signAsync({ sub: 1 }, { expiresIn: -60 });
+    const res = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: `cp_session=${expired}` } });
+    expect(res.statusCode).toBe(401);
   });
 
   it('refuses a forged or expired token', async () => {

@@ -43,6 +43,6 @@ export class AuthController {
   @Roles(ROLES)
   @ApiOperation({ summary: 'The signed-in user' })
   me(@CurrentUser() user: AuthUser): Me {
-    return user;
+    return { id: user.id, email: user.email, name: user.name, role: user.role };
   }
 }

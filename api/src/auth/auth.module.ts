@@ -36,5 +36,6 @@ import { SignInThrottlerGuard } from './sign-in.throttler';
   ],
   controllers: [AuthController],
   providers: [AuthService, JwtStrategy, SignInThrottlerGuard],
+  exports: [JwtModule],
 })
 export class AuthModule {}

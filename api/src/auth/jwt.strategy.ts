@@ -30,9 +30,9 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
     });
   }
 
-  async validate(claims: SessionClaims): Promise<AuthUser | null> {
+  async validate(claims: SessionClaims): Promise<(AuthUser & { issuedAt?: number }) | null> {
     const row = await this.users.findById(claims.sub);
     if (!row || !row.active) return null;
-    return { id: row.id, email: row.email, name: row.name, role: row.role };
+    return { id: row.id, email: row.email, name: row.name, role: row.role, issuedAt: claims.iat };
   }
 }
