@@ -1,5 +1,6 @@
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
+import { meQueryKey } from './get-me';
 
 export async function signOut(): Promise<void> {
   await apiClient.post<void>('/auth/sign-out');
@@ -23,6 +24,8 @@ export function useSignOut({ onSignedOut }: UseSignOutOptions) {
   return useMutation({
     ...signOutMutationOptions(),
     onSettled: async () => {
+      // Nobody is signed in from here on, so the sign-in page shows its form rather than sending them back.
+      queryClient.setQueryData(meQueryKey, null);
       await onSignedOut();
       queryClient.clear();
     },

@@ -25,6 +25,13 @@ describe('Sign in', () => {
     expect(screen.queryByRole('navigation', { name: 'Main' })).not.toBeInTheDocument();
   });
 
+  it('sends someone already signed in on to their first page', async () => {
+    mockApi(signedInAs('pastry-chef', { 'GET /api/ingredients': { body: [] }, 'GET /api/specifications/status': { body: [] } }));
+    const { router } = renderApp('/sign-in');
+    await waitFor(() => expect(router.state.location.pathname).toBe('/ingredients'));
+    expect(screen.queryByRole('button', { name: 'Sign in' })).not.toBeInTheDocument();
+  });
+
   it('explains a badly formed email in place and sends nothing', async () => {
     const { calls } = mockApi(signedOut);
     const { user } = renderApp('/sign-in');

@@ -1,7 +1,8 @@
 import { Box, Heading, Stack, Text } from '@chakra-ui/react';
 import type { Me } from '@crumbproof/shared';
 import { useEffect } from 'react';
-import { useLocation, useNavigate } from 'react-router-dom';
+import { Navigate, useLocation, useNavigate } from 'react-router-dom';
+import { useMe } from '../api/get-me';
 import { BrandMark } from '@/components/ui/brand-mark';
 import { SignInForm } from '../components/sign-in-form';
 
@@ -22,14 +23,18 @@ function wantedPath(state: unknown): string | null {
 export function SignInRoute({ homeFor }: SignInRouteProps) {
   const navigate = useNavigate();
   const location = useLocation();
+  const me = useMe();
 
   useEffect(() => {
     document.title = 'Sign in · Crumbproof';
   }, []);
 
-  function handleSignedIn(me: Me) {
-    navigate(wantedPath(location.state) ?? homeFor(me), { replace: true });
+  function handleSignedIn(signedIn: Me) {
+    navigate(wantedPath(location.state) ?? homeFor(signedIn), { replace: true });
   }
+
+  // Someone already signed in has nothing to do here.
+  if (me.data) return <Navigate to={wantedPath(location.state) ?? homeFor(me.data)} replace />;
 
   return (
     <Box w="full" maxW="md" mx="auto" bg="bg.panel" borderWidth="1px" borderColor="border.muted" rounded="lg" p={{ base: '6', md: '8' }}>
