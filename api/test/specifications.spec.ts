@@ -99,7 +99,7 @@ describe('supplier specifications (real MariaDB)', () => {
     const big = Buffer.concat([pdf, Buffer.alloc(10 * 1024 * 1024 + 1 - pdf.length, 0x20)]);
     const res = await upload('butter', { reviewBy: isoDay(30) }, { name: 'huge.pdf', bytes: big });
     expect(res.statusCode).toBe(413);
-    expect(res.json()).toMatchObject({ message: 'The file is larger than 10 MB, the most an upload may be. Attach a smaller file.' });
+    expect(res.json()).toMatchObject({ code: 'too-large', message: 'The file is larger than 10 MB, the most an upload may be. Attach a smaller file.' });
     expect(await storedRows()).toBe(before);
 
     const atTheLimit = Buffer.concat([pdf, Buffer.alloc(10 * 1024 * 1024 - pdf.length, 0x20)]);

@@ -20,6 +20,7 @@ export const ERROR_CODES = [
   'not-found',
   'conflict',
   'too-many-requests',
+  'too-large',
   'recipe-cycle',
   'unknown-reference',
   'unweighable-line',

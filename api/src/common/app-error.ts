@@ -32,6 +32,8 @@ export function httpStatusOf(code: ErrorCode): number {
       return 409;
     case 'too-many-requests':
       return 429;
+    case 'too-large':
+      return 413;
     case 'internal':
       return 500;
     default: {
