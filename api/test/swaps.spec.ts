@@ -38,6 +38,18 @@ describe('swap check (real MariaDB)', () => {
     expect(revisions).toBe(1);
   });
 
+  it('limits a swap to one recipe when asked, leaving the others that use the ingredient alone', async () => {
+    const users = book.recipes.filter((r) => r.lines.some((l) => l.use === 'butter')).map((r) => r.id);
+    expect(users.length).toBeGreaterThan(1);
+    const res = await post('/api/swaps/preview', { from: 'butter', to: 'plant-spread', recipe: 'vanilla-sponge' });
+    expect(res.statusCode).toBe(200);
+    expect(res.json().recipes.map((r: { id: string }) => r.id)).toEqual(['vanilla-sponge']);
+    const cake = res.json().products.find((p: { product: string }) => p.product === 'strawberry-layer-cake');
+    // The buttercream still brings milk, so the cake stays not dairy-free, and the reason names it.
+    expect(cake.after.claims['dairy-free'].status).toBe('fails');
+    expect(cake.after.claims['dairy-free'].reasons.some((r: { path: string[] }) => r.path.includes('meringue-buttercream'))).toBe(true);
+  });
+
   it('applies a swap as new revisions of the changed recipes, in one go', async () => {
     const { from, to } = dairyAndPlant();
     const preview = (await post('/api/swaps/preview', { from: from.id, to: to.id })).json();
