@@ -130,6 +130,15 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await screenshot(page, 'revision-history-1280');
   });
 
+  it('has no accessibility violations on the workbench pages', async () => {
+    for (const path of ['/ingredients', '/ingredients/oat-cream', '/ingredients/import', '/recipes', '/recipes/vanilla-cream-cup/edit', '/recipes/swap']) {
+      await s.page.goto(`${BASE_URL}${path}`);
+      await s.page.getByRole('heading', { level: 1 }).waitFor();
+      await s.page.waitForLoadState('networkidle');
+      expect(await axeViolations(s.page), path).toEqual([]);
+    }
+  });
+
   it('reads well at tablet width', async () => {
     await s.page.setViewportSize({ width: 768, height: 1024 });
     for (const [path, name] of [

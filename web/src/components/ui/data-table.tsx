@@ -53,7 +53,8 @@ export function DataTable<TData extends RowData>({
   const rows = table.getRowModel().rows;
 
   return (
-    <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel">
+    // Focusable and named, so a table wider than its column can be scrolled from the keyboard.
+    <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel" tabIndex={0} role="region" aria-label={caption}>
       {/* Body text stays at 16 px in tables too. */}
       <Table.Root size="md" stickyHeader interactive={false} css={{ '& th, & td': { textStyle: 'md' } }}>
         <Table.Caption
