@@ -198,3 +198,31 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect((await req('POST', '/api/book/import', counter, shortbread)).statusCode).toBe(403);
   });
 });
+
+describe('two writes at once (real MariaDB)', () => {
+  let t: TestApp;
+  let chef: string;
+  beforeAll(async () => {
+    t = await startTestApp({ seed: true });
+    chef = await t.signIn('chef@example.com');
+  });
+  afterAll(() => t.close());
+
+  it('never lets two recipes start using each other at the same moment', async () => {
+    const base = { lines: [{ use: 'caster-sugar', qty: 10, unit: 'g' }] };
+    for (const id of ['alpha-crumb', 'beta-crumb']) {
+      const res = await t.app.inject({ method: 'POST', url: '/api/recipes', headers: { cookie: chef }, payload: { id, name: id, ...base } });
+      expect(res.statusCode).toBe(201);
+    }
+    const put = (id: string, other: string) =>
+      t.app.inject({
+        method: 'PUT',
+        url: `/api/recipes/${id}`,
+        headers: { cookie: chef },
+        payload: { id, name: id, lines: [...base.lines, { use: other, qty: 5, unit: 'g' }] },
+      });
+    const [a, b] = await Promise.all([put('alpha-crumb', 'beta-crumb'), put('beta-crumb', 'alpha-crumb')]);
+    expect([a.statusCode, b.statusCode].sort()).toEqual([200, 400]);
+    expect([a, b].find((r) => r.statusCode === 400)!.json().code).toBe('recipe-cycle');
+  });
+});

@@ -41,6 +41,14 @@ export class BooksService {
     return this.sites.findOne({ order: [['id', 'ASC']], transaction: t });
   }
 
+  /**
+   * Writes to the kitchen one at a time: each write checks the whole kitchen as it would be after
+   * it, so two at once (say, A starting to use B while B starts to use A) must not both pass.
+   */
+  private async lockKitchen(t: Transaction): Promise<void> {
+    await this.sites.findOne({ order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
+  }
+
   /** The whole kitchen as it stands now, in the recipe book format. */
   async exportBook(t?: Transaction): Promise<Book> {
     const site = await this.site(t);
@@ -76,6 +84,7 @@ export class BooksService {
   async importBook(input: unknown, meta: { authorId: number | null; note: string; address?: string }): Promise<ImportSummary> {
     const book = this.parse(input);
     return this.tx.run(async (t) => {
+      await this.lockKitchen(t);
       const site = await this.site(t);
       const current = site ? await this.exportBook(t) : null;
       const merged: Book = {
@@ -135,6 +144,7 @@ export class BooksService {
     expect: 'new' | 'existing' | 'any',
   ): Promise<{ id: string; revision: number }[]> {
     return this.tx.run(async (t) => {
+      await this.lockKitchen(t);
       const book = await this.exportBook(t);
       const all = new Set([...book.ingredients, ...book.recipes].map((x) => x.id));
       for (const [kind, items, own] of [
