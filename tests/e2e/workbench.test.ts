@@ -130,6 +130,22 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await screenshot(page, 'revision-history-1280');
   });
 
+  it('shows a line that cannot be weighed in place, and saves nothing', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/recipes/vanilla-cream-cup/edit`);
+    await page.getByRole('heading', { name: 'Edit Vanilla cream cup', level: 1 }).waitFor();
+    await page.getByRole('button', { name: 'Add line' }).click();
+    await pick(page, 'Ingredient or recipe for line 3', 'Caster sugar');
+    await page.getByLabel('Quantity for line 3').fill('2');
+    await page.getByLabel('Unit for line 3').selectOption('each');
+    const message = /Line 3 of Vanilla cream cup uses 'caster-sugar' in 'each', but Caster sugar has no weight per unit/;
+    await page.locator('[data-line="3"]').getByText(message).waitFor();
+    await page.getByRole('button', { name: 'Save recipe' }).click();
+    await page.getByRole('alert').filter({ hasText: message }).first().waitFor();
+    const saved = await page.evaluate(async () => (await fetch('/api/recipes/vanilla-cream-cup')).json());
+    expect(saved.lines).toHaveLength(2);
+  });
+
   it('has no accessibility violations on the workbench pages', async () => {
     for (const path of ['/ingredients', '/ingredients/oat-cream', '/ingredients/import', '/recipes', '/recipes/vanilla-cream-cup/edit', '/recipes/swap']) {
       await s.page.goto(`${BASE_URL}${path}`);
