@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { ALLERGEN_SOURCES, CLAIMS, CONTROLS, EXEMPT_FORMS, LINE_ROLES, MEASURE_SYSTEMS, REGIMES, UNITS } from './allergens';
+import { ALLERGEN_SOURCES, CLAIMS, EXEMPT_FORMS, LINE_ROLES, MEASURE_SYSTEMS, REGIMES, UNITS } from './allergens';
+import { handlingSchema } from './kitchen';
 
 /**
  * The recipe book: one JSON document holding a whole kitchen. It is the import, export and
@@ -97,7 +98,7 @@ export const siteSchema = z.strictObject({
   name: z.string().trim().min(1).max(160),
   regime: z.enum(REGIMES),
   measures: z.enum(MEASURE_SYSTEMS).optional(),
-  handles: z.array(z.strictObject({ allergen: z.enum(ALLERGEN_SOURCES), controls: z.enum(CONTROLS) })).default([]),
+  handles: z.array(handlingSchema).default([]),
 });
 export type Site = z.infer<typeof siteSchema>;
 

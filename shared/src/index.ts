@@ -8,3 +8,4 @@ export * from './declaration';
 export * from './declaration-diff';
 export * from './product-declaration';
 export * from './views';
+export * from './kitchen';

@@ -1,9 +1,9 @@
 import { Body, Controller, Get, Patch } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { ROLES } from '@crumbproof/shared';
+import { kitchenUpdateSchema, ROLES, type KitchenUpdate } from '@crumbproof/shared';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
-import { KitchenService, kitchenUpdateSchema, type KitchenUpdate } from './kitchen.service';
+import { KitchenService } from './kitchen.service';
 
 @ApiTags('kitchen')
 @Controller('kitchen')

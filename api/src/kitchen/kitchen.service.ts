@@ -1,33 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { MEASURE_SYSTEMS, REGIMES, siteSchema } from '@crumbproof/shared';
-import { z } from 'zod';
+import type { KitchenUpdate, KitchenView } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { SiteModel } from './site.model';
 
-export interface KitchenView {
-  id: number;
-  name: string;
-  address: string;
-  regime: SiteModel['regime'];
-  measures: SiteModel['measures'];
-  handles: SiteModel['handles'];
-}
-
-export const kitchenUpdateSchema = z
-  .strictObject({
-    name: z.string().trim().min(1, 'Give the kitchen a name.').max(160).optional(),
-    address: z.string().trim().max(300).optional(),
-    regime: z.enum(REGIMES).optional(),
-    measures: z.enum(MEASURE_SYSTEMS).nullable().optional(),
-    handles: siteSchema.shape.handles.optional(),
-  })
-  .refine((v) => Object.keys(v).length > 0, 'Change at least one field.')
-  .refine((v) => !v.handles || new Set(v.handles.map((h) => h.allergen)).size === v.handles.length, {
-    message: 'List each allergen source once.',
-    path: ['handles'],
-  });
-export type KitchenUpdate = z.infer<typeof kitchenUpdateSchema>;
 
 @Injectable()
 export class KitchenService {

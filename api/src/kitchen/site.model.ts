@@ -1,10 +1,5 @@
 import { Column, DataType, Model, Table } from 'sequelize-typescript';
-import type { Control, AllergenSource, MeasureSystem, Regime } from '@crumbproof/shared';
-
-export interface Handling {
-  allergen: AllergenSource;
-  controls: Control;
-}
+import type { Handling, MeasureSystem, Regime } from '@crumbproof/shared';
 
 @Table({ tableName: 'sites', underscored: true, timestamps: true })
 export class SiteModel extends Model {

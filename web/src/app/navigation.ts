@@ -8,6 +8,7 @@ export const PAGES = {
   labels: { path: '/labels', label: 'Labels' },
   approvals: { path: '/approvals', label: 'Approvals' },
   audit: { path: '/audit', label: 'Audit' },
+  kitchen: { path: '/kitchen', label: 'Kitchen' },
   users: { path: '/users', label: 'Users' },
 } as const satisfies Record<string, { path: string; label: string }>;
 
@@ -18,7 +19,7 @@ export type PageKey = keyof typeof PAGES;
  * after sign-in and the refused page all read it.
  */
 export const PAGES_BY_ROLE: Record<Role, readonly PageKey[]> = {
-  manager: ['ingredients', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'users'],
+  manager: ['ingredients', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users'],
   'pastry-chef': ['ingredients', 'recipes', 'counter', 'labels'],
   'front-of-house': ['counter', 'recipes'],
 };

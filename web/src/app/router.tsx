@@ -13,6 +13,7 @@ import { RecipeRoute } from '@/features/recipes/routes/recipe';
 import { NewRecipeRoute, RecipeEditorRoute } from '@/features/recipes/routes/recipe-editor';
 import { RecipesRoute } from '@/features/recipes/routes/recipes';
 import { SwapCheckRoute } from '@/features/swaps/routes/swap-check';
+import { KitchenRoute } from '@/features/kitchen/routes/kitchen';
 import { UsersRoute } from '@/features/users/routes/users';
 import { AppShell, PublicShell, ShellFrame } from './layout/app-shell';
 import { RequireSignIn } from './layout/require-sign-in';
@@ -29,6 +30,7 @@ const PAGE_ELEMENTS: Record<PageKey, ReactNode> = {
   labels: <LabelsRoute />,
   approvals: <ApprovalsRoute />,
   audit: <AuditRoute />,
+  kitchen: <KitchenRoute />,
   users: <UsersRoute />,
 };
 

@@ -1,4 +1,4 @@
-import type { Me, Role, User } from '@crumbproof/shared';
+import type { KitchenView, Me, Role, User } from '@crumbproof/shared';
 import { vi } from 'vitest';
 
 export interface MockResponse {
@@ -54,7 +54,14 @@ export const PEOPLE: Record<Role, Me> = {
   'front-of-house': { id: 3, email: 'priya@crumbproof.test', name: 'Priya Sandhu', role: 'front-of-house' },
 };
 
-export const KITCHEN = { name: 'Larch Street Bakehouse', regime: 'UK', address: '14 Larch Street' };
+export const KITCHEN: KitchenView = {
+  id: 1,
+  name: 'Larch Street Bakehouse',
+  regime: 'UK',
+  address: '14 Larch Street',
+  measures: null,
+  handles: [{ allergen: 'sesame', controls: 'shared-equipment' }],
+};
 
 export const USERS: User[] = [
   { ...PEOPLE.manager, active: true, createdAt: '2026-03-02T09:00:00.000Z' },

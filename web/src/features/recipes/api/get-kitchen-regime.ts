@@ -1,17 +1,11 @@
-import { REGIMES, type Regime } from '@crumbproof/shared';
+import { kitchenSchema, REGIMES, type Regime } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
 import { apiClient } from '@/lib/api-client';
 
 /**
- * The kitchen, read under the same key and in the same shape as the header's query, so the two
- * share one cached answer. Recipes only need the regime the kitchen declares under.
+ * The kitchen, read under the same key and with the same shared schema as the header's query,
+ * so the two share one cached answer. Recipes only need the regime the kitchen declares under.
  */
-const kitchenSchema = z.object({
-  name: z.string(),
-  regime: z.string(),
-  address: z.string().nullable().optional(),
-});
 
 export async function getKitchen({ signal }: { signal?: AbortSignal } = {}) {
   return kitchenSchema.parse(await apiClient.get<unknown>('/kitchen', { signal }));
