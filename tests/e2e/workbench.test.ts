@@ -146,6 +146,25 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     expect(saved.lines).toHaveLength(2);
   });
 
+  it('imports ingredients from a spreadsheet: a sheet with a mistake is refused, a good one is imported whole', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/ingredients/import`);
+    await page.getByLabel('Spreadsheet (CSV or XLSX)').setInputFiles(join(FIXTURES, 'ingredients-with-mistakes.csv'));
+    await page.getByRole('button', { name: 'Check the file' }).click();
+    const rows = page.getByRole('table', { name: 'Rows of the spreadsheet' });
+    await rows.getByText(/did you mean 'hazelnut'\?/).waitFor();
+    expect(await page.getByRole('button', { name: /^Import \d+ ingredients?$/ }).isDisabled()).toBe(true);
+
+    await page.getByLabel('Spreadsheet (CSV or XLSX)').setInputFiles(join(FIXTURES, 'new-ingredients.csv'));
+    await page.getByRole('button', { name: 'Check the file' }).click();
+    await rows.getByText('pistachio-paste').waitFor();
+    await screenshot(page, 'import-preview-1280');
+    await page.getByRole('button', { name: 'Import 3 ingredients' }).click();
+    await page.getByText(/Imported 3 ingredients: 3 added, 0 updated/).waitFor();
+    await page.goto(`${BASE_URL}/ingredients/oat-drink`);
+    await page.getByRole('heading', { name: 'Oat drink', level: 1 }).waitFor();
+  });
+
   it('has no accessibility violations on the workbench pages', async () => {
     for (const path of ['/ingredients', '/ingredients/oat-cream', '/ingredients/import', '/recipes', '/recipes/vanilla-cream-cup/edit', '/recipes/swap']) {
       await s.page.goto(`${BASE_URL}${path}`);
