@@ -193,6 +193,17 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(bad.json().fields[0].path).toBe('source');
   });
 
+  it('keeps declaring a product whose QUID names an ingredient no longer in it, with an error that blocks its labels', async () => {
+    const rec = (await req('GET', '/api/recipes/lemon-shortbread', chef)).json();
+    const { revision: _r, updatedAt: _u, ...body } = rec;
+    expect(body.sale.quid).toContain('butter');
+    const withoutButter = { ...body, lines: body.lines.filter((l: { use: string }) => l.use !== 'butter') };
+    const res = await req('PUT', '/api/recipes/lemon-shortbread', chef, withoutButter);
+    expect(res.statusCode).toBe(200);
+    const d = (await req('GET', '/api/recipes/lemon-shortbread/declaration', counter)).json() as ProductDeclaration;
+    expect(d.errors.map((e) => e.code)).toContain('quid-not-in-product');
+  });
+
   it('front-of-house cannot write', async () => {
     expect((await req('PUT', '/api/ingredients/butter', counter, {})).statusCode).toBe(403);
     expect((await req('POST', '/api/book/import', counter, shortbread)).statusCode).toBe(403);

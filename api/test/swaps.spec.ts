@@ -57,6 +57,18 @@ describe('swap check (real MariaDB)', () => {
     expect(res.statusCode).toBe(200);
     expect(res.json().recipes.map((r: { id: string }) => r.id).sort()).toEqual(preview.recipes.map((r: { id: string }) => r.id).sort());
     for (const r of res.json().recipes) expect(r.revision).toBe(2);
+    // The new revision keeps its declaration, so the history can say what the swap changed.
+    const changed = res.json().recipes[0].id;
+    const history = (await t.app.inject({ method: 'GET', url: `/api/recipes/${changed}/revisions`, headers: { cookie: chef } })).json();
+    expect(history[0].note).toMatch(/^Swapped /);
+    expect(history[0].declaration).not.toBeNull();
+    expect(history[0].diff).not.toBeNull();
+    // A product that asked for the replaced ingredient's percentage now asks for the replacement's.
+    const quidOwner = book.recipes.find((r) => r.sale?.quid?.includes(from.id) && r.lines.some((l) => l.use === from.id));
+    expect(quidOwner).toBeDefined();
+    const d = await t.app.inject({ method: 'GET', url: `/api/recipes/${quidOwner!.id}/declaration`, headers: { cookie: chef } });
+    expect(d.statusCode).toBe(200);
+    expect(d.json().quid.map((q: { ingredient: string }) => q.ingredient)).toContain(to.id);
     const again = await post('/api/swaps/preview', { from: from.id, to: to.id });
     expect(again.statusCode).toBe(400);
     expect(again.json().message).toMatch(/nothing to swap/);

@@ -4,12 +4,16 @@ import { bookSchema } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody } from '../common/zod.pipe';
+import { DeclarationsService } from '../declarations/declarations.service';
 import { BooksService } from './books.service';
 
 @ApiTags('recipe book')
 @Controller('book')
 export class BooksController {
-  constructor(private readonly books: BooksService) {}
+  constructor(
+    private readonly books: BooksService,
+    private readonly declarations: DeclarationsService,
+  ) {}
 
   @Get()
   @Roles(['manager', 'pastry-chef'])
@@ -23,7 +27,9 @@ export class BooksController {
   @Roles(['manager'])
   @ApiOperation({ summary: 'Import a recipe book, merging by id; all or nothing' })
   @ApiZodBody(bookSchema)
-  import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
-    return this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
+  async import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
+    const summary = await this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
+    await this.declarations.recordAll();
+    return summary;
   }
 }

@@ -12,7 +12,10 @@ import { validationError } from '../common/zod.pipe';
 import { DeclarationModel } from './declaration.model';
 import type { ProductDeclaration } from '../rules/rules.service';
 
-/** Everything a product's declaration depends on: the site, and every item it reaches. */
+/**
+ * Everything a product's declaration depends on: the site, every item it reaches, and the items
+ * its sale details name for QUID (so a QUID that no longer matches a line is a warning, not a gap).
+ */
 export function closureOf(book: Book, productId: string): Book {
   const ing = new Map(book.ingredients.map((i) => [i.id, i]));
   const rec = new Map(book.recipes.map((r) => [r.id, r]));
@@ -22,7 +25,9 @@ export function closureOf(book: Book, productId: string): Book {
     if (ing.has(id)) return void seenI.add(id);
     if (!rec.has(id) || seenR.has(id)) return;
     seenR.add(id);
-    for (const line of rec.get(id)!.lines) visit(line.use);
+    const recipe = rec.get(id)!;
+    for (const line of recipe.lines) visit(line.use);
+    for (const named of recipe.sale?.quid ?? []) visit(named);
   };
   visit(productId);
   return {

@@ -3,6 +3,7 @@ import { diffDeclarations, type Book, type BookRecipe, type SwapApplied, type Sw
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService, bookRefused } from '../books/books.service';
+import { DeclarationsService } from '../declarations/declarations.service';
 import { RulesService } from '../rules/rules.service';
 
 /**
@@ -14,6 +15,7 @@ export class SwapsService {
   constructor(
     private readonly books: BooksService,
     private readonly rules: RulesService,
+    private readonly declarations: DeclarationsService,
   ) {}
 
   private plan(book: Book, req: SwapRequest): { changed: BookRecipe[]; after: Book } {
@@ -28,7 +30,11 @@ export class SwapsService {
     const recipes = book.recipes.map((r) => {
       if (req.recipe && r.id !== req.recipe) return r;
       if (!r.lines.some((l) => l.use === req.from)) return r;
-      const next = { ...r, lines: r.lines.map((l) => (l.use === req.from ? { ...l, use: req.to } : l)) };
+      const next: BookRecipe = { ...r, lines: r.lines.map((l) => (l.use === req.from ? { ...l, use: req.to } : l)) };
+      // A percentage asked for the replaced ingredient is asked for its replacement.
+      if (next.sale?.quid?.includes(req.from)) {
+        next.sale = { ...next.sale, quid: [...new Set(next.sale.quid.map((q) => (q === req.from ? req.to : q)))] };
+      }
       changed.push(next);
       return next;
     });
@@ -69,6 +75,8 @@ export class SwapsService {
     const { changed } = this.plan(book, req);
     const name = (id: string) => [...book.ingredients, ...book.recipes].find((x) => x.id === id)!.name;
     const written = await this.books.writeItems({ recipes: changed }, { authorId, note: `Swapped ${name(req.from)} for ${name(req.to)}` }, 'existing');
+    // Each new revision keeps the declaration it was saved with, for the revision history.
+    for (const w of written) await this.declarations.forProduct(w.id);
     return { recipes: written };
   }
 }
