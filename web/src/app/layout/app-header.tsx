@@ -4,7 +4,7 @@ import { useNavigate } from 'react-router-dom';
 import { BrandMark } from '@/components/ui/brand-mark';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { useSignedInUser } from '@/lib/signed-in-user';
-import { useKitchen } from '@/features/kitchen/api/get-kitchen';
+import { useKitchen } from '@/api/kitchen';
 import { MainNav } from './main-nav';
 
 export function AppHeader() {

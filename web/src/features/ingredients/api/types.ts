@@ -7,7 +7,7 @@ import type { AllergenSource, BookIngredient, Claim } from '@crumbproof/shared';
  */
 export type { IngredientView, IngredientRevisionView as IngredientRevision, UsedIn as UsedInEntry } from '@crumbproof/shared';
 
-export const ingredientsQueryKey = ['ingredients'] as const;
+export { ingredientsQueryKey } from '@/api/ingredients';
 
 export interface AllergenHit {
   term: string;

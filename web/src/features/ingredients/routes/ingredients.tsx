@@ -4,7 +4,7 @@ import { Link as RouterLink } from 'react-router-dom';
 import { ColumnsMenu } from '@/components/ui/columns-menu';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { Page } from '@/components/ui/page';
-import { useIngredients } from '../api/get-ingredients';
+import { useIngredients } from '@/api/ingredients';
 import { useSpecificationStatus } from '../api/get-specification-status';
 import type { SpecificationState } from '../api/types';
 import { DEFAULT_COLUMN_VISIBILITY, IngredientsTable, LIBRARY_COLUMNS } from '../components/ingredients-table';

@@ -1,7 +1,7 @@
 import { Spinner, Stack, Text } from '@chakra-ui/react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { Page } from '@/components/ui/page';
-import { useKitchen } from '../api/get-kitchen';
+import { useKitchen } from '@/api/kitchen';
 import { KitchenForm } from '../components/kitchen-form';
 
 /** /kitchen — the manager's settings for the whole kitchen. */

@@ -7,7 +7,7 @@ import { RECIPES } from '../testing/fixtures';
 import { declarationsQueryKey } from './get-declarations';
 import { declarationQueryKey } from './get-declaration';
 import { recipeQueryKey } from './get-recipe';
-import { recipesQueryKey } from './get-recipes';
+import { recipesQueryKey } from '@/api/recipes';
 import { revisionsQueryKey } from './get-revisions';
 import { useSaveRecipe } from './save-recipe';
 

@@ -4,7 +4,7 @@ import { apiClient } from '@/lib/api-client';
 import { declarationsQueryPrefix } from './get-declarations';
 import { declarationQueryPrefix } from './get-declaration';
 import { recipeQueryKey } from './get-recipe';
-import { recipesQueryKey } from './get-recipes';
+import { recipesQueryKey } from '@/api/recipes';
 import { revisionsQueryKey } from './get-revisions';
 import type { RecipeView } from './types';
 

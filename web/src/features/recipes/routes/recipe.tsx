@@ -11,7 +11,7 @@ import { useSignedInUser } from '@/lib/signed-in-user';
 import { useDeclaration } from '../api/get-declaration';
 import { isRegime, useKitchenRegime } from '../api/get-kitchen-regime';
 import { useRecipe } from '../api/get-recipe';
-import { useRecipes } from '../api/get-recipes';
+import { useRecipes } from '@/api/recipes';
 import { DeclarationPanel } from '../components/declaration-panel';
 import { formatDate } from '@/lib/format';
 import { buildLookup } from '../components/item-index';

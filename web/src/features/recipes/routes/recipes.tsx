@@ -7,7 +7,7 @@ import { Page } from '@/components/ui/page';
 import { useSignedInUser } from '@/lib/signed-in-user';
 import { useDeclarations } from '../api/get-declarations';
 import { useKitchenRegime } from '../api/get-kitchen-regime';
-import { useRecipes } from '../api/get-recipes';
+import { useRecipes } from '@/api/recipes';
 import { ActionLink } from '../components/action-link';
 import { Loading } from '../components/loading';
 import { RecipesTable, type RecipeRow } from '../components/recipes-table';

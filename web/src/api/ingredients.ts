@@ -1,6 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
-import { ingredientsQueryKey, type IngredientView } from './types';
+import type { IngredientView } from '@crumbproof/shared';
+
+/** Every list the ingredient library, the recipe editor and the swap check read: one key, one shape. */
+export const ingredientsQueryKey = ['ingredients'] as const;
 
 /** Rows asked for at a time: a large kitchen's library comes in pages, not one long answer. */
 export const INGREDIENT_PAGE_SIZE = 500;
@@ -24,6 +27,6 @@ export function getIngredientsQueryOptions() {
   });
 }
 
-export function useIngredients() {
-  return useQuery(getIngredientsQueryOptions());
+export function useIngredients({ enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...getIngredientsQueryOptions(), enabled });
 }

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { getIngredients, INGREDIENT_PAGE_SIZE } from './get-ingredients';
+import { getIngredients, INGREDIENT_PAGE_SIZE } from './ingredients';
 
 describe('getIngredients', () => {
   afterEach(() => vi.unstubAllGlobals());
