@@ -29,7 +29,7 @@ export class BooksController {
   @ApiZodBody(bookSchema)
   async import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
     const summary = await this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
-    await this.declarations.recordAll();
+    await this.declarations.record();
     return summary;
   }
 }

@@ -94,11 +94,12 @@ export class DeclarationsService {
     return out;
   }
 
-  /** Declares every recipe once, so each current revision has its declaration on record. */
-  async recordAll(): Promise<number> {
+  /** Declares the given recipes (all of them when none are named), so each current revision has its declaration on record. */
+  async record(ids?: readonly string[]): Promise<number> {
     const loaded = await this.loadAll();
-    for (const r of loaded.book.recipes) await this.forProduct(r.id, undefined, loaded);
-    return loaded.book.recipes.length;
+    const todo = ids ?? loaded.book.recipes.map((r) => r.id);
+    for (const id of todo) await this.forProduct(id, undefined, loaded);
+    return todo.length;
   }
 
   private async loadAll() {

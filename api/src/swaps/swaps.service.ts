@@ -76,7 +76,7 @@ export class SwapsService {
     const name = (id: string) => [...book.ingredients, ...book.recipes].find((x) => x.id === id)!.name;
     const written = await this.books.writeItems({ recipes: changed }, { authorId, note: `Swapped ${name(req.from)} for ${name(req.to)}` }, 'existing');
     // Each new revision keeps the declaration it was saved with, for the revision history.
-    for (const w of written) await this.declarations.forProduct(w.id);
+    await this.declarations.record(written.map((w) => w.id));
     return { recipes: written };
   }
 }
