@@ -104,7 +104,15 @@ async function main() {
       runSuite(
         'end-to-end and cross-package (vitest + playwright-core on Chromium)',
         'node',
-        ['node_modules/vitest/vitest.mjs', 'run', '--config', 'tests/vitest.config.ts', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`],
+        [
+          'node_modules/vitest/vitest.mjs',
+          'run',
+          '--config',
+          'tests/vitest.config.ts',
+          '--reporter=default',
+          '--reporter=json',
+          `--outputFile.json=${report}`,
+        ],
         { CRUMBPROOF_URL: `http://127.0.0.1:${appPort}`, DB_TEST_PORT: String(port), FORCE_COLOR: '0' },
         report,
         vitestCount,

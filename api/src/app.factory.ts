@@ -22,7 +22,6 @@ const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
   debug: ['error', 'fatal', 'warn', 'log', 'debug', 'verbose'],
 };
 
-
 /** Builds the API (and, when a web build is given, serves the web app beside it). */
 export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } = {}): Promise<NestFastifyApplication> {
   const adapter = new FastifyAdapter({ bodyLimit: 2 * 1024 * 1024, trustProxy: false });
@@ -39,7 +38,9 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
     app,
     new DocumentBuilder()
       .setTitle('Crumbproof API')
-      .setDescription('Ingredients, recipes, declarations and labels of a pastry kitchen. Sessions are an httpOnly cookie set by POST /api/auth/sign-in.')
+      .setDescription(
+        'Ingredients, recipes, declarations and labels of a pastry kitchen. Sessions are an httpOnly cookie set by POST /api/auth/sign-in.',
+      )
       .setVersion('1')
       .addCookieAuth('cp_session')
       .build(),

@@ -16,7 +16,20 @@ import { SpecificationsModule } from './specifications/specifications.module';
 import { IngredientImportModule } from './ingredient-import/ingredient-import.module';
 
 @Module({
-  imports: [DiscoveryModule, AppConfigModule, DatabaseModule, AuthModule, UsersModule, KitchenModule, BooksModule, SeedModule, SwapsModule, SpecificationsModule, IngredientImportModule, ReferenceModule],
+  imports: [
+    DiscoveryModule,
+    AppConfigModule,
+    DatabaseModule,
+    AuthModule,
+    UsersModule,
+    KitchenModule,
+    BooksModule,
+    SeedModule,
+    SwapsModule,
+    SpecificationsModule,
+    IngredientImportModule,
+    ReferenceModule,
+  ],
   controllers: [HealthController],
   providers: [
     { provide: APP_GUARD, useClass: SessionGuard },

@@ -42,7 +42,12 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
   });
 
   it('says so plainly when the body is not JSON', async () => {
-    const res = await t.app.inject({ method: 'POST', url: '/api/auth/sign-in', payload: '{"email":', headers: { 'content-type': 'application/json' } });
+    const res = await t.app.inject({
+      method: 'POST',
+      url: '/api/auth/sign-in',
+      payload: '{"email":',
+      headers: { 'content-type': 'application/json' },
+    });
     expect(res.statusCode).toBe(400);
     expect(res.json().message).toMatch(/valid JSON/);
   });
@@ -81,7 +86,11 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
     const cookie = renewed.cookies.find((c) => c.name === 'cp_session')!;
     expect(cookie.value).not.toBe(old);
     expect((jwt.decode(cookie.value) as { iat: number }).iat).toBeGreaterThanOrEqual(now);
-    const fresh = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: `cp_session=${await jwt.signAsync({ sub: id })}` } });
+    const fresh = await t.app.inject({
+      method: 'GET',
+      url: '/api/me',
+      headers: { cookie: `cp_session=${await jwt.signAsync({ sub: id })}` },
+    });
     expect(fresh.cookies.find((c) => c.name === 'cp_session')).toBeUndefined();
     expect(fresh.json()).toEqual({ id, email: 'chef@example.com', name: 'Tobiah Quill', role: 'pastry-chef' });
   });
@@ -94,7 +103,11 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
   });
 
   it('refuses a forged or expired token', async () => {
-    const res = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: 'cp_session=eyJhbGciOiJIUzI1NiJ9.eyJzdWIiOjF9.forged' } });
+    const res = await t.app.inject({
+      method: 'GET',
+      url: '/api/me',
+      headers: { cookie: 'cp_session=eyJhbGciOiJIUzI1NiJ9.eyJzdWIiOjF9.forged' },
+    });
     expect(res.statusCode).toBe(401);
   });
 

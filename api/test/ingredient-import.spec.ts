@@ -15,11 +15,63 @@ const csv = (text: string) => Buffer.from(text, 'utf8');
 async function workbookOfNewIngredients(): Promise<Buffer> {
   const wb = new ExcelJS.Workbook();
   const ws = wb.addWorksheet('Ingredients');
-  ws.addRow(['ID', 'Name', 'Supplier', 'Supplier Code', 'Contains', 'May Contain', 'Composition', 'Vegan', 'Vegetarian', 'g per ml', 'Fat', 'Salt']);
-  ws.addRow(['pistachio-paste', 'Pistachio paste', 'Verdant Nut Co', 'VN-PP1', 'pistachio', 'almond; hazelnut', 'Roasted pistachios', 'yes', 'yes', null, 52, 0.02]);
-  ws.addRow(['oat-drink', 'Oat drink', 'Hillfold Farm', 'HF-OAT', 'oats', 'none', 'Water, oats (10%), rapeseed oil, salt', 'yes', 'yes', 1.03, 1.5, { formula: '0.05*2', result: 0.1 }]);
+  ws.addRow([
+    'ID',
+    'Name',
+    'Supplier',
+    'Supplier Code',
+    'Contains',
+    'May Contain',
+    'Composition',
+    'Vegan',
+    'Vegetarian',
+    'g per ml',
+    'Fat',
+    'Salt',
+  ]);
+  ws.addRow([
+    'pistachio-paste',
+    'Pistachio paste',
+    'Verdant Nut Co',
+    'VN-PP1',
+    'pistachio',
+    'almond; hazelnut',
+    'Roasted pistachios',
+    'yes',
+    'yes',
+    null,
+    52,
+    0.02,
+  ]);
+  ws.addRow([
+    'oat-drink',
+    'Oat drink',
+    'Hillfold Farm',
+    'HF-OAT',
+    'oats',
+    'none',
+    'Water, oats (10%), rapeseed oil, salt',
+    'yes',
+    'yes',
+    1.03,
+    1.5,
+    { formula: '0.05*2', result: 0.1 },
+  ]);
   ws.addRow([]);
-  ws.addRow(['wildflower-honey', { richText: [{ text: 'Wildflower ' }, { text: 'honey', font: { bold: true } }] }, 'Coombe Apiaries', null, 'none', null, 'Honey', false, true, 1.42, 0, 0]);
+  ws.addRow([
+    'wildflower-honey',
+    { richText: [{ text: 'Wildflower ' }, { text: 'honey', font: { bold: true } }] },
+    'Coombe Apiaries',
+    null,
+    'none',
+    null,
+    'Honey',
+    false,
+    true,
+    1.42,
+    0,
+    0,
+  ]);
   return Buffer.from(await wb.xlsx.writeBuffer());
 }
 
@@ -41,7 +93,11 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
   };
   const preview = (bytes: Buffer, name = 'ingredients.csv', cookie = chef) => send('/api/ingredients/import/preview', bytes, name, cookie);
   const importFile = (bytes: Buffer, name = 'ingredients.csv', cookie = chef) => send('/api/ingredients/import', bytes, name, cookie);
-  const ingredients = async () => (await t.app.inject({ method: 'GET', url: '/api/ingredients', headers: { cookie: chef } })).json() as { id: string; revision: number }[];
+  const ingredients = async () =>
+    (await t.app.inject({ method: 'GET', url: '/api/ingredients', headers: { cookie: chef } })).json() as {
+      id: string;
+      revision: number;
+    }[];
   const ingredient = (id: string) => t.app.inject({ method: 'GET', url: `/api/ingredients/${id}`, headers: { cookie: chef } });
 
   const expectedNew = [
@@ -50,9 +106,16 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
       action: 'create',
       problems: [],
       ingredient: {
-        id: 'pistachio-paste', name: 'Pistachio paste', supplier: 'Verdant Nut Co', supplierCode: 'VN-PP1',
-        contains: ['pistachio'], mayContain: ['almond', 'hazelnut'], composition: 'Roasted pistachios',
-        vegan: true, vegetarian: true, nutrition: { fat: 52, salt: 0.02 },
+        id: 'pistachio-paste',
+        name: 'Pistachio paste',
+        supplier: 'Verdant Nut Co',
+        supplierCode: 'VN-PP1',
+        contains: ['pistachio'],
+        mayContain: ['almond', 'hazelnut'],
+        composition: 'Roasted pistachios',
+        vegan: true,
+        vegetarian: true,
+        nutrition: { fat: 52, salt: 0.02 },
       },
     },
     {
@@ -60,8 +123,17 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
       action: 'create',
       problems: [],
       ingredient: {
-        id: 'oat-drink', name: 'Oat drink', supplier: 'Hillfold Farm', supplierCode: 'HF-OAT', contains: ['oats'], mayContain: [],
-        composition: 'Water, oats (10%), rapeseed oil, salt', vegan: true, vegetarian: true, gPerMl: 1.03, nutrition: { fat: 1.5, salt: 0.1 },
+        id: 'oat-drink',
+        name: 'Oat drink',
+        supplier: 'Hillfold Farm',
+        supplierCode: 'HF-OAT',
+        contains: ['oats'],
+        mayContain: [],
+        composition: 'Water, oats (10%), rapeseed oil, salt',
+        vegan: true,
+        vegetarian: true,
+        gPerMl: 1.03,
+        nutrition: { fat: 1.5, salt: 0.1 },
       },
     },
     {
@@ -69,8 +141,16 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
       action: 'create',
       problems: [],
       ingredient: {
-        id: 'wildflower-honey', name: 'Wildflower honey', supplier: 'Coombe Apiaries', contains: [], mayContain: [],
-        composition: 'Honey', vegan: false, vegetarian: true, gPerMl: 1.42, nutrition: { fat: 0, salt: 0 },
+        id: 'wildflower-honey',
+        name: 'Wildflower honey',
+        supplier: 'Coombe Apiaries',
+        contains: [],
+        mayContain: [],
+        composition: 'Honey',
+        vegan: false,
+        vegetarian: true,
+        gPerMl: 1.42,
+        nutrition: { fat: 0, salt: 0 },
       },
     },
   ];
@@ -85,9 +165,31 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     expect(body.rows).toEqual(expectedNew);
     expect(body.summary).toEqual({ create: 3, update: 0, unchanged: 0, withProblems: 0 });
     expect(body.columns.map((c: { header: string }) => c.header)).toEqual(
-      expect.arrayContaining(['id', 'name', 'supplier', 'supplier code', 'contains', 'may contain', 'composition', 'vegan', 'vegetarian', 'sulphites mg/kg', 'g per ml', 'g each', 'fat', 'saturates', 'carbohydrate', 'sugars', 'fibre', 'protein', 'salt']),
+      expect.arrayContaining([
+        'id',
+        'name',
+        'supplier',
+        'supplier code',
+        'contains',
+        'may contain',
+        'composition',
+        'vegan',
+        'vegetarian',
+        'sulphites mg/kg',
+        'g per ml',
+        'g each',
+        'fat',
+        'saturates',
+        'carbohydrate',
+        'sugars',
+        'fibre',
+        'protein',
+        'salt',
+      ]),
     );
-    expect(body.columns.find((c: { header: string }) => c.header === 'contains').description).toMatch(/'none' means .*verified none.*EMPTY cell means .*unknown/);
+    expect(body.columns.find((c: { header: string }) => c.header === 'contains').description).toMatch(
+      /'none' means .*verified none.*EMPTY cell means .*unknown/,
+    );
     expect((await ingredients()).length).toBe(before);
   });
 
@@ -150,9 +252,11 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
   });
 
   it('reports an id that appears twice on each of its rows, and imports neither', async () => {
-    const file = csv('id,name,contains,vegan,vegetarian\nmalt-extract,Malt extract,barley,yes,yes\nflaky-salt,Flaky salt,none,yes,yes\nMalt-Extract,Malt extract (dark),barley,yes,yes\n');
+    const file = csv(
+      'id,name,contains,vegan,vegetarian\nmalt-extract,Malt extract,barley,yes,yes\nflaky-salt,Flaky salt,none,yes,yes\nMalt-Extract,Malt extract (dark),barley,yes,yes\n',
+    );
     const rows = (await preview(file)).json().rows as Row[];
-    const problem = "is on rows 2, 4; each ingredient may be on one row only.";
+    const problem = 'is on rows 2, 4; each ingredient may be on one row only.';
     expect(rows[0].problems).toEqual([`id: 'malt-extract' ${problem}`]);
     expect(rows[1].problems).toEqual([]);
     expect(rows[2].problems).toEqual([`id: 'Malt-Extract' ${problem}`]);
@@ -171,12 +275,26 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
         `butter,${butter.name},Pellow Creamery,milk,,no,yes\n`,
     );
     const body = (await preview(file)).json();
-    expect(body.rows.map((r: Row) => [r.row, r.action])).toEqual([[2, 'unchanged'], [3, 'update']]);
+    expect(body.rows.map((r: Row) => [r.row, r.action])).toEqual([
+      [2, 'unchanged'],
+      [3, 'update'],
+    ]);
     const res = await importFile(file);
     expect(res.statusCode).toBe(200);
-    expect(res.json()).toEqual({ create: 0, update: 1, unchanged: 1, withProblems: 0, written: [{ id: 'butter', revision: butter.revision + 1 }] });
+    expect(res.json()).toEqual({
+      create: 0,
+      update: 1,
+      unchanged: 1,
+      withProblems: 0,
+      written: [{ id: 'butter', revision: butter.revision + 1 }],
+    });
     const after = (await ingredient('butter')).json();
-    expect(after).toMatchObject({ supplier: 'Pellow Creamery', revision: butter.revision + 1, nutrition: butter.nutrition, composition: butter.composition });
+    expect(after).toMatchObject({
+      supplier: 'Pellow Creamery',
+      revision: butter.revision + 1,
+      nutrition: butter.nutrition,
+      composition: butter.composition,
+    });
     expect((await ingredient('caster-sugar')).json().revision).toBe(1);
   });
 
@@ -194,8 +312,13 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
 
   it('names problems with the header, a recipe id and out-of-range values', async () => {
     const body = (await preview(csv('id,name,contians,vegan,fat\nvanilla-sponge,Sponge,,yes,120\nbutter,Butter,,no,5\n'))).json();
-    expect(body.problems).toEqual([expect.stringMatching(/^The column 'contians' is not one this import understands; did you mean 'contains'\?/)]);
-    expect(body.rows[0].problems).toEqual(["id: 'vanilla-sponge' is already the id of the recipe 'vanilla-sponge'; give the ingredient an id of its own.", "fat: '120' must be at most 100."]);
+    expect(body.problems).toEqual([
+      expect.stringMatching(/^The column 'contians' is not one this import understands; did you mean 'contains'\?/),
+    ]);
+    expect(body.rows[0].problems).toEqual([
+      "id: 'vanilla-sponge' is already the id of the recipe 'vanilla-sponge'; give the ingredient an id of its own.",
+      "fat: '120' must be at most 100.",
+    ]);
     const stray = (await preview(csv('id,name,contains\nrose-water,Rose water,none,,milk\n'))).json();
     expect(stray.rows[0].problems).toEqual(["column E: 'milk' is under no header; name the column in row 1 or clear the cell."]);
     const refused = await importFile(csv('id,name,contians\nrose-water,Rose water,none\n'));
@@ -207,7 +330,9 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
   it('refuses a file that is neither CSV nor .xlsx, judged by its content', async () => {
     const pdf = await preview(fixture('almond-paste-spec.pdf'), 'ingredients.csv');
     expect(pdf.statusCode).toBe(400);
-    expect(pdf.json().message).toBe('Only CSV files and Excel workbooks (.xlsx) can be imported; this file is a PDF file (application/pdf).');
+    expect(pdf.json().message).toBe(
+      'Only CSV files and Excel workbooks (.xlsx) can be imported; this file is a PDF file (application/pdf).',
+    );
     const latin1 = await preview(Buffer.from('id,name\ncr\xe8me,Cr\xe8me\n', 'latin1'));
     expect(latin1.statusCode).toBe(400);
     expect(latin1.json().message).toMatch(/not UTF-8 text/);

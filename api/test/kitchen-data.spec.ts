@@ -62,7 +62,16 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
       ingredients: [...shortbread.ingredients, { id: 'lemon', name: 'Lemon', contains: [], mayContain: [], vegan: true, vegetarian: true }],
       recipes: [
         shortbread.recipes[0],
-        { id: 'lemon-curd', name: 'Lemon curd', lines: [{ use: 'butter', qty: 50, unit: 'g' }, { use: 'flour', qty: 5, unit: 'g' }, { use: 'butter', qty: 1, unit: 'g' }, { use: 'lemon', qty: 2, unit: 'each' }] },
+        {
+          id: 'lemon-curd',
+          name: 'Lemon curd',
+          lines: [
+            { use: 'butter', qty: 50, unit: 'g' },
+            { use: 'flour', qty: 5, unit: 'g' },
+            { use: 'butter', qty: 1, unit: 'g' },
+            { use: 'lemon', qty: 2, unit: 'each' },
+          ],
+        },
       ],
     };
     const res = await req('POST', '/api/book/import', manager, bad);
@@ -75,7 +84,10 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   });
 
   it('refuses a book that fails the schema, naming the ingredient and field', async () => {
-    const res = await req('POST', '/api/book/import', manager, { ...shortbread, ingredients: [{ ...shortbread.ingredients[0], vegan: 'maybe' }] });
+    const res = await req('POST', '/api/book/import', manager, {
+      ...shortbread,
+      ingredients: [{ ...shortbread.ingredients[0], vegan: 'maybe' }],
+    });
     expect(res.statusCode).toBe(400);
     expect(res.json().fields[0].path).toBe('ingredients.0 (flour).vegan');
   });
@@ -104,7 +116,11 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   });
 
   it('refuses a line that uses an unknown id', async () => {
-    const res = await req('POST', '/api/recipes', chef, { id: 'mystery-bun', name: 'Mystery bun', lines: [{ use: 'unicorn-dust', qty: 5, unit: 'g' }] });
+    const res = await req('POST', '/api/recipes', chef, {
+      id: 'mystery-bun',
+      name: 'Mystery bun',
+      lines: [{ use: 'unicorn-dust', qty: 5, unit: 'g' }],
+    });
     expect(res.statusCode).toBe(400);
     expect(res.json().code).toBe('unknown-reference');
     expect(res.json().message).toMatch(/unicorn-dust/);
@@ -150,7 +166,12 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
 
   it('previews a recipe as edited without saving it', async () => {
     const before = await count('recipe_revisions');
-    const res = await req('POST', '/api/declarations/preview', chef, { id: 'draft-biscuit', name: 'Draft biscuit', lines: [{ use: 'flour', qty: 100, unit: 'g' }], sale: { portionG: 20, claims: ['gluten-free'] } });
+    const res = await req('POST', '/api/declarations/preview', chef, {
+      id: 'draft-biscuit',
+      name: 'Draft biscuit',
+      lines: [{ use: 'flour', qty: 100, unit: 'g' }],
+      sale: { portionG: 20, claims: ['gluten-free'] },
+    });
     expect(res.statusCode).toBe(200);
     expect(res.json().claims['gluten-free'].status).toBe('fails');
     expect(await count('recipe_revisions')).toBe(before);
@@ -160,8 +181,15 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const before = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json() as ProductDeclaration;
     expect(before.mayContain.map((m) => m.allergen)).not.toContain('lupin');
     const kitchen = (await req('GET', '/api/kitchen', counter)).json();
-    expect((await t.app.inject({ method: 'PATCH', url: '/api/kitchen', headers: { cookie: chef }, payload: { handles: [] } })).statusCode).toBe(403);
-    const bad = await t.app.inject({ method: 'PATCH', url: '/api/kitchen', headers: { cookie: manager }, payload: { handles: [{ allergen: 'lupin', controls: 'sometimes' }] } });
+    expect(
+      (await t.app.inject({ method: 'PATCH', url: '/api/kitchen', headers: { cookie: chef }, payload: { handles: [] } })).statusCode,
+    ).toBe(403);
+    const bad = await t.app.inject({
+      method: 'PATCH',
+      url: '/api/kitchen',
+      headers: { cookie: manager },
+      payload: { handles: [{ allergen: 'lupin', controls: 'sometimes' }] },
+    });
     expect(bad.statusCode).toBe(400);
     expect(bad.json().fields[0].path).toBe('handles.0.controls');
     const res = await t.app.inject({
@@ -222,7 +250,12 @@ describe('two writes at once (real MariaDB)', () => {
   it('never lets two recipes start using each other at the same moment', async () => {
     const base = { lines: [{ use: 'caster-sugar', qty: 10, unit: 'g' }] };
     for (const id of ['alpha-crumb', 'beta-crumb']) {
-      const res = await t.app.inject({ method: 'POST', url: '/api/recipes', headers: { cookie: chef }, payload: { id, name: id, ...base } });
+      const res = await t.app.inject({
+        method: 'POST',
+        url: '/api/recipes',
+        headers: { cookie: chef },
+        payload: { id, name: id, ...base },
+      });
       expect(res.statusCode).toBe(201);
     }
     const put = (id: string, other: string) =>

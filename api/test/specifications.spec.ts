@@ -19,19 +19,31 @@ describe('supplier specifications (real MariaDB)', () => {
 
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    [chef, manager, counter] = await Promise.all(['chef@example.com', 'manager@example.com', 'counter@example.com'].map((e) => t.signIn(e)));
+    [chef, manager, counter] = await Promise.all(
+      ['chef@example.com', 'manager@example.com', 'counter@example.com'].map((e) => t.signIn(e)),
+    );
   });
   afterAll(() => t.close());
 
   const upload = async (code: string, fields: Record<string, string>, file?: FormFile, cookie = chef) => {
     const form = await multipart(fields, ...(file ? [file] : []));
-    return t.app.inject({ method: 'POST', url: `/api/ingredients/${code}/specifications`, payload: form.payload, headers: { ...form.headers, cookie } });
+    return t.app.inject({
+      method: 'POST',
+      url: `/api/ingredients/${code}/specifications`,
+      payload: form.payload,
+      headers: { ...form.headers, cookie },
+    });
   };
   const get = (url: string, cookie = chef) => t.app.inject({ method: 'GET', url, headers: { cookie } });
-  const storedRows = async () => ((await t.sequelize.query('SELECT COUNT(*) AS n FROM specifications', { plain: true })) as { n: number | bigint }).n;
+  const storedRows = async () =>
+    ((await t.sequelize.query('SELECT COUNT(*) AS n FROM specifications', { plain: true })) as { n: number | bigint }).n;
 
   it('accepts a PDF and versions each upload, newest first', async () => {
-    const first = await upload('ground-almonds', { reviewBy: isoDay(180), note: 'From the 2026 price list' }, { name: 'almond-spec.pdf', bytes: pdf, type: 'application/pdf' });
+    const first = await upload(
+      'ground-almonds',
+      { reviewBy: isoDay(180), note: 'From the 2026 price list' },
+      { name: 'almond-spec.pdf', bytes: pdf, type: 'application/pdf' },
+    );
     expect(first.statusCode).toBe(201);
     expect(first.json()).toEqual({
       id: expect.any(Number),
@@ -66,7 +78,13 @@ describe('supplier specifications (real MariaDB)', () => {
   it('accepts a PNG, whatever type the browser claims, and stores the type found in the bytes', async () => {
     const res = await upload('walnuts', { reviewBy: isoDay(0) }, { name: 'walnut label.png', bytes: png, type: 'application/pdf' });
     expect(res.statusCode).toBe(201);
-    expect(res.json()).toMatchObject({ version: 1, mediaType: 'image/png', filename: 'walnut label.png', reviewBy: isoDay(0), reviewOverdue: false });
+    expect(res.json()).toMatchObject({
+      version: 1,
+      mediaType: 'image/png',
+      filename: 'walnut label.png',
+      reviewBy: isoDay(0),
+      reviewOverdue: false,
+    });
   });
 
   it('sanitises the file name: no folders, no control or reserved characters', async () => {
@@ -77,7 +95,11 @@ describe('supplier specifications (real MariaDB)', () => {
 
   it('refuses a text file named spec.pdf with 400 and stores nothing', async () => {
     const before = await storedRows();
-    const res = await upload('butter', { reviewBy: isoDay(30) }, { name: 'spec.pdf', bytes: fixture('not-really-a.pdf'), type: 'application/pdf' });
+    const res = await upload(
+      'butter',
+      { reviewBy: isoDay(30) },
+      { name: 'spec.pdf', bytes: fixture('not-really-a.pdf'), type: 'application/pdf' },
+    );
     expect(res.statusCode).toBe(400);
     expect(res.json()).toMatchObject({
       code: 'validation',
@@ -99,7 +121,10 @@ describe('supplier specifications (real MariaDB)', () => {
     const big = Buffer.concat([pdf, Buffer.alloc(10 * 1024 * 1024 + 1 - pdf.length, 0x20)]);
     const res = await upload('butter', { reviewBy: isoDay(30) }, { name: 'huge.pdf', bytes: big });
     expect(res.statusCode).toBe(413);
-    expect(res.json()).toMatchObject({ code: 'too-large', message: 'The file is larger than 10 MB, the most an upload may be. Attach a smaller file.' });
+    expect(res.json()).toMatchObject({
+      code: 'too-large',
+      message: 'The file is larger than 10 MB, the most an upload may be. Attach a smaller file.',
+    });
     expect(await storedRows()).toBe(before);
 
     const atTheLimit = Buffer.concat([pdf, Buffer.alloc(10 * 1024 * 1024 - pdf.length, 0x20)]);
@@ -112,7 +137,12 @@ describe('supplier specifications (real MariaDB)', () => {
   it('refuses a second file in the form', async () => {
     const before = await storedRows();
     const form = await multipart({ reviewBy: isoDay(30) }, { name: 'a.pdf', bytes: pdf }, { name: 'b.pdf', bytes: pdf });
-    const res = await t.app.inject({ method: 'POST', url: '/api/ingredients/butter/specifications', payload: form.payload, headers: { ...form.headers, cookie: chef } });
+    const res = await t.app.inject({
+      method: 'POST',
+      url: '/api/ingredients/butter/specifications',
+      payload: form.payload,
+      headers: { ...form.headers, cookie: chef },
+    });
     expect(res.statusCode).toBe(400);
     expect(res.json().message).toBe('Attach one file only.');
     expect(await storedRows()).toBe(before);
@@ -139,7 +169,12 @@ describe('supplier specifications (real MariaDB)', () => {
     const extra = await upload('butter', { reviewBy: isoDay(30), reviewby: isoDay(30) }, { name: 'butter.pdf', bytes: pdf });
     expect(extra.statusCode).toBe(400);
     expect(extra.json().fields).toEqual([{ path: 'reviewby', message: expect.stringMatching(/no field 'reviewby'/) }]);
-    const json = await t.app.inject({ method: 'POST', url: '/api/ingredients/butter/specifications', payload: { reviewBy: isoDay(30) }, headers: { cookie: chef } });
+    const json = await t.app.inject({
+      method: 'POST',
+      url: '/api/ingredients/butter/specifications',
+      payload: { reviewBy: isoDay(30) },
+      headers: { cookie: chef },
+    });
     expect(json.statusCode).toBe(400);
     expect(json.json().message).toMatch(/multipart\/form-data/);
   });
@@ -167,7 +202,9 @@ describe('supplier specifications (real MariaDB)', () => {
     const res = await get(created.fileUrl);
     expect(res.statusCode).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
-    expect(res.headers['content-disposition']).toBe(`inline; filename="Chocolat noir _ fiche.pdf"; filename*=UTF-8''${encodeURIComponent('Chocolat noir – fiche.pdf')}`);
+    expect(res.headers['content-disposition']).toBe(
+      `inline; filename="Chocolat noir _ fiche.pdf"; filename*=UTF-8''${encodeURIComponent('Chocolat noir – fiche.pdf')}`,
+    );
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(sha256(res.rawPayload)).toBe(sha256(pdf));
     expect(sha256(res.rawPayload)).toBe(created.sha256);
@@ -182,7 +219,12 @@ describe('supplier specifications (real MariaDB)', () => {
 
     const res = await get('/api/specifications/status');
     expect(res.statusCode).toBe(200);
-    const status = res.json() as { ingredient: string; name: string; state: string; latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null }[];
+    const status = res.json() as {
+      ingredient: string;
+      name: string;
+      state: string;
+      latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
+    }[];
     const books = (await get('/api/ingredients')).json() as { id: string; name: string }[];
     expect(status.map((s) => s.ingredient).sort()).toEqual(books.map((b) => b.id).sort());
     const of = (code: string) => status.find((s) => s.ingredient === code)!;

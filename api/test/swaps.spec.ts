@@ -19,7 +19,13 @@ describe('swap check (real MariaDB)', () => {
     const dairy = book.ingredients.filter((i) => (i.contains ?? []).some((c) => (typeof c === 'string' ? c : c.source) === 'milk'));
     const uses = (id: string) => book.recipes.filter((r) => r.lines.some((l) => l.use === id)).length;
     const from = dairy.sort((a, b) => uses(b.id) - uses(a.id))[0];
-    const to = book.ingredients.find((i) => i.vegan === true && i.contains !== undefined && !(i.contains ?? []).some((c) => (typeof c === 'string' ? c : c.source) === 'milk') && i.id !== from.id)!;
+    const to = book.ingredients.find(
+      (i) =>
+        i.vegan === true &&
+        i.contains !== undefined &&
+        !(i.contains ?? []).some((c) => (typeof c === 'string' ? c : c.source) === 'milk') &&
+        i.id !== from.id,
+    )!;
     return { from, to };
   }
 
@@ -34,7 +40,9 @@ describe('swap check (real MariaDB)', () => {
       expect(p.diff.claims).toHaveLength(8);
       expect(p.before.product).toBe(p.product);
     }
-    const revisions = (await t.app.inject({ method: 'GET', url: `/api/recipes/${preview.recipes[0].id}`, headers: { cookie: chef } })).json().revision;
+    const revisions = (
+      await t.app.inject({ method: 'GET', url: `/api/recipes/${preview.recipes[0].id}`, headers: { cookie: chef } })
+    ).json().revision;
     expect(revisions).toBe(1);
   });
 
@@ -55,7 +63,12 @@ describe('swap check (real MariaDB)', () => {
     const preview = (await post('/api/swaps/preview', { from: from.id, to: to.id })).json();
     const res = await post('/api/swaps/apply', { from: from.id, to: to.id });
     expect(res.statusCode).toBe(200);
-    expect(res.json().recipes.map((r: { id: string }) => r.id).sort()).toEqual(preview.recipes.map((r: { id: string }) => r.id).sort());
+    expect(
+      res
+        .json()
+        .recipes.map((r: { id: string }) => r.id)
+        .sort(),
+    ).toEqual(preview.recipes.map((r: { id: string }) => r.id).sort());
     for (const r of res.json().recipes) expect(r.revision).toBe(2);
     // The new revision keeps its declaration, so the history can say what the swap changed.
     const changed = res.json().recipes[0].id;

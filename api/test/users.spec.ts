@@ -15,12 +15,22 @@ describe('users (manager)', () => {
   it('lists users without any password or hash', async () => {
     const res = await call('GET', '/api/users');
     expect(res.statusCode).toBe(200);
-    expect(res.json().map((u: { email: string }) => u.email).sort()).toEqual(['chef@example.com', 'counter@example.com', 'manager@example.com']);
+    expect(
+      res
+        .json()
+        .map((u: { email: string }) => u.email)
+        .sort(),
+    ).toEqual(['chef@example.com', 'counter@example.com', 'manager@example.com']);
     expect(res.body).not.toMatch(/password|hash/i);
   });
 
   it('creates a user who can then sign in with the role given', async () => {
-    const res = await call('POST', '/api/users', { email: 'new.baker@example.com', name: 'Oona Vey', role: 'pastry-chef', password: 'layered-sponge-42' });
+    const res = await call('POST', '/api/users', {
+      email: 'new.baker@example.com',
+      name: 'Oona Vey',
+      role: 'pastry-chef',
+      password: 'layered-sponge-42',
+    });
     expect(res.statusCode).toBe(201);
     const cookie = await t.signIn('new.baker@example.com', 'layered-sponge-42');
     const me = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie } });
@@ -35,7 +45,12 @@ describe('users (manager)', () => {
   });
 
   it('refuses a second account with the same email', async () => {
-    const res = await call('POST', '/api/users', { email: 'chef@example.com', name: 'Twin', role: 'pastry-chef', password: 'another-pass-99' });
+    const res = await call('POST', '/api/users', {
+      email: 'chef@example.com',
+      name: 'Twin',
+      role: 'pastry-chef',
+      password: 'another-pass-99',
+    });
     expect(res.statusCode).toBe(409);
     expect(res.json().message).toBe('A user with that email already exists.');
   });
@@ -51,11 +66,22 @@ describe('users (manager)', () => {
   });
 
   it('a deactivated user is signed out and cannot sign in', async () => {
-    const created = (await call('POST', '/api/users', { email: 'leaver@example.com', name: 'Ash Leaver', role: 'front-of-house', password: 'gone-by-friday-1' })).json();
+    const created = (
+      await call('POST', '/api/users', {
+        email: 'leaver@example.com',
+        name: 'Ash Leaver',
+        role: 'front-of-house',
+        password: 'gone-by-friday-1',
+      })
+    ).json();
     const session = await t.signIn('leaver@example.com', 'gone-by-friday-1');
     expect((await call('PATCH', `/api/users/${created.id}`, { active: false })).statusCode).toBe(200);
     expect((await call('GET', '/api/me', undefined, session)).statusCode).toBe(401);
-    const again = await t.app.inject({ method: 'POST', url: '/api/auth/sign-in', payload: { email: 'leaver@example.com', password: 'gone-by-friday-1' } });
+    const again = await t.app.inject({
+      method: 'POST',
+      url: '/api/auth/sign-in',
+      payload: { email: 'leaver@example.com', password: 'gone-by-friday-1' },
+    });
     expect(again.statusCode).toBe(401);
   });
 

@@ -3,19 +3,68 @@
  * (reference-data/regimes.json) decides which group a source belongs to, or none.
  */
 export const ALLERGEN_SOURCES = [
-  'wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'triticale',
-  'almond', 'hazelnut', 'walnut', 'cashew', 'pecan', 'brazil-nut', 'pistachio', 'macadamia', 'pine-nut', 'coconut',
-  'peanut', 'soy', 'milk', 'egg', 'fish', 'crustacean', 'mollusc',
-  'celery', 'mustard', 'sesame', 'lupin', 'sulphites',
+  'wheat',
+  'rye',
+  'barley',
+  'oats',
+  'spelt',
+  'khorasan',
+  'triticale',
+  'almond',
+  'hazelnut',
+  'walnut',
+  'cashew',
+  'pecan',
+  'brazil-nut',
+  'pistachio',
+  'macadamia',
+  'pine-nut',
+  'coconut',
+  'peanut',
+  'soy',
+  'milk',
+  'egg',
+  'fish',
+  'crustacean',
+  'mollusc',
+  'celery',
+  'mustard',
+  'sesame',
+  'lupin',
+  'sulphites',
 ] as const;
 export type AllergenSource = (typeof ALLERGEN_SOURCES)[number];
 
 export const SOURCE_LABELS: Record<AllergenSource, string> = {
-  wheat: 'wheat', rye: 'rye', barley: 'barley', oats: 'oats', spelt: 'spelt', khorasan: 'khorasan wheat', triticale: 'triticale',
-  almond: 'almond', hazelnut: 'hazelnut', walnut: 'walnut', cashew: 'cashew', pecan: 'pecan', 'brazil-nut': 'Brazil nut',
-  pistachio: 'pistachio', macadamia: 'macadamia', 'pine-nut': 'pine nut', coconut: 'coconut',
-  peanut: 'peanut', soy: 'soy', milk: 'milk', egg: 'egg', fish: 'fish', crustacean: 'crustacean', mollusc: 'mollusc',
-  celery: 'celery', mustard: 'mustard', sesame: 'sesame', lupin: 'lupin', sulphites: 'sulphites',
+  wheat: 'wheat',
+  rye: 'rye',
+  barley: 'barley',
+  oats: 'oats',
+  spelt: 'spelt',
+  khorasan: 'khorasan wheat',
+  triticale: 'triticale',
+  almond: 'almond',
+  hazelnut: 'hazelnut',
+  walnut: 'walnut',
+  cashew: 'cashew',
+  pecan: 'pecan',
+  'brazil-nut': 'Brazil nut',
+  pistachio: 'pistachio',
+  macadamia: 'macadamia',
+  'pine-nut': 'pine nut',
+  coconut: 'coconut',
+  peanut: 'peanut',
+  soy: 'soy',
+  milk: 'milk',
+  egg: 'egg',
+  fish: 'fish',
+  crustacean: 'crustacean',
+  mollusc: 'mollusc',
+  celery: 'celery',
+  mustard: 'mustard',
+  sesame: 'sesame',
+  lupin: 'lupin',
+  sulphites: 'sulphites',
 };
 
 /** Sources whose species the US statement must name (fish, crustacean shellfish). */
@@ -26,8 +75,17 @@ export const SPECIES_SOURCES: readonly AllergenSource[] = ['fish', 'crustacean',
  * (EU 1169/2011 Annex II exceptions; FD&C Act 201(qq) highly refined oils).
  */
 export const EXEMPT_FORMS = [
-  'glucose-syrup', 'dextrose', 'maltodextrin', 'distillate', 'refined-oil', 'tocopherols', 'phytosterols',
-  'plant-stanol-ester', 'lactitol', 'fish-gelatine-carrier', 'isinglass-fining',
+  'glucose-syrup',
+  'dextrose',
+  'maltodextrin',
+  'distillate',
+  'refined-oil',
+  'tocopherols',
+  'phytosterols',
+  'plant-stanol-ester',
+  'lactitol',
+  'fish-gelatine-carrier',
+  'isinglass-fining',
 ] as const;
 export type ExemptForm = (typeof EXEMPT_FORMS)[number];
 
@@ -66,8 +124,14 @@ export const CONTROL_LABELS: Record<Control, string> = {
 export const CLAIMS = ['vegan', 'vegetarian', 'egg-free', 'dairy-free', 'gluten-free', 'nut-free', 'peanut-free', 'sesame-free'] as const;
 export type Claim = (typeof CLAIMS)[number];
 export const CLAIM_LABELS: Record<Claim, string> = {
-  vegan: 'Vegan', vegetarian: 'Vegetarian', 'egg-free': 'Egg-free', 'dairy-free': 'Dairy-free',
-  'gluten-free': 'Gluten-free', 'nut-free': 'Nut-free', 'peanut-free': 'Peanut-free', 'sesame-free': 'Sesame-free',
+  vegan: 'Vegan',
+  vegetarian: 'Vegetarian',
+  'egg-free': 'Egg-free',
+  'dairy-free': 'Dairy-free',
+  'gluten-free': 'Gluten-free',
+  'nut-free': 'Nut-free',
+  'peanut-free': 'Peanut-free',
+  'sesame-free': 'Sesame-free',
 };
 export type ClaimStatus = 'ok' | 'fails' | 'unverified';
 

@@ -5,21 +5,51 @@ import { diffDeclarations } from './declaration-diff';
 function declaration(over: Partial<Declaration>): Declaration {
   const claims = Object.fromEntries(CLAIMS.map((c) => [c, { status: 'ok', reasons: [] }])) as unknown as Declaration['claims'];
   return {
-    product: 'p', name: 'P', regime: 'UK', finishedWeightG: 100, mixWeightG: 100, portionG: 50,
-    contains: [], mayContain: [], unknown: [], exempt: [], claims, ingredients: [],
-    ingredientsText: '', ingredientsSegments: [], ingredientsMarkdown: '', mayContainText: null,
-    quid: [], sulphites: { mgPerKg: 0, declared: false }, warnings: [], errors: [],
+    product: 'p',
+    name: 'P',
+    regime: 'UK',
+    finishedWeightG: 100,
+    mixWeightG: 100,
+    portionG: 50,
+    contains: [],
+    mayContain: [],
+    unknown: [],
+    exempt: [],
+    claims,
+    ingredients: [],
+    ingredientsText: '',
+    ingredientsSegments: [],
+    ingredientsMarkdown: '',
+    mayContainText: null,
+    quid: [],
+    sulphites: { mgPerKg: 0, declared: false },
+    warnings: [],
+    errors: [],
     ...over,
   };
 }
 
 describe('diffDeclarations', () => {
   const milk = { allergen: 'milk', label: 'milk', sources: ['milk' as const], via: [['p', 'butter']] };
-  const butter = { id: 'butter', name: 'Butter', kind: 'ingredient' as const, percent: 40, orderWeightG: 40, allergens: ['milk'], role: 'ingredient' as const, children: [] };
+  const butter = {
+    id: 'butter',
+    name: 'Butter',
+    kind: 'ingredient' as const,
+    percent: 40,
+    orderWeightG: 40,
+    allergens: ['milk'],
+    role: 'ingredient' as const,
+    children: [],
+  };
   const spread = { ...butter, id: 'spread', name: 'Plant spread', allergens: [] };
 
   it('names allergens removed and added, may-contain changes and claims before → after', () => {
-    const before = declaration({ contains: [milk], ingredients: [butter], ingredientsText: 'butter (milk)', claims: { ...declaration({}).claims, vegan: { status: 'fails', reasons: [] } } });
+    const before = declaration({
+      contains: [milk],
+      ingredients: [butter],
+      ingredientsText: 'butter (milk)',
+      claims: { ...declaration({}).claims, vegan: { status: 'fails', reasons: [] } },
+    });
     const after = declaration({
       mayContain: [{ allergen: 'milk', label: 'milk', why: ['Supplier of Plant spread: may contain milk'] }],
       ingredients: [spread],

@@ -68,17 +68,7 @@ export interface LabelCell {
   text: string;
 }
 
-export const EU_LABEL_ROWS = [
-  'energyKj',
-  'energyKcal',
-  'fat',
-  'saturates',
-  'carbohydrate',
-  'sugars',
-  'fibre',
-  'protein',
-  'salt',
-] as const;
+export const EU_LABEL_ROWS = ['energyKj', 'energyKcal', 'fat', 'saturates', 'carbohydrate', 'sugars', 'fibre', 'protein', 'salt'] as const;
 export type EuLabelRowKey = (typeof EU_LABEL_ROWS)[number];
 
 export interface EuLabelRow {

@@ -1,7 +1,36 @@
+import type { Regime } from './allergens';
 import type { Declaration } from './declaration';
 import type { NutritionDeclaration } from './nutrition';
 
 /** What the API, the command line and the labels give for a product: allergens, claims, list and nutrition. */
 export interface ProductDeclaration extends Declaration {
   nutrition: NutritionDeclaration;
+}
+
+/** One recorded item a served declaration was computed from, at the revision it was read. */
+export interface DeclarationBasisItem {
+  id: string;
+  kind: 'ingredient' | 'recipe';
+  name: string;
+  revision: number;
+}
+
+/**
+ * Where a served declaration comes from: when it was computed, under which regime, from which
+ * revision of the product and of every ingredient and sub-recipe it reaches, and which version of
+ * the kitchen's settings (handling, measures). A page that shows a declaration shows this too.
+ */
+export interface DeclarationBasis {
+  /** ISO timestamp of the computation (when it was first computed for exactly these inputs). */
+  computedAt: string;
+  regime: Regime;
+  /** The product itself first, then every item below it. */
+  items: DeclarationBasisItem[];
+  /** The kitchen settings' version (regime, measures, handling). */
+  siteVersion: number;
+}
+
+/** A product's declaration as the API serves it from the store: the declaration and its basis. */
+export interface ServedDeclaration extends ProductDeclaration {
+  basis: DeclarationBasis;
 }

@@ -20,7 +20,11 @@ function imports(file: string): string[] {
 }
 
 const offenders = (dir: string, bad: (spec: string, file: string) => boolean) =>
-  files(join(ROOT, dir)).flatMap((f) => imports(f).filter((s) => bad(s, f)).map((s) => `${relative(ROOT, f)} imports ${s}`));
+  files(join(ROOT, dir)).flatMap((f) =>
+    imports(f)
+      .filter((s) => bad(s, f))
+      .map((s) => `${relative(ROOT, f)} imports ${s}`),
+  );
 
 describe('import boundaries', () => {
   it('shared imports only zod and its own files', () => {

@@ -22,7 +22,20 @@ describe('the private MariaDB of npm start', () => {
     db.createDatabase({ database: 'crumbproof_check', user: 'crumbproof', password: 'crumbproof-local' });
     const tcp = spawnSync(
       'mariadb',
-      ['--no-defaults', '-h', '127.0.0.1', '-P', String(port), '-u', 'crumbproof', '-pcrumbproof-local', '-N', '-e', "SELECT @@bind_address, @@character_set_server, DATABASE() FROM DUAL", 'crumbproof_check'],
+      [
+        '--no-defaults',
+        '-h',
+        '127.0.0.1',
+        '-P',
+        String(port),
+        '-u',
+        'crumbproof',
+        '-pcrumbproof-local',
+        '-N',
+        '-e',
+        'SELECT @@bind_address, @@character_set_server, DATABASE() FROM DUAL',
+        'crumbproof_check',
+      ],
       { encoding: 'utf8' },
     );
     expect(tcp.status).toBe(0);
@@ -39,7 +52,9 @@ describe('the private MariaDB of npm start', () => {
 
   it('keeps its data across a restart', async () => {
     await db.start();
-    const r = spawnSync('mariadb', [`--defaults-file=${db.cnf}`, '-N', '-e', 'SHOW DATABASES LIKE "crumbproof_check"'], { encoding: 'utf8' });
+    const r = spawnSync('mariadb', [`--defaults-file=${db.cnf}`, '-N', '-e', 'SHOW DATABASES LIKE "crumbproof_check"'], {
+      encoding: 'utf8',
+    });
     expect(r.stdout.trim()).toBe('crumbproof_check');
     await db.stop();
   });

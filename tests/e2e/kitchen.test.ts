@@ -26,7 +26,10 @@ describe('kitchen settings, in Chromium', () => {
     await page.getByText(/Every product’s declaration now follows these settings/).waitFor();
 
     await page.goto(`${BASE_URL}/recipes/vegan-brownie`);
-    await page.getByRole('region', { name: 'May contain' }).getByText(/Lupin: handled in the same area of this kitchen/).waitFor();
+    await page
+      .getByRole('region', { name: 'May contain' })
+      .getByText(/Lupin: handled in the same area of this kitchen/)
+      .waitFor();
 
     // Put the kitchen back as it was for the other tests.
     await page.goto(`${BASE_URL}/kitchen`);

@@ -11,7 +11,10 @@ async function pick(page: Page, label: string, name: string) {
   const box = page.getByLabel(label, { exact: true });
   await box.click();
   await box.fill(name);
-  await page.getByRole('option', { name: new RegExp(`^${name.replace(/[()]/g, '\\$&')}`) }).first().click();
+  await page
+    .getByRole('option', { name: new RegExp(`^${name.replace(/[()]/g, '\\$&')}`) })
+    .first()
+    .click();
 }
 
 async function axeViolations(page: Page) {
@@ -39,7 +42,9 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await page.getByRole('group', { name: 'Vegan' }).getByLabel('Yes').check();
     await page.getByRole('group', { name: 'Vegetarian' }).getByLabel('Yes').check();
     await page.getByLabel('Weight per millilitre (g)').fill('1.01');
-    await page.getByLabel("Composition (supplier's ingredients text)").fill('Water, oats (10%), rapeseed oil, acidity regulator: potassium phosphates, salt');
+    await page
+      .getByLabel("Composition (supplier's ingredients text)")
+      .fill('Water, oats (10%), rapeseed oil, acidity regulator: potassium phosphates, salt');
     await page.getByRole('region', { name: 'Found in the composition' }).getByText('oats', { exact: false }).first().waitFor();
     await screenshot(page, 'ingredient-new-1280');
     await page.getByRole('button', { name: 'Save ingredient' }).click();
@@ -85,7 +90,10 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await page.getByRole('checkbox', { name: 'Vegan', exact: true }).check();
     await live.getByText(/Contains\s*milk/).waitFor();
     // A wanted claim that the recipe breaks is shown before saving.
-    await page.getByText(/Vegan is wanted but fails/).first().waitFor();
+    await page
+      .getByText(/Vegan is wanted but fails/)
+      .first()
+      .waitFor();
     await screenshot(page, 'recipe-editor-1280');
     await page.getByRole('button', { name: 'Save recipe' }).click();
     await page.waitForURL(/\/recipes\/vanilla-cream-cup$/);
@@ -119,7 +127,10 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await page.getByRole('region', { name: 'Swap result' }).getByRole('heading', { name: 'Vanilla cream cup' }).waitFor();
     await page.getByRole('button', { name: 'Apply swap' }).click();
     await page.getByRole('button', { name: 'Yes, apply to 1 recipe' }).click();
-    await page.getByText(/Vanilla cream filling.*: revision 2/).first().waitFor();
+    await page
+      .getByText(/Vanilla cream filling.*: revision 2/)
+      .first()
+      .waitFor();
 
     await page.goto(`${BASE_URL}/recipes/vanilla-cream-cup`);
     await page.getByText('Vegan: Holds').waitFor();
@@ -166,7 +177,14 @@ describe('the pastry chef’s workbench, in Chromium', () => {
   });
 
   it('has no accessibility violations on the workbench pages', async () => {
-    for (const path of ['/ingredients', '/ingredients/oat-cream', '/ingredients/import', '/recipes', '/recipes/vanilla-cream-cup/edit', '/recipes/swap']) {
+    for (const path of [
+      '/ingredients',
+      '/ingredients/oat-cream',
+      '/ingredients/import',
+      '/recipes',
+      '/recipes/vanilla-cream-cup/edit',
+      '/recipes/swap',
+    ]) {
       await s.page.goto(`${BASE_URL}${path}`);
       await s.page.getByRole('heading', { level: 1 }).waitFor();
       await s.page.waitForLoadState('networkidle');
@@ -206,8 +224,14 @@ describe('front of house', () => {
     await s.page.getByText('Vegan: Holds').waitFor();
     // The demo product's declaration: allergens with their paths, the caution, nutrition in both formats.
     await s.page.getByRole('region', { name: 'Contains' }).getByText('cereals containing gluten').waitFor();
-    await s.page.getByRole('region', { name: 'May contain' }).getByText(/Supplier of Plant-based baking spread: may contain milk/).waitFor();
-    await s.page.getByText(/Computed from the recipes and supplier information recorded in Crumbproof/).first().waitFor();
+    await s.page
+      .getByRole('region', { name: 'May contain' })
+      .getByText(/Supplier of Plant-based baking spread: may contain milk/)
+      .waitFor();
+    await s.page
+      .getByText(/Computed from the recipes and supplier information recorded in Crumbproof/)
+      .first()
+      .waitFor();
     await s.page.getByRole('table', { name: 'Nutrition declaration (EU and UK): as this kitchen prints it' }).waitFor();
     await s.page.getByRole('table', { name: 'Nutrition per serving (70 g), United States' }).waitFor();
     await screenshot(s.page, 'product-page-counter-1280');

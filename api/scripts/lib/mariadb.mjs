@@ -140,11 +140,7 @@ export function instance({ dir, port }) {
     }
     if (!existsSync(join(datadir, 'mysql'))) {
       mkdirSync(datadir, { recursive: true });
-      const r = run('mariadb-install-db', [
-        '--auth-root-authentication-method=normal',
-        '--skip-test-db',
-        '--skip-name-resolve',
-      ]);
+      const r = run('mariadb-install-db', ['--auth-root-authentication-method=normal', '--skip-test-db', '--skip-name-resolve']);
       if (r.status !== 0) throw new Error(`mariadb-install-db failed:\n${r.stderr || r.stdout}`);
     }
     const child = spawn(findServerBinary(), [`--defaults-file=${cnf}`], {
@@ -209,7 +205,7 @@ export function instance({ dir, port }) {
       const other = Number(pidText);
       let alive = false;
       try {
-        if (other) process.kill(other, 0), (alive = true);
+        if (other) (process.kill(other, 0), (alive = true));
       } catch {
         alive = false;
       }

@@ -27,7 +27,12 @@ export class AuthController {
   @ApiZodBody(signInSchema)
   async signIn(@Body(new ZodPipe(signInSchema)) body: SignInRequest, @Res({ passthrough: true }) reply: FastifyReply): Promise<Me> {
     const { me, token } = await this.auth.signIn(body);
-    setSessionCookie(reply, token, this.config.get('SESSION_MINUTES', { infer: true }) * 60, this.config.get('COOKIE_SECURE', { infer: true }));
+    setSessionCookie(
+      reply,
+      token,
+      this.config.get('SESSION_MINUTES', { infer: true }) * 60,
+      this.config.get('COOKIE_SECURE', { infer: true }),
+    );
     return me;
   }
 

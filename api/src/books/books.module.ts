@@ -29,7 +29,15 @@ import { BooksService } from './books.service';
     SequelizeModule.forFeature([SiteModel, IngredientModel, IngredientRevisionModel, RecipeModel, RecipeRevisionModel, DeclarationModel]),
   ],
   controllers: [BooksController, IngredientsController, RecipesController, DeclarationsController],
-  providers: [BooksService, IngredientsRepository, IngredientsService, RecipesRepository, RecipesService, DeclarationsService, TransactionRunner],
+  providers: [
+    BooksService,
+    IngredientsRepository,
+    IngredientsService,
+    RecipesRepository,
+    RecipesService,
+    DeclarationsService,
+    TransactionRunner,
+  ],
   exports: [BooksService, DeclarationsService],
 })
 export class BooksModule {}

@@ -96,7 +96,12 @@ export class BooksService {
 
       let siteRow = site;
       let siteState: ImportSummary['site'] = 'unchanged';
-      const siteFields = { name: book.site.name, regime: book.site.regime, measures: book.site.measures ?? null, handles: book.site.handles };
+      const siteFields = {
+        name: book.site.name,
+        regime: book.site.regime,
+        measures: book.site.measures ?? null,
+        handles: book.site.handles,
+      };
       if (!siteRow) {
         siteRow = await this.sites.create({ ...siteFields, address: meta.address ?? '' }, { transaction: t });
         siteState = 'created';
@@ -154,7 +159,9 @@ export class BooksService {
         for (const item of items) {
           const exists = own.some((x) => x.id === item.id);
           if (expect === 'new' && all.has(item.id)) {
-            throw new AppError('conflict', `The id '${item.id}' is already used. Choose another id.`, [{ path: 'id', message: 'This id is already used.' }]);
+            throw new AppError('conflict', `The id '${item.id}' is already used. Choose another id.`, [
+              { path: 'id', message: 'This id is already used.' },
+            ]);
           }
           if (expect === 'existing' && !exists) throw new AppError('not-found', `There is no ${kind} '${item.id}'.`);
           if (!exists && all.has(item.id)) {

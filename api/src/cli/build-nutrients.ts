@@ -20,7 +20,6 @@ import { resolve } from 'node:path';
 import { nutrientTableSchema, NutrientTableRow } from '../rules/core/nutrition/nutrient-table';
 import { loadIfct, type IfctFood } from '../rules/ifct';
 
-
 interface IfctSpec {
   id: string;
   name: string;

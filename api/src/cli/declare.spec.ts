@@ -7,7 +7,11 @@ import { join } from 'node:path';
 const ROOT = join(__dirname, '..', '..', '..');
 // npm sets INIT_CWD to where the user ran it; paths in the arguments are read from there.
 const run = (...args: string[]) =>
-  spawnSync('node', [join(ROOT, 'api', 'scripts', 'declare.mjs'), ...args], { cwd: ROOT, encoding: 'utf8', env: { ...process.env, INIT_CWD: ROOT } });
+  spawnSync('node', [join(ROOT, 'api', 'scripts', 'declare.mjs'), ...args], {
+    cwd: ROOT,
+    encoding: 'utf8',
+    env: { ...process.env, INIT_CWD: ROOT },
+  });
 const SHORTBREAD = 'tests/fixtures/shortbread.book.json';
 
 function tempBook(book: unknown): string {
@@ -33,7 +37,12 @@ describe('npm run declare', () => {
   it.each([
     {
       title: 'a book that fails the schema',
-      book: { crumbproofBook: 1, site: { name: 'x', regime: 'EU' }, ingredients: [{ id: 'lemon', name: 'Lemon', vegan: true }], recipes: [] },
+      book: {
+        crumbproofBook: 1,
+        site: { name: 'x', regime: 'EU' },
+        ingredients: [{ id: 'lemon', name: 'Lemon', vegan: true }],
+        recipes: [],
+      },
       stderr: 'book-invalid: Ingredient Lemon (ingredients.0.vegetarian)',
     },
     {

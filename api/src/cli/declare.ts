@@ -43,7 +43,8 @@ function where(raw: unknown, path: PropertyKey[]): string {
   if ((list === 'ingredients' || list === 'recipes') && typeof index === 'number' && raw && typeof raw === 'object') {
     const items = (raw as Record<string, unknown>)[list];
     const item = Array.isArray(items) ? items[index] : undefined;
-    const name = item && typeof item === 'object' ? ((item as Record<string, unknown>).name ?? (item as Record<string, unknown>).id) : undefined;
+    const name =
+      item && typeof item === 'object' ? ((item as Record<string, unknown>).name ?? (item as Record<string, unknown>).id) : undefined;
     if (typeof name === 'string') return `${list === 'ingredients' ? 'Ingredient' : 'Recipe'} ${name} (${path.join('.')})`;
   }
   return path.length > 0 ? path.join('.') : 'The book';
@@ -65,18 +66,32 @@ function main(): void {
     fail([`book-invalid: cannot read ${args.file} as JSON: ${e instanceof Error ? e.message : String(e)}`], 1);
   }
   const parsed = bookSchema.safeParse(raw);
-  if (!parsed.success) fail(parsed.error.issues.map((i) => `book-invalid: ${where(raw, i.path)}: ${i.message}`), 1);
+  if (!parsed.success)
+    fail(
+      parsed.error.issues.map((i) => `book-invalid: ${where(raw, i.path)}: ${i.message}`),
+      1,
+    );
   const book = parsed.data;
 
   const problems = checkBook(book);
-  if (problems.length > 0) fail(problems.map((p) => `${p.code}: ${p.message}`), 1);
+  if (problems.length > 0)
+    fail(
+      problems.map((p) => `${p.code}: ${p.message}`),
+      1,
+    );
 
   const refs = loadReferenceData();
   try {
-    const out = args.product ? { declarations: [declareProduct(book, args.product, refs, { regime: args.regime })] } : declareProducts(book, refs, { regime: args.regime });
+    const out = args.product
+      ? { declarations: [declareProduct(book, args.product, refs, { regime: args.regime })] }
+      : declareProducts(book, refs, { regime: args.regime });
     process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
   } catch (e) {
-    if (e instanceof BookProblemsError) fail(e.problems.map((p) => `${p.code}: ${p.message}`), 1);
+    if (e instanceof BookProblemsError)
+      fail(
+        e.problems.map((p) => `${p.code}: ${p.message}`),
+        1,
+      );
     if (e instanceof UnknownProductError) fail([e.message], 1);
     throw e;
   }

@@ -43,19 +43,36 @@ export class ApiExceptionFilter implements ExceptionFilter {
     if (exception instanceof HttpException) {
       const status = exception.getStatus();
       const code: ErrorCode =
-        status === 401 ? 'unauthenticated' : status === 403 ? 'forbidden' : status === 404 ? 'not-found' : status === 413 ? 'too-large' : status === 429 ? 'too-many-requests' : status >= 500 ? 'internal' : 'validation';
+        status === 401
+          ? 'unauthenticated'
+          : status === 403
+            ? 'forbidden'
+            : status === 404
+              ? 'not-found'
+              : status === 413
+                ? 'too-large'
+                : status === 429
+                  ? 'too-many-requests'
+                  : status >= 500
+                    ? 'internal'
+                    : 'validation';
       const message =
-        status === 404 ? 'There is nothing at this address.' : status === 401 ? 'Sign in to continue.' : status === 403 ? 'Your role cannot do this.' : exception.message;
+        status === 404
+          ? 'There is nothing at this address.'
+          : status === 401
+            ? 'Sign in to continue.'
+            : status === 403
+              ? 'Your role cannot do this.'
+              : exception.message;
       return { statusCode: status, code, message };
     }
     const fastifyStatus = (exception as { statusCode?: number })?.statusCode;
     if (typeof fastifyStatus === 'number' && fastifyStatus >= 400 && fastifyStatus < 500) {
       // Errors raised by Fastify itself (malformed JSON, body too large, wrong content type).
-      const message =
-        fastifyStatus === 413 ? 'The upload is too large.' : 'The request could not be read: send valid JSON.';
+      const message = fastifyStatus === 413 ? 'The upload is too large.' : 'The request could not be read: send valid JSON.';
       return { statusCode: fastifyStatus, code: fastifyStatus === 413 ? 'too-large' : 'validation', message };
     }
-    this.logger.error(exception instanceof Error ? exception.stack ?? exception.message : String(exception));
+    this.logger.error(exception instanceof Error ? (exception.stack ?? exception.message) : String(exception));
     return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server. It has been logged; try again.' };
   }
 }

@@ -61,7 +61,14 @@ export class RevisionedRepository<B extends { name: string }> {
     if (!head) return null;
     const rev = await this.revisions.findOne({ where: { [this.foreignKey]: head.id, revision: head.currentRevision }, transaction: t });
     if (!rev) return null;
-    return { id: head.id, code: head.code, name: head.name, revision: head.currentRevision, body: parseJson(rev.body), updatedAt: head.updatedAt };
+    return {
+      id: head.id,
+      code: head.code,
+      name: head.name,
+      revision: head.currentRevision,
+      body: parseJson(rev.body),
+      updatedAt: head.updatedAt,
+    };
   }
 
   async history(siteId: number, code: string): Promise<RevisionRow<B>[] | null> {

@@ -11,7 +11,12 @@ export const configSchema = z.object({
   DB_USER: z.string().min(1).default('crumbproof'),
   DB_PASSWORD: z.string().default('crumbproof-local'),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters.'),
-  SESSION_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  SESSION_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(30),
   COOKIE_SECURE: z
     .enum(['true', 'false'])
     .default('false')

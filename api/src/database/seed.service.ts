@@ -26,7 +26,9 @@ export class SeedService {
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
     for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash });
     await this.declarations.record();
-    this.logger.log(`Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`);
+    this.logger.log(
+      `Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`,
+    );
     return 'seeded';
   }
 }

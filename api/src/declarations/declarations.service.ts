@@ -54,7 +54,11 @@ export class DeclarationsService {
    * A product's declaration, from the store when nothing it depends on has changed. Callers that
    * declare many products pass the book and the recipes' heads they already read.
    */
-  async forProduct(code: string, regime?: Regime, loaded?: { book: Book; heads: Map<string, { id: number; revision: number }> }): Promise<ProductDeclaration> {
+  async forProduct(
+    code: string,
+    regime?: Regime,
+    loaded?: { book: Book; heads: Map<string, { id: number; revision: number }> },
+  ): Promise<ProductDeclaration> {
     const book = loaded?.book ?? (await this.books.exportBook());
     const recipe = book.recipes.find((r) => r.id === code);
     if (!recipe) throw new AppError('not-found', `There is no recipe '${code}'.`);

@@ -9,7 +9,13 @@ describe('import columns', () => {
       ['khorasan wheat', ['khorasan']],
       ['none', []],
       ['NONE', []],
-      ['wheat (glucose syrup); fish (cod)', [{ source: 'wheat', form: 'glucose-syrup' }, { source: 'fish', species: 'cod' }]],
+      [
+        'wheat (glucose syrup); fish (cod)',
+        [
+          { source: 'wheat', form: 'glucose-syrup' },
+          { source: 'fish', species: 'cod' },
+        ],
+      ],
       ['milk (lactitol)', [{ source: 'milk', form: 'lactitol' }]],
     ])('%s', (text, entries) => {
       expect(parseSources(text)).toEqual({ entries, problems: [] });
@@ -31,8 +37,12 @@ describe('import columns', () => {
     });
 
     it("refuses 'none' beside sources, and an unknown bracketed form", () => {
-      expect(parseSources('none; milk').problems).toEqual(["'none' cannot be listed with allergen sources; write 'none' alone, or only the sources."]);
-      expect(parseSources('wheat (toasted)').problems[0]).toMatch(/^'toasted' in 'wheat \(toasted\)' is not an exempt form; the forms are: glucose-syrup/);
+      expect(parseSources('none; milk').problems).toEqual([
+        "'none' cannot be listed with allergen sources; write 'none' alone, or only the sources.",
+      ]);
+      expect(parseSources('wheat (toasted)').problems[0]).toMatch(
+        /^'toasted' in 'wheat \(toasted\)' is not an exempt form; the forms are: glucose-syrup/,
+      );
     });
   });
 
@@ -40,7 +50,14 @@ describe('import columns', () => {
     expect(normaliseHeader('  Supplier_Code ')).toBe('supplier code');
     const { columns, problems } = mapHeader(['ID', 'Name', 'May-Contain', 'Sulphites (mg/kg)', 'Fat (g/100 g)', 'FIBER', null]);
     expect(problems).toEqual([]);
-    expect([...columns.values()].map((c) => c.field)).toEqual(['id', 'name', 'mayContain', 'sulphiteMgPerKg', 'nutrition.fat', 'nutrition.fibre']);
+    expect([...columns.values()].map((c) => c.field)).toEqual([
+      'id',
+      'name',
+      'mayContain',
+      'sulphiteMgPerKg',
+      'nutrition.fat',
+      'nutrition.fibre',
+    ]);
   });
 
   it('names unknown, repeated and missing columns', () => {
@@ -53,9 +70,26 @@ describe('import columns', () => {
 
   it('replaces the fields the file has columns for and keeps the others', () => {
     const header = mapHeader(['id', 'name', 'contains', 'fat', 'vegan']);
-    const base = { id: 'butter', name: 'Butter', contains: ['milk' as const], mayContain: [], vegan: false, vegetarian: true, gPerMl: 0.91, nutrition: { fat: 82, salt: 0.02 } };
+    const base = {
+      id: 'butter',
+      name: 'Butter',
+      contains: ['milk' as const],
+      mayContain: [],
+      vegan: false,
+      vegetarian: true,
+      gPerMl: 0.91,
+      nutrition: { fat: 82, salt: 0.02 },
+    };
     expect(rowToCandidate(['butter', 'Salted butter', '', '81', 'no'], header, base)).toEqual({
-      candidate: { id: 'butter', name: 'Salted butter', mayContain: [], vegan: false, vegetarian: true, gPerMl: 0.91, nutrition: { fat: 81, salt: 0.02 } },
+      candidate: {
+        id: 'butter',
+        name: 'Salted butter',
+        mayContain: [],
+        vegan: false,
+        vegetarian: true,
+        gPerMl: 0.91,
+        nutrition: { fat: 81, salt: 0.02 },
+      },
       problems: [],
     });
     expect(rowToCandidate(['rose-water', 'Rose water', 'none', '', ''], header, undefined)).toEqual({
@@ -66,7 +100,12 @@ describe('import columns', () => {
 
   it('reads yes/no cells and numbers with a decimal comma, and names bad values', () => {
     const header = mapHeader(['id', 'name', 'vegan', 'vegetarian', 'salt', 'g each']);
-    expect(rowToCandidate(['x', 'X', 'Y', true, '0,25', 60], header, undefined).candidate).toMatchObject({ vegan: true, vegetarian: true, gEach: 60, nutrition: { salt: 0.25 } });
+    expect(rowToCandidate(['x', 'X', 'Y', true, '0,25', 60], header, undefined).candidate).toMatchObject({
+      vegan: true,
+      vegetarian: true,
+      gEach: 60,
+      nutrition: { salt: 0.25 },
+    });
     expect(rowToCandidate(['x', 'X', 'perhaps', 'unknown', '<0.5', 'six'], header, undefined).problems).toEqual([
       "vegan: 'perhaps' is not yes, no or unknown.",
       "salt: '<0.5' is not a number.",

@@ -48,10 +48,31 @@ const SOURCES_HELP =
   "Allergen sources separated by ';' or ',' (e.g. 'wheat; milk'). A source may name an exempt form or a species in brackets: 'wheat (glucose-syrup)', 'fish (cod)'.";
 
 const DEFS: ColumnDef[] = [
-  { header: 'id', aliases: ['code', 'ingredient id'], field: 'id', kind: 'text', required: true, description: "The ingredient's id, used in recipe lines. A row whose id exists already becomes a new revision of that ingredient." },
-  { header: 'name', aliases: ['ingredient', 'ingredient name'], field: 'name', kind: 'text', required: true, description: 'The name shown on declarations.' },
+  {
+    header: 'id',
+    aliases: ['code', 'ingredient id'],
+    field: 'id',
+    kind: 'text',
+    required: true,
+    description: "The ingredient's id, used in recipe lines. A row whose id exists already becomes a new revision of that ingredient.",
+  },
+  {
+    header: 'name',
+    aliases: ['ingredient', 'ingredient name'],
+    field: 'name',
+    kind: 'text',
+    required: true,
+    description: 'The name shown on declarations.',
+  },
   { header: 'supplier', aliases: [], field: 'supplier', kind: 'text', required: false, description: 'Who supplies it.' },
-  { header: 'supplier code', aliases: ['supplier ref', 'product code'], field: 'supplierCode', kind: 'text', required: false, description: "The supplier's product code." },
+  {
+    header: 'supplier code',
+    aliases: ['supplier ref', 'product code'],
+    field: 'supplierCode',
+    kind: 'text',
+    required: false,
+    description: "The supplier's product code.",
+  },
   {
     header: 'contains',
     aliases: ['allergens'],
@@ -60,21 +81,80 @@ const DEFS: ColumnDef[] = [
     required: false,
     description: `${SOURCES_HELP} 'none' means the supplier states it contains no allergens (verified none); an EMPTY cell means there is no allergen statement yet (unknown), which declarations treat as unverified.`,
   },
-  { header: 'may contain', aliases: ['may contains', 'traces'], field: 'mayContain', kind: 'sources', required: false, description: `The supplier's precautionary statement. ${SOURCES_HELP} 'none' or an empty cell: no precautionary statement.` },
-  { header: 'composition', aliases: ['ingredients', 'ingredient list'], field: 'composition', kind: 'text', required: false, description: "The supplier's ingredient list." },
-  { header: 'vegan', aliases: [], field: 'vegan', kind: 'diet', required: false, description: "yes, no or unknown (an empty cell is unknown)." },
-  { header: 'vegetarian', aliases: [], field: 'vegetarian', kind: 'diet', required: false, description: "yes, no or unknown (an empty cell is unknown)." },
-  { header: 'sulphites mg/kg', aliases: ['sulphites', 'sulfites mg/kg', 'sulfites', 'so2 mg/kg'], field: 'sulphiteMgPerKg', kind: 'number', required: false, description: 'Sulphites (as SO2) in mg per kg, when the supplier states it.' },
-  { header: 'gluten mg/kg', aliases: ['gluten'], field: 'glutenMgPerKg', kind: 'number', required: false, description: 'Gluten measured or specified by the supplier, mg per kg.' },
-  { header: 'g per ml', aliases: ['g/ml', 'density', 'density g/ml'], field: 'gPerMl', kind: 'number', required: false, description: 'Grams per millilitre, to weigh recipe lines given in ml, l, tsp, tbsp or cups.' },
-  { header: 'g each', aliases: ['weight each', 'each g'], field: 'gEach', kind: 'number', required: false, description: "Grams of one piece, to weigh recipe lines given as 'each'." },
+  {
+    header: 'may contain',
+    aliases: ['may contains', 'traces'],
+    field: 'mayContain',
+    kind: 'sources',
+    required: false,
+    description: `The supplier's precautionary statement. ${SOURCES_HELP} 'none' or an empty cell: no precautionary statement.`,
+  },
+  {
+    header: 'composition',
+    aliases: ['ingredients', 'ingredient list'],
+    field: 'composition',
+    kind: 'text',
+    required: false,
+    description: "The supplier's ingredient list.",
+  },
+  {
+    header: 'vegan',
+    aliases: [],
+    field: 'vegan',
+    kind: 'diet',
+    required: false,
+    description: 'yes, no or unknown (an empty cell is unknown).',
+  },
+  {
+    header: 'vegetarian',
+    aliases: [],
+    field: 'vegetarian',
+    kind: 'diet',
+    required: false,
+    description: 'yes, no or unknown (an empty cell is unknown).',
+  },
+  {
+    header: 'sulphites mg/kg',
+    aliases: ['sulphites', 'sulfites mg/kg', 'sulfites', 'so2 mg/kg'],
+    field: 'sulphiteMgPerKg',
+    kind: 'number',
+    required: false,
+    description: 'Sulphites (as SO2) in mg per kg, when the supplier states it.',
+  },
+  {
+    header: 'gluten mg/kg',
+    aliases: ['gluten'],
+    field: 'glutenMgPerKg',
+    kind: 'number',
+    required: false,
+    description: 'Gluten measured or specified by the supplier, mg per kg.',
+  },
+  {
+    header: 'g per ml',
+    aliases: ['g/ml', 'density', 'density g/ml'],
+    field: 'gPerMl',
+    kind: 'number',
+    required: false,
+    description: 'Grams per millilitre, to weigh recipe lines given in ml, l, tsp, tbsp or cups.',
+  },
+  {
+    header: 'g each',
+    aliases: ['weight each', 'each g'],
+    field: 'gEach',
+    kind: 'number',
+    required: false,
+    description: "Grams of one piece, to weigh recipe lines given as 'each'.",
+  },
   ...(Object.entries(NUTRIENT_NAMES) as [NutrientKey, (typeof NUTRIENT_NAMES)[NutrientKey]][]).map(([key, n]) => ({
     header: n.header,
     aliases: [...n.more, ...[n.header, ...n.more].flatMap((h) => nutrientVariants(h, n.unit))],
     field: `nutrition.${key}`,
     kind: 'number' as const,
     required: false,
-    description: key === 'energyKj' || key === 'energyKcal' ? `Energy per 100 g, in ${n.unit}.` : `${n.unit === 'g' ? 'Grams' : n.unit} of ${n.header} per 100 g.`,
+    description:
+      key === 'energyKj' || key === 'energyKcal'
+        ? `Energy per 100 g, in ${n.unit}.`
+        : `${n.unit === 'g' ? 'Grams' : n.unit} of ${n.header} per 100 g.`,
   })),
 ];
 
@@ -88,7 +168,11 @@ export const IMPORT_COLUMNS: ImportColumn[] = DEFS.map(({ kind: _kind, ...c }) =
 
 /** "Supplier_Code", " Fat (g/100 g) " → "supplier code", "fat g/100 g". */
 export function normaliseHeader(h: string): string {
-  return h.toLowerCase().replace(/[()_\-[\]]/g, ' ').replace(/\s+/g, ' ').trim();
+  return h
+    .toLowerCase()
+    .replace(/[()_\-[\]]/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim();
 }
 
 const BY_HEADER = new Map<string, ColumnDef>();
@@ -119,7 +203,9 @@ export function mapHeader(header: Cell[]): HeaderMap {
     const def = BY_HEADER.get(normaliseHeader(text));
     if (!def) {
       const near = closest(normaliseHeader(text), [...BY_HEADER.keys()]);
-      problems.push(`The column '${text}' is not one this import understands${near ? `; did you mean '${near}'?` : '.'} The columns are: ${DEFS.map((d) => d.header).join(', ')}.`);
+      problems.push(
+        `The column '${text}' is not one this import understands${near ? `; did you mean '${near}'?` : '.'} The columns are: ${DEFS.map((d) => d.header).join(', ')}.`,
+      );
       return;
     }
     const before = seen.get(def.field);
@@ -149,7 +235,11 @@ const quote = (cell: Cell) => `'${cellText(cell)}'`;
  * field (an empty cell clears it); fields the file has no column for are kept from `base`, the
  * ingredient as it stands (or left out for a new one).
  */
-export function rowToCandidate(cells: Cell[], header: HeaderMap, base: BookIngredient | undefined): { candidate: Record<string, unknown>; problems: string[] } {
+export function rowToCandidate(
+  cells: Cell[],
+  header: HeaderMap,
+  base: BookIngredient | undefined,
+): { candidate: Record<string, unknown>; problems: string[] } {
   const problems: string[] = [];
   const out: Record<string, unknown> = base ? structuredClone(base) : { vegan: null, vegetarian: null };
   const nutrition: Record<string, unknown> = { ...((base?.nutrition as Nutrition | undefined) ?? {}) };
@@ -223,10 +313,25 @@ function parseNumber(cell: Cell): number | undefined | 'bad' {
 }
 
 const SYNONYMS: Record<string, AllergenSource> = {
-  soya: 'soy', soybean: 'soy', soybeans: 'soy', 'soya bean': 'soy', 'soya beans': 'soy',
-  sulfites: 'sulphites', sulfite: 'sulphites', sulphite: 'sulphites', 'sulphur dioxide': 'sulphites', 'sulfur dioxide': 'sulphites',
-  eggs: 'egg', 'sesame seeds': 'sesame', 'sesame seed': 'sesame', 'brazil nuts': 'brazil-nut', 'brazil': 'brazil-nut',
-  'kamut': 'khorasan', 'khorasan wheat': 'khorasan', crustaceans: 'crustacean', molluscs: 'mollusc',
+  soya: 'soy',
+  soybean: 'soy',
+  soybeans: 'soy',
+  'soya bean': 'soy',
+  'soya beans': 'soy',
+  sulfites: 'sulphites',
+  sulfite: 'sulphites',
+  sulphite: 'sulphites',
+  'sulphur dioxide': 'sulphites',
+  'sulfur dioxide': 'sulphites',
+  eggs: 'egg',
+  'sesame seeds': 'sesame',
+  'sesame seed': 'sesame',
+  'brazil nuts': 'brazil-nut',
+  brazil: 'brazil-nut',
+  kamut: 'khorasan',
+  'khorasan wheat': 'khorasan',
+  crustaceans: 'crustacean',
+  molluscs: 'mollusc',
 };
 const GROUP_HINTS: Record<string, string> = {
   gluten: `name the cereal instead (${['wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'triticale'].join(', ')})`,
@@ -264,7 +369,10 @@ function resolveSource(token: string): AllergenSource | undefined {
  */
 export function parseSources(text: string): { entries?: SourceEntry[]; problems: string[] } {
   if (text.trim() === '') return { problems: [] };
-  const tokens = text.split(/[;,]/).map((s) => s.trim()).filter((s) => s !== '');
+  const tokens = text
+    .split(/[;,]/)
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
   if (tokens.length === 1 && tokens[0].toLowerCase() === 'none') return { entries: [], problems: [] };
   const problems: string[] = [];
   const entries: SourceEntry[] = [];
@@ -288,7 +396,9 @@ export function parseSources(text: string): { entries?: SourceEntry[]; problems:
       if (form) entry = { source, form };
       else if (SPECIES_SOURCES.includes(source) && qualifier !== '') entry = { source, species: qualifier };
       else {
-        problems.push(`'${qualifier}' in '${token}' is not an exempt form${SPECIES_SOURCES.includes(source) ? ' or a species' : ''}; the forms are: ${EXEMPT_FORMS.join(', ')}.`);
+        problems.push(
+          `'${qualifier}' in '${token}' is not an exempt form${SPECIES_SOURCES.includes(source) ? ' or a species' : ''}; the forms are: ${EXEMPT_FORMS.join(', ')}.`,
+        );
         continue;
       }
     }
@@ -326,7 +436,9 @@ export function closest(word: string, candidates: string[]): string | undefined 
 }
 
 function editDistance(a: string, b: string): number {
-  const d: number[][] = Array.from({ length: a.length + 1 }, (_, i) => Array.from({ length: b.length + 1 }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)));
+  const d: number[][] = Array.from({ length: a.length + 1 }, (_, i) =>
+    Array.from({ length: b.length + 1 }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)),
+  );
   for (let i = 1; i <= a.length; i++) {
     for (let j = 1; j <= b.length; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;

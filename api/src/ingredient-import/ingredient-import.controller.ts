@@ -15,7 +15,9 @@ export class IngredientImportController {
 
   @Post('preview')
   @HttpCode(200)
-  @ApiOperation({ summary: 'Read a CSV file or an .xlsx workbook of ingredients: what each row would become, and its problems; nothing is saved' })
+  @ApiOperation({
+    summary: 'Read a CSV file or an .xlsx workbook of ingredients: what each row would become, and its problems; nothing is saved',
+  })
   @ApiUpload()
   async preview(@Req() req: FastifyRequest) {
     return this.imports.preview(await readUpload(req, []));
@@ -23,7 +25,10 @@ export class IngredientImportController {
 
   @Post()
   @HttpCode(200)
-  @ApiOperation({ summary: 'Import a CSV file or an .xlsx workbook of ingredients in one transaction; refused, saving nothing, when any row has a problem' })
+  @ApiOperation({
+    summary:
+      'Import a CSV file or an .xlsx workbook of ingredients in one transaction; refused, saving nothing, when any row has a problem',
+  })
   @ApiUpload()
   async import(@CurrentUser() user: AuthUser, @Req() req: FastifyRequest) {
     return this.imports.import(await readUpload(req, []), user.id);

@@ -5,7 +5,16 @@ import { AppError } from '../common/app-error';
 import { BooksService } from '../books/books.service';
 import { RulesService } from '../rules/rules.service';
 import type { Upload } from '../specifications/multipart-upload';
-import { cellText, columnOfPath, IMPORT_COLUMNS, mapHeader, rowToCandidate, valueAtPath, type HeaderMap, type ImportColumn } from './import-columns';
+import {
+  cellText,
+  columnOfPath,
+  IMPORT_COLUMNS,
+  mapHeader,
+  rowToCandidate,
+  valueAtPath,
+  type HeaderMap,
+  type ImportColumn,
+} from './import-columns';
 import { readSheet, type SheetRow } from './spreadsheet';
 
 export type ImportAction = 'create' | 'update' | 'unchanged';
@@ -48,7 +57,7 @@ export const IMPORT_RULES = [
   'Row 1 is the header; headers are matched without regard to case, spaces, underscores, hyphens or brackets.',
   "contains: 'none' means the supplier states there are no allergens (verified none); an empty cell means no allergen statement (unknown).",
   "may contain: an empty cell or 'none' means no precautionary statement.",
-  "vegan, vegetarian: yes, no or unknown; an empty cell is unknown.",
+  'vegan, vegetarian: yes, no or unknown; an empty cell is unknown.',
   'Numbers may use a decimal point or a decimal comma; nutrition figures are per 100 g.',
   'A row whose id exists becomes a new revision of that ingredient: columns in the file replace its fields (an empty cell clears the field), fields without a column in the file keep their current value.',
   'Rows that are entirely empty are skipped. Each id may appear on one row only.',
@@ -64,7 +73,10 @@ export class IngredientImportService {
 
   /** What the file would change; nothing is saved. */
   async preview(upload: Upload): Promise<ImportPreview> {
-    if (!upload.file) throw new AppError('validation', 'Attach a CSV file or an Excel workbook (.xlsx) in the field file.', [{ path: 'file', message: 'Attach a file.' }]);
+    if (!upload.file)
+      throw new AppError('validation', 'Attach a CSV file or an Excel workbook (.xlsx) in the field file.', [
+        { path: 'file', message: 'Attach a file.' },
+      ]);
     const sheet = await readSheet(upload.file.bytes);
     const book = await this.books.exportBook();
     const header = mapHeader(sheet.header);
@@ -99,8 +111,12 @@ export class IngredientImportService {
           problems.push(`column ${columnLetter(i)}: '${cellText(cell)}' is under no header; name the column in row 1 or clear the cell.`);
         }
       });
-      if (base && base.id !== id) problems.push(`id: '${id}' differs only in capitals from the existing ingredient '${base.id}'; write '${base.id}'.`);
-      if (recipes.has(id.toLowerCase())) problems.push(`id: '${id}' is already the id of the recipe '${recipes.get(id.toLowerCase())}'; give the ingredient an id of its own.`);
+      if (base && base.id !== id)
+        problems.push(`id: '${id}' differs only in capitals from the existing ingredient '${base.id}'; write '${base.id}'.`);
+      if (recipes.has(id.toLowerCase()))
+        problems.push(
+          `id: '${id}' is already the id of the recipe '${recipes.get(id.toLowerCase())}'; give the ingredient an id of its own.`,
+        );
       const parsed = bookIngredientSchema.safeParse(candidate);
       if (!parsed.success) for (const finding of parsed.error.issues) problems.push(describeFinding(finding, candidate));
       const ingredient = parsed.success && problems.length === 0 ? parsed.data : null;
@@ -158,7 +174,9 @@ function refused(fileProblems: string[], bad: ImportRow[]): AppError {
   const parts: string[] = [];
   if (bad.length > 0) {
     const numbers = bad.map((r) => r.row);
-    parts.push(`${bad.length} row${bad.length > 1 ? 's need' : ' needs'} attention (row${bad.length > 1 ? 's' : ''} ${numbers.slice(0, 20).join(', ')}${numbers.length > 20 ? ', …' : ''}).`);
+    parts.push(
+      `${bad.length} row${bad.length > 1 ? 's need' : ' needs'} attention (row${bad.length > 1 ? 's' : ''} ${numbers.slice(0, 20).join(', ')}${numbers.length > 20 ? ', …' : ''}).`,
+    );
     for (const r of bad.slice(0, 5)) parts.push(`Row ${r.row}: ${r.problems.join(' ')}`);
     if (bad.length > 5) parts.push(`… and ${bad.length - 5} more rows.`);
   }
@@ -170,12 +188,18 @@ function refused(fileProblems: string[], bad: ImportRow[]): AppError {
 function describeFinding(finding: z.core.$ZodIssue, candidate: Record<string, unknown>): string {
   const column = columnOfPath(finding.path);
   const value = valueAtPath(candidate, finding.path);
-  const shown = value === undefined || value === '' ? null : `'${String(value).length > 40 ? `${String(value).slice(0, 40)}…` : String(value)}'`;
+  const shown =
+    value === undefined || value === '' ? null : `'${String(value).length > 40 ? `${String(value).slice(0, 40)}…` : String(value)}'`;
   let human: string | undefined;
   if (finding.code === 'too_big' && /^Too big/.test(finding.message)) {
     human = finding.origin === 'string' ? `is longer than ${finding.maximum} characters` : `must be at most ${finding.maximum}`;
   } else if (finding.code === 'too_small' && /^Too small/.test(finding.message)) {
-    human = finding.origin === 'string' ? `must have at least ${finding.minimum} characters` : finding.inclusive ? `must be at least ${finding.minimum}` : `must be more than ${finding.minimum}`;
+    human =
+      finding.origin === 'string'
+        ? `must have at least ${finding.minimum} characters`
+        : finding.inclusive
+          ? `must be at least ${finding.minimum}`
+          : `must be more than ${finding.minimum}`;
   }
   if (human && shown) return `${column}: ${shown} ${human}.`;
   return shown ? `${column}: ${shown}: ${finding.message}` : `${column}: ${finding.message}`;
@@ -184,6 +208,15 @@ function describeFinding(finding: z.core.$ZodIssue, candidate: Record<string, un
 /** Equal as data, whatever the order of keys. */
 function same(a: unknown, b: unknown): boolean {
   const canon = (v: unknown): unknown =>
-    Array.isArray(v) ? v.map(canon) : v && typeof v === 'object' ? Object.fromEntries(Object.entries(v).filter(([, x]) => x !== undefined).sort(([x], [y]) => (x < y ? -1 : 1)).map(([k, x]) => [k, canon(x)])) : v;
+    Array.isArray(v)
+      ? v.map(canon)
+      : v && typeof v === 'object'
+        ? Object.fromEntries(
+            Object.entries(v)
+              .filter(([, x]) => x !== undefined)
+              .sort(([x], [y]) => (x < y ? -1 : 1))
+              .map(([k, x]) => [k, canon(x)]),
+          )
+        : v;
   return JSON.stringify(canon(a)) === JSON.stringify(canon(b));
 }

@@ -68,7 +68,8 @@ async function readXlsx(bytes: Buffer): Promise<Sheet> {
     ]);
   }
   const sheet = workbook.worksheets.find((w) => w.state !== 'hidden' && w.state !== 'veryHidden') ?? workbook.worksheets[0];
-  if (!sheet) throw new AppError('validation', 'The workbook has no worksheet.', [{ path: 'file', message: 'The workbook has no worksheet.' }]);
+  if (!sheet)
+    throw new AppError('validation', 'The workbook has no worksheet.', [{ path: 'file', message: 'The workbook has no worksheet.' }]);
   const width = sheet.columnCount;
   const read = (r: ExcelJS.Row): Cell[] => Array.from({ length: width }, (_, i) => cellValue(r.getCell(i + 1).value));
   const header = read(sheet.getRow(1));

@@ -15,7 +15,8 @@ export class IngredientsController {
 
   @Get()
   @ApiOperation({
-    summary: 'Ingredients with their current revision; q, source, sort, limit and offset narrow and page the list (the total is in X-Total-Count)',
+    summary:
+      'Ingredients with their current revision; q, source, sort, limit and offset narrow and page the list (the total is in X-Total-Count)',
   })
   async list(@Query(new ZodPipe(ingredientQuerySchema)) query: IngredientQuery, @Res({ passthrough: true }) reply: FastifyReply) {
     const { items, total } = await this.ingredients.list(query);

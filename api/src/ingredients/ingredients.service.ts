@@ -38,11 +38,13 @@ export class IngredientsService {
       items = items.filter((i) => [i.name, i.id, i.supplier ?? '', i.supplierCode ?? ''].some((f) => f.toLowerCase().includes(q)));
     }
     if (query.source) {
-      const has = (list: IngredientView['mayContain'] | undefined) => (list ?? []).some((c) => (typeof c === 'string' ? c : c.source) === query.source);
+      const has = (list: IngredientView['mayContain'] | undefined) =>
+        (list ?? []).some((c) => (typeof c === 'string' ? c : c.source) === query.source);
       items = items.filter((i) => has(i.contains));
     }
     if (query.sort === 'updated') items.sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
-    else if (query.sort === 'supplier') items.sort((a, b) => (a.supplier ?? '').localeCompare(b.supplier ?? '') || a.name.localeCompare(b.name));
+    else if (query.sort === 'supplier')
+      items.sort((a, b) => (a.supplier ?? '').localeCompare(b.supplier ?? '') || a.name.localeCompare(b.name));
     const total = items.length;
     const offset = query.offset ?? 0;
     return { items: query.limit ? items.slice(offset, offset + query.limit) : items.slice(offset), total };
@@ -58,7 +60,11 @@ export class IngredientsService {
     const revs = await this.repo.history(await this.siteId(), code);
     if (!revs) throw new AppError('not-found', `There is no ingredient '${code}'.`);
     const names = new Map((await this.users.list()).map((u) => [u.id, u.name]));
-    return revs.map((r) => ({ ...r, authorName: r.authorId ? (names.get(r.authorId) ?? null) : null, createdAt: r.createdAt.toISOString() }));
+    return revs.map((r) => ({
+      ...r,
+      authorName: r.authorId ? (names.get(r.authorId) ?? null) : null,
+      createdAt: r.createdAt.toISOString(),
+    }));
   }
 
   /** Every recipe and product that uses the ingredient at any depth, with each path. */
@@ -74,7 +80,10 @@ export class IngredientsService {
   }
 
   async update(code: string, item: BookIngredient, authorId: number, note?: string) {
-    if (item.id !== code) throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [{ path: 'id', message: 'Must match the address.' }]);
+    if (item.id !== code)
+      throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [
+        { path: 'id', message: 'Must match the address.' },
+      ]);
     await this.books.writeItem('ingredient', item, { authorId, note: note ?? 'Edited' }, 'existing');
     return this.get(code);
   }

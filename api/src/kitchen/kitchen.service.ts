@@ -4,7 +4,6 @@ import type { KitchenUpdate, KitchenView } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { SiteModel } from './site.model';
 
-
 @Injectable()
 export class KitchenService {
   constructor(@InjectModel(SiteModel) private readonly sites: typeof SiteModel) {}

@@ -7,7 +7,6 @@ import { DeclarationsService } from '../declarations/declarations.service';
 import { UsersRepository } from '../users/users.repository';
 import { RecipesRepository } from './recipes.repository';
 
-
 @Injectable()
 export class RecipesService {
   constructor(
@@ -73,7 +72,10 @@ export class RecipesService {
   }
 
   async update(code: string, item: BookRecipe, authorId: number, note?: string) {
-    if (item.id !== code) throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [{ path: 'id', message: 'Must match the address.' }]);
+    if (item.id !== code)
+      throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [
+        { path: 'id', message: 'Must match the address.' },
+      ]);
     await this.books.writeItem('recipe', item, { authorId, note: note ?? 'Edited' }, 'existing');
     await this.declarations.forProduct(code);
     return this.get(code);

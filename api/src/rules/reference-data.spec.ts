@@ -17,12 +17,29 @@ describe('reference data: the published allergen lists', () => {
 
   it.each(['EU', 'UK'] as const)('%s has exactly the 14 groups of Annex II', (regime) => {
     // EU 1169/2011 Annex II points 1-14; UK: assimilated Regulation 1169/2011, same list (DOMAIN.md 1.3).
-    expect(codes(regime)).toEqual(['gluten', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk', 'nuts', 'celery', 'mustard', 'sesame', 'sulphites', 'lupin', 'molluscs']);
+    expect(codes(regime)).toEqual([
+      'gluten',
+      'crustaceans',
+      'eggs',
+      'fish',
+      'peanuts',
+      'soybeans',
+      'milk',
+      'nuts',
+      'celery',
+      'mustard',
+      'sesame',
+      'sulphites',
+      'lupin',
+      'molluscs',
+    ]);
   });
 
   it.each(['EU', 'UK'] as const)('%s nuts are exactly the eight of Annex II point 8 (no pine nut, no coconut)', (regime) => {
     // EU 1169/2011 Annex II point 8, an exhaustive list (Commission Notice 2017/C 428/01).
-    expect(sorted(group(regime, 'nuts')!.members)).toEqual(sorted(['almond', 'hazelnut', 'walnut', 'cashew', 'pecan', 'brazil-nut', 'pistachio', 'macadamia']));
+    expect(sorted(group(regime, 'nuts')!.members)).toEqual(
+      sorted(['almond', 'hazelnut', 'walnut', 'cashew', 'pecan', 'brazil-nut', 'pistachio', 'macadamia']),
+    );
     expect(allSources(regime).has('pine-nut')).toBe(false);
     expect(allSources(regime).has('coconut')).toBe(false);
   });
@@ -41,7 +58,9 @@ describe('reference data: the published allergen lists', () => {
   it('US tree nuts are the twelve of FDA Edition 5 Table 1 (a whitelist; no coconut)', () => {
     // FDA Q&A on food allergens Edition 5 (Jan 2025) Table 1: the three walnuts (English, black, California)
     // and heartnut are species of walnut here; pine nut is in; coconut is out.
-    expect(sorted(group('US', 'tree-nuts')!.members)).toEqual(sorted(['almond', 'brazil-nut', 'cashew', 'hazelnut', 'macadamia', 'pecan', 'pine-nut', 'pistachio', 'walnut']));
+    expect(sorted(group('US', 'tree-nuts')!.members)).toEqual(
+      sorted(['almond', 'brazil-nut', 'cashew', 'hazelnut', 'macadamia', 'pecan', 'pine-nut', 'pistachio', 'walnut']),
+    );
     expect(allSources('US').has('coconut')).toBe(false);
   });
 
@@ -70,7 +89,9 @@ describe('reference data: the published allergen lists', () => {
     // FSANZ Schedule 9 / PEAL (P1044): tree nuts and cereals declared separately; "gluten" in the summary.
     expect(allSources('ANZ').has('celery')).toBe(false);
     expect(allSources('ANZ').has('mustard')).toBe(false);
-    expect(codes('ANZ')).toEqual(expect.arrayContaining(['wheat', 'barley', 'oats', 'rye', 'gluten', 'pine-nut', 'almond', 'mollusc', 'lupin', 'sulphites']));
+    expect(codes('ANZ')).toEqual(
+      expect.arrayContaining(['wheat', 'barley', 'oats', 'rye', 'gluten', 'pine-nut', 'almond', 'mollusc', 'lupin', 'sulphites']),
+    );
     expect(group('ANZ', 'gluten')!.members).toEqual(expect.arrayContaining(['wheat', 'barley', 'oats', 'rye']));
   });
 

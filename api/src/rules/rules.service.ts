@@ -24,7 +24,10 @@ export class RulesService {
   readonly refs: ReferenceData = loadReferenceData();
   readonly nutrients: NutrientTable = loadNutrientTable();
   /** Changes whenever the engine or the reference data changes, so kept declarations follow it. */
-  readonly referenceVersion = createHash('sha256').update(JSON.stringify([ENGINE_VERSION, this.refs, this.nutrients])).digest('hex').slice(0, 16);
+  readonly referenceVersion = createHash('sha256')
+    .update(JSON.stringify([ENGINE_VERSION, this.refs, this.nutrients]))
+    .digest('hex')
+    .slice(0, 16);
 
   check(book: Book): BookProblem[] {
     return checkBook(book);

@@ -53,7 +53,10 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
           upload.file = { filename: safeFilename(part.filename), bytes };
         }
       } else if (!allowedFields.includes(part.fieldname)) {
-        problems.push({ path: part.fieldname, message: `This form has no field '${part.fieldname}'; it takes ${['file', ...allowedFields].map((f) => `'${f}'`).join(', ')}.` });
+        problems.push({
+          path: part.fieldname,
+          message: `This form has no field '${part.fieldname}'; it takes ${['file', ...allowedFields].map((f) => `'${f}'`).join(', ')}.`,
+        });
       } else if (part.fieldname in upload.fields) {
         problems.push({ path: part.fieldname, message: `Send '${part.fieldname}' once.` });
       } else {
@@ -73,9 +76,12 @@ function uploadError(err: unknown, maxBytes: number): unknown {
   const code = (err as { code?: string })?.code;
   const status = (err as { statusCode?: number })?.statusCode;
   if (code === 'FST_REQ_FILE_TOO_LARGE') {
-    return new PayloadTooLargeException(`The file is larger than ${Math.round(maxBytes / (1024 * 1024))} MB, the most an upload may be. Attach a smaller file.`);
+    return new PayloadTooLargeException(
+      `The file is larger than ${Math.round(maxBytes / (1024 * 1024))} MB, the most an upload may be. Attach a smaller file.`,
+    );
   }
-  if (code === 'FST_FILES_LIMIT') return new AppError('validation', 'Attach one file only.', [{ path: 'file', message: 'Attach one file only.' }]);
+  if (code === 'FST_FILES_LIMIT')
+    return new AppError('validation', 'Attach one file only.', [{ path: 'file', message: 'Attach one file only.' }]);
   if (code === 'FST_PARTS_LIMIT' || code === 'FST_FIELDS_LIMIT') return new AppError('validation', 'The form has too many fields.');
   if (typeof status === 'number' && status >= 400 && status < 500) {
     return new AppError('validation', 'The upload could not be read: the form data is incomplete or malformed. Try again.');
@@ -100,7 +106,12 @@ export function describeType(type: DetectedType | undefined): string {
 export function safeFilename(name: string | undefined): string {
   const base = (name ?? '').split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
-  let clean = base.normalize('NFC').replace(/[\u0000-\u001f\u007f"<>:|?*]/g, '').replace(/\s+/g, ' ').trim().replace(/^\.+/, '');
+  let clean = base
+    .normalize('NFC')
+    .replace(/[\u0000-\u001f\u007f"<>:|?*]/g, '')
+    .replace(/\s+/g, ' ')
+    .trim()
+    .replace(/^\.+/, '');
   if (clean.length > 200) {
     const dot = clean.lastIndexOf('.');
     const ext = dot > 0 && clean.length - dot <= 10 ? clean.slice(dot) : '';
@@ -116,10 +127,20 @@ export function ApiUpload(fields: Record<string, { description: string; format?:
     ApiBody({
       schema: {
         type: 'object',
-        required: ['file', ...Object.entries(fields).filter(([, f]) => f.required).map(([k]) => k)],
+        required: [
+          'file',
+          ...Object.entries(fields)
+            .filter(([, f]) => f.required)
+            .map(([k]) => k),
+        ],
         properties: {
           file: { type: 'string', format: 'binary' },
-          ...Object.fromEntries(Object.entries(fields).map(([k, f]) => [k, { type: 'string', description: f.description, ...(f.format ? { format: f.format } : {}) }])),
+          ...Object.fromEntries(
+            Object.entries(fields).map(([k, f]) => [
+              k,
+              { type: 'string', description: f.description, ...(f.format ? { format: f.format } : {}) },
+            ]),
+          ),
         },
       },
     }),

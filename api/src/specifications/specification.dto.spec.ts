@@ -24,10 +24,14 @@ describe('specification uploads', () => {
 
   it('refuses a missing, malformed, impossible or past review date, naming it', () => {
     expect(messages({})).toEqual(['reviewBy: Give the date by which the kitchen must check this specification again, as YYYY-MM-DD.']);
-    expect(messages({ reviewBy: '' })).toEqual(['reviewBy: Give the date by which the kitchen must check this specification again, as YYYY-MM-DD.']);
+    expect(messages({ reviewBy: '' })).toEqual([
+      'reviewBy: Give the date by which the kitchen must check this specification again, as YYYY-MM-DD.',
+    ]);
     expect(messages({ reviewBy: '01/02/2030' })).toEqual(["reviewBy: '01/02/2030' is not a date written as YYYY-MM-DD."]);
     expect(messages({ reviewBy: '2030-13-01' })).toEqual(['reviewBy: 2030-13-01 is not a real date.']);
-    expect(messages({ reviewBy: days(-1) })).toEqual([`reviewBy: ${days(-1)} has already passed; give today (${today()}) or a later date.`]);
+    expect(messages({ reviewBy: days(-1) })).toEqual([
+      `reviewBy: ${days(-1)} has already passed; give today (${today()}) or a later date.`,
+    ]);
     expect(messages({ reviewBy: days(1), note: 'x'.repeat(501) })).toEqual(['note: Keep the note to 500 characters.']);
   });
 
@@ -48,6 +52,8 @@ describe('specification uploads', () => {
   });
 
   it('serves a name with an ASCII fallback and the exact UTF-8 name', () => {
-    expect(contentDisposition('Crème "fraîche".pdf')).toBe(`inline; filename="Cr_me _fra_che_.pdf"; filename*=UTF-8''Cr%C3%A8me%20%22fra%C3%AEche%22.pdf`);
+    expect(contentDisposition('Crème "fraîche".pdf')).toBe(
+      `inline; filename="Cr_me _fra_che_.pdf"; filename*=UTF-8''Cr%C3%A8me%20%22fra%C3%AEche%22.pdf`,
+    );
   });
 });

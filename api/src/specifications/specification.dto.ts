@@ -17,12 +17,17 @@ const REVIEW_BY_REQUIRED = 'Give the date by which the kitchen must check this s
 
 /** The text fields sent with a specification file. */
 export const specificationFieldsSchema = z.strictObject({
-  reviewBy: z.string({ error: REVIEW_BY_REQUIRED }).trim().superRefine((value, ctx) => {
-    if (value === '') ctx.addIssue({ code: 'custom', message: REVIEW_BY_REQUIRED });
-    else if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) ctx.addIssue({ code: 'custom', message: `'${value}' is not a date written as YYYY-MM-DD.` });
-    else if (!isRealDate(value)) ctx.addIssue({ code: 'custom', message: `${value} is not a real date.` });
-    else if (value < today()) ctx.addIssue({ code: 'custom', message: `${value} has already passed; give today (${today()}) or a later date.` });
-  }),
+  reviewBy: z
+    .string({ error: REVIEW_BY_REQUIRED })
+    .trim()
+    .superRefine((value, ctx) => {
+      if (value === '') ctx.addIssue({ code: 'custom', message: REVIEW_BY_REQUIRED });
+      else if (!/^\d{4}-\d{2}-\d{2}$/.test(value))
+        ctx.addIssue({ code: 'custom', message: `'${value}' is not a date written as YYYY-MM-DD.` });
+      else if (!isRealDate(value)) ctx.addIssue({ code: 'custom', message: `${value} is not a real date.` });
+      else if (value < today())
+        ctx.addIssue({ code: 'custom', message: `${value} has already passed; give today (${today()}) or a later date.` });
+    }),
   note: z.string().trim().max(500, 'Keep the note to 500 characters.').optional(),
 });
 export type SpecificationFields = z.infer<typeof specificationFieldsSchema>;
@@ -33,4 +38,3 @@ export const ACCEPTED_SPECIFICATION_TYPES: Record<string, string> = {
   'image/jpeg': 'jpg',
   'image/webp': 'webp',
 };
-

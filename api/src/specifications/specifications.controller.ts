@@ -16,7 +16,10 @@ export class SpecificationsController {
   @Post('ingredients/:code/specifications')
   @HttpCode(201)
   @ApiOperation({ summary: "Attach a new version of an ingredient's supplier specification (PDF, PNG, JPEG or WebP, at most 10 MB)" })
-  @ApiUpload({ reviewBy: { description: 'YYYY-MM-DD, today or later: when the kitchen must check it again', format: 'date', required: true }, note: { description: 'Optional, at most 500 characters' } })
+  @ApiUpload({
+    reviewBy: { description: 'YYYY-MM-DD, today or later: when the kitchen must check it again', format: 'date', required: true },
+    note: { description: 'Optional, at most 500 characters' },
+  })
   async upload(@CurrentUser() user: AuthUser, @Param('code') code: string, @Req() req: FastifyRequest) {
     return this.specs.upload(code, await readUpload(req, ['reviewBy', 'note']), user.id);
   }

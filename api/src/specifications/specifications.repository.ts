@@ -38,7 +38,19 @@ export interface IngredientRef {
 }
 
 /** Everything but the bytes. */
-const METADATA = ['id', 'ingredientId', 'version', 'filename', 'mediaType', 'sizeBytes', 'sha256', 'reviewBy', 'note', 'uploadedBy', 'createdAt'];
+const METADATA = [
+  'id',
+  'ingredientId',
+  'version',
+  'filename',
+  'mediaType',
+  'sizeBytes',
+  'sha256',
+  'reviewBy',
+  'note',
+  'uploadedBy',
+  'createdAt',
+];
 
 function toRow(m: SpecificationModel): SpecificationRow {
   return {
@@ -70,20 +82,29 @@ export class SpecificationsRepository {
   }
 
   async listIngredients(siteId: number): Promise<IngredientRef[]> {
-    const rows = await this.ingredients.findAll({ where: { siteId, archived: false }, attributes: ['id', 'code', 'name'], order: [['name', 'ASC']] });
+    const rows = await this.ingredients.findAll({
+      where: { siteId, archived: false },
+      attributes: ['id', 'code', 'name'],
+      order: [['name', 'ASC']],
+    });
     return rows.map((r) => ({ id: r.id, code: r.code, name: r.name }));
   }
 
   /** Adds the next version for the ingredient; the ingredient row is locked so versions never collide. */
   async add(values: NewSpecification, t: Transaction): Promise<SpecificationRow> {
     await this.ingredients.findByPk(values.ingredientId, { attributes: ['id'], transaction: t, lock: t.LOCK.UPDATE });
-    const last = (await this.specs.max<number, SpecificationModel>('version', { where: { ingredientId: values.ingredientId }, transaction: t })) ?? 0;
+    const last =
+      (await this.specs.max<number, SpecificationModel>('version', { where: { ingredientId: values.ingredientId }, transaction: t })) ?? 0;
     const created = await this.specs.create({ ...values, version: Number(last) + 1 }, { transaction: t });
     return this.findMetadata(created.id, t) as Promise<SpecificationRow>;
   }
 
   async findMetadata(id: number, t?: Transaction): Promise<SpecificationRow | null> {
-    const row = await this.specs.findByPk(id, { attributes: METADATA, include: [{ model: UserModel, attributes: ['id', 'name'] }], transaction: t });
+    const row = await this.specs.findByPk(id, {
+      attributes: METADATA,
+      include: [{ model: UserModel, attributes: ['id', 'name'] }],
+      transaction: t,
+    });
     return row ? toRow(row) : null;
   }
 
@@ -94,7 +115,10 @@ export class SpecificationsRepository {
       where: { ingredientId: ingredientIds },
       attributes: METADATA,
       include: [{ model: UserModel, attributes: ['id', 'name'] }],
-      order: [['ingredientId', 'ASC'], ['version', 'DESC']],
+      order: [
+        ['ingredientId', 'ASC'],
+        ['version', 'DESC'],
+      ],
     });
     return rows.map(toRow);
   }

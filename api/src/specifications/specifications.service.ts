@@ -4,11 +4,7 @@ import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
 import { validationError } from '../common/zod.pipe';
 import { BooksService } from '../books/books.service';
-import {
-  ACCEPTED_SPECIFICATION_TYPES,
-  specificationFieldsSchema,
-  today,
-} from './specification.dto';
+import { ACCEPTED_SPECIFICATION_TYPES, specificationFieldsSchema, today } from './specification.dto';
 import type { SpecificationStatus, SpecificationView } from '@crumbproof/shared';
 import { describeType, detectType, type Upload } from './multipart-upload';
 import { SpecificationsRepository, type IngredientRef, type SpecificationRow } from './specifications.repository';
@@ -38,11 +34,15 @@ export class SpecificationsService {
   async upload(code: string, upload: Upload, userId: number): Promise<SpecificationView> {
     const ingredient = await this.ingredient(code);
     const parsed = specificationFieldsSchema.safeParse(upload.fields);
-    const fieldErrors = parsed.success ? [] : validationError(parsed.error).fields ?? [];
+    const fieldErrors = parsed.success ? [] : (validationError(parsed.error).fields ?? []);
     if (!upload.file) fieldErrors.push({ path: 'file', message: 'Attach the specification (a PDF or an image) in the field file.' });
     else if (upload.file.bytes.length === 0) fieldErrors.push({ path: 'file', message: 'The file is empty.' });
     if (fieldErrors.length > 0 || !parsed.success || !upload.file) {
-      throw new AppError('validation', `Some fields need attention. ${fieldErrors.map((f) => `${f.path}: ${f.message}`).join(' ')}`, fieldErrors);
+      throw new AppError(
+        'validation',
+        `Some fields need attention. ${fieldErrors.map((f) => `${f.path}: ${f.message}`).join(' ')}`,
+        fieldErrors,
+      );
     }
     const { bytes, filename } = upload.file;
     const type = await detectType(bytes);

@@ -20,9 +20,18 @@ export class SwapsService {
 
   private plan(book: Book, req: SwapRequest): { changed: BookRecipe[]; after: Book } {
     const items = new Map([...book.ingredients, ...book.recipes].map((x) => [x.id, x]));
-    if (!items.has(req.from)) throw new AppError('not-found', `There is no ingredient or recipe '${req.from}' to replace.`, [{ path: 'from', message: 'Unknown id.' }]);
-    if (!items.has(req.to)) throw new AppError('not-found', `There is no ingredient or recipe '${req.to}' to use instead.`, [{ path: 'to', message: 'Unknown id.' }]);
-    if (req.from === req.to) throw new AppError('validation', 'Choose a replacement that differs from the ingredient it replaces.', [{ path: 'to', message: 'Same as the ingredient replaced.' }]);
+    if (!items.has(req.from))
+      throw new AppError('not-found', `There is no ingredient or recipe '${req.from}' to replace.`, [
+        { path: 'from', message: 'Unknown id.' },
+      ]);
+    if (!items.has(req.to))
+      throw new AppError('not-found', `There is no ingredient or recipe '${req.to}' to use instead.`, [
+        { path: 'to', message: 'Unknown id.' },
+      ]);
+    if (req.from === req.to)
+      throw new AppError('validation', 'Choose a replacement that differs from the ingredient it replaces.', [
+        { path: 'to', message: 'Same as the ingredient replaced.' },
+      ]);
     if (req.recipe && !book.recipes.some((r) => r.id === req.recipe)) {
       throw new AppError('not-found', `There is no recipe '${req.recipe}'.`, [{ path: 'recipe', message: 'Unknown recipe.' }]);
     }
@@ -40,7 +49,9 @@ export class SwapsService {
     });
     if (changed.length === 0) {
       const where = req.recipe ? `${items.get(req.recipe)!.name}` : 'any recipe';
-      throw new AppError('validation', `${items.get(req.from)!.name} is not used directly in ${where}, so there is nothing to swap.`, [{ path: 'from', message: 'Not used here.' }]);
+      throw new AppError('validation', `${items.get(req.from)!.name} is not used directly in ${where}, so there is nothing to swap.`, [
+        { path: 'from', message: 'Not used here.' },
+      ]);
     }
     return { changed, after: { ...book, recipes } };
   }
@@ -74,7 +85,11 @@ export class SwapsService {
     const book = await this.books.exportBook();
     const { changed } = this.plan(book, req);
     const name = (id: string) => [...book.ingredients, ...book.recipes].find((x) => x.id === id)!.name;
-    const written = await this.books.writeItems({ recipes: changed }, { authorId, note: `Swapped ${name(req.from)} for ${name(req.to)}` }, 'existing');
+    const written = await this.books.writeItems(
+      { recipes: changed },
+      { authorId, note: `Swapped ${name(req.from)} for ${name(req.to)}` },
+      'existing',
+    );
     // Each new revision keeps the declaration it was saved with, for the revision history.
     await this.declarations.record(written.map((w) => w.id));
     return { recipes: written };

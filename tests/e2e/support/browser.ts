@@ -21,8 +21,14 @@ export async function openBrowser(width = 1280, height = 900): Promise<Session> 
     headless: true,
     viewport: { width, height },
     args: [
-      '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-      '--disable-background-networking', '--disable-component-update', '--disable-sync',
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
     ],
   });
   const page = context.pages()[0] ?? (await context.newPage());

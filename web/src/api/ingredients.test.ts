@@ -14,7 +14,10 @@ describe('getIngredients', () => {
         asked.push(url.search);
         const offset = Number(url.searchParams.get('offset'));
         const limit = Number(url.searchParams.get('limit'));
-        const rows = Array.from({ length: Math.max(0, Math.min(limit, total - offset)) }, (_, i) => ({ id: `i${offset + i}`, name: `I ${offset + i}` }));
+        const rows = Array.from({ length: Math.max(0, Math.min(limit, total - offset)) }, (_, i) => ({
+          id: `i${offset + i}`,
+          name: `I ${offset + i}`,
+        }));
         return new Response(JSON.stringify(rows), { status: 200, headers: { 'content-type': 'application/json' } });
       }),
     );

@@ -67,13 +67,62 @@ export const routes: RouteObject[] = [
                 element: <RoleGate page={key}>{PAGE_ELEMENTS[key]}</RoleGate>,
               })),
               // Inside Recipes: the page gate first; the editor and swap check refuse front of house themselves.
-              { path: 'recipes/new', element: <RoleGate page="recipes"><NewRecipeRoute /></RoleGate> },
-              { path: 'recipes/swap', element: <RoleGate page="recipes"><SwapCheckRoute /></RoleGate> },
-              { path: 'recipes/:code', element: <RoleGate page="recipes"><RecipeRoute /></RoleGate> },
-              { path: 'recipes/:code/edit', element: <RoleGate page="recipes"><RecipeEditorRoute /></RoleGate> },
-              { path: 'ingredients/new', element: <RoleGate page="ingredients"><NewIngredientRoute /></RoleGate> },
-              { path: 'ingredients/import', element: <RoleGate page="ingredients"><ImportIngredientsRoute /></RoleGate> },
-              { path: 'ingredients/:code', element: <RoleGate page="ingredients"><IngredientRoute /></RoleGate> },
+              {
+                path: 'recipes/new',
+                element: (
+                  <RoleGate page="recipes">
+                    <NewRecipeRoute />
+                  </RoleGate>
+                ),
+              },
+              {
+                path: 'recipes/swap',
+                element: (
+                  <RoleGate page="recipes">
+                    <SwapCheckRoute />
+                  </RoleGate>
+                ),
+              },
+              {
+                path: 'recipes/:code',
+                element: (
+                  <RoleGate page="recipes">
+                    <RecipeRoute />
+                  </RoleGate>
+                ),
+              },
+              {
+                path: 'recipes/:code/edit',
+                element: (
+                  <RoleGate page="recipes">
+                    <RecipeEditorRoute />
+                  </RoleGate>
+                ),
+              },
+              {
+                path: 'ingredients/new',
+                element: (
+                  <RoleGate page="ingredients">
+                    <NewIngredientRoute />
+                  </RoleGate>
+                ),
+              },
+              {
+                path: 'ingredients/import',
+                element: (
+                  <RoleGate page="ingredients">
+                    <ImportIngredientsRoute />
+                  </RoleGate>
+                ),
+              },
+              {
+                path: 'ingredients/:code',
+                element: (
+                  <RoleGate page="ingredients">
+                    <IngredientRoute />
+                  </RoleGate>
+                ),
+              },
               { path: '*', element: <NotFoundRoute /> },
             ],
           },

@@ -66,7 +66,10 @@ describe('apiClient', () => {
   });
 
   it('explains a request that never reached the server', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     await expect(apiClient.get('/me')).rejects.toMatchObject({
       status: 0,
       code: 'network',

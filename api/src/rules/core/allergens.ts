@@ -120,7 +120,15 @@ export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
       if (!ex || !use.form) continue;
       const same = out.find((o) => o.ingredient === facts.ingredient.id && o.source === use.source && o.form === use.form);
       if (same) pushPath(same.via, facts.node.path);
-      else out.push({ ingredient: facts.ingredient.id, name: facts.ingredient.name, source: use.source, form: use.form, basis: ex.basis, via: [facts.node.path] });
+      else
+        out.push({
+          ingredient: facts.ingredient.id,
+          name: facts.ingredient.name,
+          source: use.source,
+          form: use.form,
+          basis: ex.basis,
+          via: [facts.node.path],
+        });
     }
   }
   return out;

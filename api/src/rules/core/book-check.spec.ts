@@ -3,24 +3,45 @@ import { book, ing, recipe } from './testing/book-builder';
 
 describe('checkBook', () => {
   it('finds nothing wrong in a sound book', () => {
-    const b = book([ing('flour'), ing('milk', { gPerMl: 1.03 })], [recipe('dough', [['flour', 500], { use: 'milk', qty: 300, unit: 'ml' }])]);
+    const b = book(
+      [ing('flour'), ing('milk', { gPerMl: 1.03 })],
+      [recipe('dough', [['flour', 500], { use: 'milk', qty: 300, unit: 'ml' }])],
+    );
     expect(checkBook(b)).toEqual([]);
   });
 
   it.each([
     {
       title: 'a recipe that uses itself',
-      recipes: [recipe('a', [['flour', 1], ['a', 1]])],
+      recipes: [
+        recipe('a', [
+          ['flour', 1],
+          ['a', 1],
+        ]),
+      ],
       path: 'A contains itself: A → A.',
     },
     {
       title: 'two recipes that use each other',
-      recipes: [recipe('a', [['b', 1]]), recipe('b', [['flour', 1], ['a', 1]])],
+      recipes: [
+        recipe('a', [['b', 1]]),
+        recipe('b', [
+          ['flour', 1],
+          ['a', 1],
+        ]),
+      ],
       path: 'A contains itself: A → B → A.',
     },
     {
       title: 'a cycle three levels deep',
-      recipes: [recipe('a', [['b', 1]]), recipe('b', [['c', 1]]), recipe('c', [['flour', 1], ['a', 1]])],
+      recipes: [
+        recipe('a', [['b', 1]]),
+        recipe('b', [['c', 1]]),
+        recipe('c', [
+          ['flour', 1],
+          ['a', 1],
+        ]),
+      ],
       path: 'A contains itself: A → B → C → A.',
     },
   ])('refuses $title, naming the cycle by recipe names (common practice)', ({ recipes, path }) => {
@@ -31,7 +52,22 @@ describe('checkBook', () => {
   });
 
   it('names the recipe, the line and the id of an unknown reference', () => {
-    const problems = checkBook(book([ing('flour')], [recipe('tart', [['flour', 100], ['flour', 5], ['lemmon', 2]], { name: 'Lemon tart' })]));
+    const problems = checkBook(
+      book(
+        [ing('flour')],
+        [
+          recipe(
+            'tart',
+            [
+              ['flour', 100],
+              ['flour', 5],
+              ['lemmon', 2],
+            ],
+            { name: 'Lemon tart' },
+          ),
+        ],
+      ),
+    );
     expect(problems).toEqual([
       {
         code: 'unknown-reference',
@@ -51,7 +87,11 @@ describe('checkBook', () => {
   it('says which figure is missing for a line in each (the product voice in DESIGN.md)', () => {
     const b = book(
       [ing('sugar'), ing('butter'), ing('eggs', { gEach: 50 }), ing('lemon')],
-      [recipe('curd', [['sugar', 100], ['butter', 80], { use: 'eggs', qty: 3, unit: 'each' }, { use: 'lemon', qty: 2, unit: 'each' }], { name: 'Lemon curd' })],
+      [
+        recipe('curd', [['sugar', 100], ['butter', 80], { use: 'eggs', qty: 3, unit: 'each' }, { use: 'lemon', qty: 2, unit: 'each' }], {
+          name: 'Lemon curd',
+        }),
+      ],
     );
     expect(checkBook(b)).toEqual([
       {
@@ -59,7 +99,8 @@ describe('checkBook', () => {
         recipe: 'curd',
         ingredient: 'lemon',
         line: 4,
-        message: "Line 4 of Lemon curd uses 'lemon' in 'each', but Lemon has no weight per unit. Add the weight of one lemon, or write the line in grams.",
+        message:
+          "Line 4 of Lemon curd uses 'lemon' in 'each', but Lemon has no weight per unit. Add the weight of one lemon, or write the line in grams.",
       },
     ]);
   });
@@ -74,10 +115,13 @@ describe('checkBook', () => {
     expect(problems[0].message).toContain(needs);
   });
 
-  it.each([{ unit: 'each' as const }, { unit: 'ml' as const }, { unit: 'cup' as const }])('refuses a sub-recipe used in $unit (recipes are weighed)', ({ unit }) => {
-    const b = book([ing('flour')], [recipe('sponge', [['flour', 100]]), recipe('cake', [{ use: 'sponge', qty: 1, unit }])]);
-    expect(checkBook(b)).toEqual([expect.objectContaining({ code: 'unweighable-line', recipe: 'cake', line: 1 })]);
-  });
+  it.each([{ unit: 'each' as const }, { unit: 'ml' as const }, { unit: 'cup' as const }])(
+    'refuses a sub-recipe used in $unit (recipes are weighed)',
+    ({ unit }) => {
+      const b = book([ing('flour')], [recipe('sponge', [['flour', 100]]), recipe('cake', [{ use: 'sponge', qty: 1, unit }])]);
+      expect(checkBook(b)).toEqual([expect.objectContaining({ code: 'unweighable-line', recipe: 'cake', line: 1 })]);
+    },
+  );
 
   it('does not weigh contact lines (they carry no weight)', () => {
     const b = book([ing('flour'), ing('oil')], [recipe('tin', [['flour', 100], { use: 'oil', qty: 1, unit: 'tsp', role: 'contact' }])]);

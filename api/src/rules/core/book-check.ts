@@ -19,7 +19,10 @@ function duplicateIds(book: Book): BookProblem[] {
   const note = (id: string, what: string) => {
     const before = seen.get(id);
     if (before !== undefined) {
-      problems.push({ code: 'duplicate-id', message: `The id '${id}' is used by ${before} and by ${what}. Give each ingredient and recipe its own id.` });
+      problems.push({
+        code: 'duplicate-id',
+        message: `The id '${id}' is used by ${before} and by ${what}. Give each ingredient and recipe its own id.`,
+      });
     } else seen.set(id, what);
   };
   for (const i of book.ingredients) note(i.id, `the ingredient ${i.name}`);

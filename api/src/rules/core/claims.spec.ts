@@ -7,10 +7,23 @@ const refs = loadReferenceData();
 type IngredientInput = BookInput['ingredients'][number];
 
 /** A two-line product: a plain base and the ingredient under test. */
-function claimOf(claim: Claim, extra: Partial<IngredientInput>, opts: { regime?: Regime; handles?: BookInput['site']['handles']; base?: Partial<IngredientInput> } = {}) {
+function claimOf(
+  claim: Claim,
+  extra: Partial<IngredientInput>,
+  opts: { regime?: Regime; handles?: BookInput['site']['handles']; base?: Partial<IngredientInput> } = {},
+) {
   const b = book(
     [ing('base', { name: 'Rice flour', ...opts.base }), ing('x', { name: 'Test ingredient', ...extra })],
-    [recipe('p', [['base', 900], ['x', 100]], { name: 'Product', finishedWeightG: 1000, sale: { portionG: 50, claims: [claim] } })],
+    [
+      recipe(
+        'p',
+        [
+          ['base', 900],
+          ['x', 100],
+        ],
+        { name: 'Product', finishedWeightG: 1000, sale: { portionG: 50, claims: [claim] } },
+      ),
+    ],
     { handles: opts.handles ?? [] },
     opts.regime ?? 'EU',
   );
@@ -28,9 +41,19 @@ describe('vegan and vegetarian', () => {
     { title: 'fish in the allergen list', extra: { contains: ['fish' as const] }, vegan: 'fails', vegetarian: 'fails' },
     { title: 'gelatine in the composition', extra: { composition: 'Sugar, beef gelatine' }, vegan: 'fails', vegetarian: 'fails' },
     { title: 'shellac in the composition', extra: { composition: 'Glaze (shellac)' }, vegan: 'fails', vegetarian: 'ok' },
-    { title: 'honey in the composition', extra: { composition: 'Honey, oats', contains: ['oats' as const] }, vegan: 'fails', vegetarian: 'ok' },
+    {
+      title: 'honey in the composition',
+      extra: { composition: 'Honey, oats', contains: ['oats' as const] },
+      vegan: 'fails',
+      vegetarian: 'ok',
+    },
     { title: 'vitamin D3 of unstated origin', extra: { composition: 'Vitamin D3' }, vegan: 'unverified', vegetarian: 'ok' },
-    { title: 'unknown status and an animal product (fails wins)', extra: { vegan: null, contains: ['egg' as const] }, vegan: 'fails', vegetarian: 'ok' },
+    {
+      title: 'unknown status and an animal product (fails wins)',
+      extra: { vegan: null, contains: ['egg' as const] },
+      vegan: 'fails',
+      vegetarian: 'ok',
+    },
     { title: 'a may-contain of milk only', extra: { mayContain: ['milk' as const] }, vegan: 'ok', vegetarian: 'ok' },
   ])('$title: vegan $vegan, vegetarian $vegetarian', ({ extra, vegan, vegetarian }) => {
     const d = claimOf('vegan', extra);
@@ -156,7 +179,9 @@ describe('gluten-free', () => {
 
   it('fails on a may-contain of a gluten cereal and on shared handling of wheat', () => {
     expect(claimOf('gluten-free', { mayContain: ['barley'] }).claims['gluten-free'].status).toBe('fails');
-    expect(claimOf('gluten-free', {}, { handles: [{ allergen: 'wheat', controls: 'shared-area' }] }).claims['gluten-free'].status).toBe('fails');
+    expect(claimOf('gluten-free', {}, { handles: [{ allergen: 'wheat', controls: 'shared-area' }] }).claims['gluten-free'].status).toBe(
+      'fails',
+    );
   });
 
   it('is ok for a product without gluten cereals whose leaves all have allergen statements', () => {
@@ -166,7 +191,16 @@ describe('gluten-free', () => {
 
 describe('claims on the declaration', () => {
   it('always gives all eight claims', () => {
-    expect(Object.keys(claimOf('vegan', {}).claims).sort()).toEqual(['dairy-free', 'egg-free', 'gluten-free', 'nut-free', 'peanut-free', 'sesame-free', 'vegan', 'vegetarian']);
+    expect(Object.keys(claimOf('vegan', {}).claims).sort()).toEqual([
+      'dairy-free',
+      'egg-free',
+      'gluten-free',
+      'nut-free',
+      'peanut-free',
+      'sesame-free',
+      'vegan',
+      'vegetarian',
+    ]);
   });
 
   it('blocks a requested claim that is only unverified', () => {

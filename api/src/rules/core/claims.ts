@@ -48,12 +48,19 @@ function dietary(claim: DietClaim, all: LeafFacts[]): ClaimResult {
     if (recorded === false) found.push({ status: 'fails', reason: reason(f, `${name} is recorded as not ${claim}.`) });
     if (recorded === null) found.push({ status: 'unverified', reason: reason(f, `${name} has no recorded ${claim} status.`) });
     for (const use of f.contains.filter((u) => animal.includes(u.source))) {
-      found.push({ status: 'fails', reason: reason(f, `${name} contains ${SOURCE_LABELS[use.source]}${use.term ? ` ('${use.term}' in its composition)` : ''}.`) });
+      found.push({
+        status: 'fails',
+        reason: reason(f, `${name} contains ${SOURCE_LABELS[use.source]}${use.term ? ` ('${use.term}' in its composition)` : ''}.`),
+      });
     }
     for (const hit of f.scan.animal) {
-      if (hit.fails.includes(claim)) found.push({ status: 'fails', reason: reason(f, `The composition of ${name} names '${hit.matched}', which is not ${claim}.`) });
+      if (hit.fails.includes(claim))
+        found.push({ status: 'fails', reason: reason(f, `The composition of ${name} names '${hit.matched}', which is not ${claim}.`) });
       else if (hit.unverified.includes(claim)) {
-        found.push({ status: 'unverified', reason: reason(f, `The composition of ${name} names '${hit.matched}', which may be animal-derived.`) });
+        found.push({
+          status: 'unverified',
+          reason: reason(f, `The composition of ${name} names '${hit.matched}', which may be animal-derived.`),
+        });
       }
     }
   }
@@ -65,7 +72,11 @@ function sharedHandling(site: Site, sources: readonly AllergenSource[]): Found[]
     .filter((h) => sources.includes(h.allergen) && h.controls !== 'segregated')
     .map((h) => ({
       status: 'fails' as const,
-      reason: { leaf: null, path: [], message: `${capitalise(SOURCE_LABELS[h.allergen])} is handled in this kitchen (${CONTROL_LABELS[h.controls]}).` },
+      reason: {
+        leaf: null,
+        path: [],
+        message: `${capitalise(SOURCE_LABELS[h.allergen])} is handled in this kitchen (${CONTROL_LABELS[h.controls]}).`,
+      },
     }));
 }
 
@@ -131,7 +142,10 @@ function glutenFree(all: LeafFacts[], site: Site, rules: RegimeRules, finishedG:
           reason: reason(f, `${name} contains ${label} with no measured gluten figure.`),
         });
       } else if (f.node.role === 'contact' && figure > 0) {
-        found.push({ status: 'fails', reason: reason(f, `${name} brings ${label} through a contact line, which has no weight; its gluten cannot be quantified.`) });
+        found.push({
+          status: 'fails',
+          reason: reason(f, `${name} brings ${label} through a contact line, which has no weight; its gluten cannot be quantified.`),
+        });
       }
     }
     if (figure !== undefined && f.node.role !== 'contact') {

@@ -49,7 +49,10 @@ describe('scanComposition', () => {
   });
 
   it('keeps precautionary clauses apart from the composition', () => {
-    const scan = scanComposition('Sugar, cocoa butter. May contain traces of milk, peanuts; produced in a factory that handles sesame.', lexicon);
+    const scan = scanComposition(
+      'Sugar, cocoa butter. May contain traces of milk, peanuts; produced in a factory that handles sesame.',
+      lexicon,
+    );
     expect(scan.allergens).toEqual([]);
     expect(scan.precautionary.map((h) => h.source)).toEqual(['milk', 'peanut', 'sesame']);
   });

@@ -87,18 +87,34 @@ export function scanComposition(composition: string, lexicon: Lexicon): Composit
   const { text, clauses } = splitClauses(composition.toLowerCase(), lexicon.negations.clauses);
   const allergenHits = (within: string): AllergenHit[] =>
     lexicon.allergenTerms.flatMap((t) =>
-      find(within, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), source: t.source, ...(t.species ? { species: t.species } : {}) })),
+      find(within, t.term, t.except, lexicon).map((h) => ({
+        ...h,
+        matched: composition.slice(h.start, h.end),
+        source: t.source,
+        ...(t.species ? { species: t.species } : {}),
+      })),
     );
   const allergens = allergenHits(text);
   const animal: AnimalHit[] = lexicon.animalTerms.flatMap((t) =>
-    find(text, t.term, t.except, lexicon).map((h) => ({ ...h, matched: composition.slice(h.start, h.end), fails: t.fails ?? [], unverified: t.unverified ?? [] })),
+    find(text, t.term, t.except, lexicon).map((h) => ({
+      ...h,
+      matched: composition.slice(h.start, h.end),
+      fails: t.fails ?? [],
+      unverified: t.unverified ?? [],
+    })),
   );
   const precautionary = allergenHits(clauses);
   const vagueHits = (within: string, named: AllergenHit[], inClause: boolean): VagueHit[] =>
     lexicon.vagueTerms.flatMap((t) =>
       find(within, t.term, t.except, lexicon)
         .filter((h) => !named.some((a) => a.start <= h.start && h.end <= a.end))
-        .map((h) => ({ ...h, matched: composition.slice(h.start, h.end), message: t.message, unverifies: t.unverifies ?? [], precautionary: inClause })),
+        .map((h) => ({
+          ...h,
+          matched: composition.slice(h.start, h.end),
+          message: t.message,
+          unverifies: t.unverifies ?? [],
+          precautionary: inClause,
+        })),
     );
   const vague = [...vagueHits(text, allergens, false), ...vagueHits(clauses, precautionary, true)];
   return { allergens, precautionary, animal, vague };

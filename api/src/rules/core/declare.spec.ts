@@ -41,18 +41,53 @@ describe('declare', () => {
         ing('eggs', { name: 'Eggs', contains: ['egg'], vegan: false }),
         ing('sugar', { name: 'Sugar' }),
         ing('milk', { name: 'Whole milk', contains: ['milk'], vegan: false }),
-        ing('choc', { name: 'Dark chocolate', supplier: 'Example Cocoa Ltd', contains: ['soy'], mayContain: ['hazelnut'], composition: 'Cocoa mass, sugar, whey powder, soya lecithin' }),
+        ing('choc', {
+          name: 'Dark chocolate',
+          supplier: 'Example Cocoa Ltd',
+          contains: ['soy'],
+          mayContain: ['hazelnut'],
+          composition: 'Cocoa mass, sugar, whey powder, soya lecithin',
+        }),
         ing('syrup', { name: 'Glucose syrup', contains: [{ source: 'wheat', form: 'glucose-syrup' }] }),
         ing('sprinkles', { name: 'Sugar sprinkles', contains: undefined }),
       ],
       [
-        recipe('sponge', [['flour', 200], ['eggs', 200], ['sugar', 200]], { finishedWeightG: 540 }),
-        recipe('cream', [['milk', 300], ['eggs', 60], ['sugar', 60]]),
-        recipe('filling', [['cream', 200], ['choc', 100]]),
-        recipe('gateau', [['sponge', 500], ['filling', 300], ['syrup', 50], ['sprinkles', 10]], { finishedWeightG: 850, sale: { portionG: 85 } }),
+        recipe(
+          'sponge',
+          [
+            ['flour', 200],
+            ['eggs', 200],
+            ['sugar', 200],
+          ],
+          { finishedWeightG: 540 },
+        ),
+        recipe('cream', [
+          ['milk', 300],
+          ['eggs', 60],
+          ['sugar', 60],
+        ]),
+        recipe('filling', [
+          ['cream', 200],
+          ['choc', 100],
+        ]),
+        recipe(
+          'gateau',
+          [
+            ['sponge', 500],
+            ['filling', 300],
+            ['syrup', 50],
+            ['sprinkles', 10],
+          ],
+          { finishedWeightG: 850, sale: { portionG: 85 } },
+        ),
         recipe('notforsale', [['sugar', 10]]),
       ],
-      { handles: [{ allergen: 'sesame', controls: 'shared-equipment' }, { allergen: 'peanut', controls: 'segregated' }] },
+      {
+        handles: [
+          { allergen: 'sesame', controls: 'shared-equipment' },
+          { allergen: 'peanut', controls: 'segregated' },
+        ],
+      },
     );
 
   it('names every path from the product to each leaf that brings an allergen, at any depth', () => {
@@ -82,7 +117,10 @@ describe('declare', () => {
   });
 
   it('reads a precautionary clause in the composition as may-contain, not contains', () => {
-    const b = book([ing('choc', { name: 'Cooking chocolate', composition: 'Cocoa mass, sugar; may contain milk and sesame.' })], [recipe('p', [['choc', 100]])]);
+    const b = book(
+      [ing('choc', { name: 'Cooking chocolate', composition: 'Cocoa mass, sugar; may contain milk and sesame.' })],
+      [recipe('p', [['choc', 100]])],
+    );
     const d = declare(b, 'p', refs);
     expect(d.contains).toEqual([]);
     expect(d.mayContain).toEqual([
@@ -92,7 +130,9 @@ describe('declare', () => {
   });
 
   it('does not repeat as may-contain a group the product contains', () => {
-    const b = book([ing('flour', { contains: ['wheat'], mayContain: ['wheat', 'milk'] })], [recipe('p', [['flour', 100]])], { handles: [{ allergen: 'wheat', controls: 'shared-area' }] });
+    const b = book([ing('flour', { contains: ['wheat'], mayContain: ['wheat', 'milk'] })], [recipe('p', [['flour', 100]])], {
+      handles: [{ allergen: 'wheat', controls: 'shared-area' }],
+    });
     expect(declare(b, 'p', refs).mayContain.map((m) => m.allergen)).toEqual(['milk']);
   });
 
@@ -101,16 +141,29 @@ describe('declare', () => {
     { regime: 'EU' as const, declaresWheatViaSyrup: false },
     { regime: 'UK' as const, declaresWheatViaSyrup: false },
     { regime: 'US' as const, declaresWheatViaSyrup: true },
-  ])('$regime: wheat glucose syrup declared = $declaresWheatViaSyrup, and named in the list either way', ({ regime, declaresWheatViaSyrup }) => {
-    const d = declare(layered(), 'gateau', refs, { regime });
-    const wheat = d.contains.find((c) => c.allergen === (regime === 'US' ? 'wheat' : 'gluten'))!;
-    expect(wheat.via.some((p) => p.join('/') === 'gateau/syrup')).toBe(declaresWheatViaSyrup);
-    expect(d.exempt.map((e) => e.ingredient)).toEqual(declaresWheatViaSyrup ? [] : ['syrup']);
-    expect(d.ingredientsText).toContain('Glucose syrup');
-  });
+  ])(
+    '$regime: wheat glucose syrup declared = $declaresWheatViaSyrup, and named in the list either way',
+    ({ regime, declaresWheatViaSyrup }) => {
+      const d = declare(layered(), 'gateau', refs, { regime });
+      const wheat = d.contains.find((c) => c.allergen === (regime === 'US' ? 'wheat' : 'gluten'))!;
+      expect(wheat.via.some((p) => p.join('/') === 'gateau/syrup')).toBe(declaresWheatViaSyrup);
+      expect(d.exempt.map((e) => e.ingredient)).toEqual(declaresWheatViaSyrup ? [] : ['syrup']);
+      expect(d.ingredientsText).toContain('Glucose syrup');
+    },
+  );
 
   it('US: fully refined soybean oil is not declared (FD&C Act 201(qq) highly refined oils, from memory)', () => {
-    const b = book([ing('oil', { name: 'Soybean oil', contains: [{ source: 'soy', form: 'refined-oil' }] }), ing('flour', { contains: ['wheat'] })], [recipe('p', [['flour', 100], ['oil', 10]])], {}, 'US');
+    const b = book(
+      [ing('oil', { name: 'Soybean oil', contains: [{ source: 'soy', form: 'refined-oil' }] }), ing('flour', { contains: ['wheat'] })],
+      [
+        recipe('p', [
+          ['flour', 100],
+          ['oil', 10],
+        ]),
+      ],
+      {},
+      'US',
+    );
     const d = declare(b, 'p', refs);
     expect(d.contains.map((c) => c.allergen)).toEqual(['wheat']);
     expect(d.ingredientsText).toBe('Ingredients: Flour, Soybean oil. Contains: wheat.');
@@ -138,7 +191,16 @@ describe('declare', () => {
   });
 
   it('refuses a book with problems and declares nothing from it', () => {
-    const bad = book([ing('flour')], [recipe('a', [['b', 1]], { sale: { portionG: 1 } }), recipe('b', [['flour', 1], ['a', 1]])]);
+    const bad = book(
+      [ing('flour')],
+      [
+        recipe('a', [['b', 1]], { sale: { portionG: 1 } }),
+        recipe('b', [
+          ['flour', 1],
+          ['a', 1],
+        ]),
+      ],
+    );
     expect(() => declare(bad, 'a', refs)).toThrow(BookProblemsError);
     try {
       declareAll(bad, refs);

@@ -1,21 +1,5 @@
-import {
-  SOURCE_LABELS,
-  type Book,
-  type Declaration,
-  type DeclarationNotice,
-  type DeclarationSet,
-  type Regime,
-} from '@crumbproof/shared';
-import {
-  containsFor,
-  declaredUses,
-  exemptUses,
-  groupsOf,
-  leafFacts,
-  mayContainFor,
-  unknownFor,
-  type LeafFacts,
-} from './allergens';
+import { SOURCE_LABELS, type Book, type Declaration, type DeclarationNotice, type DeclarationSet, type Regime } from '@crumbproof/shared';
+import { containsFor, declaredUses, exemptUses, groupsOf, leafFacts, mayContainFor, unknownFor, type LeafFacts } from './allergens';
 import { checkBook } from './book-check';
 import { claimsFor } from './claims';
 import { BookProblemsError, UnknownProductError } from './errors';
@@ -69,23 +53,44 @@ function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNo
     }
     for (const hit of f.scan.vague) {
       const what = hit.precautionary ? `says it may contain '${hit.matched}' and so ${hit.message}` : `${hit.message} ('${hit.matched}')`;
-      warnings.push({ code: 'composition-vague', ingredient: i.id, message: `The composition of ${i.name} ${what}. Ask the supplier which.` });
+      warnings.push({
+        code: 'composition-vague',
+        ingredient: i.id,
+        message: `The composition of ${i.name} ${what}. Ask the supplier which.`,
+      });
     }
     const animalVegan = f.contains.some((u) => NOT_VEGAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegan'));
-    const animalVegetarian = f.contains.some((u) => NOT_VEGETARIAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegetarian'));
+    const animalVegetarian =
+      f.contains.some((u) => NOT_VEGETARIAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegetarian'));
     if (i.vegan === true && animalVegan) {
-      warnings.push({ code: 'dietary-discrepancy', ingredient: i.id, message: `${i.name} is recorded as vegan but its allergens or composition name an animal product; vegan is not taken as met.` });
+      warnings.push({
+        code: 'dietary-discrepancy',
+        ingredient: i.id,
+        message: `${i.name} is recorded as vegan but its allergens or composition name an animal product; vegan is not taken as met.`,
+      });
     }
     if (i.vegetarian === true && animalVegetarian) {
-      warnings.push({ code: 'dietary-discrepancy', ingredient: i.id, message: `${i.name} is recorded as vegetarian but its allergens or composition name meat or fish; vegetarian is not taken as met.` });
+      warnings.push({
+        code: 'dietary-discrepancy',
+        ingredient: i.id,
+        message: `${i.name} is recorded as vegetarian but its allergens or composition name meat or fish; vegetarian is not taken as met.`,
+      });
     }
     if (!f.known) {
-      warnings.push({ code: 'allergens-unknown', ingredient: i.id, message: `Not known: ${i.name} has no allergen statement. Nothing about its allergens is proved.` });
+      warnings.push({
+        code: 'allergens-unknown',
+        ingredient: i.id,
+        message: `Not known: ${i.name} has no allergen statement. Nothing about its allergens is proved.`,
+      });
     }
     for (const use of f.contains) {
       const group = groupsOf(use.source, rules).find((g) => g.nameSpecies);
       if (group && !use.species && rules.statement.contains?.names === 'sources') {
-        warnings.push({ code: 'species-missing', ingredient: i.id, message: `${i.name} contains ${SOURCE_LABELS[use.source]} with no species recorded; the statement must name the species.` });
+        warnings.push({
+          code: 'species-missing',
+          ingredient: i.id,
+          message: `${i.name} contains ${SOURCE_LABELS[use.source]} with no species recorded; the statement must name the species.`,
+        });
       }
     }
   }
@@ -124,7 +129,8 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
     };
     for (const use of declaredUses(f, rules, sulphites.declared)) {
       if (use.source === 'sulphites') {
-        if (rules.sulphites.markInList) add({ name: rules.sulphites.name, match: rules.sourceNames.sulphites?.match ?? [rules.sulphites.name], emphasis });
+        if (rules.sulphites.markInList)
+          add({ name: rules.sulphites.name, match: rules.sourceNames.sulphites?.match ?? [rules.sulphites.name], emphasis });
         continue;
       }
       const name = rules.sourceNames[use.source];
@@ -140,10 +146,17 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
   const warnings: DeclarationNotice[] = [...ingredientWarnings(facts, rules), ...sulphites.warnings, ...list.warnings];
   const exempt = exemptUses(facts, rules);
   for (const e of exempt) {
-    warnings.push({ code: 'exempt-form', ingredient: e.ingredient, message: `${e.name}: ${SOURCE_LABELS[e.source]} in this form is not declared (${e.basis}).` });
+    warnings.push({
+      code: 'exempt-form',
+      ingredient: e.ingredient,
+      message: `${e.name}: ${SOURCE_LABELS[e.source]} in this form is not declared (${e.basis}).`,
+    });
   }
   if (claims.vegan.status === 'ok' && mayContain.some((m) => groupsOf('milk', rules).some((g) => g.code === m.allergen))) {
-    warnings.push({ code: 'vegan-not-dairy-free', message: `${tree.recipe.name} is vegan as recorded but may contain milk: vegan is not dairy-free.` });
+    warnings.push({
+      code: 'vegan-not-dairy-free',
+      message: `${tree.recipe.name} is vegan as recorded but may contain milk: vegan is not dairy-free.`,
+    });
   }
 
   const errors: DeclarationNotice[] = [...quid.errors];

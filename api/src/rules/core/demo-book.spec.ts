@@ -17,7 +17,13 @@ describe('the demo kitchen', () => {
 
   it('declares every product for sale, each without errors', () => {
     const { declarations } = declareAll(book, refs);
-    expect(declarations.map((d) => d.product)).toEqual(['strawberry-layer-cake', 'strawberry-tart', 'apricot-walnut-loaf', 'vegan-brownie', 'lemon-shortbread']);
+    expect(declarations.map((d) => d.product)).toEqual([
+      'strawberry-layer-cake',
+      'strawberry-tart',
+      'apricot-walnut-loaf',
+      'vegan-brownie',
+      'lemon-shortbread',
+    ]);
     for (const d of declarations) expect(d.errors).toEqual([]);
   });
 
@@ -29,10 +35,12 @@ describe('the demo kitchen', () => {
 
   it('layer cake: contains eggs via its sponge and via the Italian meringue in its buttercream', () => {
     const eggs = of('strawberry-layer-cake').contains.find((c) => c.allergen === 'eggs')!;
-    expect(eggs.via).toEqual(expect.arrayContaining([
-      ['strawberry-layer-cake', 'vanilla-sponge', 'eggs'],
-      ['strawberry-layer-cake', 'meringue-buttercream', 'italian-meringue', 'egg-whites'],
-    ]));
+    expect(eggs.via).toEqual(
+      expect.arrayContaining([
+        ['strawberry-layer-cake', 'vanilla-sponge', 'eggs'],
+        ['strawberry-layer-cake', 'meringue-buttercream', 'italian-meringue', 'egg-whites'],
+      ]),
+    );
   });
 
   it('layer cake: sugar strands have no allergen statement, so free-from claims cannot be verified', () => {
@@ -66,7 +74,9 @@ describe('the demo kitchen', () => {
 
   it('spelt loaf: spelt refers to wheat, sulphites from the apricots are declared, the dusting flour is listed last', () => {
     const d = of('apricot-walnut-loaf');
-    expect(d.ingredientsMarkdown.startsWith('Ingredients: Wholegrain **spelt** flour (**wheat**), Water, Dried apricots (**sulphites**)')).toBe(true);
+    expect(
+      d.ingredientsMarkdown.startsWith('Ingredients: Wholegrain **spelt** flour (**wheat**), Water, Dried apricots (**sulphites**)'),
+    ).toBe(true);
     // 100 g at 1800 mg/kg in 930 g as eaten: 193.5 mg/kg > 10 (Annex II point 12)
     expect(d.sulphites.mgPerKg).toBeCloseTo(180 / 0.93, 6);
     expect(d.sulphites.declared).toBe(true);

@@ -5,7 +5,9 @@ export class BookProblemsError extends Error {
   readonly problems: BookProblem[];
 
   constructor(problems: BookProblem[]) {
-    super(`The recipe book has ${problems.length} problem${problems.length === 1 ? '' : 's'}:\n${problems.map((p) => p.message).join('\n')}`);
+    super(
+      `The recipe book has ${problems.length} problem${problems.length === 1 ? '' : 's'}:\n${problems.map((p) => p.message).join('\n')}`,
+    );
     this.name = 'BookProblemsError';
     this.problems = problems;
   }

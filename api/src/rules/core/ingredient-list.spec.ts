@@ -8,7 +8,16 @@ const names = (list: DeclaredIngredient[]): string[] => list.map((e) => e.name);
 
 describe('ingredient list order and percentages', () => {
   it('orders by weight at the time of use, descending (EU 1169/2011 Art. 18; 21 CFR 101.4(a)(1))', () => {
-    const b = book([ing('sugar'), ing('flour'), ing('butter', { contains: ['milk'] })], [recipe('p', [['sugar', 100], ['flour', 300], ['butter', 200]])]);
+    const b = book(
+      [ing('sugar'), ing('flour'), ing('butter', { contains: ['milk'] })],
+      [
+        recipe('p', [
+          ['sugar', 100],
+          ['flour', 300],
+          ['butter', 200],
+        ]),
+      ],
+    );
     const d = declare(b, 'p', refs);
     expect(names(d.ingredients)).toEqual(['Flour', 'Butter', 'Sugar']);
     expect(d.ingredients.map((e) => e.percent)).toEqual([50, expect.closeTo(33.333, 3), expect.closeTo(16.667, 3)]);
@@ -16,10 +25,30 @@ describe('ingredient list order and percentages', () => {
 
   it('keeps a sub-recipe under its own name with its ingredients in brackets in their own order (Annex VII Part E.1)', () => {
     const b = book(
-      [ing('flour', { name: 'Wheat flour', contains: ['wheat'] }), ing('sugar'), ing('eggs', { name: 'Eggs', contains: ['egg'] }), ing('cream', { name: 'Double cream', contains: ['milk'] })],
       [
-        recipe('sponge', [['sugar', 100], ['flour', 120], ['eggs', 150]], { finishedWeightG: 330 }),
-        recipe('cake', [['sponge', 330], ['cream', 200]], { name: 'Cake' }),
+        ing('flour', { name: 'Wheat flour', contains: ['wheat'] }),
+        ing('sugar'),
+        ing('eggs', { name: 'Eggs', contains: ['egg'] }),
+        ing('cream', { name: 'Double cream', contains: ['milk'] }),
+      ],
+      [
+        recipe(
+          'sponge',
+          [
+            ['sugar', 100],
+            ['flour', 120],
+            ['eggs', 150],
+          ],
+          { finishedWeightG: 330 },
+        ),
+        recipe(
+          'cake',
+          [
+            ['sponge', 330],
+            ['cream', 200],
+          ],
+          { name: 'Cake' },
+        ),
       ],
     );
     const d = declare(b, 'cake', refs);
@@ -35,7 +64,16 @@ describe('ingredient list order and percentages', () => {
   it('keeps a sub-recipe under 2 % in brackets too, so no allergen is lost (Annex VII E.2; decision documented in ingredient-list.ts)', () => {
     const b = book(
       [ing('flour'), ing('praline', { name: 'Hazelnut praline paste', contains: ['hazelnut'] }), ing('sugar')],
-      [recipe('crunch', [['praline', 50], ['sugar', 50]]), recipe('loaf', [['flour', 990], ['crunch', 10]])],
+      [
+        recipe('crunch', [
+          ['praline', 50],
+          ['sugar', 50],
+        ]),
+        recipe('loaf', [
+          ['flour', 990],
+          ['crunch', 10],
+        ]),
+      ],
     );
     const d = declare(b, 'loaf', refs);
     expect(d.ingredients[1]).toMatchObject({ name: 'Crunch', percent: 1 });
@@ -46,7 +84,14 @@ describe('ingredient list order and percentages', () => {
   it('puts contact lines at the end of their level, with no weight', () => {
     const b = book(
       [ing('flour', { contains: ['wheat'] }), ing('oil', { name: 'Rapeseed oil' }), ing('sugar'), ing('dust', { name: 'Rice flour' })],
-      [recipe('p', [{ use: 'oil', qty: 2, unit: 'g', role: 'contact' }, ['sugar', 10], ['flour', 300], { use: 'dust', qty: 5, unit: 'g', role: 'contact' }])],
+      [
+        recipe('p', [
+          { use: 'oil', qty: 2, unit: 'g', role: 'contact' },
+          ['sugar', 10],
+          ['flour', 300],
+          { use: 'dust', qty: 5, unit: 'g', role: 'contact' },
+        ]),
+      ],
     );
     const d = declare(b, 'p', refs);
     expect(d.ingredients.map((e) => [e.name, e.role, e.percent])).toEqual([
@@ -58,7 +103,10 @@ describe('ingredient list order and percentages', () => {
   });
 
   it('brings the allergens of a contact line (dusting flour) without weight', () => {
-    const b = book([ing('sugar'), ing('flour', { name: 'Wheat flour', contains: ['wheat'] })], [recipe('p', [['sugar', 100], { use: 'flour', qty: 5, unit: 'g', role: 'contact' }])]);
+    const b = book(
+      [ing('sugar'), ing('flour', { name: 'Wheat flour', contains: ['wheat'] })],
+      [recipe('p', [['sugar', 100], { use: 'flour', qty: 5, unit: 'g', role: 'contact' }])],
+    );
     const d = declare(b, 'p', refs);
     expect(d.contains).toEqual([expect.objectContaining({ allergen: 'gluten', via: [['p', 'flour']] })]);
     expect(d.mixWeightG).toBe(100);
@@ -69,8 +117,24 @@ describe('added water (EU 1169/2011 Annex VII A.1)', () => {
   const bread = (regime: Regime) =>
     declare(
       book(
-        [ing('flour', { name: 'Wheat flour', contains: ['wheat'] }), ing('water', { name: 'Water' }), ing('salt', { name: 'Salt' }), ing('yeast', { name: 'Yeast' })],
-        [recipe('bread', [['flour', 600], ['water', 400], ['salt', 12], ['yeast', 12]], { finishedWeightG: 900 })],
+        [
+          ing('flour', { name: 'Wheat flour', contains: ['wheat'] }),
+          ing('water', { name: 'Water' }),
+          ing('salt', { name: 'Salt' }),
+          ing('yeast', { name: 'Yeast' }),
+        ],
+        [
+          recipe(
+            'bread',
+            [
+              ['flour', 600],
+              ['water', 400],
+              ['salt', 12],
+              ['yeast', 12],
+            ],
+            { finishedWeightG: 900 },
+          ),
+        ],
         {},
         regime,
       ),
@@ -92,7 +156,18 @@ describe('added water (EU 1169/2011 Annex VII A.1)', () => {
     const d = declare(
       book(
         [ing('flour', { contains: ['wheat'] }), ing('sugar'), ing('butter', { contains: ['milk'] }), ing('water', { name: 'Water' })],
-        [recipe('biscuit', [['flour', 500], ['sugar', 250], ['butter', 200], ['water', 50]], { finishedWeightG: 900 })],
+        [
+          recipe(
+            'biscuit',
+            [
+              ['flour', 500],
+              ['sugar', 250],
+              ['butter', 200],
+              ['water', 50],
+            ],
+            { finishedWeightG: 900 },
+          ),
+        ],
       ),
       'biscuit',
       refs,
@@ -103,7 +178,19 @@ describe('added water (EU 1169/2011 Annex VII A.1)', () => {
 
   it('recognises added water by the isWater flag as well as by name', () => {
     const d = declare(
-      book([ing('flour'), ing('aq', { name: 'Filtered water', isWater: true })], [recipe('p', [['flour', 500], ['aq', 20]], { finishedWeightG: 500 })]),
+      book(
+        [ing('flour'), ing('aq', { name: 'Filtered water', isWater: true })],
+        [
+          recipe(
+            'p',
+            [
+              ['flour', 500],
+              ['aq', 20],
+            ],
+            { finishedWeightG: 500 },
+          ),
+        ],
+      ),
       'p',
       refs,
     );

@@ -10,7 +10,18 @@ function sponge(quid: string[]) {
   return declare(
     book(
       [ing('flour', { contains: ['wheat'] }), ing('sugar'), ing('butter', { contains: ['milk'] }), ing('egg', { contains: ['egg'] })],
-      [recipe('sponge', [['flour', 250], ['sugar', 250], ['butter', 250], ['egg', 250]], { finishedWeightG: 900, sale: { portionG: 90, quid } })],
+      [
+        recipe(
+          'sponge',
+          [
+            ['flour', 250],
+            ['sugar', 250],
+            ['butter', 250],
+            ['egg', 250],
+          ],
+          { finishedWeightG: 900, sale: { portionG: 90, quid } },
+        ),
+      ],
     ),
     'sponge',
     refs,
@@ -35,7 +46,19 @@ describe('QUID (EU 1169/2011 Annex VIII 4(a))', () => {
 
   it('gives the per-100 g form when one ingredient alone exceeds 100 % (Annex VIII 4(a))', () => {
     const d = declare(
-      book([ing('apples'), ing('sugar')], [recipe('leather', [['apples', 1500], ['sugar', 100]], { finishedWeightG: 1000, sale: { portionG: 20, quid: ['apples'] } })]),
+      book(
+        [ing('apples'), ing('sugar')],
+        [
+          recipe(
+            'leather',
+            [
+              ['apples', 1500],
+              ['sugar', 100],
+            ],
+            { finishedWeightG: 1000, sale: { portionG: 20, quid: ['apples'] } },
+          ),
+        ],
+      ),
       'leather',
       refs,
     );
@@ -47,8 +70,23 @@ describe('QUID (EU 1169/2011 Annex VIII 4(a))', () => {
       book(
         [ing('butter', { contains: ['milk'] }), ing('flour'), ing('sugar')],
         [
-          recipe('crumble', [['butter', 100], ['flour', 100]], { finishedWeightG: 200 }),
-          recipe('bake', [['crumble', 100], ['butter', 50], ['sugar', 850]], { finishedWeightG: 1000, sale: { portionG: 100, quid: ['butter', 'crumble'] } }),
+          recipe(
+            'crumble',
+            [
+              ['butter', 100],
+              ['flour', 100],
+            ],
+            { finishedWeightG: 200 },
+          ),
+          recipe(
+            'bake',
+            [
+              ['crumble', 100],
+              ['butter', 50],
+              ['sugar', 850],
+            ],
+            { finishedWeightG: 1000, sale: { portionG: 100, quid: ['butter', 'crumble'] } },
+          ),
         ],
       ),
       'bake',

@@ -27,7 +27,11 @@ export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; 
     const uses = nodes.filter((n) => n.id === id);
     const grams = uses.reduce((s, n) => s + n.massG, 0);
     if (uses.length === 0 || grams <= 0) {
-      errors.push({ code: 'quid-not-in-product', ingredient: id, message: `The quantity of '${id}' is asked for, but ${tree.recipe.name} does not use it.` });
+      errors.push({
+        code: 'quid-not-in-product',
+        ingredient: id,
+        message: `The quantity of '${id}' is asked for, but ${tree.recipe.name} does not use it.`,
+      });
       return [];
     }
     return [{ id, name: uses[0].name, percent: tree.finishedG > 0 ? (100 * grams) / tree.finishedG : 0 }];
@@ -38,7 +42,9 @@ export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; 
     ingredient: f.id,
     name: f.name,
     percent: f.percent,
-    text: perHundred ? `Prepared with ${round(f.percent, 1)} g of ${lowerFirst(f.name)} per 100 g` : `${f.name} ${formatPercent(f.percent)}`,
+    text: perHundred
+      ? `Prepared with ${round(f.percent, 1)} g of ${lowerFirst(f.name)} per 100 g`
+      : `${f.name} ${formatPercent(f.percent)}`,
   }));
   return { quid, errors };
 }

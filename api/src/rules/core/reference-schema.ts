@@ -97,7 +97,9 @@ export type RegimeRules = z.infer<typeof regimeRulesSchema>;
 export const regimesFileSchema = z
   .strictObject({
     description: z.string(),
-    regimes: z.strictObject(Object.fromEntries(REGIMES.map((r) => [r, regimeRulesSchema])) as Record<(typeof REGIMES)[number], typeof regimeRulesSchema>),
+    regimes: z.strictObject(
+      Object.fromEntries(REGIMES.map((r) => [r, regimeRulesSchema])) as Record<(typeof REGIMES)[number], typeof regimeRulesSchema>,
+    ),
   })
   .superRefine((file, ctx) => {
     for (const [regime, rules] of Object.entries(file.regimes)) {
@@ -106,7 +108,8 @@ export const regimesFileSchema = z
         if (codes.has(group.code)) ctx.addIssue({ code: 'custom', message: `${regime}: group ${group.code} is listed twice.` });
         codes.add(group.code);
         for (const member of group.members) {
-          if (!rules.sourceNames[member]) ctx.addIssue({ code: 'custom', message: `${regime}: ${member} (group ${group.code}) has no printed name.` });
+          if (!rules.sourceNames[member])
+            ctx.addIssue({ code: 'custom', message: `${regime}: ${member} (group ${group.code}) has no printed name.` });
         }
       }
       if (rules.sulphites.group !== null && !codes.has(rules.sulphites.group)) {
@@ -116,7 +119,10 @@ export const regimesFileSchema = z
   });
 export type RegimesFile = z.infer<typeof regimesFileSchema>;
 
-const term = z.string().min(1).transform((t) => t.toLowerCase());
+const term = z
+  .string()
+  .min(1)
+  .transform((t) => t.toLowerCase());
 
 export const lexiconFileSchema = z.strictObject({
   description: z.string().min(10),
@@ -126,9 +132,7 @@ export const lexiconFileSchema = z.strictObject({
     clauses: z.array(term),
     source: basis,
   }),
-  allergenTerms: z.array(
-    z.strictObject({ term, source, species: z.string().min(1).optional(), except: z.array(term).optional() }),
-  ),
+  allergenTerms: z.array(z.strictObject({ term, source, species: z.string().min(1).optional(), except: z.array(term).optional() })),
   vagueTerms: z.array(
     z.strictObject({
       term,

@@ -27,9 +27,19 @@ describe('renderName', () => {
     { name: 'Butter', marks: [{ name: 'milk', match: ['milk'] }], out: 'Butter (**milk**)' },
     { name: 'Free-range eggs', marks: [{ name: 'egg', match: ['egg', 'eggs'] }], out: 'Free-range **eggs**' },
     { name: 'Nutmeg', marks: [{ name: 'nut', match: ['nut'] }], out: 'Nutmeg (**nut**)' },
-    { name: 'Dark chocolate', marks: [{ name: 'milk', match: ['milk'] }, { name: 'soya', match: ['soy', 'soya'] }], out: 'Dark chocolate (**milk**, **soya**)' },
+    {
+      name: 'Dark chocolate',
+      marks: [
+        { name: 'milk', match: ['milk'] },
+        { name: 'soya', match: ['soy', 'soya'] },
+      ],
+      out: 'Dark chocolate (**milk**, **soya**)',
+    },
   ])('$name → $out', ({ name, marks, out }) => {
-    const segments = renderName(name, marks.map((m) => ({ ...m, emphasis: true })));
+    const segments = renderName(
+      name,
+      marks.map((m) => ({ ...m, emphasis: true })),
+    );
     expect(segments.map((s) => (s.emphasis ? `**${s.text}**` : s.text)).join('')).toBe(out);
   });
 });
@@ -54,7 +64,9 @@ describe('the list in each regime’s form', () => {
 
   it('US: the list, then "Contains:" naming tree nut and fish species (FD&C Act 403(w); FALCPA)', () => {
     const d = listOf('US', [flour, butter, pine, cod, shrimp]);
-    expect(d.ingredientsText).toBe('Ingredients: Wheat flour, Butter, Pine nuts, Cod, Prawn paste. Contains: milk, cod, shrimp, pine nut, wheat.');
+    expect(d.ingredientsText).toBe(
+      'Ingredients: Wheat flour, Butter, Pine nuts, Cod, Prawn paste. Contains: milk, cod, shrimp, pine nut, wheat.',
+    );
     expect(d.ingredientsSegments.some((s) => s.emphasis)).toBe(false);
     expect(d.contains.find((c) => c.allergen === 'fish')).toMatchObject({ species: ['cod'] });
   });
@@ -82,14 +94,18 @@ describe('the list in each regime’s form', () => {
     const apricot = ing('apricot', { name: 'Dried apricots', contains: ['sulphites'], sulphiteMgPerKg: 2000 });
     const mustard = ing('mustard', { name: 'Dijon mustard', contains: ['mustard'] });
     const d = listOf('CA', [flour, barley, apricot, mustard]);
-    expect(d.ingredientsText).toBe('Ingredients: Wheat flour, Barley flakes, Dried apricots, Dijon mustard. Contains: wheat, mustard, barley, sulphites.');
+    expect(d.ingredientsText).toBe(
+      'Ingredients: Wheat flour, Barley flakes, Dried apricots, Dijon mustard. Contains: wheat, mustard, barley, sulphites.',
+    );
     expect(d.contains.map((c) => c.allergen)).toEqual(['wheat', 'mustard', 'gluten', 'sulphites']);
   });
 
   it('ANZ: required names in bold in the list and a bold "Contains" summary with gluten (FSANZ PEAL)', () => {
     const oats = ing('oats', { name: 'Rolled oats', contains: ['oats'] });
     const d = listOf('ANZ', [flour, oats, butter]);
-    expect(d.ingredientsMarkdown).toBe('Ingredients: **Wheat** flour, Rolled **oats**, Butter (**milk**). **Contains: wheat, oats, gluten, milk.**');
+    expect(d.ingredientsMarkdown).toBe(
+      'Ingredients: **Wheat** flour, Rolled **oats**, Butter (**milk**). **Contains: wheat, oats, gluten, milk.**',
+    );
   });
 
   it.each([
@@ -99,7 +115,10 @@ describe('the list in each regime’s form', () => {
     { regime: 'US' as const, contains: [] as string[] },
     { regime: 'CA' as const, contains: ['mustard'] },
   ])('celery salt and mustard in $regime contain $contains', ({ regime, contains }) => {
-    const d = listOf(regime, [ing('celery', { name: 'Celery salt', contains: ['celery'] }), ing('mustard', { name: 'Mustard', contains: ['mustard'] })]);
+    const d = listOf(regime, [
+      ing('celery', { name: 'Celery salt', contains: ['celery'] }),
+      ing('mustard', { name: 'Mustard', contains: ['mustard'] }),
+    ]);
     expect(d.contains.map((c) => c.allergen)).toEqual(contains);
   });
 

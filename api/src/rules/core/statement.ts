@@ -66,7 +66,8 @@ function renderEntries(entries: DeclaredIngredient[], marksOf: (ingredientId: st
     if (i > 0) out.push({ text: ', ', emphasis: false });
     if (e.kind === 'recipe') {
       out.push({ text: e.name, emphasis: false });
-      if (e.children.length > 0) out.push({ text: ' (', emphasis: false }, ...renderEntries(e.children, marksOf), { text: ')', emphasis: false });
+      if (e.children.length > 0)
+        out.push({ text: ' (', emphasis: false }, ...renderEntries(e.children, marksOf), { text: ')', emphasis: false });
     } else out.push(...renderName(e.name, marksOf(e.id)));
   });
   return out;
@@ -108,8 +109,17 @@ export interface RenderedList {
  * then a "Contains:" statement right after it. ANZ: names in bold in the list and a bold
  * "Contains" summary.
  */
-export function renderList(entries: DeclaredIngredient[], contains: ContainedAllergen[], rules: RegimeRules, marksOf: (ingredientId: string) => Mark[]): RenderedList {
-  const segments: TextSegment[] = [{ text: rules.statement.heading, emphasis: false }, ...renderEntries(entries, marksOf), { text: '.', emphasis: false }];
+export function renderList(
+  entries: DeclaredIngredient[],
+  contains: ContainedAllergen[],
+  rules: RegimeRules,
+  marksOf: (ingredientId: string) => Mark[],
+): RenderedList {
+  const segments: TextSegment[] = [
+    { text: rules.statement.heading, emphasis: false },
+    ...renderEntries(entries, marksOf),
+    { text: '.', emphasis: false },
+  ];
   const style = rules.statement.contains;
   const names = containsNames(contains, rules);
   if (style && names.length > 0) {

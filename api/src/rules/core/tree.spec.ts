@@ -7,7 +7,11 @@ describe('buildTree', () => {
     [
       // sponge: 400 g raw, baked to 320 g
       recipe('sponge', [['flour', 200], ['sugar', 100], { use: 'eggs', qty: 2, unit: 'each' }], { finishedWeightG: 320 }),
-      recipe('cake', [['sponge', 160], { use: 'milk', qty: 100, unit: 'ml' }, ['sugar', 37], { use: 'oil', qty: 1, unit: 'tsp', role: 'contact' }], { finishedWeightG: 280 }),
+      recipe(
+        'cake',
+        [['sponge', 160], { use: 'milk', qty: 100, unit: 'ml' }, ['sugar', 37], { use: 'oil', qty: 1, unit: 'tsp', role: 'contact' }],
+        { finishedWeightG: 280 },
+      ),
     ],
   );
   const tree = buildTree(b, 'cake');
@@ -46,6 +50,13 @@ describe('buildTree', () => {
   });
 
   it('lists every leaf with its path', () => {
-    expect(leavesOf(tree.children).map((l) => l.path.join('/'))).toEqual(['cake/sponge/flour', 'cake/sponge/sugar', 'cake/sponge/eggs', 'cake/milk', 'cake/sugar', 'cake/oil']);
+    expect(leavesOf(tree.children).map((l) => l.path.join('/'))).toEqual([
+      'cake/sponge/flour',
+      'cake/sponge/sugar',
+      'cake/sponge/eggs',
+      'cake/milk',
+      'cake/sugar',
+      'cake/oil',
+    ]);
   });
 });

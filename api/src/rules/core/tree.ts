@@ -48,21 +48,23 @@ export function buildTree(book: Book, productId: string): ProductTree {
   if (!product) throw new Error(`There is no recipe '${productId}' in this book.`);
 
   const weigh = (recipe: BookRecipe) =>
-    mergeWeighed(recipe.lines.map((line) => {
-      const ingredient = ingredients.get(line.use);
-      const recipeUsed = recipes.get(line.use);
-      let grams = 0;
-      if (line.role !== 'contact') {
-        if (ingredient) {
-          const w = toGrams(line.qty, line.unit, ingredient, measures);
-          if (!w.ok) throw new Error(`${recipe.name} uses ${ingredient.name} in a unit that cannot be weighed; check the book first.`);
-          grams = w.grams;
-        } else {
-          grams = line.unit === 'kg' ? line.qty * 1000 : line.qty;
+    mergeWeighed(
+      recipe.lines.map((line) => {
+        const ingredient = ingredients.get(line.use);
+        const recipeUsed = recipes.get(line.use);
+        let grams = 0;
+        if (line.role !== 'contact') {
+          if (ingredient) {
+            const w = toGrams(line.qty, line.unit, ingredient, measures);
+            if (!w.ok) throw new Error(`${recipe.name} uses ${ingredient.name} in a unit that cannot be weighed; check the book first.`);
+            grams = w.grams;
+          } else {
+            grams = line.unit === 'kg' ? line.qty * 1000 : line.qty;
+          }
         }
-      }
-      return { line, ingredient, recipe: recipeUsed, grams };
-    }));
+        return { line, ingredient, recipe: recipeUsed, grams };
+      }),
+    );
 
   const mixOf = (recipe: BookRecipe) => weigh(recipe).reduce((sum, l) => sum + l.grams, 0);
 
@@ -76,7 +78,18 @@ export function buildTree(book: Book, productId: string): ProductTree {
       const nodeShare = mix > 0 ? (share * usedG) / mix : 0;
       const nodePath = [...path, line.use];
       if (ingredient) {
-        return { kind: 'ingredient', id: ingredient.id, name: ingredient.name, role, usedG, massG, share: nodeShare, path: nodePath, ingredient, children: [] };
+        return {
+          kind: 'ingredient',
+          id: ingredient.id,
+          name: ingredient.name,
+          role,
+          usedG,
+          massG,
+          share: nodeShare,
+          path: nodePath,
+          ingredient,
+          children: [],
+        };
       }
       if (!sub) throw new Error(`${recipe.name} uses '${line.use}', which is not in this book; check the book first.`);
       if (path.includes(sub.id)) throw new Error(`${sub.name} contains itself; check the book first.`);

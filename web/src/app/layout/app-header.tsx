@@ -19,17 +19,7 @@ export function AppHeader() {
 
   return (
     <Box as="header" bg="bg.panel" borderBottomWidth="1px" borderColor="border.muted">
-      <Flex
-        maxW="6xl"
-        mx="auto"
-        px={{ base: '4', md: '8' }}
-        pt="3"
-        pb="1"
-        gap="4"
-        wrap="wrap"
-        align="center"
-        justify="space-between"
-      >
+      <Flex maxW="6xl" mx="auto" px={{ base: '4', md: '8' }} pt="3" pb="1" gap="4" wrap="wrap" align="center" justify="space-between">
         <HStack gap="3">
           <BrandMark />
           <Stack gap="0">

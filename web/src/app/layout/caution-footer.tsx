@@ -5,8 +5,8 @@ export function CautionFooter() {
   return (
     <Box as="footer" borderTopWidth="1px" borderColor="border.muted" bg="bg.subtle" px={{ base: '4', md: '8' }} py="4">
       <Text maxW="6xl" mx="auto" fontSize="sm" color="fg.muted">
-        Crumbproof computes declarations from the recipes and supplier information entered. Check them against
-        supplier specifications; local law and your kitchen’s food-safety system decide.
+        Crumbproof computes declarations from the recipes and supplier information entered. Check them against supplier specifications;
+        local law and your kitchen’s food-safety system decide.
       </Text>
     </Box>
   );

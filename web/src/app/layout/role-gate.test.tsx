@@ -10,7 +10,9 @@ describe('Pages a role may not use', () => {
     renderApp('/users');
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Not available to your role' })).toBeInTheDocument();
-    expect(screen.getByText('You are signed in as Front of house. Only Manager accounts can open Users. Ask your manager if you need it.')).toBeInTheDocument();
+    expect(
+      screen.getByText('You are signed in as Front of house. Only Manager accounts can open Users. Ask your manager if you need it.'),
+    ).toBeInTheDocument();
     expect(screen.queryByRole('heading', { name: 'Users' })).not.toBeInTheDocument();
     expect(screen.queryByRole('table')).not.toBeInTheDocument();
     expect(calls.some((call) => call.path === '/api/users')).toBe(false);

@@ -15,8 +15,8 @@ export function RefusedRoute({ page, role }: RefusedRouteProps) {
   return (
     <Page title="Not available to your role">
       <Text maxW="65ch">
-        You are signed in as {ROLE_LABELS[role]}. Only {describeRoles(rolesThatCanOpen(page))} accounts can open{' '}
-        {label}. Ask your manager if you need it.
+        You are signed in as {ROLE_LABELS[role]}. Only {describeRoles(rolesThatCanOpen(page))} accounts can open {label}. Ask your manager
+        if you need it.
       </Text>
       <Link asChild color="accent.fg" fontWeight="bold" alignSelf="flex-start" minH="11">
         <RouterLink to={firstPathFor(role)}>Go to your first page</RouterLink>

@@ -26,8 +26,8 @@ export function RouteError() {
           Something went wrong on this page
         </Heading>
         <Text>
-          {what} Nothing you saved has been lost. Reload the page to try again; if it happens again, tell your manager
-          what you were doing and pass on the message below.
+          {what} Nothing you saved has been lost. Reload the page to try again; if it happens again, tell your manager what you were doing
+          and pass on the message below.
         </Text>
         <Code display="block" whiteSpace="pre-wrap" p="3" bg="bg.subtle" color="fg" rounded="md">
           {detail || 'No message was given.'}

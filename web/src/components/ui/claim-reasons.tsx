@@ -18,7 +18,11 @@ export function InlinePath({ path, lookup }: InlinePathProps) {
       {steps.map((step, index) => (
         <Fragment key={`${step.id}-${index}`}>
           {index > 0 ? <span aria-hidden="true"> → </span> : null}
-          {index > 0 ? <Box as="span" srOnly>then</Box> : null}
+          {index > 0 ? (
+            <Box as="span" srOnly>
+              then
+            </Box>
+          ) : null}
           {canOpen(step.href) ? (
             <Link asChild color="accent.fg">
               <RouterLink to={step.href}>{step.name}</RouterLink>

@@ -11,7 +11,15 @@ export const CLAIM_STATUS_WORDS: Record<ClaimStatus, string> = {
 export function ClaimMark({ status }: { status: ClaimStatus }) {
   const color = status === 'ok' ? 'accent.fg' : status === 'fails' ? 'fg.error' : 'fg.muted';
   return (
-    <Box as="span" aria-hidden="true" data-claim-mark={status} display="inline-flex" flexShrink={0} color={color} css={{ '& .glyph': { stroke: 'bg.panel' } }}>
+    <Box
+      as="span"
+      aria-hidden="true"
+      data-claim-mark={status}
+      display="inline-flex"
+      flexShrink={0}
+      color={color}
+      css={{ '& .glyph': { stroke: 'bg.panel' } }}
+    >
       <svg width="1em" height="1em" viewBox="0 0 16 16" focusable="false">
         {status === 'ok' ? (
           <>
@@ -26,7 +34,13 @@ export function ClaimMark({ status }: { status: ClaimStatus }) {
         ) : (
           <>
             <circle cx="8" cy="8" r="6.5" fill="none" stroke="currentColor" strokeWidth="1.6" strokeDasharray="2.5 1.8" />
-            <path d="M6.3 6.3a1.8 1.8 0 1 1 2.4 1.7c-.5.2-.7.6-.7 1.1" fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" />
+            <path
+              d="M6.3 6.3a1.8 1.8 0 1 1 2.4 1.7c-.5.2-.7.6-.7 1.1"
+              fill="none"
+              stroke="currentColor"
+              strokeWidth="1.5"
+              strokeLinecap="round"
+            />
             <circle cx="8" cy="11.4" r="0.9" fill="currentColor" />
           </>
         )}

@@ -1,11 +1,5 @@
 import { Table, Text } from '@chakra-ui/react';
-import {
-  createColumnHelper,
-  tableFeatures,
-  useTable,
-  type ColumnDef,
-  type RowData,
-} from '@tanstack/react-table';
+import { createColumnHelper, tableFeatures, useTable, type ColumnDef, type RowData } from '@tanstack/react-table';
 import type { ReactNode } from 'react';
 
 /** The features every Crumbproof table registers. Module scope keeps them stable between renders. */
@@ -54,7 +48,15 @@ export function DataTable<TData extends RowData>({
 
   return (
     // Focusable and named, so a table wider than its column can be scrolled from the keyboard.
-    <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel" tabIndex={0} role="region" aria-label={caption}>
+    <Table.ScrollArea
+      borderWidth="1px"
+      borderColor="border.muted"
+      rounded="md"
+      bg="bg.panel"
+      tabIndex={0}
+      role="region"
+      aria-label={caption}
+    >
       {/* Body text stays at 16 px in tables too. */}
       <Table.Root size="md" stickyHeader interactive={false} css={{ '& th, & td': { textStyle: 'md' } }}>
         <Table.Caption

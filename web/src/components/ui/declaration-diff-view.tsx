@@ -73,11 +73,7 @@ function ClaimChangeRow({ change, lookup, showReasons }: { change: ClaimChange; 
 /** What changed between two declarations of one product: allergens, may contain, claims, shares, errors. */
 export function DeclarationDiffView({ diff, lookup, claims = 'changed', showReasons = false }: DeclarationDiffViewProps) {
   const claimRows = claims === 'all' ? diff.claims : diff.claims.filter((c) => c.before !== c.after);
-  const nothing =
-    !diff.changed &&
-    diff.errorsAdded.length === 0 &&
-    diff.errorsRemoved.length === 0 &&
-    claims === 'changed';
+  const nothing = !diff.changed && diff.errorsAdded.length === 0 && diff.errorsRemoved.length === 0 && claims === 'changed';
   if (nothing) return <Text color="fg.muted">No change to the declaration.</Text>;
 
   return (

@@ -18,8 +18,16 @@ export function FormField({ label, error, hint, required, children }: FormFieldP
         {label}
       </Field.Label>
       {children}
-      {hint ? <Field.HelperText color="fg.muted" textStyle="sm">{hint}</Field.HelperText> : null}
-      {error ? <Field.ErrorText color="fg.error" textStyle="sm" fontWeight="bold">{error}</Field.ErrorText> : null}
+      {hint ? (
+        <Field.HelperText color="fg.muted" textStyle="sm">
+          {hint}
+        </Field.HelperText>
+      ) : null}
+      {error ? (
+        <Field.ErrorText color="fg.error" textStyle="sm" fontWeight="bold">
+          {error}
+        </Field.ErrorText>
+      ) : null}
     </Field.Root>
   );
 }
@@ -35,10 +43,7 @@ interface SelectInputProps extends React.ComponentProps<typeof NativeSelect.Fiel
 }
 
 /** A native select: the most dependable choice for keyboards, touch and screen readers. */
-export const SelectInput = forwardRef<HTMLSelectElement, SelectInputProps>(function SelectInput(
-  { options, disabled, ...props },
-  ref,
-) {
+export const SelectInput = forwardRef<HTMLSelectElement, SelectInputProps>(function SelectInput({ options, disabled, ...props }, ref) {
   return (
     <NativeSelect.Root size="lg" disabled={disabled}>
       <NativeSelect.Field ref={ref} bg="bg.panel" borderColor="border" {...props}>

@@ -41,17 +41,7 @@ function matches(option: ComboboxOption, query: string): boolean {
  * exact match by name or id; other text is kept as typed, so whoever checks the value can name it.
  */
 export const ItemCombobox = forwardRef<HTMLInputElement, ItemComboboxProps>(function ItemCombobox(
-  {
-    options,
-    value,
-    onChange,
-    onBlur,
-    invalid,
-    limit = 40,
-    placeholder = 'Type to search',
-    disabled,
-    ...inputProps
-  },
+  { options, value, onChange, onBlur, invalid, limit = 40, placeholder = 'Type to search', disabled, ...inputProps },
   ref,
 ) {
   const listId = useId();

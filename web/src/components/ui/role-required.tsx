@@ -30,8 +30,7 @@ export function RoleRequired({ roles, doing, back, children }: RoleRequiredProps
   return (
     <Page title="Not available to your role">
       <Text maxW="65ch">
-        You are signed in as {ROLE_LABELS[me.role]}. Only {sentenceOf(roles)} accounts can {doing}. Ask your manager if
-        you need it.
+        You are signed in as {ROLE_LABELS[me.role]}. Only {sentenceOf(roles)} accounts can {doing}. Ask your manager if you need it.
       </Text>
       <Link asChild color="accent.fg" fontWeight="bold" alignSelf="flex-start" minH="11">
         <RouterLink to={back.to}>{back.label}</RouterLink>

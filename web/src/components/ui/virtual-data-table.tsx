@@ -104,7 +104,12 @@ interface VirtualRowProps<TFeatures extends VirtualTableFeatures, TData extends 
 }
 
 /** One body row; memoised so rows already on screen do not re-render as the list scrolls. */
-const VirtualRow = memo(function VirtualRow<TData extends RowData>({ row, index, tone, measure }: VirtualRowProps<VirtualTableFeatures, TData>) {
+const VirtualRow = memo(function VirtualRow<TData extends RowData>({
+  row,
+  index,
+  tone,
+  measure,
+}: VirtualRowProps<VirtualTableFeatures, TData>) {
   return (
     <tr ref={measure} data-index={index} data-row="" data-tone={tone} aria-rowindex={index + 2}>
       {row.getVisibleCells().map((cell) => {

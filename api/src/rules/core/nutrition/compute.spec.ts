@@ -51,17 +51,21 @@ const US = { measures: 'us-customary' as const, regime: 'US' as const };
 const cakeBook = (): Book =>
   book(
     [
-      ing('flour', {
-        fat: 1,
-        saturates: 0.2,
-        transFat: 0,
-        cholesterolMg: 0,
-        carbohydrate: 70,
-        sugars: 2,
-        fibre: 3,
-        protein: 10,
-        salt: 0,
-      }, { addsSugars: false }),
+      ing(
+        'flour',
+        {
+          fat: 1,
+          saturates: 0.2,
+          transFat: 0,
+          cholesterolMg: 0,
+          carbohydrate: 70,
+          sugars: 2,
+          fibre: 3,
+          protein: 10,
+          salt: 0,
+        },
+        { addsSugars: false },
+      ),
       ing(
         'sugar',
         { fat: 0, saturates: 0, transFat: 0, cholesterolMg: 0, carbohydrate: 100, sugars: 100, fibre: 0, protein: 0, salt: 0 },
@@ -79,29 +83,37 @@ const cakeBook = (): Book =>
         sodium: 0.14,
         source: 'test figures',
       }),
-      ing('butter', {
-        fat: 80,
-        saturates: 50,
-        transFat: 3,
-        cholesterolMg: 200,
-        carbohydrate: 1,
-        sugars: 1,
-        fibre: 0,
-        protein: 1,
-        salt: 0.1,
-        energyKj: 9999, // a stated energy is ignored: energy is recomputed from the nutrients
-      }, { addsSugars: false }),
-      ing('cream', {
-        fat: 40,
-        saturates: 25,
-        transFat: 1,
-        cholesterolMg: 120,
-        carbohydrate: 3,
-        sugars: 3,
-        fibre: 0,
-        protein: 2,
-        salt: 0.1,
-      }, { addsSugars: false }),
+      ing(
+        'butter',
+        {
+          fat: 80,
+          saturates: 50,
+          transFat: 3,
+          cholesterolMg: 200,
+          carbohydrate: 1,
+          sugars: 1,
+          fibre: 0,
+          protein: 1,
+          salt: 0.1,
+          energyKj: 9999, // a stated energy is ignored: energy is recomputed from the nutrients
+        },
+        { addsSugars: false },
+      ),
+      ing(
+        'cream',
+        {
+          fat: 40,
+          saturates: 25,
+          transFat: 1,
+          cholesterolMg: 120,
+          carbohydrate: 3,
+          sugars: 3,
+          fibre: 0,
+          protein: 2,
+          salt: 0.1,
+        },
+        { addsSugars: false },
+      ),
       ing('hazelnuts'), // no nutrition: would make everything incomplete if the contact line counted
     ],
     [
@@ -229,7 +241,7 @@ describe('computeNutrition: US Nutrition Facts per serving', () => {
     const cal = rows.find((r) => r.key === 'calories');
     expect(cal?.amount.value).toBeCloseTo((1183.5 * 3) / 14, 9);
     const fat = rows.find((r) => r.key === 'totalFat');
-    expect(fat?.percentDv?.value).toBeCloseTo((((85.5 * 3) / 14) / 78) * 100, 9);
+    expect(fat?.percentDv?.value).toBeCloseTo(((85.5 * 3) / 14 / 78) * 100, 9);
   });
 });
 
@@ -284,9 +296,10 @@ describe('computeNutrition: missing figures are incomplete, never zero', () => {
   });
 
   it('keeps the other figures when one ingredient lacks fibre (neither gives trans fat or cholesterol, nor says whether its sugars are added)', () => {
-    const b2 = book(b.ingredients.filter((i) => i.id !== 'sprinkles'), [
-      { ...b.recipes[0], lines: b.recipes[0].lines.filter((l) => l.use !== 'sprinkles') },
-    ]);
+    const b2 = book(
+      b.ingredients.filter((i) => i.id !== 'sprinkles'),
+      [{ ...b.recipes[0], lines: b.recipes[0].lines.filter((l) => l.use !== 'sprinkles') }],
+    );
     const d2 = computeNutrition(b2, 'bake', EU);
     expect(d2.incomplete).toEqual(['energyKj', 'energyKcal', 'transFat', 'cholesterolMg', 'addedSugars', 'fibre']);
     // fat: (1 + 10) / 150 g × 100
@@ -353,10 +366,7 @@ describe('computeNutrition: energy, salt and added sugars from ingredient figure
 
   it('weighs volume lines with gPerMl (1 US cup = 236.5882365 mL, DOMAIN.md 9.1)', () => {
     const milk = { fat: 4, saturates: 2.5, carbohydrate: 5, sugars: 5, fibre: 0, protein: 3.3, salt: 0.1 };
-    const b = book(
-      [ing('milk', milk, { gPerMl: 1.03 })],
-      [{ id: 'r', name: 'R', lines: [{ use: 'milk', qty: 1, unit: 'cup' }] }],
-    );
+    const b = book([ing('milk', milk, { gPerMl: 1.03 })], [{ id: 'r', name: 'R', lines: [{ use: 'milk', qty: 1, unit: 'cup' }] }]);
     const d = computeNutrition(b, 'r', US);
     expect(d.finishedWeightG).toBeCloseTo(236.5882365 * 1.03, 9);
     expect(d.per100g.fat).toBeCloseTo(4, 9);
@@ -370,8 +380,23 @@ describe('computeNutrition: lines that cannot be weighed', () => {
       ing('flour', { fat: 1, saturates: 0.2, carbohydrate: 70, sugars: 2, fibre: 3, protein: 10, salt: 0 }),
     ],
     [
-      { id: 'batter', name: 'Batter', lines: [{ use: 'milk', qty: 200, unit: 'ml' }, { use: 'flour', qty: 100, unit: 'g' }] },
-      { id: 'baked', name: 'Baked', finishedWeightG: 250, lines: [{ use: 'milk', qty: 200, unit: 'ml' }, { use: 'flour', qty: 100, unit: 'g' }] },
+      {
+        id: 'batter',
+        name: 'Batter',
+        lines: [
+          { use: 'milk', qty: 200, unit: 'ml' },
+          { use: 'flour', qty: 100, unit: 'g' },
+        ],
+      },
+      {
+        id: 'baked',
+        name: 'Baked',
+        finishedWeightG: 250,
+        lines: [
+          { use: 'milk', qty: 200, unit: 'ml' },
+          { use: 'flour', qty: 100, unit: 'g' },
+        ],
+      },
     ],
   );
 
@@ -421,7 +446,14 @@ describe('computeNutrition: defensive checks', () => {
       [ing('flour', n)],
       [
         { id: 'a', name: 'A', lines: [{ use: 'b', qty: 10, unit: 'g' }] },
-        { id: 'b', name: 'B', lines: [{ use: 'a', qty: 10, unit: 'g' }, { use: 'flour', qty: 1, unit: 'g' }] },
+        {
+          id: 'b',
+          name: 'B',
+          lines: [
+            { use: 'a', qty: 10, unit: 'g' },
+            { use: 'flour', qty: 1, unit: 'g' },
+          ],
+        },
       ],
     );
     expect(() => computeNutrition(b, 'a', EU)).toThrow('Recipe cycle: a → b → a.');

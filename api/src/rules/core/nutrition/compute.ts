@@ -61,8 +61,7 @@ function figuresPer(r: Rollup, grams: number): NutrientFigures {
 function missingOf(r: Rollup): MissingFigure[] {
   const energy = new Map<string, IngredientRef>();
   for (const k of ENERGY_NEEDS) for (const [id, ref] of r.missing[k]) energy.set(id, ref);
-  const byKey = (key: FigureKey): Map<string, IngredientRef> =>
-    key === 'energyKj' || key === 'energyKcal' ? energy : r.missing[key];
+  const byKey = (key: FigureKey): Map<string, IngredientRef> => (key === 'energyKj' || key === 'energyKcal' ? energy : r.missing[key]);
   // List ingredients in recipe order (the order leaves were first met).
   const order = [...r.leaves.keys()];
   const out: MissingFigure[] = [];
@@ -75,12 +74,7 @@ function missingOf(r: Rollup): MissingFigure[] {
   return out;
 }
 
-function labelFor(
-  regime: Regime,
-  per100g: NutrientFigures,
-  perPortion: NutrientFigures | null,
-  portionG: number | null,
-): NutritionLabel {
+function labelFor(regime: Regime, per100g: NutrientFigures, perPortion: NutrientFigures | null, portionG: number | null): NutritionLabel {
   const eu = euLabel(per100g, perPortion, portionG);
   const us = perPortion && portionG !== null ? usLabel(perPortion, portionG) : null;
   const noPortion = us ? null : 'A US Nutrition Facts label is per serving: give the recipe a portion size.';

@@ -12,7 +12,6 @@ import { loadIfct, type IfctFood } from '../../ifct';
  * DOMAIN.md 8.1 and check values 16–18.
  */
 
-
 let corpus: Map<string, IfctFood>;
 beforeAll(async () => {
   corpus = await loadIfct();
@@ -97,9 +96,9 @@ describe('reference-data/nutrients.json', () => {
   });
 
   it.each(
-    ['A018', 'A019', 'M001', 'M002', 'M003', 'L002', 'T013', 'I001', 'H007', 'H006', 'H001', 'T012', 'E005', 'E057'].map(
-      (code) => ({ code }),
-    ),
+    ['A018', 'A019', 'M001', 'M002', 'M003', 'L002', 'T013', 'I001', 'H007', 'H006', 'H001', 'T012', 'E005', 'E057'].map((code) => ({
+      code,
+    })),
   )('row from IFCT $code matches the package', ({ code }) => {
     const row = table.rows.find((r) => r.ifct === code);
     expect(row).toBeDefined();
@@ -132,9 +131,7 @@ describe('reference-data/nutrients.json', () => {
   it('marks every other row as typed from memory', () => {
     expect(fromMemory.length).toBeGreaterThan(10);
     for (const r of fromMemory) {
-      expect(r.nutrition.source).toBe(
-        'from memory (typical values), to be checked against a national food composition table',
-      );
+      expect(r.nutrition.source).toBe('from memory (typical values), to be checked against a national food composition table');
     }
     const ids = fromMemory.map((r) => r.id);
     expect(ids).toEqual(expect.arrayContaining(['caster-sugar', 'icing-sugar', 'butter-unsalted', 'double-cream']));

@@ -9,7 +9,11 @@ export function ing(id: string, over: Partial<IngredientInput> = {}): Ingredient
 }
 
 /** A recipe from [use, grams] pairs (or full lines). */
-export function recipe(id: string, lines: Array<[string, number] | RecipeInput['lines'][number]>, over: Partial<RecipeInput> = {}): RecipeInput {
+export function recipe(
+  id: string,
+  lines: Array<[string, number] | RecipeInput['lines'][number]>,
+  over: Partial<RecipeInput> = {},
+): RecipeInput {
   return {
     id,
     name: id.charAt(0).toUpperCase() + id.slice(1),
@@ -19,6 +23,11 @@ export function recipe(id: string, lines: Array<[string, number] | RecipeInput['
 }
 
 /** A parsed book (through the real zod schema, so defaults apply as in production). */
-export function book(ingredients: IngredientInput[], recipes: RecipeInput[], site: Partial<BookInput['site']> = {}, regime: Regime = 'EU'): Book {
+export function book(
+  ingredients: IngredientInput[],
+  recipes: RecipeInput[],
+  site: Partial<BookInput['site']> = {},
+  regime: Regime = 'EU',
+): Book {
   return bookSchema.parse({ crumbproofBook: 1, site: { name: 'Test bench', regime, handles: [], ...site }, ingredients, recipes });
 }

@@ -85,9 +85,7 @@ describe('Sign in', () => {
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByText('Use at most 200 characters.')).toBeInTheDocument();
-    await waitFor(() =>
-      expect(screen.getByLabelText('Password')).toHaveAccessibleDescription('Use at most 200 characters.'),
-    );
+    await waitFor(() => expect(screen.getByLabelText('Password')).toHaveAccessibleDescription('Use at most 200 characters.'));
   });
 
   it('opens the role’s first page after signing in', async () => {

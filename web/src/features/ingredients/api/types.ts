@@ -49,7 +49,6 @@ export interface CompositionScan {
 
 export type { SpecificationState, SpecificationStatus, SpecificationView as Specification } from '@crumbproof/shared';
 
-
 export interface ImportPreviewRow {
   row: number;
   ingredient: BookIngredient | null;

@@ -23,7 +23,10 @@ export function ChoiceGroup<T extends string>({ legend, name, options, value, on
       <Legend fontWeight="bold" mb="1">
         {legend}
       </Legend>
-      <Stack direction={direction === 'row' ? { base: 'column', sm: 'row' } : 'column'} gap={direction === 'row' ? { base: '0', sm: '5' } : '0'}>
+      <Stack
+        direction={direction === 'row' ? { base: 'column', sm: 'row' } : 'column'}
+        gap={direction === 'row' ? { base: '0', sm: '5' } : '0'}
+      >
         {options.map((option) => (
           <RadioInput
             key={option.value}

@@ -16,7 +16,14 @@ export function ImportPreviewTable({ preview }: { preview: ImportPreview }) {
         <Table.Header>
           <Table.Row bg="bg.subtle">
             {['Row', 'Ingredient', 'Id', 'Action', 'Problems'].map((label) => (
-              <Table.ColumnHeader key={label} scope="col" bg="bg.subtle" color="fg" fontWeight="bold" textAlign={label === 'Row' ? 'end' : 'start'}>
+              <Table.ColumnHeader
+                key={label}
+                scope="col"
+                bg="bg.subtle"
+                color="fg"
+                fontWeight="bold"
+                textAlign={label === 'Row' ? 'end' : 'start'}
+              >
                 {label}
               </Table.ColumnHeader>
             ))}
@@ -36,7 +43,13 @@ export function ImportPreviewTable({ preview }: { preview: ImportPreview }) {
                 <Table.Cell textAlign="end" textStyle="quantity">
                   {row.row}
                 </Table.Cell>
-                <Table.Cell fontWeight="bold">{row.ingredient?.name ?? <Text as="span" color="fg.muted" fontWeight="normal">Not readable</Text>}</Table.Cell>
+                <Table.Cell fontWeight="bold">
+                  {row.ingredient?.name ?? (
+                    <Text as="span" color="fg.muted" fontWeight="normal">
+                      Not readable
+                    </Text>
+                  )}
+                </Table.Cell>
                 <Table.Cell>{row.ingredient?.id ?? ''}</Table.Cell>
                 <Table.Cell>{problem ? 'Not imported' : ACTION_WORDS[row.action]}</Table.Cell>
                 <Table.Cell>

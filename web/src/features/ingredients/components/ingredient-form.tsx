@@ -41,8 +41,21 @@ const fromDiet = (value: Diet): boolean | null => (value === 'yes' ? true : valu
 
 /** Paths the form shows a control for: an API message on one of them goes in place. */
 const PLACEABLE = new Set<string>([
-  'id', 'name', 'supplier', 'supplierCode', 'composition', 'vegan', 'vegetarian', 'sulphiteMgPerKg', 'gPerMl', 'gEach', 'addsSugars',
-  'contains', 'mayContain', 'nutrition.source', ...NUTRITION_FIELDS.map((field) => `nutrition.${field.key}`),
+  'id',
+  'name',
+  'supplier',
+  'supplierCode',
+  'composition',
+  'vegan',
+  'vegetarian',
+  'sulphiteMgPerKg',
+  'gPerMl',
+  'gEach',
+  'addsSugars',
+  'contains',
+  'mayContain',
+  'nutrition.source',
+  ...NUTRITION_FIELDS.map((field) => `nutrition.${field.key}`),
 ]);
 
 function placeFor(path: string): string | undefined {
@@ -73,7 +86,18 @@ function errorAt(errors: FieldErrors<IngredientFormValues>, path: string): strin
 
 function toFormValues(ingredient: IngredientView | undefined): IngredientFormValues {
   if (!ingredient) {
-    return { id: '', name: '', supplier: '', supplierCode: '', contains: undefined, mayContain: [], composition: '', vegan: null, vegetarian: null, nutrition: {} };
+    return {
+      id: '',
+      name: '',
+      supplier: '',
+      supplierCode: '',
+      contains: undefined,
+      mayContain: [],
+      composition: '',
+      vegan: null,
+      vegetarian: null,
+      nutrition: {},
+    };
   }
   const { revision: _revision, updatedAt: _updatedAt, ...body } = ingredient;
   return { ...body, mayContain: body.mayContain ?? [], nutrition: body.nutrition ?? {} };
@@ -212,7 +236,12 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
             <TextInput autoComplete="off" {...nameField} />
           </FormField>
           {isNew ? (
-            <FormField label="Ingredient id" hint="Used in recipe lines; it cannot be changed later." error={errorAt(errors, 'id')} required>
+            <FormField
+              label="Ingredient id"
+              hint="Used in recipe lines; it cannot be changed later."
+              error={errorAt(errors, 'id')}
+              required
+            >
               <TextInput autoComplete="off" spellCheck={false} {...register('id')} />
             </FormField>
           ) : null}
@@ -285,14 +314,28 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
               control={control}
               name="vegan"
               render={({ field }) => (
-                <ChoiceGroup legend="Vegan" name="vegan" options={DIET_OPTIONS} value={toDiet(field.value)} onChange={(value) => field.onChange(fromDiet(value))} error={errorAt(errors, 'vegan')} />
+                <ChoiceGroup
+                  legend="Vegan"
+                  name="vegan"
+                  options={DIET_OPTIONS}
+                  value={toDiet(field.value)}
+                  onChange={(value) => field.onChange(fromDiet(value))}
+                  error={errorAt(errors, 'vegan')}
+                />
               )}
             />
             <Controller
               control={control}
               name="vegetarian"
               render={({ field }) => (
-                <ChoiceGroup legend="Vegetarian" name="vegetarian" options={DIET_OPTIONS} value={toDiet(field.value)} onChange={(value) => field.onChange(fromDiet(value))} error={errorAt(errors, 'vegetarian')} />
+                <ChoiceGroup
+                  legend="Vegetarian"
+                  name="vegetarian"
+                  options={DIET_OPTIONS}
+                  value={toDiet(field.value)}
+                  onChange={(value) => field.onChange(fromDiet(value))}
+                  error={errorAt(errors, 'vegetarian')}
+                />
               )}
             />
           </SimpleGrid>
@@ -303,7 +346,11 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
             <FormField label="Sulphites (mg/kg as SO2)" error={errorAt(errors, 'sulphiteMgPerKg')}>
               <TextInput inputMode="decimal" {...register('sulphiteMgPerKg', { setValueAs: parseNumberInput })} />
             </FormField>
-            <FormField label="Weight per millilitre (g)" hint="Needed when a recipe uses it in ml, l or spoons." error={errorAt(errors, 'gPerMl')}>
+            <FormField
+              label="Weight per millilitre (g)"
+              hint="Needed when a recipe uses it in ml, l or spoons."
+              error={errorAt(errors, 'gPerMl')}
+            >
               <TextInput inputMode="decimal" {...register('gPerMl', { setValueAs: parseNumberInput })} />
             </FormField>
             <FormField label="Weight of one unit (g)" hint="Needed when a recipe counts it (each)." error={errorAt(errors, 'gEach')}>
@@ -323,14 +370,20 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
           <SimpleGrid columns={{ base: 2, md: 4 }} gap="4">
             {NUTRITION_FIELDS.map((field) => (
               <FormField key={field.key} label={field.label} error={errorAt(errors, `nutrition.${field.key}`)}>
-                <TextInput inputMode="decimal" textStyle="quantity" {...register(`nutrition.${field.key}`, { setValueAs: parseNumberInput })} />
+                <TextInput
+                  inputMode="decimal"
+                  textStyle="quantity"
+                  {...register(`nutrition.${field.key}`, { setValueAs: parseNumberInput })}
+                />
               </FormField>
             ))}
           </SimpleGrid>
           {extras.length > 0 ? (
             <Text textStyle="sm" color="fg.muted">
               Also kept with these figures: {extras.join(', ')}.
-              {typeof nutrition?.sodium === 'number' && typeof nutrition?.salt !== 'number' ? ' Salt is worked out from sodium (× 2.5).' : ''}
+              {typeof nutrition?.sodium === 'number' && typeof nutrition?.salt !== 'number'
+                ? ' Salt is worked out from sodium (× 2.5).'
+                : ''}
             </Text>
           ) : null}
           <Controller
@@ -347,7 +400,11 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
               />
             )}
           />
-          <FormField label="Figures from" hint="Where these figures come from: a supplier specification, or a reference table row." error={errorAt(errors, 'nutrition.source')}>
+          <FormField
+            label="Figures from"
+            hint="Where these figures come from: a supplier specification, or a reference table row."
+            error={errorAt(errors, 'nutrition.source')}
+          >
             <TextInput autoComplete="off" {...register('nutrition.source', { setValueAs: parseOptionalText })} />
           </FormField>
         </Section>

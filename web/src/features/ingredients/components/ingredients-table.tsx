@@ -114,7 +114,11 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     header: 'Code',
     sortFn: 'text',
     meta: meta({ width: 130 }),
-    cell: (info) => <Text as="span" textStyle="sm">{info.getValue()}</Text>,
+    cell: (info) => (
+      <Text as="span" textStyle="sm">
+        {info.getValue()}
+      </Text>
+    ),
   }),
   column.accessor((row) => (row.ingredient.contains === undefined ? undefined : row.ingredient.contains.map(describeEntry).join(', ')), {
     id: 'contains',

@@ -17,7 +17,8 @@ function todayIso(now = new Date()): string {
 
 function uploadMessage(error: unknown): string {
   if (!isApiError(error)) return 'The specification was not uploaded. Try again in a moment.';
-  if (error.status === 413) return 'The file is larger than 10 MB. Save a smaller copy (for example, fewer pages or a lower-resolution scan) and upload that.';
+  if (error.status === 413)
+    return 'The file is larger than 10 MB. Save a smaller copy (for example, fewer pages or a lower-resolution scan) and upload that.';
   const details = error.fields.map((field) => field.message).filter((message) => !error.message.includes(message));
   return [error.message, ...details].join(' ');
 }
@@ -39,7 +40,8 @@ export function SpecificationsPanel({ code }: { code: string }) {
     const file = fileRef.current?.files?.[0];
     const found: typeof problems = {};
     if (!file) found.file = 'Choose the specification file: a PDF or an image (PNG, JPEG or WebP).';
-    else if (file.size > SPECIFICATION_MAX_BYTES) found.file = `This file is ${formatBytes(file.size)}; the limit is 10 MB. Save a smaller copy and upload that.`;
+    else if (file.size > SPECIFICATION_MAX_BYTES)
+      found.file = `This file is ${formatBytes(file.size)}; the limit is 10 MB. Save a smaller copy and upload that.`;
     if (reviewBy === '') found.reviewBy = 'Give the date by which the kitchen must check this specification again.';
     else if (reviewBy < todayIso()) found.reviewBy = `${formatDate(reviewBy)} has already passed; give today or a later date.`;
     setProblems(found);
@@ -58,7 +60,8 @@ export function SpecificationsPanel({ code }: { code: string }) {
           const message = uploadMessage(error);
           const onField = isApiError(error) ? error.fields : [];
           setProblems({
-            file: onField.find((field) => field.path === 'file')?.message ?? (isApiError(error) && error.status === 413 ? message : undefined),
+            file:
+              onField.find((field) => field.path === 'file')?.message ?? (isApiError(error) && error.status === 413 ? message : undefined),
             reviewBy: onField.find((field) => field.path === 'reviewBy')?.message,
             form: message,
           });
@@ -94,10 +97,23 @@ export function SpecificationsPanel({ code }: { code: string }) {
               <TextInput ref={fileRef} type="file" accept={ACCEPT} size="md" p="1.5" disabled={upload.isPending} />
             </FormField>
             <FormField label="Review by" error={problems.reviewBy}>
-              <TextInput type="date" min={todayIso()} value={reviewBy} size="md" disabled={upload.isPending} onChange={(event) => setReviewBy(event.currentTarget.value)} />
+              <TextInput
+                type="date"
+                min={todayIso()}
+                value={reviewBy}
+                size="md"
+                disabled={upload.isPending}
+                onChange={(event) => setReviewBy(event.currentTarget.value)}
+              />
             </FormField>
             <FormField label="Note (optional)">
-              <TextInput value={note} maxLength={500} size="md" disabled={upload.isPending} onChange={(event) => setNote(event.currentTarget.value)} />
+              <TextInput
+                value={note}
+                maxLength={500}
+                size="md"
+                disabled={upload.isPending}
+                onChange={(event) => setNote(event.currentTarget.value)}
+              />
             </FormField>
             <Button type="submit" size="md" alignSelf="flex-start" loading={upload.isPending} loadingText="Uploading…">
               Upload specification

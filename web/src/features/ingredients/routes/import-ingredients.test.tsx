@@ -12,12 +12,29 @@ const WITH_PROBLEM: ImportPreview = {
     { header: 'id', aliases: ['code'], field: 'id', required: true, description: 'The ingredient id used in recipes.' },
     { header: 'contains', aliases: [], field: 'contains', required: false, description: "Allergen sources, or 'none'." },
   ],
-  rules: ["contains: 'none' means the supplier states there are no allergens (verified none); an empty cell means no allergen statement (unknown)."],
+  rules: [
+    "contains: 'none' means the supplier states there are no allergens (verified none); an empty cell means no allergen statement (unknown).",
+  ],
   problems: [],
   rows: [
-    { row: 2, ingredient: { id: 'butter', name: 'Unsalted butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true }, action: 'update', problems: [] },
-    { row: 3, ingredient: { id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: true, vegetarian: true }, action: 'create', problems: [] },
-    { row: 4, ingredient: null, action: 'create', problems: ["Column 'contains' names 'nuts', which is not an allergen source. Use e.g. 'almond' or 'hazelnut'."] },
+    {
+      row: 2,
+      ingredient: { id: 'butter', name: 'Unsalted butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true },
+      action: 'update',
+      problems: [],
+    },
+    {
+      row: 3,
+      ingredient: { id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: true, vegetarian: true },
+      action: 'create',
+      problems: [],
+    },
+    {
+      row: 4,
+      ingredient: null,
+      action: 'create',
+      problems: ["Column 'contains' names 'nuts', which is not an allergen source. Use e.g. 'almond' or 'hazelnut'."],
+    },
   ],
   summary: { create: 2, update: 1, unchanged: 0, withProblems: 1 },
 };

@@ -126,23 +126,34 @@ export function ImportIngredientsRoute() {
     >
       <Box maxW="2xl">
         <form aria-label="Choose a spreadsheet" noValidate onSubmit={handleCheck}>
-        <Stack gap="3">
-          <FormField label="Spreadsheet (CSV or XLSX)" hint="One ingredient per row, with a header row naming the columns." error={fileError}>
-            <TextInput
-              ref={fileRef}
-              type="file"
-              accept={ACCEPT}
-              p="1.5"
-              onChange={() => {
-                setPreview(null);
-                setImported(null);
-              }}
-            />
-          </FormField>
-          <Button type="submit" size="lg" alignSelf="flex-start" variant="outline" loading={previewImport.isPending} loadingText="Checking…">
-            Check the file
-          </Button>
-        </Stack>
+          <Stack gap="3">
+            <FormField
+              label="Spreadsheet (CSV or XLSX)"
+              hint="One ingredient per row, with a header row naming the columns."
+              error={fileError}
+            >
+              <TextInput
+                ref={fileRef}
+                type="file"
+                accept={ACCEPT}
+                p="1.5"
+                onChange={() => {
+                  setPreview(null);
+                  setImported(null);
+                }}
+              />
+            </FormField>
+            <Button
+              type="submit"
+              size="lg"
+              alignSelf="flex-start"
+              variant="outline"
+              loading={previewImport.isPending}
+              loadingText="Checking…"
+            >
+              Check the file
+            </Button>
+          </Stack>
         </form>
       </Box>
 
@@ -157,7 +168,8 @@ export function ImportIngredientsRoute() {
       {imported ? (
         <Box role="status" borderStartWidth="4px" borderColor="accent.solid" bg="accent.subtle" p="4" rounded="md">
           <Text fontWeight="bold">
-            Imported {plural(imported.create + imported.update, 'ingredient', 'ingredients')}: {imported.create} added, {imported.update} updated
+            Imported {plural(imported.create + imported.update, 'ingredient', 'ingredients')}: {imported.create} added, {imported.update}{' '}
+            updated
             {imported.unchanged > 0 ? `, ${imported.unchanged} unchanged` : ''}.
           </Text>
           <Link asChild color="accent.fg">
@@ -189,7 +201,13 @@ export function ImportIngredientsRoute() {
             </ErrorAlert>
           ) : null}
           <HStack gap="4" flexWrap="wrap">
-            <Button size="lg" disabled={blocked || count === 0} loading={importIngredients.isPending} loadingText="Importing…" onClick={handleImport}>
+            <Button
+              size="lg"
+              disabled={blocked || count === 0}
+              loading={importIngredients.isPending}
+              loadingText="Importing…"
+              onClick={handleImport}
+            >
               Import {plural(count, 'ingredient', 'ingredients')}
             </Button>
             <Text color="fg.muted">

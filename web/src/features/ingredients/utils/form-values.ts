@@ -18,8 +18,24 @@ export const NUTRITION_FIELDS = [
 
 /** Every figure a nutrition record may hold (what "Fill from reference table" replaces). */
 export const ALL_NUTRITION_KEYS = [
-  'energyKj', 'energyKcal', 'fat', 'saturates', 'transFat', 'cholesterolMg', 'carbohydrate', 'sugars', 'addedSugars',
-  'polyols', 'erythritol', 'fibre', 'protein', 'salt', 'sodium', 'alcohol', 'organicAcids', 'salatrims',
+  'energyKj',
+  'energyKcal',
+  'fat',
+  'saturates',
+  'transFat',
+  'cholesterolMg',
+  'carbohydrate',
+  'sugars',
+  'addedSugars',
+  'polyols',
+  'erythritol',
+  'fibre',
+  'protein',
+  'salt',
+  'sodium',
+  'alcohol',
+  'organicAcids',
+  'salatrims',
 ] as const satisfies readonly Exclude<keyof Nutrition, 'source'>[];
 
 const EXTRA_LABELS: Partial<Record<(typeof ALL_NUTRITION_KEYS)[number], [string, string]>> = {

@@ -1,10 +1,4 @@
-import {
-  EXEMPT_FORM_LABELS,
-  SOURCE_LABELS,
-  type AllergenSource,
-  type BookIngredient,
-  type SourceEntry,
-} from '@crumbproof/shared';
+import { EXEMPT_FORM_LABELS, SOURCE_LABELS, type AllergenSource, type BookIngredient, type SourceEntry } from '@crumbproof/shared';
 import type { SpecificationState } from '../api/types';
 
 export function sourceOf(entry: SourceEntry): AllergenSource {

@@ -38,7 +38,13 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
   const update = useUpdateKitchen();
   const [saved, setSaved] = useState<string | null>(null);
   const { register, control, handleSubmit, formState } = useForm<FormValues>({
-    defaultValues: { name: kitchen.name, address: kitchen.address, regime: kitchen.regime, measures: kitchen.measures ?? '', handles: kitchen.handles },
+    defaultValues: {
+      name: kitchen.name,
+      address: kitchen.address,
+      regime: kitchen.regime,
+      measures: kitchen.measures ?? '',
+      handles: kitchen.handles,
+    },
   });
   const handles = useFieldArray({ control, name: 'handles' });
   const [problem, setProblem] = useState<string | null>(null);
@@ -83,8 +89,8 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
             Allergen handling in this kitchen
           </Box>
           <Text color="fg.muted" textStyle="sm" mb="3">
-            A source kept apart adds nothing. One on shared equipment or in a shared area adds “May contain” to every product
-            that does not contain it. Follow your own food-safety system’s assessment.
+            A source kept apart adds nothing. One on shared equipment or in a shared area adds “May contain” to every product that does not
+            contain it. Follow your own food-safety system’s assessment.
           </Text>
           <Stack as="ul" listStyleType="none" m="0" p="0" gap="3">
             {handles.fields.map((field, index) => (
@@ -99,7 +105,12 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
                     <SelectInput options={CONTROL_OPTIONS} {...register(`handles.${index}.controls`)} />
                   </FormField>
                 </Box>
-                <Button variant="outline" size="lg" onClick={() => handles.remove(index)} aria-label={`Remove allergen source ${index + 1}`}>
+                <Button
+                  variant="outline"
+                  size="lg"
+                  onClick={() => handles.remove(index)}
+                  aria-label={`Remove allergen source ${index + 1}`}
+                >
                   Remove
                 </Button>
               </HStack>

@@ -41,7 +41,12 @@ describe('Kitchen settings (manager)', () => {
       signedInAs('manager', {
         'PATCH /api/kitchen': {
           status: 400,
-          body: { statusCode: 400, code: 'validation', message: 'Some fields need attention.', fields: [{ path: 'name', message: 'Give the kitchen a name.' }] },
+          body: {
+            statusCode: 400,
+            code: 'validation',
+            message: 'Some fields need attention.',
+            fields: [{ path: 'name', message: 'Give the kitchen a name.' }],
+          },
         },
       }),
     );

@@ -8,7 +8,10 @@ import { KitchenForm } from '../components/kitchen-form';
 export function KitchenRoute() {
   const kitchen = useKitchen();
   return (
-    <Page title="Kitchen" lead="The law this kitchen declares under, and how it handles each allergen source. Every declaration follows these settings.">
+    <Page
+      title="Kitchen"
+      lead="The law this kitchen declares under, and how it handles each allergen source. Every declaration follows these settings."
+    >
       {kitchen.isPending ? (
         <Stack role="status" direction="row" align="center" gap="3">
           <Spinner color="accent.solid" />

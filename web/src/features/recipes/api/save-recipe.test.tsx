@@ -14,7 +14,9 @@ import { useSaveRecipe } from './save-recipe';
 describe('useSaveRecipe', () => {
   it('PUTs the recipe and invalidates the recipe, its declarations, the list, the history and product declarations', async () => {
     const { calls } = mockApi({
-      'PUT /api/recipes/victoria-sponge': ({ body }) => ({ body: { ...(body as object), revision: 5, updatedAt: '2026-12-01T19:00:00.000Z' } }),
+      'PUT /api/recipes/victoria-sponge': ({ body }) => ({
+        body: { ...(body as object), revision: 5, updatedAt: '2026-12-01T19:00:00.000Z' },
+      }),
     });
     const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity } } });
     const keys = [
@@ -45,7 +47,10 @@ describe('useSaveRecipe', () => {
 
   it('POSTs a new recipe', async () => {
     const { calls } = mockApi({
-      'POST /api/recipes': ({ body }) => ({ status: 201, body: { ...(body as object), revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' } }),
+      'POST /api/recipes': ({ body }) => ({
+        status: 201,
+        body: { ...(body as object), revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' },
+      }),
     });
     const queryClient = new QueryClient();
     const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;

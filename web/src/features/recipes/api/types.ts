@@ -7,4 +7,3 @@ export type { IngredientView, RecipeView, RecipeRevisionView as RecipeRevision }
  * still shows allergens and claims from an API that does not send it yet.
  */
 export type DeclarationView = Declaration & { nutrition?: NutritionDeclaration | null };
-

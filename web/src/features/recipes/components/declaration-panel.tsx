@@ -121,19 +121,18 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
             </Box>
           ) : null}
         </PanelSection>
-
       </SimpleGrid>
 
       <PanelSection title="Claims" level={level}>
-          <SimpleGrid as="ul" listStyleType="none" m="0" p="0" minChildWidth="min(100%, 26rem)" columnGap="6" rowGap="3" alignItems="start">
-            {CLAIMS.filter((claim) => claims[claim]).map((claim) => (
-              <Box as="li" key={claim} data-claim={claim}>
-                <ClaimStatusLine claim={claim} status={claims[claim].status} />
-                {claims[claim].status !== 'ok' ? <ClaimReasonList reasons={claims[claim].reasons} lookup={lookup} /> : null}
-              </Box>
-            ))}
-          </SimpleGrid>
-        </PanelSection>
+        <SimpleGrid as="ul" listStyleType="none" m="0" p="0" minChildWidth="min(100%, 26rem)" columnGap="6" rowGap="3" alignItems="start">
+          {CLAIMS.filter((claim) => claims[claim]).map((claim) => (
+            <Box as="li" key={claim} data-claim={claim}>
+              <ClaimStatusLine claim={claim} status={claims[claim].status} />
+              {claims[claim].status !== 'ok' ? <ClaimReasonList reasons={claims[claim].reasons} lookup={lookup} /> : null}
+            </Box>
+          ))}
+        </SimpleGrid>
+      </PanelSection>
 
       <PanelSection title="Ingredients as printed" level={level}>
         <Text maxW="80ch" data-testid="ingredients-text">

@@ -1,10 +1,4 @@
-import {
-  bookRecipeSchema,
-  type BookRecipe,
-  type Claim,
-  type LineRole,
-  type Unit,
-} from '@crumbproof/shared';
+import { bookRecipeSchema, type BookRecipe, type Claim, type LineRole, type Unit } from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { FieldErrors, Resolver } from 'react-hook-form';
 
@@ -31,7 +25,16 @@ export const EMPTY_LINE: EditorLine = { use: '', qty: undefined, unit: 'g', role
 
 export function toEditorValues(recipe: BookRecipe | null): EditorValues {
   if (!recipe) {
-    return { id: '', name: '', lines: [{ ...EMPTY_LINE }], finishedWeightG: undefined, forSale: false, portionG: undefined, claims: [], quid: [] };
+    return {
+      id: '',
+      name: '',
+      lines: [{ ...EMPTY_LINE }],
+      finishedWeightG: undefined,
+      forSale: false,
+      portionG: undefined,
+      claims: [],
+      quid: [],
+    };
   }
   return {
     id: recipe.id,

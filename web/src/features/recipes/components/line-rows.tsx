@@ -37,7 +37,15 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
       <Text as="legend" fontWeight="bold" mb="2">
         Lines
       </Text>
-      <Table.ScrollArea borderWidth="1px" borderColor="border.muted" rounded="md" bg="bg.panel" tabIndex={0} role="region" aria-label="Recipe lines">
+      <Table.ScrollArea
+        borderWidth="1px"
+        borderColor="border.muted"
+        rounded="md"
+        bg="bg.panel"
+        tabIndex={0}
+        role="region"
+        aria-label="Recipe lines"
+      >
         <Table.Root size="sm" css={{ '& th, & td': { textStyle: 'md', verticalAlign: 'top', paddingInline: '0.375rem' } }}>
           <Table.Header>
             <Table.Row bg="bg.subtle">
@@ -117,7 +125,12 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                     />
                   </Table.Cell>
                   <Table.Cell>
-                    <SelectInput aria-label={`Unit for line ${n}`} options={UNIT_OPTIONS} w="5.25rem" {...register(`lines.${index}.unit`)} />
+                    <SelectInput
+                      aria-label={`Unit for line ${n}`}
+                      options={UNIT_OPTIONS}
+                      w="5.25rem"
+                      {...register(`lines.${index}.unit`)}
+                    />
                   </Table.Cell>
                   <Table.Cell>
                     <SelectInput

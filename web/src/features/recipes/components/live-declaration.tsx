@@ -39,7 +39,11 @@ export function LiveDeclaration({ declaration, computing, unsaved, incomplete, e
           </Badge>
         </Stack>
         <Text color="fg.muted" textStyle="sm" role="status" aria-live="polite">
-          {computing ? 'Computing the declaration…' : unsaved ? 'What the label would say if you saved now.' : 'What the saved recipe declares.'}
+          {computing
+            ? 'Computing the declaration…'
+            : unsaved
+              ? 'What the label would say if you saved now.'
+              : 'What the saved recipe declares.'}
         </Text>
         {notices.length > 0 ? (
           <Alert.Root

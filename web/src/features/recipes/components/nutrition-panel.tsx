@@ -61,8 +61,16 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
   const euColumns = useMemo<DataTableColumn<EuLabelRow>[]>(() => {
     const portion = nutrition?.label.eu?.portionG ?? null;
     const columns: DataTableColumn<EuLabelRow>[] = [
-      euColumn.accessor('name', { header: 'Nutrient', cell: (info) => <RowName name={info.getValue()} indent={info.row.original.indent} /> }),
-      euColumn.display({ id: 'per100g', header: 'Per 100 g', meta: { numeric: true }, cell: (info) => <Cell {...info.row.original.per100g} /> }),
+      euColumn.accessor('name', {
+        header: 'Nutrient',
+        cell: (info) => <RowName name={info.getValue()} indent={info.row.original.indent} />,
+      }),
+      euColumn.display({
+        id: 'per100g',
+        header: 'Per 100 g',
+        meta: { numeric: true },
+        cell: (info) => <Cell {...info.row.original.per100g} />,
+      }),
     ];
     if (portion !== null) {
       columns.push(
@@ -82,8 +90,16 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
 
   const usColumns = useMemo<DataTableColumn<UsLabelRow>[]>(
     () => [
-      usColumn.accessor('name', { header: 'Nutrient', cell: (info) => <RowName name={info.getValue()} indent={info.row.original.indent} /> }),
-      usColumn.display({ id: 'amount', header: 'Amount per serving', meta: { numeric: true }, cell: (info) => <Cell {...info.row.original.amount} /> }),
+      usColumn.accessor('name', {
+        header: 'Nutrient',
+        cell: (info) => <RowName name={info.getValue()} indent={info.row.original.indent} />,
+      }),
+      usColumn.display({
+        id: 'amount',
+        header: 'Amount per serving',
+        meta: { numeric: true },
+        cell: (info) => <Cell {...info.row.original.amount} />,
+      }),
       usColumn.display({
         id: 'percentDv',
         header: '% Daily Value',
@@ -118,7 +134,12 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
           css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' } }}
         >
           {label.eu ? (
-            <DataTable caption={`Nutrition declaration (EU and UK)${label.printed === 'eu' ? ': as this kitchen prints it' : ''}`} columns={euColumns} data={label.eu.rows} getRowId={(row) => row.key} />
+            <DataTable
+              caption={`Nutrition declaration (EU and UK)${label.printed === 'eu' ? ': as this kitchen prints it' : ''}`}
+              columns={euColumns}
+              data={label.eu.rows}
+              getRowId={(row) => row.key}
+            />
           ) : null}
           {label.us ? (
             <DataTable
@@ -159,11 +180,7 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
                 </Text>
               )}
               {': '}
-              {!source.hasNutrition
-                ? 'no nutrition recorded'
-                : source.source
-                  ? source.source
-                  : 'figures recorded, no source given'}
+              {!source.hasNutrition ? 'no nutrition recorded' : source.source ? source.source : 'figures recorded, no source given'}
             </li>
           ))}
         </Stack>

@@ -15,16 +15,7 @@ interface PanelSectionProps {
 export function PanelSection({ title, level, children, aside }: PanelSectionProps) {
   const headingId = useId();
   return (
-    <Box
-      as="section"
-      aria-labelledby={headingId}
-      bg="bg.panel"
-      borderWidth="1px"
-      borderColor="border.muted"
-      rounded="md"
-      p="4"
-      minW="0"
-    >
+    <Box as="section" aria-labelledby={headingId} bg="bg.panel" borderWidth="1px" borderColor="border.muted" rounded="md" p="4" minW="0">
       <Stack gap="3">
         <Stack direction="row" justify="space-between" align="baseline" gap="3" wrap="wrap">
           <Heading as={level} id={headingId} size={level === 'h2' ? 'lg' : 'md'}>

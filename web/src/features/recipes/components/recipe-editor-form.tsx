@@ -158,7 +158,12 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
               <TextInput autoComplete="off" {...register('name')} />
             </FormField>
             {creating ? (
-              <FormField label="Recipe id" hint="Short and lasting, e.g. lemon-tart. It cannot be changed later." error={errors.id?.message} required>
+              <FormField
+                label="Recipe id"
+                hint="Short and lasting, e.g. lemon-tart. It cannot be changed later."
+                error={errors.id?.message}
+                required
+              >
                 <TextInput autoComplete="off" spellCheck={false} {...register('id')} />
               </FormField>
             ) : (
@@ -171,17 +176,14 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
             )}
           </SimpleGrid>
 
-          <LineRows
-            control={control}
-            register={register}
-            lines={lines}
-            errors={errors}
-            apiErrors={apiLineErrors}
-            options={options}
-          />
+          <LineRows control={control} register={register} lines={lines} errors={errors} apiErrors={apiLineErrors} options={options} />
 
           <Box maxW="xs">
-            <FormField label="Weight after baking (g)" hint="Leave empty to use the sum of the lines." error={errors.finishedWeightG?.message}>
+            <FormField
+              label="Weight after baking (g)"
+              hint="Leave empty to use the sum of the lines."
+              error={errors.finishedWeightG?.message}
+            >
               <TextInput
                 type="number"
                 inputMode="decimal"
@@ -250,9 +252,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
             <Button type="submit" size="lg" alignSelf="flex-start" loading={save.isPending} loadingText="Saving…">
               Save recipe
             </Button>
-            <Text color="fg.muted">
-              {creating ? 'Saving creates revision 1.' : `Saving creates revision ${initial.revision + 1}.`}
-            </Text>
+            <Text color="fg.muted">{creating ? 'Saving creates revision 1.' : `Saving creates revision ${initial.revision + 1}.`}</Text>
           </Stack>
         </Stack>
       </form>
@@ -263,7 +263,9 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
           computing={preview.isFetching || previewKey !== settledKey}
           unsaved={creating || isDirty}
           incomplete={incomplete}
-          error={previewError ? previewError.message : preview.isError ? 'The declaration could not be computed. Try again in a moment.' : null}
+          error={
+            previewError ? previewError.message : preview.isError ? 'The declaration could not be computed. Try again in a moment.' : null
+          }
           wantedClaims={forSale ? wantedClaims : []}
           lookup={previewLookup}
         />

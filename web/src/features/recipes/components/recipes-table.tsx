@@ -69,5 +69,7 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
     [declarationsReady],
   );
 
-  return <DataTable caption="Recipes and products" captionHidden columns={columns} data={rows} getRowId={(row) => row.recipe.id} empty={empty} />;
+  return (
+    <DataTable caption="Recipes and products" captionHidden columns={columns} data={rows} getRowId={(row) => row.recipe.id} empty={empty} />
+  );
 }

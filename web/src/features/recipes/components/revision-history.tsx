@@ -71,8 +71,16 @@ export function RevisionHistory({ code, lookup, level = 'h2' }: RevisionHistoryP
             ))}
           </Box>
           {revisions.data.length > REVISIONS_SHOWN ? (
-            <Button variant="outline" size="md" alignSelf="flex-start" aria-expanded={showAll} onClick={() => setShowAll((value) => !value)}>
-              {showAll ? 'Show fewer revisions' : `Show ${revisions.data.length - REVISIONS_SHOWN} earlier ${revisions.data.length - REVISIONS_SHOWN === 1 ? 'revision' : 'revisions'}`}
+            <Button
+              variant="outline"
+              size="md"
+              alignSelf="flex-start"
+              aria-expanded={showAll}
+              onClick={() => setShowAll((value) => !value)}
+            >
+              {showAll
+                ? 'Show fewer revisions'
+                : `Show ${revisions.data.length - REVISIONS_SHOWN} earlier ${revisions.data.length - REVISIONS_SHOWN === 1 ? 'revision' : 'revisions'}`}
             </Button>
           ) : null}
         </>

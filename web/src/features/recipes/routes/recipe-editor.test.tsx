@@ -167,8 +167,19 @@ describe('Recipe editor', () => {
 
   it('creates a new recipe with its own id', async () => {
     const { calls } = editorApi({
-      'POST /api/recipes': ({ body }) => ({ status: 201, body: { ...(body as BookRecipe), revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' } }),
-      'GET /api/recipes/lemon-curd': { body: { id: 'lemon-curd', name: 'Lemon curd', lines: [{ use: 'butter', qty: 100, unit: 'g' }], revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' } },
+      'POST /api/recipes': ({ body }) => ({
+        status: 201,
+        body: { ...(body as BookRecipe), revision: 1, updatedAt: '2026-12-01T19:00:00.000Z' },
+      }),
+      'GET /api/recipes/lemon-curd': {
+        body: {
+          id: 'lemon-curd',
+          name: 'Lemon curd',
+          lines: [{ use: 'butter', qty: 100, unit: 'g' }],
+          revision: 1,
+          updatedAt: '2026-12-01T19:00:00.000Z',
+        },
+      },
       'GET /api/recipes/lemon-curd/declaration': { body: declarationFor({ product: 'lemon-curd', name: 'Lemon curd' }) },
       'GET /api/recipes/lemon-curd/revisions': { body: [] },
     });

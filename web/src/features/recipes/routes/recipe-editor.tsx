@@ -22,7 +22,11 @@ function useLineChoices(exclude: string | null) {
     const fromRecipes = (recipes.data ?? [])
       .filter((recipe) => recipe.id !== exclude)
       .map((recipe) => ({ value: recipe.id, label: recipe.name, hint: 'Recipe' }));
-    const fromIngredients = (ingredients.data ?? []).map((ingredient) => ({ value: ingredient.id, label: ingredient.name, hint: 'Ingredient' }));
+    const fromIngredients = (ingredients.data ?? []).map((ingredient) => ({
+      value: ingredient.id,
+      label: ingredient.name,
+      hint: 'Ingredient',
+    }));
     return [...fromIngredients, ...fromRecipes].sort((a, b) => a.label.localeCompare(b.label));
   }, [recipes.data, ingredients.data, exclude]);
   const lookup = useMemo(() => buildLookup({ recipes: recipes.data, ingredients: ingredients.data }), [recipes.data, ingredients.data]);
@@ -53,7 +57,13 @@ function EditRecipe() {
   return (
     <Page title={`Edit ${recipe.data.name}`} lead="The declaration beside the form follows every change; nothing is saved until you save.">
       {problem ? <ErrorAlert title="The list of ingredients and recipes could not be loaded">{problem.message}</ErrorAlert> : null}
-      <RecipeEditorForm key={`${recipe.data.id}-${recipe.data.revision}`} initial={recipe.data} options={options} lookup={lookup} onSaved={openSaved} />
+      <RecipeEditorForm
+        key={`${recipe.data.id}-${recipe.data.revision}`}
+        initial={recipe.data}
+        options={options}
+        lookup={lookup}
+        onSaved={openSaved}
+      />
     </Page>
   );
 }

@@ -35,7 +35,11 @@ describe('Product page: the declaration panel', () => {
     const path = within(contains).getByRole('list', { name: 'Layer path: Victoria sponge → Vanilla sponge → Butter' });
     const bars = within(path).getAllByRole('link');
     expect(bars.map((bar) => bar.textContent)).toEqual(['Victoria sponge', 'Vanilla sponge', 'Butter']);
-    expect(bars.map((bar) => bar.getAttribute('href'))).toEqual(['/recipes/victoria-sponge', '/recipes/vanilla-sponge', '/ingredients/butter']);
+    expect(bars.map((bar) => bar.getAttribute('href'))).toEqual([
+      '/recipes/victoria-sponge',
+      '/recipes/vanilla-sponge',
+      '/ingredients/butter',
+    ]);
     // Gluten reaches the product twice: through the sponge and through the dusting flour.
     expect(within(contains).getAllByRole('list', { name: /^Layer path: .* → Plain wheat flour$/ })).toHaveLength(2);
   });
@@ -108,14 +112,30 @@ describe('Product page: nutrition', () => {
 
     const nutrition = await screen.findByRole('region', { name: 'Nutrition' });
     const eu = within(nutrition).getByRole('table', { name: 'Nutrition declaration (EU and UK): as this kitchen prints it' });
-    expect(within(eu).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Nutrient', 'Per 100 g', 'Per portion (90 g)']);
+    expect(
+      within(eu)
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['Nutrient', 'Per 100 g', 'Per portion (90 g)']);
     const fat = within(eu).getByText('Fat').closest('tr')!;
-    expect(within(fat).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Fat', '21 g', '18.9 g']);
+    expect(
+      within(fat)
+        .getAllByRole('cell')
+        .map((c) => c.textContent),
+    ).toEqual(['Fat', '21 g', '18.9 g']);
 
     const us = within(nutrition).getByRole('table', { name: 'Nutrition per serving (90 g), United States' });
-    expect(within(us).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Nutrient', 'Amount per serving', '% Daily Value']);
+    expect(
+      within(us)
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['Nutrient', 'Amount per serving', '% Daily Value']);
     const totalFat = within(us).getByText('Total Fat').closest('tr')!;
-    expect(within(totalFat).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Total Fat', '19g', '24%']);
+    expect(
+      within(totalFat)
+        .getAllByRole('cell')
+        .map((c) => c.textContent),
+    ).toEqual(['Total Fat', '19g', '24%']);
   });
 
   it('marks incomplete figures as Incomplete and names the ingredients that lack them', async () => {
@@ -125,7 +145,11 @@ describe('Product page: nutrition', () => {
     const nutrition = await screen.findByRole('region', { name: 'Nutrition' });
     const eu = within(nutrition).getByRole('table', { name: 'Nutrition declaration (EU and UK): as this kitchen prints it' });
     const fibre = within(eu).getByText('Fibre').closest('tr')!;
-    expect(within(fibre).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Fibre', 'Incomplete', 'Incomplete']);
+    expect(
+      within(fibre)
+        .getAllByRole('cell')
+        .map((c) => c.textContent),
+    ).toEqual(['Fibre', 'Incomplete', 'Incomplete']);
     expect(within(nutrition).getByText('Incomplete: Fibre')).toBeInTheDocument();
     expect(within(nutrition).getByText('Fibre: no figure recorded for Raspberry jam')).toBeInTheDocument();
     // Never printed as zero.
@@ -180,7 +204,11 @@ describe('Product page: writers and readers', () => {
     expect(calls.some((call) => call.path.endsWith('/revisions'))).toBe(false);
     // Ingredient pages are not theirs to open: the leaf bar names the ingredient without a link.
     const path = within(region('Contains')).getByRole('list', { name: 'Layer path: Victoria sponge → Vanilla sponge → Butter' });
-    expect(within(path).getAllByRole('link').map((link) => link.getAttribute('href'))).toEqual(['/recipes/victoria-sponge', '/recipes/vanilla-sponge']);
+    expect(
+      within(path)
+        .getAllByRole('link')
+        .map((link) => link.getAttribute('href')),
+    ).toEqual(['/recipes/victoria-sponge', '/recipes/vanilla-sponge']);
     expect(within(path).getByText('Butter')).toBeInTheDocument();
   });
 });

@@ -40,10 +40,7 @@ export function RecipeRoute() {
   const recipe = useRecipe(code);
   const recipes = useRecipes();
   const declaration = useDeclaration(code, regime, { enabled: isRegime(asked) || !kitchen.isPending });
-  const lookup = useMemo(
-    () => buildLookup({ recipes: recipes.data, declarations: [declaration.data] }),
-    [recipes.data, declaration.data],
-  );
+  const lookup = useMemo(() => buildLookup({ recipes: recipes.data, declarations: [declaration.data] }), [recipes.data, declaration.data]);
 
   function handleRegime(next: Regime) {
     setSearch(
@@ -79,9 +76,7 @@ export function RecipeRoute() {
       actions={
         <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ md: 'flex-end' }}>
           <RegimeSelect value={regime} kitchenRegime={kitchen.regime} onChange={handleRegime} />
-          {writer ? (
-            <ActionLink to={`/recipes/${encodeURIComponent(data.id)}/edit`}>Edit recipe</ActionLink>
-          ) : null}
+          {writer ? <ActionLink to={`/recipes/${encodeURIComponent(data.id)}/edit`}>Edit recipe</ActionLink> : null}
         </Stack>
       }
     >

@@ -22,14 +22,11 @@ describe('Recipes list', () => {
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Recipes' })).toBeInTheDocument();
     const table = await screen.findByRole('table', { name: 'Recipes and products' });
-    expect(within(table).getAllByRole('columnheader').map((h) => h.textContent)).toEqual([
-      'Name',
-      'Kind',
-      'Claims held',
-      'Errors',
-      'Revision',
-      'Updated',
-    ]);
+    expect(
+      within(table)
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['Name', 'Kind', 'Claims held', 'Errors', 'Revision', 'Updated']);
     const product = within(table).getByRole('link', { name: 'Victoria sponge' });
     expect(product).toHaveAttribute('href', '/recipes/victoria-sponge');
     const row = product.closest('tr')!;

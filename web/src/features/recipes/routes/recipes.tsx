@@ -48,9 +48,7 @@ export function RecipesRoute() {
           <TextInput type="search" value={query} onChange={(event) => setQuery(event.currentTarget.value)} />
         </FormField>
       </Stack>
-      {declarations.isError ? (
-        <ErrorAlert title="The declarations could not be computed">{declarations.error.message}</ErrorAlert>
-      ) : null}
+      {declarations.isError ? <ErrorAlert title="The declarations could not be computed">{declarations.error.message}</ErrorAlert> : null}
       {recipes.isPending ? (
         <Loading>Loading recipes…</Loading>
       ) : recipes.isError ? (

@@ -30,15 +30,54 @@ export const RECIPES: RecipeView[] = [
 ];
 
 export const INGREDIENTS: IngredientView[] = [
-  { id: 'flour', name: 'Plain wheat flour', contains: ['wheat'], mayContain: [], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
-  { id: 'butter', name: 'Butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
-  { id: 'eggs', name: 'Free-range eggs', contains: ['egg'], mayContain: [], vegan: false, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
+  {
+    id: 'flour',
+    name: 'Plain wheat flour',
+    contains: ['wheat'],
+    mayContain: [],
+    vegan: true,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
+  {
+    id: 'butter',
+    name: 'Butter',
+    contains: ['milk'],
+    mayContain: [],
+    vegan: false,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
+  {
+    id: 'eggs',
+    name: 'Free-range eggs',
+    contains: ['egg'],
+    mayContain: [],
+    vegan: false,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
   { id: 'jam', name: 'Raspberry jam', mayContain: [], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
-  { id: 'plant-spread', name: 'Plant spread', contains: [], mayContain: ['milk'], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
+  {
+    id: 'plant-spread',
+    name: 'Plant spread',
+    contains: [],
+    mayContain: ['milk'],
+    vegan: true,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
 ];
 
 function claims(overrides: Partial<Record<Claim, ClaimResult>>): Record<Claim, ClaimResult> {
-  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<Claim, ClaimResult>;
+  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<
+    Claim,
+    ClaimResult
+  >;
 }
 
 export const NUTRITION: NutritionDeclaration = {
@@ -63,18 +102,50 @@ export const NUTRITION: NutritionDeclaration = {
     eu: {
       portionG: 90,
       rows: [
-        { key: 'energyKj', name: 'Energy', indent: false, per100g: { value: 1650, text: '1650 kJ' }, perPortion: { value: 1485, text: '1485 kJ' } },
+        {
+          key: 'energyKj',
+          name: 'Energy',
+          indent: false,
+          per100g: { value: 1650, text: '1650 kJ' },
+          perPortion: { value: 1485, text: '1485 kJ' },
+        },
         { key: 'fat', name: 'Fat', indent: false, per100g: { value: 21, text: '21 g' }, perPortion: { value: 18.9, text: '18.9 g' } },
-        { key: 'saturates', name: 'of which saturates', indent: true, per100g: { value: 12, text: '12 g' }, perPortion: { value: 10.8, text: '10.8 g' } },
-        { key: 'fibre', name: 'Fibre', indent: false, per100g: { value: null, text: 'incomplete' }, perPortion: { value: null, text: 'incomplete' } },
+        {
+          key: 'saturates',
+          name: 'of which saturates',
+          indent: true,
+          per100g: { value: 12, text: '12 g' },
+          perPortion: { value: 10.8, text: '10.8 g' },
+        },
+        {
+          key: 'fibre',
+          name: 'Fibre',
+          indent: false,
+          per100g: { value: null, text: 'incomplete' },
+          perPortion: { value: null, text: 'incomplete' },
+        },
       ],
     },
     us: {
       servingG: 90,
       rows: [
         { key: 'calories', name: 'Calories', indent: false, unit: 'kcal', amount: { value: 355, text: '360' }, percentDv: null },
-        { key: 'totalFat', name: 'Total Fat', indent: false, unit: 'g', amount: { value: 18.9, text: '19g' }, percentDv: { value: 24.2, text: '24%' } },
-        { key: 'dietaryFiber', name: 'Dietary Fiber', indent: true, unit: 'g', amount: { value: null, text: 'incomplete' }, percentDv: { value: null, text: 'incomplete' } },
+        {
+          key: 'totalFat',
+          name: 'Total Fat',
+          indent: false,
+          unit: 'g',
+          amount: { value: 18.9, text: '19g' },
+          percentDv: { value: 24.2, text: '24%' },
+        },
+        {
+          key: 'dietaryFiber',
+          name: 'Dietary Fiber',
+          indent: true,
+          unit: 'g',
+          amount: { value: null, text: 'incomplete' },
+          percentDv: { value: null, text: 'incomplete' },
+        },
       ],
     },
     printed: 'eu',
@@ -91,7 +162,15 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
     mixWeightG: 950,
     portionG: 90,
     contains: [
-      { allergen: 'gluten', label: 'cereals containing gluten', sources: ['wheat'], via: [['victoria-sponge', 'vanilla-sponge', 'flour'], ['victoria-sponge', 'flour']] },
+      {
+        allergen: 'gluten',
+        label: 'cereals containing gluten',
+        sources: ['wheat'],
+        via: [
+          ['victoria-sponge', 'vanilla-sponge', 'flour'],
+          ['victoria-sponge', 'flour'],
+        ],
+      },
       { allergen: 'milk', label: 'milk', sources: ['milk'], via: [['victoria-sponge', 'vanilla-sponge', 'butter']] },
       { allergen: 'egg', label: 'eggs', sources: ['egg'], via: [['victoria-sponge', 'vanilla-sponge', 'eggs']] },
     ],
@@ -107,9 +186,18 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
         status: 'fails',
         reasons: [{ leaf: 'butter', path: ['victoria-sponge', 'vanilla-sponge', 'butter'], message: 'Butter contains milk.' }],
       },
-      'egg-free': { status: 'fails', reasons: [{ leaf: 'eggs', path: ['victoria-sponge', 'vanilla-sponge', 'eggs'], message: 'Free-range eggs contains egg.' }] },
-      'gluten-free': { status: 'fails', reasons: [{ leaf: 'flour', path: ['victoria-sponge', 'flour'], message: 'Plain wheat flour contains wheat.' }] },
-      'sesame-free': { status: 'unverified', reasons: [{ leaf: 'jam', path: ['victoria-sponge', 'jam'], message: 'Raspberry jam has no allergen statement.' }] },
+      'egg-free': {
+        status: 'fails',
+        reasons: [{ leaf: 'eggs', path: ['victoria-sponge', 'vanilla-sponge', 'eggs'], message: 'Free-range eggs contains egg.' }],
+      },
+      'gluten-free': {
+        status: 'fails',
+        reasons: [{ leaf: 'flour', path: ['victoria-sponge', 'flour'], message: 'Plain wheat flour contains wheat.' }],
+      },
+      'sesame-free': {
+        status: 'unverified',
+        reasons: [{ leaf: 'jam', path: ['victoria-sponge', 'jam'], message: 'Raspberry jam has no allergen statement.' }],
+      },
     }),
     ingredients: [
       {
@@ -121,12 +209,48 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
         allergens: ['gluten', 'milk', 'egg'],
         role: 'ingredient',
         children: [
-          { id: 'flour', name: 'Plain wheat flour', kind: 'ingredient', percent: 31.6, orderWeightG: 300, allergens: ['gluten'], role: 'ingredient', children: [] },
-          { id: 'butter', name: 'Butter', kind: 'ingredient', percent: 26.3, orderWeightG: 250, allergens: ['milk'], role: 'ingredient', children: [] },
-          { id: 'eggs', name: 'Free-range eggs', kind: 'ingredient', percent: 26.3, orderWeightG: 250, allergens: ['egg'], role: 'ingredient', children: [] },
+          {
+            id: 'flour',
+            name: 'Plain wheat flour',
+            kind: 'ingredient',
+            percent: 31.6,
+            orderWeightG: 300,
+            allergens: ['gluten'],
+            role: 'ingredient',
+            children: [],
+          },
+          {
+            id: 'butter',
+            name: 'Butter',
+            kind: 'ingredient',
+            percent: 26.3,
+            orderWeightG: 250,
+            allergens: ['milk'],
+            role: 'ingredient',
+            children: [],
+          },
+          {
+            id: 'eggs',
+            name: 'Free-range eggs',
+            kind: 'ingredient',
+            percent: 26.3,
+            orderWeightG: 250,
+            allergens: ['egg'],
+            role: 'ingredient',
+            children: [],
+          },
         ],
       },
-      { id: 'jam', name: 'Raspberry jam', kind: 'ingredient', percent: 15.8, orderWeightG: 150, allergens: [], role: 'ingredient', children: [] },
+      {
+        id: 'jam',
+        name: 'Raspberry jam',
+        kind: 'ingredient',
+        percent: 15.8,
+        orderWeightG: 150,
+        allergens: [],
+        role: 'ingredient',
+        children: [],
+      },
     ],
     ingredientsText: 'Vanilla sponge (wheat flour, butter (milk), eggs), raspberry jam (16%).',
     ingredientsSegments: [

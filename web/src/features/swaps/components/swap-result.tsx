@@ -21,7 +21,15 @@ export function SwapResult({ preview, lookup, children }: SwapResultProps) {
   const headingId = useId();
   const { from, to, recipes, products } = preview;
   return (
-    <Box as="section" aria-labelledby={headingId} bg="bg.panel" borderWidth="1px" borderColor="border.muted" rounded="md" p={{ base: '4', md: '6' }}>
+    <Box
+      as="section"
+      aria-labelledby={headingId}
+      bg="bg.panel"
+      borderWidth="1px"
+      borderColor="border.muted"
+      rounded="md"
+      p={{ base: '4', md: '6' }}
+    >
       <Stack gap="4">
         <Heading as="h2" size="lg" id={headingId}>
           Swap result

@@ -32,7 +32,11 @@ describe('Swap check', () => {
     await chooseSwap(user);
     // Only recipes that use Butter are offered as a scope.
     const where = screen.getByRole('combobox', { name: 'Where' });
-    expect(within(where).getAllByRole('option').map((option) => option.textContent)).toEqual(['Every recipe that uses it', 'Shortbread']);
+    expect(
+      within(where)
+        .getAllByRole('option')
+        .map((option) => option.textContent),
+    ).toEqual(['Every recipe that uses it', 'Shortbread']);
     await user.click(screen.getByRole('button', { name: 'Check the swap' }));
 
     const result = await screen.findByRole('region', { name: 'Swap result' });
@@ -65,7 +69,11 @@ describe('Swap check', () => {
 
     const done = await screen.findByText(/^Swap applied: Butter replaced with Plant spread\./);
     expect(done).toHaveTextContent('1 recipe has a new revision.');
-    expect(calls.find((call) => call.path === '/api/swaps/apply')?.body).toEqual({ from: 'butter', to: 'plant-spread', recipe: 'shortbread' });
+    expect(calls.find((call) => call.path === '/api/swaps/apply')?.body).toEqual({
+      from: 'butter',
+      to: 'plant-spread',
+      recipe: 'shortbread',
+    });
     const status = done.closest('[role="status"]') as HTMLElement;
     expect(within(status).getAllByRole('link', { name: 'Shortbread' })[0]).toHaveAttribute('href', '/recipes/shortbread');
     expect(screen.queryByRole('region', { name: 'Swap result' })).not.toBeInTheDocument();

@@ -105,7 +105,10 @@ function SwapCheck() {
   const count = checked?.result.recipes.length ?? 0;
 
   return (
-    <Page title="Swap check" lead="See what every product would declare if one ingredient were replaced by another, before anything is saved.">
+    <Page
+      title="Swap check"
+      lead="See what every product would declare if one ingredient were replaced by another, before anything is saved."
+    >
       {listError ? <ErrorAlert title="The recipes and ingredients could not be loaded">{listError.message}</ErrorAlert> : null}
       <form aria-label="Swap to check" noValidate onSubmit={handleCheck}>
         <Stack gap="4">
@@ -128,7 +131,14 @@ function SwapCheck() {
               <SelectInput options={whereOptions} value={where} onChange={(event) => setWhere(event.currentTarget.value)} />
             </FormField>
           </SimpleGrid>
-          <Button type="submit" size="lg" alignSelf="flex-start" loading={preview.isPending} loadingText="Checking…" disabled={!from || !to}>
+          <Button
+            type="submit"
+            size="lg"
+            alignSelf="flex-start"
+            loading={preview.isPending}
+            loadingText="Checking…"
+            disabled={!from || !to}
+          >
             Check the swap
           </Button>
         </Stack>

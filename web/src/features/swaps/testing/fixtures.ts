@@ -24,13 +24,43 @@ export const RECIPES: RecipeView[] = [
 ];
 
 export const INGREDIENTS: IngredientView[] = [
-  { id: 'flour', name: 'Plain wheat flour', contains: ['wheat'], mayContain: [], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
-  { id: 'butter', name: 'Butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
-  { id: 'plant-spread', name: 'Plant spread', contains: [], mayContain: ['milk'], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
+  {
+    id: 'flour',
+    name: 'Plain wheat flour',
+    contains: ['wheat'],
+    mayContain: [],
+    vegan: true,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
+  {
+    id: 'butter',
+    name: 'Butter',
+    contains: ['milk'],
+    mayContain: [],
+    vegan: false,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
+  {
+    id: 'plant-spread',
+    name: 'Plant spread',
+    contains: [],
+    mayContain: ['milk'],
+    vegan: true,
+    vegetarian: true,
+    revision: 1,
+    updatedAt: '2026-11-01T10:00:00.000Z',
+  },
 ];
 
 function claims(overrides: Partial<Record<Claim, ClaimResult>>): Record<Claim, ClaimResult> {
-  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<Claim, ClaimResult>;
+  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<
+    Claim,
+    ClaimResult
+  >;
 }
 
 function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
@@ -53,20 +83,53 @@ function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
       leaf === 'butter'
         ? {
             vegan: { status: 'fails', reasons: [{ leaf: 'butter', path: ['shortbread', 'butter'], message: 'Butter contains milk.' }] },
-            'dairy-free': { status: 'fails', reasons: [{ leaf: 'butter', path: ['shortbread', 'butter'], message: 'Butter contains milk.' }] },
-            'gluten-free': { status: 'fails', reasons: [{ leaf: 'flour', path: ['shortbread', 'flour'], message: 'Plain wheat flour contains wheat.' }] },
+            'dairy-free': {
+              status: 'fails',
+              reasons: [{ leaf: 'butter', path: ['shortbread', 'butter'], message: 'Butter contains milk.' }],
+            },
+            'gluten-free': {
+              status: 'fails',
+              reasons: [{ leaf: 'flour', path: ['shortbread', 'flour'], message: 'Plain wheat flour contains wheat.' }],
+            },
           }
         : {
             'dairy-free': {
               status: 'fails',
-              reasons: [{ leaf: 'plant-spread', path: ['shortbread', 'plant-spread'], message: 'May contain milk: Supplier of Plant spread says it may contain milk.' }],
+              reasons: [
+                {
+                  leaf: 'plant-spread',
+                  path: ['shortbread', 'plant-spread'],
+                  message: 'May contain milk: Supplier of Plant spread says it may contain milk.',
+                },
+              ],
             },
-            'gluten-free': { status: 'fails', reasons: [{ leaf: 'flour', path: ['shortbread', 'flour'], message: 'Plain wheat flour contains wheat.' }] },
+            'gluten-free': {
+              status: 'fails',
+              reasons: [{ leaf: 'flour', path: ['shortbread', 'flour'], message: 'Plain wheat flour contains wheat.' }],
+            },
           },
     ),
     ingredients: [
-      { id: 'flour', name: 'Plain wheat flour', kind: 'ingredient', percent: 60, orderWeightG: 300, allergens: ['gluten'], role: 'ingredient', children: [] },
-      { id: leaf, name: fat, kind: 'ingredient', percent: 40, orderWeightG: 200, allergens: leaf === 'butter' ? ['milk'] : [], role: 'ingredient', children: [] },
+      {
+        id: 'flour',
+        name: 'Plain wheat flour',
+        kind: 'ingredient',
+        percent: 60,
+        orderWeightG: 300,
+        allergens: ['gluten'],
+        role: 'ingredient',
+        children: [],
+      },
+      {
+        id: leaf,
+        name: fat,
+        kind: 'ingredient',
+        percent: 40,
+        orderWeightG: 200,
+        allergens: leaf === 'butter' ? ['milk'] : [],
+        role: 'ingredient',
+        children: [],
+      },
     ],
     ingredientsText: `Wheat flour, ${fat.toLowerCase()}.`,
     ingredientsSegments: [{ text: `Wheat flour, ${fat.toLowerCase()}.`, emphasis: false }],

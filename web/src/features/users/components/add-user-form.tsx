@@ -1,11 +1,5 @@
 import { Box, Button, Heading, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import {
-  createUserSchema,
-  PASSWORD_MIN_LENGTH,
-  ROLE_LABELS,
-  ROLES,
-  type CreateUserRequest,
-} from '@crumbproof/shared';
+import { createUserSchema, PASSWORD_MIN_LENGTH, ROLE_LABELS, ROLES, type CreateUserRequest } from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';

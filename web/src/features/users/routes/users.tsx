@@ -14,9 +14,7 @@ export function UsersRoute() {
 
   return (
     <Page title="Users" lead="Who can sign in to this kitchen, and what each person may do.">
-      {updateUser.isError ? (
-        <ErrorAlert title="That change was not saved">{updateUser.error.message}</ErrorAlert>
-      ) : null}
+      {updateUser.isError ? <ErrorAlert title="That change was not saved">{updateUser.error.message}</ErrorAlert> : null}
       {users.isPending ? (
         <Stack role="status" direction="row" align="center" gap="3">
           <Spinner color="accent.solid" />
