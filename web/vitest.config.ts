@@ -12,6 +12,8 @@ export default mergeConfig(
       css: false,
       restoreMocks: true,
       unstubGlobals: true,
+      // Typing through a whole form takes a few seconds on a busy 2-core machine.
+      testTimeout: 20_000,
     },
   }),
 );
