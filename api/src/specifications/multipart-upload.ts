@@ -33,7 +33,7 @@ export interface DetectedType {
 
 /**
  * Reads the whole multipart form. Every problem with the form itself becomes a plain message:
- * a file over the upload limit is a 413, anything else malformed a 400.
+ * a file over the upload limit is a 413, anything else malformed a 400 naming what is wrong.
  */
 export async function readUpload(req: FastifyRequest, allowedFields: readonly string[], maxBytes = MAX_FILE_BYTES): Promise<Upload> {
   if (!req.isMultipart()) {
@@ -41,10 +41,14 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
       { path: 'file', message: 'Attach a file.' },
     ]);
   }
+  const boundaryProblem = checkBoundary(req.headers['content-type']);
+  if (boundaryProblem) throw unreadable(boundaryProblem);
   const upload: Upload = { file: null, fields: {} };
   const problems: { path: string; message: string }[] = [];
+  let partsSeen = 0;
   try {
     for await (const part of req.parts({ limits: { fileSize: maxBytes, files: 1 } })) {
+      partsSeen += 1;
       if (part.type === 'file') {
         const bytes = await part.toBuffer();
         if (part.fieldname !== 'file') {
@@ -64,7 +68,7 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
       }
     }
   } catch (err) {
-    throw uploadError(err, maxBytes);
+    throw uploadError(err, maxBytes, partsSeen);
   }
   if (problems.length > 0) {
     throw new AppError('validation', `The form needs attention. ${problems.map((p) => `${p.path}: ${p.message}`).join(' ')}`, problems);
@@ -72,9 +76,25 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
   return upload;
 }
 
-function uploadError(err: unknown, maxBytes: number): unknown {
+const unreadable = (why: string) => new AppError('validation', `The form could not be read: ${why}`, [{ path: 'file', message: why }]);
+
+/**
+ * The boundary that frames each part (RFC 2046 section 5.1.1: 1 to 70 characters), as the
+ * Content-Type names it; a message when it is missing or cannot be one.
+ */
+function checkBoundary(contentType: string | undefined): string | null {
+  const found = /;\s*boundary\s*=\s*(?:"([^"]*)"|([^;\s]*))/i.exec(contentType ?? '');
+  const boundary = found ? (found[1] ?? found[2]) : '';
+  if (boundary === '')
+    return 'its Content-Type names no boundary (multipart/form-data; boundary=…). Send the form as a browser does, with FormData.';
+  if (boundary.length > 70) return `its boundary is ${boundary.length} characters long; RFC 2046 allows at most 70.`;
+  return null;
+}
+
+function uploadError(err: unknown, maxBytes: number, partsSeen: number): unknown {
   const code = (err as { code?: string })?.code;
   const status = (err as { statusCode?: number })?.statusCode;
+  const message = err instanceof Error ? err.message : '';
   if (code === 'FST_REQ_FILE_TOO_LARGE') {
     return new PayloadTooLargeException(
       `The file is larger than ${Math.round(maxBytes / (1024 * 1024))} MB, the most an upload may be. Attach a smaller file.`,
@@ -83,8 +103,18 @@ function uploadError(err: unknown, maxBytes: number): unknown {
   if (code === 'FST_FILES_LIMIT')
     return new AppError('validation', 'Attach one file only.', [{ path: 'file', message: 'Attach one file only.' }]);
   if (code === 'FST_PARTS_LIMIT' || code === 'FST_FIELDS_LIMIT') return new AppError('validation', 'The form has too many fields.');
+  // The multipart parser (busboy) reports a body that stops before its closing boundary this way;
+  // a body in which the boundary never appears ends the same way, before any part.
+  if (/unexpected end of multipart data/i.test(message)) {
+    return unreadable(
+      partsSeen === 0
+        ? 'the body does not start with the boundary that its Content-Type names, so no part of it could be found. Send the form again as a browser does, with FormData.'
+        : 'the body ends in the middle of a part, before the closing boundary; the upload was cut short. Send it again.',
+    );
+  }
+  if (code === 'FST_MP_PREMATURE_CLOSE') return unreadable('the upload was closed before the whole form arrived. Send it again.');
   if (typeof status === 'number' && status >= 400 && status < 500) {
-    return new AppError('validation', 'The upload could not be read: the form data is incomplete or malformed. Try again.');
+    return unreadable('the form data is incomplete or malformed. Send it again.');
   }
   return err;
 }
