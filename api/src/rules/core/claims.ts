@@ -115,9 +115,14 @@ function freeFrom(claim: FreeFromClaim, all: LeafFacts[], site: Site, rules: Reg
 }
 
 /**
- * Gluten-free under the regime's published rule. Gluten is computed from the leaves'
- * glutenMgPerKg on the finished weight; a gluten cereal without a measured figure fails
- * (an exempt form without a figure is unverified); oats follow the regime.
+ * Gluten-free under the regime's published rule: EU "no more than 20 mg/kg" (Commission
+ * Implementing Regulation (EU) No 828/2014 Article 3 and its Annex), UK the same assimilated
+ * text (from memory), Canada at most 20 ppm (Food and Drug Regulations B.24.018 with Health
+ * Canada's 2012 position), US "less than 20 ppm" (21 CFR 101.91), ANZ no detectable gluten
+ * (Food Standards Code Standard 1.2.7 and Schedule 4, from memory). Gluten is computed from the
+ * leaves' glutenMgPerKg on the finished weight and compared at the threshold precision
+ * (compare.ts); a gluten cereal without a measured figure fails (an exempt form without a
+ * figure is unverified); oats follow the regime.
  */
 function glutenFree(all: LeafFacts[], site: Site, rules: RegimeRules, finishedG: number): ClaimResult {
   const gf = rules.glutenFree;

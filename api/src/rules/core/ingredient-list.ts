@@ -1,5 +1,5 @@
 import type { DeclarationNotice, DeclaredIngredient } from '@crumbproof/shared';
-import { round } from './compare';
+import { compare, round } from './compare';
 import type { RegimeRules } from './reference-schema';
 import type { ProductTree, TreeNode } from './tree';
 
@@ -22,9 +22,10 @@ export interface IngredientList {
  * Annex VII E.2(a) is only for compounds defined in Union law, and keeping the brackets never
  * loses an allergen.
  *
- * Added water (EU/UK, Annex VII A.1): placed by its weight in the finished product, taken as
- * the level's finished weight minus the other ingredients used (never more than the water
- * used, never below 0); left out when that is at most 5 % of the finished product. Its
+ * Added water (EU/UK, Regulation (EU) No 1169/2011 Annex VII Part A point 1): placed by its
+ * weight in the finished product, taken as the level's finished weight minus the other
+ * ingredients used (never more than the water used, never below 0); left out when that is at
+ * most 5 % of the finished product, compared at the threshold precision (compare.ts). Its
  * percent is then its share of the finished product. Regimes without that derogation list
  * added water by the weight used.
  */
@@ -41,7 +42,7 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
       if (omitUpTo !== null && isWater(node) && node.role !== 'contact') {
         const inFinished = Math.max(0, Math.min(node.usedG, finishedG - othersG));
         const shareOfFinished = finishedG > 0 ? (100 * inFinished) / finishedG : 0;
-        if (shareOfFinished <= omitUpTo) {
+        if (compare(shareOfFinished, 'lte', omitUpTo)) {
           warnings.push({
             code: 'added-water-omitted',
             ingredient: node.id,

@@ -1,5 +1,5 @@
 import type { DeclarationNotice, QuidEntry } from '@crumbproof/shared';
-import { round } from './compare';
+import { compare, round } from './compare';
 import type { ProductTree, TreeNode } from './tree';
 
 function all(nodes: TreeNode[]): TreeNode[] {
@@ -8,16 +8,17 @@ function all(nodes: TreeNode[]): TreeNode[] {
 
 /** Whole numbers from 1 % up, one decimal below (rounding is common practice, not fixed by the Regulation; from memory). */
 export function formatPercent(percent: number): string {
-  return percent >= 1 ? `${round(percent, 0)}%` : `${round(percent, 1)}%`;
+  return compare(percent, 'gte', 1) ? `${round(percent, 0)}%` : `${round(percent, 1)}%`;
 }
 
 const lowerFirst = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
 
 /**
  * QUID for the ids in sale.quid, related to the finished product after moisture loss
- * (EU 1169/2011 Annex VIII 4(a)): 100 × weight used / finished weight. The weight used adds
- * every use of the id in the product (sub-recipes scaled to the amount used). When any one
- * figure or the total of those shown exceeds 100 %, every entry is given as
+ * (Regulation (EU) No 1169/2011 Annex VIII point 4(a)): 100 × weight used / finished weight.
+ * The weight used adds every use of the id in the product (sub-recipes scaled to the amount
+ * used). When any one figure or the total of those shown "exceeds 100 %" (compared at the
+ * threshold precision, compare.ts: exactly 100 % does not exceed it), every entry is given as
  * "prepared with X g of Y per 100 g" instead.
  */
 export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; errors: DeclarationNotice[] } {
@@ -37,7 +38,7 @@ export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; 
     return [{ id, name: uses[0].name, percent: tree.finishedG > 0 ? (100 * grams) / tree.finishedG : 0 }];
   });
   const total = found.reduce((s, f) => s + f.percent, 0);
-  const perHundred = found.some((f) => f.percent > 100) || total > 100;
+  const perHundred = found.some((f) => compare(f.percent, 'gt', 100)) || compare(total, 'gt', 100);
   const quid = found.map((f) => ({
     ingredient: f.id,
     name: f.name,

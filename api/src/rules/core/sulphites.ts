@@ -1,6 +1,6 @@
 import type { DeclarationNotice, SulphiteResult } from '@crumbproof/shared';
 import type { LeafFacts } from './allergens';
-import { compare } from './compare';
+import { atThresholdPrecision, compare } from './compare';
 import type { RegimeRules } from './reference-schema';
 
 export interface SulphiteOutcome extends SulphiteResult {
@@ -9,8 +9,13 @@ export interface SulphiteOutcome extends SulphiteResult {
 
 /**
  * Total SO2 in the product as eaten: the sum over leaves of mass × stated mg/kg, divided by
- * the finished weight (after baking). Declared by the regime's own threshold and comparison
- * (EU/UK: more than 10 mg/kg; Canada, ANZ and US: 10 or more). A sulphite source with no
+ * the finished weight (after baking). Declared by the regime's own threshold and comparison:
+ * EU and UK "concentrations of more than 10 mg/kg or 10 mg/litre in terms of the total SO2"
+ * (Regulation (EU) No 1169/2011 Annex II point 12); Canada 10 p.p.m. or more (Food and Drug
+ * Regulations B.01.010.1); ANZ added sulphites at 10 mg/kg or more (Food Standards Code
+ * Standard 1.2.3 and Schedule 9); US 10 ppm or more (21 CFR 101.100(a)(4), from memory).
+ * The figure is compared, and reported, at the threshold precision (compare.ts), so a product
+ * worked out to exactly 10 mg/kg is at 10, not a hair to either side. A sulphite source with no
  * stated content, or one that only touches the product (contact line), cannot be computed:
  * it is declared, with a warning. A leaf with no allergen statement and no stated content
  * leaves the figure unknown (null); what is known still decides the declaration.
@@ -47,6 +52,6 @@ export function sulphitesFor(all: LeafFacts[], finishedG: number, rules: RegimeR
     const known = finishedG > 0 ? mg / (finishedG / 1000) : 0;
     return { mgPerKg: null, declared: compare(known, rules.sulphites.comparison, rules.sulphites.thresholdMgPerKg), warnings };
   }
-  const mgPerKg = finishedG > 0 ? mg / (finishedG / 1000) : 0;
+  const mgPerKg = atThresholdPrecision(finishedG > 0 ? mg / (finishedG / 1000) : 0);
   return { mgPerKg, declared: compare(mgPerKg, rules.sulphites.comparison, rules.sulphites.thresholdMgPerKg), warnings };
 }

@@ -1,9 +1,13 @@
+import { compare } from '../compare';
 import { decimalsOf, roundToStep } from './round';
 
 /**
  * Printed values for the EU/UK nutrition declaration, after the European Commission's
- * guidance on tolerances and rounding (December 2012), rounding table (from memory; see
- * DOMAIN.md 4.3). Applied alike to the per-100-g and the per-portion column.
+ * "Guidance document for competent authorities for the control of compliance with EU
+ * legislation ... with regard to the setting of tolerances for nutrient values declared on a
+ * label" (December 2012), rounding table (from memory: the table itself was not checked).
+ * Applied alike to the per-100-g and the per-portion column. Every band edge is compared at the
+ * threshold precision (compare.ts).
  *
  * Decisions where the guidance leaves a choice:
  * - A computed value of exactly 0 prints "0 g"; a non-zero value at or under the negligible
@@ -58,12 +62,12 @@ export const INCOMPLETE_TEXT = 'incomplete';
 
 function gramText(value: number, rule: GramRule): string {
   if (value === 0) return '0 g';
-  if (value <= rule.negligible) return `${rule.negligibleText} g`;
-  const band = rule.bands.find((b) => value >= b.from);
+  if (compare(value, 'lte', rule.negligible)) return `${rule.negligibleText} g`;
+  const band = rule.bands.find((b) => compare(value, 'gte', b.from));
   if (!band) throw new Error(`No rounding band for ${value}.`);
   const rounded = roundToStep(value, band.step);
   // The band the rounded value falls in sets the printed precision (9.96 → "10 g").
-  const shown = rule.bands.find((b) => rounded >= b.from) ?? band;
+  const shown = rule.bands.find((b) => compare(rounded, 'gte', b.from)) ?? band;
   return `${rounded.toFixed(decimalsOf(shown.step))} g`;
 }
 
