@@ -202,3 +202,168 @@ describe('added water (EU 1169/2011 Annex VII A.1)', () => {
     expect(d.ingredients[1]).toMatchObject({ name: 'Water', orderWeightG: 400 });
   });
 });
+
+describe('added water in a sub-recipe (Regulation (EU) No 1169/2011 Annex VII Part A point 1)', () => {
+  /*
+   * Choux paste, kept as its own unbaked sub-recipe: water 250 g, butter 100 g, flour 150 g,
+   * eggs 250 g (750 g; other ingredients 500 g). Choux buns: paste 750 g + pearl sugar 50 g
+   * (800 g), baked to `finishedG`. The paste has no finished weight of its own, so it loses the
+   * buns' bake loss: as baked it weighs 750 × finished / 800, and its added water is that weight
+   * minus the 500 g of other ingredients used.
+   */
+  const buns = (finishedG: number, regime: Regime = 'EU') =>
+    declare(
+      book(
+        [
+          ing('water', { name: 'Water' }),
+          ing('butter', { name: 'Butter', contains: ['milk'] }),
+          ing('flour', { name: 'Wheat flour', contains: ['wheat'] }),
+          ing('eggs', { name: 'Eggs', contains: ['egg'] }),
+          ing('pearl-sugar', { name: 'Pearl sugar' }),
+        ],
+        [
+          recipe(
+            'choux',
+            [
+              ['water', 250],
+              ['butter', 100],
+              ['flour', 150],
+              ['eggs', 250],
+            ],
+            { name: 'Choux paste' },
+          ),
+          recipe(
+            'buns',
+            [
+              ['choux', 750],
+              ['pearl-sugar', 50],
+            ],
+            { name: 'Choux buns', finishedWeightG: finishedG },
+          ),
+        ],
+        {},
+        regime,
+      ),
+      'buns',
+      refs,
+    );
+
+  it('places the water of an unbaked paste by what is left of it after the product is baked', () => {
+    // Baked to 600 g: the paste as baked is 750 × 600 / 800 = 562.5 g; water 562.5 − 500 = 62.5 g,
+    // 11.1 % of the paste (more than 5 %), so it is listed, after the butter (100 g), not first.
+    // Its percent: the paste's share of the mix (750 / 800 = 93.75 %) × 62.5 / 562.5 = 10.42 %.
+    const d = buns(600);
+    const paste = d.ingredients[0];
+    expect(names(paste.children)).toEqual(['Eggs', 'Wheat flour', 'Butter', 'Water']);
+    const water = paste.children[3];
+    expect(water.orderWeightG).toBeCloseTo(62.5, 9);
+    expect(water.percent).toBeCloseTo(10.417, 3);
+    expect(d.ingredientsText).toBe('Ingredients: Choux paste (Eggs, Wheat flour, Butter (milk), Water), Pearl sugar.');
+  });
+
+  it('leaves it out when what is left is at most 5 % of the paste as baked', () => {
+    // Baked to 540 g: paste 750 × 540 / 800 = 506.25 g; water 506.25 − 500 = 6.25 g = 1.2 %.
+    const d = buns(540);
+    expect(names(d.ingredients[0].children)).toEqual(['Eggs', 'Wheat flour', 'Butter']);
+    expect(d.warnings).toContainEqual(
+      expect.objectContaining({
+        code: 'added-water-omitted',
+        ingredient: 'water',
+        message: expect.stringContaining('about 1.2 % of Choux paste baked as part of Choux buns as finished is added water'),
+      }),
+    );
+  });
+
+  it('lists it by the weight used where the regime has no such derogation (US: FDA Food Labeling Guide ch. IV Q5)', () => {
+    // 250 g of water at the time of use, level with the eggs and first in line order.
+    const paste = buns(540, 'US').ingredients[0];
+    expect(names(paste.children)).toEqual(['Water', 'Eggs', 'Wheat flour', 'Butter']);
+    expect(paste.children[0].orderWeightG).toBe(250);
+  });
+
+  it('keeps a sub-recipe with a finished weight of its own on its own bake loss, not the product’s', () => {
+    // Syrup: sugar 100 g + water 100 g, boiled down to 150 g (its own finished weight): water
+    // 150 − 100 = 50 g, 33.3 % of the syrup, listed after the sugar. The sponge's bake loss
+    // (500 g baked to 400 g) is not applied to it: that would give 150 × 0.8 − 100 = 20 g.
+    // Percent: the syrup's share (150 / 500 = 30 %) × 50 / 150 = 10 %.
+    const d = declare(
+      book(
+        [
+          ing('sugar', { name: 'Sugar' }),
+          ing('water', { name: 'Water' }),
+          ing('flour', { name: 'Flour' }),
+          ing('eggs', { name: 'Eggs', contains: ['egg'] }),
+        ],
+        [
+          recipe(
+            'syrup',
+            [
+              ['sugar', 100],
+              ['water', 100],
+            ],
+            { name: 'Syrup', finishedWeightG: 150 },
+          ),
+          recipe(
+            'sponge',
+            [
+              ['flour', 200],
+              ['syrup', 150],
+              ['eggs', 150],
+            ],
+            { name: 'Syrup sponge', finishedWeightG: 400 },
+          ),
+        ],
+      ),
+      'sponge',
+      refs,
+    );
+    const syrup = d.ingredients.find((e) => e.id === 'syrup')!;
+    expect(names(syrup.children)).toEqual(['Sugar', 'Water']);
+    expect(syrup.children[1].orderWeightG).toBeCloseTo(50, 9);
+    expect(syrup.children[1].percent).toBeCloseTo(10, 9);
+  });
+
+  it('takes the bake loss of the nearest recipe above that has a finished weight', () => {
+    // Dough (unbaked): flour 600 g, water 400 g, salt 12 g, yeast 12 g (1024 g), baked as
+    // "Bases" to 900 g; the pizza (bases 900 g + tomato 300 g) has no finished weight. The dough
+    // loses the bases' loss (900 / 1024), not the pizza's (none): water 900 − 624 = 276 g,
+    // 30.7 % of the dough as baked, listed after the flour (check value 30's bread).
+    const d = declare(
+      book(
+        [
+          ing('flour', { name: 'Wheat flour', contains: ['wheat'] }),
+          ing('water', { name: 'Water' }),
+          ing('salt', { name: 'Salt' }),
+          ing('yeast', { name: 'Yeast' }),
+          ing('tomato', { name: 'Tomato' }),
+        ],
+        [
+          recipe(
+            'dough',
+            [
+              ['flour', 600],
+              ['water', 400],
+              ['salt', 12],
+              ['yeast', 12],
+            ],
+            { name: 'Dough' },
+          ),
+          recipe('bases', [['dough', 1024]], { name: 'Bases', finishedWeightG: 900 }),
+          recipe(
+            'pizza',
+            [
+              ['bases', 900],
+              ['tomato', 300],
+            ],
+            { name: 'Pizza' },
+          ),
+        ],
+      ),
+      'pizza',
+      refs,
+    );
+    const dough = d.ingredients[0].children[0];
+    expect(names(dough.children)).toEqual(['Wheat flour', 'Water', 'Salt', 'Yeast']);
+    expect(dough.children[1].orderWeightG).toBeCloseTo(276, 9);
+  });
+});

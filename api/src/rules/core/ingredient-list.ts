@@ -9,6 +9,11 @@ export function isWater(node: TreeNode): boolean {
   return !!i && (i.isWater === true || i.id.toLowerCase() === 'water' || i.name.trim().toLowerCase() === 'water');
 }
 
+interface Bake {
+  ratio: number;
+  in: string;
+}
+
 export interface IngredientList {
   entries: DeclaredIngredient[];
   warnings: DeclarationNotice[];
@@ -16,24 +21,35 @@ export interface IngredientList {
 
 /**
  * The ingredient list: each level in descending order of weight at the time of use
- * (EU 1169/2011 Art. 18 and Annex VII; 21 CFR 101.4(a)(1)), ties kept in line order,
- * contact lines at the end of their level. A sub-recipe appears under its own name with its
- * own ingredients in brackets in their own order, whatever its share: the 2 % option of
- * Annex VII E.2(a) is only for compounds defined in Union law, and keeping the brackets never
- * loses an allergen.
+ * (Regulation (EU) No 1169/2011 Art. 18 and Annex VII; 21 CFR 101.4(a)(1)), ties kept in line
+ * order, contact lines at the end of their level. A sub-recipe appears under its own name with
+ * its own ingredients in brackets in their own order, whatever its share: the 2 % option of
+ * Annex VII Part E point 2(a) is only for compounds defined in Union law, and keeping the
+ * brackets never loses an allergen. No 2 % threshold is therefore applied.
  *
- * Added water (EU/UK, Regulation (EU) No 1169/2011 Annex VII Part A point 1): placed by its
- * weight in the finished product, taken as the level's finished weight minus the other
- * ingredients used (never more than the water used, never below 0); left out when that is at
- * most 5 % of the finished product, compared at the threshold precision (compare.ts). Its
- * percent is then its share of the finished product. Regimes without that derogation list
- * added water by the weight used.
+ * Added water (EU/UK, Regulation (EU) No 1169/2011 Annex VII Part A point 1: listed by its
+ * weight in the finished product, "the total finished product − the total of the other
+ * ingredients used"; need not be listed at no more than 5 % of the finished product): placed by
+ * the level's finished weight minus the other ingredients used at that level (never more than
+ * the water used, never below 0), and left out when that is at most 5 % of the level as finished,
+ * compared at the threshold precision (compare.ts). Its percent is then its share of the
+ * finished level. The level's finished weight is:
+ * - the product: its finishedWeightG, else its mix (nothing known to be lost);
+ * - a sub-recipe with a finishedWeightG of its own: that weight (its own bake loss);
+ * - a sub-recipe without one (a dough or choux paste kept unbaked and baked as part of the
+ *   product): its mix × the finished/mix ratio of the nearest recipe above it that has a
+ *   finished weight, i.e. it loses the product's own bake loss in proportion to its weight.
+ *   A sub-recipe added after baking should record its finished weight (its mix when nothing is
+ *   lost), so that its water is not taken to have baked off.
+ * Regimes without that derogation list added water by the weight used.
  */
 export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: (node: TreeNode) => string[]): IngredientList {
   const warnings: DeclarationNotice[] = [];
+  const omitUpTo = rules.addedWater.omitUpToPercent;
+  const mixOf = (nodes: TreeNode[]) => nodes.reduce((s, n) => s + n.usedG, 0);
 
-  const level = (nodes: TreeNode[], finishedG: number, parentPercent: number, of: string): DeclaredIngredient[] => {
-    const omitUpTo = rules.addedWater.omitUpToPercent;
+  /** `bake`: finished weight / mix of the nearest recipe at or above this level that has a finished weight, and its name. */
+  const level = (nodes: TreeNode[], finishedG: number, bake: Bake, parentPercent: number, of: string): DeclaredIngredient[] => {
     const othersG = nodes.filter((n) => !isWater(n)).reduce((s, n) => s + n.usedG, 0);
     const entries: DeclaredIngredient[] = [];
     for (const node of nodes) {
@@ -53,10 +69,14 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
         orderWeightG = inFinished;
         percent = (parentPercent * shareOfFinished) / 100;
       }
-      const children =
-        node.kind === 'recipe' && node.recipe
-          ? level(node.children, node.recipe.finishedWeightG ?? node.children.reduce((s, c) => s + c.usedG, 0), node.share * 100, node.name)
-          : [];
+      let children: DeclaredIngredient[] = [];
+      if (node.kind === 'recipe' && node.recipe) {
+        const mix = mixOf(node.children);
+        const own = node.recipe.finishedWeightG;
+        const childBake = own !== undefined ? { ratio: mix > 0 ? own / mix : 1, in: node.name } : bake;
+        const of = own !== undefined ? node.name : `${node.name} baked as part of ${bake.in}`;
+        children = level(node.children, own ?? mix * bake.ratio, childBake, node.share * 100, of);
+      }
       entries.push({
         id: node.id,
         name: node.name,
@@ -74,5 +94,6 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
     return [...used.sort((a, b) => b.orderWeightG - a.orderWeightG), ...contact];
   };
 
-  return { entries: level(tree.children, tree.finishedG, 100, tree.recipe.name), warnings };
+  const product: Bake = { ratio: tree.mixG > 0 ? tree.finishedG / tree.mixG : 1, in: tree.recipe.name };
+  return { entries: level(tree.children, tree.finishedG, product, 100, tree.recipe.name), warnings };
 }

@@ -263,6 +263,87 @@ describe('gluten-free at 20 mg/kg', () => {
   });
 });
 
+describe('added water at 5 % of the finished product (EU, UK)', () => {
+  /*
+   * Shortcrust (unbaked sub-recipe): flour 150 g, butter 100 g, sugar 20 g, water 30 g (300 g).
+   * Jam tart: shortcrust 300 g + apricot jam 80 g (380 g), baked to `finishedG`. The shortcrust
+   * has no finished weight of its own, so it loses the tart's bake loss (finished / 380).
+   * Water in the shortcrust as baked = 300 × finished / 380 − 270 g of other ingredients
+   * (Regulation (EU) No 1169/2011 Annex VII Part A point 1):
+   * - baked 360 g: 284.21 − 270 = 14.21 g = 5 % of 284.21 g, computed 5.000000000000002 %;
+   * - baked 370 g: 292.11 − 270 = 22.11 g = 7.57 % (above);
+   * - baked 350 g: 276.32 − 270 = 6.32 g = 2.29 % (below).
+   */
+  const tart = (finishedG: number, regime: Regime) =>
+    declare(
+      book(
+        [
+          ing('flour', { name: 'Wheat flour', contains: ['wheat'] }),
+          ing('butter', { name: 'Butter', contains: ['milk'] }),
+          ing('sugar', { name: 'Sugar' }),
+          ing('water', { name: 'Water' }),
+          ing('jam', { name: 'Apricot jam' }),
+        ],
+        [
+          recipe(
+            'shortcrust',
+            [
+              ['flour', 150],
+              ['butter', 100],
+              ['sugar', 20],
+              ['water', 30],
+            ],
+            { name: 'Shortcrust' },
+          ),
+          recipe(
+            'tart',
+            [
+              ['shortcrust', 300],
+              ['jam', 80],
+            ],
+            { name: 'Jam tart', finishedWeightG: finishedG },
+          ),
+        ],
+        {},
+        regime,
+      ),
+      'tart',
+      refs,
+    );
+  const pastryNames = (regime: Regime, finishedG: number) => tart(finishedG, regime).ingredients[0].children.map((e) => e.name);
+
+  it('the share at 360 g really is a hair over 5 % in binary arithmetic', () => {
+    const asBaked = 300 * (360 / 380);
+    const share = (100 * (asBaked - 270)) / asBaked;
+    expect(share).toBeGreaterThan(5);
+    expect(share).toBeCloseTo(5, 12);
+  });
+
+  it.each([
+    // Annex VII Part A point 1: need not be listed when it "does not exceed 5 %" (UK: the assimilated Regulation).
+    { regime: 'EU' as const, finishedG: 360, listed: false },
+    { regime: 'EU' as const, finishedG: 370, listed: true },
+    { regime: 'EU' as const, finishedG: 350, listed: false },
+    { regime: 'UK' as const, finishedG: 360, listed: false },
+    { regime: 'UK' as const, finishedG: 370, listed: true },
+    { regime: 'UK' as const, finishedG: 350, listed: false },
+  ])('$regime, tart baked to $finishedG g: water listed $listed', ({ regime, finishedG, listed }) => {
+    const d = tart(finishedG, regime);
+    expect(pastryNames(regime, finishedG).includes('Water')).toBe(listed);
+    expect(d.warnings.some((w) => w.code === 'added-water-omitted' && w.ingredient === 'water')).toBe(!listed);
+  });
+
+  it.each([
+    // No added-water derogation: US FDA Food Labeling Guide ch. IV Q5 (added water is an ingredient,
+    // in descending order); Canada Food and Drug Regulations B.01.008 (from memory); ANZ Standard 1.2.4
+    // (ingoing weight, from memory).
+    ...(['US', 'CA', 'ANZ'] as const).flatMap((regime) => [360, 370, 350].map((finishedG) => ({ regime, finishedG }))),
+  ])('$regime, tart baked to $finishedG g: water listed by the 30 g used', ({ regime, finishedG }) => {
+    const water = tart(finishedG, regime).ingredients[0].children.find((e) => e.name === 'Water');
+    expect(water).toMatchObject({ orderWeightG: 30 });
+  });
+});
+
 describe('QUID at 100 % (Regulation (EU) No 1169/2011 Annex VIII point 4(a))', () => {
   /*
    * Apple compote: apples 400 g, sugar 250 g (650 g), cooked down to 600 g. Apples per gram of
