@@ -1,3 +1,5 @@
+import { z } from 'zod';
+
 /**
  * Fine-grained allergen sources recorded on ingredients. Each regime's reference list
  * (reference-data/regimes.json) decides which group a source belongs to, or none.
@@ -34,6 +36,24 @@ export const ALLERGEN_SOURCES = [
   'sulphites',
 ] as const;
 export type AllergenSource = (typeof ALLERGEN_SOURCES)[number];
+
+/** A value as a message shows it: 'quinoa', or the JSON of anything that is not text. */
+function shown(value: unknown): string {
+  if (typeof value === 'string') return `'${value.length > 40 ? `${value.slice(0, 40)}…` : value}'`;
+  const json = JSON.stringify(value) ?? String(value);
+  return json.length > 40 ? `${json.slice(0, 40)}…` : json;
+}
+
+/** The message for a value not in a list: which value, and every accepted one. */
+export function notInListMessage(what: string, value: unknown, accepted: readonly string[]): string {
+  if (value === undefined) return `Give the ${what}, one of: ${accepted.join(', ')}.`;
+  return `Unknown ${what} ${shown(value)}. Use one of: ${accepted.join(', ')}.`;
+}
+
+/** An allergen source, refused with a message that names the unknown value and lists the accepted ones. */
+export const allergenSourceSchema = z.enum(ALLERGEN_SOURCES, {
+  error: (issue) => notInListMessage('allergen source', issue.input, ALLERGEN_SOURCES),
+});
 
 export const SOURCE_LABELS: Record<AllergenSource, string> = {
   wheat: 'wheat',
@@ -88,6 +108,11 @@ export const EXEMPT_FORMS = [
   'isinglass-fining',
 ] as const;
 export type ExemptForm = (typeof EXEMPT_FORMS)[number];
+
+/** An exempt form, refused with a message that names the unknown value and lists the accepted ones. */
+export const exemptFormSchema = z.enum(EXEMPT_FORMS, {
+  error: (issue) => notInListMessage('allergen form', issue.input, EXEMPT_FORMS),
+});
 
 export const EXEMPT_FORM_LABELS: Record<ExemptForm, string> = {
   'glucose-syrup': 'glucose syrup',

@@ -1,5 +1,15 @@
 import { z } from 'zod';
-import { ALLERGEN_SOURCES, CLAIMS, EXEMPT_FORMS, LINE_ROLES, MEASURE_SYSTEMS, REGIMES, UNITS } from './allergens';
+import {
+  ALLERGEN_SOURCES,
+  CLAIMS,
+  LINE_ROLES,
+  MEASURE_SYSTEMS,
+  REGIMES,
+  UNITS,
+  allergenSourceSchema,
+  exemptFormSchema,
+  notInListMessage,
+} from './allergens';
 import { handlingSchema } from './kitchen';
 
 /**
@@ -9,14 +19,39 @@ import { handlingSchema } from './kitchen';
  */
 const id = z.string().trim().min(1, 'An id cannot be empty.').max(80, 'Use an id of at most 80 characters.');
 
-export const sourceEntrySchema = z.union([
-  z.enum(ALLERGEN_SOURCES),
-  z.strictObject({
-    source: z.enum(ALLERGEN_SOURCES),
-    form: z.enum(EXEMPT_FORMS).optional(),
-    species: z.string().trim().min(1).max(60).optional(),
-  }),
-]);
+const sourceObjectSchema = z.strictObject(
+  {
+    source: allergenSourceSchema,
+    form: exemptFormSchema.optional(),
+    species: z
+      .string({ error: 'Write the species as text, such as "cod".' })
+      .trim()
+      .min(1, 'Give the species, or leave it out.')
+      .max(60, 'Keep the species to 60 characters or fewer.')
+      .optional(),
+  },
+  {
+    error: (issue) =>
+      issue.code === 'unrecognized_keys'
+        ? `An allergen entry has only source, form and species; remove ${issue.keys.join(', ')}.`
+        : undefined,
+  },
+);
+
+/**
+ * An allergen entry: a source name ("milk"), or an object naming its form or species. A refused
+ * entry says which value is unknown and lists the accepted ones (the union's own message: for
+ * an object, the first of its own issues; for anything else, the allergen source's).
+ */
+export const sourceEntrySchema = z.union([allergenSourceSchema, sourceObjectSchema], {
+  error: (issue) => {
+    if (issue.code !== 'invalid_union') return undefined;
+    const input = issue.input;
+    if (input !== null && typeof input === 'object' && !Array.isArray(input)) return issue.errors[1]?.[0]?.message;
+    if (typeof input === 'string') return notInListMessage('allergen source', input, ALLERGEN_SOURCES);
+    return `Write each allergen as a source (one of: ${ALLERGEN_SOURCES.join(', ')}) or as {"source", "form", "species"}.`;
+  },
+});
 export type SourceEntry = z.infer<typeof sourceEntrySchema>;
 
 /** Nutrition per 100 g as eaten raw, in grams (cholesterol in mg). A key left out is not known. */

@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { ALLERGEN_SOURCES, CONTROLS, MEASURE_SYSTEMS, REGIMES } from './allergens';
+import { CONTROLS, MEASURE_SYSTEMS, REGIMES, allergenSourceSchema } from './allergens';
 
 /** How the kitchen handles one allergen source: kept apart, or on shared equipment or in a shared area. */
-export const handlingSchema = z.strictObject({ allergen: z.enum(ALLERGEN_SOURCES), controls: z.enum(CONTROLS) });
+export const handlingSchema = z.strictObject({ allergen: allergenSourceSchema, controls: z.enum(CONTROLS) });
 export type Handling = z.infer<typeof handlingSchema>;
 
 /** The kitchen (site) as the API sends it. */

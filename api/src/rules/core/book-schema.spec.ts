@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Ajv2020 from 'ajv/dist/2020';
+import { ALLERGEN_SOURCES, EXEMPT_FORMS, bookSchema } from '@crumbproof/shared';
 import { bookJsonSchema, bookJsonSchemaText } from './book-schema';
 
 const ROOT = join(__dirname, '..', '..', '..', '..');
@@ -34,5 +35,61 @@ describe('reference-data/book.schema.json', () => {
     const b = JSON.parse(readFileSync(join(ROOT, 'tests/fixtures/shortbread.book.json'), 'utf8')) as RawBook;
     edit(b);
     expect(validate(b)).toBe(false);
+  });
+});
+
+describe('bookSchema: an unknown allergen source or form says which value and what is accepted', () => {
+  const SOURCES = ALLERGEN_SOURCES.join(', ');
+  const FORMS = EXEMPT_FORMS.join(', ');
+  const withEntry = (entry: unknown, list: 'contains' | 'mayContain' = 'contains') => {
+    const b = JSON.parse(readFileSync(join(ROOT, 'tests/fixtures/shortbread.book.json'), 'utf8')) as RawBook;
+    b.ingredients[0][list] = ['milk', entry];
+    return bookSchema.safeParse(b);
+  };
+  const issuesOf = (r: ReturnType<typeof withEntry>) =>
+    r.success ? [] : r.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
+
+  it.each([
+    { title: 'an unknown source', entry: 'quinoa', message: `Unknown allergen source 'quinoa'. Use one of: ${SOURCES}.` },
+    {
+      title: 'an unknown source in an entry with a form',
+      entry: { source: 'quinoa', form: 'refined-oil' },
+      message: `Unknown allergen source 'quinoa'. Use one of: ${SOURCES}.`,
+    },
+    {
+      title: 'an unknown form',
+      entry: { source: 'wheat', form: 'syrup' },
+      message: `Unknown allergen form 'syrup'. Use one of: ${FORMS}.`,
+    },
+    { title: 'an entry without its source', entry: { form: 'refined-oil' }, message: `Give the allergen source, one of: ${SOURCES}.` },
+    {
+      title: 'an entry with a field it does not have',
+      entry: { source: 'fish', kind: 'cod' },
+      message: 'An allergen entry has only source, form and species; remove kind.',
+    },
+    { title: 'a number', entry: 7, message: `Write each allergen as a source (one of: ${SOURCES}) or as {"source", "form", "species"}.` },
+  ])('$title', ({ entry, message }) => {
+    expect(issuesOf(withEntry(entry))).toEqual([{ path: 'ingredients.0.contains.1', message }]);
+  });
+
+  it('says the same for a may-contain entry, and the book is not accepted', () => {
+    const r = withEntry('hazelnuts', 'mayContain');
+    expect(r.success).toBe(false);
+    expect(issuesOf(r)).toEqual([
+      { path: 'ingredients.0.mayContain.1', message: `Unknown allergen source 'hazelnuts'. Use one of: ${SOURCES}.` },
+    ]);
+  });
+
+  it('says the same for an allergen the kitchen handles', () => {
+    const b = JSON.parse(readFileSync(join(ROOT, 'tests/fixtures/shortbread.book.json'), 'utf8')) as RawBook;
+    b.site.handles = [{ allergen: 'nuts', controls: 'segregated' }];
+    const r = bookSchema.safeParse(b);
+    expect(issuesOf(r)).toEqual([{ path: 'site.handles.0.allergen', message: `Unknown allergen source 'nuts'. Use one of: ${SOURCES}.` }]);
+  });
+
+  it('still accepts every source and form, alone and with a species', () => {
+    for (const source of ALLERGEN_SOURCES) expect(withEntry(source).success).toBe(true);
+    for (const form of EXEMPT_FORMS) expect(withEntry({ source: 'wheat', form }).success).toBe(true);
+    expect(withEntry({ source: 'fish', species: 'cod' }).success).toBe(true);
   });
 });
