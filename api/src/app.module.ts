@@ -1,36 +1,39 @@
 import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
 import { AuthModule } from './auth/auth.module';
+import { BooksModule } from './books/books.module';
 import { ApiExceptionFilter } from './common/exception.filter';
 import { RolesGuard, SessionGuard } from './common/auth.guard';
 import { AppConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
-import { HealthController } from './health.controller';
-import { KitchenModule } from './kitchen/kitchen.module';
-import { UsersModule } from './users/users.module';
-import { BooksModule } from './books/books.module';
 import { SeedModule } from './database/seed.module';
-import { SwapsModule } from './swaps/swaps.module';
+import { DeclarationsModule } from './declarations/declarations.module';
+import { HealthModule } from './health/health.module';
+import { IngredientsModule } from './ingredients/ingredients.module';
+import { KitchenModule } from './kitchen/kitchen.module';
+import { RecipesModule } from './recipes/recipes.module';
 import { ReferenceModule } from './reference/reference.module';
-import { SpecificationsModule } from './specifications/specifications.module';
-import { IngredientImportModule } from './ingredient-import/ingredient-import.module';
+import { SwapsModule } from './swaps/swaps.module';
+import { UsersModule } from './users/users.module';
 
+/** Every folder that owns routes has one module here; a folder's module imports the ones it builds on. */
 @Module({
   imports: [
     DiscoveryModule,
     AppConfigModule,
     DatabaseModule,
+    HealthModule,
     AuthModule,
     UsersModule,
     KitchenModule,
     BooksModule,
-    SeedModule,
+    IngredientsModule,
+    RecipesModule,
+    DeclarationsModule,
     SwapsModule,
-    SpecificationsModule,
-    IngredientImportModule,
     ReferenceModule,
+    SeedModule,
   ],
-  controllers: [HealthController],
   providers: [
     { provide: APP_GUARD, useClass: SessionGuard },
     { provide: APP_GUARD, useClass: RolesGuard },

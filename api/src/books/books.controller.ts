@@ -4,16 +4,12 @@ import { bookSchema } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody } from '../common/zod.pipe';
-import { DeclarationsService } from '../declarations/declarations.service';
 import { BooksService } from './books.service';
 
 @ApiTags('recipe book')
 @Controller('book')
 export class BooksController {
-  constructor(
-    private readonly books: BooksService,
-    private readonly declarations: DeclarationsService,
-  ) {}
+  constructor(private readonly books: BooksService) {}
 
   @Get()
   @Roles(['manager', 'pastry-chef'])
@@ -27,9 +23,7 @@ export class BooksController {
   @Roles(['manager'])
   @ApiOperation({ summary: 'Import a recipe book, merging by id; all or nothing' })
   @ApiZodBody(bookSchema)
-  async import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
-    const summary = await this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
-    await this.declarations.record();
-    return summary;
+  import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
+    return this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
   }
 }

@@ -1,13 +1,12 @@
 import { Injectable } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
 import { bookSchema, type Book, type BookIngredient, type BookProblem, type BookRecipe } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
 import { validationError } from '../common/zod.pipe';
 import { IngredientsRepository } from '../ingredients/ingredients.repository';
-import { parseJson } from '../kitchen/kitchen.service';
-import { SiteModel } from '../kitchen/site.model';
+import { KitchenService } from '../kitchen/kitchen.service';
+import { SiteRepository, type SiteRow } from '../kitchen/site.repository';
 import { RecipesRepository } from '../recipes/recipes.repository';
 import { RulesService } from '../rules/rules.service';
 
@@ -16,6 +15,25 @@ export interface ImportSummary {
   ingredients: { created: string[]; revised: string[]; unchanged: number };
   recipes: { created: string[]; revised: string[]; unchanged: number };
 }
+
+/** Where an item of the book is stored and which revision of it is current. */
+export interface ItemHead {
+  kind: 'ingredient' | 'recipe';
+  /** The id of its row in the ingredients or recipes table. */
+  rowId: number;
+  revision: number;
+}
+
+/** The kitchen as it stands: its site row, its recipe book, and the current revision of every item. */
+export interface KitchenState {
+  site: SiteRow;
+  book: Book;
+  /** Every ingredient and recipe by its id in the book. */
+  heads: Map<string, ItemHead>;
+}
+
+/** Told, after a write has been saved, the ids of the recipes it wrote. */
+export type RecipesWrittenListener = (ids: readonly string[]) => Promise<void>;
 
 const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
   const { id: _id, ...body } = item;
@@ -29,42 +47,53 @@ const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b)
  */
 @Injectable()
 export class BooksService {
+  private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
+
   constructor(
-    @InjectModel(SiteModel) private readonly sites: typeof SiteModel,
+    private readonly kitchen: KitchenService,
+    private readonly sites: SiteRepository,
     private readonly ingredients: IngredientsRepository,
     private readonly recipes: RecipesRepository,
     private readonly rules: RulesService,
     private readonly tx: TransactionRunner,
   ) {}
 
-  async site(t?: Transaction): Promise<SiteModel | null> {
-    return this.sites.findOne({ order: [['id', 'ASC']], transaction: t });
+  /**
+   * After every write is saved, each listener is told which recipes it wrote: DeclarationsService
+   * keeps the declaration of each new recipe revision, so the revision history can show it.
+   */
+  onRecipesWritten(listener: RecipesWrittenListener): void {
+    this.recipesWrittenListeners.push(listener);
   }
 
-  /**
-   * Writes to the kitchen one at a time: each write checks the whole kitchen as it would be after
-   * it, so two at once (say, A starting to use B while B starts to use A) must not both pass.
-   */
-  private async lockKitchen(t: Transaction): Promise<void> {
-    await this.sites.findOne({ order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
+  private async recipesWritten(ids: readonly string[]): Promise<void> {
+    if (ids.length === 0) return;
+    for (const listener of this.recipesWrittenListeners) await listener(ids);
+  }
+
+  /** The whole kitchen as it stands now: the recipe book with the current revision of every item. */
+  async state(t?: Transaction): Promise<KitchenState> {
+    return this.read(await this.kitchen.current(t), t);
+  }
+
+  private async read(site: SiteRow, t?: Transaction): Promise<KitchenState> {
+    const [ings, recs] = await Promise.all([this.ingredients.listCurrent(site.id, t), this.recipes.listCurrent(site.id, t)]);
+    const heads = new Map<string, ItemHead>([
+      ...ings.map((i) => [i.code, { kind: 'ingredient', rowId: i.id, revision: i.revision }] as const),
+      ...recs.map((r) => [r.code, { kind: 'recipe', rowId: r.id, revision: r.revision }] as const),
+    ]);
+    const book: Book = {
+      crumbproofBook: 1,
+      site: { name: site.name, regime: site.regime, ...(site.measures ? { measures: site.measures } : {}), handles: site.handles },
+      ingredients: ings.map((i) => ({ id: i.code, ...i.body })),
+      recipes: recs.map((r) => ({ id: r.code, ...r.body })),
+    };
+    return { site, book, heads };
   }
 
   /** The whole kitchen as it stands now, in the recipe book format. */
   async exportBook(t?: Transaction): Promise<Book> {
-    const site = await this.site(t);
-    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
-    const [ings, recs] = await Promise.all([this.ingredients.listCurrent(site.id, t), this.recipes.listCurrent(site.id, t)]);
-    return {
-      crumbproofBook: 1,
-      site: {
-        name: site.name,
-        regime: site.regime,
-        ...(site.measures ? { measures: site.measures } : {}),
-        handles: parseJson(site.handles),
-      },
-      ingredients: ings.map((i) => ({ id: i.code, ...i.body })),
-      recipes: recs.map((r) => ({ id: r.code, ...r.body })),
-    };
+    return (await this.state(t)).book;
   }
 
   /** Parses a book against the published schema; every problem names where it is. */
@@ -83,10 +112,10 @@ export class BooksService {
   /** Imports a book into the kitchen, merging by id; all or nothing. */
   async importBook(input: unknown, meta: { authorId: number | null; note: string; address?: string }): Promise<ImportSummary> {
     const book = this.parse(input);
-    return this.tx.run(async (t) => {
-      await this.lockKitchen(t);
-      const site = await this.site(t);
-      const current = site ? await this.exportBook(t) : null;
+    const imported = await this.tx.run(async (t) => {
+      await this.sites.lock(t);
+      const site = await this.kitchen.find(t);
+      const current = site ? (await this.read(site, t)).book : null;
       const merged: Book = {
         ...book,
         ingredients: mergeById(current?.ingredients ?? [], book.ingredients),
@@ -103,10 +132,10 @@ export class BooksService {
         handles: book.site.handles,
       };
       if (!siteRow) {
-        siteRow = await this.sites.create({ ...siteFields, address: meta.address ?? '' }, { transaction: t });
+        siteRow = await this.sites.create({ ...siteFields, address: meta.address ?? '' }, t);
         siteState = 'created';
       } else if (!same(current?.site, book.site)) {
-        await siteRow.update({ ...siteFields, version: siteRow.version + 1 }, { transaction: t });
+        siteRow = await this.sites.update(siteRow.id, siteFields, t);
         siteState = 'updated';
       }
 
@@ -137,6 +166,8 @@ export class BooksService {
       }
       return summary;
     });
+    await this.recipesWritten([...imported.recipes.created, ...imported.recipes.revised]);
+    return imported;
   }
 
   /**
@@ -148,9 +179,9 @@ export class BooksService {
     meta: { authorId: number | null; note: string },
     expect: 'new' | 'existing' | 'any',
   ): Promise<{ id: string; revision: number }[]> {
-    return this.tx.run(async (t) => {
-      await this.lockKitchen(t);
-      const book = await this.exportBook(t);
+    const written = await this.tx.run(async (t) => {
+      await this.sites.lock(t);
+      const { site, book } = await this.state(t);
       const all = new Set([...book.ingredients, ...book.recipes].map((x) => x.id));
       for (const [kind, items, own] of [
         ['ingredient', changes.ingredients ?? [], book.ingredients],
@@ -175,7 +206,6 @@ export class BooksService {
         recipes: mergeById(book.recipes, changes.recipes ?? []),
       };
       this.assertDeclarable(merged);
-      const site = (await this.site(t))!;
       const written: { id: string; revision: number }[] = [];
       for (const ing of changes.ingredients ?? []) {
         written.push({ id: ing.id, revision: await this.ingredients.write(site.id, ing.id, bodyOf(ing), meta, t) });
@@ -185,6 +215,8 @@ export class BooksService {
       }
       return written;
     });
+    await this.recipesWritten((changes.recipes ?? []).map((r) => r.id));
+    return written;
   }
 
   async writeItem(

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { Model, ModelCtor } from 'sequelize-typescript';
-import { parseJson } from '../kitchen/kitchen.service';
+import { parseJson } from './json-column';
 
 export interface RevisionedRow {
   id: number;
@@ -18,6 +18,13 @@ export interface RevisionRow<B> {
   note: string;
   authorId: number | null;
   createdAt: Date;
+}
+
+/** An item's head row: what names it, without its body. */
+export interface Head {
+  id: number;
+  code: string;
+  name: string;
 }
 
 export interface Current<B> {
@@ -54,6 +61,26 @@ export class RevisionedRepository<B extends { name: string }> {
       if (!rev) throw new Error(`${h.code} has no revision ${h.currentRevision}`);
       return { id: h.id, code: h.code, name: h.name, revision: h.currentRevision, body: parseJson(rev.body), updatedAt: h.updatedAt };
     });
+  }
+
+  /** Every current, not archived item of a site by name, without bodies. */
+  async listHeads(siteId: number): Promise<Head[]> {
+    const rows = await this.heads.findAll({
+      where: { siteId, archived: false },
+      attributes: ['id', 'code', 'name'],
+      order: [['name', 'ASC']],
+    });
+    return rows.map((r) => ({ id: r.id, code: r.code, name: r.name }));
+  }
+
+  async findHead(siteId: number, code: string): Promise<Head | null> {
+    const row = await this.heads.findOne({ where: { siteId, code, archived: false }, attributes: ['id', 'code', 'name'] });
+    return row ? { id: row.id, code: row.code, name: row.name } : null;
+  }
+
+  /** Locks an item's head row until the transaction ends (for numbering what belongs to it). */
+  async lockHead(id: number, t: Transaction): Promise<void> {
+    await this.heads.findByPk(id, { attributes: ['id'], transaction: t, lock: t.LOCK.UPDATE });
   }
 
   async findCurrent(siteId: number, code: string, t?: Transaction): Promise<Current<B> | null> {

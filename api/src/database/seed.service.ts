@@ -1,6 +1,6 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { BooksService } from '../books/books.service';
-import { DeclarationsService } from '../declarations/declarations.service';
+import { KitchenService } from '../kitchen/kitchen.service';
 import { hashPassword } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
 import demoBook from './seeders/demo-book.json';
@@ -14,18 +14,17 @@ export class SeedService {
   constructor(
     private readonly users: UsersRepository,
     private readonly books: BooksService,
-    private readonly declarations: DeclarationsService,
+    private readonly kitchen: KitchenService,
   ) {}
 
   async seedDemo(): Promise<'seeded' | 'kept'> {
-    if ((await this.users.count()) > 0 || (await this.books.site())) {
+    if ((await this.users.count()) > 0 || (await this.kitchen.find())) {
       this.logger.log('The database already holds a kitchen: seed skipped.');
       return 'kept';
     }
     const hash = await hashPassword(DEMO_PASSWORD);
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
     for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash });
-    await this.declarations.record();
     this.logger.log(
       `Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`,
     );

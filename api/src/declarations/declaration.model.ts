@@ -19,4 +19,7 @@ export class DeclarationModel extends Model {
 
   @Column({ type: DataType.JSON, allowNull: false })
   body: unknown;
+
+  /** When it was computed (kept to the millisecond). */
+  declare createdAt: Date;
 }

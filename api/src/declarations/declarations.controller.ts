@@ -1,19 +1,18 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Post, Query } from '@nestjs/common';
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
 import { bookRecipeSchema, REGIMES, ROLES, KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
-import { z } from 'zod';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { DeclarationsService } from './declarations.service';
+import { regimeQuery } from './regime-query';
 
-const regimeQuery = z.enum(REGIMES, { message: `Use one of ${REGIMES.join(', ')}.` }).optional();
-
+/** Declarations of every product, and of a recipe as edited. One product's is GET /api/recipes/:code/declaration (RecipesController). */
 @ApiTags('declarations')
-@Controller()
+@Controller('declarations')
 export class DeclarationsController {
   constructor(private readonly declarations: DeclarationsService) {}
 
-  @Get('declarations')
+  @Get()
   @Roles(ROLES)
   @ApiOperation({ summary: 'Declarations of every product for sale' })
   @ApiQuery({ name: 'regime', required: false, enum: REGIMES })
@@ -21,15 +20,7 @@ export class DeclarationsController {
     return this.declarations.all(regime);
   }
 
-  @Get('recipes/:code/declaration')
-  @Roles(ROLES)
-  @ApiOperation({ summary: 'A product’s declaration for a regime (the kitchen’s by default)' })
-  @ApiQuery({ name: 'regime', required: false, enum: REGIMES })
-  one(@Param('code') code: string, @Query('regime', new ZodPipe(regimeQuery)) regime?: Regime) {
-    return this.declarations.forProduct(code, regime);
-  }
-
-  @Post('declarations/preview')
+  @Post('preview')
   @HttpCode(200)
   @Roles(KITCHEN_WRITERS)
   @ApiOperation({ summary: 'Declare a recipe as edited, without saving it' })

@@ -1,16 +1,12 @@
 import { createHash } from 'node:crypto';
-import { Injectable } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
-import { bookRecipeSchema, type Book, type Declaration, type Regime } from '@crumbproof/shared';
-import { UniqueConstraintError } from 'sequelize';
+import { Injectable, type OnModuleInit } from '@nestjs/common';
+import { bookRecipeSchema, type Book, type Declaration, type ProductDeclaration, type Regime } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
-import { BooksService } from '../books/books.service';
-import { parseJson } from '../kitchen/kitchen.service';
-import { RecipesRepository } from '../recipes/recipes.repository';
-import { RulesService } from '../rules/rules.service';
 import { validationError } from '../common/zod.pipe';
-import { DeclarationModel } from './declaration.model';
-import type { ProductDeclaration } from '../rules/rules.service';
+import { BooksService, type KitchenState } from '../books/books.service';
+import { KitchenService } from '../kitchen/kitchen.service';
+import { RulesService } from '../rules/rules.service';
+import { DeclarationsRepository } from './declarations.repository';
 
 /**
  * Everything a product's declaration depends on: the site, every item it reaches, and the items
@@ -42,41 +38,45 @@ export function closureOf(book: Book, productId: string): Book {
  * depend on changes (an ingredient, a sub-recipe, the site's handling, the reference data).
  */
 @Injectable()
-export class DeclarationsService {
+export class DeclarationsService implements OnModuleInit {
   constructor(
-    @InjectModel(DeclarationModel) private readonly saved: typeof DeclarationModel,
+    private readonly kept: DeclarationsRepository,
     private readonly books: BooksService,
-    private readonly recipes: RecipesRepository,
+    private readonly kitchen: KitchenService,
     private readonly rules: RulesService,
   ) {}
 
+  /** Every recipe revision saved keeps the declaration it was saved with, for the revision history. */
+  onModuleInit() {
+    this.books.onRecipesWritten(async (ids) => {
+      await this.record(ids);
+    });
+  }
+
   /**
    * A product's declaration, from the store when nothing it depends on has changed. Callers that
-   * declare many products pass the book and the recipes' heads they already read.
+   * declare many products pass the kitchen they already read.
    */
-  async forProduct(
-    code: string,
-    regime?: Regime,
-    loaded?: { book: Book; heads: Map<string, { id: number; revision: number }> },
-  ): Promise<ProductDeclaration> {
-    const book = loaded?.book ?? (await this.books.exportBook());
-    const recipe = book.recipes.find((r) => r.id === code);
-    if (!recipe) throw new AppError('not-found', `There is no recipe '${code}'.`);
-    const head = loaded?.heads.get(code) ?? (await this.recipes.findCurrent((await this.books.site())!.id, code))!;
+  async forProduct(code: string, regime?: Regime, state?: KitchenState): Promise<ProductDeclaration> {
+    const { book, heads } = state ?? (await this.books.state());
+    const head = heads.get(code);
+    if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
     const useRegime = regime ?? book.site.regime;
     const slice = closureOf(book, code);
     const inputHash = createHash('sha256')
       .update(JSON.stringify({ slice, regime: useRegime, refs: this.rules.referenceVersion }))
       .digest('hex');
-    const hit = await this.saved.findOne({ where: { recipeId: head.id, regime: useRegime, inputHash } });
-    if (hit) return parseJson(hit.body) as ProductDeclaration;
+    const hit = await this.kept.find(head.rowId, useRegime, inputHash);
+    if (hit) return hit.body;
     const declaration = this.rules.declare(slice, code, useRegime);
-    try {
-      await this.saved.create({ recipeId: head.id, recipeRevision: head.revision, regime: useRegime, inputHash, body: declaration });
-    } catch (e) {
-      if (!(e instanceof UniqueConstraintError)) throw e; // computed at the same time elsewhere
-    }
-    return declaration;
+    const kept = await this.kept.add({
+      recipeId: head.rowId,
+      recipeRevision: head.revision,
+      regime: useRegime,
+      inputHash,
+      body: declaration,
+    });
+    return kept.body;
   }
 
   /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */
@@ -89,35 +89,25 @@ export class DeclarationsService {
     return this.rules.declare(closureOf(merged, parsed.data.id), parsed.data.id, regime ?? book.site.regime);
   }
 
-  /** The first declaration kept for each revision of a recipe, in the kitchen's regime. */
-  async savedByRevision(recipeId: number): Promise<Map<number, Declaration>> {
-    const site = (await this.books.site())!;
-    const rows = await this.saved.findAll({ where: { recipeId, regime: site.regime }, order: [['id', 'ASC']] });
-    const out = new Map<number, Declaration>();
-    for (const r of rows) if (!out.has(r.recipeRevision)) out.set(r.recipeRevision, parseJson(r.body) as Declaration);
-    return out;
+  /** The first declaration kept for each revision of a recipe (by its row id), in the kitchen's regime. */
+  async savedByRevision(recipeRowId: number): Promise<Map<number, Declaration>> {
+    const site = await this.kitchen.current();
+    return this.kept.firstOfEachRevision(recipeRowId, site.regime);
   }
 
   /** Declares the given recipes (all of them when none are named), so each current revision has its declaration on record. */
   async record(ids?: readonly string[]): Promise<number> {
-    const loaded = await this.loadAll();
-    const todo = ids ?? loaded.book.recipes.map((r) => r.id);
-    for (const id of todo) await this.forProduct(id, undefined, loaded);
+    const state = await this.books.state();
+    const todo = ids ?? state.book.recipes.map((r) => r.id);
+    for (const id of todo) await this.forProduct(id, undefined, state);
     return todo.length;
-  }
-
-  private async loadAll() {
-    const book = await this.books.exportBook();
-    const site = (await this.books.site())!;
-    const heads = new Map((await this.recipes.listCurrent(site.id)).map((r) => [r.code, { id: r.id, revision: r.revision }]));
-    return { book, heads };
   }
 
   /** Declarations of every product for sale. */
   async all(regime?: Regime): Promise<ProductDeclaration[]> {
-    const loaded = await this.loadAll();
+    const state = await this.books.state();
     const out: ProductDeclaration[] = [];
-    for (const r of loaded.book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime, loaded));
+    for (const r of state.book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime, state));
     return out;
   }
 }

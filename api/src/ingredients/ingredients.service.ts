@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
+import { KitchenService } from '../kitchen/kitchen.service';
 import { UsersRepository } from '../users/users.repository';
 import { IngredientsRepository } from './ingredients.repository';
 
@@ -21,13 +22,12 @@ export class IngredientsService {
   constructor(
     private readonly repo: IngredientsRepository,
     private readonly books: BooksService,
+    private readonly kitchen: KitchenService,
     private readonly users: UsersRepository,
   ) {}
 
   private async siteId() {
-    const site = await this.books.site();
-    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
-    return site.id;
+    return (await this.kitchen.current()).id;
   }
 
   async list(query: IngredientQuery = {}): Promise<{ items: IngredientView[]; total: number }> {

@@ -1,34 +1,36 @@
 import { Injectable } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
 import type { KitchenUpdate, KitchenView } from '@crumbproof/shared';
+import type { Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
-import { SiteModel } from './site.model';
+import { SiteRepository, type SiteRow } from './site.repository';
 
 @Injectable()
 export class KitchenService {
-  constructor(@InjectModel(SiteModel) private readonly sites: typeof SiteModel) {}
+  constructor(private readonly sites: SiteRepository) {}
 
-  /** The kitchen this installation serves (one site per installation for now). */
-  async current(): Promise<SiteModel> {
-    const site = await this.sites.findOne({ order: [['id', 'ASC']] });
-    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book or run the seed.');
+  /** The kitchen this installation serves (one site per installation for now), or null before one is set up. */
+  find(t?: Transaction): Promise<SiteRow | null> {
+    return this.sites.first(t);
+  }
+
+  /** The kitchen this installation serves; refused, saying how to set one up, when there is none yet. */
+  async current(t?: Transaction): Promise<SiteRow> {
+    const site = await this.sites.first(t);
+    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
     return site;
   }
 
   /** Changes the kitchen's regime, measures or allergen handling; every declaration follows. */
   async update(changes: KitchenUpdate): Promise<KitchenView> {
-    const s = await this.current();
-    await s.update({ ...changes, version: s.version + 1 });
-    return this.view();
+    const site = await this.current();
+    return view(await this.sites.update(site.id, changes));
   }
 
   async view(): Promise<KitchenView> {
-    const s = await this.current();
-    return { id: s.id, name: s.name, address: s.address, regime: s.regime, measures: s.measures, handles: parseJson(s.handles) };
+    return view(await this.current());
   }
 }
 
-/** MariaDB keeps JSON as LONGTEXT; the driver may hand back a string. */
-export function parseJson<T>(value: T | string): T {
-  return typeof value === 'string' ? (JSON.parse(value) as T) : value;
+function view(s: SiteRow): KitchenView {
+  return { id: s.id, name: s.name, address: s.address, regime: s.regime, measures: s.measures, handles: s.handles };
 }

@@ -1,9 +1,10 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Put } from '@nestjs/common';
-import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { bookRecipeSchema, KITCHEN_WRITERS, ROLES, type BookRecipe } from '@crumbproof/shared';
+import { Body, Controller, Get, HttpCode, Param, Post, Put, Query } from '@nestjs/common';
+import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
+import { bookRecipeSchema, KITCHEN_WRITERS, REGIMES, ROLES, type BookRecipe, type Regime } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
+import { regimeQuery } from '../declarations/regime-query';
 import { RecipesService } from './recipes.service';
 
 @ApiTags('recipes')
@@ -23,6 +24,15 @@ export class RecipesController {
   @ApiOperation({ summary: 'One recipe, current revision' })
   get(@Param('code') code: string) {
     return this.recipes.get(code);
+  }
+
+  @Get(':code/declaration')
+  @Roles(ROLES)
+  @ApiTags('declarations')
+  @ApiOperation({ summary: 'A product’s declaration for a regime (the kitchen’s by default)' })
+  @ApiQuery({ name: 'regime', required: false, enum: REGIMES })
+  declaration(@Param('code') code: string, @Query('regime', new ZodPipe(regimeQuery)) regime?: Regime) {
+    return this.recipes.declaration(code, regime);
   }
 
   @Get(':code/revisions')

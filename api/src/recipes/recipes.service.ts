@@ -1,9 +1,10 @@
 import { Injectable } from '@nestjs/common';
-import { diffDeclarations, type BookRecipe, type RecipeRevisionView, type RecipeView } from '@crumbproof/shared';
+import { diffDeclarations, type BookRecipe, type RecipeRevisionView, type RecipeView, type Regime } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService } from '../books/books.service';
 import { DeclarationsService } from '../declarations/declarations.service';
+import { KitchenService } from '../kitchen/kitchen.service';
 import { UsersRepository } from '../users/users.repository';
 import { RecipesRepository } from './recipes.repository';
 
@@ -13,13 +14,12 @@ export class RecipesService {
     private readonly repo: RecipesRepository,
     private readonly books: BooksService,
     private readonly declarations: DeclarationsService,
+    private readonly kitchen: KitchenService,
     private readonly users: UsersRepository,
   ) {}
 
   private async siteId() {
-    const site = await this.books.site();
-    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
-    return site.id;
+    return (await this.kitchen.current()).id;
   }
 
   async list(): Promise<RecipeView[]> {
@@ -58,6 +58,11 @@ export class RecipesService {
     return views.reverse();
   }
 
+  /** A product's declaration for a regime (the kitchen's by default), from the store when nothing it depends on has changed. */
+  declaration(code: string, regime?: Regime) {
+    return this.declarations.forProduct(code, regime);
+  }
+
   /** Every recipe that uses this one at any depth. */
   async usedIn(code: string) {
     const book = await this.books.exportBook();
@@ -67,7 +72,6 @@ export class RecipesService {
 
   async create(item: BookRecipe, authorId: number) {
     await this.books.writeItem('recipe', item, { authorId, note: 'Created' }, 'new');
-    await this.declarations.forProduct(item.id);
     return this.get(item.id);
   }
 
@@ -77,7 +81,6 @@ export class RecipesService {
         { path: 'id', message: 'Must match the address.' },
       ]);
     await this.books.writeItem('recipe', item, { authorId, note: note ?? 'Edited' }, 'existing');
-    await this.declarations.forProduct(code);
     return this.get(code);
   }
 }

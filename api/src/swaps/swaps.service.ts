@@ -3,7 +3,6 @@ import { diffDeclarations, type Book, type BookRecipe, type SwapApplied, type Sw
 import { AppError } from '../common/app-error';
 import { usedIn } from '../books/book-graph';
 import { BooksService, bookRefused } from '../books/books.service';
-import { DeclarationsService } from '../declarations/declarations.service';
 import { RulesService } from '../rules/rules.service';
 
 /**
@@ -15,7 +14,6 @@ export class SwapsService {
   constructor(
     private readonly books: BooksService,
     private readonly rules: RulesService,
-    private readonly declarations: DeclarationsService,
   ) {}
 
   private plan(book: Book, req: SwapRequest): { changed: BookRecipe[]; after: Book } {
@@ -80,7 +78,7 @@ export class SwapsService {
     };
   }
 
-  /** Writes new revisions of every changed recipe in one transaction. */
+  /** Writes new revisions of every changed recipe in one transaction; each keeps the declaration it was saved with. */
   async apply(req: SwapRequest, authorId: number): Promise<SwapApplied> {
     const book = await this.books.exportBook();
     const { changed } = this.plan(book, req);
@@ -90,8 +88,6 @@ export class SwapsService {
       { authorId, note: `Swapped ${name(req.from)} for ${name(req.to)}` },
       'existing',
     );
-    // Each new revision keeps the declaration it was saved with, for the revision history.
-    await this.declarations.record(written.map((w) => w.id));
     return { recipes: written };
   }
 }

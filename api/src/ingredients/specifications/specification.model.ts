@@ -1,6 +1,5 @@
 import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
-import { IngredientModel } from '../ingredients/ingredient.model';
-import { UserModel } from '../users/user.model';
+import { IngredientModel } from '../ingredient.model';
 
 /** One uploaded version of a supplier's specification for an ingredient. */
 @Table({ tableName: 'specifications', underscored: true, timestamps: true, updatedAt: false })
@@ -40,12 +39,9 @@ export class SpecificationModel extends Model {
   @Column({ type: DataType.STRING(500), allowNull: false, defaultValue: '' })
   note: string;
 
-  @ForeignKey(() => UserModel)
+  /** The user who uploaded it (users.id; set to null when that user is deleted, by the migration's foreign key). */
   @Column({ type: DataType.INTEGER, allowNull: true })
   uploadedBy: number | null;
-
-  @BelongsTo(() => UserModel, { foreignKey: 'uploadedBy', onDelete: 'SET NULL' })
-  uploader: UserModel | null;
 
   declare id: number;
   declare createdAt: Date;

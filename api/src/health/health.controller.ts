@@ -2,7 +2,7 @@ import { Controller, Get } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import { Public } from './common/roles.decorator';
+import { Public } from '../common/roles.decorator';
 
 @ApiTags('health')
 @Controller('health')

@@ -2,9 +2,9 @@ import { Controller, Get, Header, HttpCode, Param, Post, Req } from '@nestjs/com
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import { KITCHEN_WRITERS } from '@crumbproof/shared';
-import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
-import { Roles } from '../common/roles.decorator';
-import { ApiUpload, readUpload } from './multipart-upload';
+import { CurrentUser, type AuthUser } from '../../common/current-user.decorator';
+import { Roles } from '../../common/roles.decorator';
+import { ApiUpload, readUpload } from '../../specifications/multipart-upload';
 import { SpecificationsService } from './specifications.service';
 
 @ApiTags('specifications')

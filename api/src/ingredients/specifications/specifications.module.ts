@@ -1,16 +1,17 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
-import { BooksModule } from '../books/books.module';
-import { TransactionRunner } from '../common/transaction';
-import { IngredientModel } from '../ingredients/ingredient.model';
-import { UserModel } from '../users/user.model';
+import { TransactionRunner } from '../../common/transaction';
+import { KitchenModule } from '../../kitchen/kitchen.module';
+import { UsersModule } from '../../users/users.module';
+import { IngredientStoreModule } from '../ingredient-store.module';
 import { SpecificationModel } from './specification.model';
 import { SpecificationsController } from './specifications.controller';
 import { SpecificationsRepository } from './specifications.repository';
 import { SpecificationsService } from './specifications.service';
 
+/** Supplier specifications of ingredients (/api/ingredients/:code/specifications, /api/specifications/…); part of IngredientsModule. */
 @Module({
-  imports: [BooksModule, SequelizeModule.forFeature([SpecificationModel, IngredientModel, UserModel])],
+  imports: [IngredientStoreModule, KitchenModule, UsersModule, SequelizeModule.forFeature([SpecificationModel])],
   controllers: [SpecificationsController],
   providers: [SpecificationsService, SpecificationsRepository, TransactionRunner],
 })

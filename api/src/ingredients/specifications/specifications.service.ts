@@ -1,33 +1,37 @@
 import { createHash } from 'node:crypto';
 import { Injectable, StreamableFile } from '@nestjs/common';
-import { AppError } from '../common/app-error';
-import { TransactionRunner } from '../common/transaction';
-import { validationError } from '../common/zod.pipe';
-import { BooksService } from '../books/books.service';
+import { AppError } from '../../common/app-error';
+import { TransactionRunner } from '../../common/transaction';
+import { validationError } from '../../common/zod.pipe';
+import type { Head } from '../../common/revisioned.repository';
+import { KitchenService } from '../../kitchen/kitchen.service';
+import { UsersRepository } from '../../users/users.repository';
+import { IngredientsRepository } from '../ingredients.repository';
 import { ACCEPTED_SPECIFICATION_TYPES, specificationFieldsSchema, today } from './specification.dto';
 import type { SpecificationStatus, SpecificationView } from '@crumbproof/shared';
-import { describeType, detectType, type Upload } from './multipart-upload';
-import { SpecificationsRepository, type IngredientRef, type SpecificationRow } from './specifications.repository';
+import { describeType, detectType, type Upload } from '../../specifications/multipart-upload';
+import { SpecificationsRepository, type SpecificationRow } from './specifications.repository';
 
 /** Supplier specifications of ingredients: versioned uploads with a date to check them again. */
 @Injectable()
 export class SpecificationsService {
   constructor(
     private readonly repo: SpecificationsRepository,
-    private readonly books: BooksService,
+    private readonly ingredients: IngredientsRepository,
+    private readonly kitchen: KitchenService,
+    private readonly users: UsersRepository,
     private readonly tx: TransactionRunner,
   ) {}
 
-  private async siteId(): Promise<number> {
-    const site = await this.books.site();
-    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
-    return site.id;
-  }
-
-  private async ingredient(code: string): Promise<IngredientRef> {
-    const found = await this.repo.findIngredient(await this.siteId(), code);
+  private async ingredient(code: string): Promise<Head> {
+    const found = await this.ingredients.findHead((await this.kitchen.current()).id, code);
     if (!found) throw new AppError('not-found', `There is no ingredient '${code}'.`);
     return found;
+  }
+
+  /** Who uploaded each row, by user id. */
+  private async uploaders(): Promise<Map<number, string>> {
+    return new Map((await this.users.list()).map((u) => [u.id, u.name]));
   }
 
   /** Checks the whole upload before anything is written: fields, then the file's content. */
@@ -50,8 +54,9 @@ export class SpecificationsService {
       const message = `Only PDF files and images (PNG, JPEG, WebP) can be attached; this file is ${describeType(type)}.`;
       throw new AppError('validation', message, [{ path: 'file', message }]);
     }
-    const row = await this.tx.run((t) =>
-      this.repo.add(
+    const row = await this.tx.run(async (t) => {
+      await this.ingredients.lockHead(ingredient.id, t);
+      return this.repo.add(
         {
           ingredientId: ingredient.id,
           filename: filename || `specification.${ACCEPTED_SPECIFICATION_TYPES[type.mime]}`,
@@ -64,9 +69,9 @@ export class SpecificationsService {
           uploadedBy: userId,
         },
         t,
-      ),
-    );
-    return view(row, ingredient.code, true, today());
+      );
+    });
+    return view(row, ingredient.code, true, today(), await this.uploaders());
   }
 
   /** Every version, newest first. */
@@ -74,7 +79,8 @@ export class SpecificationsService {
     const ingredient = await this.ingredient(code);
     const rows = await this.repo.listFor([ingredient.id]);
     const now = today();
-    return rows.map((r, i) => view(r, ingredient.code, i === 0, now));
+    const uploaders = await this.uploaders();
+    return rows.map((r, i) => view(r, ingredient.code, i === 0, now, uploaders));
   }
 
   /** The stored bytes, served inline with the type found at upload. */
@@ -91,7 +97,7 @@ export class SpecificationsService {
 
   /** For every ingredient: its newest specification, and whether it is missing, overdue or current. */
   async status(): Promise<SpecificationStatus[]> {
-    const ingredients = await this.repo.listIngredients(await this.siteId());
+    const ingredients = await this.ingredients.listHeads((await this.kitchen.current()).id);
     const rows = await this.repo.listFor(ingredients.map((i) => i.id));
     const latest = new Map<number, SpecificationRow>();
     for (const r of rows) if (!latest.has(r.ingredientId)) latest.set(r.ingredientId, r);
@@ -108,7 +114,7 @@ export class SpecificationsService {
   }
 }
 
-function view(r: SpecificationRow, ingredient: string, current: boolean, now: string): SpecificationView {
+function view(r: SpecificationRow, ingredient: string, current: boolean, now: string, uploaders: Map<number, string>): SpecificationView {
   return {
     id: r.id,
     ingredient,
@@ -119,7 +125,7 @@ function view(r: SpecificationRow, ingredient: string, current: boolean, now: st
     sha256: r.sha256,
     reviewBy: r.reviewBy,
     note: r.note,
-    uploadedBy: r.uploadedBy,
+    uploadedBy: r.uploadedBy !== null && uploaders.has(r.uploadedBy) ? { id: r.uploadedBy, name: uploaders.get(r.uploadedBy)! } : null,
     uploadedAt: r.createdAt.toISOString(),
     current,
     reviewOverdue: r.reviewBy < now,

@@ -1,8 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
-import { IngredientModel } from '../ingredients/ingredient.model';
-import { UserModel } from '../users/user.model';
 import { SpecificationModel } from './specification.model';
 
 export interface NewSpecification {
@@ -27,14 +25,9 @@ export interface SpecificationRow {
   sha256: string;
   reviewBy: string;
   note: string;
-  uploadedBy: { id: number; name: string } | null;
+  /** The uploader's user id. */
+  uploadedBy: number | null;
   createdAt: Date;
-}
-
-export interface IngredientRef {
-  id: number;
-  code: string;
-  name: string;
 }
 
 /** Everything but the bytes. */
@@ -63,7 +56,7 @@ function toRow(m: SpecificationModel): SpecificationRow {
     sha256: m.sha256,
     reviewBy: String(m.reviewBy),
     note: m.note,
-    uploadedBy: m.uploader ? { id: m.uploader.id as number, name: m.uploader.name } : null,
+    uploadedBy: m.uploadedBy,
     createdAt: m.createdAt,
   };
 }
@@ -71,28 +64,10 @@ function toRow(m: SpecificationModel): SpecificationRow {
 /** The only place that reads and writes supplier specifications. */
 @Injectable()
 export class SpecificationsRepository {
-  constructor(
-    @InjectModel(SpecificationModel) private readonly specs: typeof SpecificationModel,
-    @InjectModel(IngredientModel) private readonly ingredients: typeof IngredientModel,
-  ) {}
+  constructor(@InjectModel(SpecificationModel) private readonly specs: typeof SpecificationModel) {}
 
-  async findIngredient(siteId: number, code: string): Promise<IngredientRef | null> {
-    const row = await this.ingredients.findOne({ where: { siteId, code, archived: false }, attributes: ['id', 'code', 'name'] });
-    return row ? { id: row.id, code: row.code, name: row.name } : null;
-  }
-
-  async listIngredients(siteId: number): Promise<IngredientRef[]> {
-    const rows = await this.ingredients.findAll({
-      where: { siteId, archived: false },
-      attributes: ['id', 'code', 'name'],
-      order: [['name', 'ASC']],
-    });
-    return rows.map((r) => ({ id: r.id, code: r.code, name: r.name }));
-  }
-
-  /** Adds the next version for the ingredient; the ingredient row is locked so versions never collide. */
+  /** Adds the next version for the ingredient; the caller holds the ingredient's row lock, so versions never collide. */
   async add(values: NewSpecification, t: Transaction): Promise<SpecificationRow> {
-    await this.ingredients.findByPk(values.ingredientId, { attributes: ['id'], transaction: t, lock: t.LOCK.UPDATE });
     const last =
       (await this.specs.max<number, SpecificationModel>('version', { where: { ingredientId: values.ingredientId }, transaction: t })) ?? 0;
     const created = await this.specs.create({ ...values, version: Number(last) + 1 }, { transaction: t });
@@ -100,11 +75,7 @@ export class SpecificationsRepository {
   }
 
   async findMetadata(id: number, t?: Transaction): Promise<SpecificationRow | null> {
-    const row = await this.specs.findByPk(id, {
-      attributes: METADATA,
-      include: [{ model: UserModel, attributes: ['id', 'name'] }],
-      transaction: t,
-    });
+    const row = await this.specs.findByPk(id, { attributes: METADATA, transaction: t });
     return row ? toRow(row) : null;
   }
 
@@ -114,7 +85,6 @@ export class SpecificationsRepository {
     const rows = await this.specs.findAll({
       where: { ingredientId: ingredientIds },
       attributes: METADATA,
-      include: [{ model: UserModel, attributes: ['id', 'name'] }],
       order: [
         ['ingredientId', 'ASC'],
         ['version', 'DESC'],

@@ -1,0 +1,53 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import type { Declaration, ProductDeclaration, Regime } from '@crumbproof/shared';
+import { UniqueConstraintError } from 'sequelize';
+import { parseJson } from '../common/json-column';
+import { DeclarationModel } from './declaration.model';
+
+/** A declaration as kept: what it declares and when it was computed. */
+export interface KeptDeclaration {
+  body: ProductDeclaration;
+  computedAt: Date;
+}
+
+export interface NewDeclaration {
+  /** The recipe's row id. */
+  recipeId: number;
+  recipeRevision: number;
+  regime: Regime;
+  inputHash: string;
+  body: ProductDeclaration;
+}
+
+/** The only place that reads and writes the declarations table. */
+@Injectable()
+export class DeclarationsRepository {
+  constructor(@InjectModel(DeclarationModel) private readonly declarations: typeof DeclarationModel) {}
+
+  async find(recipeId: number, regime: Regime, inputHash: string): Promise<KeptDeclaration | null> {
+    const row = await this.declarations.findOne({ where: { recipeId, regime, inputHash } });
+    return row ? { body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt } : null;
+  }
+
+  /** Keeps a declaration; when the same one was kept at the same moment elsewhere, that one is the one kept. */
+  async add(values: NewDeclaration): Promise<KeptDeclaration> {
+    try {
+      const row = await this.declarations.create({ ...values });
+      return { body: values.body, computedAt: row.createdAt };
+    } catch (e) {
+      if (!(e instanceof UniqueConstraintError)) throw e;
+      const kept = await this.find(values.recipeId, values.regime, values.inputHash);
+      if (!kept) throw e;
+      return kept;
+    }
+  }
+
+  /** The first declaration kept for each revision of a recipe under a regime. */
+  async firstOfEachRevision(recipeId: number, regime: Regime): Promise<Map<number, Declaration>> {
+    const rows = await this.declarations.findAll({ where: { recipeId, regime }, order: [['id', 'ASC']] });
+    const out = new Map<number, Declaration>();
+    for (const r of rows) if (!out.has(r.recipeRevision)) out.set(r.recipeRevision, parseJson(r.body) as Declaration);
+    return out;
+  }
+}

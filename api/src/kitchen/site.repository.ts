@@ -1,0 +1,59 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import type { Handling, MeasureSystem, Regime } from '@crumbproof/shared';
+import type { Transaction } from 'sequelize';
+import { parseJson } from '../common/json-column';
+import { SiteModel } from './site.model';
+
+/** A kitchen as stored: its settings and their version (raised by every change to them). */
+export interface SiteRow {
+  id: number;
+  name: string;
+  address: string;
+  regime: Regime;
+  measures: MeasureSystem | null;
+  handles: Handling[];
+  version: number;
+}
+
+export type SiteSettings = Pick<SiteRow, 'name' | 'address' | 'regime' | 'measures' | 'handles'>;
+
+function toRow(m: SiteModel): SiteRow {
+  return {
+    id: m.id as number,
+    name: m.name,
+    address: m.address,
+    regime: m.regime,
+    measures: m.measures,
+    handles: parseJson(m.handles),
+    version: m.version,
+  };
+}
+
+/** The only place that reads and writes the sites table. One site per installation for now: the first. */
+@Injectable()
+export class SiteRepository {
+  constructor(@InjectModel(SiteModel) private readonly sites: typeof SiteModel) {}
+
+  async first(t?: Transaction): Promise<SiteRow | null> {
+    const row = await this.sites.findOne({ order: [['id', 'ASC']], transaction: t });
+    return row ? toRow(row) : null;
+  }
+
+  /** Locks the kitchen's row until the transaction ends, so kitchen writes happen one at a time. */
+  async lock(t: Transaction): Promise<void> {
+    await this.sites.findOne({ order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
+  }
+
+  async create(settings: SiteSettings, t?: Transaction): Promise<SiteRow> {
+    return toRow(await this.sites.create({ ...settings }, { transaction: t }));
+  }
+
+  /** Changes the settings and raises the version, so every declaration computed from the old ones is recomputed. */
+  async update(id: number, changes: Partial<SiteSettings>, t?: Transaction): Promise<SiteRow> {
+    const row = await this.sites.findByPk(id, { transaction: t, lock: t ? t.LOCK.UPDATE : undefined });
+    if (!row) throw new Error(`There is no site ${id}.`);
+    await row.update({ ...changes, version: row.version + 1 }, { transaction: t });
+    return toRow(row);
+  }
+}
