@@ -5,33 +5,9 @@ import { AppError } from '../common/app-error';
 import { validationError } from '../common/zod.pipe';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
+import { closureOf } from '../rules/core/book-graph';
 import { RulesService } from '../rules/rules.service';
 import { DeclarationsRepository } from './declarations.repository';
-
-/**
- * Everything a product's declaration depends on: the site, every item it reaches, and the items
- * its sale details name for QUID (so a QUID that no longer matches a line is a warning, not a gap).
- */
-export function closureOf(book: Book, productId: string): Book {
-  const ing = new Map(book.ingredients.map((i) => [i.id, i]));
-  const rec = new Map(book.recipes.map((r) => [r.id, r]));
-  const seenI = new Set<string>();
-  const seenR = new Set<string>();
-  const visit = (id: string) => {
-    if (ing.has(id)) return void seenI.add(id);
-    if (!rec.has(id) || seenR.has(id)) return;
-    seenR.add(id);
-    const recipe = rec.get(id)!;
-    for (const line of recipe.lines) visit(line.use);
-    for (const named of recipe.sale?.quid ?? []) visit(named);
-  };
-  visit(productId);
-  return {
-    ...book,
-    ingredients: book.ingredients.filter((i) => seenI.has(i.id)),
-    recipes: book.recipes.filter((r) => seenR.has(r.id)),
-  };
-}
 
 /**
  * Declarations of products, kept per recipe revision and regime and reused until anything they

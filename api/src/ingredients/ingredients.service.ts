@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { ALLERGEN_SOURCES, type BookIngredient, type IngredientRevisionView, type IngredientView } from '@crumbproof/shared';
 import { z } from 'zod';
 import { AppError } from '../common/app-error';
-import { usedIn } from '../books/book-graph';
+import { usedIn } from '../rules/core/book-graph';
 import { BooksService } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { UsersRepository } from '../users/users.repository';

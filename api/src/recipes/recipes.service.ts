@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { diffDeclarations, type BookRecipe, type RecipeRevisionView, type RecipeView, type Regime } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
-import { usedIn } from '../books/book-graph';
+import { usedIn } from '../rules/core/book-graph';
 import { BooksService } from '../books/books.service';
 import { DeclarationsService } from '../declarations/declarations.service';
 import { KitchenService } from '../kitchen/kitchen.service';

@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { diffDeclarations, type Book, type BookRecipe, type SwapApplied, type SwapPreview, type SwapRequest } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
-import { usedIn } from '../books/book-graph';
+import { usedIn } from '../rules/core/book-graph';
 import { BooksService, bookRefused } from '../books/books.service';
 import { RulesService } from '../rules/rules.service';
 

@@ -1,0 +1,109 @@
+import type { Book, UsedIn } from '@crumbproof/shared';
+
+/** An ingredient or a recipe of the book, by its id. */
+export interface BookItemRef {
+  id: string;
+  kind: 'ingredient' | 'recipe';
+}
+
+/**
+ * Every item a product's declaration depends on, each once, in the order a walk down its lines
+ * first reaches it: the product itself, then each line's item (a sub-recipe's own items straight
+ * after it), then the items a recipe's sale details name for QUID (so a QUID that no longer
+ * matches a line is declared with a warning, not read as a gap). Ids the book does not hold are
+ * left out; a recipe met again (shared, or in a cycle) is not walked twice.
+ */
+export function closureItems(book: Book, productId: string): BookItemRef[] {
+  const ingredients = new Set(book.ingredients.map((i) => i.id));
+  const recipes = new Map(book.recipes.map((r) => [r.id, r]));
+  const seen = new Set<string>();
+  const out: BookItemRef[] = [];
+  const visit = (id: string) => {
+    if (seen.has(id)) return;
+    if (ingredients.has(id)) {
+      seen.add(id);
+      out.push({ id, kind: 'ingredient' });
+      return;
+    }
+    const recipe = recipes.get(id);
+    if (!recipe) return;
+    seen.add(id);
+    out.push({ id, kind: 'recipe' });
+    for (const line of recipe.lines) visit(line.use);
+    for (const named of recipe.sale?.quid ?? []) visit(named);
+  };
+  visit(productId);
+  return out;
+}
+
+/** The part of the book a product's declaration is computed from: the site, and the items of its closure in the book's order. */
+export function closureOf(book: Book, productId: string): Book {
+  const reached = new Set(closureItems(book, productId).map((i) => i.id));
+  return {
+    ...book,
+    ingredients: book.ingredients.filter((i) => reached.has(i.id)),
+    recipes: book.recipes.filter((r) => reached.has(r.id)),
+  };
+}
+
+/** The ids of every recipe that uses the item at any depth, through its lines. */
+export function recipesAbove(book: Book, itemId: string): Set<string> {
+  const usersOf = new Map<string, Set<string>>();
+  for (const r of book.recipes) {
+    for (const line of r.lines) {
+      const users = usersOf.get(line.use) ?? new Set<string>();
+      users.add(r.id);
+      usersOf.set(line.use, users);
+    }
+  }
+  const above = new Set<string>();
+  const todo = [itemId];
+  while (todo.length > 0) {
+    for (const user of usersOf.get(todo.pop()!) ?? []) {
+      if (above.has(user)) continue;
+      above.add(user);
+      todo.push(user);
+    }
+  }
+  return above;
+}
+
+/**
+ * Every recipe that uses an item at any depth, in the book's order, with each path of ids from
+ * the recipe down to the item. A path passes through a recipe at most once (so a cycle, which the
+ * book check refuses anyway, cannot make it endless); two lines of one recipe using the same item
+ * are one path, since a path names items, not lines.
+ */
+export function usedIn(book: Book, itemId: string): UsedIn[] {
+  const recipes = new Map(book.recipes.map((r) => [r.id, r]));
+  const above = recipesAbove(book, itemId);
+  // The paths below a recipe that lies on no cycle are the same from wherever it is reached, so
+  // they are worked out once: shared sub-recipes (diamonds) and deep chains stay linear.
+  const settled = new Map<string, string[][]>();
+  const pathsFrom = (recipeId: string, onPath: Set<string>): { paths: string[][]; cut: boolean } => {
+    const known = settled.get(recipeId);
+    if (known) return { paths: known, cut: false };
+    const paths: string[][] = [];
+    let cut = false;
+    for (const use of new Set(recipes.get(recipeId)!.lines.map((l) => l.use))) {
+      if (use === itemId) paths.push([recipeId, itemId]);
+      // Only into sub-recipes that lead to the item: every step taken ends in a path.
+      else if (!above.has(use)) continue;
+      else if (onPath.has(use)) cut = true;
+      else {
+        onPath.add(use);
+        const below = pathsFrom(use, onPath);
+        onPath.delete(use);
+        cut ||= below.cut;
+        for (const p of below.paths) paths.push([recipeId, ...p]);
+      }
+    }
+    // A walk cut short by a recipe already on the path depends on that path: not kept.
+    if (!cut) settled.set(recipeId, paths);
+    return { paths, cut };
+  };
+  return book.recipes
+    .filter((r) => above.has(r.id))
+    .map((r) => ({ id: r.id, name: r.name, forSale: Boolean(r.sale), paths: pathsFrom(r.id, new Set([r.id])).paths }))
+    .filter((u) => u.paths.length > 0);
+}
