@@ -3,6 +3,28 @@ import { book, ing, recipe } from './testing/book-builder';
 
 const ids = (refs: { id: string }[]) => refs.map((r) => r.id);
 
+/** layer-0 uses layer-1, … down to the last, which uses flour. */
+const chain = (depth: number) =>
+  book(
+    [ing('flour')],
+    Array.from({ length: depth }, (_, i) => recipe(`layer-${i}`, [[i === depth - 1 ? 'flour' : `layer-${i + 1}`, 10]])),
+  );
+
+/** level-0 uses `bottom`; each level above uses a left and a right recipe that both use the level below. */
+const stackedDiamonds = (levels: number, bottom: string) => {
+  const recipes = [recipe('level-0', [[bottom, 10]])];
+  for (let i = 1; i <= levels; i++) {
+    recipes.push(recipe(`left-${i}`, [[`level-${i - 1}`, 10]]), recipe(`right-${i}`, [[`level-${i - 1}`, 10]]));
+    recipes.push(
+      recipe(`level-${i}`, [
+        [`left-${i}`, 10],
+        [`right-${i}`, 10],
+      ]),
+    );
+  }
+  return recipes;
+};
+
 describe('closureItems and closureOf: what a product is declared from', () => {
   // A layer cake: sponge and jam inside, butter both in the sponge and greasing the tin.
   const bench = book(
@@ -146,9 +168,7 @@ describe('closureItems and closureOf: what a product is declared from', () => {
 
   it('walks a product 500 sub-recipes deep', () => {
     const depth = 500;
-    const chain = Array.from({ length: depth }, (_, i) => recipe(`layer-${i}`, [[i === depth - 1 ? 'flour' : `layer-${i + 1}`, 10]]));
-    const deep = book([ing('flour')], chain);
-    const reached = closureItems(deep, 'layer-0');
+    const reached = closureItems(chain(depth), 'layer-0');
     expect(reached).toHaveLength(depth + 1);
     expect(reached[depth]).toEqual({ id: 'flour', kind: 'ingredient' });
   });
@@ -265,16 +285,7 @@ describe('usedIn: every recipe above an item, with each path', () => {
 
   it('walks only towards the item: 40 stacked diamonds beside it do not make 2^40 paths to follow', () => {
     const levels = 40;
-    const recipes = [recipe('level-0', [['flour', 10]])];
-    for (let i = 1; i <= levels; i++) {
-      recipes.push(recipe(`left-${i}`, [[`level-${i - 1}`, 10]]), recipe(`right-${i}`, [[`level-${i - 1}`, 10]]));
-      recipes.push(
-        recipe(`level-${i}`, [
-          [`left-${i}`, 10],
-          [`right-${i}`, 10],
-        ]),
-      );
-    }
+    const recipes = stackedDiamonds(levels, 'flour');
     recipes.push(
       recipe('seasoned', [
         [`level-${levels}`, 100],
@@ -288,17 +299,7 @@ describe('usedIn: every recipe above an item, with each path', () => {
 
   it('counts every path through stacked diamonds: two ways through each of ten levels is 2^10 paths', () => {
     const levels = 10;
-    const recipes = [recipe('level-0', [['butter', 10]])];
-    for (let i = 1; i <= levels; i++) {
-      recipes.push(recipe(`left-${i}`, [[`level-${i - 1}`, 10]]), recipe(`right-${i}`, [[`level-${i - 1}`, 10]]));
-      recipes.push(
-        recipe(`level-${i}`, [
-          [`left-${i}`, 10],
-          [`right-${i}`, 10],
-        ]),
-      );
-    }
-    const top = usedIn(book([ing('butter')], recipes), 'butter').find((u) => u.id === `level-${levels}`)!;
+    const top = usedIn(book([ing('butter')], stackedDiamonds(levels, 'butter')), 'butter').find((u) => u.id === `level-${levels}`)!;
     expect(top.paths).toHaveLength(2 ** levels);
     expect(new Set(top.paths.map((p) => p.join(' > '))).size).toBe(2 ** levels);
     expect(top.paths.every((p) => p.length === 2 * levels + 2 && p.at(-1) === 'butter')).toBe(true);
@@ -340,8 +341,7 @@ describe('usedIn: every recipe above an item, with each path', () => {
 
   it('gives a path 500 sub-recipes long', () => {
     const depth = 500;
-    const chain = Array.from({ length: depth }, (_, i) => recipe(`layer-${i}`, [[i === depth - 1 ? 'flour' : `layer-${i + 1}`, 10]]));
-    const top = usedIn(book([ing('flour')], chain), 'flour').find((u) => u.id === 'layer-0')!;
+    const top = usedIn(chain(depth), 'flour').find((u) => u.id === 'layer-0')!;
     expect(top.paths).toHaveLength(1);
     expect(top.paths[0]).toHaveLength(depth + 1);
   });
