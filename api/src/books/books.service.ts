@@ -8,6 +8,7 @@ import { IngredientsRepository } from '../ingredients/ingredients.repository';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { SiteRepository, type SiteRow } from '../kitchen/site.repository';
 import { RecipesRepository } from '../recipes/recipes.repository';
+import { sameData } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
 
 export interface ImportSummary {
@@ -39,7 +40,6 @@ const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
   const { id: _id, ...body } = item;
   return body;
 };
-const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
 /**
  * The kitchen as one recipe book: export, import (all or nothing), and the checked write path
@@ -134,7 +134,7 @@ export class BooksService {
       if (!siteRow) {
         siteRow = await this.sites.create({ ...siteFields, address: meta.address ?? '' }, t);
         siteState = 'created';
-      } else if (!same(current?.site, book.site)) {
+      } else if (!sameData(current?.site, book.site)) {
         siteRow = await this.sites.update(siteRow.id, siteFields, t);
         siteState = 'updated';
       }
@@ -147,7 +147,7 @@ export class BooksService {
       const existingIng = new Map((current?.ingredients ?? []).map((i) => [i.id, i]));
       for (const ing of book.ingredients) {
         const before = existingIng.get(ing.id);
-        if (before && same(bodyOf(before), bodyOf(ing))) {
+        if (before && sameData(bodyOf(before), bodyOf(ing))) {
           summary.ingredients.unchanged++;
           continue;
         }
@@ -157,7 +157,7 @@ export class BooksService {
       const existingRec = new Map((current?.recipes ?? []).map((r) => [r.id, r]));
       for (const rec of book.recipes) {
         const before = existingRec.get(rec.id);
-        if (before && same(bodyOf(before), bodyOf(rec))) {
+        if (before && sameData(bodyOf(before), bodyOf(rec))) {
           summary.recipes.unchanged++;
           continue;
         }

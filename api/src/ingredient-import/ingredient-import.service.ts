@@ -3,6 +3,7 @@ import { bookIngredientSchema, type Book, type BookIngredient, type FieldError }
 import type { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { BooksService } from '../books/books.service';
+import { sameData } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
 import type { Upload } from '../specifications/multipart-upload';
 import {
@@ -120,7 +121,7 @@ export class IngredientImportService {
       const parsed = bookIngredientSchema.safeParse(candidate);
       if (!parsed.success) for (const finding of parsed.error.issues) problems.push(describeFinding(finding, candidate));
       const ingredient = parsed.success && problems.length === 0 ? parsed.data : null;
-      const action: ImportAction = !base ? 'create' : ingredient && same(base, ingredient) ? 'unchanged' : 'update';
+      const action: ImportAction = !base ? 'create' : ingredient && sameData(base, ingredient) ? 'unchanged' : 'update';
       return { row, ingredient, action, problems };
     });
     const ids = sheetRows.map(({ cells }) => cellText(cells[idColumn] ?? null));
@@ -203,20 +204,4 @@ function describeFinding(finding: z.core.$ZodIssue, candidate: Record<string, un
   }
   if (human && shown) return `${column}: ${shown} ${human}.`;
   return shown ? `${column}: ${shown}: ${finding.message}` : `${column}: ${finding.message}`;
-}
-
-/** Equal as data, whatever the order of keys. */
-function same(a: unknown, b: unknown): boolean {
-  const canon = (v: unknown): unknown =>
-    Array.isArray(v)
-      ? v.map(canon)
-      : v && typeof v === 'object'
-        ? Object.fromEntries(
-            Object.entries(v)
-              .filter(([, x]) => x !== undefined)
-              .sort(([x], [y]) => (x < y ? -1 : 1))
-              .map(([k, x]) => [k, canon(x)]),
-          )
-        : v;
-  return JSON.stringify(canon(a)) === JSON.stringify(canon(b));
 }
