@@ -84,7 +84,7 @@ describe('checkBook', () => {
     expect(problems[0].message).toContain("'rasins'");
   });
 
-  it('says which figure is missing for a line in each (the product voice in DESIGN.md)', () => {
+  it('says which figure is missing for a line in each, and what to do about it', () => {
     const b = book(
       [ing('sugar'), ing('butter'), ing('eggs', { gEach: 50 }), ing('lemon')],
       [

@@ -142,7 +142,7 @@ describe('added water (EU 1169/2011 Annex VII A.1)', () => {
       refs,
     );
 
-  it('check value 30: bread 900 g from flour 600, water 400, salt 12, yeast 12 → water 276 g (30.7 %) declared after flour', () => {
+  it('bread 900 g from flour 600, water 400, salt 12, yeast 12 → water 900 − 624 = 276 g (30.7 %) declared after flour', () => {
     const d = bread('EU');
     expect(names(d.ingredients)).toEqual(['Wheat flour', 'Water', 'Salt', 'Yeast']);
     const water = d.ingredients[1];
@@ -152,7 +152,7 @@ describe('added water (EU 1169/2011 Annex VII A.1)', () => {
     expect(d.ingredients[2].percent).toBeLessThan(2);
   });
 
-  it('check value 31: biscuit 900 g from flour 500, sugar 250, butter 200, water 50 → water need not be declared', () => {
+  it('biscuit 900 g from flour 500, sugar 250, butter 200, water 50 → 900 − 950 < 0, water need not be declared', () => {
     const d = declare(
       book(
         [ing('flour', { contains: ['wheat'] }), ing('sugar'), ing('butter', { contains: ['milk'] }), ing('water', { name: 'Water' })],
@@ -327,7 +327,7 @@ describe('added water in a sub-recipe (Regulation (EU) No 1169/2011 Annex VII Pa
     // Dough (unbaked): flour 600 g, water 400 g, salt 12 g, yeast 12 g (1024 g), baked as
     // "Bases" to 900 g; the pizza (bases 900 g + tomato 300 g) has no finished weight. The dough
     // loses the bases' loss (900 / 1024), not the pizza's (none): water 900 − 624 = 276 g,
-    // 30.7 % of the dough as baked, listed after the flour (check value 30's bread).
+    // 30.7 % of the dough as baked, listed after the flour (the bread above, one level down).
     const d = declare(
       book(
         [

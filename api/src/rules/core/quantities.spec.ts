@@ -1,7 +1,7 @@
 import { MEASURES_ML, toGrams } from './quantities';
 
 describe('toGrams', () => {
-  // NIST: US gallon = 231 in^3 = 3785.411784 mL; cup = 1/16 gallon (DOMAIN.md 9.1, computed).
+  // NIST definitions (from memory): US gallon = 231 in^3 × 16.387064 cm^3 = 3785.411784 mL; cup = 1/16 gallon.
   it('uses the exact US customary cup, tablespoon and teaspoon', () => {
     expect(MEASURES_ML['us-customary'].cup).toBeCloseTo(3785.411784 / 16, 9);
     expect(MEASURES_ML['us-customary'].tbsp).toBeCloseTo(3785.411784 / 256, 9);

@@ -6,7 +6,8 @@ import { book, ing, recipe } from './testing/book-builder';
 const refs = loadReferenceData();
 
 function sponge(quid: string[]) {
-  // Check values 28 and 29: flour, sugar, butter and egg 250 g each (1000 g), baked to 900 g.
+  // Flour, sugar, butter and egg 250 g each (1000 g), baked to 900 g; QUID after moisture loss
+  // (Regulation (EU) No 1169/2011 Annex VIII point 4(a)): 100 × 250 / 900 = 27.78 % each.
   return declare(
     book(
       [ing('flour', { contains: ['wheat'] }), ing('sugar'), ing('butter', { contains: ['milk'] }), ing('egg', { contains: ['egg'] })],
@@ -29,12 +30,12 @@ function sponge(quid: string[]) {
 }
 
 describe('QUID (EU 1169/2011 Annex VIII 4(a))', () => {
-  it('check value 28: butter only → 27.78 % of the finished product, shown as 28 %', () => {
+  it('butter only → 27.78 % of the finished product, shown as 28 % (whole per cent: common practice)', () => {
     const d = sponge(['butter']);
     expect(d.quid).toEqual([{ ingredient: 'butter', name: 'Butter', percent: expect.closeTo(27.778, 3), text: 'Butter 28%' }]);
   });
 
-  it('check value 29: all four → 111.1 % in total, so each is "prepared with 27.8 g of … per 100 g"', () => {
+  it('all four → 111.1 % in total, over 100 %, so each is "prepared with 27.8 g of … per 100 g" (Annex VIII 4(a))', () => {
     const d = sponge(['flour', 'sugar', 'butter', 'egg']);
     expect(d.quid.map((q) => q.text)).toEqual([
       'Prepared with 27.8 g of flour per 100 g',

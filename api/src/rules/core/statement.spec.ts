@@ -71,19 +71,20 @@ describe('the list in each regime’s form', () => {
     expect(d.contains.find((c) => c.allergen === 'fish')).toMatchObject({ species: ['cod'] });
   });
 
-  it('check value 37: coconut in a US product is listed by name but not in "Contains" (FDA Ed. 5)', () => {
+  it('coconut in a US product is listed by name but not in "Contains" (FDA Q&A on food allergens, Edition 5, Table 1)', () => {
     const d = listOf('US', [flour, coconut]);
     expect(d.ingredientsText).toBe('Ingredients: Wheat flour, Desiccated coconut. Contains: wheat.');
     expect(d.contains.map((c) => c.allergen)).toEqual(['wheat']);
   });
 
   it.each([
-    // Check value 38: pine nut: EU not Annex II; US major allergen; Canada food allergen; ANZ "pine nut".
+    // Pine nut: not in EU Annex II point 8; a US tree nut (FDA Edition 5 Table 1); a Canadian food allergen
+    // (FDR B.01.010.1(1)(a)); "pine nut" in ANZ (Food Standards Code Schedule 9).
     { regime: 'EU' as const, contains: [] as string[], text: 'Ingredients: Pine nuts.' },
     { regime: 'US' as const, contains: ['tree-nuts'], text: 'Ingredients: Pine nuts. Contains: pine nut.' },
     { regime: 'CA' as const, contains: ['tree-nuts'], text: 'Ingredients: Pine nuts. Contains: pine nut.' },
     { regime: 'ANZ' as const, contains: ['pine-nut'], text: 'Ingredients: Pine nuts. Contains: pine nut.' },
-  ])('check value 38: pine nut in $regime', ({ regime, contains, text }) => {
+  ])('pine nut in $regime', ({ regime, contains, text }) => {
     const d = listOf(regime, [pine]);
     expect(d.contains.map((c) => c.allergen)).toEqual(contains);
     expect(d.ingredientsText).toBe(text);
@@ -123,7 +124,8 @@ describe('the list in each regime’s form', () => {
   });
 
   it.each([
-    // Molluscs: EU Annex II point 14; Canada B.01.010.1(1)(i); not a US major food allergen (DOMAIN.md 1.4).
+    // Molluscs: EU Annex II point 14; Canada B.01.010.1(1)(i); not a US major food allergen (FD&C Act
+    // 201(qq) lists Crustacean shellfish only; from memory).
     { regime: 'EU' as const, contains: ['molluscs'] },
     { regime: 'CA' as const, contains: ['molluscs'] },
     { regime: 'ANZ' as const, contains: ['mollusc'] },
@@ -134,7 +136,7 @@ describe('the list in each regime’s form', () => {
   });
 
   it.each([
-    // Check value 39: goat's-milk cheese is milk in the EU (Notice 2017/C 428/01) and in the US (FDA Ed. 5).
+    // Goat's-milk cheese is milk in the EU (Notice 2017/C 428/01) and in the US (FDA Ed. 5).
     { regime: 'EU' as const, group: 'milk' },
     { regime: 'US' as const, group: 'milk' },
   ])("goat's cheese in $regime is $group", ({ regime, group }) => {

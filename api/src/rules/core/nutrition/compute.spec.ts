@@ -313,7 +313,8 @@ describe('computeNutrition: missing figures are incomplete, never zero', () => {
 });
 
 describe('computeNutrition: energy, salt and added sugars from ingredient figures', () => {
-  // DOMAIN.md check value 12 (Annex XIV): fat 20, carbohydrate 50, protein 6, fibre 2 → 1708 kJ / 408 kcal.
+  // Regulation (EU) No 1169/2011 Annex XIV: fat 20, carbohydrate 50, protein 6, fibre 2 g
+  // → 20×37 + 50×17 + 6×17 + 2×8 = 1708 kJ; 20×9 + 50×4 + 6×4 + 2×2 = 408 kcal.
   it('recomputes energy from the nutrients of a single ingredient', () => {
     const b = book(
       [ing('mix', { fat: 20, saturates: 1, carbohydrate: 50, sugars: 1, fibre: 2, protein: 6, salt: 0, energyKj: 1 })],
@@ -326,7 +327,7 @@ describe('computeNutrition: energy, salt and added sugars from ingredient figure
     expect(d.label.eu?.rows[1].per100g.text).toBe('408 kcal');
   });
 
-  // DOMAIN.md check value 15 (Annex I pt 11): sodium 0.4 g/100 g → salt 1.0 g.
+  // Regulation (EU) No 1169/2011 Annex I point 11 (salt = sodium × 2.5): sodium 0.4 g/100 g → salt 1.0 g.
   it('derives salt from sodium when only sodium is given', () => {
     const b = book(
       [ing('brine-mix', { fat: 0, saturates: 0, carbohydrate: 0, sugars: 0, fibre: 0, protein: 0, sodium: 0.4 })],
@@ -364,7 +365,7 @@ describe('computeNutrition: energy, salt and added sugars from ingredient figure
     expect(d.per100g.sugars).toBeCloseTo(80, 9);
   });
 
-  it('weighs volume lines with gPerMl (1 US cup = 236.5882365 mL, DOMAIN.md 9.1)', () => {
+  it('weighs volume lines with gPerMl (1 US cup = 231 in³ × 16.387064 cm³ / 16 = 236.5882365 mL, NIST, from memory)', () => {
     const milk = { fat: 4, saturates: 2.5, carbohydrate: 5, sugars: 5, fibre: 0, protein: 3.3, salt: 0.1 };
     const b = book([ing('milk', milk, { gPerMl: 1.03 })], [{ id: 'r', name: 'R', lines: [{ use: 'milk', qty: 1, unit: 'cup' }] }]);
     const d = computeNutrition(b, 'r', US);

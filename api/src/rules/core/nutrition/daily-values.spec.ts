@@ -1,21 +1,24 @@
-import { percentDv, US_DAILY_VALUES } from './daily-values';
+import { percentDv } from './daily-values';
+import { percentDvText } from './rounding-us';
 
 /*
- * US daily values, 2016 final rule, 21 CFR 101.9(c)(8)(iv) and (c)(9): FROM MEMORY (not in
- * DOMAIN.md; check against the eCFR).
+ * US daily values, 2016 final rule, 21 CFR 101.9(c)(8)(iv) and (c)(9): FROM MEMORY (to be checked
+ * against the eCFR).
  */
 describe('US daily values (21 CFR 101.9(c)(8)(iv), (c)(9); from memory)', () => {
-  it('has the 2016 reference amounts', () => {
-    expect(US_DAILY_VALUES).toEqual({
-      totalFat: 78,
-      saturatedFat: 20,
-      cholesterol: 300,
-      sodium: 2300,
-      totalCarbohydrate: 275,
-      dietaryFiber: 28,
-      addedSugars: 50,
-      protein: 50,
-    });
+  it.each([
+    // The FDA's sample Nutrition Facts label of the 2016 final rule (from memory): total fat 8 g 10 %,
+    // saturated fat 1 g 5 %, cholesterol 0 mg 0 %, sodium 160 mg 7 %, total carbohydrate 37 g 13 %,
+    // dietary fiber 4 g 14 %, added sugars 10 g 20 %; %DV to the nearest 1 % (Appendix H).
+    { key: 'totalFat' as const, amount: 8, text: '10%' },
+    { key: 'saturatedFat' as const, amount: 1, text: '5%' },
+    { key: 'cholesterol' as const, amount: 0, text: '0%' },
+    { key: 'sodium' as const, amount: 160, text: '7%' },
+    { key: 'totalCarbohydrate' as const, amount: 37, text: '13%' },
+    { key: 'dietaryFiber' as const, amount: 4, text: '14%' },
+    { key: 'addedSugars' as const, amount: 10, text: '20%' },
+  ])('$key $amount prints $text as on the FDA sample label', ({ key, amount, text }) => {
+    expect(percentDvText(percentDv(key, amount))).toBe(text);
   });
 
   it.each([

@@ -1,6 +1,6 @@
 /**
  * US daily values for adults and children 4 years and over, 2016 final rule:
- * 21 CFR 101.9(c)(8)(iv) and (c)(9) (from memory, not in DOMAIN.md: check against eCFR).
+ * 21 CFR 101.9(c)(8)(iv) and (c)(9) (from memory; to be checked against the eCFR).
  * Trans fat and total sugars have no daily value.
  */
 export const US_DAILY_VALUES = {

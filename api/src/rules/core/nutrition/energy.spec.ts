@@ -1,4 +1,4 @@
-import { EnergyInputs, euEnergy, EU_ENERGY_FACTORS, SALT_PER_SODIUM, usCalories } from './energy';
+import { EnergyInputs, euEnergy, usCalories } from './energy';
 
 const none: EnergyInputs = {
   fat: 0,
@@ -13,21 +13,20 @@ const none: EnergyInputs = {
 };
 
 describe('EU energy, Reg (EU) 1169/2011 Annex XIV conversion factors', () => {
-  it('uses the Annex XIV factors (DOMAIN.md 4.1)', () => {
-    expect(EU_ENERGY_FACTORS).toEqual({
-      carbohydrateExceptPolyols: { kj: 17, kcal: 4 },
-      polyolsExceptErythritol: { kj: 10, kcal: 2.4 },
-      erythritol: { kj: 0, kcal: 0 },
-      protein: { kj: 17, kcal: 4 },
-      fatExceptSalatrims: { kj: 37, kcal: 9 },
-      salatrims: { kj: 25, kcal: 6 },
-      alcohol: { kj: 29, kcal: 7 },
-      organicAcids: { kj: 13, kcal: 3 },
-      fibre: { kj: 8, kcal: 2 },
-    });
+  it.each([
+    // Regulation (EU) No 1169/2011 Annex XIV: carbohydrate (except polyols) and protein 17 kJ / 4 kcal
+    // per g, fat 37 kJ / 9 kcal, fibre 8 kJ / 2 kcal.
+    { what: 'carbohydrate 10 g', n: { carbohydrate: 10 }, kj: 170, kcal: 40 },
+    { what: 'protein 10 g', n: { protein: 10 }, kj: 170, kcal: 40 },
+    { what: 'fat 10 g', n: { fat: 10 }, kj: 370, kcal: 90 },
+    { what: 'fibre 10 g', n: { fibre: 10 }, kj: 80, kcal: 20 },
+  ])('$what alone → $kj kJ / $kcal kcal (Annex XIV)', ({ n, kj, kcal }) => {
+    const e = euEnergy({ ...none, ...n });
+    expect(e.kj).toBeCloseTo(kj, 9);
+    expect(e.kcal).toBeCloseTo(kcal, 9);
   });
 
-  // DOMAIN.md check value 12 (Annex XIV + computed): 20×37 + 50×17 + 6×17 + 2×8 = 1708 kJ;
+  // Annex XIV, worked by hand: 20×37 + 50×17 + 6×17 + 2×8 = 1708 kJ;
   // 20×9 + 50×4 + 6×4 + 2×2 = 408 kcal.
   it('fat 20, carbohydrate 50, protein 6, fibre 2 g → 1708 kJ / 408 kcal', () => {
     const e = euEnergy({ ...none, fat: 20, carbohydrate: 50, protein: 6, fibre: 2 });
@@ -35,7 +34,8 @@ describe('EU energy, Reg (EU) 1169/2011 Annex XIV conversion factors', () => {
     expect(e.kcal).toBeCloseTo(408, 9);
   });
 
-  // DOMAIN.md 4.1 and check value 18: fat 100 g → 3700 kJ / 900 kcal, while 3700 ÷ 4.184 = 884.3.
+  // Annex XIV gives kJ and kcal their own factors (37 kJ, 9 kcal per g of fat): fat 100 g → 3700 kJ /
+  // 900 kcal, while 3700 ÷ 4.184 = 884.3.
   it('computes kcal from its own factors, not kJ ÷ 4.184', () => {
     const e = euEnergy({ ...none, fat: 100 });
     expect(e.kj).toBeCloseTo(3700, 9);
@@ -44,7 +44,7 @@ describe('EU energy, Reg (EU) 1169/2011 Annex XIV conversion factors', () => {
   });
 
   it.each([
-    // DOMAIN.md check value 13 (Annex XIV: polyols 10 kJ / 2.4 kcal, erythritol 0; carbohydrate includes polyols):
+    // Annex XIV: polyols 10 kJ / 2.4 kcal, erythritol 0; carbohydrate includes polyols (Annex I point 7):
     // 20×17 + 10×10 = 440 kJ; 20×4 + 10×2.4 = 104 kcal.
     { what: 'carbohydrate 30 g of which polyols 10 g', n: { carbohydrate: 30, polyols: 10 }, kj: 440, kcal: 104 },
     // 25×17 + 5×0 = 425 kJ; 25×4 = 100 kcal (erythritol is a polyol: not counted twice).
@@ -61,15 +61,13 @@ describe('EU energy, Reg (EU) 1169/2011 Annex XIV conversion factors', () => {
       kj: 420,
       kcal: 99.2,
     },
-    // DOMAIN.md check value 14: ethanol 10 g → 290 kJ / 70 kcal; organic acids 5 g → 65 kJ / 15 kcal.
+    // Annex XIV: ethanol 29 kJ / 7 kcal per g → 10 g = 290 kJ / 70 kcal; organic acids 13 kJ / 3 kcal → 5 g = 65 kJ / 15 kcal.
     { what: 'alcohol 10 g', n: { alcohol: 10 }, kj: 290, kcal: 70 },
     { what: 'organic acids 5 g', n: { organicAcids: 5 }, kj: 65, kcal: 15 },
-    // Check value 14: salatrim 10 g → 250 kJ / 60 kcal (salatrims are lipids: part of the fat figure).
+    // Annex XIV: salatrims 25 kJ / 6 kcal per g → 10 g = 250 kJ / 60 kcal (salatrims are lipids: part of the fat figure).
     { what: 'fat 10 g, all salatrims', n: { fat: 10, salatrims: 10 }, kj: 250, kcal: 60 },
     // 10×37 + 10×25 = 620 kJ; 10×9 + 10×6 = 150 kcal.
     { what: 'fat 20 g of which salatrims 10 g', n: { fat: 20, salatrims: 10 }, kj: 620, kcal: 150 },
-    // Fibre alone: 8 kJ / 2 kcal per g.
-    { what: 'fibre 5 g', n: { fibre: 5 }, kj: 40, kcal: 10 },
   ])('$what → $kj kJ / $kcal kcal (Annex XIV)', ({ n, kj, kcal }) => {
     const e = euEnergy({ ...none, ...n });
     expect(e.kj).toBeCloseTo(kj, 9);
@@ -82,14 +80,6 @@ describe('EU energy, Reg (EU) 1169/2011 Annex XIV conversion factors', () => {
     { what: 'salatrims above fat', n: { fat: 5, salatrims: 10 } },
   ])('refuses contradictory figures: $what', ({ n }) => {
     expect(() => euEnergy({ ...none, ...n })).toThrow(/more than/);
-  });
-});
-
-describe('salt from sodium, Reg (EU) 1169/2011 Annex I point 11', () => {
-  // DOMAIN.md check value 15: sodium 0.4 g → salt 1.0 g.
-  it('salt = sodium × 2.5', () => {
-    expect(SALT_PER_SODIUM).toBe(2.5);
-    expect(0.4 * SALT_PER_SODIUM).toBeCloseTo(1.0, 12);
   });
 });
 

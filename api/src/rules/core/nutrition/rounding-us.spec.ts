@@ -2,12 +2,12 @@ import { percentDvText, usText } from './rounding-us';
 
 /*
  * 21 CFR 101.9(c)(1)–(7) and FDA "Guidance for Industry: A Food Labeling Guide", Appendix H,
- * "Rounding the Values According to FDA Rounding Rules" (DOMAIN.md 3.3, read; paragraph
- * numbers from memory). Exact ties (x.5 of a step) are kept out of these tables.
+ * "Rounding the Values According to FDA Rounding Rules" (paragraph numbers of 101.9(c) from
+ * memory). Exact ties (x.5 of a step) are kept out of these tables.
  */
 describe('US label rounding per serving (21 CFR 101.9(c), FDA Labeling Guide Appendix H)', () => {
   it.each([
-    // DOMAIN.md check value 21.
+    // 21 CFR 101.9(c)(1) and Appendix H: calories 4 → 0; 47 → 45; 48 → 50; 114 → 110; 116 → 120.
     { v: 4, text: '0' },
     { v: 47, text: '45' },
     { v: 48, text: '50' },
@@ -25,7 +25,7 @@ describe('US label rounding per serving (21 CFR 101.9(c), FDA Labeling Guide App
   });
 
   it.each([
-    // DOMAIN.md check value 22.
+    // 21 CFR 101.9(c)(2) and Appendix H: fat 0.4 g → 0 g; 4.7 → 4.5 g; 4.8 → 5 g; 5.4 → 5 g.
     { v: 0.4, text: '0 g' },
     { v: 4.7, text: '4.5 g' },
     { v: 4.8, text: '5 g' },
@@ -43,7 +43,7 @@ describe('US label rounding per serving (21 CFR 101.9(c), FDA Labeling Guide App
   });
 
   it.each([
-    // DOMAIN.md check value 24 (cholesterol): 1 → 0; 3 → less than 5 mg; 12 → 10 mg.
+    // 21 CFR 101.9(c)(3) and Appendix H (cholesterol): 1 → 0; 3 → less than 5 mg; 12 → 10 mg.
     { v: 1, text: '0 mg' },
     { v: 3, text: 'less than 5 mg' },
     { v: 12, text: '10 mg' },
@@ -58,7 +58,7 @@ describe('US label rounding per serving (21 CFR 101.9(c), FDA Labeling Guide App
   });
 
   it.each([
-    // DOMAIN.md check value 23.
+    // 21 CFR 101.9(c)(4) and Appendix H: sodium 3 mg → 0; 137 → 135; 140 → 140; 142 → 140; 146 → 150.
     { v: 3, text: '0 mg' },
     { v: 137, text: '135 mg' },
     { v: 140, text: '140 mg' },
@@ -74,7 +74,7 @@ describe('US label rounding per serving (21 CFR 101.9(c), FDA Labeling Guide App
   });
 
   it.each([
-    // DOMAIN.md check value 24 (carbohydrate): 0.3 → 0 g; 0.7 → less than 1 g; 12.4 → 12 g.
+    // 21 CFR 101.9(c)(6) and Appendix H (carbohydrate): 0.3 → 0 g; 0.7 → less than 1 g; 12.4 → 12 g.
     { v: 0.3, text: '0 g' },
     { v: 0.7, text: 'less than 1 g' },
     { v: 12.4, text: '12 g' },
@@ -89,7 +89,7 @@ describe('US label rounding per serving (21 CFR 101.9(c), FDA Labeling Guide App
   });
 
   it.each([
-    // DOMAIN.md check value 24 (protein 0.7 g → "less than 1 g"; Crumbproof prints that, not "1 g").
+    // 21 CFR 101.9(c)(7) and Appendix H: protein 0.7 g → "less than 1 g" (or "1 g"; Crumbproof prints the first).
     { v: 0.7, text: 'less than 1 g' },
     { v: 0.49, text: '0 g' },
     { v: 0.5, text: 'less than 1 g' },
