@@ -1,5 +1,6 @@
 import { CLAIMS, type Claim, type ClaimStatus } from './allergens';
 import type { ClaimReason, Declaration, DeclaredIngredient } from './declaration';
+import { round } from './round';
 
 /**
  * What changed between two declarations of a product: the swap check and the revision history
@@ -74,8 +75,8 @@ export function diffDeclarations(before: Declaration, after: Declaration): Decla
   for (const id of ids) {
     const b = sb.get(id);
     const a = sa.get(id);
-    const bp = b ? round2(b.percent) : null;
-    const ap = a ? round2(a.percent) : null;
+    const bp = b ? round(b.percent, 2) : null;
+    const ap = a ? round(a.percent, 2) : null;
     if (bp !== ap) shares.push({ id, name: (a ?? b)!.name, before: bp, after: ap });
   }
   const eb = new Set(before.errors.map((e) => e.message));
@@ -100,5 +101,3 @@ export function diffDeclarations(before: Declaration, after: Declaration): Decla
     diff.finishedWeightG.before !== diff.finishedWeightG.after;
   return diff;
 }
-
-const round2 = (n: number) => Math.round(n * 100) / 100;

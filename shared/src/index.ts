@@ -7,5 +7,7 @@ export * from './nutrition';
 export * from './declaration';
 export * from './declaration-diff';
 export * from './product-declaration';
+export * from './round';
+export * from './source-entry';
 export * from './views';
 export * from './kitchen';

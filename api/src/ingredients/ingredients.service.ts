@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { ALLERGEN_SOURCES, type BookIngredient, type IngredientRevisionView, type IngredientView } from '@crumbproof/shared';
+import { ALLERGEN_SOURCES, sourceOf, type BookIngredient, type IngredientRevisionView, type IngredientView } from '@crumbproof/shared';
 import { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../rules/core/book-graph';
@@ -38,8 +38,7 @@ export class IngredientsService {
       items = items.filter((i) => [i.name, i.id, i.supplier ?? '', i.supplierCode ?? ''].some((f) => f.toLowerCase().includes(q)));
     }
     if (query.source) {
-      const has = (list: IngredientView['mayContain'] | undefined) =>
-        (list ?? []).some((c) => (typeof c === 'string' ? c : c.source) === query.source);
+      const has = (list: IngredientView['mayContain'] | undefined) => (list ?? []).some((c) => sourceOf(c) === query.source);
       items = items.filter((i) => has(i.contains));
     }
     if (query.sort === 'updated') items.sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));

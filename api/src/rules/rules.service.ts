@@ -3,6 +3,7 @@ import { Injectable } from '@nestjs/common';
 import {
   ALLERGEN_SOURCES,
   SOURCE_LABELS,
+  sourceOf,
   type AllergenSource,
   type Book,
   type BookProblem,
@@ -40,7 +41,7 @@ export class RulesService {
   /** The terms the engine reads in a supplier's composition text, and where they disagree with the supplier's list. */
   scan(text: string, contains?: SourceEntry[]) {
     const scan = scanComposition(text, this.refs.lexicon);
-    const listed = new Set<AllergenSource>((contains ?? []).map((c) => (typeof c === 'string' ? c : c.source)));
+    const listed = new Set<AllergenSource>((contains ?? []).map(sourceOf));
     const discrepancies =
       contains === undefined
         ? []

@@ -41,7 +41,4 @@ export function compare(value: number, comparison: Comparison, limit: number): b
 }
 
 /** Rounds to `digits` decimals, half away from zero, avoiding binary artefacts (1.005 → 1.01). For printing. */
-export function round(value: number, digits: number): number {
-  const f = 10 ** digits;
-  return (Math.sign(value) * Math.round(Math.abs(value) * f + 1e-9)) / f;
-}
+export { round } from '@crumbproof/shared';
