@@ -5,14 +5,16 @@ import { Logger, type LogLevel } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { NestFactory } from '@nestjs/core';
 import { FastifyAdapter, type NestFastifyApplication } from '@nestjs/platform-fastify';
-import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import { DocumentBuilder, SwaggerModule, type OpenAPIObject } from '@nestjs/swagger';
 import fastifyCookie from '@fastify/cookie';
 import fastifyMultipart from '@fastify/multipart';
 import fastifyStatic from '@fastify/static';
 import { AppModule } from './app.module';
+import { refuseCrossSiteRequests } from './auth/cross-site';
+import { registerSecurityHeaders } from './auth/security-headers';
 import { ApiExceptionFilter } from './common/exception.filter';
 import { MAX_UPLOAD_BYTES } from './common/limits';
-import type { AppConfig } from './config/config';
+import { sessionCookieSecure, type AppConfig } from './config/config';
 
 const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
   silent: false,
@@ -22,6 +24,17 @@ const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
   debug: ['error', 'fatal', 'warn', 'log', 'debug', 'verbose'],
 };
 
+export interface RouteRecord {
+  method: string;
+  url: string;
+}
+const ROUTES = new WeakMap<NestFastifyApplication, RouteRecord[]>();
+
+/** Every route the app registered (HEAD routes that mirror a GET left out), as Fastify saw them. */
+export function registeredRoutes(app: NestFastifyApplication): readonly RouteRecord[] {
+  return ROUTES.get(app) ?? [];
+}
+
 /** Builds the API (and, when a web build is given, serves the web app beside it). */
 export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } = {}): Promise<NestFastifyApplication> {
   const adapter = new FastifyAdapter({ bodyLimit: 2 * 1024 * 1024, trustProxy: false });
@@ -29,10 +42,17 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
     abortOnError: false,
     logger: LOG_LEVELS[options.logLevel ?? (process.env.LOG_LEVEL as AppConfig['LOG_LEVEL']) ?? 'info'],
   });
+  const fastify = app.getHttpAdapter().getInstance();
+  const routes: RouteRecord[] = [];
+  ROUTES.set(app, routes);
+  fastify.addHook('onRoute', (route) => {
+    for (const method of [route.method].flat()) if (method !== 'HEAD') routes.push({ method, url: route.url });
+  });
   const config = app.get<ConfigService<AppConfig, true>>(ConfigService);
   app.setGlobalPrefix('api');
   await app.register(fastifyCookie);
   await app.register(fastifyMultipart, { limits: { fileSize: MAX_UPLOAD_BYTES, files: 1 } });
+  await registerSecurityHeaders(fastify, { https: sessionCookieSecure(config) });
 
   const doc = SwaggerModule.createDocument(
     app,
@@ -46,12 +66,25 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
       .build(),
   );
   SwaggerModule.setup('api/docs', app, doc, { jsonDocumentUrl: 'api/docs-json', useGlobalPrefix: false });
+  const publicUrl = config.get('PUBLIC_URL', { infer: true });
+  refuseCrossSiteRequests(fastify, { uploadRoutes: uploadRoutesOf(doc), publicOrigin: publicUrl ? new URL(publicUrl).origin : undefined });
 
   const webDist = config.get('WEB_DIST', { infer: true });
   if (webDist) serveWeb(app, resolve(webDist));
   await app.init();
-  await app.getHttpAdapter().getInstance().ready();
+  await fastify.ready();
   return app;
+}
+
+/** The routes the OpenAPI document says take multipart/form-data (see ApiUpload), as "POST /api/x/:code". */
+export function uploadRoutesOf(doc: OpenAPIObject): Set<string> {
+  const found = new Set<string>();
+  for (const [path, item] of Object.entries(doc.paths)) {
+    for (const [method, op] of Object.entries(item as Record<string, { requestBody?: { content?: Record<string, unknown> } }>)) {
+      if (op?.requestBody?.content?.['multipart/form-data']) found.add(`${method.toUpperCase()} ${path.replace(/\{([^}]+)\}/g, ':$1')}`);
+    }
+  }
+  return found;
 }
 
 /** Serves the built web app; any other non-API GET falls back to index.html for the client router. */
@@ -61,7 +94,9 @@ function serveWeb(app: NestFastifyApplication, dir: string) {
     new Logger('Web').warn(`No web build at ${dir}: run npm run build.`);
     return;
   }
-  const fastify = app.getHttpAdapter().getInstance();
-  void fastify.register(fastifyStatic, { root: dir, prefix: '/', wildcard: false, index: ['index.html'] });
+  void app
+    .getHttpAdapter()
+    .getInstance()
+    .register(fastifyStatic, { root: dir, prefix: '/', wildcard: false, index: ['index.html'] });
   ApiExceptionFilter.webFallbackHtml = readFileSync(index, 'utf8');
 }

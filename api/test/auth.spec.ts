@@ -52,13 +52,12 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
     expect(res.json().message).toMatch(/valid JSON/);
   });
 
-  it('throttles repeated sign-in attempts for one email, without locking out colleagues', async () => {
+  it('makes one email wait after repeated wrong passwords, without locking out colleagues', async () => {
     const statuses: number[] = [];
-    for (let i = 0; i < 11; i++) {
+    for (let i = 0; i < 6; i++) {
       statuses.push((await post('/api/auth/sign-in', { email: 'guesser@example.com', password: `guess-${i}` })).statusCode);
     }
-    expect(statuses.slice(0, 10).every((s) => s === 401)).toBe(true);
-    expect(statuses[10]).toBe(429);
+    expect(statuses).toEqual([401, 401, 401, 401, 401, 429]);
     const blocked = await post('/api/auth/sign-in', { email: 'Guesser@example.com', password: 'crumbproof-demo' });
     expect(blocked.json()).toMatchObject({ code: 'too-many-requests' });
     const colleague = await post('/api/auth/sign-in', { email: 'chef@example.com', password: 'crumbproof-demo' });
@@ -78,18 +77,19 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
 
   it('renews a session past half its life on use, and leaves a fresh one alone', async () => {
     const jwt = t.app.get(JwtService);
-    const { id } = (await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: await t.signIn('chef@example.com') } })).json();
+    const signedIn = await t.signIn('chef@example.com');
+    const { sub: id, sid } = jwt.decode<{ sub: number; sid: string }>(signedIn.slice('cp_session='.length));
     const now = Math.floor(Date.now() / 1000);
-    const old = await jwt.signAsync({ sub: id, iat: now - 20 * 60 });
+    const old = await jwt.signAsync({ sub: id, sid, iat: now - 20 * 60 });
     const renewed = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: `cp_session=${old}` } });
     expect(renewed.statusCode).toBe(200);
     const cookie = renewed.cookies.find((c) => c.name === 'cp_session')!;
     expect(cookie.value).not.toBe(old);
-    expect((jwt.decode(cookie.value) as { iat: number }).iat).toBeGreaterThanOrEqual(now);
+    expect(jwt.decode<{ iat: number }>(cookie.value).iat).toBeGreaterThanOrEqual(now);
     const fresh = await t.app.inject({
       method: 'GET',
       url: '/api/me',
-      headers: { cookie: `cp_session=${await jwt.signAsync({ sub: id })}` },
+      headers: { cookie: `cp_session=${await jwt.signAsync({ sub: id, sid })}` },
     });
     expect(fresh.cookies.find((c) => c.name === 'cp_session')).toBeUndefined();
     expect(fresh.json()).toEqual({ id, email: 'chef@example.com', name: 'Tobiah Quill', role: 'pastry-chef' });

@@ -55,13 +55,15 @@ describe('users (manager)', () => {
     expect(res.json().message).toBe('A user with that email already exists.');
   });
 
-  it('changes a role, and the change applies to an existing session at once', async () => {
+  it('changes a role: the old session ends, and signing in again brings the new role', async () => {
     const counter = await t.signIn('counter@example.com');
-    const list = (await call('GET', '/api/users')).json() as { id: number; email: string }[];
+    const list = (await call('GET', '/api/users')).json<{ id: number; email: string }[]>();
     const id = list.find((u) => u.email === 'counter@example.com')!.id;
     expect((await call('GET', '/api/ingredients', undefined, counter)).statusCode).toBe(403);
     expect((await call('PATCH', `/api/users/${id}`, { role: 'pastry-chef' })).statusCode).toBe(200);
-    expect((await call('GET', '/api/ingredients', undefined, counter)).statusCode).toBe(200);
+    expect((await call('GET', '/api/ingredients', undefined, counter)).statusCode).toBe(401);
+    const again = await t.signIn('counter@example.com');
+    expect((await call('GET', '/api/ingredients', undefined, again)).statusCode).toBe(200);
     await call('PATCH', `/api/users/${id}`, { role: 'front-of-house' });
   });
 
@@ -86,7 +88,7 @@ describe('users (manager)', () => {
   });
 
   it('keeps at least one active manager', async () => {
-    const list = (await call('GET', '/api/users')).json() as { id: number; email: string }[];
+    const list = (await call('GET', '/api/users')).json<{ id: number; email: string }[]>();
     const id = list.find((u) => u.email === 'manager@example.com')!.id;
     const res = await call('PATCH', `/api/users/${id}`, { role: 'pastry-chef' });
     expect(res.statusCode).toBe(409);

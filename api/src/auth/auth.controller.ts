@@ -1,47 +1,57 @@
-import { Body, Controller, Get, HttpCode, Post, Res, UseGuards } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
+import { Body, Controller, Get, HttpCode, Post, Req, Res } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import type { FastifyReply } from 'fastify';
-import { signInSchema, ROLES, type Me, type SignInRequest } from '@crumbproof/shared';
-import type { AppConfig } from '../config/config';
+import type { FastifyReply, FastifyRequest } from 'fastify';
+import { firstManagerSchema, signInSchema, ROLES, type FirstManagerRequest, type Me, type SignInRequest } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Public, Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { AuthService } from './auth.service';
-import { clearSessionCookie, setSessionCookie } from './session-cookie';
-import { SignInThrottlerGuard } from './sign-in.throttler';
+import { FirstManagerService } from './first-manager.service';
+import { readSessionCookie } from './session-cookie';
+import { SessionTokens } from './session-tokens';
 
 @ApiTags('auth')
 @Controller()
 export class AuthController {
   constructor(
     private readonly auth: AuthService,
-    private readonly config: ConfigService<AppConfig, true>,
+    private readonly tokens: SessionTokens,
+    private readonly firstManager: FirstManagerService,
   ) {}
 
   @Post('auth/sign-in')
   @Public()
-  @UseGuards(SignInThrottlerGuard)
   @HttpCode(200)
-  @ApiOperation({ summary: 'Sign in; the session is set as an httpOnly cookie' })
+  @ApiOperation({
+    summary:
+      'Sign in; the session is set as an httpOnly cookie. Wrong passwords in a row make an email wait, then lock it; the kitchen and each address have a limit too',
+  })
   @ApiZodBody(signInSchema)
-  async signIn(@Body(new ZodPipe(signInSchema)) body: SignInRequest, @Res({ passthrough: true }) reply: FastifyReply): Promise<Me> {
-    const { me, token } = await this.auth.signIn(body);
-    setSessionCookie(
-      reply,
-      token,
-      this.config.get('SESSION_MINUTES', { infer: true }) * 60,
-      this.config.get('COOKIE_SECURE', { infer: true }),
-    );
-    return me;
+  signIn(
+    @Body(new ZodPipe(signInSchema)) body: SignInRequest,
+    @Req() req: FastifyRequest,
+    @Res({ passthrough: true }) reply: FastifyReply,
+  ): Promise<Me> {
+    return this.auth.signIn(body, req.ip, reply);
   }
 
   @Post('auth/sign-out')
   @Public()
   @HttpCode(204)
-  @ApiOperation({ summary: 'Sign out: clears the session cookie' })
-  signOut(@Res({ passthrough: true }) reply: FastifyReply): void {
-    clearSessionCookie(reply, this.config.get('COOKIE_SECURE', { infer: true }));
+  @ApiOperation({ summary: 'Sign out: ends the session on the server and clears the cookie' })
+  async signOut(@Req() req: FastifyRequest, @Res({ passthrough: true }) reply: FastifyReply): Promise<void> {
+    await this.tokens.end(readSessionCookie(req), reply);
+  }
+
+  @Post('auth/first-manager')
+  @Public()
+  @HttpCode(201)
+  @ApiOperation({
+    summary: 'Set the first manager of a kitchen’s own installation, with the one-time link its first start printed',
+  })
+  @ApiZodBody(firstManagerSchema)
+  setFirstManager(@Body(new ZodPipe(firstManagerSchema)) body: FirstManagerRequest): Promise<Me> {
+    return this.firstManager.setFirstManager(body);
   }
 
   @Get('me')

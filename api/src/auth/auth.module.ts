@@ -2,40 +2,33 @@ import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { JwtModule } from '@nestjs/jwt';
 import { PassportModule } from '@nestjs/passport';
-import { ThrottlerModule } from '@nestjs/throttler';
+import { TransactionRunner } from '../common/transaction';
 import type { AppConfig } from '../config/config';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
+import { FirstManagerLinksRepository } from './first-manager-links.repository';
+import { FirstManagerService } from './first-manager.service';
 import { JwtStrategy } from './jwt.strategy';
-import { SignInThrottlerGuard } from './sign-in.throttler';
+import { SessionTokens } from './session-tokens';
+import { SessionsModule } from './sessions.module';
 
 @Module({
   imports: [
     UsersModule,
+    SessionsModule,
     PassportModule,
     JwtModule.registerAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService<AppConfig, true>) => ({
         secret: config.get('JWT_SECRET', { infer: true }),
         signOptions: { expiresIn: config.get('SESSION_MINUTES', { infer: true }) * 60, algorithm: 'HS256' },
-      }),
-    }),
-    ThrottlerModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService<AppConfig, true>) => ({
-        throttlers: [
-          {
-            name: 'sign-in',
-            limit: config.get('SIGN_IN_LIMIT', { infer: true }),
-            ttl: config.get('SIGN_IN_WINDOW_SECONDS', { infer: true }) * 1000,
-          },
-        ],
+        verifyOptions: { algorithms: ['HS256'] },
       }),
     }),
   ],
   controllers: [AuthController],
-  providers: [AuthService, JwtStrategy, SignInThrottlerGuard],
-  exports: [JwtModule],
+  providers: [AuthService, JwtStrategy, SessionTokens, FirstManagerService, FirstManagerLinksRepository, TransactionRunner],
+  exports: [JwtModule, SessionTokens, FirstManagerService],
 })
 export class AuthModule {}

@@ -1,9 +1,13 @@
 import { Injectable, Logger } from '@nestjs/common';
-import { JwtService } from '@nestjs/jwt';
+import { ConfigService } from '@nestjs/config';
+import type { FastifyReply } from 'fastify';
 import type { Me, SignInRequest } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
+import { isDemoKitchen, type AppConfig } from '../config/config';
 import { checkPassword, DUMMY_HASH } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
+import { SessionTokens } from './session-tokens';
+import { SignInLimits } from './sign-in-limits';
 
 @Injectable()
 export class AuthService {
@@ -11,18 +15,32 @@ export class AuthService {
 
   constructor(
     private readonly users: UsersRepository,
-    private readonly jwt: JwtService,
+    private readonly limits: SignInLimits,
+    private readonly tokens: SessionTokens,
+    private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
-  /** Checks the credentials; the same plain message whether the email or the password is wrong. */
-  async signIn({ email, password }: SignInRequest): Promise<{ me: Me; token: string }> {
+  /**
+   * Checks the credentials (the same plain message whether the email or the password is wrong)
+   * and starts a session. Every attempt passes the sign-in limits first.
+   */
+  async signIn({ email, password }: SignInRequest, address: string, reply: FastifyReply): Promise<Me> {
+    const attempt = await this.limits.begin(email, address);
     const row = await this.users.findByEmail(email);
     const ok = await checkPassword(password, row?.passwordHash ?? DUMMY_HASH);
     if (!row || !ok || !row.active) {
       this.logger.warn(`Refused sign-in for ${email}`);
       throw new AppError('bad-credentials', 'Email or password is not right.');
     }
-    const token = await this.jwt.signAsync({ sub: row.id });
-    return { me: { id: row.id, email: row.email, name: row.name, role: row.role }, token };
+    if (row.demoPassword && !isDemoKitchen(this.config)) {
+      this.logger.warn(`Refused the published demo password for ${email}`);
+      throw new AppError(
+        'bad-credentials',
+        'This account still has the demo kitchen’s published password, which works only in the demo. A manager must set it a new password.',
+      );
+    }
+    await this.limits.succeeded(attempt);
+    await this.tokens.start(row.id, reply);
+    return { id: row.id, email: row.email, name: row.name, role: row.role };
   }
 }

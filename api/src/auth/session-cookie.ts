@@ -6,6 +6,7 @@ export function readSessionCookie(req: FastifyRequest): string | null {
   return (req as FastifyRequest & { cookies?: Record<string, string | undefined> }).cookies?.[SESSION_COOKIE] ?? null;
 }
 
+/** httpOnly, SameSite=Strict, and Secure wherever the cookie may cross a network (config.sessionCookieSecure). */
 export function setSessionCookie(reply: FastifyReply, token: string, maxAgeSeconds: number, secure: boolean) {
   void reply.setCookie(SESSION_COOKIE, token, {
     httpOnly: true,

@@ -1,25 +1,23 @@
 import { CanActivate, ExecutionContext, Injectable } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
 import { Reflector } from '@nestjs/core';
-import { JwtService } from '@nestjs/jwt';
 import { AuthGuard } from '@nestjs/passport';
 import type { FastifyReply } from 'fastify';
-import { setSessionCookie } from '../auth/session-cookie';
-import type { AppConfig } from '../config/config';
+import type { SessionUser } from '../auth/jwt.strategy';
+import { SessionTokens } from '../auth/session-tokens';
 import { AppError } from './app-error';
 import { IS_PUBLIC, Roles } from './roles.decorator';
 import type { AuthUser } from './current-user.decorator';
 
 /**
- * Every route needs a valid session unless it is @Public. A session past half its life is
- * renewed on use, so someone working through a shift stays signed in while an idle one expires.
+ * Every route needs a running session unless it is @Public (see JwtStrategy). A session past
+ * half its idle life is renewed on use, so someone working through a shift stays signed in while
+ * an idle one expires; no renewal goes past the session's absolute end (SESSION_MAX_HOURS).
  */
 @Injectable()
 export class SessionGuard extends AuthGuard('jwt') implements CanActivate {
   constructor(
     private readonly reflector: Reflector,
-    private readonly jwt: JwtService,
-    private readonly config: ConfigService<AppConfig, true>,
+    private readonly tokens: SessionTokens,
   ) {
     super();
   }
@@ -28,24 +26,17 @@ export class SessionGuard extends AuthGuard('jwt') implements CanActivate {
     const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, [context.getHandler(), context.getClass()]);
     if (isPublic) return true;
     const ok = (await super.canActivate(context)) as boolean;
-    if (ok) await this.renewIfOld(context);
+    if (ok) {
+      const http = context.switchToHttp();
+      const user = http.getRequest<{ user?: SessionUser }>().user;
+      if (user) await this.tokens.renewIfOld(http.getResponse<FastifyReply>(), user.claims, user.session);
+    }
     return ok;
   }
 
   handleRequest<T>(err: unknown, user: T): T {
     if (err || !user) throw new AppError('unauthenticated', 'Sign in to continue.');
     return user;
-  }
-
-  private async renewIfOld(context: ExecutionContext) {
-    const http = context.switchToHttp();
-    const user = http.getRequest<{ user?: AuthUser & { issuedAt?: number } }>().user;
-    if (!user?.issuedAt) return;
-    const lifetime = this.config.get('SESSION_MINUTES', { infer: true }) * 60;
-    const age = Math.floor(Date.now() / 1000) - user.issuedAt;
-    if (age < lifetime / 2) return;
-    const token = await this.jwt.signAsync({ sub: user.id });
-    setSessionCookie(http.getResponse<FastifyReply>(), token, lifetime, this.config.get('COOKIE_SECURE', { infer: true }));
   }
 }
 

@@ -6,6 +6,8 @@ export interface AuthUser {
   email: string;
   name: string;
   role: Role;
+  /** The session this request came with. */
+  sessionId: string;
 }
 
 export const CurrentUser = createParamDecorator((_: unknown, ctx: ExecutionContext): AuthUser => {

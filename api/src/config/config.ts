@@ -1,4 +1,8 @@
+import type { ConfigService } from '@nestjs/config';
 import { z } from 'zod';
+
+/** An empty value (as .env.example leaves it) is the same as unset. */
+const unsetIfEmpty = <S extends z.ZodType>(schema: S) => z.preprocess((v) => (v === '' ? undefined : v), schema);
 
 /** The API's configuration, parsed once from the environment. Nothing else reads process.env. */
 export const configSchema = z.object({
@@ -17,20 +21,94 @@ export const configSchema = z.object({
     .min(1)
     .max(24 * 60)
     .default(30),
-  COOKIE_SECURE: z
-    .enum(['true', 'false'])
-    .default('false')
-    .transform((v) => v === 'true'),
+  /** The longest a session lasts however busy it is (the idle limit above renews; this does not). */
+  SESSION_MAX_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 7)
+    .default(12),
+  /**
+   * Unset: Secure outside development and loopback. The session cookie may go without Secure
+   * only where it never crosses a network (see sessionCookieSecure below).
+   */
+  COOKIE_SECURE: unsetIfEmpty(z.enum(['true', 'false']).optional()),
+  /** Failed sign-ins from one address in a window before that address waits. */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  /** Failed sign-ins across every account and address in a window before everyone waits. */
+  SIGN_IN_GLOBAL_LIMIT: z.coerce.number().int().min(1).default(30),
   SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(60),
+  /**
+   * The demo kitchen and its accounts with the published password. Unset: on in development and
+   * test, off in production (npm start turns it on when it listens on loopback). Never beyond loopback.
+   */
+  DEMO_KITCHEN: unsetIfEmpty(z.enum(['true', 'false']).optional()),
+  /**
+   * The address people open Crumbproof at when a reverse proxy stands in front of it
+   * (https://crumbproof.example): writes from pages of that origin are accepted even where the
+   * proxy rewrote Host, and the first manager's link is printed with it.
+   */
+  PUBLIC_URL: unsetIfEmpty(z.url({ protocol: /^https?$/, error: 'PUBLIC_URL must be an http or https address.' }).optional()),
   WEB_DIST: z.string().optional(),
   REFERENCE_DATA_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
 });
 export type AppConfig = z.infer<typeof configSchema>;
 
+/** 127.0.0.0/8, ::1 and localhost: addresses no other machine can reach. 0.0.0.0 and :: listen on every network. */
+export function isLoopback(host: string): boolean {
+  const h = host
+    .trim()
+    .toLowerCase()
+    .replace(/^\[|\]$/g, '');
+  return h === 'localhost' || h === '::1' || /^127(\.\d{1,3}){3}$/.test(h) || /^::ffff:127(\.\d{1,3}){3}$/.test(h);
+}
+
+/** The parsed settings, or the ConfigService that holds them. */
+type Settings<K extends keyof AppConfig> = Pick<AppConfig, K> | ConfigService<AppConfig, true>;
+
+function read<K extends keyof AppConfig>(settings: Settings<K>, key: K): AppConfig[K] {
+  const service = settings as ConfigService<AppConfig, true>;
+  return typeof service.get === 'function' ? service.get(key, { infer: true }) : (settings as Pick<AppConfig, K>)[key];
+}
+
+/** Whether this installation is the demo kitchen (see DEMO_KITCHEN). */
+export function isDemoKitchen(settings: Settings<'DEMO_KITCHEN' | 'HOST' | 'NODE_ENV'>): boolean {
+  if (!isLoopback(read(settings, 'HOST'))) return false;
+  const demo = read(settings, 'DEMO_KITCHEN');
+  if (demo !== undefined) return demo === 'true';
+  return read(settings, 'NODE_ENV') !== 'production';
+}
+
+/** The session cookie is Secure everywhere but in development and on loopback, where it never crosses a network. */
+export function sessionCookieSecure(settings: Settings<'COOKIE_SECURE' | 'HOST' | 'NODE_ENV'>): boolean {
+  const secure = read(settings, 'COOKIE_SECURE');
+  if (secure !== undefined) return secure === 'true';
+  return !(read(settings, 'NODE_ENV') === 'development' || isLoopback(read(settings, 'HOST')));
+}
+
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
-  const result = configSchema.safeParse(env);
+  const result = configSchema
+    .superRefine((c, ctx) => {
+      if (c.DEMO_KITCHEN === 'true' && !isLoopback(c.HOST)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['DEMO_KITCHEN'],
+          message: `The demo kitchen's accounts have a published password, so it listens on loopback only; HOST is ${c.HOST}.`,
+        });
+      }
+      if (c.COOKIE_SECURE === 'false' && c.NODE_ENV !== 'development' && !isLoopback(c.HOST)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['COOKIE_SECURE'],
+          message: `A session cookie without Secure would cross the network from ${c.HOST} in clear text: serve Crumbproof over HTTPS and leave COOKIE_SECURE unset.`,
+        });
+      }
+      if (c.SESSION_MAX_HOURS * 60 < c.SESSION_MINUTES) {
+        ctx.addIssue({ code: 'custom', path: ['SESSION_MAX_HOURS'], message: 'SESSION_MAX_HOURS must be at least SESSION_MINUTES.' });
+      }
+    })
+    .safeParse(env);
   if (!result.success) {
     const lines = result.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`The API's configuration is not valid:\n${lines.join('\n')}`);

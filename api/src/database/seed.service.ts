@@ -1,12 +1,17 @@
 import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { BooksService } from '../books/books.service';
+import { isDemoKitchen, type AppConfig } from '../config/config';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { hashPassword } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
 import demoBook from './seeders/demo-book.json';
 import { DEMO_PASSWORD, DEMO_SITE_ADDRESS, DEMO_USERS } from './seeders/demo-users';
 
-/** Seeds the demo kitchen into an empty database only; running it again changes nothing. */
+/**
+ * Seeds the demo kitchen into an empty database only, and only in demo mode (its accounts share
+ * a published password); running it again changes nothing.
+ */
 @Injectable()
 export class SeedService {
   private readonly logger = new Logger('Seed');
@@ -15,6 +20,7 @@ export class SeedService {
     private readonly users: UsersRepository,
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
+    private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
   async seedDemo(): Promise<'seeded' | 'kept'> {
@@ -22,9 +28,14 @@ export class SeedService {
       this.logger.log('The database already holds a kitchen: seed skipped.');
       return 'kept';
     }
+    const demo = isDemoKitchen(this.config);
+    if (!demo) {
+      this.logger.warn('Not the demo kitchen (DEMO_KITCHEN=false, or HOST beyond loopback): no demo data or accounts seeded.');
+      return 'kept';
+    }
     const hash = await hashPassword(DEMO_PASSWORD);
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
-    for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash });
+    for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash, demoPassword: true });
     this.logger.log(
       `Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`,
     );

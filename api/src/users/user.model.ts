@@ -3,6 +3,8 @@ import type { Role } from '@crumbproof/shared';
 
 @Table({ tableName: 'users', underscored: true, timestamps: true })
 export class UserModel extends Model {
+  declare id: number;
+
   @Column({ type: DataType.STRING(254), allowNull: false, unique: true })
   email: string;
 
@@ -17,6 +19,10 @@ export class UserModel extends Model {
 
   @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: true })
   active: boolean;
+
+  /** Still the demo kitchen's published password: such an account signs in only in demo mode. */
+  @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: false, field: 'demo_password' })
+  demoPassword: boolean;
 
   declare createdAt: Date;
 }

@@ -27,13 +27,15 @@ export class UsersController {
   }
 
   @Patch(':id')
-  @ApiOperation({ summary: 'Change a user’s name, role, password or active state (manager)' })
+  @ApiOperation({
+    summary: 'Change a user’s name, role, password or active state (manager); a new password, role or deactivation ends their sessions',
+  })
   @ApiZodBody(updateUserSchema)
   update(
     @CurrentUser() actor: AuthUser,
     @Param('id', ParseIntPipe) id: number,
     @Body(new ZodPipe(updateUserSchema)) body: UpdateUserRequest,
   ) {
-    return this.users.update(actor.id, id, body);
+    return this.users.update(actor, id, body);
   }
 }

@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
+import type { Transaction } from 'sequelize';
 import type { Role, User } from '@crumbproof/shared';
 import { UserModel } from './user.model';
 
@@ -8,6 +9,8 @@ export interface NewUser {
   name: string;
   role: Role;
   passwordHash: string;
+  /** The demo kitchen's published password (the demo seed only). */
+  demoPassword?: boolean;
 }
 
 /** The only place that reads and writes the users table. */
@@ -15,8 +18,8 @@ export interface NewUser {
 export class UsersRepository {
   constructor(@InjectModel(UserModel) private readonly users: typeof UserModel) {}
 
-  findByEmail(email: string) {
-    return this.users.findOne({ where: { email } });
+  findByEmail(email: string, transaction?: Transaction) {
+    return this.users.findOne({ where: { email }, transaction });
   }
 
   findById(id: number) {
@@ -27,11 +30,11 @@ export class UsersRepository {
     return this.users.findAll({ order: [['name', 'ASC']] });
   }
 
-  create(user: NewUser) {
-    return this.users.create({ ...user });
+  create(user: NewUser, transaction?: Transaction) {
+    return this.users.create({ ...user }, { transaction });
   }
 
-  async update(id: number, changes: Partial<Pick<UserModel, 'name' | 'role' | 'active' | 'passwordHash'>>) {
+  async update(id: number, changes: Partial<Pick<UserModel, 'name' | 'role' | 'active' | 'passwordHash' | 'demoPassword'>>) {
     const row = await this.users.findByPk(id);
     if (!row) return null;
     return row.update(changes);
@@ -43,6 +46,11 @@ export class UsersRepository {
 
   countActiveManagers() {
     return this.users.count({ where: { role: 'manager', active: true } });
+  }
+
+  /** Active managers whose password is their own (not the demo kitchen's published one). */
+  countManagersWhoCanSignIn(transaction?: Transaction) {
+    return this.users.count({ where: { role: 'manager', active: true, demoPassword: false }, transaction });
   }
 }
 

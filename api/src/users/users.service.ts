@@ -1,19 +1,27 @@
 import { Injectable } from '@nestjs/common';
 import type { CreateUserRequest, UpdateUserRequest, User } from '@crumbproof/shared';
 import { UniqueConstraintError } from 'sequelize';
+import { SessionsRepository } from '../auth/sessions.repository';
+import { SignInLimits } from '../auth/sign-in-limits';
 import { AppError } from '../common/app-error';
-import { hashPassword } from './password';
+import type { AuthUser } from '../common/current-user.decorator';
+import { hashPassword, refuseCommonPassword } from './password';
 import { toUser, UsersRepository } from './users.repository';
 
 @Injectable()
 export class UsersService {
-  constructor(private readonly repo: UsersRepository) {}
+  constructor(
+    private readonly repo: UsersRepository,
+    private readonly sessions: SessionsRepository,
+    private readonly limits: SignInLimits,
+  ) {}
 
   async list(): Promise<User[]> {
     return (await this.repo.list()).map(toUser);
   }
 
   async create(req: CreateUserRequest): Promise<User> {
+    refuseCommonPassword(req.password);
     if (await this.repo.findByEmail(req.email)) {
       throw new AppError('conflict', 'A user with that email already exists.', [
         { path: 'email', message: 'A user with that email already exists.' },
@@ -33,7 +41,14 @@ export class UsersService {
     }
   }
 
-  async update(actorId: number, id: number, req: UpdateUserRequest): Promise<User> {
+  /**
+   * A new password, a new role or deactivation ends every session of that user (the manager
+   * making a change to their own account keeps the session they made it with), so an old
+   * cookie neither writes nor comes back with a reactivation. A new password also lifts a lock.
+   */
+  async update(actor: AuthUser, id: number, req: UpdateUserRequest): Promise<User> {
+    const actorId = actor.id;
+    if (req.password !== undefined) refuseCommonPassword(req.password);
     const row = await this.repo.findById(id);
     if (!row) throw new AppError('not-found', `There is no user ${id}.`);
     const losesManager = row.role === 'manager' && row.active && (req.active === false || (req.role && req.role !== 'manager'));
@@ -47,8 +62,15 @@ export class UsersService {
       ...(req.name !== undefined ? { name: req.name } : {}),
       ...(req.role !== undefined ? { role: req.role } : {}),
       ...(req.active !== undefined ? { active: req.active } : {}),
-      ...(req.password !== undefined ? { passwordHash: await hashPassword(req.password) } : {}),
+      ...(req.password !== undefined ? { passwordHash: await hashPassword(req.password), demoPassword: false } : {}),
     });
+    const keep = id === actorId ? actor.sessionId : undefined;
+    if (req.active === false) await this.sessions.endAllOf(id, 'deactivated');
+    if (req.password !== undefined) {
+      await this.sessions.endAllOf(id, 'password-changed', keep);
+      await this.limits.forget(row.email);
+    }
+    if (req.role !== undefined && req.role !== row.role) await this.sessions.endAllOf(id, 'role-changed', keep);
     return toUser(updated!);
   }
 }

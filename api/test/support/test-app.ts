@@ -6,7 +6,7 @@ import { migrateUp } from '../../src/database/migrator';
 import { SeedService } from '../../src/database/seed.service';
 import { DEMO_PASSWORD } from '../../src/database/seeders/demo-users';
 
-async function adminQuery(sql: string) {
+export async function adminQuery(sql: string) {
   const conn = await createConnection({
     host: process.env.DB_HOST,
     port: Number(process.env.DB_PORT),

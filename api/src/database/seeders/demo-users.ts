@@ -1,6 +1,10 @@
 import type { Role } from '@crumbproof/shared';
 
-/** The demo kitchen's staff. Every demo account shares one password, printed by npm start. */
+/**
+ * The demo kitchen's staff. Every demo account shares one password, published in the README and
+ * printed by npm start, so they are seeded only in demo mode (see isDemoKitchen) and refused at
+ * sign-in outside it.
+ */
 export const DEMO_PASSWORD = 'crumbproof-demo';
 
 export const DEMO_USERS: { email: string; name: string; role: Role }[] = [

@@ -1,0 +1,77 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import type { Transaction } from 'sequelize';
+import type { FirstManagerRequest, Me } from '@crumbproof/shared';
+import { AppError } from '../common/app-error';
+import { isDemoKitchen, type AppConfig } from '../config/config';
+import { TransactionRunner } from '../common/transaction';
+import { hashPassword, refuseCommonPassword } from '../users/password';
+import { UsersRepository } from '../users/users.repository';
+import { FirstManagerLinksRepository } from './first-manager-links.repository';
+
+/** How long a printed link works. A restart prints a new one while the kitchen has no manager. */
+export const FIRST_MANAGER_LINK_MINUTES = 60;
+
+const sha256 = (token: string) => createHash('sha256').update(token, 'utf8').digest('hex');
+
+/**
+ * A kitchen's own installation has no accounts at first. Its start prints a one-time link
+ * (single use, expiring, only its SHA-256 kept) that sets the first manager's password; a
+ * new link voids the earlier ones.
+ */
+@Injectable()
+export class FirstManagerService {
+  private readonly logger = new Logger('Auth');
+
+  constructor(
+    private readonly transactions: TransactionRunner,
+    private readonly links: FirstManagerLinksRepository,
+    private readonly users: UsersRepository,
+    private readonly config: ConfigService<AppConfig, true>,
+  ) {}
+
+  private get demo() {
+    return isDemoKitchen(this.config);
+  }
+
+  /** Whether the kitchen still needs its first manager: not the demo, and no active manager who can sign in. */
+  async needed(transaction?: Transaction): Promise<boolean> {
+    return !this.demo && (await this.users.countManagersWhoCanSignIn(transaction)) === 0;
+  }
+
+  /** A new one-time link token, voiding earlier ones; null when the kitchen has its manager. */
+  async issue(now = new Date()): Promise<{ token: string; expiresAt: Date } | null> {
+    if (!(await this.needed())) return null;
+    const token = randomBytes(32).toString('base64url');
+    const expiresAt = new Date(now.getTime() + FIRST_MANAGER_LINK_MINUTES * 60_000);
+    await this.transactions.run((t) => this.links.replace(sha256(token), expiresAt, now, t));
+    return { token, expiresAt };
+  }
+
+  /** Uses a link: creates the first manager with the password given; the link works once. */
+  async setFirstManager(req: FirstManagerRequest, now = new Date()): Promise<Me> {
+    refuseCommonPassword(req.password);
+    const passwordHash = await hashPassword(req.password);
+    return this.transactions.run(async (t) => {
+      if (!(await this.links.isUsable(sha256(req.token), now, t))) {
+        throw new AppError(
+          'forbidden',
+          'This link has been used, has expired or was replaced by a newer one. Restart Crumbproof to print a new link.',
+        );
+      }
+      if (!(await this.needed(t))) {
+        throw new AppError('conflict', 'This kitchen already has a manager who can sign in: sign in, or ask them to add you.');
+      }
+      if (await this.users.findByEmail(req.email, t)) {
+        throw new AppError('conflict', 'A user with that email already exists.', [
+          { path: 'email', message: 'A user with that email already exists.' },
+        ]);
+      }
+      await this.links.voidAll(now, t);
+      const row = await this.users.create({ email: req.email, name: req.name, role: 'manager', passwordHash }, t);
+      this.logger.log(`The first manager, ${req.email}, was set with the one-time link.`);
+      return { id: row.id, email: row.email, name: row.name, role: row.role };
+    });
+  }
+}

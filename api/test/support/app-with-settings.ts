@@ -1,0 +1,65 @@
+import type { NestFastifyApplication } from '@nestjs/platform-fastify';
+import { Sequelize } from 'sequelize-typescript';
+import { adminQuery } from './test-app';
+
+export interface SettingsApp {
+  app: NestFastifyApplication;
+  sequelize: Sequelize;
+  database: string;
+  /** What main.ts does at start: a new one-time first-manager link's token, or null when the kitchen has its manager. */
+  issueFirstManagerLink(): Promise<string | null>;
+  /** Closes the app; drops its database unless it is to be opened again. */
+  close(opts?: { keepDatabase?: boolean }): Promise<void>;
+}
+
+/**
+ * A real API with settings of its own (the configuration is read once per module registry, so
+ * the app is built in a fresh one), on a database of its own or on one an earlier app left.
+ */
+export async function startAppWith(
+  settings: Record<string, string | undefined>,
+  opts: { database: string; create?: boolean; seed?: boolean },
+): Promise<SettingsApp> {
+  const saved: Record<string, string | undefined> = {};
+  const all = { ...settings, DB_NAME: opts.database };
+  for (const [k, v] of Object.entries(all)) {
+    saved[k] = process.env[k];
+    if (v === undefined) delete process.env[k];
+    else process.env[k] = v;
+  }
+  try {
+    if (opts.create !== false) {
+      await adminQuery(`CREATE DATABASE \`${opts.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+    }
+    let built!: { app: NestFastifyApplication; sequelize: Sequelize; issueFirstManagerLink(): Promise<string | null> };
+    await jest.isolateModulesAsync(async () => {
+      const { createApp } = await import('../../src/app.factory');
+      const { migrateUp } = await import('../../src/database/migrator');
+      const { SeedService } = await import('../../src/database/seed.service');
+      const { Sequelize: IsolatedSequelize } = await import('sequelize-typescript');
+      const { FirstManagerService } = await import('../../src/auth/first-manager.service');
+      const app = await createApp({ logLevel: 'silent' });
+      const sequelize = app.get(IsolatedSequelize);
+      await migrateUp(sequelize);
+      if (opts.seed) await app.get(SeedService).seedDemo();
+      built = {
+        app,
+        sequelize,
+        issueFirstManagerLink: async () => (await app.get(FirstManagerService).issue())?.token ?? null,
+      };
+    });
+    return {
+      ...built,
+      database: opts.database,
+      async close({ keepDatabase = false } = {}) {
+        await built.app.close();
+        if (!keepDatabase) await adminQuery(`DROP DATABASE IF EXISTS \`${opts.database}\``);
+      },
+    };
+  } finally {
+    for (const [k, v] of Object.entries(saved)) {
+      if (v === undefined) delete process.env[k];
+      else process.env[k] = v;
+    }
+  }
+}
