@@ -1,14 +1,18 @@
-import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
+import { extname, join } from 'node:path';
+import { Worker, type WorkerOptions } from 'node:worker_threads';
 import { AppError } from '../common/app-error';
-import { describeType, detectType } from '../specifications/multipart-upload';
+import {
+  MAX_IMPORT_COLUMNS,
+  MAX_IMPORT_ROWS,
+  SPREADSHEET_READ_MEMORY_MB,
+  SPREADSHEET_READ_SECONDS,
+  SPREADSHEET_READS_AT_ONCE,
+} from '../common/limits';
+import { describeType } from '../specifications/multipart-upload';
 import type { Cell } from './import-columns';
+import type { ParsedRow, ParseRequest, ParseResult } from './spreadsheet.worker';
 
-export interface SheetRow {
-  /** 1-based row number as a spreadsheet program shows it (the header is row 1). */
-  row: number;
-  cells: Cell[];
-}
+export type SheetRow = ParsedRow;
 
 export interface Sheet {
   format: 'csv' | 'xlsx';
@@ -18,86 +22,115 @@ export interface Sheet {
   problems: string[];
 }
 
-export const MAX_IMPORT_ROWS = 5000;
-const XLSX_MIME = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
-
-const refuse = (what: string) =>
-  new AppError('validation', `Only CSV files and Excel workbooks (.xlsx) can be imported; this file is ${what}.`, [
-    { path: 'file', message: `Only CSV files and Excel workbooks (.xlsx) can be imported; this file is ${what}.` },
-  ]);
+const refusal = (message: string) => new AppError('validation', message, [{ path: 'file', message }]);
+const refuse = (what: string) => refusal(`Only CSV files and Excel workbooks (.xlsx) can be imported; this file is ${what}.`);
 
 /**
- * Decides by content what the file is (an .xlsx workbook, or CSV text) and reads its rows.
- * A workbook is read from its first visible worksheet.
+ * Decides by content what the file is (an .xlsx workbook, or CSV text) and reads its rows, both on
+ * a worker thread, so that no file holds up other requests. A workbook is read from its first
+ * visible worksheet; a file past the limits of rows and columns is refused, naming the limit.
  */
 export async function readSheet(bytes: Buffer): Promise<Sheet> {
-  if (bytes.length === 0) throw new AppError('validation', 'The file is empty.', [{ path: 'file', message: 'The file is empty.' }]);
-  const type = await detectType(bytes);
-  if (type?.mime === XLSX_MIME) return readXlsx(bytes);
-  if (type?.ext === 'cfb') throw refuse('an older Office file (such as .xls); save it as .xlsx or as CSV UTF-8');
-  if (type?.ext === 'zip') throw refuse('a ZIP archive without the structure of an .xlsx workbook');
-  if (type) throw refuse(describeType(type));
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw refuse('not UTF-8 text; save the spreadsheet as .xlsx or as CSV UTF-8');
+  if (bytes.length === 0) throw refusal('The file is empty.');
+  const read = await inTurn(() => readOnWorker({ read: 'spreadsheet', bytes, maxRows: MAX_IMPORT_ROWS, maxColumns: MAX_IMPORT_COLUMNS }));
+  if ('refused' in read) throw refusal(read.refused);
+  if ('otherType' in read) {
+    const type = read.otherType;
+    if (type.ext === 'cfb') throw refuse('an older Office file (such as .xls); save it as .xlsx or as CSV UTF-8');
+    if (type.ext === 'zip') throw refuse('a ZIP archive without the structure of an .xlsx workbook');
+    throw refuse(describeType(type));
   }
-  // eslint-disable-next-line no-control-regex
-  if (/[\u0000-\u0008\u000e-\u001f]/.test(text)) throw refuse('not a recognised type');
-  return readCsv(text.replace(/^\uFEFF/, ''));
+  return finish(read);
 }
 
-function readCsv(text: string): Sheet {
-  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false, header: false });
-  const problems = parsed.errors
-    .filter((e) => e.code !== 'UndetectableDelimiter')
-    .map((e) => `${e.row !== undefined ? `Row ${e.row + 1}: ` : ''}${e.message}.`);
-  const [header = [], ...rest] = parsed.data;
-  const rows = rest.map((cells, i) => ({ row: i + 2, cells: cells.map((c) => (c === '' ? null : c)) }));
-  return finish({ format: 'csv', header, rows, problems });
+/**
+ * The worker's file sits beside this one with the same extension: .js in the built API, where Node
+ * loads it as it is; .ts under jest, whose transform does not reach worker threads, so the worker
+ * compiles it with @swc/core (the compiler jest uses here, a development dependency) and runs it
+ * with a require rooted at the file.
+ */
+const WORKER_FILE = join(__dirname, `spreadsheet.worker${extname(__filename)}`);
+
+function startWorker(request: ParseRequest): Worker {
+  const options: WorkerOptions = {
+    workerData: request,
+    resourceLimits: { maxOldGenerationSizeMb: SPREADSHEET_READ_MEMORY_MB },
+  };
+  if (extname(WORKER_FILE) === '.js') return new Worker(WORKER_FILE, options);
+  const compileAndRun = `
+    const file = ${JSON.stringify(WORKER_FILE)};
+    const requireHere = require('node:module').createRequire(file);
+    const { code } = requireHere('@swc/core').transformFileSync(file, {
+      swcrc: false,
+      jsc: { parser: { syntax: 'typescript' }, target: 'es2022' },
+      module: { type: 'commonjs' },
+    });
+    const module_ = { exports: {} };
+    new Function('exports', 'require', 'module', '__filename', '__dirname', code)(
+      module_.exports, requireHere, module_, file, require('node:path').dirname(file));`;
+  return new Worker(compileAndRun, { ...options, eval: true });
 }
 
-async function readXlsx(bytes: Buffer): Promise<Sheet> {
-  const workbook = new ExcelJS.Workbook();
-  try {
-    await workbook.xlsx.load(bytes as unknown as ExcelJS.Buffer);
-  } catch {
-    throw new AppError('validation', 'The workbook could not be read; it may be damaged. Save it again as .xlsx, or as CSV UTF-8.', [
-      { path: 'file', message: 'The workbook could not be read.' },
-    ]);
-  }
-  const sheet = workbook.worksheets.find((w) => w.state !== 'hidden' && w.state !== 'veryHidden') ?? workbook.worksheets[0];
-  if (!sheet)
-    throw new AppError('validation', 'The workbook has no worksheet.', [{ path: 'file', message: 'The workbook has no worksheet.' }]);
-  const width = sheet.columnCount;
-  const read = (r: ExcelJS.Row): Cell[] => Array.from({ length: width }, (_, i) => cellValue(r.getCell(i + 1).value));
-  const header = read(sheet.getRow(1));
-  const rows: SheetRow[] = [];
-  sheet.eachRow({ includeEmpty: false }, (r, n) => {
-    if (n > 1) rows.push({ row: n, cells: read(r) });
+/** One read on its own worker thread, given up after the time limit or past the memory limit. */
+function readOnWorker(request: ParseRequest): Promise<ParseResult> {
+  return new Promise((resolve, reject) => {
+    const worker = startWorker(request);
+    let settled = false;
+    const settle = (then: () => void) => {
+      if (settled) return;
+      settled = true;
+      clearTimeout(timer);
+      void worker.terminate();
+      then();
+    };
+    const timer = setTimeout(
+      () =>
+        settle(() =>
+          reject(
+            refusal(
+              `The file took longer than ${SPREADSHEET_READ_SECONDS} seconds to read, the most an import may take. Save the ingredient rows alone as CSV UTF-8 and import that.`,
+            ),
+          ),
+        ),
+      SPREADSHEET_READ_SECONDS * 1000,
+    );
+    worker.once('message', (result: ParseResult) => settle(() => resolve(result)));
+    worker.once('error', (err: Error & { code?: string }) =>
+      settle(() =>
+        reject(
+          err.code === 'ERR_WORKER_OUT_OF_MEMORY'
+            ? refusal(
+                `The file needs more than ${SPREADSHEET_READ_MEMORY_MB} MB of memory to read, the most an import may use. Save the ingredient rows alone as CSV UTF-8 and import that.`,
+              )
+            : err,
+        ),
+      ),
+    );
+    worker.once('exit', (code) => settle(() => reject(new Error(`The spreadsheet reader stopped (exit code ${code}) without an answer.`))));
   });
-  return finish({ format: 'xlsx', header, rows, problems: [] });
 }
 
-/** A workbook cell as text, number or yes/no: formulas give their result, rich text its text. */
-function cellValue(v: ExcelJS.CellValue): Cell {
-  if (v === null || v === undefined) return null;
-  if (typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean') return v;
-  if (v instanceof Date) return v.toISOString().slice(0, 10);
-  if ('richText' in v) return v.richText.map((t) => t.text).join('');
-  if ('hyperlink' in v) return v.text;
-  if ('error' in v) return v.error;
-  if ('result' in v) return v.result === undefined ? null : cellValue(v.result as ExcelJS.CellValue);
-  return null;
+let reading = 0;
+const waiting: (() => void)[] = [];
+
+/** Runs at most SPREADSHEET_READS_AT_ONCE reads together; a finished read hands its turn to the next. */
+async function inTurn<T>(work: () => Promise<T>): Promise<T> {
+  if (reading < SPREADSHEET_READS_AT_ONCE) reading += 1;
+  else await new Promise<void>((resolve) => waiting.push(resolve));
+  try {
+    return await work();
+  } finally {
+    const next = waiting.shift();
+    if (next) next();
+    else reading -= 1;
+  }
 }
 
+/** The file's own problems once its rows are read (blank rows were skipped on the worker). */
 function finish(sheet: Sheet): Sheet {
-  const isBlank = (cells: Cell[]) => cells.every((c) => c === null || (typeof c === 'string' && c.trim() === ''));
-  const rows = sheet.rows.filter((r) => !isBlank(r.cells));
+  const blankHeader = sheet.header.every((c) => c === null || (typeof c === 'string' && c.trim() === ''));
   const problems = [...sheet.problems];
-  if (isBlank(sheet.header)) problems.push('Row 1 must be the header row naming the columns (id, name, contains, …); it is empty.');
-  else if (rows.length === 0) problems.push('The file has no ingredient rows under the header.');
-  if (rows.length > MAX_IMPORT_ROWS) problems.push(`The file has ${rows.length} rows; import at most ${MAX_IMPORT_ROWS} at a time.`);
-  return { ...sheet, rows, problems };
+  if (blankHeader) problems.push('Row 1 must be the header row naming the columns (id, name, contains, …); it is empty.');
+  else if (sheet.rows.length === 0) problems.push('The file has no ingredient rows under the header.');
+  return { ...sheet, problems };
 }

@@ -4,10 +4,10 @@ import type { FastifyRequest } from 'fastify';
 import type {} from '@fastify/multipart';
 import { AppError } from '../common/app-error';
 
-type FileTypeModule = typeof import('file-type', { with: { 'resolution-mode': 'import' } });
-// file-type is ESM only; Node loads it through require(esm), jest transforms it.
-// eslint-disable-next-line @typescript-eslint/no-require-imports
-const { fileTypeFromBuffer } = require('file-type') as FileTypeModule;
+/** The one function of file-type used here. */
+type FileTypeFromBuffer = (bytes: Uint8Array) => Promise<{ ext: string; mime: string } | undefined>;
+// eslint-disable-next-line @typescript-eslint/no-require-imports -- file-type is ESM only; Node loads it through require(esm), jest transforms it
+const { fileTypeFromBuffer } = require('file-type') as { fileTypeFromBuffer: FileTypeFromBuffer };
 
 export interface UploadedFile {
   /** The name the browser sent, sanitised (no folders, no control or reserved characters); may be empty. */
@@ -64,7 +64,7 @@ export async function readUpload(req: FastifyRequest, allowedFields: readonly st
       } else if (part.fieldname in upload.fields) {
         problems.push({ path: part.fieldname, message: `Send '${part.fieldname}' once.` });
       } else {
-        upload.fields[part.fieldname] = String(part.value ?? '');
+        upload.fields[part.fieldname] = typeof part.value === 'string' ? part.value : JSON.stringify(part.value ?? '');
       }
     }
   } catch (err) {
@@ -119,9 +119,17 @@ function uploadError(err: unknown, maxBytes: number, partsSeen: number): unknown
   return err;
 }
 
+/**
+ * How much of the start of a file its type is judged from: file-type needs the first 4100 bytes
+ * for the types it knows, and a ZIP container (.docx, .xlsx) names what it holds in its first
+ * entries. Reading on through the whole file would let a ZIP of many small entries hold up the
+ * server for every request.
+ */
+const DETECT_BYTES = 16 * 1024;
+
 /** What the bytes are, found by their content (magic numbers), never by the name or declared type. */
 export async function detectType(bytes: Buffer): Promise<DetectedType | undefined> {
-  const found = await fileTypeFromBuffer(bytes);
+  const found = await fileTypeFromBuffer(bytes.subarray(0, DETECT_BYTES));
   return found ? { ext: found.ext, mime: found.mime } : undefined;
 }
 
