@@ -1,6 +1,115 @@
 import { DiscoveryService, MetadataScanner, Reflector } from '@nestjs/core';
+import bcrypt from 'bcryptjs';
+import { registeredRoutes } from '../src/app.factory';
 import { IS_PUBLIC, Roles } from '../src/common/roles.decorator';
 import { startTestApp, type TestApp } from './support/test-app';
+
+const CALLERS = ['anonymous', 'front-of-house', 'pastry-chef', 'manager'] as const;
+type Caller = (typeof CALLERS)[number];
+
+/**
+ * Every route the app registers, and what each caller gets from it: anonymous, front of house,
+ * pastry chef, manager. The kitchen is empty (no site, no items) and every body is {} or none,
+ * so a caller who passes the role rule gets the route's own answer (400 for a bad body, 404 for
+ * no kitchen or no such item) and nothing changes. A route missing here fails the test.
+ */
+const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryChef: number, manager: number]> = {
+  'GET /api/health': [200, 200, 200, 200],
+  'POST /api/auth/sign-in': [400, 400, 400, 400],
+  'POST /api/auth/sign-out': [204, 204, 204, 204],
+  'POST /api/auth/first-manager': [400, 400, 400, 400],
+  'GET /api/me': [401, 200, 200, 200],
+  'GET /api/users': [401, 403, 403, 200],
+  'POST /api/users': [401, 403, 403, 400],
+  'PATCH /api/users/:id': [401, 403, 403, 400],
+  'GET /api/kitchen': [401, 404, 404, 404],
+  'PATCH /api/kitchen': [401, 403, 403, 400],
+  'GET /api/book': [401, 403, 404, 404],
+  'POST /api/book/import': [401, 403, 403, 400],
+  'GET /api/ingredients': [401, 403, 404, 404],
+  'POST /api/ingredients': [401, 403, 400, 400],
+  'GET /api/ingredients/:code': [401, 403, 404, 404],
+  'PUT /api/ingredients/:code': [401, 403, 400, 400],
+  'GET /api/ingredients/:code/revisions': [401, 403, 404, 404],
+  'GET /api/ingredients/:code/used-in': [401, 403, 404, 404],
+  'GET /api/ingredients/:code/specifications': [401, 403, 404, 404],
+  'POST /api/ingredients/:code/specifications': [401, 403, 400, 400],
+  'GET /api/specifications/status': [401, 403, 404, 404],
+  'GET /api/specifications/:id/file': [401, 403, 404, 404],
+  'POST /api/ingredients/import/preview': [401, 403, 400, 400],
+  'POST /api/ingredients/import': [401, 403, 400, 400],
+  'GET /api/recipes': [401, 404, 404, 404],
+  'POST /api/recipes': [401, 403, 400, 400],
+  'GET /api/recipes/:code': [401, 404, 404, 404],
+  'PUT /api/recipes/:code': [401, 403, 400, 400],
+  'GET /api/recipes/:code/revisions': [401, 403, 404, 404],
+  'GET /api/recipes/:code/used-in': [401, 403, 404, 404],
+  'GET /api/recipes/:code/declaration': [401, 404, 404, 404],
+  'GET /api/declarations': [401, 404, 404, 404],
+  'POST /api/declarations/preview': [401, 403, 400, 400],
+  'POST /api/swaps/preview': [401, 403, 400, 400],
+  'POST /api/swaps/apply': [401, 403, 400, 400],
+  'GET /api/reference/nutrients': [401, 403, 200, 200],
+  'GET /api/reference/allergen-sources': [401, 200, 200, 200],
+  'POST /api/composition/scan': [401, 403, 400, 400],
+  // The OpenAPI document and its viewer are public: they describe the routes, not the kitchen.
+  'GET /api/docs': [200, 200, 200, 200],
+  'GET /api/docs/': [200, 200, 200, 200],
+  'GET /api/docs/index.html': [200, 200, 200, 200],
+  'GET /api/docs/swagger-ui-init.js': [200, 200, 200, 200],
+  'GET /api/docs/docs/swagger-ui-init.js': [200, 200, 200, 200],
+  'GET /api/docs/LICENSE': [404, 404, 404, 404],
+  'GET /api/docs/*': [200, 200, 200, 200],
+  'GET /api/docs/docs/*': [200, 200, 200, 200],
+  'GET /api/docs-json': [200, 200, 200, 200],
+  'GET /api/docs-yaml': [200, 200, 200, 200],
+};
+
+const EMAILS: Record<Exclude<Caller, 'anonymous'>, string> = {
+  'front-of-house': 'counter@example.com',
+  'pastry-chef': 'chef@example.com',
+  manager: 'manager@example.com',
+};
+const PASSWORD = 'route-matrix-pass-41';
+
+describe('every route answers each caller as the table says', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp();
+    const hash = bcrypt.hashSync(PASSWORD, 4);
+    for (const [role, email] of Object.entries(EMAILS)) {
+      await t.sequelize.query(
+        "INSERT INTO users (email, name, role, password_hash, active, created_at, updated_at) VALUES (?, 'Matrix', ?, ?, TRUE, NOW(), NOW())",
+        { replacements: [email, role, hash] },
+      );
+    }
+  });
+  afterAll(() => t.close());
+
+  it('has a row for every registered route and no row for a route that is gone', () => {
+    const registered = registeredRoutes(t.app).map((r) => `${r.method} ${r.url}`);
+    expect(new Set(registered).size).toBe(registered.length);
+    expect([...registered].sort()).toEqual(Object.keys(EXPECTED).sort());
+  });
+
+  it.each(Object.entries(EXPECTED))('%s → %j', async (route, statuses) => {
+    const [method, path] = route.split(' ') as [string, string];
+    const url = path.replace(':code', 'no-such-code').replace(':id', '999999').replace('*', 'swagger-ui.css');
+    // Upload routes get no body (a JSON one is refused before the role rule); the others get {}.
+    const isUpload = method === 'POST' && /\/specifications$|\/ingredients\/import/.test(path);
+    const payload = ['POST', 'PUT', 'PATCH'].includes(method) && !isUpload ? {} : undefined;
+    const got: number[] = [];
+    for (const caller of CALLERS) {
+      // A fresh session for every call: signing out, or anything else a route does, leaves the others alone.
+      const cookie = caller === 'anonymous' ? undefined : await t.signIn(EMAILS[caller], PASSWORD);
+      const res = await t.app.inject({ method: method as 'GET', url, headers: cookie ? { cookie } : {}, ...(payload ? { payload } : {}) });
+      got.push(res.statusCode);
+      if (res.statusCode === 401) expect(res.json()).toMatchObject({ code: 'unauthenticated' });
+      if (res.statusCode === 403) expect(res.json()).toMatchObject({ code: 'forbidden' });
+    }
+    expect(got).toEqual(statuses);
+  });
+});
 
 describe('every route states who may call it', () => {
   let t: TestApp;
