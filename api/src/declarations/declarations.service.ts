@@ -1,11 +1,20 @@
 import { createHash } from 'node:crypto';
 import { Injectable, type OnModuleInit } from '@nestjs/common';
-import { bookRecipeSchema, type Book, type Declaration, type ProductDeclaration, type Regime } from '@crumbproof/shared';
+import {
+  bookRecipeSchema,
+  type Book,
+  type Declaration,
+  type DeclarationBasisItem,
+  type ProductDeclaration,
+  type Regime,
+  type ServedDeclaration,
+} from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { validationError } from '../common/zod.pipe';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
-import { closureOf } from '../rules/core/book-graph';
+import { closureItems, closureOf } from '../rules/core/book-graph';
+import { canonicalJson } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
 import { DeclarationsRepository } from './declarations.repository';
 
@@ -30,29 +39,41 @@ export class DeclarationsService implements OnModuleInit {
   }
 
   /**
-   * A product's declaration, from the store when nothing it depends on has changed. Callers that
-   * declare many products pass the kitchen they already read.
+   * A product's declaration with where it comes from, from the store when nothing it depends on
+   * has changed. It is kept under a hash of everything it is computed from: the product's closure
+   * (each item's body and current revision), the kitchen's settings and their version, the regime
+   * and the reference data; so `computedAt` is when it was computed for exactly these inputs.
+   * Callers that declare many products pass the kitchen they already read.
    */
-  async forProduct(code: string, regime?: Regime, state?: KitchenState): Promise<ProductDeclaration> {
-    const { book, heads } = state ?? (await this.books.state());
+  async forProduct(code: string, regime?: Regime, state?: KitchenState): Promise<ServedDeclaration> {
+    const { site, book, heads } = state ?? (await this.books.state());
     const head = heads.get(code);
     if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
     const useRegime = regime ?? book.site.regime;
     const slice = closureOf(book, code);
+    const names = new Map([...slice.ingredients, ...slice.recipes].map((x) => [x.id, x.name]));
+    const items: DeclarationBasisItem[] = closureItems(book, code).map(({ id, kind }) => ({
+      id,
+      kind,
+      name: names.get(id)!,
+      revision: heads.get(id)!.revision,
+    }));
     const inputHash = createHash('sha256')
-      .update(JSON.stringify({ slice, regime: useRegime, refs: this.rules.referenceVersion }))
+      .update(canonicalJson({ slice, items, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion }))
       .digest('hex');
-    const hit = await this.kept.find(head.rowId, useRegime, inputHash);
-    if (hit) return hit.body;
-    const declaration = this.rules.declare(slice, code, useRegime);
-    const kept = await this.kept.add({
-      recipeId: head.rowId,
-      recipeRevision: head.revision,
-      regime: useRegime,
-      inputHash,
-      body: declaration,
-    });
-    return kept.body;
+    const kept =
+      (await this.kept.find(head.rowId, useRegime, inputHash)) ??
+      (await this.kept.add({
+        recipeId: head.rowId,
+        recipeRevision: head.revision,
+        regime: useRegime,
+        inputHash,
+        body: this.rules.declare(slice, code, useRegime),
+      }));
+    return {
+      ...kept.body,
+      basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
+    };
   }
 
   /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */
@@ -79,10 +100,10 @@ export class DeclarationsService implements OnModuleInit {
     return todo.length;
   }
 
-  /** Declarations of every product for sale. */
-  async all(regime?: Regime): Promise<ProductDeclaration[]> {
+  /** Declarations of every product for sale, each with where it comes from. */
+  async all(regime?: Regime): Promise<ServedDeclaration[]> {
     const state = await this.books.state();
-    const out: ProductDeclaration[] = [];
+    const out: ServedDeclaration[] = [];
     for (const r of state.book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime, state));
     return out;
   }
