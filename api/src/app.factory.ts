@@ -14,7 +14,7 @@ import { refuseCrossSiteRequests } from './auth/cross-site';
 import { registerSecurityHeaders } from './auth/security-headers';
 import { ApiExceptionFilter } from './common/exception.filter';
 import { MAX_UPLOAD_BYTES } from './common/limits';
-import { sessionCookieSecure, type AppConfig } from './config/config';
+import { environmentConfig, sessionCookieSecure, type AppConfig } from './config/config';
 
 const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
   silent: false,
@@ -40,7 +40,7 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
   const adapter = new FastifyAdapter({ bodyLimit: 2 * 1024 * 1024, trustProxy: false });
   const app = await NestFactory.create<NestFastifyApplication>(AppModule, adapter, {
     abortOnError: false,
-    logger: LOG_LEVELS[options.logLevel ?? (process.env.LOG_LEVEL as AppConfig['LOG_LEVEL']) ?? 'info'],
+    logger: LOG_LEVELS[options.logLevel ?? environmentConfig().LOG_LEVEL],
   });
   const fastify = app.getHttpAdapter().getInstance();
   const routes: RouteRecord[] = [];

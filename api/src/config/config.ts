@@ -50,7 +50,6 @@ export const configSchema = z.object({
    */
   PUBLIC_URL: unsetIfEmpty(z.url({ protocol: /^https?$/, error: 'PUBLIC_URL must be an http or https address.' }).optional()),
   WEB_DIST: z.string().optional(),
-  REFERENCE_DATA_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
 });
 export type AppConfig = z.infer<typeof configSchema>;
@@ -85,6 +84,11 @@ export function sessionCookieSecure(settings: Settings<'COOKIE_SECURE' | 'HOST' 
   const secure = read(settings, 'COOKIE_SECURE');
   if (secure !== undefined) return secure === 'true';
   return !(read(settings, 'NODE_ENV') === 'development' || isLoopback(read(settings, 'HOST')));
+}
+
+/** The settings of this process, from its environment: the one place that reads process.env. */
+export function environmentConfig(): AppConfig {
+  return parseConfig(process.env);
 }
 
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
