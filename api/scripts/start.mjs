@@ -6,7 +6,12 @@ import { buildAll, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild,
 
 const PORT = Number(process.env.PORT ?? 3000);
 const DB_PORT = Number(process.env.DB_PORT ?? 3307);
-const HOST = '127.0.0.1';
+// Loopback by default. HOST=0.0.0.0 npm start listens on every network: no demo kitchen then,
+// and the session cookie is Secure, so serve it over HTTPS (a reverse proxy in front).
+const HOST = process.env.HOST ?? '127.0.0.1';
+const LOOPBACK = HOST === 'localhost' || HOST === '::1' || /^127(\.\d{1,3}){3}$/.test(HOST);
+// The demo kitchen, whose accounts share a published password, on loopback only unless DEMO_KITCHEN=false.
+const DEMO = (process.env.DEMO_KITCHEN ?? (LOOPBACK ? 'true' : 'false')) === 'true';
 const dataDir = join(ROOT, '.data');
 
 async function main() {
@@ -44,7 +49,7 @@ async function main() {
       step('A database from an earlier run is still up: stopping it first…');
       await db.stop();
     }
-    step(`Starting the private MariaDB on ${HOST}:${DB_PORT} (data in .data/mariadb)…`);
+    step(`Starting the private MariaDB on 127.0.0.1:${DB_PORT} (data in .data/mariadb)…`);
     await db.start();
     db.createDatabase({ database: 'crumbproof', user: 'crumbproof', password: 'crumbproof-local' });
 
@@ -55,6 +60,7 @@ async function main() {
       NODE_ENV: 'production',
       HOST,
       PORT: String(PORT),
+      DEMO_KITCHEN: DEMO ? 'true' : 'false',
       JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
       WEB_DIST: join(ROOT, 'web', 'dist'),
       LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
@@ -71,13 +77,24 @@ async function main() {
       }
     });
     await waitForHttp(`http://${HOST}:${PORT}/api/health`, 60_000, api);
-    console.log(`
-  Crumbproof is running at http://${HOST}:${PORT}
+    const intro = DEMO
+      ? `
+  Demo mode: the demo kitchen, on this machine only. Its accounts share a published
+  password; for your kitchen's own installation run DEMO_KITCHEN=false npm start (or listen
+  beyond loopback): no demo accounts, and a one-time link sets the first manager's password.
 
   Demo sign-ins (password for each: crumbproof-demo)
     manager@example.com   Manager
     chef@example.com      Pastry chef
-    counter@example.com   Front of house
+    counter@example.com   Front of house`
+      : `
+  Your kitchen's own installation: no demo accounts. While no manager can sign in, each start
+  prints a one-time link above that sets the first manager's password.${
+    LOOPBACK ? '' : '\n  Sessions need HTTPS here (the cookie is Secure): serve Crumbproof through a reverse proxy with TLS.'
+  }`;
+    console.log(`
+  Crumbproof is running at http://${HOST}:${PORT}
+${intro}
 
   API documentation: http://${HOST}:${PORT}/api/docs
   Press Ctrl-C to stop.`);

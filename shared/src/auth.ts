@@ -13,6 +13,9 @@ export const PASSWORD_MIN_LENGTH = 12;
 export const PASSWORD_MAX_BYTES = 72;
 const PASSWORD_MIN_DISTINCT = 5;
 
+/** The password rule in one sentence, for the hint beside every password field. */
+export const PASSWORD_RULE = `At least ${PASSWORD_MIN_LENGTH} characters and at most ${PASSWORD_MAX_BYTES} bytes, mixing letters with at least one digit or symbol; not a common password.`;
+
 /** UTF-8 bytes, as bcrypt counts them. */
 export function passwordBytes(password: string): number {
   return new TextEncoder().encode(password).length;

@@ -2,6 +2,7 @@ import type { Me } from '@crumbproof/shared';
 import type { ReactNode } from 'react';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { SignInRoute } from '@/features/auth/routes/sign-in';
+import { FirstManagerRoute } from '@/features/auth/routes/first-manager';
 import { ApprovalsRoute } from '@/features/approvals/routes/approvals';
 import { AuditRoute } from '@/features/audit/routes/audit';
 import { CounterRoute } from '@/features/counter/routes/counter';
@@ -47,7 +48,10 @@ export const routes: RouteObject[] = [
     children: [
       {
         element: <PublicShell />,
-        children: [{ path: '/sign-in', element: <SignInRoute homeFor={homeFor} /> }],
+        children: [
+          { path: '/sign-in', element: <SignInRoute homeFor={homeFor} /> },
+          { path: '/first-manager', element: <FirstManagerRoute /> },
+        ],
       },
       {
         path: '/',

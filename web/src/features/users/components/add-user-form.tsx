@@ -1,5 +1,5 @@
 import { Box, Button, Heading, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { createUserSchema, PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, ROLE_LABELS, ROLES, type CreateUserRequest } from '@crumbproof/shared';
+import { createUserSchema, PASSWORD_RULE, ROLE_LABELS, ROLES, type CreateUserRequest } from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -17,7 +17,7 @@ function isFieldName(path: string): path is FieldName {
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
-export const PASSWORD_HINT = `At least ${PASSWORD_MIN_LENGTH} characters and at most ${PASSWORD_MAX_BYTES} bytes, mixing letters with at least one digit or symbol; not a common password.`;
+export const PASSWORD_HINT = PASSWORD_RULE;
 
 export function AddUserForm() {
   const createUser = useCreateUser();
