@@ -4,6 +4,7 @@ import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { bookIngredientSchema, KITCHEN_WRITERS, type BookIngredient } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
+import { withTotalCount } from '../common/total-count';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { IngredientsService, ingredientQuerySchema, type IngredientQuery } from './ingredients.service';
 
@@ -19,9 +20,7 @@ export class IngredientsController {
       'Ingredients with their current revision; q, source, sort, limit and offset narrow and page the list (the total is in X-Total-Count)',
   })
   async list(@Query(new ZodPipe(ingredientQuerySchema)) query: IngredientQuery, @Res({ passthrough: true }) reply: FastifyReply) {
-    const { items, total } = await this.ingredients.list(query);
-    void reply.header('X-Total-Count', String(total));
-    return items;
+    return withTotalCount(reply, await this.ingredients.list(query));
   }
 
   @Get(':code')

@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { ALLERGEN_SOURCES, sourceOf, type BookIngredient, type IngredientRevisionView, type IngredientView } from '@crumbproof/shared';
 import { z } from 'zod';
 import { AppError } from '../common/app-error';
+import type { Page } from '../common/total-count';
 import { usedIn } from '../rules/core/book-graph';
 import { BooksService } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
@@ -30,7 +31,7 @@ export class IngredientsService {
     return (await this.kitchen.current()).id;
   }
 
-  async list(query: IngredientQuery = {}): Promise<{ items: IngredientView[]; total: number }> {
+  async list(query: IngredientQuery = {}): Promise<Page<IngredientView>> {
     const rows = await this.repo.listCurrent(await this.siteId());
     let items = rows.map((r) => ({ id: r.code, ...r.body, revision: r.revision, updatedAt: r.updatedAt.toISOString() }));
     if (query.q) {
