@@ -11,6 +11,7 @@ ensureNodeModules();
 ensureMariadbInstalled((m) => step(m));
 const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
 db.claim('npm run dev');
+/** @type {import('node:child_process').ChildProcess[]} */
 const children = [];
 const stop = async () => {
   for (const c of children) if (c.exitCode === null) c.kill('SIGTERM');
@@ -18,8 +19,8 @@ const stop = async () => {
   db.release();
   process.exit(0);
 };
-process.on('SIGINT', stop);
-process.on('SIGTERM', stop);
+process.on('SIGINT', () => void stop());
+process.on('SIGTERM', () => void stop());
 
 try {
   if (db.runningPid()) await db.stop();
@@ -34,8 +35,9 @@ try {
   run('npm', ['run', 'build', '-w', 'shared']);
   run('npm', ['run', 'build', '-w', 'api']);
   run('node', ['api/dist/cli/db.js', 'setup'], { env });
+  /** @param {string} name */
   const bin = (name) => join(ROOT, 'node_modules', '.bin', name);
-  children.push(startChild(bin('tsc'), ['-p', 'shared/tsconfig.json', '--watch', '--preserveWatchOutput'], {}));
+  children.push(startChild(bin('tsc'), ['-p', 'shared/tsconfig.build.json', '--watch', '--preserveWatchOutput'], {}));
   children.push(startChild(bin('tsc'), ['-p', 'api/tsconfig.build.json', '--watch', '--preserveWatchOutput'], {}));
   children.push(startChild('node', ['--watch-path=api/dist', '--watch-path=shared/dist', 'api/dist/main.js'], env));
   children.push(startChild(bin('vite'), ['--host', '127.0.0.1'], {}, { cwd: join(ROOT, 'web') }));

@@ -20,18 +20,22 @@ async function main() {
 
   const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
   db.claim('npm start');
+  /** @type {import('node:child_process').ChildProcess | null} */
   let api = null;
   let stopping = false;
   const stop = async (code = 0) => {
     if (stopping) return;
     stopping = true;
     console.log('\nStopping Crumbproof…');
-    if (api && api.exitCode === null) {
-      api.kill('SIGTERM');
-      await new Promise((r) => {
-        const t = setTimeout(() => (api.kill('SIGKILL'), r()), 10_000);
-        api.once('exit', () => (clearTimeout(t), r()));
-      });
+    const child = api;
+    if (child && child.exitCode === null) {
+      child.kill('SIGTERM');
+      await /** @type {Promise<void>} */ (
+        new Promise((r) => {
+          const t = setTimeout(() => (child.kill('SIGKILL'), r()), 10_000);
+          child.once('exit', () => (clearTimeout(t), r()));
+        })
+      );
     }
     await db.stop();
     db.release();
@@ -99,7 +103,7 @@ ${intro}
   API documentation: http://${HOST}:${PORT}/api/docs
   Press Ctrl-C to stop.`);
   } catch (err) {
-    console.error(`\n${err instanceof Error ? err.message : err}`);
+    console.error(`\n${err instanceof Error ? err.message : String(err)}`);
     await stop(1);
   }
 }

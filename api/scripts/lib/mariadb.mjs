@@ -19,7 +19,10 @@ export function findServerBinary() {
   return null;
 }
 
-/** Installs Debian's mariadb-server when no server binary is found. */
+/**
+ * Installs Debian's mariadb-server when no server binary is found.
+ * @param {(message: string) => void} [log]
+ */
 export function ensureMariadbInstalled(log = console.log) {
   if (findServerBinary() && existsSync('/usr/bin/mariadb-install-db')) return;
   log('MariaDB server not found: installing Debian’s mariadb-server (about a minute)…');
@@ -27,6 +30,7 @@ export function ensureMariadbInstalled(log = console.log) {
   if (!findServerBinary()) throw new Error('mariadb-server was installed but no server binary was found.');
 }
 
+/** @param {string[]} packages */
 export function aptInstall(packages) {
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   const upd = spawnSync('apt-get', ['update'], { stdio: 'inherit', env });
@@ -35,19 +39,26 @@ export function aptInstall(packages) {
   if (r.status !== 0) throw new Error(`apt-get install ${packages.join(' ')} failed.`);
 }
 
-/** Finds a free TCP port on 127.0.0.1. */
+/**
+ * Finds a free TCP port on 127.0.0.1.
+ * @returns {Promise<number>}
+ */
 export function freePort() {
   return new Promise((res, rej) => {
     const srv = createServer();
     srv.unref();
     srv.on('error', rej);
     srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address();
+      const { port } = /** @type {import('node:net').AddressInfo} */ (srv.address());
       srv.close(() => res(port));
     });
   });
 }
 
+/**
+ * @param {number} port
+ * @returns {Promise<boolean>}
+ */
 export function isPortFree(port) {
   return new Promise((res) => {
     const srv = createServer();
@@ -56,6 +67,7 @@ export function isPortFree(port) {
   });
 }
 
+/** @param {string} dir */
 function socketPath(dir) {
   const p = join(dir, 'mysqld.sock');
   if (Buffer.byteLength(p) <= SOCKET_MAX) return p;
@@ -105,6 +117,11 @@ export function instance({ dir, port }) {
     );
   }
 
+  /**
+   * @param {string} bin
+   * @param {string[]} args
+   * @param {string} [input]
+   */
   function run(bin, args, input) {
     return spawnSync(bin, [`--defaults-file=${cnf}`, ...args], { encoding: 'utf8', input });
   }
@@ -125,6 +142,7 @@ export function instance({ dir, port }) {
     }
   }
 
+  /** @param {string} file */
   function tail(file, n = 15) {
     if (!existsSync(file)) return '(no log)';
     return readFileSync(file, 'utf8').trim().split('\n').slice(-n).join('\n');
@@ -143,36 +161,44 @@ export function instance({ dir, port }) {
       const r = run('mariadb-install-db', ['--auth-root-authentication-method=normal', '--skip-test-db', '--skip-name-resolve']);
       if (r.status !== 0) throw new Error(`mariadb-install-db failed:\n${r.stderr || r.stdout}`);
     }
-    const child = spawn(findServerBinary(), [`--defaults-file=${cnf}`], {
+    const server = findServerBinary();
+    if (!server) throw new Error('No MariaDB server binary (mariadbd or mysqld) was found.');
+    const child = spawn(server, [`--defaults-file=${cnf}`], {
       detached: true,
       stdio: 'ignore',
     });
-    let exited = null;
-    child.on('exit', (code) => (exited = code ?? -1));
+    /** @type {{ code: number | null }} */
+    const exited = { code: null };
+    child.on('exit', (code) => (exited.code = code ?? -1));
     child.unref();
     const deadline = Date.now() + 30_000;
     while (Date.now() < deadline) {
-      if (exited !== null) throw new Error(`MariaDB stopped at start (exit ${exited}). Its log says:\n${tail(errLog)}`);
+      if (exited.code !== null) throw new Error(`MariaDB stopped at start (exit ${exited.code}). Its log says:\n${tail(errLog)}`);
       if (ping()) return { pid: child.pid };
       await new Promise((r) => setTimeout(r, 100));
     }
     throw new Error(`MariaDB did not answer within 30 s. Its log says:\n${tail(errLog)}`);
   }
 
-  /** Creates the database and a TCP user for 127.0.0.1, idempotently. */
+  /**
+   * Creates the database and a TCP user for 127.0.0.1, idempotently.
+   * @param {{ database: string; user: string; password: string }} grant
+   */
   function createDatabase({ database, user, password }) {
+    /** @param {string} s */
     const q = (s) => s.replace(/[`'\\]/g, '');
     const sql = [
       `CREATE DATABASE IF NOT EXISTS \`${q(database)}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
       `CREATE USER IF NOT EXISTS '${q(user)}'@'127.0.0.1' IDENTIFIED BY '${q(password)}';`,
       `GRANT ALL PRIVILEGES ON \`${q(database)}\`.* TO '${q(user)}'@'127.0.0.1';`,
-      `GRANT ALL PRIVILEGES ON \`${q(database)}\_%\`.* TO '${q(user)}'@'127.0.0.1';`,
+      `GRANT ALL PRIVILEGES ON \`${q(database)}\\_%\`.* TO '${q(user)}'@'127.0.0.1';`,
       'FLUSH PRIVILEGES;',
     ].join('\n');
     const r = run('mariadb', [], sql);
     if (r.status !== 0) throw new Error(`Could not create the database: ${r.stderr}`);
   }
 
+  /** @param {string} database */
   function dropDatabase(database) {
     run('mariadb', [], `DROP DATABASE IF EXISTS \`${database.replace(/`/g, '')}\`;`);
   }
@@ -197,7 +223,10 @@ export function instance({ dir, port }) {
     }
   }
 
-  /** Claims the instance for this process: a second starter is told clearly. */
+  /**
+   * Claims the instance for this process: a second starter is told clearly.
+   * @param {string} what
+   */
   function claim(what) {
     mkdirSync(dir, { recursive: true });
     if (existsSync(lockFile)) {
@@ -205,7 +234,10 @@ export function instance({ dir, port }) {
       const other = Number(pidText);
       let alive = false;
       try {
-        if (other) (process.kill(other, 0), (alive = true));
+        if (other) {
+          process.kill(other, 0);
+          alive = true;
+        }
       } catch {
         alive = false;
       }

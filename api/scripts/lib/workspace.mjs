@@ -8,11 +8,17 @@ import { aptInstall } from './mariadb.mjs';
 
 export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
 
+/** @param {string} message */
 export function step(message) {
   console.log(`\n▸ ${message}`);
 }
 
-/** Runs a command in the foreground; throws with its name when it fails. */
+/**
+ * Runs a command in the foreground; throws with its name when it fails.
+ * @param {string} cmd
+ * @param {string[]} args
+ * @param {import('node:child_process').SpawnSyncOptions} [opts]
+ */
 export function run(cmd, args, opts = {}) {
   const r = spawnSync(cmd, args, { cwd: ROOT, stdio: 'inherit', ...opts, env: { ...process.env, ...(opts.env ?? {}) } });
   if (r.status !== 0) throw new Error(`${[cmd, ...args].join(' ')} failed (exit ${r.status ?? r.signal}).`);
@@ -43,7 +49,10 @@ export function buildAll() {
   run('npm', ['run', 'build', '-w', 'web']);
 }
 
-/** A signing secret kept under .data so that sessions survive a restart. */
+/**
+ * A signing secret kept under .data so that sessions survive a restart.
+ * @param {string} dir
+ */
 export function localSecret(dir) {
   mkdirSync(dir, { recursive: true });
   const file = join(dir, 'jwt-secret');
@@ -51,11 +60,24 @@ export function localSecret(dir) {
   return readFileSync(file, 'utf8').trim();
 }
 
-/** Starts a long-running child by its binary (so its pid is the server's own). */
+/**
+ * Starts a long-running child by its binary (so its pid is the server's own).
+ * @param {string} cmd
+ * @param {string[]} args
+ * @param {NodeJS.ProcessEnv} env
+ * @param {{ cwd?: string; stdio?: import('node:child_process').StdioOptions }} [opts]
+ * @returns {import('node:child_process').ChildProcess}
+ */
 export function startChild(cmd, args, env, opts = {}) {
   return spawn(cmd, args, { cwd: opts.cwd ?? ROOT, env: { ...process.env, ...env }, stdio: opts.stdio ?? 'inherit' });
 }
 
+/**
+ * Waits until `url` answers 2xx, failing at once if `child` (the server) stops first.
+ * @param {string} url
+ * @param {number} [timeoutMs]
+ * @param {import('node:child_process').ChildProcess} [child]
+ */
 export async function waitForHttp(url, timeoutMs = 60_000, child) {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
@@ -71,6 +93,7 @@ export async function waitForHttp(url, timeoutMs = 60_000, child) {
   throw new Error(`No answer from ${url} within ${timeoutMs / 1000} s.`);
 }
 
+/** @param {{ port: number; database: string }} where */
 export function dbEnv({ port, database }) {
   return {
     DB_HOST: '127.0.0.1',
