@@ -11,3 +11,6 @@ export * from './round';
 export * from './source-entry';
 export * from './views';
 export * from './kitchen';
+export * from './composition-scan';
+export * from './ingredient-import';
+export * from './nutrient-reference';

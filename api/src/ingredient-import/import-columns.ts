@@ -7,6 +7,7 @@ import {
   type AllergenSource,
   type BookIngredient,
   type ExemptForm,
+  type ImportColumn,
   type Nutrition,
   type SourceEntry,
 } from '@crumbproof/shared';
@@ -16,17 +17,6 @@ export type Cell = string | number | boolean | null;
 
 type NutrientKey = 'energyKj' | 'energyKcal' | 'fat' | 'saturates' | 'carbohydrate' | 'sugars' | 'fibre' | 'protein' | 'salt';
 type Kind = 'text' | 'sources' | 'diet' | 'number';
-
-export interface ImportColumn {
-  /** The header to use; matched case-insensitively, also under its other names. */
-  header: string;
-  /** Other headers accepted for the column. */
-  aliases: string[];
-  /** The ingredient field it fills: 'contains', 'nutrition.fat', … */
-  field: string;
-  required: boolean;
-  description: string;
-}
 
 interface ColumnDef extends ImportColumn {
   kind: Kind;

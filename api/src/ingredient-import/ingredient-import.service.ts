@@ -1,5 +1,14 @@
 import { Injectable } from '@nestjs/common';
-import { bookIngredientSchema, type Book, type BookIngredient, type FieldError } from '@crumbproof/shared';
+import {
+  bookIngredientSchema,
+  type Book,
+  type FieldError,
+  type ImportAction,
+  type ImportCounts,
+  type ImportPreview,
+  type ImportResult,
+  type ImportRow,
+} from '@crumbproof/shared';
 import type { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { BooksService } from '../books/books.service';
@@ -14,45 +23,8 @@ import {
   rowToCandidate,
   valueAtPath,
   type HeaderMap,
-  type ImportColumn,
 } from './import-columns';
 import { readSheet, type SheetRow } from './spreadsheet';
-
-export type ImportAction = 'create' | 'update' | 'unchanged';
-
-export interface ImportRow {
-  /** 1-based row number as the spreadsheet program shows it (the header is row 1). */
-  row: number;
-  /** The ingredient the row would become; null when its cells do not make a valid ingredient. */
-  ingredient: BookIngredient | null;
-  action: ImportAction;
-  /** Each names the column and the value. */
-  problems: string[];
-}
-
-export interface ImportCounts {
-  create: number;
-  update: number;
-  unchanged: number;
-  withProblems: number;
-}
-
-export interface ImportPreview {
-  format: 'csv' | 'xlsx';
-  columns: ImportColumn[];
-  /** How the file is read: what an empty cell, 'none' and an absent column mean. */
-  rules: string[];
-  /** Problems with the file as a whole (unknown or missing columns, no rows, …). */
-  problems: string[];
-  rows: ImportRow[];
-  summary: ImportCounts;
-}
-
-/** The summary of what was imported, and each ingredient written. */
-export interface ImportResult extends ImportCounts {
-  /** Every ingredient written, with its new revision; unchanged rows are not written. */
-  written: { id: string; revision: number }[];
-}
 
 export const IMPORT_RULES = [
   'Row 1 is the header; headers are matched without regard to case, spaces, underscores, hyphens or brackets.',

@@ -1,15 +1,16 @@
 import { Body, Controller, Get, HttpCode, Post } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { KITCHEN_WRITERS, ROLES, sourceEntrySchema } from '@crumbproof/shared';
-import { z } from 'zod';
+import {
+  compositionScanRequestSchema,
+  KITCHEN_WRITERS,
+  ROLES,
+  type CompositionScan,
+  type CompositionScanRequest,
+  type NutrientReference,
+} from '@crumbproof/shared';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { RulesService } from '../rules/rules.service';
-
-const scanSchema = z.strictObject({
-  text: z.string().max(4000, 'Use at most 4,000 characters.'),
-  contains: z.array(sourceEntrySchema).optional(),
-});
 
 @ApiTags('reference')
 @Controller()
@@ -19,7 +20,7 @@ export class ReferenceController {
   @Get('reference/nutrients')
   @Roles(KITCHEN_WRITERS)
   @ApiOperation({ summary: 'The reference nutrient table (per 100 g), each row with its source' })
-  nutrients() {
+  nutrients(): NutrientReference {
     return this.rules.nutrients;
   }
 
@@ -34,8 +35,8 @@ export class ReferenceController {
   @Roles(KITCHEN_WRITERS)
   @HttpCode(200)
   @ApiOperation({ summary: 'Terms the engine detects in a supplier’s composition text, and discrepancies with its list' })
-  @ApiZodBody(scanSchema)
-  scan(@Body(new ZodPipe(scanSchema)) body: z.infer<typeof scanSchema>) {
+  @ApiZodBody(compositionScanRequestSchema)
+  scan(@Body(new ZodPipe(compositionScanRequestSchema)) body: CompositionScanRequest): CompositionScan {
     return this.rules.scan(body.text, body.contains);
   }
 }

@@ -7,6 +7,7 @@ import {
   type AllergenSource,
   type Book,
   type BookProblem,
+  type CompositionScan,
   type ProductDeclaration,
   type Regime,
   type SourceEntry,
@@ -39,7 +40,7 @@ export class RulesService {
   }
 
   /** The terms the engine reads in a supplier's composition text, and where they disagree with the supplier's list. */
-  scan(text: string, contains?: SourceEntry[]) {
+  scan(text: string, contains?: SourceEntry[]): CompositionScan {
     const scan = scanComposition(text, this.refs.lexicon);
     const listed = new Set<AllergenSource>((contains ?? []).map(sourceOf));
     const discrepancies =

@@ -3,6 +3,7 @@ import {
   SOURCE_LABELS,
   type AllergenSource,
   type BookIngredient,
+  type CompositionTerms,
   type ContainedAllergen,
   type ExemptForm,
   type ExemptUse,
@@ -11,7 +12,7 @@ import {
   type SourceEntry,
   type UnknownAllergens,
 } from '@crumbproof/shared';
-import { scanComposition, type CompositionScan } from './composition-scan';
+import { scanComposition } from './composition-scan';
 import type { AllergenGroup, Exemption, Lexicon, RegimeRules } from './reference-schema';
 import type { TreeNode } from './tree';
 
@@ -33,7 +34,7 @@ export interface LeafFacts {
   known: boolean;
   contains: SourceUse[];
   mayContain: SourceUse[];
-  scan: CompositionScan;
+  scan: CompositionTerms;
 }
 
 export function normalise(entry: SourceEntry): Omit<SourceUse, 'origin'> {
@@ -42,7 +43,7 @@ export function normalise(entry: SourceEntry): Omit<SourceUse, 'origin'> {
 
 /** Supplier statement, composition scan and stated sulphite content of each leaf. */
 export function leafFacts(leaves: TreeNode[], lexicon: Lexicon): LeafFacts[] {
-  const scans = new Map<string, CompositionScan>();
+  const scans = new Map<string, CompositionTerms>();
   return leaves.map((node) => {
     const ingredient = node.ingredient;
     if (!ingredient) throw new Error(`${node.name} is not an ingredient.`);

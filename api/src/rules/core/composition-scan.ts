@@ -1,37 +1,7 @@
-import type { AllergenSource, Claim } from '@crumbproof/shared';
+import type { AllergenHit, AnimalHit, CompositionTerms, TermHit, VagueHit } from '@crumbproof/shared';
 import type { Lexicon } from './reference-schema';
 
-export type DietClaim = 'vegan' | 'vegetarian';
-
-interface Hit {
-  /** The lexicon term. */
-  term: string;
-  /** The text as written, e.g. "whey powder" matched "whey". */
-  matched: string;
-  start: number;
-  end: number;
-}
-export interface AllergenHit extends Hit {
-  source: AllergenSource;
-  species?: string;
-}
-export interface AnimalHit extends Hit {
-  fails: DietClaim[];
-  unverified: DietClaim[];
-}
-export interface VagueHit extends Hit {
-  message: string;
-  unverifies: Claim[];
-  /** Found in a precautionary clause ("may contain nuts"). */
-  precautionary: boolean;
-}
-export interface CompositionScan {
-  allergens: AllergenHit[];
-  /** Sources named in a precautionary clause ("may contain milk"): may-contain, not contains. */
-  precautionary: AllergenHit[];
-  animal: AnimalHit[];
-  vague: VagueHit[];
-}
+export type { DietClaim } from '@crumbproof/shared';
 
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 const LETTER = '[\\p{L}\\p{N}]';
@@ -68,7 +38,7 @@ function negated(text: string, start: number, end: number, lexicon: Lexicon): bo
   return lexicon.negations.after.some((w) => new RegExp(`^\\s*${escape(w)}(?!${LETTER})`, 'u').test(after));
 }
 
-function find(text: string, term: string, except: string[] | undefined, lexicon: Lexicon): Hit[] {
+function find(text: string, term: string, except: string[] | undefined, lexicon: Lexicon): TermHit[] {
   const excepted = (except ?? []).flatMap((e) => occurrences(text, e, true));
   return occurrences(text, term, true)
     .filter(({ start, end }) => !excepted.some((x) => x.start <= start && end <= x.end))
@@ -83,7 +53,7 @@ function find(text: string, term: string, except: string[] | undefined, lexicon:
  * "coconut milk" are listed as exceptions; negated ("peanut-free") and precautionary
  * ("may contain nuts") mentions are skipped.
  */
-export function scanComposition(composition: string, lexicon: Lexicon): CompositionScan {
+export function scanComposition(composition: string, lexicon: Lexicon): CompositionTerms {
   const { text, clauses } = splitClauses(composition.toLowerCase(), lexicon.negations.clauses);
   const allergenHits = (within: string): AllergenHit[] =>
     lexicon.allergenTerms.flatMap((t) =>

@@ -5,7 +5,7 @@
 export { checkBook } from './book-check';
 export { declare, declareAll, type DeclareOptions } from './declare';
 export { BookProblemsError, UnknownProductError } from './errors';
-export { scanComposition, type CompositionScan } from './composition-scan';
+export { scanComposition } from './composition-scan';
 export { buildTree, leavesOf, type ProductTree, type TreeNode } from './tree';
 export { bookJsonSchema, bookJsonSchemaText } from './book-schema';
 export { defaultMeasures, toGrams } from './quantities';

@@ -1,0 +1,55 @@
+import type { BookIngredient } from './book';
+
+/**
+ * The spreadsheet import of ingredients: `POST /api/ingredients/import/preview` answers an
+ * `ImportPreview` (nothing saved), `POST /api/ingredients/import` an `ImportResult` (all rows or
+ * none).
+ */
+
+/** A column the import understands, as documented in every preview. */
+export interface ImportColumn {
+  /** The header to use; matched case-insensitively, also under its other names. */
+  header: string;
+  /** Other headers accepted for the column. */
+  aliases: string[];
+  /** The ingredient field it fills: 'contains', 'nutrition.fat', … */
+  field: string;
+  required: boolean;
+  description: string;
+}
+
+export type ImportAction = 'create' | 'update' | 'unchanged';
+
+export interface ImportRow {
+  /** 1-based row number as the spreadsheet program shows it (the header is row 1). */
+  row: number;
+  /** The ingredient the row would become; null when its cells do not make a valid ingredient. */
+  ingredient: BookIngredient | null;
+  action: ImportAction;
+  /** Each names the column and the value. */
+  problems: string[];
+}
+
+export interface ImportCounts {
+  create: number;
+  update: number;
+  unchanged: number;
+  withProblems: number;
+}
+
+export interface ImportPreview {
+  format: 'csv' | 'xlsx';
+  columns: ImportColumn[];
+  /** How the file is read: what an empty cell, 'none' and an absent column mean. */
+  rules: string[];
+  /** Problems with the file as a whole (unknown or missing columns, no rows, …). */
+  problems: string[];
+  rows: ImportRow[];
+  summary: ImportCounts;
+}
+
+/** The summary of what was imported, and each ingredient written. */
+export interface ImportResult extends ImportCounts {
+  /** Every ingredient written, with its new revision; unchanged rows are not written. */
+  written: { id: string; revision: number }[];
+}
