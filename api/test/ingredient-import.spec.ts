@@ -235,9 +235,9 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
       ingredient: null,
       action: 'create',
       problems: [
-        "contains: 'sugar' is not an allergen source. The sources are: wheat, rye, barley, oats, spelt, khorasan, triticale, almond, hazelnut, walnut, cashew, pecan, brazil-nut, pistachio, macadamia, pine-nut, coconut, peanut, soy, milk, egg, fish, crustacean, mollusc, celery, mustard, sesame, lupin, sulphites.",
-        "contains: 'hazlenut' is not an allergen source; did you mean 'hazelnut'?",
-        "vegan: 'maybe' is not yes, no or unknown.",
+        "row 3, column contains: 'sugar' is not an allergen source. The sources are: wheat, rye, barley, oats, spelt, khorasan, triticale, almond, hazelnut, walnut, cashew, pecan, brazil-nut, pistachio, macadamia, pine-nut, coconut, peanut, soy, milk, egg, fish, crustacean, mollusc, celery, mustard, sesame, lupin, sulphites.",
+        "row 3, column contains: 'hazlenut' is not an allergen source; did you mean 'hazelnut'?",
+        "row 3, column vegan: 'maybe' is not yes, no or unknown.",
       ],
     });
     expect(res.json().summary).toEqual({ create: 2, update: 0, unchanged: 0, withProblems: 1 });
@@ -245,8 +245,8 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     const refused = await importFile(fixture('ingredients-with-mistakes.csv'));
     expect(refused.statusCode).toBe(400);
     expect(refused.json().code).toBe('validation');
-    expect(refused.json().message).toMatch(/^Nothing was imported: 1 row needs attention \(row 3\)\. Row 3: contains: 'sugar'/);
-    expect(refused.json().fields).toContainEqual({ path: 'row 3', message: "vegan: 'maybe' is not yes, no or unknown." });
+    expect(refused.json().message).toMatch(/^Nothing was imported: 1 row needs attention \(row 3\)\. Row 3, column contains: 'sugar'/);
+    expect(refused.json().fields).toContainEqual({ path: 'row 3', message: "row 3, column vegan: 'maybe' is not yes, no or unknown." });
     expect((await ingredients()).length).toBe(before);
     expect((await ingredient('rose-water')).statusCode).toBe(404);
   });
@@ -257,9 +257,9 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     );
     const rows = (await preview(file)).json().rows as Row[];
     const problem = 'is on rows 2, 4; each ingredient may be on one row only.';
-    expect(rows[0].problems).toEqual([`id: 'malt-extract' ${problem}`]);
+    expect(rows[0].problems).toEqual([`row 2, column id: 'malt-extract' ${problem}`]);
     expect(rows[1].problems).toEqual([]);
-    expect(rows[2].problems).toEqual([`id: 'Malt-Extract' ${problem}`]);
+    expect(rows[2].problems).toEqual([`row 4, column id: 'Malt-Extract' ${problem}`]);
     const before = (await ingredients()).length;
     const refused = await importFile(file);
     expect(refused.statusCode).toBe(400);
@@ -298,13 +298,15 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     expect((await ingredient('caster-sugar')).json().revision).toBe(1);
   });
 
-  it('refuses a row that would leave a recipe unweighable, naming that row', async () => {
+  it('refuses a row that would leave a recipe unweighable, naming that row and the column that would weigh it', async () => {
     const file = csv('id,name,contains,vegan,vegetarian,g per ml\nwhole-milk,Whole milk,milk,no,yes,\n');
     const rows = (await preview(file)).json().rows as Row[];
     expect(rows[0].action).toBe('update');
     expect(rows[0].problems).toEqual([
-      expect.stringMatching(/^Line 1 of Vanilla pastry cream uses 'whole-milk' in 'ml', but Whole milk has no weight per millilitre/),
-      expect.stringMatching(/^Line 5 of Vanilla sponge uses 'whole-milk' in 'ml'/),
+      expect.stringMatching(
+        /^row 2, column g per ml: Line 1 of Vanilla pastry cream uses 'whole-milk' in 'ml', but Whole milk has no weight per millilitre/,
+      ),
+      expect.stringMatching(/^row 2, column g per ml: Line 5 of Vanilla sponge uses 'whole-milk' in 'ml'/),
     ]);
     expect((await importFile(file)).statusCode).toBe(400);
     expect((await ingredient('whole-milk')).json().gPerMl).toBeGreaterThan(0);
@@ -316,11 +318,11 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
       expect.stringMatching(/^The column 'contians' is not one this import understands; did you mean 'contains'\?/),
     ]);
     expect(body.rows[0].problems).toEqual([
-      "id: 'vanilla-sponge' is already the id of the recipe 'vanilla-sponge'; give the ingredient an id of its own.",
-      "fat: '120' must be at most 100.",
+      "row 2, column id: 'vanilla-sponge' is already the id of the recipe 'vanilla-sponge'; give the ingredient an id of its own.",
+      "row 2, column fat ('120'): Use a number no larger than 100.",
     ]);
     const stray = (await preview(csv('id,name,contains\nrose-water,Rose water,none,,milk\n'))).json();
-    expect(stray.rows[0].problems).toEqual(["column E: 'milk' is under no header; name the column in row 1 or clear the cell."]);
+    expect(stray.rows[0].problems).toEqual(["row 2, column E: 'milk' is under no header; name the column in row 1 or clear the cell."]);
     const refused = await importFile(csv('id,name,contians\nrose-water,Rose water,none\n'));
     expect(refused.statusCode).toBe(400);
     expect(refused.json().fields[0]).toMatchObject({ path: 'file' });

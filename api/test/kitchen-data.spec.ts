@@ -78,7 +78,20 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(res.statusCode).toBe(400);
     expect(res.json().code).toBe('unweighable-line');
     expect(res.json().message).toMatch(/Line 4 of Lemon curd uses 'lemon' in 'each', but Lemon has no weight per unit/);
-    expect(res.json().fields[0].path).toBe('recipes.lemon-curd.lines.4');
+    // The problem as data: the recipe, its line, what the line uses and what would weigh it.
+    expect(res.json().problems).toEqual([
+      {
+        code: 'unweighable-line',
+        recipe: 'lemon-curd',
+        field: 'unit',
+        line: 4,
+        use: 'lemon',
+        unit: 'each',
+        needs: 'gEach',
+        message: expect.stringMatching(/^Line 4 of Lemon curd uses 'lemon' in 'each'/),
+      },
+    ]);
+    expect(res.json().fields).toBeUndefined();
     expect(await count('recipe_revisions')).toBe(before);
     expect((await req('GET', '/api/recipes/shortbread', chef)).statusCode).toBe(404);
   });
@@ -89,7 +102,25 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
       ingredients: [{ ...shortbread.ingredients[0], vegan: 'maybe' }],
     });
     expect(res.statusCode).toBe(400);
-    expect(res.json().fields[0].path).toBe('ingredients.0 (flour).vegan');
+    expect(res.json().code).toBe('book-invalid');
+    expect(res.json().fields).toEqual([
+      { path: 'ingredients.0 (flour).vegan', message: 'Say whether it is vegan: true, false, or null when it is not known.' },
+    ]);
+    expect(res.json().problems).toBeUndefined();
+  });
+
+  it('words a schema problem of a book as the declare command does', async () => {
+    const res = await req('POST', '/api/book/import', manager, {
+      crumbproofBook: 1,
+      site: { name: 'x', regime: 'EU' },
+      ingredients: [{ id: 'lemon', name: 'Lemon', vegan: true }],
+      recipes: [],
+    });
+    expect(res.statusCode).toBe(400);
+    // The same line as `npm run declare` prints for this book (api/src/cli/declare.spec.ts).
+    expect(res.json().message).toBe(
+      'The recipe book is not valid. ingredients.0 (lemon).vegetarian: Say whether it is vegetarian: true, false, or null when it is not known.',
+    );
   });
 
   it('imports a good book, merging by id, and reports what it created', async () => {
@@ -112,6 +143,15 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const res = await req('PUT', '/api/recipes/vanilla-sponge', chef, looped);
     expect(res.statusCode).toBe(400);
     expect(res.json().code).toBe('recipe-cycle');
+    // The recipes in order: each uses the next, and the last uses the first.
+    expect(res.json().problems).toEqual([
+      {
+        code: 'recipe-cycle',
+        recipes: ['strawberry-layer-cake', 'vanilla-sponge'],
+        message:
+          'Strawberry and vanilla layer cake contains itself: Strawberry and vanilla layer cake → Vanilla sponge → Strawberry and vanilla layer cake. Remove one of these lines.',
+      },
+    ]);
     expect((await req('GET', '/api/recipes/vanilla-sponge', chef)).json().revision).toBe(sponge.revision);
   });
 
@@ -124,6 +164,9 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(res.statusCode).toBe(400);
     expect(res.json().code).toBe('unknown-reference');
     expect(res.json().message).toMatch(/unicorn-dust/);
+    expect(res.json().problems).toEqual([
+      { code: 'unknown-reference', recipe: 'mystery-bun', field: 'use', line: 1, use: 'unicorn-dust', message: expect.any(String) },
+    ]);
   });
 
   it('changing an ingredient gives every product above it a new declaration (the store follows)', async () => {

@@ -87,8 +87,8 @@ export const bookIngredientSchema = z.strictObject({
   contains: z.array(sourceEntrySchema).optional(),
   mayContain: z.array(sourceEntrySchema).default([]),
   composition: z.string().max(4000).optional(),
-  vegan: z.boolean().nullable(),
-  vegetarian: z.boolean().nullable(),
+  vegan: z.boolean({ error: 'Say whether it is vegan: true, false, or null when it is not known.' }).nullable(),
+  vegetarian: z.boolean({ error: 'Say whether it is vegetarian: true, false, or null when it is not known.' }).nullable(),
   sulphiteMgPerKg: z.number().min(0).max(100000).optional(),
   /** Gluten measured or specified by the supplier, mg/kg. */
   glutenMgPerKg: z.number().min(0).max(1000000).optional(),
@@ -107,14 +107,20 @@ export type BookIngredient = z.infer<typeof bookIngredientSchema>;
 
 export const recipeLineSchema = z.strictObject({
   use: id,
-  qty: z.number().positive('Give a quantity above zero.').max(1_000_000),
+  qty: z
+    .number({ error: 'Give a quantity above zero.' })
+    .positive('Give a quantity above zero.')
+    .max(1_000_000, 'Use a quantity no larger than 1000000.'),
   unit: z.enum(UNITS),
   role: z.enum(LINE_ROLES).optional(),
 });
 export type RecipeLine = z.infer<typeof recipeLineSchema>;
 
 export const saleSchema = z.strictObject({
-  portionG: z.number().positive().max(100000),
+  portionG: z
+    .number({ error: 'Give the weight of one portion in grams.' })
+    .positive('Give a portion weight above zero.')
+    .max(100000, 'Use a portion weight no larger than 100000 g.'),
   claims: z.array(z.enum(CLAIMS)).optional(),
   quid: z.array(id).optional(),
 });
@@ -138,7 +144,7 @@ export const siteSchema = z.strictObject({
 export type Site = z.infer<typeof siteSchema>;
 
 export const bookSchema = z.strictObject({
-  crumbproofBook: z.literal(1),
+  crumbproofBook: z.literal(1, { error: 'This is not a Crumbproof recipe book of a known version: crumbproofBook must be 1.' }),
   site: siteSchema,
   ingredients: z.array(bookIngredientSchema),
   recipes: z.array(bookRecipeSchema),

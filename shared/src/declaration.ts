@@ -5,19 +5,6 @@ import type { AllergenSource, Claim, ClaimStatus, ExemptForm, LineRole, Regime }
  * recipe book, and what it cannot. The web app and the label renderer read it as is.
  */
 
-/** What checkBook refuses. Nothing is declared from a book with problems. */
-export const BOOK_PROBLEM_CODES = ['recipe-cycle', 'unknown-reference', 'unweighable-line', 'duplicate-id'] as const;
-export type BookProblemCode = (typeof BOOK_PROBLEM_CODES)[number];
-
-export interface BookProblem {
-  code: BookProblemCode;
-  message: string;
-  recipe?: string;
-  ingredient?: string;
-  /** 1-based line number within `recipe`. */
-  line?: number;
-}
-
 /** Ids from the product down to the ingredient that brings something, e.g. ['cake', 'sponge', 'eggs']. */
 export type IdPath = string[];
 

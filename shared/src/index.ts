@@ -1,6 +1,7 @@
 export * from './roles';
 export * from './auth';
 export * from './errors';
+export * from './issues';
 export * from './allergens';
 export * from './book';
 export * from './nutrition';

@@ -26,7 +26,7 @@ export interface ImportRow {
   /** The ingredient the row would become; null when its cells do not make a valid ingredient. */
   ingredient: BookIngredient | null;
   action: ImportAction;
-  /** Each names the column and the value. */
+  /** Each names the row, the column and the value: "row 4, column Contains: 'hazlenut' is not…". */
   problems: string[];
 }
 

@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { bookSchema, type Book, type BookIngredient, type BookProblem, type BookRecipe } from '@crumbproof/shared';
+import { bookPlace, bookSchema, type Book, type BookIngredient, type BookProblem, type BookRecipe } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
@@ -99,7 +99,8 @@ export class BooksService {
   /** Parses a book against the published schema; every problem names where it is. */
   parse(input: unknown): Book {
     const result = bookSchema.safeParse(input);
-    if (!result.success) throw withNames(validationError(result.error), input);
+    if (!result.success)
+      throw validationError(result.error, { place: bookPlace(input), code: 'book-invalid', lead: 'The recipe book is not valid.' });
     return result.data;
   }
 
@@ -236,31 +237,16 @@ function mergeById<T extends { id: string }>(base: T[], incoming: T[]): T[] {
   for (const x of incoming) map.set(x.id, x);
   return [...map.values()];
 }
+/** Shown in full in the message; the rest are counted (all are in `problems`). */
+const PROBLEMS_IN_MESSAGE = 10;
 
+/**
+ * Refuses a book the rules engine cannot declare: every problem goes to the client as it is, with
+ * the ids it involves, and the message says them all in words (the first ten, then how many more).
+ */
 export function bookRefused(problems: BookProblem[]): AppError {
-  const fields = problems.map((p) => ({ path: problemPath(p), message: p.message }));
-  const first = problems[0];
-  const more = problems.length > 1 ? ` (and ${problems.length - 1} more problem${problems.length > 2 ? 's' : ''})` : '';
-  return new AppError(first.code, `${first.message}${more}`, fields, { problems });
-}
-
-function problemPath(p: BookProblem): string {
-  const r = p as BookProblem & { recipe?: string; ingredient?: string; line?: number };
-  if (r.recipe && r.line !== undefined) return `recipes.${r.recipe}.lines.${r.line}`;
-  if (r.recipe) return `recipes.${r.recipe}`;
-  if (r.ingredient) return `ingredients.${r.ingredient}`;
-  return '(book)';
-}
-
-/** Rewrites "ingredients.3.contains" to name the ingredient: "ingredients.3 (butter).contains". */
-function withNames(err: AppError, input: unknown): AppError {
-  const doc = (input ?? {}) as { ingredients?: { id?: unknown }[]; recipes?: { id?: unknown }[] };
-  const fields = (err.fields ?? []).map((f) => {
-    const m = /^(ingredients|recipes)\.(\d+)(.*)$/.exec(f.path);
-    if (!m) return f;
-    const id = doc[m[1] as 'ingredients' | 'recipes']?.[Number(m[2])]?.id;
-    return typeof id === 'string' ? { path: `${m[1]}.${m[2]} (${id})${m[3]}`, message: f.message } : f;
-  });
-  const summary = fields.map((f) => `${f.path}: ${f.message}`).join(' ');
-  return new AppError('book-invalid', `The recipe book is not valid. ${summary}`, fields);
+  const shown = problems.slice(0, PROBLEMS_IN_MESSAGE).map((p) => p.message);
+  const rest = problems.length - shown.length;
+  const more = rest > 0 ? ` And ${rest} more problem${rest > 1 ? 's' : ''}.` : '';
+  return new AppError(problems[0].code, `${shown.join(' ')}${more}`, undefined, problems);
 }

@@ -43,7 +43,8 @@ describe('npm run declare', () => {
         ingredients: [{ id: 'lemon', name: 'Lemon', vegan: true }],
         recipes: [],
       },
-      stderr: 'book-invalid: Ingredient Lemon (ingredients.0.vegetarian)',
+      // The same line as the API's refusal of this book (api/test/kitchen-data.spec.ts).
+      stderr: 'book-invalid: ingredients.0 (lemon).vegetarian: Say whether it is vegetarian: true, false, or null when it is not known.',
     },
     {
       title: 'a book with an unweighable line',
@@ -55,11 +56,47 @@ describe('npm run declare', () => {
       },
       stderr: "unweighable-line: Line 1 of Lemon curd uses 'lemon' in 'each', but Lemon has no weight per unit.",
     },
+    {
+      title: 'a book whose recipes contain each other',
+      book: {
+        crumbproofBook: 1,
+        site: { name: 'x', regime: 'EU' },
+        ingredients: [{ id: 'flour', name: 'Flour', contains: ['wheat'], vegan: true, vegetarian: true }],
+        recipes: [
+          { id: 'sponge', name: 'Sponge', lines: [{ use: 'cake', qty: 10, unit: 'g' }] },
+          {
+            id: 'cake',
+            name: 'Cake',
+            lines: [
+              { use: 'flour', qty: 100, unit: 'g' },
+              { use: 'sponge', qty: 50, unit: 'g' },
+            ],
+          },
+        ],
+      },
+      stderr: 'recipe-cycle: Sponge contains itself: Sponge → Cake → Sponge. Remove one of these lines.',
+    },
   ])('exits non-zero on $title, one reason a line on stderr', ({ book, stderr }) => {
     const r = run(tempBook(book));
     expect(r.status).toBe(1);
     expect(r.stdout).toBe('');
     expect(r.stderr.split('\n')[0]).toContain(stderr);
+  });
+
+  it('names every schema problem on its own line, each item by its id', () => {
+    const r = run(
+      tempBook({
+        crumbproofBook: 1,
+        site: { name: 'x', regime: 'EU' },
+        ingredients: [{ id: 'butter', name: 'Butter', contains: 'milk', vegan: false, vegetarian: true }],
+        recipes: [{ id: 'shortbread', name: 'Shortbread', lines: [{ use: 'butter', qty: 0, unit: 'g' }] }],
+      }),
+    );
+    expect(r.status).toBe(1);
+    expect(r.stderr.trim().split('\n')).toEqual([
+      'book-invalid: ingredients.0 (butter).contains: Write this as a list.',
+      'book-invalid: recipes.0 (shortbread).lines.0.qty: Give a quantity above zero.',
+    ]);
   });
 
   it.each([['--regime', 'XX'], ['--colour'], []])('exits 2 on wrong arguments %p', (...args) => {

@@ -1,12 +1,12 @@
 import { readFileSync } from 'node:fs';
-import { REGIMES, bookSchema, type Regime } from '@crumbproof/shared';
+import { REGIMES, bookPlace, bookSchema, formatIssue, type Regime } from '@crumbproof/shared';
 import { BookProblemsError, UnknownProductError, checkBook, declareProduct, declareProducts } from '../rules/core';
 import { loadReferenceData } from '../rules/reference-data';
 
 /**
  * npm run declare -- BOOK.json [--regime EU|UK|US|CA|ANZ] [--product ID]
  * Prints {"declarations": [...]} on stdout; a book that fails the schema or the book check
- * exits 1 with one reason a line on stderr; wrong arguments exit 2.
+ * exits 1 with one reason a line on stderr, worded as the API words it; wrong arguments exit 2.
  */
 interface Args {
   file: string;
@@ -37,19 +37,6 @@ function parseArgs(argv: string[]): Args | string {
   return file ? { file, regime, product } : 'Give the recipe book to declare.';
 }
 
-/** Names the ingredient or recipe a schema issue is about, when the raw book has its name. */
-function where(raw: unknown, path: PropertyKey[]): string {
-  const [list, index] = path;
-  if ((list === 'ingredients' || list === 'recipes') && typeof index === 'number' && raw && typeof raw === 'object') {
-    const items = (raw as Record<string, unknown>)[list];
-    const item = Array.isArray(items) ? items[index] : undefined;
-    const name =
-      item && typeof item === 'object' ? ((item as Record<string, unknown>).name ?? (item as Record<string, unknown>).id) : undefined;
-    if (typeof name === 'string') return `${list === 'ingredients' ? 'Ingredient' : 'Recipe'} ${name} (${path.join('.')})`;
-  }
-  return path.length > 0 ? path.join('.') : 'The book';
-}
-
 function fail(lines: string[], code: number): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
   process.exit(code);
@@ -68,7 +55,7 @@ function main(): void {
   const parsed = bookSchema.safeParse(raw);
   if (!parsed.success)
     fail(
-      parsed.error.issues.map((i) => `book-invalid: ${where(raw, i.path)}: ${i.message}`),
+      parsed.error.issues.map((issue) => `book-invalid: ${formatIssue(issue, bookPlace(raw))}`),
       1,
     );
   const book = parsed.data;

@@ -1,12 +1,15 @@
-import type { ErrorCode, FieldError } from '@crumbproof/shared';
+import type { BookProblem, ErrorCode, FieldError } from '@crumbproof/shared';
 
-/** The one error type services throw; the exception filter maps its code to HTTP. */
+/**
+ * The one error type services throw; the exception filter maps its code to HTTP. `fields` name
+ * bad inputs of the request; `problems` are the reasons a book cannot be declared, with their ids.
+ */
 export class AppError extends Error {
   constructor(
     readonly code: ErrorCode,
     message: string,
     readonly fields?: FieldError[],
-    readonly details?: unknown,
+    readonly problems?: BookProblem[],
   ) {
     super(message);
   }

@@ -27,14 +27,14 @@ export class ApiExceptionFilter implements ExceptionFilter {
     void reply.status(body.statusCode).send(body);
   }
 
-  private toBody(exception: unknown): ApiErrorBody & { details?: unknown } {
+  private toBody(exception: unknown): ApiErrorBody {
     if (exception instanceof AppError) {
       return {
         statusCode: httpStatusOf(exception.code),
         code: exception.code,
         message: exception.message,
         ...(exception.fields ? { fields: exception.fields } : {}),
-        ...(exception.details !== undefined ? { details: exception.details } : {}),
+        ...(exception.problems ? { problems: exception.problems } : {}),
       };
     }
     if (exception instanceof ThrottlerException) {

@@ -1,5 +1,6 @@
 import { PipeTransform } from '@nestjs/common';
 import { ApiBody } from '@nestjs/swagger';
+import { bodyPlace, formatIssue, issueField, type ErrorCode, type IssuePlace } from '@crumbproof/shared';
 import { z } from 'zod';
 import { AppError } from './app-error';
 
@@ -14,10 +15,21 @@ export class ZodPipe<S extends z.ZodType> implements PipeTransform<unknown, z.in
   }
 }
 
-export function validationError(error: z.ZodError): AppError {
-  const fields = error.issues.map((i) => ({ path: i.path.map(String).join('.') || '(body)', message: i.message }));
-  const summary = fields.map((f) => `${f.path}: ${f.message}`).join(' ');
-  return new AppError('validation', `Some fields need attention. ${summary}`, fields);
+/**
+ * Every issue of a failed parse as a field of the error, named by `place` (a request body's
+ * dotted paths unless told otherwise), and all of them in the message after `lead`.
+ */
+export function validationError(
+  error: z.ZodError,
+  {
+    place = bodyPlace,
+    code = 'validation',
+    lead = 'Some fields need attention.',
+  }: { place?: IssuePlace; code?: ErrorCode; lead?: string } = {},
+): AppError {
+  const fields = error.issues.map((issue) => issueField(issue, place));
+  const summary = error.issues.map((issue) => formatIssue(issue, place)).join(' ');
+  return new AppError(code, `${lead} ${summary}`, fields);
 }
 
 /** Documents a zod-validated body in the OpenAPI document. */

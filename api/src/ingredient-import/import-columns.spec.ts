@@ -80,7 +80,7 @@ describe('import columns', () => {
       gPerMl: 0.91,
       nutrition: { fat: 82, salt: 0.02 },
     };
-    expect(rowToCandidate(['butter', 'Salted butter', '', '81', 'no'], header, base)).toEqual({
+    expect(rowToCandidate(['butter', 'Salted butter', '', '81', 'no'], header, base, 2)).toEqual({
       candidate: {
         id: 'butter',
         name: 'Salted butter',
@@ -92,24 +92,24 @@ describe('import columns', () => {
       },
       problems: [],
     });
-    expect(rowToCandidate(['rose-water', 'Rose water', 'none', '', ''], header, undefined)).toEqual({
+    expect(rowToCandidate(['rose-water', 'Rose water', 'none', '', ''], header, undefined, 3)).toEqual({
       candidate: { id: 'rose-water', name: 'Rose water', contains: [], vegan: null, vegetarian: null },
       problems: [],
     });
   });
 
-  it('reads yes/no cells and numbers with a decimal comma, and names bad values', () => {
-    const header = mapHeader(['id', 'name', 'vegan', 'vegetarian', 'salt', 'g each']);
-    expect(rowToCandidate(['x', 'X', 'Y', true, '0,25', 60], header, undefined).candidate).toMatchObject({
+  it('reads yes/no cells and numbers with a decimal comma, and names each bad value by row and column as the file heads it', () => {
+    const header = mapHeader(['id', 'name', 'Vegan', 'vegetarian', 'Salt', 'g each']);
+    expect(rowToCandidate(['x', 'X', 'Y', true, '0,25', 60], header, undefined, 2).candidate).toMatchObject({
       vegan: true,
       vegetarian: true,
       gEach: 60,
       nutrition: { salt: 0.25 },
     });
-    expect(rowToCandidate(['x', 'X', 'perhaps', 'unknown', '<0.5', 'six'], header, undefined).problems).toEqual([
-      "vegan: 'perhaps' is not yes, no or unknown.",
-      "salt: '<0.5' is not a number.",
-      "g each: 'six' is not a number.",
+    expect(rowToCandidate(['x', 'X', 'perhaps', 'unknown', '<0.5', 'six'], header, undefined, 4).problems).toEqual([
+      "row 4, column Vegan: 'perhaps' is not yes, no or unknown.",
+      "row 4, column Salt: '<0.5' is not a number.",
+      "row 4, column g each: 'six' is not a number.",
     ]);
   });
 

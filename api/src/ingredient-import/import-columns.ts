@@ -1,5 +1,6 @@
 import {
   ALLERGEN_SOURCES,
+  cellPlace,
   EXEMPT_FORMS,
   EXEMPT_FORM_LABELS,
   SOURCE_LABELS,
@@ -8,6 +9,7 @@ import {
   type BookIngredient,
   type ExemptForm,
   type ImportColumn,
+  type IssuePlace,
   type Nutrition,
   type SourceEntry,
 } from '@crumbproof/shared';
@@ -171,6 +173,8 @@ for (const def of DEFS) for (const h of [def.header, ...def.aliases]) BY_HEADER.
 export interface HeaderMap {
   /** Column index → definition, for the columns understood. */
   columns: Map<number, ColumnDef>;
+  /** Field → its header as written in row 1, to name the column as the file does. */
+  names: Map<string, string>;
   /** Indexes of header cells left empty: anything under them is a problem of its row. */
   blank: Set<number>;
   /** How many cells the header row has. */
@@ -209,7 +213,7 @@ export function mapHeader(header: Cell[]): HeaderMap {
   for (const def of DEFS.filter((d) => d.required)) {
     if (!seen.has(def.field)) problems.push(`The header row has no '${def.header}' column; every ingredient needs one.`);
   }
-  return { columns, blank, width: header.length, problems };
+  return { columns, names: seen, blank, width: header.length, problems };
 }
 
 export function cellText(cell: Cell): string {
@@ -221,15 +225,28 @@ export function cellText(cell: Cell): string {
 const quote = (cell: Cell) => `'${cellText(cell)}'`;
 
 /**
- * Turns one spreadsheet row into the ingredient it describes. Columns the file has replace the
- * field (an empty cell clears it); fields the file has no column for are kept from `base`, the
- * ingredient as it stands (or left out for a new one).
+ * Where in the sheet an ingredient path is: "row 4, column Contains", the column named as row 1
+ * of the file names it (or by its usual header when the file has no such column).
+ */
+export function rowPlace(header: HeaderMap, row: number): IssuePlace {
+  return cellPlace(row, (path) => {
+    const field = path.length > 1 && path[0] === 'nutrition' ? `nutrition.${String(path[1])}` : String(path[0] ?? '');
+    return header.names.get(field) ?? DEFS.find((d) => d.field === field)?.header;
+  });
+}
+
+/**
+ * Turns one spreadsheet row (numbered as the spreadsheet program shows it) into the ingredient it
+ * describes. Columns the file has replace the field (an empty cell clears it); fields the file has
+ * no column for are kept from `base`, the ingredient as it stands (or left out for a new one).
  */
 export function rowToCandidate(
   cells: Cell[],
   header: HeaderMap,
   base: BookIngredient | undefined,
+  row: number,
 ): { candidate: Record<string, unknown>; problems: string[] } {
+  const place = rowPlace(header, row);
   const problems: string[] = [];
   const out: Record<string, unknown> = base ? structuredClone(base) : { vegan: null, vegetarian: null };
   const nutrition: Record<string, unknown> = { ...((base?.nutrition as Nutrition | undefined) ?? {}) };
@@ -237,6 +254,7 @@ export function rowToCandidate(
     const cell = cells[i] ?? null;
     const text = cellText(cell);
     const [field, sub] = def.field.split('.') as [string, NutrientKey | undefined];
+    const at = `${place(def.field.split('.'))}: `;
     const set = (value: unknown) => {
       if (sub) {
         if (value === undefined) delete nutrition[sub];
@@ -250,19 +268,19 @@ export function rowToCandidate(
         break;
       case 'diet': {
         const v = parseDiet(text);
-        if (v === 'bad') problems.push(`${def.header}: ${quote(cell)} is not yes, no or unknown.`);
+        if (v === 'bad') problems.push(`${at}${quote(cell)} is not yes, no or unknown.`);
         else set(v);
         break;
       }
       case 'number': {
         const v = parseNumber(cell);
-        if (v === 'bad') problems.push(`${def.header}: ${quote(cell)} is not a number.`);
+        if (v === 'bad') problems.push(`${at}${quote(cell)} is not a number.`);
         else set(v);
         break;
       }
       case 'sources': {
         const parsed = parseSources(text);
-        for (const p of parsed.problems) problems.push(`${def.header}: ${p}`);
+        for (const p of parsed.problems) problems.push(`${at}${p}`);
         if (parsed.problems.length === 0) set(parsed.entries ?? (field === 'mayContain' ? [] : undefined));
         break;
       }
@@ -271,18 +289,6 @@ export function rowToCandidate(
   if (Object.keys(nutrition).length > 0) out.nutrition = nutrition;
   else delete out.nutrition;
   return { candidate: out, problems };
-}
-
-/** The column a schema path comes from, to name it in a problem. */
-export function columnOfPath(path: PropertyKey[]): string {
-  const field = path.length > 1 && path[0] === 'nutrition' ? `nutrition.${String(path[1])}` : String(path[0] ?? '');
-  return DEFS.find((d) => d.field === field)?.header ?? (field || 'row');
-}
-
-export function valueAtPath(candidate: Record<string, unknown>, path: PropertyKey[]): unknown {
-  let v: unknown = candidate;
-  for (const p of path.slice(0, path[0] === 'nutrition' ? 2 : 1)) v = (v as Record<PropertyKey, unknown> | undefined)?.[p];
-  return v;
 }
 
 function parseDiet(text: string): boolean | null | 'bad' {

@@ -1,7 +1,10 @@
 import { Injectable } from '@nestjs/common';
 import {
   bookIngredientSchema,
+  cellPlace,
+  formatIssue,
   type Book,
+  type BookProblem,
   type FieldError,
   type ImportAction,
   type ImportCounts,
@@ -9,21 +12,12 @@ import {
   type ImportResult,
   type ImportRow,
 } from '@crumbproof/shared';
-import type { z } from 'zod';
 import { AppError } from '../common/app-error';
 import { BooksService } from '../books/books.service';
 import { sameData } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
 import type { Upload } from '../specifications/multipart-upload';
-import {
-  cellText,
-  columnOfPath,
-  IMPORT_COLUMNS,
-  mapHeader,
-  rowToCandidate,
-  valueAtPath,
-  type HeaderMap,
-} from './import-columns';
+import { cellText, IMPORT_COLUMNS, mapHeader, rowPlace, rowToCandidate, type HeaderMap } from './import-columns';
 import { readSheet, type SheetRow } from './spreadsheet';
 
 export const IMPORT_RULES = [
@@ -57,7 +51,7 @@ export class IngredientImportService {
     const idColumn = [...header.columns].find(([, d]) => d.field === 'id')?.[0];
     const nameColumn = [...header.columns].find(([, d]) => d.field === 'name')?.[0];
     const rows = idColumn === undefined || nameColumn === undefined ? [] : this.readRows(sheet.rows, header, idColumn, book);
-    if (rows.length > 0) this.checkDeclarable(rows, book, problems);
+    if (rows.length > 0) this.checkDeclarable(rows, book, header, problems);
     return { format: sheet.format, columns: IMPORT_COLUMNS, rules: IMPORT_RULES, problems, rows, summary: count(rows) };
   }
 
@@ -78,20 +72,23 @@ export class IngredientImportService {
     const rows = sheetRows.map(({ row, cells }): ImportRow => {
       const id = cellText(cells[idColumn] ?? null);
       const base = existing.get(id.toLowerCase());
-      const { candidate, problems } = rowToCandidate(cells, header, base);
+      const place = rowPlace(header, row);
+      const { candidate, problems } = rowToCandidate(cells, header, base, row);
       cells.forEach((cell, i) => {
         if ((header.blank.has(i) || i >= header.width) && cellText(cell) !== '') {
-          problems.push(`column ${columnLetter(i)}: '${cellText(cell)}' is under no header; name the column in row 1 or clear the cell.`);
+          const where = cellPlace(row, () => columnLetter(i))([]);
+          problems.push(`${where}: '${cellText(cell)}' is under no header; name the column in row 1 or clear the cell.`);
         }
       });
       if (base && base.id !== id)
-        problems.push(`id: '${id}' differs only in capitals from the existing ingredient '${base.id}'; write '${base.id}'.`);
+        problems.push(`${place(['id'])}: '${id}' differs only in capitals from the existing ingredient '${base.id}'; write '${base.id}'.`);
       if (recipes.has(id.toLowerCase()))
         problems.push(
-          `id: '${id}' is already the id of the recipe '${recipes.get(id.toLowerCase())}'; give the ingredient an id of its own.`,
+          `${place(['id'])}: '${id}' is already the id of the recipe '${recipes.get(id.toLowerCase())}'; give the ingredient an id of its own.`,
         );
-      const parsed = bookIngredientSchema.safeParse(candidate);
-      if (!parsed.success) for (const finding of parsed.error.issues) problems.push(describeFinding(finding, candidate));
+      // reportInput: the message shows the value the cell held.
+      const parsed = bookIngredientSchema.safeParse(candidate, { reportInput: true });
+      if (!parsed.success) for (const issue of parsed.error.issues) problems.push(formatIssue(issue, place));
       const ingredient = parsed.success && problems.length === 0 ? parsed.data : null;
       const action: ImportAction = !base ? 'create' : ingredient && sameData(base, ingredient) ? 'unchanged' : 'update';
       return { row, ingredient, action, problems };
@@ -104,24 +101,39 @@ export class IngredientImportService {
     for (const group of byId.values()) {
       if (group.length < 2) continue;
       const numbers = group.map((i) => rows[i].row).join(', ');
-      for (const i of group) rows[i].problems.push(`id: '${ids[i]}' is on rows ${numbers}; each ingredient may be on one row only.`);
+      for (const i of group)
+        rows[i].problems.push(
+          `${rowPlace(header, rows[i].row)(['id'])}: '${ids[i]}' is on rows ${numbers}; each ingredient may be on one row only.`,
+        );
     }
     return rows;
   }
 
   /** The kitchen must still be declarable with the new ingredients (e.g. a recipe in ml needs g per ml). */
-  private checkDeclarable(rows: ImportRow[], book: Book, fileProblems: string[]) {
+  private checkDeclarable(rows: ImportRow[], book: Book, header: HeaderMap, fileProblems: string[]) {
     const good = rows.filter((r) => r.ingredient && r.problems.length === 0).map((r) => r.ingredient!);
     if (good.length === 0) return;
     const incoming = new Map(good.map((g) => [g.id, g]));
     const merged: Book = { ...book, ingredients: [...book.ingredients.filter((i) => !incoming.has(i.id)), ...good] };
     for (const p of this.rules.check(merged)) {
-      const line = p.recipe && p.line !== undefined ? book.recipes.find((r) => r.id === p.recipe)?.lines[p.line - 1] : undefined;
-      const id = p.ingredient ?? line?.use;
-      const target = id ? rows.find((r) => r.ingredient?.id === id) : undefined;
-      if (target) target.problems.push(p.message);
+      const { id, column } = rowOfProblem(p);
+      const target = id === undefined ? undefined : rows.find((r) => r.ingredient?.id === id);
+      if (target) target.problems.push(`${rowPlace(header, target.row)(column)}: ${p.message}`);
       else fileProblems.push(p.message);
     }
+  }
+}
+
+/** The ingredient a book problem is about, and the column that would settle it ([] for the row as a whole). */
+function rowOfProblem(p: BookProblem): { id?: string; column: string[] } {
+  switch (p.code) {
+    case 'unweighable-line':
+      return { id: p.use, column: p.needs === 'grams' ? [] : [p.needs] };
+    case 'duplicate-id':
+      return { id: p.id, column: ['id'] };
+    case 'unknown-reference':
+    case 'recipe-cycle':
+      return { column: [] };
   }
 }
 
@@ -150,30 +162,10 @@ function refused(fileProblems: string[], bad: ImportRow[]): AppError {
     parts.push(
       `${bad.length} row${bad.length > 1 ? 's need' : ' needs'} attention (row${bad.length > 1 ? 's' : ''} ${numbers.slice(0, 20).join(', ')}${numbers.length > 20 ? ', …' : ''}).`,
     );
-    for (const r of bad.slice(0, 5)) parts.push(`Row ${r.row}: ${r.problems.join(' ')}`);
+    // Each problem starts a sentence here: "Row 3, column vegan: …".
+    for (const r of bad.slice(0, 5)) parts.push(...r.problems.map((p) => p.charAt(0).toUpperCase() + p.slice(1)));
     if (bad.length > 5) parts.push(`… and ${bad.length - 5} more rows.`);
   }
   parts.push(...fileProblems);
-  return new AppError('validation', `Nothing was imported: ${parts.join(' ')}`, fields, { problems: fileProblems, rows: bad });
-}
-
-/** A schema finding as a sentence naming the column and its value. */
-function describeFinding(finding: z.core.$ZodIssue, candidate: Record<string, unknown>): string {
-  const column = columnOfPath(finding.path);
-  const value = valueAtPath(candidate, finding.path);
-  const shown =
-    value === undefined || value === '' ? null : `'${String(value).length > 40 ? `${String(value).slice(0, 40)}…` : String(value)}'`;
-  let human: string | undefined;
-  if (finding.code === 'too_big' && /^Too big/.test(finding.message)) {
-    human = finding.origin === 'string' ? `is longer than ${finding.maximum} characters` : `must be at most ${finding.maximum}`;
-  } else if (finding.code === 'too_small' && /^Too small/.test(finding.message)) {
-    human =
-      finding.origin === 'string'
-        ? `must have at least ${finding.minimum} characters`
-        : finding.inclusive
-          ? `must be at least ${finding.minimum}`
-          : `must be more than ${finding.minimum}`;
-  }
-  if (human && shown) return `${column}: ${shown} ${human}.`;
-  return shown ? `${column}: ${shown}: ${finding.message}` : `${column}: ${finding.message}`;
+  return new AppError('validation', `Nothing was imported: ${parts.join(' ')}`, fields);
 }

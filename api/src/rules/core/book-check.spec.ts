@@ -20,6 +20,7 @@ describe('checkBook', () => {
         ]),
       ],
       path: 'A contains itself: A → A.',
+      ids: ['a'],
     },
     {
       title: 'two recipes that use each other',
@@ -31,6 +32,7 @@ describe('checkBook', () => {
         ]),
       ],
       path: 'A contains itself: A → B → A.',
+      ids: ['a', 'b'],
     },
     {
       title: 'a cycle three levels deep',
@@ -43,11 +45,12 @@ describe('checkBook', () => {
         ]),
       ],
       path: 'A contains itself: A → B → C → A.',
+      ids: ['a', 'b', 'c'],
     },
-  ])('refuses $title, naming the cycle by recipe names (common practice)', ({ recipes, path }) => {
+  ])('refuses $title, naming the cycle by recipe names and its ids in order (common practice)', ({ recipes, path, ids }) => {
     const problems = checkBook(book([ing('flour')], recipes));
     expect(problems).toHaveLength(1);
-    expect(problems[0]).toMatchObject({ code: 'recipe-cycle', recipe: 'a' });
+    expect(problems[0]).toMatchObject({ code: 'recipe-cycle', recipes: ids });
     expect(problems[0].message).toContain(path);
   });
 
@@ -72,7 +75,9 @@ describe('checkBook', () => {
       {
         code: 'unknown-reference',
         recipe: 'tart',
+        field: 'use',
         line: 3,
+        use: 'lemmon',
         message: "Line 3 of Lemon tart uses 'lemmon', which is neither an ingredient nor a recipe in this book.",
       },
     ]);
@@ -80,7 +85,7 @@ describe('checkBook', () => {
 
   it('refuses a QUID for an id the book does not have', () => {
     const problems = checkBook(book([ing('flour')], [recipe('loaf', [['flour', 100]], { sale: { portionG: 50, quid: ['rasins'] } })]));
-    expect(problems).toEqual([expect.objectContaining({ code: 'unknown-reference', recipe: 'loaf' })]);
+    expect(problems).toEqual([expect.objectContaining({ code: 'unknown-reference', recipe: 'loaf', field: 'sale.quid', use: 'rasins' })]);
     expect(problems[0].message).toContain("'rasins'");
   });
 
@@ -97,8 +102,11 @@ describe('checkBook', () => {
       {
         code: 'unweighable-line',
         recipe: 'curd',
-        ingredient: 'lemon',
+        field: 'unit',
         line: 4,
+        use: 'lemon',
+        unit: 'each',
+        needs: 'gEach',
         message:
           "Line 4 of Lemon curd uses 'lemon' in 'each', but Lemon has no weight per unit. Add the weight of one lemon, or write the line in grams.",
       },
@@ -111,7 +119,7 @@ describe('checkBook', () => {
     { unit: 'cup' as const, needs: 'no weight per millilitre' },
   ])('refuses a line in $unit without a density', ({ unit, needs }) => {
     const problems = checkBook(book([ing('oil')], [recipe('dressing', [{ use: 'oil', qty: 2, unit }])]));
-    expect(problems).toEqual([expect.objectContaining({ code: 'unweighable-line', line: 1 })]);
+    expect(problems).toEqual([expect.objectContaining({ code: 'unweighable-line', line: 1, use: 'oil', unit, needs: 'gPerMl' })]);
     expect(problems[0].message).toContain(needs);
   });
 
@@ -119,7 +127,9 @@ describe('checkBook', () => {
     'refuses a sub-recipe used in $unit (recipes are weighed)',
     ({ unit }) => {
       const b = book([ing('flour')], [recipe('sponge', [['flour', 100]]), recipe('cake', [{ use: 'sponge', qty: 1, unit }])]);
-      expect(checkBook(b)).toEqual([expect.objectContaining({ code: 'unweighable-line', recipe: 'cake', line: 1 })]);
+      expect(checkBook(b)).toEqual([
+        expect.objectContaining({ code: 'unweighable-line', recipe: 'cake', line: 1, use: 'sponge', needs: 'grams' }),
+      ]);
     },
   );
 
@@ -133,6 +143,6 @@ describe('checkBook', () => {
     { title: 'an ingredient and a recipe', ingredients: [ing('sponge')], recipes: [recipe('sponge', [['sponge', 1]])] },
   ])('refuses an id shared by $title', ({ ingredients, recipes }) => {
     const problems = checkBook(book(ingredients, recipes));
-    expect(problems.map((p) => p.code)).toContain('duplicate-id');
+    expect(problems).toContainEqual(expect.objectContaining({ code: 'duplicate-id', id: ingredients[0].id }));
   });
 });

@@ -21,6 +21,7 @@ function duplicateIds(book: Book): BookProblem[] {
     if (before !== undefined) {
       problems.push({
         code: 'duplicate-id',
+        id,
         message: `The id '${id}' is used by ${before} and by ${what}. Give each ingredient and recipe its own id.`,
       });
     } else seen.set(id, what);
@@ -44,7 +45,9 @@ function lineProblems(book: Book): BookProblem[] {
         problems.push({
           code: 'unknown-reference',
           recipe: recipe.id,
+          field: 'use',
           line: n,
+          use: line.use,
           message: `Line ${n} of ${recipe.name} uses '${line.use}', which is neither an ingredient nor a recipe in this book.`,
         });
         return;
@@ -57,7 +60,11 @@ function lineProblems(book: Book): BookProblem[] {
         problems.push({
           code: 'unweighable-line',
           recipe: recipe.id,
+          field: 'unit',
           line: n,
+          use: line.use,
+          unit: line.unit,
+          needs: 'grams',
           message: `Line ${n} of ${recipe.name} uses '${line.use}' in '${line.unit}', but ${sub.name} is a recipe and can only be weighed. Write the line in grams.`,
         });
       }
@@ -75,8 +82,11 @@ function unweighable(recipe: BookRecipe, n: number, line: RecipeLine, item: Book
   return {
     code: 'unweighable-line',
     recipe: recipe.id,
-    ingredient: item.id,
+    field: 'unit',
     line: n,
+    use: line.use,
+    unit: line.unit,
+    needs,
     message: `Line ${n} of ${recipe.name} uses '${line.use}' in '${line.unit}', but ${missing}`,
   };
 }
@@ -89,6 +99,8 @@ function quidProblems(book: Book): BookProblem[] {
       .map((id) => ({
         code: 'unknown-reference' as const,
         recipe: recipe.id,
+        field: 'sale.quid' as const,
+        use: id,
         message: `The sale details of ${recipe.name} ask for the quantity of '${id}', which is neither an ingredient nor a recipe in this book.`,
       })),
   );
@@ -115,7 +127,7 @@ function cycles(book: Book): BookProblem[] {
           const names = cycle.map((r) => recipes.get(r)?.name ?? r);
           problems.push({
             code: 'recipe-cycle',
-            recipe: cycle[0],
+            recipes: cycle.slice(0, -1),
             message: `${names[0]} contains itself: ${names.join(' → ')}. Remove one of these lines.`,
           });
         }
