@@ -60,6 +60,19 @@ describe('apiClient', () => {
     });
   });
 
+  it('carries the problems of a refused recipe book, with their ids, as the API sent them', async () => {
+    const problems = [
+      {
+        code: 'recipe-cycle',
+        recipes: ['vanilla-sponge', 'victoria-sponge'],
+        message: 'Vanilla sponge contains itself: Vanilla sponge → Victoria sponge → Vanilla sponge. Remove one of these lines.',
+      },
+    ];
+    answer(400, { statusCode: 400, code: 'recipe-cycle', message: problems[0]!.message, problems });
+    const error = await apiClient.put('/recipes/victoria-sponge', {}).catch((e: unknown) => e);
+    expect(error).toMatchObject({ status: 400, code: 'recipe-cycle', fields: [], problems });
+  });
+
   it('explains an error answer that has no body', async () => {
     answer(502);
     await expect(apiClient.get('/me')).rejects.toMatchObject({ status: 502, code: 'internal' });

@@ -1,20 +1,26 @@
-import type { ApiErrorBody, ErrorCode, FieldError } from '@crumbproof/shared';
+import type { ApiErrorBody, BookProblem, ErrorCode, FieldError } from '@crumbproof/shared';
 
 /** Codes the browser adds to the API's own: the request never arrived, or the answer was unreadable. */
 export type ClientErrorCode = ErrorCode | 'network' | 'bad-response';
 
-/** The one error every server call throws: the API's body, or a plain sentence when there was none. */
+/**
+ * The one error every server call throws: the API's body, or a plain sentence when there was none.
+ * `fields` name bad inputs of the request; `problems` are the reasons a recipe book cannot be
+ * declared, with the ids they involve (the recipe, its line, the recipes of a cycle in order).
+ */
 export class ApiError extends Error {
   readonly status: number;
   readonly code: ClientErrorCode;
   readonly fields: FieldError[];
+  readonly problems: BookProblem[];
 
-  constructor(status: number, code: ClientErrorCode, message: string, fields: FieldError[] = []) {
+  constructor(status: number, code: ClientErrorCode, message: string, fields: FieldError[] = [], problems: BookProblem[] = []) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.problems = problems;
   }
 }
 
@@ -77,7 +83,7 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
   const body = await readJson(response);
   if (!response.ok) {
     if (isErrorBody(body)) {
-      throw new ApiError(response.status, body.code, body.message, body.fields ?? []);
+      throw new ApiError(response.status, body.code, body.message, body.fields ?? [], body.problems ?? []);
     }
     throw new ApiError(
       response.status,

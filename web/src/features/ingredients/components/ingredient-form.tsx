@@ -11,7 +11,6 @@ import { allergenStatementOf, type AllergenStatement } from '../utils/ingredient
 import {
   ALL_NUTRITION_KEYS,
   extraFigures,
-  humaniseMessage,
   NUTRITION_FIELDS,
   parseNumberInput,
   parseOptionalText,
@@ -81,7 +80,7 @@ function firstMessage(error: unknown): string | undefined {
 function errorAt(errors: FieldErrors<IngredientFormValues>, path: string): string | undefined {
   let node: unknown = errors;
   for (const part of path.split('.')) node = (node as Record<string, unknown> | undefined)?.[part];
-  return humaniseMessage(firstMessage(node));
+  return firstMessage(node);
 }
 
 function toFormValues(ingredient: IngredientView | undefined): IngredientFormValues {

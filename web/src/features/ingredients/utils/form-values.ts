@@ -79,20 +79,6 @@ export function parseOptionalText(value: unknown): string | undefined {
   return value.trim() === '' ? undefined : value;
 }
 
-/** Turns zod's default wording into a sentence that says what to do. */
-export function humaniseMessage(message: string | undefined): string | undefined {
-  if (!message) return message;
-  if (/expected number, received/i.test(message)) return 'Write a number, such as 0.5.';
-  const big = /Too big: expected number to be <=?\s*([\d.]+)/i.exec(message);
-  if (big) return `Use a number no larger than ${big[1]}.`;
-  if (/Too small: expected number to be >0\b/i.test(message)) return 'Use a number above zero.';
-  const small = /Too small: expected number to be >=?\s*([\d.]+)/i.exec(message);
-  if (small) return `Use a number of at least ${small[1]}.`;
-  const long = /Too big: expected string to have <=?\s*(\d+)/i.exec(message);
-  if (long) return `Keep this to ${long[1]} characters or fewer.`;
-  return message;
-}
-
 /** Drops figures left empty, and the whole nutrition record when it holds no figure at all. */
 export function cleanNutrition(nutrition: Nutrition | undefined): Nutrition | undefined {
   if (!nutrition) return undefined;

@@ -91,17 +91,6 @@ export function numberOrUndefined(value: unknown): number | undefined {
   return Number.isNaN(n) ? undefined : n;
 }
 
-function plainMessages(errors: FieldErrors): FieldErrors {
-  for (const [key, value] of Object.entries(errors)) {
-    // `ref` is the DOM control; `types` holds raw messages by rule.
-    if (key === 'ref' || key === 'types' || !value || typeof value !== 'object') continue;
-    const error = value as { message?: unknown };
-    if (typeof error.message === 'string' && /expected number/i.test(error.message)) error.message = 'Enter a number.';
-    plainMessages(value as FieldErrors);
-  }
-  return errors;
-}
-
 const bookResolver = zodResolver(bookRecipeSchema);
 
 /**
@@ -120,17 +109,5 @@ export const editorResolver: Resolver<EditorValues> = async (values, context, op
     if (s.claims) mapped.claims = s.claims as never;
     if (s.quid) mapped.quid = s.quid as never;
   }
-  return { values: {}, errors: plainMessages(mapped as FieldErrors) as FieldErrors<EditorValues> };
+  return { values: {}, errors: mapped };
 };
-
-/**
- * A problem the API names on a line: `recipes.<id>.lines.<n>` (1-based, book problems) or
- * `lines.<i>.<field>` (0-based, validation). Returns the 0-based index, or null.
- */
-export function lineIndexOf(path: string, recipeId: string): number | null {
-  const book = /^recipes\.(.+)\.lines\.(\d+)/.exec(path);
-  if (book) return book[1] === recipeId ? Number(book[2]) - 1 : null;
-  const validation = /^lines\.(\d+)(\.|$)/.exec(path);
-  if (validation) return Number(validation[1]);
-  return null;
-}

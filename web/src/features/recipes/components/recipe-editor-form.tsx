@@ -7,12 +7,13 @@ import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
 import type { ComboboxOption } from '@/components/ui/item-combobox';
 import type { ItemLookup } from '@/components/ui/layer-path';
-import { isApiError, type ApiError } from '@/lib/api-client';
+import { isApiError } from '@/lib/api-client';
 import { usePreviewDeclaration } from '../api/preview-declaration';
 import { useSaveRecipe } from '../api/save-recipe';
 import type { RecipeView } from '../api/types';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
-import { editorResolver, lineIndexOf, numberOrUndefined, toBookRecipe, toEditorValues, type EditorValues } from './editor-values';
+import { editorResolver, numberOrUndefined, toBookRecipe, toEditorValues, type EditorValues } from './editor-values';
+import { lineProblems } from './line-problems';
 import { LineRows } from './line-rows';
 import { LiveDeclaration } from './live-declaration';
 
@@ -26,32 +27,6 @@ interface RecipeEditorFormProps {
   options: readonly ComboboxOption[];
   lookup: ItemLookup;
   onSaved: (saved: RecipeView) => void;
-}
-
-/** Problems the API names on a line of this recipe, by 0-based index. */
-function lineProblems(
-  error: ApiError | null,
-  recipeId: string,
-  lines: EditorValues['lines'],
-  nameOf: (id: string) => string | undefined,
-): Map<number, string[]> {
-  const byLine = new Map<number, string[]>();
-  if (!error) return byLine;
-  const add = (index: number, message: string) => byLine.set(index, [...(byLine.get(index) ?? []), message]);
-  for (const field of error.fields) {
-    const index = lineIndexOf(field.path, recipeId);
-    if (index !== null && index < lines.length) add(index, field.message);
-  }
-  // A cycle names no line, only recipes ("A contains itself: A → B → A."): mark the lines using them.
-  if (error.code === 'recipe-cycle' && byLine.size === 0) {
-    const chain = error.message.split(':').slice(1).join(':');
-    lines.forEach((line, index) => {
-      const name = nameOf(line.use);
-      const inChain = name !== undefined && chain.split('→').some((part) => part.trim().replace(/\.$/, '') === name);
-      if (line.use === recipeId || inChain) add(index, error.message);
-    });
-  }
-  return byLine;
 }
 
 /** A short sentence on what stops the preview, from the form's own validation. */
@@ -107,10 +82,11 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
 
   const saveError = save.isError && isApiError(save.error) ? save.error : null;
   const shownError = saveError ?? previewError;
-  const apiLineErrors = lineProblems(shownError, forPreview.id, watched.lines ?? [], (id) => {
-    const info = lookup(id);
-    return info?.kind === 'recipe' ? info.name : undefined;
-  });
+  const apiLineErrors = lineProblems(
+    shownError,
+    forPreview.id,
+    (watched.lines ?? []).map((line) => line.use),
+  );
   const previewLookup = useMemo<ItemLookup>(
     () => (id) => (id === forPreview.id ? { name: forPreview.name, kind: 'recipe' } : lookup(id)),
     [lookup, forPreview.id, forPreview.name],

@@ -1,4 +1,4 @@
-import type { BookRecipe } from '@crumbproof/shared';
+import type { BookProblem, BookRecipe } from '@crumbproof/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { mockApi, signedInAs, type ApiHandlers } from '@/testing/mock-api';
@@ -17,22 +17,36 @@ function editorApi(extra: ApiHandlers = {}) {
   );
 }
 
-const unweighable = {
-  status: 400,
-  body: {
-    statusCode: 400,
-    code: 'unweighable-line',
-    message:
-      "Line 2 of Victoria sponge uses 'jam' in 'each', but Raspberry jam has no weight per unit. Add the weight of one raspberry jam, or write the line in grams.",
-    fields: [
-      {
-        path: 'recipes.victoria-sponge.lines.2',
-        message:
-          "Line 2 of Victoria sponge uses 'jam' in 'each', but Raspberry jam has no weight per unit. Add the weight of one raspberry jam, or write the line in grams.",
-      },
-    ],
-  },
+const jamMessage =
+  "Line 2 of Victoria sponge uses 'jam' in 'each', but Raspberry jam has no weight per unit. Add the weight of one raspberry jam, or write the line in grams.";
+
+/** A refusal as the API sends it: the message for people, the problems with their ids. */
+function refused(problems: BookProblem[]) {
+  return {
+    status: 400,
+    body: { statusCode: 400, code: problems[0]!.code, message: problems.map((p) => p.message).join(' '), problems },
+  };
+}
+
+const jamLine: BookProblem = {
+  code: 'unweighable-line',
+  recipe: 'victoria-sponge',
+  field: 'unit',
+  line: 2,
+  use: 'jam',
+  unit: 'each',
+  needs: 'gEach',
+  message: jamMessage,
 };
+const unweighable = refused([jamLine]);
+
+/** Whether the pickers of lines 1 to 3 are each marked invalid. */
+function lineMarks() {
+  return [1, 2, 3].map((n) => {
+    const picker = screen.getByRole('combobox', { name: `Ingredient or recipe for line ${n}` });
+    return picker.getAttribute('aria-invalid') === 'true';
+  });
+}
 
 describe('Recipe editor', () => {
   it('loads the recipe into the form with its lines, and the live declaration beside it', async () => {
@@ -111,21 +125,52 @@ describe('Recipe editor', () => {
     expect(within(live).getByRole('alert')).toHaveTextContent("Line 2 of Victoria sponge uses 'jam' in 'each'");
   });
 
-  it('marks the line that closes a recipe cycle', async () => {
+  it('marks the line that closes a recipe cycle: the one using the next recipe of the cycle', async () => {
     const message = 'Vanilla sponge contains itself: Vanilla sponge → Victoria sponge → Vanilla sponge. Remove one of these lines.';
     editorApi({
-      'POST /api/declarations/preview': {
-        status: 400,
-        body: { statusCode: 400, code: 'recipe-cycle', message, fields: [{ path: 'recipes.vanilla-sponge', message }] },
-      },
+      'POST /api/declarations/preview': refused([{ code: 'recipe-cycle', recipes: ['vanilla-sponge', 'victoria-sponge'], message }]),
     });
     renderApp('/recipes/victoria-sponge/edit');
 
     const line1 = await screen.findByRole('combobox', { name: 'Ingredient or recipe for line 1' });
     await waitFor(() => expect(line1).toHaveAttribute('aria-invalid', 'true'));
     expect(line1).toHaveAccessibleDescription(expect.stringContaining('contains itself'));
-    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 2' })).not.toHaveAttribute('aria-invalid');
+    expect(lineMarks()).toEqual([true, false, false]);
     expect(within(screen.getByRole('region', { name: 'Live declaration' })).getByRole('alert')).toHaveTextContent(message);
+  });
+
+  it('places a problem on the line its ids name, whatever its words say, and leaves another recipe’s problem off these lines', async () => {
+    editorApi({
+      'POST /api/declarations/preview': refused([
+        { ...jamLine, line: 3, use: 'flour', message: 'Plain wheat flour cannot be weighed in this unit.' },
+        { ...jamLine, recipe: 'vanilla-sponge', line: 1, use: 'flour', message: 'Vanilla sponge has a line that cannot be weighed.' },
+      ]),
+    });
+    renderApp('/recipes/victoria-sponge/edit');
+
+    const line3 = await screen.findByRole('combobox', { name: 'Ingredient or recipe for line 3' });
+    await waitFor(() => expect(line3).toHaveAttribute('aria-invalid', 'true'));
+    expect(line3).toHaveAccessibleDescription('Plain wheat flour cannot be weighed in this unit.');
+    expect(lineMarks()).toEqual([false, false, true]);
+    expect(within(screen.getByRole('region', { name: 'Live declaration' })).getByRole('alert')).toHaveTextContent(
+      'Vanilla sponge has a line that cannot be weighed.',
+    );
+  });
+
+  it('marks the line whose id the kitchen does not have when a save is refused', async () => {
+    const message = "Line 1 of Victoria sponge uses 'vanilla-sponge', which is neither an ingredient nor a recipe in this book.";
+    editorApi({
+      'PUT /api/recipes/victoria-sponge': refused([
+        { code: 'unknown-reference', recipe: 'victoria-sponge', field: 'use', line: 1, use: 'vanilla-sponge', message },
+      ]),
+    });
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+
+    await screen.findByRole('heading', { level: 1, name: 'Edit Victoria sponge' });
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+    expect(await screen.findByText(/^Nothing was saved\./)).toHaveTextContent(message);
+    expect(lineMarks()).toEqual([true, false, false]);
+    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 1' })).toHaveAccessibleDescription(message);
   });
 
   it('keeps the form and says nothing was saved when the API refuses the save', async () => {
