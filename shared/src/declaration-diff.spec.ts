@@ -22,7 +22,7 @@ function declaration(over: Partial<Declaration>): Declaration {
     ingredientsMarkdown: '',
     mayContainText: null,
     quid: [],
-    sulphites: { mgPerKg: 0, declared: false },
+    sulphites: { status: 'below-threshold', mgPerKg: 0, statedMgPerKg: 0, declared: false, missing: [] },
     warnings: [],
     errors: [],
     ...over,

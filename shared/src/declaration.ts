@@ -90,13 +90,44 @@ export interface QuidEntry {
   text: string;
 }
 
-export interface SulphiteResult {
+/**
+ * What is known of the product's sulphites. Unknown data never reads as "not declared":
+ * - 'declared': sulphites go on the label, because the stated contents alone compare above the
+ *   regime's threshold, or because a sulphite source has no stated content (the product
+ *   contains sulphites, amount not stated);
+ * - 'below-threshold': every leaf's content is known (stated, or no sulphites in its allergen
+ *   statement) and the total does not reach the threshold; not declared;
+ * - 'not-known': a leaf with no allergen statement and no stated content may bring sulphites,
+ *   and what is stated does not reach the threshold. Labels are not printed from it.
+ */
+export const SULPHITE_STATUSES = ['declared', 'below-threshold', 'not-known'] as const;
+export type SulphiteStatus = (typeof SULPHITE_STATUSES)[number];
+
+/** An ingredient whose sulphite content is not known, and why. */
+export interface SulphiteGap {
+  ingredient: string;
+  name: string;
   /**
-   * Total SO2 in the product as eaten (mg/kg on the finished weight); null when a sulphite
-   * source has no stated content, or a leaf with no allergen statement has none either.
+   * 'content-not-stated': brings sulphites with no stated mg/kg; 'contact-line': brings
+   * sulphites through a contact line, which has no weight; 'no-allergen-statement': no
+   * allergen statement and no stated content, so it may bring sulphites.
+   */
+  reason: 'content-not-stated' | 'contact-line' | 'no-allergen-statement';
+}
+
+export interface SulphiteResult {
+  status: SulphiteStatus;
+  /**
+   * Total SO2 in the product as eaten (mg/kg on the finished weight, at the threshold
+   * precision); null when any ingredient's content is not known (`missing`).
    */
   mgPerKg: number | null;
+  /** SO2 from the stated contents alone: mgPerKg when that is known, else the least the product holds. */
+  statedMgPerKg: number;
+  /** True exactly when status is 'declared'. */
   declared: boolean;
+  /** Each ingredient whose content is not known, once, in the order of the product's lines. */
+  missing: SulphiteGap[];
 }
 
 export const DECLARATION_NOTICE_CODES = [
@@ -107,6 +138,8 @@ export const DECLARATION_NOTICE_CODES = [
   'dietary-discrepancy',
   'allergens-unknown',
   'sulphites-unstated',
+  /** The product's sulphites are not known (status 'not-known'), one per ingredient missing data; label printing refuses it. */
+  'sulphites-not-known',
   'species-missing',
   'vegan-not-dairy-free',
   'added-water-omitted',

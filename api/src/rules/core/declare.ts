@@ -189,7 +189,13 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
     ingredientsMarkdown: rendered.markdown,
     mayContainText: mayContainText(mayContain),
     quid: quid.quid,
-    sulphites: { mgPerKg: sulphites.mgPerKg, declared: sulphites.declared },
+    sulphites: {
+      status: sulphites.status,
+      mgPerKg: sulphites.mgPerKg,
+      statedMgPerKg: sulphites.statedMgPerKg,
+      declared: sulphites.declared,
+      missing: sulphites.missing,
+    },
     warnings,
     errors,
   };

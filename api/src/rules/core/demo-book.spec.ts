@@ -52,6 +52,14 @@ describe('the demo kitchen', () => {
     expect(d.exempt.map((e) => e.ingredient)).toEqual(['glucose-syrup']);
   });
 
+  it('layer cake: with the sugar strands unknown its sulphites are not known, never below the threshold', () => {
+    const d = of('strawberry-layer-cake');
+    // Assimilated Regulation 1169/2011 Annex II point 12 declares more than 10 mg/kg; nothing recorded shows the cake is under it.
+    expect(d.sulphites).toMatchObject({ status: 'not-known', mgPerKg: null, declared: false });
+    expect(d.sulphites.missing).toEqual([{ ingredient: 'sugar-strands', name: 'Sugar strands', reason: 'no-allergen-statement' }]);
+    expect(d.warnings.filter((w) => w.code === 'sulphites-not-known').map((w) => w.ingredient)).toEqual(['sugar-strands']);
+  });
+
   it('vegan brownie: vegan is ok, and the declaration warns it is not dairy-free (plant spread and chocolate may contain milk)', () => {
     const d = of('vegan-brownie');
     expect(d.claims.vegan).toEqual({ status: 'ok', reasons: [] });
@@ -80,7 +88,7 @@ describe('the demo kitchen', () => {
     // 100 g at 1800 mg/kg in 930 g as eaten: 180 mg / 0.93 kg = 193.548… mg/kg, reported at six
     // significant figures; more than 10 (Regulation (EU) No 1169/2011 Annex II point 12)
     expect(d.sulphites.mgPerKg).toBe(193.548);
-    expect(d.sulphites.declared).toBe(true);
+    expect(d.sulphites.status).toBe('declared');
     expect(d.ingredients[d.ingredients.length - 1]).toMatchObject({ id: 'plain-flour', role: 'contact' });
     expect(d.claims.vegan.status).toBe('ok');
   });

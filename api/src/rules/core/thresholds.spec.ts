@@ -151,6 +151,7 @@ describe('sulphites at 10 mg/kg as eaten', () => {
     expect(d.sulphites.mgPerKg).toBe(atThresholdPrecision(raw));
     if (c.raw !== null) expect(d.sulphites.mgPerKg).toBe(10);
     expect(d.sulphites.declared).toBe(declared);
+    expect(d.sulphites.status).toBe(declared ? 'declared' : 'below-threshold');
     const group = refs.regimes[regime].sulphites.group;
     if (group) expect(d.contains.some((c) => c.allergen === group)).toBe(declared);
     // US: no allergen group; declared sulphites are named in the list (21 CFR 101.100(a)(4), from memory).

@@ -265,7 +265,13 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
     ingredientsMarkdown: 'Vanilla sponge (**wheat** flour, butter (**milk**), **eggs**), raspberry jam (16%).',
     mayContainText: 'May contain: sesame.',
     quid: [{ ingredient: 'jam', name: 'Raspberry jam', percent: 16.7, text: 'Raspberry jam 17%' }],
-    sulphites: { mgPerKg: 2.5, declared: false },
+    sulphites: {
+      status: 'not-known',
+      mgPerKg: null,
+      statedMgPerKg: 2.5,
+      declared: false,
+      missing: [{ ingredient: 'jam', name: 'Raspberry jam', reason: 'no-allergen-statement' }],
+    },
     warnings: [{ code: 'allergens-unknown', message: 'Raspberry jam has no allergen statement.', ingredient: 'jam' }],
     errors: [],
   };

@@ -136,7 +136,7 @@ function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
     ingredientsMarkdown: `Wheat flour, ${fat.toLowerCase()}.`,
     mayContainText: leaf === 'butter' ? null : 'May contain: milk.',
     quid: [],
-    sulphites: { mgPerKg: 0, declared: false },
+    sulphites: { status: 'below-threshold', mgPerKg: 0, statedMgPerKg: 0, declared: false, missing: [] },
     warnings: [],
     errors: [],
   };
