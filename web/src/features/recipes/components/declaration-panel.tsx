@@ -7,6 +7,7 @@ import { LayerPath, type ItemLookup } from '@/components/ui/layer-path';
 import { Quantity } from '@/components/ui/quantity';
 import { StatusMark } from '@/components/ui/status-mark';
 import { PanelSection, type HeadingLevel } from './panel-section';
+import { SulphiteSummary } from './sulphite-summary';
 
 export const DECLARATION_CAUTION =
   'Computed from the recipes and supplier information recorded in Crumbproof. Check it against current supplier specifications before relying on it; local law and your kitchen’s food-safety system decide.';
@@ -162,16 +163,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
             </Box>
           </Box>
         ) : null}
-        <Text>
-          <Text as="span" fontWeight="bold">
-            Sulphites:{' '}
-          </Text>
-          {declaration.sulphites.mgPerKg === null
-            ? 'Not known: a sulphite source has no stated content.'
-            : `${declaration.sulphites.mgPerKg.toLocaleString('en-GB', { maximumFractionDigits: 1 })} mg/kg as eaten, ${
-                declaration.sulphites.declared ? 'declared on the label' : 'not declared (below the threshold)'
-              }.`}
-        </Text>
+        <SulphiteSummary sulphites={declaration.sulphites} />
         <Text color="fg.muted" textStyle="sm">
           <Quantity>{`Finished weight ${declaration.finishedWeightG} g; mix ${declaration.mixWeightG} g${
             declaration.portionG ? `; portion ${declaration.portionG} g` : ''
