@@ -197,13 +197,13 @@ describe('supplier specifications (real MariaDB)', () => {
     }
   });
 
-  it('serves the same bytes back, inline, with the stored type and name', async () => {
+  it('serves the same bytes back, as an attachment, with the stored type and name', async () => {
     const created = (await upload('dark-chocolate', { reviewBy: isoDay(90) }, { name: 'Chocolat noir – fiche.pdf', bytes: pdf })).json();
     const res = await get(created.fileUrl);
     expect(res.statusCode).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['content-disposition']).toBe(
-      `inline; filename="Chocolat noir _ fiche.pdf"; filename*=UTF-8''${encodeURIComponent('Chocolat noir – fiche.pdf')}`,
+      `attachment; filename="Chocolat noir _ fiche.pdf"; filename*=UTF-8''${encodeURIComponent('Chocolat noir – fiche.pdf')}`,
     );
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(sha256(res.rawPayload)).toBe(sha256(pdf));

@@ -49,6 +49,8 @@ export const configSchema = z.object({
    * proxy rewrote Host, and the first manager's link is printed with it.
    */
   PUBLIC_URL: unsetIfEmpty(z.url({ protocol: /^https?$/, error: 'PUBLIC_URL must be an http or https address.' }).optional()),
+  /** The most the supplier specification files of one kitchen may take in all, in MB (1 MB = 1,048,576 bytes). */
+  KITCHEN_FILE_QUOTA_MB: z.coerce.number().positive().default(500),
   WEB_DIST: z.string().optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
 });

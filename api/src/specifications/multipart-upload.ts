@@ -140,22 +140,50 @@ export function describeType(type: DetectedType | undefined): string {
   return `${/^[AEFHILMNORSX]/.test(name) ? 'an' : 'a'} ${name} file (${type.mime})`;
 }
 
-/** Keeps the last path segment, drops control and reserved characters, and keeps it short. */
+/**
+ * Control characters (Unicode category Cc: C0, DEL and C1) and the bidirectional controls of
+ * Unicode Standard Annex #9 (embeddings and overrides U+202A–U+202E, isolates U+2066–U+2069, the
+ * marks U+200E, U+200F and U+061C), which can make "invoice\u202Egnp.exe" read as "invoiceexe.png",
+ * and the line and paragraph separators U+2028 and U+2029.
+ */
+// eslint-disable-next-line no-control-regex -- control characters are what this matches
+const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u2028-\u202e\u2066-\u2069]/g;
+
+const MAX_FILENAME = 200;
+
+/** Keeps the last path segment, drops control, bidirectional and reserved characters, and keeps it short. */
 export function safeFilename(name: string | undefined): string {
   const base = (name ?? '').split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
   let clean = base
     .normalize('NFC')
-    .replace(/[\u0000-\u001f\u007f"<>:|?*]/g, '')
+    .replace(CONTROL_CHARACTERS, '')
+    .replace(/["<>:|?*]/g, '')
     .replace(/\s+/g, ' ')
     .trim()
     .replace(/^\.+/, '');
-  if (clean.length > 200) {
+  if (clean.length > MAX_FILENAME) {
     const dot = clean.lastIndexOf('.');
     const ext = dot > 0 && clean.length - dot <= 10 ? clean.slice(dot) : '';
-    clean = clean.slice(0, 200 - ext.length) + ext;
+    clean = clean.slice(0, MAX_FILENAME - ext.length) + ext;
   }
   return clean;
+}
+
+/** Other names of the same type's extension (file-type names JPEG 'jpg'). */
+const SAME_EXTENSION: Record<string, string[]> = { jpg: ['jpeg', 'jpe', 'jfif'], tif: ['tiff'] };
+
+/**
+ * The name with the extension of the type found in the bytes: kept when it already ends so (in
+ * any case), a short extension that names another type replaced ("spec.png" of a PDF becomes
+ * "spec.pdf"), and the extension added otherwise ("version 1.2" becomes "version 1.2.pdf").
+ */
+export function withExtension(name: string, ext: string, fallback = 'file'): string {
+  const dot = name.lastIndexOf('.');
+  const current = dot > 0 ? name.slice(dot + 1) : '';
+  const lower = current.toLowerCase();
+  if (lower === ext || SAME_EXTENSION[ext]?.includes(lower)) return name;
+  const stem = (/^[a-z][a-z0-9]{0,3}$/i.test(current) ? name.slice(0, dot) : name).replace(/[.\s]+$/, '') || fallback;
+  return `${stem.slice(0, MAX_FILENAME - ext.length - 1)}.${ext}`;
 }
 
 /** Documents a multipart form with a `file` and text fields in the OpenAPI document. */

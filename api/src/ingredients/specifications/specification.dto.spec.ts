@@ -53,7 +53,7 @@ describe('specification uploads', () => {
 
   it('serves a name with an ASCII fallback and the exact UTF-8 name', () => {
     expect(contentDisposition('Crème "fraîche".pdf')).toBe(
-      `inline; filename="Cr_me _fra_che_.pdf"; filename*=UTF-8''Cr%C3%A8me%20%22fra%C3%AEche%22.pdf`,
+      `attachment; filename="Cr_me _fra_che_.pdf"; filename*=UTF-8''Cr%C3%A8me%20%22fra%C3%AEche%22.pdf`,
     );
   });
 });

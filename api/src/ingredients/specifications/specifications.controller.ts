@@ -38,8 +38,11 @@ export class SpecificationsController {
 
   @Get('specifications/:id/file')
   @Header('X-Content-Type-Options', 'nosniff')
+  @Header('Content-Security-Policy', 'sandbox')
   @Header('Cache-Control', 'private, no-store')
-  @ApiOperation({ summary: 'The specification file itself, inline, with the type found at upload' })
+  @ApiOperation({
+    summary: 'The specification file itself, to download: the type found at upload, a name ending in its extension, sandboxed',
+  })
   file(@Param('id') id: string) {
     return this.specs.file(id);
   }

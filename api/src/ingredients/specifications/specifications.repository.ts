@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { SpecificationModel } from './specification.model';
 
 export interface NewSpecification {
@@ -72,6 +72,15 @@ export class SpecificationsRepository {
       (await this.specs.max<number, SpecificationModel>('version', { where: { ingredientId: values.ingredientId }, transaction: t })) ?? 0;
     const created = await this.specs.create({ ...values, version: Number(last) + 1 }, { transaction: t });
     return this.findMetadata(created.id, t) as Promise<SpecificationRow>;
+  }
+
+  /** The bytes that the specification files of this kitchen's ingredients (archived ones too) take. */
+  async storedBytes(siteId: number, t?: Transaction): Promise<number> {
+    const row = await this.specs.sequelize!.query<{ bytes: number | string | null }>(
+      'SELECT COALESCE(SUM(s.size_bytes), 0) AS bytes FROM specifications s JOIN ingredients i ON i.id = s.ingredient_id WHERE i.site_id = ?',
+      { replacements: [siteId], type: QueryTypes.SELECT, plain: true, transaction: t },
+    );
+    return Number(row?.bytes ?? 0);
   }
 
   async findMetadata(id: number, t?: Transaction): Promise<SpecificationRow | null> {

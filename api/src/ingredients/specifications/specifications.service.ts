@@ -1,15 +1,18 @@
 import { createHash } from 'node:crypto';
 import { Injectable, StreamableFile } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { AppError } from '../../common/app-error';
 import { TransactionRunner } from '../../common/transaction';
 import { validationError } from '../../common/zod.pipe';
 import type { Head } from '../../common/revisioned.repository';
+import type { AppConfig } from '../../config/config';
 import { KitchenService } from '../../kitchen/kitchen.service';
+import { SiteRepository } from '../../kitchen/site.repository';
 import { UsersRepository } from '../../users/users.repository';
 import { IngredientsRepository } from '../ingredients.repository';
 import { ACCEPTED_SPECIFICATION_TYPES, specificationFieldsSchema, today } from './specification.dto';
 import type { SpecificationStatus, SpecificationView } from '@crumbproof/shared';
-import { describeType, detectType, type Upload } from '../../specifications/multipart-upload';
+import { describeType, detectType, safeFilename, withExtension, type Upload } from '../../specifications/multipart-upload';
 import { SpecificationsRepository, type SpecificationRow } from './specifications.repository';
 
 /** Supplier specifications of ingredients: versioned uploads with a date to check them again. */
@@ -21,6 +24,8 @@ export class SpecificationsService {
     private readonly kitchen: KitchenService,
     private readonly users: UsersRepository,
     private readonly tx: TransactionRunner,
+    private readonly sites: SiteRepository,
+    private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
   private async ingredient(code: string): Promise<Head> {
@@ -54,12 +59,18 @@ export class SpecificationsService {
       const message = `Only PDF files and images (PNG, JPEG, WebP) can be attached; this file is ${describeType(type)}.`;
       throw new AppError('validation', message, [{ path: 'file', message }]);
     }
+    const quota = this.config.get('KITCHEN_FILE_QUOTA_MB', { infer: true });
+    const kitchen = await this.kitchen.current();
     const row = await this.tx.run(async (t) => {
+      // The kitchen first (as every kitchen write does), so two uploads cannot together pass its quota.
+      await this.sites.lock(t);
       await this.ingredients.lockHead(ingredient.id, t);
+      const stored = await this.repo.storedBytes(kitchen.id, t);
+      if (stored + bytes.length > quota * MB) throw overQuota(quota, stored, bytes.length);
       return this.repo.add(
         {
           ingredientId: ingredient.id,
-          filename: filename || `specification.${ACCEPTED_SPECIFICATION_TYPES[type.mime]}`,
+          filename: withExtension(filename, ACCEPTED_SPECIFICATION_TYPES[type.mime], 'specification'),
           mediaType: type.mime,
           sizeBytes: bytes.length,
           sha256: createHash('sha256').update(bytes).digest('hex'),
@@ -83,7 +94,10 @@ export class SpecificationsService {
     return rows.map((r, i) => view(r, ingredient.code, i === 0, now, uploaders));
   }
 
-  /** The stored bytes, served inline with the type found at upload. */
+  /**
+   * The stored bytes, to download (never shown in the API's own origin), with the type found at
+   * upload and a name ending in its extension, cleaned again in case it was stored before.
+   */
   async file(id: string): Promise<StreamableFile> {
     const n = /^\d{1,9}$/.test(id) ? Number(id) : NaN;
     const found = Number.isNaN(n) ? null : await this.repo.findFile(n);
@@ -91,7 +105,9 @@ export class SpecificationsService {
     return new StreamableFile(found.content, {
       type: found.mediaType,
       length: found.content.length,
-      disposition: contentDisposition(found.filename),
+      disposition: contentDisposition(
+        withExtension(safeFilename(found.filename), ACCEPTED_SPECIFICATION_TYPES[found.mediaType] ?? 'bin', 'specification'),
+      ),
     });
   }
 
@@ -133,8 +149,19 @@ function view(r: SpecificationRow, ingredient: string, current: boolean, now: st
   };
 }
 
-/** inline, with an ASCII fallback name and the exact name in RFC 5987 form. */
+const MB = 1024 * 1024;
+
+const size = (bytes: number) =>
+  bytes < 1024 ? `${bytes} bytes` : bytes < MB ? `${Math.ceil(bytes / 1024)} KB` : `${Math.round((bytes / MB) * 10) / 10} MB`;
+
+function overQuota(quotaMb: number, stored: number, adding: number): AppError {
+  const limit = `the kitchen's specification files may take at most ${quotaMb} MB in all (the setting KITCHEN_FILE_QUOTA_MB)`;
+  const message = `Nothing was saved: ${limit}; they take ${size(stored)} already, and this file is ${size(adding)}.`;
+  return new AppError('too-large', message, [{ path: 'file', message: `This file would take the kitchen past its ${quotaMb} MB.` }]);
+}
+
+/** attachment (RFC 6266), with an ASCII fallback name and the exact name in RFC 5987 form. */
 export function contentDisposition(filename: string): string {
   const ascii = filename.replace(/[^\x20-\x7e]/g, '_').replace(/["\\;]/g, '_');
-  return `inline; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(filename).replace(/['()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)}`;
+  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(filename).replace(/['()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`)}`;
 }
