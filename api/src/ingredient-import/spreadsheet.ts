@@ -1,3 +1,4 @@
+import { access } from 'node:fs/promises';
 import { extname, join } from 'node:path';
 import { Worker, type WorkerOptions } from 'node:worker_threads';
 import { AppError } from '../common/app-error';
@@ -71,8 +72,20 @@ function startWorker(request: ParseRequest): Worker {
   return new Worker(compileAndRun, { ...options, eval: true });
 }
 
+/**
+ * Checked once, asynchronously, on the main thread: a build without the worker file fails with a
+ * plain error, and libuv's thread pool, which the whole process shares, is made here at normal
+ * priority, not by a worker that has lowered its own (a thread inherits its creator's nice value).
+ */
+let workerFileFound: Promise<void> | null = null;
+
 /** One read on its own worker thread, given up after the time limit or past the memory limit. */
-function readOnWorker(request: ParseRequest): Promise<ParseResult> {
+async function readOnWorker(request: ParseRequest): Promise<ParseResult> {
+  workerFileFound ??= access(WORKER_FILE).catch(() => {
+    workerFileFound = null;
+    throw new Error(`The spreadsheet reader ${WORKER_FILE} is missing: build the API again (npm run build).`);
+  });
+  await workerFileFound;
   return new Promise((resolve, reject) => {
     const worker = startWorker(request);
     let settled = false;

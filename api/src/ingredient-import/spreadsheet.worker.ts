@@ -1,16 +1,34 @@
 // Reads the rows of an uploaded CSV file or .xlsx workbook on a worker thread (spreadsheet.ts
 // starts it), so a large or hostile file never holds up the server's other requests. It imports
 // packages and types only: under jest it is compiled on its own, outside jest's module registry.
+import { constants, setPriority } from 'node:os';
 import { Readable } from 'node:stream';
 import { parentPort, workerData } from 'node:worker_threads';
-import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
+import type * as ExcelJS from 'exceljs';
+import type * as PapaParse from 'papaparse';
 import type { Cell } from './import-columns';
 
-/** The one function of file-type used here (as in specifications/multipart-upload.ts). */
-type FileTypeFromBuffer = (bytes: Uint8Array) => Promise<{ ext: string; mime: string } | undefined>;
-// eslint-disable-next-line @typescript-eslint/no-require-imports -- file-type is ESM only; Node loads it through require(esm)
-const { fileTypeFromBuffer } = require('file-type') as { fileTypeFromBuffer: FileTypeFromBuffer };
+const request = workerData as Partial<ParseRequest> | null;
+
+// Reading a file is background work. On Linux the nice value belongs to each thread, so this
+// lowers the priority of this worker's thread alone, before it loads and parses anything: where
+// the cores are busy, the main thread's requests are answered first.
+if (parentPort && request?.read === 'spreadsheet') {
+  try {
+    setPriority(constants.priority.PRIORITY_BELOW_NORMAL);
+  } catch {
+    // Lowering a priority is allowed everywhere it is supported; elsewhere the read runs as it is.
+  }
+}
+
+/* eslint-disable @typescript-eslint/no-require-imports -- loaded once the priority is lowered (imports would load first) */
+const excel = require('exceljs') as typeof ExcelJS;
+const Papa = require('papaparse') as typeof PapaParse;
+/** The one function of file-type used here (as in specifications/multipart-upload.ts); ESM only, loaded through require(esm). */
+const { fileTypeFromBuffer } = require('file-type') as {
+  fileTypeFromBuffer: (bytes: Uint8Array) => Promise<{ ext: string; mime: string } | undefined>;
+};
+/* eslint-enable @typescript-eslint/no-require-imports -- the rest of the file imports as usual */
 
 const XLSX_MIME = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
@@ -105,7 +123,7 @@ function lastValued(cells: Cell[]): number {
  * without building the 16,384 columns before it.
  */
 async function readXlsx({ bytes, maxRows, maxColumns }: ParseRequest): Promise<ParseResult> {
-  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(bytes)]), {
+  const reader = new excel.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(bytes)]), {
     worksheets: 'emit',
     sharedStrings: 'cache',
     styles: 'cache',
@@ -167,7 +185,6 @@ function cellValue(v: ExcelJS.CellValue): Cell {
 }
 
 const port = parentPort;
-const request = workerData as Partial<ParseRequest> | null;
 if (port && request?.read === 'spreadsheet') {
   let answered = false;
   // exceljs's streaming reader leaves its promise pending when a damaged zip stops yielding
