@@ -7,28 +7,74 @@ import {
   REGIMES,
   UNITS,
   allergenSourceSchema,
+  type Unit,
   exemptFormSchema,
   notInListMessage,
 } from './allergens';
 import { handlingSchema } from './kitchen';
+import { oneLine, plainText } from './text';
 
 /**
  * The recipe book: one JSON document holding a whole kitchen. It is the import, export and
  * backup format, and the input of the rules engine. Its JSON Schema is published as
  * reference-data/book.schema.json (generated from this file; a test keeps them equal).
  */
-const id = z.string().trim().min(1, 'An id cannot be empty.').max(80, 'Use an id of at most 80 characters.');
+
+/** The longest id: the code columns of ingredients and recipes hold 80 characters. */
+export const ID_MAX_LENGTH = 80;
+
+/**
+ * One way to write an id: lower-case ASCII letters, digits and hyphens, starting with a letter or
+ * digit. Ids are compared exactly (by the rules engine, the write path and the database alike),
+ * so 'SP-CASE' or 'sp-cäse' are never taken for 'sp-case': they are refused as ids.
+ */
+export const ID_PATTERN = /^[a-z0-9][a-z0-9-]*$/;
+
+/** Text written as an id: "Crème Pâtissière (Vanilla)" → "creme-patissiere-vanilla"; '' when nothing is left. */
+export function canonicalId(text: string): string {
+  return text
+    .normalize('NFKD')
+    .replace(/\p{M}/gu, '')
+    .toLowerCase()
+    .replace(/&/g, ' and ')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+/, '')
+    .slice(0, ID_MAX_LENGTH)
+    .replace(/-+$/, '');
+}
+
+/** What to do about a text that is not an id, with the id it would be. */
+export function idMessage(text: unknown): string {
+  const suggestion = (typeof text === 'string' ? canonicalId(text) : '') || 'plain-flour';
+  if (typeof text === 'string' && /^-+[a-z0-9-]*$/.test(text)) return `Start the id with a letter or digit, e.g. '${suggestion}'.`;
+  return `Use lower-case letters, digits and hyphens, e.g. '${suggestion}'.`;
+}
+
+/** The smallest quantity a line can weigh: a milligram, what a precision kitchen scale reads (common practice). */
+export const MIN_GRAMS = 0.001;
+
+/** An id of an ingredient or recipe, written the one canonical way; `whenEmpty` says what to do when none is given. */
+export function itemId(whenEmpty = 'An id cannot be empty.') {
+  return z
+    .string()
+    .min(1, { error: whenEmpty, abort: true })
+    .max(ID_MAX_LENGTH, `Use an id of at most ${ID_MAX_LENGTH} characters.`)
+    .regex(ID_PATTERN, { error: (issue) => idMessage(issue.input) });
+}
+export const itemIdSchema = itemId();
+const id = itemIdSchema;
 
 const sourceObjectSchema = z.strictObject(
   {
     source: allergenSourceSchema,
     form: exemptFormSchema.optional(),
-    species: z
-      .string({ error: 'Write the species as text, such as "cod".' })
-      .trim()
-      .min(1, 'Give the species, or leave it out.')
-      .max(60, 'Keep the species to 60 characters or fewer.')
-      .optional(),
+    species: oneLine(
+      z
+        .string({ error: 'Write the species as text, such as "cod".' })
+        .trim()
+        .min(1, 'Give the species, or leave it out.')
+        .max(60, 'Keep the species to 60 characters or fewer.'),
+    ).optional(),
   },
   {
     error: (issue) =>
@@ -54,46 +100,101 @@ export const sourceEntrySchema = z.union([allergenSourceSchema, sourceObjectSche
 });
 export type SourceEntry = z.infer<typeof sourceEntrySchema>;
 
+/**
+ * The most energy 100 g can hold: pure fat, the most energy-dense nutrient, gives 37 kJ (9 kcal)
+ * per gram (Regulation (EU) No 1169/2011 Annex XIV), so 3700 kJ or 900 kcal per 100 g.
+ */
+export const MAX_ENERGY_KJ_PER_100G = 3700;
+export const MAX_ENERGY_KCAL_PER_100G = 900;
+
+/** The nutrients that are separate parts of the food's mass: together they cannot weigh more than the 100 g they are in. */
+const MASS_PARTS = ['fat', 'carbohydrate', 'protein', 'fibre', 'salt'] as const;
+
+/** A mass per 100 g: from 0 to the 100 g it is part of. */
+const gramsPer100g = () => z.number().min(0).max(100);
+
 /** Nutrition per 100 g as eaten raw, in grams (cholesterol in mg). A key left out is not known. */
-export const nutritionSchema = z.strictObject({
-  energyKj: z.number().min(0).optional(),
-  energyKcal: z.number().min(0).optional(),
-  fat: z.number().min(0).max(100).optional(),
-  saturates: z.number().min(0).max(100).optional(),
-  transFat: z.number().min(0).max(100).optional(),
-  cholesterolMg: z.number().min(0).max(100000).optional(),
-  carbohydrate: z.number().min(0).max(100).optional(),
-  sugars: z.number().min(0).max(100).optional(),
-  addedSugars: z.number().min(0).max(100).optional(),
-  polyols: z.number().min(0).max(100).optional(),
-  erythritol: z.number().min(0).max(100).optional(),
-  fibre: z.number().min(0).max(100).optional(),
-  protein: z.number().min(0).max(100).optional(),
-  salt: z.number().min(0).max(100).optional(),
-  sodium: z.number().min(0).max(100).optional(),
-  alcohol: z.number().min(0).max(100).optional(),
-  organicAcids: z.number().min(0).max(100).optional(),
-  salatrims: z.number().min(0).max(100).optional(),
-  source: z.string().max(300).optional(),
-});
+export const nutritionSchema = z
+  .strictObject({
+    energyKj: z
+      .number()
+      .min(0)
+      .max(
+        MAX_ENERGY_KJ_PER_100G,
+        `Use at most ${MAX_ENERGY_KJ_PER_100G} kJ per 100 g: even pure fat gives no more (37 kJ per gram, Regulation (EU) No 1169/2011 Annex XIV).`,
+      )
+      .optional(),
+    energyKcal: z
+      .number()
+      .min(0)
+      .max(
+        MAX_ENERGY_KCAL_PER_100G,
+        `Use at most ${MAX_ENERGY_KCAL_PER_100G} kcal per 100 g: even pure fat gives no more (9 kcal per gram, Regulation (EU) No 1169/2011 Annex XIV).`,
+      )
+      .optional(),
+    fat: gramsPer100g().optional(),
+    saturates: gramsPer100g().optional(),
+    transFat: gramsPer100g().optional(),
+    /** 100000 mg is the whole 100 g. */
+    cholesterolMg: z.number().min(0).max(100000, 'Use at most 100000 mg per 100 g: that is the whole 100 g.').optional(),
+    carbohydrate: gramsPer100g().optional(),
+    sugars: gramsPer100g().optional(),
+    addedSugars: gramsPer100g().optional(),
+    polyols: gramsPer100g().optional(),
+    erythritol: gramsPer100g().optional(),
+    fibre: gramsPer100g().optional(),
+    protein: gramsPer100g().optional(),
+    salt: gramsPer100g().optional(),
+    sodium: gramsPer100g().optional(),
+    alcohol: gramsPer100g().optional(),
+    organicAcids: gramsPer100g().optional(),
+    salatrims: gramsPer100g().optional(),
+    source: oneLine(z.string().max(300)).optional(),
+  })
+  .superRefine((n, ctx) => {
+    const given = MASS_PARTS.filter((k) => n[k] !== undefined);
+    // A part over 100 g on its own has its own message already.
+    if (given.some((k) => n[k]! > 100)) return;
+    const total = given.reduce((sum, k) => sum + n[k]!, 0);
+    // A millionth of a gram of slack, so that decimal figures adding up to exactly 100 are not refused.
+    const last = given.at(-1);
+    if (last !== undefined && total > 100 + 1e-6) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [last],
+        input: total,
+        message: `${given.slice(0, -1).join(', ')} and ${last} add up to ${Math.round(total * 1000) / 1000} g, more than the 100 g they are part of; check the figures.`,
+      });
+    }
+  });
 export type Nutrition = z.infer<typeof nutritionSchema>;
 
 export const bookIngredientSchema = z.strictObject({
   id,
-  name: z.string().trim().min(1, 'Give the ingredient a name.').max(160),
-  supplier: z.string().trim().max(160).optional(),
-  supplierCode: z.string().trim().max(80).optional(),
+  name: oneLine(z.string().trim().min(1, 'Give the ingredient a name.').max(160)),
+  supplier: oneLine(z.string().trim().max(160)).optional(),
+  supplierCode: oneLine(z.string().trim().max(80)).optional(),
   /** Left out: the supplier gave no allergen statement (unknown). Empty: verified none. */
   contains: z.array(sourceEntrySchema).optional(),
   mayContain: z.array(sourceEntrySchema).default([]),
-  composition: z.string().max(4000).optional(),
+  composition: plainText(z.string().max(4000)).optional(),
   vegan: z.boolean({ error: 'Say whether it is vegan: true, false, or null when it is not known.' }).nullable(),
   vegetarian: z.boolean({ error: 'Say whether it is vegetarian: true, false, or null when it is not known.' }).nullable(),
   sulphiteMgPerKg: z.number().min(0).max(100000).optional(),
   /** Gluten measured or specified by the supplier, mg/kg. */
   glutenMgPerKg: z.number().min(0).max(1000000).optional(),
-  gPerMl: z.number().positive().max(5).optional(),
-  gEach: z.number().positive().max(100000).optional(),
+  /** From 0.01 g per ml (a puffed cereal measured by the cup) to 5 (no food is denser; common practice). */
+  gPerMl: z
+    .number()
+    .min(0.01, 'Use at least 0.01 g per ml: nothing measured in a kitchen is lighter.')
+    .max(5, 'Use at most 5 g per ml: no food is that dense.')
+    .optional(),
+  /** From a milligram (the smallest quantity a line can weigh) to 100 kg. */
+  gEach: z
+    .number()
+    .min(MIN_GRAMS, `Give a weight for one of at least ${MIN_GRAMS} g (1 mg).`)
+    .max(100000, 'Use at most 100000 g (100 kg) for one.')
+    .optional(),
   /**
    * This ingredient is added water (EU 1169/2011 Annex VII A.1). The engine also recognises
    * an ingredient whose id or name is 'water'.
@@ -105,21 +206,56 @@ export const bookIngredientSchema = z.strictObject({
 });
 export type BookIngredient = z.infer<typeof bookIngredientSchema>;
 
-export const recipeLineSchema = z.strictObject({
-  use: id,
-  qty: z
-    .number({ error: 'Give a quantity above zero.' })
-    .positive('Give a quantity above zero.')
-    .max(1_000_000, 'Use a quantity no larger than 1000000.'),
-  unit: z.enum(UNITS),
-  role: z.enum(LINE_ROLES).optional(),
-});
+/**
+ * What one recipe line can hold, per unit: from a milligram or a microlitre (a thousandth of a
+ * spoon, cup or item) up to a tonne or 1000 litres (200000 teaspoons of 5 ml, 50000 tablespoons of
+ * up to 20 ml, 4000 cups of 250 ml; 100000 items). Common practice: no kitchen line is outside them.
+ */
+export const QUANTITY_LIMITS: Record<Unit, { min: number; max: number }> = {
+  g: { min: MIN_GRAMS, max: 1_000_000 },
+  kg: { min: 0.000001, max: 1_000 },
+  ml: { min: 0.001, max: 1_000_000 },
+  l: { min: 0.000001, max: 1_000 },
+  tsp: { min: 0.001, max: 200_000 },
+  tbsp: { min: 0.001, max: 50_000 },
+  cup: { min: 0.001, max: 4_000 },
+  each: { min: 0.001, max: 100_000 },
+};
+
+export const recipeLineSchema = z
+  .strictObject({
+    use: id,
+    qty: z
+      .number({ error: 'Give a quantity above zero.' })
+      .positive('Give a quantity above zero.')
+      .max(1_000_000, 'Use a quantity no larger than 1000000.'),
+    unit: z.enum(UNITS),
+    role: z.enum(LINE_ROLES).optional(),
+  })
+  .superRefine((line, ctx) => {
+    const limits = QUANTITY_LIMITS[line.unit];
+    if (!limits || !(line.qty > 0)) return;
+    if (line.qty < limits.min)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['qty'],
+        input: line.qty,
+        message: `Use at least ${limits.min} ${line.unit}: a smaller quantity cannot be weighed or measured.`,
+      });
+    else if (line.qty > limits.max)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['qty'],
+        input: line.qty,
+        message: `Use at most ${limits.max} ${line.unit} in one line.`,
+      });
+  });
 export type RecipeLine = z.infer<typeof recipeLineSchema>;
 
 export const saleSchema = z.strictObject({
   portionG: z
     .number({ error: 'Give the weight of one portion in grams.' })
-    .positive('Give a portion weight above zero.')
+    .min(MIN_GRAMS, `Give a portion weight above zero: at least ${MIN_GRAMS} g (1 mg).`)
     .max(100000, 'Use a portion weight no larger than 100000 g.'),
   claims: z.array(z.enum(CLAIMS)).optional(),
   quid: z.array(id).optional(),
@@ -128,15 +264,20 @@ export type Sale = z.infer<typeof saleSchema>;
 
 export const bookRecipeSchema = z.strictObject({
   id,
-  name: z.string().trim().min(1, 'Give the recipe a name.').max(160),
+  name: oneLine(z.string().trim().min(1, 'Give the recipe a name.').max(160)),
   lines: z.array(recipeLineSchema).min(1, 'A recipe needs at least one line.'),
-  finishedWeightG: z.number().positive().max(10_000_000).optional(),
+  /** What the batch weighs when made (after baking): from a milligram to 10 tonnes. */
+  finishedWeightG: z
+    .number()
+    .min(MIN_GRAMS, `Give a finished weight above zero: at least ${MIN_GRAMS} g (1 mg).`)
+    .max(10_000_000, 'Use a finished weight no larger than 10000000 g.')
+    .optional(),
   sale: saleSchema.optional(),
 });
 export type BookRecipe = z.infer<typeof bookRecipeSchema>;
 
 export const siteSchema = z.strictObject({
-  name: z.string().trim().min(1).max(160),
+  name: oneLine(z.string().trim().min(1).max(160)),
   regime: z.enum(REGIMES),
   measures: z.enum(MEASURE_SYSTEMS).optional(),
   handles: z.array(handlingSchema).default([]),

@@ -2,6 +2,7 @@ export * from './roles';
 export * from './auth';
 export * from './errors';
 export * from './issues';
+export * from './text';
 export * from './allergens';
 export * from './book';
 export * from './nutrition';

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { CONTROLS, MEASURE_SYSTEMS, REGIMES, allergenSourceSchema } from './allergens';
+import { oneLine } from './text';
 
 /** How the kitchen handles one allergen source: kept apart, or on shared equipment or in a shared area. */
 export const handlingSchema = z.strictObject({ allergen: allergenSourceSchema, controls: z.enum(CONTROLS) });
@@ -19,8 +20,8 @@ export type KitchenView = z.infer<typeof kitchenSchema>;
 /** What the manager may change; every product's declaration follows. */
 export const kitchenUpdateSchema = z
   .strictObject({
-    name: z.string().trim().min(1, 'Give the kitchen a name.').max(160).optional(),
-    address: z.string().trim().max(300).optional(),
+    name: oneLine(z.string().trim().min(1, 'Give the kitchen a name.').max(160)).optional(),
+    address: oneLine(z.string().trim().max(300)).optional(),
     regime: z.enum(REGIMES).optional(),
     /** null: follow the regime's usual household measures. */
     measures: z.enum(MEASURE_SYSTEMS).nullable().optional(),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { BookIngredient, BookRecipe } from './book';
+import { itemId, type BookIngredient, type BookRecipe } from './book';
 import type { Declaration } from './declaration';
 import type { DeclarationDiff } from './declaration-diff';
 
@@ -42,10 +42,10 @@ export interface UsedIn {
 }
 
 export const swapRequestSchema = z.strictObject({
-  from: z.string().trim().min(1, 'Choose the ingredient to replace.'),
-  to: z.string().trim().min(1, 'Choose the replacement.'),
+  from: itemId('Choose the ingredient to replace.'),
+  to: itemId('Choose the replacement.'),
   /** One recipe; left out, every recipe that uses `from` directly. */
-  recipe: z.string().trim().min(1).optional(),
+  recipe: itemId('Choose the recipe, or leave it out for every recipe.').optional(),
 });
 export type SwapRequest = z.infer<typeof swapRequestSchema>;
 

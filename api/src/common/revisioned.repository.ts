@@ -1,5 +1,6 @@
-import type { Transaction } from 'sequelize';
+import type { Transaction, WhereOptions } from 'sequelize';
 import type { Model, ModelCtor } from 'sequelize-typescript';
+import { AppError } from './app-error';
 import { parseJson } from './json-column';
 
 export interface RevisionedRow {
@@ -73,8 +74,27 @@ export class RevisionedRepository<B extends { name: string }> {
     return rows.map((r) => ({ id: r.id, code: r.code, name: r.name }));
   }
 
+  /**
+   * The head row whose code is exactly `code`. The code columns compare byte for byte
+   * (utf8mb4_bin, migration 0005), but a MariaDB collation still ignores trailing spaces, so the
+   * rows the database matched are compared here again, as everything else compares ids.
+   */
+  private async exactHead(
+    where: WhereOptions,
+    code: string,
+    options: { t?: Transaction; lock?: boolean; attributes?: string[] } = {},
+  ): Promise<(Model & RevisionedRow) | null> {
+    const rows = await this.heads.findAll({
+      where: { ...where, code },
+      ...(options.attributes ? { attributes: options.attributes } : {}),
+      transaction: options.t,
+      ...(options.lock && options.t ? { lock: options.t.LOCK.UPDATE } : {}),
+    });
+    return rows.find((r) => r.code === code) ?? null;
+  }
+
   async findHead(siteId: number, code: string): Promise<Head | null> {
-    const row = await this.heads.findOne({ where: { siteId, code, archived: false }, attributes: ['id', 'code', 'name'] });
+    const row = await this.exactHead({ siteId, archived: false }, code, { attributes: ['id', 'code', 'name'] });
     return row ? { id: row.id, code: row.code, name: row.name } : null;
   }
 
@@ -84,7 +104,7 @@ export class RevisionedRepository<B extends { name: string }> {
   }
 
   async findCurrent(siteId: number, code: string, t?: Transaction): Promise<Current<B> | null> {
-    const head = await this.heads.findOne({ where: { siteId, code, archived: false }, transaction: t });
+    const head = await this.exactHead({ siteId, archived: false }, code, { t });
     if (!head) return null;
     const rev = await this.revisions.findOne({ where: { [this.foreignKey]: head.id, revision: head.currentRevision }, transaction: t });
     if (!rev) return null;
@@ -99,15 +119,28 @@ export class RevisionedRepository<B extends { name: string }> {
   }
 
   async history(siteId: number, code: string): Promise<RevisionRow<B>[] | null> {
-    const head = await this.heads.findOne({ where: { siteId, code } });
+    const head = await this.exactHead({ siteId }, code);
     if (!head) return null;
     const revs = await this.revisions.findAll({ where: { [this.foreignKey]: head.id }, order: [['revision', 'DESC']] });
     return revs.map((r) => ({ revision: r.revision, body: parseJson(r.body), note: r.note, authorId: r.authorId, createdAt: r.createdAt }));
   }
 
-  /** Creates the item with revision 1, or adds a revision; returns the new revision number. */
+  /**
+   * Creates the item with revision 1, or adds a revision; returns the new revision number. A row
+   * the database takes for `code` without being exactly it is never written: the write is
+   * refused (and its transaction undone) rather than reach an item other than the one it names.
+   */
   async write(siteId: number, code: string, body: B, meta: { authorId: number | null; note: string }, t: Transaction): Promise<number> {
-    const head = await this.heads.findOne({ where: { siteId, code }, transaction: t, lock: t.LOCK.UPDATE });
+    const matched = await this.heads.findAll({ where: { siteId, code }, transaction: t, lock: t.LOCK.UPDATE });
+    const other = matched.find((r) => r.code !== code);
+    if (other) {
+      throw new AppError(
+        'conflict',
+        `The id '${code}' would reach the existing '${other.code}'. Nothing was saved; use '${other.code}' or another id.`,
+        [{ path: 'id', message: `This would reach '${other.code}'.` }],
+      );
+    }
+    const head = matched[0] ?? null;
     if (!head) {
       const created = await this.heads.create({ siteId, code, name: body.name, currentRevision: 1 } as never, { transaction: t });
       await this.revisions.create({ [this.foreignKey]: created.id, revision: 1, body, ...meta } as never, { transaction: t });

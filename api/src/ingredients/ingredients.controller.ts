@@ -3,6 +3,7 @@ import type { FastifyReply } from 'fastify';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { bookIngredientSchema, KITCHEN_WRITERS, type BookIngredient } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
+import { ItemCodePipe } from '../common/item-code.pipe';
 import { Roles } from '../common/roles.decorator';
 import { withTotalCount } from '../common/total-count';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
@@ -52,7 +53,11 @@ export class IngredientsController {
   @Put(':code')
   @ApiOperation({ summary: 'Save an ingredient as a new revision' })
   @ApiZodBody(bookIngredientSchema)
-  update(@CurrentUser() user: AuthUser, @Param('code') code: string, @Body(new ZodPipe(bookIngredientSchema)) body: BookIngredient) {
+  update(
+    @CurrentUser() user: AuthUser,
+    @Param('code', ItemCodePipe) code: string,
+    @Body(new ZodPipe(bookIngredientSchema)) body: BookIngredient,
+  ) {
     return this.ingredients.update(code, body, user.id);
   }
 }

@@ -2,6 +2,7 @@ import { Body, Controller, Get, HttpCode, Param, Post, Put, Query } from '@nestj
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
 import { bookRecipeSchema, KITCHEN_WRITERS, REGIMES, ROLES, type BookRecipe, type Regime } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
+import { ItemCodePipe } from '../common/item-code.pipe';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { regimeQuery } from '../declarations/regime-query';
@@ -62,7 +63,7 @@ export class RecipesController {
   @Roles(KITCHEN_WRITERS)
   @ApiOperation({ summary: 'Save a recipe as a new revision; refused if it cannot be declared' })
   @ApiZodBody(bookRecipeSchema)
-  update(@CurrentUser() user: AuthUser, @Param('code') code: string, @Body(new ZodPipe(bookRecipeSchema)) body: BookRecipe) {
+  update(@CurrentUser() user: AuthUser, @Param('code', ItemCodePipe) code: string, @Body(new ZodPipe(bookRecipeSchema)) body: BookRecipe) {
     return this.recipes.update(code, body, user.id);
   }
 }

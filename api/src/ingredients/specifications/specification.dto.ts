@@ -1,3 +1,4 @@
+import { plainText } from '@crumbproof/shared';
 import { z } from 'zod';
 
 /** Today's date in the kitchen (the server's calendar), as YYYY-MM-DD. */
@@ -28,7 +29,7 @@ export const specificationFieldsSchema = z.strictObject({
       else if (value < today())
         ctx.addIssue({ code: 'custom', message: `${value} has already passed; give today (${today()}) or a later date.` });
     }),
-  note: z.string().trim().max(500, 'Keep the note to 500 characters.').optional(),
+  note: plainText(z.string().trim().max(500, 'Keep the note to 500 characters.')).optional(),
 });
 export type SpecificationFields = z.infer<typeof specificationFieldsSchema>;
 

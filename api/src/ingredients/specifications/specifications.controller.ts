@@ -3,6 +3,7 @@ import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import { KITCHEN_WRITERS } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../../common/current-user.decorator';
+import { ItemCodePipe } from '../../common/item-code.pipe';
 import { Roles } from '../../common/roles.decorator';
 import { ApiUpload, readUpload } from '../../specifications/multipart-upload';
 import { SpecificationsService } from './specifications.service';
@@ -20,7 +21,7 @@ export class SpecificationsController {
     reviewBy: { description: 'YYYY-MM-DD, today or later: when the kitchen must check it again', format: 'date', required: true },
     note: { description: 'Optional, at most 500 characters' },
   })
-  async upload(@CurrentUser() user: AuthUser, @Param('code') code: string, @Req() req: FastifyRequest) {
+  async upload(@CurrentUser() user: AuthUser, @Param('code', ItemCodePipe) code: string, @Req() req: FastifyRequest) {
     return this.specs.upload(code, await readUpload(req, ['reviewBy', 'note']), user.id);
   }
 

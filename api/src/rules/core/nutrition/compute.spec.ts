@@ -95,7 +95,7 @@ const cakeBook = (): Book =>
           fibre: 0,
           protein: 1,
           salt: 0.1,
-          energyKj: 9999, // a stated energy is ignored: energy is recomputed from the nutrients
+          energyKj: 3600, // a stated energy is ignored: energy is recomputed from the nutrients
         },
         { addsSugars: false },
       ),
