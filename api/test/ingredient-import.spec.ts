@@ -259,7 +259,10 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     const problem = 'is on rows 2, 4; each ingredient may be on one row only.';
     expect(rows[0].problems).toEqual([`row 2, column id: 'malt-extract' ${problem}`]);
     expect(rows[1].problems).toEqual([]);
-    expect(rows[2].problems).toEqual([`row 4, column id: 'Malt-Extract' ${problem}`]);
+    expect(rows[2].problems).toEqual([
+      "row 4, column id ('Malt-Extract'): Use lower-case letters, digits and hyphens, e.g. 'malt-extract'.",
+      `row 4, column id: 'Malt-Extract' ${problem}`,
+    ]);
     const before = (await ingredients()).length;
     const refused = await importFile(file);
     expect(refused.statusCode).toBe(400);
