@@ -1,28 +1,54 @@
-// npm test: the same provisioning as npm start on a throwaway datadir and another port, then
-// every suite (api on the real MariaDB, web, end-to-end in Chromium), closing with one line
-// "N passed, N failed" over all of them. `npm test -- api|web|e2e` runs one suite.
+// npm test: first the checks (lint, format and a full type-check, each counted as one), then the
+// same provisioning as npm start on a throwaway datadir and another port, and every suite (api on
+// the real MariaDB, web, end-to-end in Chromium), closing with one line "N passed, N failed" over
+// all of them. `npm test -- checks|api|web|e2e` runs only the steps named.
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { runChecks } from './lib/checks.mjs';
 import { ensureMariadbInstalled, freePort, instance } from './lib/mariadb.mjs';
 import { buildAll, dbEnv, ensureChromium, ensureNodeModules, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
 
-const wanted = new Set(process.argv.slice(2).filter((a) => ['api', 'web', 'e2e'].includes(a)));
-const all = wanted.size === 0;
-const suites = { api: all || wanted.has('api'), web: all || wanted.has('web'), e2e: all || wanted.has('e2e') };
+const STEPS = ['checks', 'api', 'web', 'e2e'];
+const named = process.argv.slice(2);
+const unknown = named.filter((a) => !STEPS.includes(a));
+if (unknown.length > 0) {
+  console.error(`npm test: there is no step called ${unknown.join(', ')}. Name checks, api, web or e2e, or none for all of them.`);
+  process.exit(2);
+}
+const all = named.length === 0;
+const steps = Object.fromEntries(STEPS.map((s) => [s, all || named.includes(s)]));
 
+/** @typedef {{ name: string; passed: number; failed: number }} Result */
+/** @type {Result[]} */
 const results = [];
 const scratch = mkdtempSync(join(tmpdir(), 'crumbproof-test-'));
 
+/** @typedef {{ numPassedTests?: number; numFailedTests?: number; numRuntimeErrorTestSuites?: number }} Report */
+
+/**
+ * @param {string} file
+ * @returns {Report | null}
+ */
 function readJson(file) {
   try {
-    return JSON.parse(readFileSync(file, 'utf8'));
+    /** @type {unknown} */
+    const report = JSON.parse(readFileSync(file, 'utf8'));
+    return /** @type {Report} */ (report);
   } catch {
     return null;
   }
 }
 
-/** Runs a suite; counts come from its JSON report, and a suite that could not report counts as one failure. */
+/**
+ * Runs a suite; counts come from its JSON report, and a suite that could not report counts as one failure.
+ * @param {string} name
+ * @param {string} cmd
+ * @param {string[]} args
+ * @param {NodeJS.ProcessEnv} env
+ * @param {string} reportFile
+ * @param {(report: Report) => { passed: number; failed: number }} count
+ */
 function runSuite(name, cmd, args, env, reportFile, count, cwd = ROOT) {
   step(`Suite: ${name}`);
   let exit = 0;
@@ -37,16 +63,27 @@ function runSuite(name, cmd, args, env, reportFile, count, cwd = ROOT) {
   results.push({ name, ...counted });
 }
 
+/** @param {Report} r */
 const jestCount = (r) => ({ passed: r.numPassedTests ?? 0, failed: (r.numFailedTests ?? 0) + (r.numRuntimeErrorTestSuites ?? 0) });
 const vitestCount = jestCount; // vitest's json reporter writes the same totals
 
 async function main() {
   ensureNodeModules();
+  if (steps.checks) {
+    step('Checks: lint, format and type-check, before any suite…');
+    for (const r of await runChecks()) results.push({ name: r.label, passed: r.passed ? 1 : 0, failed: r.passed ? 0 : 1 });
+  }
+  if (steps.api || steps.web || steps.e2e) await suites();
+  summarise();
+}
+
+async function suites() {
   ensureMariadbInstalled((m) => step(m));
-  if (suites.e2e) ensureChromium();
+  if (steps.e2e) ensureChromium();
 
   const port = await freePort();
   const db = instance({ dir: join(scratch, 'mariadb'), port });
+  /** @type {import('node:child_process').ChildProcess | null} */
   let server = null;
   const cleanup = async () => {
     if (server && server.exitCode === null) server.kill('SIGTERM');
@@ -60,7 +97,7 @@ async function main() {
     await db.start();
     db.createDatabase({ database: 'crumbproof_test', user: 'crumbproof', password: 'crumbproof-local' });
 
-    if (suites.api) {
+    if (steps.api) {
       const report = join(scratch, 'jest.json');
       runSuite(
         'api (jest, real MariaDB)',
@@ -71,7 +108,7 @@ async function main() {
         jestCount,
       );
     }
-    if (suites.web) {
+    if (steps.web) {
       const report = join(scratch, 'vitest-web.json');
       runSuite(
         'web (vitest)',
@@ -83,7 +120,7 @@ async function main() {
         join(ROOT, 'web'),
       );
     }
-    if (suites.e2e) {
+    if (steps.e2e) {
       buildAll();
       const appPort = await freePort();
       db.createDatabase({ database: 'crumbproof_test_e2e', user: 'crumbproof', password: 'crumbproof-local' });
@@ -119,13 +156,16 @@ async function main() {
       );
     }
   } catch (err) {
-    console.error(`\n${err instanceof Error ? err.message : err}`);
+    console.error(`\n${err instanceof Error ? err.message : String(err)}`);
     results.push({ name: 'set-up', passed: 0, failed: 1 });
   } finally {
     await cleanup();
   }
+}
 
-  console.log('\nSuites:');
+function summarise() {
+  rmSync(scratch, { recursive: true, force: true });
+  console.log('\nSteps:');
   for (const r of results) console.log(`  ${r.name}: ${r.passed} passed, ${r.failed} failed`);
   const passed = results.reduce((n, r) => n + r.passed, 0);
   const failed = results.reduce((n, r) => n + r.failed, 0);
@@ -133,4 +173,7 @@ async function main() {
   process.exit(failed > 0 || results.length === 0 ? 1 : 0);
 }
 
-main();
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : String(err));
+  process.exit(1);
+});

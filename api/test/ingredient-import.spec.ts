@@ -94,10 +94,7 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
   const preview = (bytes: Buffer, name = 'ingredients.csv', cookie = chef) => send('/api/ingredients/import/preview', bytes, name, cookie);
   const importFile = (bytes: Buffer, name = 'ingredients.csv', cookie = chef) => send('/api/ingredients/import', bytes, name, cookie);
   const ingredients = async () =>
-    (await t.app.inject({ method: 'GET', url: '/api/ingredients', headers: { cookie: chef } })).json() as {
-      id: string;
-      revision: number;
-    }[];
+    (await t.app.inject({ method: 'GET', url: '/api/ingredients', headers: { cookie: chef } })).json<{ id: string; revision: number }[]>();
   const ingredient = (id: string) => t.app.inject({ method: 'GET', url: `/api/ingredients/${id}`, headers: { cookie: chef } });
 
   const expectedNew = [

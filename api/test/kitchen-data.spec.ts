@@ -27,7 +27,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   it('exports the seeded demo kitchen as a recipe book that validates against the published schema', async () => {
     const res = await req('GET', '/api/book', chef);
     expect(res.statusCode).toBe(200);
-    const book = res.json() as Book;
+    const book = res.json<Book>();
     expect(book.crumbproofBook).toBe(1);
     expect(book.site.regime).toBe('UK');
     expect(book.recipes.filter((r) => r.sale).length).toBeGreaterThanOrEqual(5);
@@ -36,7 +36,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   it('declares a demo product for the counter, with nutrition, and serves the same declaration from the store', async () => {
     const first = await req('GET', '/api/recipes/vegan-brownie/declaration', counter);
     expect(first.statusCode).toBe(200);
-    const d = first.json() as ProductDeclaration;
+    const d = first.json<ProductDeclaration>();
     expect(d.claims.vegan.status).toBe('ok');
     expect(d.nutrition.per100g.energyKj).toBeGreaterThan(0);
     const stored = await count('declarations');
@@ -128,7 +128,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const res = await req('POST', '/api/book/import', manager, book);
     expect(res.statusCode).toBe(200);
     expect(res.json().recipes.created).toEqual(['shortbread']);
-    const d = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json() as ProductDeclaration;
+    const d = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json<ProductDeclaration>();
     expect(d.contains.map((c) => c.allergen)).toEqual(['gluten', 'milk']);
     expect(d.claims.vegan.status).toBe('fails');
     expect(d.errors.map((e) => e.code)).toContain('claim-not-met');
@@ -170,20 +170,20 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   });
 
   it('changing an ingredient gives every product above it a new declaration (the store follows)', async () => {
-    const before = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json() as ProductDeclaration;
+    const before = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json<ProductDeclaration>();
     expect(before.claims['dairy-free'].status).toBe('fails');
     const butter = (await req('GET', '/api/ingredients/butter', chef)).json();
     const { revision: _r, updatedAt: _u, ...body } = butter;
     const res = await req('PUT', '/api/ingredients/butter', chef, { ...body, name: 'Plant butter', contains: [], vegan: true });
     expect(res.statusCode).toBe(200);
     expect(res.json().revision).toBe(butter.revision + 1);
-    const after = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json() as ProductDeclaration;
+    const after = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json<ProductDeclaration>();
     expect(after.contains.map((c) => c.allergen)).toEqual(['gluten']);
     expect(after.claims.vegan.status).toBe('ok');
   });
 
   it('lists where an ingredient is used at any depth, with paths', async () => {
-    const book = (await req('GET', '/api/book', chef)).json() as Book;
+    const book = (await req('GET', '/api/book', chef)).json<Book>();
     const cakeLines = book.recipes.find((r) => r.id === 'strawberry-layer-cake')!.lines.map((l) => l.use);
     const sub = cakeLines.find((id) => book.recipes.some((r) => r.id === id))!;
     const leaf = book.recipes.find((r) => r.id === sub)!.lines.find((l) => book.ingredients.some((i) => i.id === l.use))!.use;
@@ -197,7 +197,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const rec = (await req('GET', '/api/recipes/shortbread', chef)).json();
     const { revision: _r, updatedAt: _u, ...body } = rec;
     const withEgg = { ...body, lines: [...body.lines, { use: 'free-range-eggs', qty: 50, unit: 'g' }] };
-    const ingredients = (await req('GET', '/api/ingredients', chef)).json() as { id: string; contains?: string[] }[];
+    const ingredients = (await req('GET', '/api/ingredients', chef)).json<{ id: string; contains?: string[] }[]>();
     const egg = ingredients.find((i) => (i.contains ?? []).includes('egg'))!;
     withEgg.lines[withEgg.lines.length - 1].use = egg.id;
     expect((await req('PUT', '/api/recipes/shortbread', chef, withEgg)).statusCode).toBe(200);
@@ -221,7 +221,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   });
 
   it('the manager changes how the kitchen handles an allergen, and may-contain follows on every product', async () => {
-    const before = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json() as ProductDeclaration;
+    const before = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json<ProductDeclaration>();
     expect(before.mayContain.map((m) => m.allergen)).not.toContain('lupin');
     const kitchen = (await req('GET', '/api/kitchen', counter)).json();
     expect(
@@ -242,7 +242,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
       payload: { handles: [...kitchen.handles, { allergen: 'lupin', controls: 'shared-area' }] },
     });
     expect(res.statusCode).toBe(200);
-    const after = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json() as ProductDeclaration;
+    const after = (await req('GET', '/api/recipes/vegan-brownie/declaration', counter)).json<ProductDeclaration>();
     const lupin = after.mayContain.find((m) => m.allergen === 'lupin')!;
     expect(lupin.why.join(' ')).toMatch(/same area/i);
   });
@@ -255,7 +255,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(page.json()).toHaveLength(5);
     expect(page.json()[0].id).toBe(all.json()[5].id);
     expect(page.headers['x-total-count']).toBe(String(total));
-    const milk = (await req('GET', '/api/ingredients?source=milk', chef)).json() as { contains?: string[] }[];
+    const milk = (await req('GET', '/api/ingredients?source=milk', chef)).json<{ contains?: string[] }[]>();
     expect(milk.length).toBeGreaterThan(0);
     expect(milk.every((i) => (i.contains ?? []).includes('milk'))).toBe(true);
     expect((await req('GET', '/api/ingredients?q=SPELT', chef)).json().map((i: { id: string }) => i.id)).toContain('spelt-flour');
@@ -271,7 +271,7 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const withoutButter = { ...body, lines: body.lines.filter((l: { use: string }) => l.use !== 'butter') };
     const res = await req('PUT', '/api/recipes/lemon-shortbread', chef, withoutButter);
     expect(res.statusCode).toBe(200);
-    const d = (await req('GET', '/api/recipes/lemon-shortbread/declaration', counter)).json() as ProductDeclaration;
+    const d = (await req('GET', '/api/recipes/lemon-shortbread/declaration', counter)).json<ProductDeclaration>();
     expect(d.errors.map((e) => e.code)).toContain('quid-not-in-product');
   });
 

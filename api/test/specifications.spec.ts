@@ -148,7 +148,7 @@ describe('supplier specifications (real MariaDB)', () => {
     expect(await storedRows()).toBe(before);
   });
 
-  it.each([
+  it.each<{ case: string; fields: Record<string, string>; message: RegExp }>([
     { case: 'missing', fields: {}, message: /reviewBy: Give the date by which the kitchen must check this specification again/ },
     { case: 'in the past', fields: { reviewBy: isoDay(-1) }, message: new RegExp(`reviewBy: ${isoDay(-1)} has already passed`) },
     { case: 'not a real date', fields: { reviewBy: '2031-02-30' }, message: /reviewBy: 2031-02-30 is not a real date/ },
@@ -219,13 +219,15 @@ describe('supplier specifications (real MariaDB)', () => {
 
     const res = await get('/api/specifications/status');
     expect(res.statusCode).toBe(200);
-    const status = res.json() as {
-      ingredient: string;
-      name: string;
-      state: string;
-      latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
-    }[];
-    const books = (await get('/api/ingredients')).json() as { id: string; name: string }[];
+    const status = res.json<
+      {
+        ingredient: string;
+        name: string;
+        state: string;
+        latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
+      }[]
+    >();
+    const books = (await get('/api/ingredients')).json<{ id: string; name: string }[]>();
     expect(status.map((s) => s.ingredient).sort()).toEqual(books.map((b) => b.id).sort());
     const of = (code: string) => status.find((s) => s.ingredient === code)!;
     expect(of('ground-almonds')).toEqual({
