@@ -108,7 +108,7 @@ describe('password guessing is slowed per account, per address and across the ki
     const next = await signIn('chef@example.com', DEMO, '10.7.0.1');
     expect(next.statusCode).toBe(429);
     expect(next.json().message).toMatch(/^Too many wrong passwords on this kitchen's accounts/);
-  });
+  }, 120_000);
 
   it('keeps every count in the database, so all instances of the API share it', async () => {
     await signIn('shared.count@example.com', 'wrong-once');
@@ -222,7 +222,7 @@ describe('demo mode and a kitchen’s own installation', () => {
     } finally {
       await s.close();
     }
-  });
+  }, 120_000);
 
   it('refuses an expired link, and one replaced by a newer link', async () => {
     const s = await startAppWith({ DEMO_KITCHEN: 'false' }, { database: `${base}_b` });
@@ -262,5 +262,5 @@ describe('demo mode and a kitchen’s own installation', () => {
     } finally {
       await own.close();
     }
-  });
+  }, 120_000);
 });
