@@ -1,6 +1,6 @@
 import type { AddressInfo } from 'node:net';
 import ExcelJS from 'exceljs';
-import { readSheet, type SheetRow } from '../src/ingredient-import/spreadsheet';
+import { readSheet, type SheetRow } from '../src/ingredients/import/spreadsheet';
 import { multipart } from './fixtures/forms';
 import { startTestApp, type TestApp } from './support/test-app';
 

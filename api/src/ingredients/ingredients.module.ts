@@ -1,6 +1,6 @@
 import { Module } from '@nestjs/common';
 import { BooksModule } from '../books/books.module';
-import { IngredientImportModule } from '../ingredient-import/ingredient-import.module';
+import { IngredientImportModule } from './import/ingredient-import.module';
 import { KitchenModule } from '../kitchen/kitchen.module';
 import { UsersModule } from '../users/users.module';
 import { IngredientStoreModule } from './ingredient-store.module';

@@ -1,6 +1,6 @@
 import { specificationFieldsSchema, today } from './specification.dto';
 import { contentDisposition } from './specifications.service';
-import { describeType, safeFilename } from '../../specifications/multipart-upload';
+import { describeType, safeFilename } from '../../common/multipart-upload';
 
 describe('specification uploads', () => {
   const days = (n: number) => {

@@ -5,7 +5,7 @@ import { KITCHEN_WRITERS } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../../common/current-user.decorator';
 import { ItemCodePipe } from '../../common/item-code.pipe';
 import { Roles } from '../../common/roles.decorator';
-import { ApiUpload, readUpload } from '../../specifications/multipart-upload';
+import { ApiUpload, readUpload } from '../../common/multipart-upload';
 import { SpecificationsService } from './specifications.service';
 
 @ApiTags('specifications')

@@ -12,7 +12,7 @@ import { UsersRepository } from '../../users/users.repository';
 import { IngredientsRepository } from '../ingredients.repository';
 import { ACCEPTED_SPECIFICATION_TYPES, specificationFieldsSchema, today } from './specification.dto';
 import type { SpecificationStatus, SpecificationView } from '@crumbproof/shared';
-import { describeType, detectType, safeFilename, withExtension, type Upload } from '../../specifications/multipart-upload';
+import { describeType, detectType, safeFilename, withExtension, type Upload } from '../../common/multipart-upload';
 import { SpecificationsRepository, type SpecificationRow } from './specifications.repository';
 
 /** Supplier specifications of ingredients: versioned uploads with a date to check them again. */

@@ -12,11 +12,11 @@ import {
   type ImportResult,
   type ImportRow,
 } from '@crumbproof/shared';
-import { AppError } from '../common/app-error';
-import { BooksService } from '../books/books.service';
-import { sameData } from '../rules/core/same-data';
-import { RulesService } from '../rules/rules.service';
-import type { Upload } from '../specifications/multipart-upload';
+import { AppError } from '../../common/app-error';
+import { BooksService } from '../../books/books.service';
+import { sameData } from '../../rules/core/same-data';
+import { RulesService } from '../../rules/rules.service';
+import type { Upload } from '../../common/multipart-upload';
 import { cellText, IMPORT_COLUMNS, mapHeader, rowPlace, rowToCandidate, type HeaderMap } from './import-columns';
 import { readSheet, type SheetRow } from './spreadsheet';
 

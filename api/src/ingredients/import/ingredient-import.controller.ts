@@ -2,9 +2,9 @@ import { Controller, HttpCode, Post, Req } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import { KITCHEN_WRITERS } from '@crumbproof/shared';
-import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
-import { Roles } from '../common/roles.decorator';
-import { ApiUpload, readUpload } from '../specifications/multipart-upload';
+import { CurrentUser, type AuthUser } from '../../common/current-user.decorator';
+import { Roles } from '../../common/roles.decorator';
+import { ApiUpload, readUpload } from '../../common/multipart-upload';
 import { IngredientImportService } from './ingredient-import.service';
 
 @ApiTags('ingredients')

@@ -1,6 +1,6 @@
 import { Module } from '@nestjs/common';
-import { BooksModule } from '../books/books.module';
-import { RulesModule } from '../rules/rules.module';
+import { BooksModule } from '../../books/books.module';
+import { RulesModule } from '../../rules/rules.module';
 import { IngredientImportController } from './ingredient-import.controller';
 import { IngredientImportService } from './ingredient-import.service';
 

@@ -1,15 +1,15 @@
 import { access } from 'node:fs/promises';
 import { extname, join } from 'node:path';
 import { Worker, type WorkerOptions } from 'node:worker_threads';
-import { AppError } from '../common/app-error';
+import { AppError } from '../../common/app-error';
 import {
   MAX_IMPORT_COLUMNS,
   MAX_IMPORT_ROWS,
   SPREADSHEET_READ_MEMORY_MB,
   SPREADSHEET_READ_SECONDS,
   SPREADSHEET_READS_AT_ONCE,
-} from '../common/limits';
-import { describeType } from '../specifications/multipart-upload';
+} from '../../common/limits';
+import { describeType } from '../../common/multipart-upload';
 import type { Cell } from './import-columns';
 import type { ParsedRow, ParseRequest, ParseResult } from './spreadsheet.worker';
 

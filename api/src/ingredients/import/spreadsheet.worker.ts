@@ -24,7 +24,7 @@ if (parentPort && request?.read === 'spreadsheet') {
 /* eslint-disable @typescript-eslint/no-require-imports -- loaded once the priority is lowered (imports would load first) */
 const excel = require('exceljs') as typeof ExcelJS;
 const Papa = require('papaparse') as typeof PapaParse;
-/** The one function of file-type used here (as in specifications/multipart-upload.ts); ESM only, loaded through require(esm). */
+/** The one function of file-type used here (as in common/multipart-upload.ts); ESM only, loaded through require(esm). */
 const { fileTypeFromBuffer } = require('file-type') as {
   fileTypeFromBuffer: (bytes: Uint8Array) => Promise<{ ext: string; mime: string } | undefined>;
 };

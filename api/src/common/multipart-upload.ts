@@ -2,7 +2,7 @@ import { PayloadTooLargeException, applyDecorators } from '@nestjs/common';
 import { ApiBody, ApiConsumes } from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import type {} from '@fastify/multipart';
-import { AppError } from '../common/app-error';
+import { AppError } from './app-error';
 
 /** The one function of file-type used here. */
 type FileTypeFromBuffer = (bytes: Uint8Array) => Promise<{ ext: string; mime: string } | undefined>;
@@ -22,7 +22,7 @@ export interface Upload {
 }
 
 /** The most one uploaded file may weigh (the same as the app-wide multipart limit). */
-import { MAX_UPLOAD_BYTES } from '../common/limits';
+import { MAX_UPLOAD_BYTES } from './limits';
 
 export const MAX_FILE_BYTES = MAX_UPLOAD_BYTES;
 
