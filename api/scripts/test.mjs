@@ -71,7 +71,12 @@ async function main() {
   ensureNodeModules();
   if (steps.checks) {
     step('Checks: lint, format and type-check, before any suite…');
-    for (const r of await runChecks()) results.push({ name: r.label, passed: r.passed ? 1 : 0, failed: r.passed ? 0 : 1 });
+    try {
+      for (const r of await runChecks()) results.push({ name: r.label, passed: r.passed ? 1 : 0, failed: r.passed ? 0 : 1 });
+    } catch (err) {
+      console.error(`\nThe checks could not run: ${err instanceof Error ? err.message : String(err)}`);
+      results.push({ name: 'checks', passed: 0, failed: 1 });
+    }
   }
   if (steps.api || steps.web || steps.e2e) await suites();
   summarise();

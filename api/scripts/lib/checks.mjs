@@ -32,7 +32,11 @@ export const PARTS = {
 
 export const GATES = /** @type {const} */ (['lint', 'format', 'typecheck']);
 /** @typedef {(typeof GATES)[number]} Gate */
-/** @typedef {{ gate: Gate; findings: number; text: string }} GateResult */
+/**
+ * What a gate found in one part: `items` names each finding once (a file that two programs hold is
+ * checked twice, its diagnostics counted once), `text` is what to print besides.
+ * @typedef {{ gate: Gate; items: string[]; text: string }} GateResult
+ */
 
 /** @type {Record<Gate, string>} */
 const LABELS = { lint: 'lint (eslint)', format: 'format (prettier --check)', typecheck: 'type-check (tsc)' };
@@ -69,7 +73,8 @@ async function runPart(name, gates) {
   const results = [];
   if (gates.includes('typecheck')) {
     const diagnostics = [...configErrors, ...programs.flatMap((p) => ts.getPreEmitDiagnostics(p))];
-    results.push({ gate: 'typecheck', findings: diagnostics.length, text: ts.formatDiagnostics(diagnostics, host) });
+    const items = [...new Set(diagnostics.map((d) => ts.formatDiagnostics([d], host).trimEnd()))];
+    results.push({ gate: 'typecheck', items, text: '' });
   }
   if (gates.includes('lint')) {
     const { ESLint } = await import('eslint');
@@ -79,9 +84,9 @@ async function runPart(name, gates) {
       overrideConfig: { languageOptions: { parserOptions: { projectService: false, programs } } },
     });
     const linted = await eslint.lintFiles(part.lint);
-    const findings = linted.reduce((n, r) => n + r.errorCount + r.warningCount, 0);
-    const text = findings > 0 ? await (await eslint.loadFormatter('stylish')).format(linted) : '';
-    results.push({ gate: 'lint', findings, text: String(text) });
+    const items = linted.flatMap((r) => r.messages.map((m) => `${r.filePath}:${m.line}:${m.column} ${m.ruleId ?? m.message}`));
+    const text = items.length > 0 ? await (await eslint.loadFormatter('stylish')).format(linted) : '';
+    results.push({ gate: 'lint', items, text: String(text) });
   }
   return results;
 }
@@ -111,8 +116,10 @@ function collect(args) {
  */
 async function formatCheck() {
   const { code, output } = await collect([join(ROOT, 'node_modules/prettier/bin/prettier.cjs'), '--check', '.']);
-  const unformatted = output.split('\n').filter((l) => l.startsWith('[warn] ') && !l.includes('Code style issues')).length;
-  return { gate: 'format', findings: code === 0 ? 0 : Math.max(unformatted, 1), text: code === 0 ? '' : output };
+  const unformatted = output.split('\n').filter((l) => /^\[(warn|error)\] /.test(l) && !l.includes('Code style issues'));
+  // A failed check with no file named (Prettier could not run) is still a finding.
+  const items = code === 0 ? [] : unformatted.length > 0 ? unformatted : [output.trim() || `prettier exited with ${code}`];
+  return { gate: 'format', items, text: code === 0 ? '' : output };
 }
 
 /**
@@ -130,7 +137,11 @@ export async function runChecks(gates = [...GATES]) {
       ? Object.keys(PARTS).map(async (name) => {
           const out = join(scratch, `${name}.json`);
           const { code, output } = await collect([self, '--part', name, '--out', out, ...typed]);
-          if (code !== 0) throw new Error(`The ${name} part of the checks stopped (exit ${code}):\n${output}`);
+          if (code !== 0) {
+            // A part that could not finish counts as a finding of each gate it was to run.
+            const stopped = `The ${name} part of the checks stopped (exit ${code}):\n${output.trimEnd()}`;
+            return typed.map((gate) => ({ gate, items: [stopped], text: gate === typed[0] ? stopped : '' }));
+          }
           /** @type {unknown} */
           const results = JSON.parse(readFileSync(out, 'utf8'));
           return /** @type {GateResult[]} */ (results);
@@ -139,10 +150,12 @@ export async function runChecks(gates = [...GATES]) {
     const all = (await Promise.all([...parts, gates.includes('format') ? formatCheck().then((r) => [r]) : Promise.resolve([])])).flat();
     const results = gates.map((gate) => {
       const mine = all.filter((r) => r.gate === gate);
-      const findings = mine.reduce((n, r) => n + r.findings, 0);
+      const items = [...new Set(mine.flatMap((r) => r.items))];
+      const findings = items.length;
       const label = LABELS[gate];
       console.log(`\n${label}: ${findings === 0 ? 'no findings' : `${findings} finding${findings === 1 ? '' : 's'}`}`);
       for (const r of mine) if (r.text.trim()) console.log(r.text.trimEnd());
+      if (gate === 'typecheck') for (const item of items) console.log(item);
       return { gate, label, passed: findings === 0, findings };
     });
     console.log(`\nChecks took ${Math.round((Date.now() - started) / 1000)} s.`);
