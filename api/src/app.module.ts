@@ -3,7 +3,7 @@ import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
 import { AuthModule } from './auth/auth.module';
 import { BooksModule } from './books/books.module';
 import { ApiExceptionFilter } from './common/exception.filter';
-import { RolesGuard, SessionGuard } from './common/auth.guard';
+import { RolesGuard, SessionGuard } from './auth/auth.guard';
 import { AppConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
 import { SeedModule } from './database/seed.module';

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import { QueryTypes } from 'sequelize';
 import { passwordSchema } from '@crumbproof/shared';
-import { FREE_TRIES, LOCK_AT, waitAfterFailures } from '../src/auth/sign-in-limits';
+import { FREE_TRIES, LOCK_AT, waitAfterFailures } from '../src/auth/sign-in-limits.repository';
 import { parseConfig } from '../src/config/config';
 import { checkPassword, commonPasswordProblem } from '../src/users/password';
 import { startAppWith } from './support/app-with-settings';

@@ -7,7 +7,7 @@ import { isDemoKitchen, type AppConfig } from '../config/config';
 import { checkPassword, DUMMY_HASH } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
 import { SessionTokens } from './session-tokens';
-import { SignInLimits } from './sign-in-limits';
+import { SignInLimits } from './sign-in-limits.repository';
 
 @Injectable()
 export class AuthService {

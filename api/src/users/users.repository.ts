@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
+import { UniqueConstraintError, type Transaction } from 'sequelize';
+import { AppError } from '../common/app-error';
 import type { Role, User } from '@crumbproof/shared';
 import { UserModel } from './user.model';
 
@@ -30,8 +31,14 @@ export class UsersRepository {
     return this.users.findAll({ order: [['name', 'ASC']] });
   }
 
-  create(user: NewUser, transaction?: Transaction) {
-    return this.users.create({ ...user }, { transaction });
+  /** Refuses an email already on another account (the column is unique) as a conflict. */
+  async create(user: NewUser, transaction?: Transaction) {
+    try {
+      return await this.users.create({ ...user }, { transaction });
+    } catch (e) {
+      if (e instanceof UniqueConstraintError) throw new AppError('conflict', 'A user with that email already exists.');
+      throw e;
+    }
   }
 
   async update(id: number, changes: Partial<Pick<UserModel, 'name' | 'role' | 'active' | 'passwordHash' | 'demoPassword'>>) {

@@ -1,8 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import type { CreateUserRequest, UpdateUserRequest, User } from '@crumbproof/shared';
-import { UniqueConstraintError } from 'sequelize';
 import { SessionsRepository } from '../auth/sessions.repository';
-import { SignInLimits } from '../auth/sign-in-limits';
+import { SignInLimits } from '../auth/sign-in-limits.repository';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import { hashPassword, refuseCommonPassword } from './password';
@@ -27,18 +26,13 @@ export class UsersService {
         { path: 'email', message: 'A user with that email already exists.' },
       ]);
     }
-    try {
-      const row = await this.repo.create({
-        email: req.email,
-        name: req.name,
-        role: req.role,
-        passwordHash: await hashPassword(req.password),
-      });
-      return toUser(row);
-    } catch (e) {
-      if (e instanceof UniqueConstraintError) throw new AppError('conflict', 'A user with that email already exists.');
-      throw e;
-    }
+    const row = await this.repo.create({
+      email: req.email,
+      name: req.name,
+      role: req.role,
+      passwordHash: await hashPassword(req.password),
+    });
+    return toUser(row);
   }
 
   /**

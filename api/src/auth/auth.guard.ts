@@ -2,11 +2,11 @@ import { CanActivate, ExecutionContext, Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import type { FastifyReply } from 'fastify';
-import type { SessionUser } from '../auth/jwt.strategy';
-import { SessionTokens } from '../auth/session-tokens';
-import { AppError } from './app-error';
-import { IS_PUBLIC, Roles } from './roles.decorator';
-import type { AuthUser } from './current-user.decorator';
+import type { SessionUser } from './jwt.strategy';
+import { SessionTokens } from './session-tokens';
+import { AppError } from '../common/app-error';
+import { IS_PUBLIC, Roles } from '../common/roles.decorator';
+import type { AuthUser } from '../common/current-user.decorator';
 
 /**
  * Every route needs a running session unless it is @Public (see JwtStrategy). A session past
