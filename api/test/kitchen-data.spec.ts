@@ -268,7 +268,8 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const rec = (await req('GET', '/api/recipes/lemon-shortbread', chef)).json();
     const { revision: _r, updatedAt: _u, ...body } = rec;
     expect(body.sale.quid).toContain('butter');
-    const withoutButter = { ...body, lines: body.lines.filter((l: { use: string }) => l.use !== 'butter') };
+    // 502 g go in without the butter, so the bake cannot come out at the 640 g it did with it.
+    const withoutButter = { ...body, lines: body.lines.filter((l: { use: string }) => l.use !== 'butter'), finishedWeightG: 480 };
     const res = await req('PUT', '/api/recipes/lemon-shortbread', chef, withoutButter);
     expect(res.statusCode).toBe(200);
     const d = (await req('GET', '/api/recipes/lemon-shortbread/declaration', counter)).json<ProductDeclaration>();

@@ -40,7 +40,13 @@ export type AllergenSource = (typeof ALLERGEN_SOURCES)[number];
 /** A value as a message shows it: 'quinoa', or the JSON of anything that is not text. */
 function shown(value: unknown): string {
   if (typeof value === 'string') return `'${value.length > 40 ? `${value.slice(0, 40)}…` : value}'`;
-  const json = JSON.stringify(value) ?? String(value);
+  let json: string;
+  try {
+    json = JSON.stringify(value) ?? String(value);
+  } catch {
+    // Nested too deep for JSON.stringify (a request can nest lists thousands deep).
+    json = Array.isArray(value) ? '[[…]]' : '{…}';
+  }
   return json.length > 40 ? `${json.slice(0, 40)}…` : json;
 }
 

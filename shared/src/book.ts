@@ -186,12 +186,14 @@ export const bookIngredientSchema = z.strictObject({
   /** From 0.01 g per ml (a puffed cereal measured by the cup) to 5 (no food is denser; common practice). */
   gPerMl: z
     .number()
+    .positive({ abort: true })
     .min(0.01, 'Use at least 0.01 g per ml: nothing measured in a kitchen is lighter.')
     .max(5, 'Use at most 5 g per ml: no food is that dense.')
     .optional(),
   /** From a milligram (the smallest quantity a line can weigh) to 100 kg. */
   gEach: z
     .number()
+    .positive({ abort: true })
     .min(MIN_GRAMS, `Give a weight for one of at least ${MIN_GRAMS} g (1 mg).`)
     .max(100000, 'Use at most 100000 g (100 kg) for one.')
     .optional(),

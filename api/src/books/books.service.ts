@@ -1,5 +1,13 @@
 import { Injectable } from '@nestjs/common';
-import { bookPlace, bookSchema, type Book, type BookIngredient, type BookProblem, type BookRecipe } from '@crumbproof/shared';
+import {
+  bookPlace,
+  bookSchema,
+  type Book,
+  type BookIngredient,
+  type BookProblem,
+  type BookRecipe,
+  type FieldError,
+} from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
@@ -8,7 +16,9 @@ import { IngredientsRepository } from '../ingredients/ingredients.repository';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { SiteRepository, type SiteRow } from '../kitchen/site.repository';
 import { RecipesRepository } from '../recipes/recipes.repository';
+import { atThresholdPrecision, compare } from '../rules/core/compare';
 import { sameData } from '../rules/core/same-data';
+import { buildTree } from '../rules/core/tree';
 import { RulesService } from '../rules/rules.service';
 
 export interface ImportSummary {
@@ -110,9 +120,39 @@ export class BooksService {
     if (problems.length > 0) throw bookRefused(problems);
   }
 
+  /**
+   * A bake loses weight, from nothing up to (not) all of it: a recipe's finished weight is above
+   * zero (the schema says so) and at most what goes into it, its lines as weighed. `book` is the
+   * kitchen with `recipes` in it, already found declarable (so every line can be weighed).
+   */
+  private assertBakeLoss(book: Book, recipes: BookRecipe[], place: (r: BookRecipe) => string) {
+    const fields: FieldError[] = [];
+    for (const r of recipes) {
+      if (r.finishedWeightG === undefined) continue;
+      const mix = atThresholdPrecision(buildTree(book, r.id).mixG);
+      if (!compare(r.finishedWeightG, 'gt', mix)) continue;
+      fields.push({
+        path: place(r),
+        message: `${r.name} is given a finished weight of ${r.finishedWeightG} g, more than the ${mix} g that goes into it; a bake can only lose weight. Give at most ${mix} g, or leave the finished weight out.`,
+      });
+    }
+    if (fields.length > 0) throw new AppError('validation', fields.map((f) => f.message).join(' '), fields);
+  }
+
+  /**
+   * Refuses items that name one id twice before they are merged by id into the kitchen, where
+   * the second would silently replace the first and both be written to one row.
+   */
+  private assertDistinctIds(site: Book['site'], items: { ingredients?: BookIngredient[]; recipes?: BookRecipe[] }) {
+    const book: Book = { crumbproofBook: 1, site, ingredients: items.ingredients ?? [], recipes: items.recipes ?? [] };
+    const problems = this.rules.check(book).filter((p) => p.code === 'duplicate-id');
+    if (problems.length > 0) throw bookRefused(problems);
+  }
+
   /** Imports a book into the kitchen, merging by id; all or nothing. */
   async importBook(input: unknown, meta: { authorId: number | null; note: string; address?: string }): Promise<ImportSummary> {
     const book = this.parse(input);
+    this.assertDistinctIds(book.site, book);
     const imported = await this.tx.run(async (t) => {
       await this.sites.lock(t);
       const site = await this.kitchen.find(t);
@@ -123,6 +163,7 @@ export class BooksService {
         recipes: mergeById(current?.recipes ?? [], book.recipes),
       };
       this.assertDeclarable(merged);
+      this.assertBakeLoss(merged, book.recipes, (r) => `recipes.${book.recipes.indexOf(r)} (${r.id}).finishedWeightG`);
 
       let siteRow = site;
       let siteState: ImportSummary['site'] = 'unchanged';
@@ -183,6 +224,7 @@ export class BooksService {
     const written = await this.tx.run(async (t) => {
       await this.sites.lock(t);
       const { site, book } = await this.state(t);
+      this.assertDistinctIds(book.site, changes);
       const all = new Set([...book.ingredients, ...book.recipes].map((x) => x.id));
       for (const [kind, items, own] of [
         ['ingredient', changes.ingredients ?? [], book.ingredients],
@@ -207,6 +249,8 @@ export class BooksService {
         recipes: mergeById(book.recipes, changes.recipes ?? []),
       };
       this.assertDeclarable(merged);
+      const recipes = changes.recipes ?? [];
+      this.assertBakeLoss(merged, recipes, (r) => (recipes.length === 1 ? 'finishedWeightG' : `recipes.${r.id}.finishedWeightG`));
       const written: { id: string; revision: number }[] = [];
       for (const ing of changes.ingredients ?? []) {
         written.push({ id: ing.id, revision: await this.ingredients.write(site.id, ing.id, bodyOf(ing), meta, t) });
@@ -237,6 +281,7 @@ function mergeById<T extends { id: string }>(base: T[], incoming: T[]): T[] {
   for (const x of incoming) map.set(x.id, x);
   return [...map.values()];
 }
+
 /** Shown in full in the message; the rest are counted (all are in `problems`). */
 const PROBLEMS_IN_MESSAGE = 10;
 

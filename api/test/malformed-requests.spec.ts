@@ -1,0 +1,1041 @@
+import { RequestMethod } from '@nestjs/common';
+import { METHOD_METADATA, PATH_METADATA } from '@nestjs/common/constants';
+import { DiscoveryService, MetadataScanner } from '@nestjs/core';
+import { fixture, multipart } from './fixtures/forms';
+import { tableChecksums } from './fixtures/table-checksums';
+import { startTestApp, type TestApp } from './support/test-app';
+
+/**
+ * A corpus of malformed requests to every route that writes (POST, PUT, PATCH, DELETE): wrong
+ * types, missing and unknown fields, numbers out of their physical range, huge strings and
+ * bodies, deep nesting, odd Unicode, text that looks like SQL or HTML, ids that do not exist.
+ * Each is refused with a 4xx whose message names the problem, none with a 500, and a checksum of
+ * every table of the database (CHECKSUM TABLE) is the same after it as before.
+ */
+
+type Method = 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+interface Sent {
+  payload?: string | Buffer;
+  headers: Record<string, string>;
+}
+
+interface MalformedRequest {
+  what: string;
+  method: Method;
+  url: string;
+  /** The body as sent, with its content type. */
+  send: () => Sent | Promise<Sent>;
+  status: number;
+  /** Found in the message, or in a field's path and message. */
+  names: RegExp;
+}
+
+const reviewBy = new Date(Date.now() + 30 * 86_400_000).toISOString().slice(0, 10);
+
+const ingredient = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  id: 'corpus-cream',
+  name: 'Corpus cream',
+  contains: ['milk'],
+  mayContain: [],
+  vegan: false,
+  vegetarian: true,
+  ...over,
+});
+const butter = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  id: 'butter',
+  name: 'Butter',
+  contains: ['milk'],
+  mayContain: [],
+  vegan: false,
+  vegetarian: true,
+  ...over,
+});
+const line = (over: Record<string, unknown> = {}) => ({ use: 'butter', qty: 100, unit: 'g', ...over });
+const recipe = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  id: 'corpus-tart',
+  name: 'Corpus tart',
+  lines: [line()],
+  sale: { portionG: 80 },
+  ...over,
+});
+const recipeWithLine = (over: Record<string, unknown>) => recipe({ lines: [line(over)] });
+const withNutrition = (nutrition: Record<string, unknown>) => ingredient({ nutrition });
+const book = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  crumbproofBook: 1,
+  site: { name: 'Wrenfield Lane Bakehouse', regime: 'UK', handles: [] },
+  ingredients: [],
+  recipes: [],
+  ...over,
+});
+const user = (over: Record<string, unknown> = {}) => ({
+  email: 'corpus@example.com',
+  name: 'Corpus Person',
+  role: 'pastry-chef',
+  password: 'a-long-pass-phrase-7',
+  ...over,
+});
+
+const json = (body: unknown): Sent => ({ payload: JSON.stringify(body), headers: { 'content-type': 'application/json' } });
+const raw = (payload: string | Buffer, type: string): Sent => ({ payload, headers: { 'content-type': type } });
+const nothing = (): Sent => ({ headers: {} });
+const form = async (fields: Record<string, string>, ...files: { field?: string; name: string; bytes: Buffer }[]): Promise<Sent> => {
+  const encoded = await multipart(fields, ...files);
+  return { payload: encoded.payload, headers: encoded.headers };
+};
+const csv = (text: string) => ({ name: 'ingredients.csv', bytes: Buffer.from(text, 'utf8') });
+const pdf = () => ({ name: 'spec.pdf', bytes: fixture('almond-paste-spec.pdf') });
+/** Nested arrays `depth` deep, as JSON text. */
+const nested = (depth: number) => `${'['.repeat(depth)}${']'.repeat(depth)}`;
+/** Stands for the nested lists in a body: JSON.stringify cannot write them that deep, JSON.parse can read them. */
+const NESTED = '(nested lists)';
+const jsonNested = (body: unknown, depth: number): Sent =>
+  raw(JSON.stringify(body).replace(`"${NESTED}"`, nested(depth)), 'application/json');
+
+/** Each route that takes a JSON body, with a body it would take. */
+const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
+  { method: 'POST', url: '/api/ingredients', body: ingredient() },
+  { method: 'PUT', url: '/api/ingredients/butter', body: butter() },
+  { method: 'POST', url: '/api/recipes', body: recipe() },
+  { method: 'PUT', url: '/api/recipes/vanilla-sponge', body: recipe({ id: 'vanilla-sponge' }) },
+  { method: 'POST', url: '/api/swaps/preview', body: { from: 'butter', to: 'plant-spread' } },
+  { method: 'POST', url: '/api/swaps/apply', body: { from: 'butter', to: 'plant-spread' } },
+  { method: 'POST', url: '/api/book/import', body: book() },
+  { method: 'PATCH', url: '/api/kitchen', body: { regime: 'EU' } },
+  { method: 'POST', url: '/api/users', body: user() },
+  { method: 'PATCH', url: '/api/users/2', body: { name: 'Renamed' } },
+  { method: 'POST', url: '/api/auth/sign-in', body: { email: 'manager@example.com', password: 'crumbproof-demo' } },
+  {
+    method: 'POST',
+    url: '/api/auth/first-manager',
+    body: { token: 'x', email: 'first@example.com', name: 'First', password: 'a-long-pass-phrase-7' },
+  },
+  { method: 'POST', url: '/api/composition/scan', body: { text: 'Wheat flour, butter (milk)' } },
+  { method: 'POST', url: '/api/declarations/preview', body: recipe() },
+];
+
+/** What is wrong with a JSON body itself, tried on every JSON route. */
+const BODY_BREAKAGES: { what: string; send: () => Sent; status: number; names: RegExp }[] = [
+  { what: 'JSON cut off in the middle', send: () => raw('{"name": "Corpus', 'application/json'), status: 400, names: /not valid JSON/ },
+  { what: 'JSON with single quotes', send: () => raw("{'name': 'Corpus'}", 'application/json'), status: 400, names: /not valid JSON/ },
+  { what: 'a body that is a list', send: () => json([]), status: 400, names: /\(body\)|Give this part with its fields|fields/i },
+  { what: 'a body that is a number', send: () => json(42), status: 400, names: /\(body\)|fields/i },
+  { what: 'a body that is text', send: () => raw('text', 'text/plain'), status: 415, names: /application\/json/ },
+];
+
+/** Every route that takes an upload (multipart/form-data), with a form it would take. */
+const UPLOAD_ROUTES: { url: string; good: () => Promise<Sent> }[] = [
+  { url: '/api/ingredients/import/preview', good: () => form({}, { name: 'new.csv', bytes: fixture('new-ingredients.csv') }) },
+  { url: '/api/ingredients/import', good: () => form({}, { name: 'new.csv', bytes: fixture('new-ingredients.csv') }) },
+  { url: '/api/ingredients/butter/specifications', good: () => form({ reviewBy }, pdf()) },
+];
+
+const CORPUS: MalformedRequest[] = [
+  ...JSON_ROUTES.flatMap((route) =>
+    BODY_BREAKAGES.map((b) => ({ what: b.what, method: route.method, url: route.url, send: b.send, status: b.status, names: b.names })),
+  ),
+  ...JSON_ROUTES.map((route) => ({
+    what: 'an unknown field at the top of the body',
+    method: route.method,
+    url: route.url,
+    send: () => json({ ...(route.body as object), sneaky: true }),
+    status: 400,
+    names: /sneaky/,
+  })),
+  ...UPLOAD_ROUTES.flatMap((route): MalformedRequest[] => [
+    {
+      what: 'JSON sent where a form is taken',
+      method: 'POST',
+      url: route.url,
+      send: () => json({ file: 'butter.pdf' }),
+      status: 415,
+      names: /multipart\/form-data/,
+    },
+    {
+      what: 'a form without its boundary',
+      method: 'POST',
+      url: route.url,
+      send: async () => ({ ...(await route.good()), headers: { 'content-type': 'multipart/form-data' } }),
+      status: 400,
+      names: /boundary/,
+    },
+    {
+      what: 'a form cut off in the middle',
+      method: 'POST',
+      url: route.url,
+      send: async () => {
+        const good = await route.good();
+        return { ...good, payload: (good.payload as Buffer).subarray(0, 200) };
+      },
+      status: 400,
+      names: /could not be read/,
+    },
+    {
+      what: 'a form without a file',
+      method: 'POST',
+      url: route.url,
+      send: () => form(route.url.endsWith('specifications') ? { reviewBy } : {}),
+      status: 400,
+      names: /^file: .*(Attach|attach)/m,
+    },
+    {
+      what: 'a file in a field other than file',
+      method: 'POST',
+      url: route.url,
+      send: () => form({}, { field: 'upload', name: 'new.csv', bytes: fixture('new-ingredients.csv') }),
+      status: 400,
+      names: /in the field 'file', not 'upload'/,
+    },
+    {
+      what: 'an unknown text field',
+      method: 'POST',
+      url: route.url,
+      send: () => form({ reviewBy, sneaky: '1' }, { name: 'new.csv', bytes: fixture('new-ingredients.csv') }),
+      status: 400,
+      names: /no field 'sneaky'/,
+    },
+    {
+      what: 'an empty file',
+      method: 'POST',
+      url: route.url,
+      send: () => form(route.url.endsWith('specifications') ? { reviewBy } : {}, { name: 'empty.csv', bytes: Buffer.alloc(0) }),
+      status: 400,
+      names: /empty/i,
+    },
+  ]),
+
+  // Ingredients: POST /api/ingredients
+  ...(
+    [
+      ['no name', ingredient({ name: undefined }), /^name: /m],
+      ['an empty name', ingredient({ name: '   ' }), /^name: Give the ingredient a name/m],
+      ['a name that is a number', ingredient({ name: 5 }), /^name: Write this as text/m],
+      ['a name of 10000 characters', ingredient({ name: 'n'.repeat(10_000) }), /^name: Keep this to 160 characters/m],
+      ['a name with a lone surrogate', ingredient({ name: 'Corpus \ud83c cream' }), /^name: This text has a broken character/m],
+      ['a name with a lone low surrogate', ingredient({ name: '\udc00Corpus' }), /^name: This text has a broken character/m],
+      ['a name with NUL', ingredient({ name: 'Corpus\u0000cream' }), /^name: Leave out control characters/m],
+      ['a name with an escape character', ingredient({ name: 'Corpus \u001b[31mcream' }), /^name: Leave out control characters/m],
+      ['no vegan status', ingredient({ vegan: undefined }), /^vegan: Say whether it is vegan/m],
+      ['a vegan status as text', ingredient({ vegan: 'yes' }), /^vegan: Say whether it is vegan/m],
+      ['contains as a single text', ingredient({ contains: 'milk' }), /^contains: Write this as a list/m],
+      ['an unknown allergen source', ingredient({ contains: ['chocolate'] }), /^contains\.0: Unknown allergen source 'chocolate'/m],
+      [
+        'an allergen that looks like SQL',
+        ingredient({ contains: ["milk'); DROP TABLE ingredients;--"] }),
+        /^contains\.0: Unknown allergen source 'milk'\); DROP TABLE/m,
+      ],
+      [
+        'an allergen that looks like HTML',
+        ingredient({ contains: ['<b>milk</b>'] }),
+        /^contains\.0: Unknown allergen source '<b>milk<\/b>'/m,
+      ],
+      ['an allergen entry with an unknown field', ingredient({ contains: [{ source: 'milk', grams: 3 }] }), /remove grams/],
+
+      ['a species of a lone surrogate', ingredient({ contains: [{ source: 'fish', species: '\ud800' }] }), /species|broken character/],
+      ['may-contain as an object', ingredient({ mayContain: { milk: true } }), /^mayContain: Write this as a list/m],
+      ['a composition of 4001 characters', ingredient({ composition: 'c'.repeat(4001) }), /^composition: Keep this to 4000 characters/m],
+      ['a composition with NUL', ingredient({ composition: 'Flour\u0000, butter' }), /^composition: Leave out control characters/m],
+      ['a supplier with a lone surrogate', ingredient({ supplier: 'Mill \udbff' }), /^supplier: This text has a broken character/m],
+      ['a supplier of 161 characters', ingredient({ supplier: 's'.repeat(161) }), /^supplier: Keep this to 160 characters/m],
+      ['a negative sulphite figure', ingredient({ sulphiteMgPerKg: -5 }), /^sulphiteMgPerKg: Use a number of at least 0/m],
+      ['a sulphite figure of 1e9 mg/kg', ingredient({ sulphiteMgPerKg: 1e9 }), /^sulphiteMgPerKg: Use a number no larger than 100000/m],
+      ['a gluten figure above a whole kilogram', ingredient({ glutenMgPerKg: 2e6 }), /^glutenMgPerKg: /m],
+      ['zero grams per millilitre', ingredient({ gPerMl: 0 }), /^gPerMl: Use a number above zero/m],
+      ['a negative density', ingredient({ gPerMl: -1 }), /^gPerMl: Use a number above zero/m],
+      ['a density of 5e-324', ingredient({ gPerMl: 5e-324 }), /^gPerMl: Use at least 0\.01 g per ml/m],
+      ['a density of 6 g per ml', ingredient({ gPerMl: 6 }), /^gPerMl: Use at most 5 g per ml/m],
+      ['a weight each of 5e-324 g', ingredient({ gEach: 5e-324 }), /^gEach: Give a weight for one of at least 0\.001 g/m],
+      ['a weight each of 200 kg', ingredient({ gEach: 200_000 }), /^gEach: Use at most 100000 g/m],
+      ['a weight each as text', ingredient({ gEach: '50' }), /^gEach: Write a number/m],
+      ['isWater as text', ingredient({ isWater: 'true' }), /^isWater: Write true or false/m],
+      ['nutrition as a list', ingredient({ nutrition: [] }), /^nutrition: /m],
+      ['a nutrition figure of 1e308 kJ', withNutrition({ energyKj: 1e308 }), /^nutrition\.energyKj: Use at most 3700 kJ per 100 g/m],
+      ['energy of 901 kcal per 100 g', withNutrition({ energyKcal: 901 }), /^nutrition\.energyKcal: Use at most 900 kcal per 100 g/m],
+      ['energy of 3701 kJ per 100 g', withNutrition({ energyKj: 3701 }), /^nutrition\.energyKj: Use at most 3700 kJ/m],
+      ['negative energy', withNutrition({ energyKj: -1 }), /^nutrition\.energyKj: Use a number of at least 0/m],
+      ['fat of 100.1 g per 100 g', withNutrition({ fat: 100.1 }), /^nutrition\.fat: Use a number no larger than 100/m],
+      ['negative protein', withNutrition({ protein: -0.1 }), /^nutrition\.protein: Use a number of at least 0/m],
+      ['salt of 1e308 g', withNutrition({ salt: 1e308 }), /^nutrition\.salt: Use a number no larger than 100/m],
+      [
+        'fat, carbohydrate and protein over 100 g',
+        withNutrition({ fat: 40, carbohydrate: 40, protein: 30 }),
+        /^nutrition\.protein: fat, carbohydrate and protein add up to 110 g/m,
+      ],
+      ['fibre and salt over 100 g with the rest', withNutrition({ fat: 50, fibre: 30, salt: 21 }), /add up to 101 g, more than the 100 g/],
+      ['cholesterol above 100 g', withNutrition({ cholesterolMg: 100_001 }), /^nutrition\.cholesterolMg: Use at most 100000 mg/m],
+      ['a nutrition figure as text', withNutrition({ sugars: 'ten' }), /^nutrition\.sugars: Write a number/m],
+      ['an unknown nutrient', withNutrition({ vitaminQ: 3 }), /vitaminQ/],
+      [
+        'a nutrition source with a lone surrogate',
+        withNutrition({ source: 'Label \ud834' }),
+        /^nutrition\.source: This text has a broken character/m,
+      ],
+      ['an id that already exists', ingredient({ id: 'butter' }), /'butter' is already used/],
+      ['an id that a recipe has', ingredient({ id: 'vanilla-sponge' }), /'vanilla-sponge' is already used/],
+      ['an id in capitals', ingredient({ id: 'CORPUS-CREAM' }), /^id: Use lower-case letters, digits and hyphens, e\.g\. 'corpus-cream'/m],
+      ['an id with an accent', ingredient({ id: 'corpus-crème' }), /^id: .*e\.g\. 'corpus-creme'/m],
+      ['an id with a zero-width space', ingredient({ id: 'corpus\u200bcream' }), /^id: Use lower-case letters/m],
+      ['an id in Cyrillic look-alike letters', ingredient({ id: 'соrpus-cream' }), /^id: Use lower-case letters/m],
+      ['an id that is an emoji', ingredient({ id: '🍰' }), /^id: Use lower-case letters/m],
+      ['an id with NUL', ingredient({ id: 'corpus\u0000' }), /^id: Use lower-case letters/m],
+      ['an id that looks like SQL', ingredient({ id: "x' OR '1'='1" }), /^id: Use lower-case letters.*e\.g\. 'x-or-1-1'/m],
+      [
+        'an id that looks like HTML',
+        ingredient({ id: '<script>alert(1)</script>' }),
+        /^id: Use lower-case letters.*e\.g\. 'script-alert-1-script'/m,
+      ],
+      ['an id starting with a hyphen', ingredient({ id: '-corpus' }), /^id: Start the id with a letter or digit/m],
+      ['an id of 81 characters', ingredient({ id: 'a'.repeat(81) }), /^id: Use an id of at most 80 characters/m],
+      ['an empty id', ingredient({ id: '' }), /^id: An id cannot be empty/m],
+      ['an id that is a number', ingredient({ id: 7 }), /^id: Write this as text/m],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/ingredients',
+    send: () => json(body),
+    status: /already used/.test(names.source) ? 409 : 400,
+    names,
+  })),
+  {
+    what: 'a body over 2 MB',
+    method: 'POST',
+    url: '/api/ingredients',
+    send: () => json(ingredient({ composition: 'x'.repeat(2_200_000) })),
+    status: 413,
+    names: /too large/,
+  },
+  {
+    what: 'a body with no content',
+    method: 'POST',
+    url: '/api/ingredients',
+    send: () => raw('', 'application/json'),
+    status: 400,
+    names: /Body cannot be empty/,
+  },
+  {
+    what: 'allergens nested 10000 deep',
+    method: 'POST',
+    url: '/api/ingredients',
+    send: () => jsonNested(ingredient({ contains: [NESTED] }), 10_000),
+    status: 400,
+    names: /^contains\.0: /m,
+  },
+  {
+    what: 'a book nested 50000 deep',
+    method: 'POST',
+    url: '/api/book/import',
+    send: () => jsonNested(book({ ingredients: [NESTED] }), 50_000),
+    status: 400,
+    names: /^ingredients\.0: /m,
+  },
+  {
+    what: 'a body of 200000 nested lists',
+    method: 'POST',
+    url: '/api/ingredients',
+    send: () => raw(nested(200_000), 'application/json'),
+    status: 400,
+    names: /^\(body\): Write this as a part with its fields/m,
+  },
+  {
+    what: 'a body of 100000 nested objects',
+    method: 'POST',
+    url: '/api/ingredients',
+    send: () => raw(`${'{"a":'.repeat(100_000)}1${'}'.repeat(100_000)}`, 'application/json'),
+    status: 400,
+    names: /There is no field 'a' here/,
+  },
+
+  // Ingredients: PUT /api/ingredients/:code
+  {
+    what: 'an ingredient that does not exist',
+    method: 'PUT',
+    url: '/api/ingredients/no-such-ingredient',
+    send: () => json(butter({ id: 'no-such-ingredient' })),
+    status: 404,
+    names: /There is no ingredient 'no-such-ingredient'/,
+  },
+  {
+    what: 'a body naming another ingredient',
+    method: 'PUT',
+    url: '/api/ingredients/butter',
+    send: () => json(butter({ id: 'caster-sugar' })),
+    status: 400,
+    names: /does not match 'butter'/,
+  },
+  {
+    what: 'an address in capitals',
+    method: 'PUT',
+    url: '/api/ingredients/BUTTER',
+    send: () => json(butter()),
+    status: 400,
+    names: /^code: Use lower-case letters.*'butter'/m,
+  },
+  {
+    what: 'an address that looks like SQL',
+    method: 'PUT',
+    url: `/api/ingredients/${encodeURIComponent("butter';DROP TABLE ingredients;--")}`,
+    send: () => json(butter()),
+    status: 400,
+    names: /^code: Use lower-case letters/m,
+  },
+  {
+    what: 'an address with an encoded NUL',
+    method: 'PUT',
+    url: '/api/ingredients/butter%00',
+    send: () => json(butter()),
+    status: 400,
+    names: /^code: Use lower-case letters/m,
+  },
+  {
+    what: 'a recipe id as the address',
+    method: 'PUT',
+    url: '/api/ingredients/vanilla-sponge',
+    send: () => json(butter({ id: 'vanilla-sponge' })),
+    status: 404,
+    names: /There is no ingredient 'vanilla-sponge'/,
+  },
+  {
+    what: 'no vegetarian status',
+    method: 'PUT',
+    url: '/api/ingredients/butter',
+    send: () => json(butter({ vegetarian: undefined })),
+    status: 400,
+    names: /^vegetarian: Say whether it is vegetarian/m,
+  },
+  {
+    what: 'a change that leaves recipes in ml unweighable',
+    method: 'PUT',
+    url: '/api/ingredients/whole-milk',
+    send: () => json({ id: 'whole-milk', name: 'Whole milk', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true }),
+    status: 400,
+    names: /uses 'whole-milk' in 'ml', but Whole milk has no weight per millilitre/,
+  },
+  {
+    what: 'a mass nutrient sum over 100 g',
+    method: 'PUT',
+    url: '/api/ingredients/butter',
+    send: () => json(butter({ nutrition: { fat: 82, protein: 19 } })),
+    status: 400,
+    names: /^nutrition\.protein: fat and protein add up to 101 g/m,
+  },
+
+  // Recipes: POST /api/recipes
+  ...(
+    [
+      ['no lines', recipe({ lines: undefined }), /^lines: /m],
+      ['an empty list of lines', recipe({ lines: [] }), /^lines: A recipe needs at least one line/m],
+      ['lines as an object', recipe({ lines: { 0: line() } }), /^lines: Write this as a list/m],
+      ['a quantity of zero', recipeWithLine({ qty: 0 }), /^lines\.0\.qty: Give a quantity above zero/m],
+      ['a negative quantity', recipeWithLine({ qty: -100 }), /^lines\.0\.qty: Give a quantity above zero/m],
+      ['a quantity of 5e-324 g', recipeWithLine({ qty: 5e-324 }), /^lines\.0\.qty: Use at least 0\.001 g/m],
+      ['a quantity of half a milligram', recipeWithLine({ qty: 0.0005 }), /^lines\.0\.qty: Use at least 0\.001 g/m],
+      ['a quantity of 5e-324 kg', recipeWithLine({ qty: 5e-324, unit: 'kg' }), /^lines\.0\.qty: Use at least 0\.000001 kg/m],
+      ['a quantity of 2000 kg', recipeWithLine({ qty: 2000, unit: 'kg' }), /^lines\.0\.qty: Use at most 1000 kg/m],
+      ['a quantity of 2000 litres', recipeWithLine({ qty: 2000, unit: 'l' }), /^lines\.0\.qty: Use at most 1000 l/m],
+      ['a quantity of 300000 teaspoons', recipeWithLine({ qty: 300_000, unit: 'tsp' }), /^lines\.0\.qty: Use at most 200000 tsp/m],
+      ['a quantity of 5000 cups', recipeWithLine({ qty: 5000, unit: 'cup' }), /^lines\.0\.qty: Use at most 4000 cup/m],
+      ['a quantity of 2000000 g', recipeWithLine({ qty: 2_000_000 }), /^lines\.0\.qty: Use a quantity no larger than 1000000/m],
+      ['a quantity of 1e308 each', recipeWithLine({ qty: 1e308, unit: 'each' }), /^lines\.0\.qty: Use a quantity no larger than 1000000/m],
+      ['a quantity as text', recipeWithLine({ qty: '100' }), /^lines\.0\.qty: Give a quantity above zero/m],
+      ['a quantity of null', recipeWithLine({ qty: null }), /^lines\.0\.qty: Give a quantity above zero/m],
+      ['an unknown unit', recipeWithLine({ unit: 'pinch' }), /^lines\.0\.unit: /m],
+      ['a unit that looks like SQL', recipeWithLine({ unit: 'g; DELETE FROM recipes' }), /^lines\.0\.unit: /m],
+      ['an unknown line role', recipeWithLine({ role: 'garnish' }), /^lines\.0\.role: /m],
+      ['a line with an unknown field', recipeWithLine({ note: 'softened' }), /note/],
+      ['a line without what it uses', recipeWithLine({ use: undefined }), /^lines\.0\.use: /m],
+      ['a line using an ingredient that does not exist', recipeWithLine({ use: 'no-such-ingredient' }), /no-such-ingredient/],
+      ['a line using an id in capitals', recipeWithLine({ use: 'BUTTER' }), /^lines\.0\.use: Use lower-case letters.*'butter'/m],
+      [
+        'a line using an id that looks like HTML',
+        recipeWithLine({ use: '<img src=x onerror=alert(1)>' }),
+        /^lines\.0\.use: Use lower-case letters/m,
+      ],
+      [
+        'a line in ml of an ingredient with no density',
+        recipeWithLine({ unit: 'ml' }),
+        /uses 'butter' in 'ml', but Unsalted butter has no weight per millilitre/,
+      ],
+      ['a recipe that contains itself', recipe({ lines: [line({ use: 'corpus-tart' })] }), /Corpus tart contains itself/],
+      ['a portion of zero grams', recipe({ sale: { portionG: 0 } }), /^sale\.portionG: Give a portion weight above zero/m],
+      [
+        'a portion of 5e-324 g',
+        recipe({ sale: { portionG: 5e-324 } }),
+        /^sale\.portionG: Give a portion weight above zero: at least 0\.001 g/m,
+      ],
+      ['a portion of a tonne', recipe({ sale: { portionG: 1e6 } }), /^sale\.portionG: Use a portion weight no larger than 100000 g/m],
+      ['a portion as text', recipe({ sale: { portionG: '80' } }), /^sale\.portionG: Give the weight of one portion in grams/m],
+      ['an unknown claim', recipe({ sale: { portionG: 80, claims: ['kosher'] } }), /^sale\.claims\.0: /m],
+      ['a claim that looks like HTML', recipe({ sale: { portionG: 80, claims: ['<svg/onload=alert(1)>'] } }), /^sale\.claims\.0: /m],
+      ['a QUID of an ingredient not used', recipe({ sale: { portionG: 80, quid: ['no-such-ingredient'] } }), /no-such-ingredient/],
+      ['a sale with an unknown field', recipe({ sale: { portionG: 80, price: 3.5 } }), /price/],
+      ['a finished weight of zero', recipe({ finishedWeightG: 0 }), /^finishedWeightG: Give a finished weight above zero/m],
+      ['a finished weight of 5e-324 g', recipe({ finishedWeightG: 5e-324 }), /^finishedWeightG: Give a finished weight above zero/m],
+      [
+        'a finished weight of 100 tonnes',
+        recipe({ finishedWeightG: 1e8 }),
+        /^finishedWeightG: Use a finished weight no larger than 10000000 g/m,
+      ],
+      [
+        'a finished weight above what goes in',
+        recipe({ finishedWeightG: 150 }),
+        /^finishedWeightG: Corpus tart is given a finished weight of 150 g, more than the 100 g that goes into it/m,
+      ],
+      ['a recipe name with a lone surrogate', recipe({ name: 'Tart \udfff' }), /^name: This text has a broken character/m],
+      ['a recipe name of 161 characters', recipe({ name: 't'.repeat(161) }), /^name: Keep this to 160 characters/m],
+      ['a recipe id that an ingredient has', recipe({ id: 'butter' }), /'butter' is already used/],
+      [
+        'a recipe id with capitals that would contain itself',
+        recipe({ id: 'CORPUS-TART', lines: [line({ use: 'corpus-tart' })] }),
+        /^id: Use lower-case letters.*'corpus-tart'/m,
+      ],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/recipes',
+    send: () => json(body),
+    status: /already used/.test(names.source) ? 409 : 400,
+    names,
+  })),
+
+  // Recipes: PUT /api/recipes/:code
+  {
+    what: 'a recipe that does not exist',
+    method: 'PUT',
+    url: '/api/recipes/no-such-recipe',
+    send: () => json(recipe({ id: 'no-such-recipe' })),
+    status: 404,
+    names: /There is no recipe 'no-such-recipe'/,
+  },
+  {
+    what: 'a body naming another recipe',
+    method: 'PUT',
+    url: '/api/recipes/vanilla-sponge',
+    send: () => json(recipe({ id: 'corpus-tart' })),
+    status: 400,
+    names: /does not match 'vanilla-sponge'/,
+  },
+  {
+    what: 'an address with an accent',
+    method: 'PUT',
+    url: `/api/recipes/${encodeURIComponent('vanilla-spongé')}`,
+    send: () => json(recipe({ id: 'vanilla-sponge' })),
+    status: 400,
+    names: /^code: .*'vanilla-sponge'/m,
+  },
+  {
+    what: 'an address of 200 characters',
+    method: 'PUT',
+    url: `/api/recipes/${'r'.repeat(200)}`,
+    send: () => json(recipe({ id: 'vanilla-sponge' })),
+    status: 414,
+    names: /exceeding the max param length/,
+  },
+  {
+    what: 'a recipe made to contain itself',
+    method: 'PUT',
+    url: '/api/recipes/vanilla-sponge',
+    send: () => json(recipe({ id: 'vanilla-sponge', lines: [line({ use: 'vanilla-sponge' })] })),
+    status: 400,
+    names: /Corpus tart contains itself/,
+  },
+  {
+    what: 'an ingredient id as the address',
+    method: 'PUT',
+    url: '/api/recipes/butter',
+    send: () => json(recipe({ id: 'butter' })),
+    status: 404,
+    names: /There is no recipe 'butter'/,
+  },
+
+  // Swaps: POST /api/swaps/preview and /api/swaps/apply
+  ...(['/api/swaps/preview', '/api/swaps/apply'] as const).flatMap((url): MalformedRequest[] =>
+    (
+      [
+        ['nothing to replace', { to: 'plant-spread' }, 400, /^from: /m],
+        ['no replacement', { from: 'butter' }, 400, /^to: /m],
+        ['an empty replacement', { from: 'butter', to: '' }, 400, /^to: Choose the replacement/m],
+        ['a replacement that is a number', { from: 'butter', to: 5 }, 400, /^to: Write this as text/m],
+        ['an ingredient replaced by itself', { from: 'butter', to: 'butter' }, 400, /^to: Same as the ingredient replaced/m],
+        [
+          'an ingredient that does not exist',
+          { from: 'no-such-ingredient', to: 'plant-spread' },
+          404,
+          /There is no ingredient or recipe 'no-such-ingredient'/,
+        ],
+        ['a replacement that does not exist', { from: 'butter', to: 'no-such-ingredient' }, 404, /'no-such-ingredient' to use instead/],
+        [
+          'a recipe that does not exist',
+          { from: 'butter', to: 'plant-spread', recipe: 'no-such-recipe' },
+          404,
+          /There is no recipe 'no-such-recipe'/,
+        ],
+        [
+          'an ingredient not used where asked',
+          { from: 'yeast', to: 'plant-spread', recipe: 'vanilla-sponge' },
+          400,
+          /^from: Not used here/m,
+        ],
+        ['an id in capitals', { from: 'BUTTER', to: 'plant-spread' }, 400, /^from: Use lower-case letters.*'butter'/m],
+        ['an id that looks like SQL', { from: "butter' --", to: 'plant-spread' }, 400, /^from: Use lower-case letters/m],
+        ['an id that looks like HTML', { from: 'butter', to: '<iframe src=x>' }, 400, /^to: Use lower-case letters/m],
+      ] as const
+    ).map(([what, body, status, names]) => ({ what, method: 'POST', url, send: () => json(body), status, names })),
+  ),
+
+  // Book import: POST /api/book/import
+  ...(
+    [
+      ['a book of an unknown version', book({ crumbproofBook: 2 }), /crumbproofBook must be 1/],
+      ['a book without its site', book({ site: undefined }), /^site: /m],
+      ['a site with an unknown regime', book({ site: { name: 'Wrenfield', regime: 'XX', handles: [] } }), /^site\.regime: /m],
+      ['a site regime that looks like SQL', book({ site: { name: 'Wrenfield', regime: "UK' OR 1=1", handles: [] } }), /^site\.regime: /m],
+      [
+        'a site name with a lone surrogate',
+        book({ site: { name: 'Wren\ud800', regime: 'UK', handles: [] } }),
+        /^site\.name: This text has a broken character/m,
+      ],
+      ['ingredients as an object', book({ ingredients: {} }), /^ingredients: Write this as a list/m],
+      [
+        'an ingredient with a non-canonical id',
+        book({ ingredients: [ingredient({ id: 'Corpus-Cream' })] }),
+        /^ingredients\.0 \(Corpus-Cream\)\.id: Use lower-case letters.*'corpus-cream'/m,
+      ],
+      [
+        'one id given to two ingredients',
+        book({ ingredients: [ingredient(), ingredient({ contains: [] })] }),
+        /The id 'corpus-cream' is used by the ingredient Corpus cream and by the ingredient Corpus cream/,
+      ],
+      [
+        'one id given to an ingredient and a recipe',
+        book({ ingredients: [ingredient({ id: 'corpus-tart' })], recipes: [recipe()] }),
+        /The id 'corpus-tart' is used by/,
+      ],
+      [
+        'a recipe using an id that does not exist',
+        book({ recipes: [recipeWithLine({ use: 'no-such-ingredient' })] }),
+        /no-such-ingredient/,
+      ],
+      [
+        'a recipe that contains itself',
+        book({ recipes: [recipe({ lines: [line({ use: 'corpus-tart' })] })] }),
+        /Corpus tart contains itself/,
+      ],
+      [
+        'a finished weight above what goes in',
+        book({ ingredients: [ingredient()], recipes: [recipe({ lines: [line({ use: 'corpus-cream' })], finishedWeightG: 101 })] }),
+        /^recipes\.0 \(corpus-tart\)\.finishedWeightG: Corpus tart is given a finished weight of 101 g, more than the 100 g/m,
+      ],
+      [
+        'a nutrition figure of 1e308',
+        book({ ingredients: [withNutrition({ energyKcal: 1e308 })] }),
+        /nutrition\.energyKcal: Use at most 900 kcal/,
+      ],
+      ['a quantity of 5e-324 g', book({ recipes: [recipeWithLine({ qty: 5e-324 })] }), /lines\.0\.qty: Use at least 0\.001 g/],
+      ['an unknown field in the site', book({ site: { name: 'Wrenfield', regime: 'UK', handles: [], owner: 'x' } }), /owner/],
+      [
+        'a handled allergen that does not exist',
+        book({ site: { name: 'Wrenfield', regime: 'UK', handles: [{ allergen: 'gluten', controls: 'segregated' }] } }),
+        /^site\.handles\.0\.allergen: Unknown allergen source 'gluten'/m,
+      ],
+    ] as const
+  ).map(([what, body, names]) => ({ what, method: 'POST' as const, url: '/api/book/import', send: () => json(body), status: 400, names })),
+  {
+    what: 'a book over 2 MB',
+    method: 'POST',
+    url: '/api/book/import',
+    send: () =>
+      json(book({ ingredients: Array.from({ length: 3000 }, (_, i) => ingredient({ id: `corpus-${i}`, composition: 'x'.repeat(800) })) })),
+    status: 413,
+    names: /too large/,
+  },
+
+  // Kitchen: PATCH /api/kitchen
+  ...(
+    [
+      ['no change at all', {}, /Change at least one field/],
+      ['an unknown regime', { regime: 'XX' }, /^regime: /m],
+      ['a regime in lower case', { regime: 'uk' }, /^regime: /m],
+      ['unknown measures', { measures: 'imperial' }, /^measures: /m],
+      ['measures that look like HTML', { measures: '<svg/onload=alert(1)>' }, /^measures: /m],
+      ['an empty name', { name: '' }, /^name: Give the kitchen a name/m],
+      ['a name with a lone surrogate', { name: 'Wrenfield \ud83d' }, /^name: This text has a broken character/m],
+      ['a name with a line break', { name: 'Wrenfield\nLane' }, /^name: Leave out control characters/m],
+      ['an address of 301 characters', { address: 'a'.repeat(301) }, /^address: Keep this to 300 characters/m],
+      [
+        'an allergen listed twice',
+        {
+          handles: [
+            { allergen: 'milk', controls: 'segregated' },
+            { allergen: 'milk', controls: 'shared-equipment' },
+          ],
+        },
+        /^handles: List each allergen source once/m,
+      ],
+      ['an unknown way of handling', { handles: [{ allergen: 'milk', controls: 'ignored' }] }, /^handles\.0\.controls: /m],
+      ['handles as text', { handles: 'milk' }, /^handles: Write this as a list/m],
+    ] as const
+  ).map(([what, body, names]) => ({ what, method: 'PATCH' as const, url: '/api/kitchen', send: () => json(body), status: 400, names })),
+
+  // Users: POST /api/users and PATCH /api/users/:id
+  ...(
+    [
+      [
+        'an email longer than the column',
+        user({ email: `${'e'.repeat(250)}@example.com` }),
+        400,
+        /^email: Use an email address of at most 254 characters/m,
+      ],
+      ['an email that is not one', user({ email: 'not-an-email' }), 400, /^email: Enter an email address/m],
+      ['an email that looks like SQL', user({ email: "' OR 1=1 --" }), 400, /^email: Enter an email address/m],
+      ['an email that exists', user({ email: 'chef@example.com' }), 409, /A user with that email already exists/],
+      ['a name with a lone surrogate', user({ name: 'Corpus \ud83c' }), 400, /^name: This text has a broken character/m],
+      ['a name of 121 characters', user({ name: 'n'.repeat(121) }), 400, /^name: Keep this to 120 characters/m],
+      ['an unknown role', user({ role: 'admin' }), 400, /^role: /m],
+      ['a role that looks like HTML', user({ role: '<script>manager</script>' }), 400, /^role: /m],
+      ['a short password', user({ password: 'short-7' }), 400, /^password: Use at least 12 characters/m],
+      [
+        'a password with a lone surrogate',
+        user({ password: 'a-long-pass-\ud800-7' }),
+        400,
+        /^password: This password has a broken character/m,
+      ],
+      ['a password of 10000 characters', user({ password: 'p4'.repeat(5000) }), 400, /^password: Use at most 72 bytes/m],
+      ['no password', user({ password: undefined }), 400, /^password: /m],
+    ] as const
+  ).map(([what, body, status, names]) => ({ what, method: 'POST' as const, url: '/api/users', send: () => json(body), status, names })),
+  ...(
+    [
+      ['no change at all', '/api/users/2', {}, 400, /Change at least one field/],
+      ['a user that does not exist', '/api/users/999999', { name: 'Nobody' }, 404, /There is no user 999999/],
+      ['a user id that is not a number', '/api/users/abc', { name: 'Nobody' }, 400, /numeric/],
+      ['a user id that looks like SQL', `/api/users/${encodeURIComponent('2 OR 1=1')}`, { name: 'Nobody' }, 400, /numeric/],
+      ['a user id of 21 digits', '/api/users/999999999999999999999', { name: 'Nobody' }, 404, /There is no user/],
+      ['an active state as text', '/api/users/2', { active: 'no' }, 400, /^active: Write true or false/m],
+      ['an unknown role', '/api/users/2', { role: 'owner' }, 400, /^role: /m],
+      ['an empty name', '/api/users/2', { name: ' ' }, 400, /^name: Enter the person’s name/m],
+      ['a name with NUL', '/api/users/2', { name: 'Chef\u0000' }, 400, /^name: Leave out control characters/m],
+      ['a name with a lone surrogate', '/api/users/2', { name: 'Chef \ud83d' }, 400, /^name: This text has a broken character/m],
+      ['an email, which cannot be changed', '/api/users/2', { email: 'new@example.com' }, 400, /email/],
+    ] as const
+  ).map(([what, url, body, status, names]) => ({ what, method: 'PATCH' as const, url, send: () => json(body), status, names })),
+
+  // Sign-in, first manager and sign-out
+  ...(
+    [
+      [
+        'an email longer than the column',
+        { email: `${'e'.repeat(300)}@example.com`, password: 'crumbproof-demo' },
+        /^email: Use an email address of at most 254 characters/m,
+      ],
+      ['no email', { password: 'crumbproof-demo' }, /^email: /m],
+      ['an email that is a list', { email: ['manager@example.com'], password: 'crumbproof-demo' }, /^email: Write this as text/m],
+      ['an email that looks like SQL', { email: "manager@example.com' OR '1'='1", password: 'x' }, /^email: Enter an email address/m],
+      ['no password', { email: 'manager@example.com' }, /^password: /m],
+      [
+        'a password of 201 characters',
+        { email: 'manager@example.com', password: 'p'.repeat(201) },
+        /^password: Keep this to 200 characters/m,
+      ],
+    ] as const
+  ).map(([what, body, names]) => ({ what, method: 'POST' as const, url: '/api/auth/sign-in', send: () => json(body), status: 400, names })),
+  ...(
+    [
+      ['no token', { email: 'first@example.com', name: 'First', password: 'a-long-pass-phrase-7' }, 400, /^token: /m],
+      [
+        'an email longer than the column',
+        { token: 'x', email: `${'f'.repeat(300)}@example.com`, name: 'First', password: 'a-long-pass-phrase-7' },
+        400,
+        /^email: Use an email address of at most 254/m,
+      ],
+      [
+        'a name with a lone surrogate',
+        { token: 'x', email: 'first@example.com', name: '\ud800', password: 'a-long-pass-phrase-7' },
+        400,
+        /^name: This text has a broken character/m,
+      ],
+      [
+        'a link that was never printed',
+        { token: 'not-a-printed-link', email: 'first@example.com', name: 'First', password: 'a-long-pass-phrase-7' },
+        403,
+        /This link has been used, has expired or was replaced/,
+      ],
+    ] as const
+  ).map(([what, body, status, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/auth/first-manager',
+    send: () => json(body),
+    status,
+    names,
+  })),
+  {
+    what: 'JSON cut off in the middle',
+    method: 'POST',
+    url: '/api/auth/sign-out',
+    send: () => raw('{"', 'application/json'),
+    status: 400,
+    names: /not valid JSON/,
+  },
+  {
+    what: 'a form body',
+    method: 'POST',
+    url: '/api/auth/sign-out',
+    send: () => raw('a=1', 'application/x-www-form-urlencoded'),
+    status: 415,
+    names: /application\/json/,
+  },
+
+  // Composition scan and declaration preview (nothing is saved by either)
+  ...(
+    [
+      ['no text', {}, /^text: /m],
+      ['text of 4001 characters', { text: 'w'.repeat(4001) }, /^text: Use at most 4,000 characters/m],
+      ['text that is a number', { text: 42 }, /^text: Write this as text/m],
+      ['text with a lone surrogate', { text: 'Wheat flour \ud83c' }, /^text: This text has a broken character/m],
+      ['text with NUL', { text: 'Wheat\u0000flour' }, /^text: Leave out control characters/m],
+      ['an unknown allergen in the list', { text: 'Wheat flour', contains: ['gluten'] }, /^contains\.0: Unknown allergen source 'gluten'/m],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/composition/scan',
+    send: () => json(body),
+    status: 400,
+    names,
+  })),
+  ...(
+    [
+      [
+        'a line using an id that does not exist',
+        '/api/declarations/preview',
+        recipeWithLine({ use: 'no-such-ingredient' }),
+        /no-such-ingredient/,
+      ],
+      ['a quantity of 5e-324 g', '/api/declarations/preview', recipeWithLine({ qty: 5e-324 }), /lines\.0\.qty: Use at least 0\.001 g/],
+      ['an unknown regime', '/api/declarations/preview?regime=XX', recipe(), /Use one of EU, UK, US, CA, ANZ/],
+      [
+        'a regime that looks like SQL',
+        `/api/declarations/preview?regime=${encodeURIComponent("UK' OR 1=1")}`,
+        recipe(),
+        /Use one of EU, UK, US, CA, ANZ/,
+      ],
+    ] as const
+  ).map(([what, url, body, names]) => ({ what, method: 'POST' as const, url, send: () => json(body), status: 400, names })),
+
+  // Spreadsheet import: the rows of the file, all or nothing
+  ...(
+    [
+      [
+        'an id in capitals',
+        'id,name,contains,vegan,vegetarian\nCORPUS-CREAM,Corpus cream,milk,no,yes\n',
+        /Use lower-case letters, digits and hyphens, e\.g\. 'corpus-cream'/,
+      ],
+      ['an id with an accent', 'id,name,contains,vegan,vegetarian\ncorpus-crème,Corpus cream,milk,no,yes\n', /e\.g\. 'corpus-creme'/],
+      [
+        'a header that looks like HTML',
+        'id,name,<script>alert(1)</script>\ncorpus-cream,Corpus cream,x\n',
+        /The column '<script>alert\(1\)<\/script>' is not one this import understands/,
+      ],
+      ['no id column', 'name,contains\nCorpus cream,milk\n', /\bid\b/],
+      [
+        'a fat figure over 100 g',
+        'id,name,contains,vegan,vegetarian,fat\ncorpus-cream,Corpus cream,milk,no,yes,120\n',
+        /column fat \('120'\): Use a number no larger than 100/,
+      ],
+      ['energy of 1e308 kJ', 'id,name,contains,vegan,vegetarian,energy kj\ncorpus-cream,Corpus cream,milk,no,yes,1e308\n', /energy/i],
+      [
+        'a name with a line break in a quoted cell',
+        'id,name,contains,vegan,vegetarian\ncorpus-cream,"Corpus\ncream",milk,no,yes\n',
+        /Leave out control characters/,
+      ],
+      [
+        'an allergen that looks like SQL',
+        "id,name,contains,vegan,vegetarian\ncorpus-cream,Corpus cream,milk'); DROP TABLE ingredients;--,no,yes\n",
+        /is not an allergen source/,
+      ],
+      ['a file with NUL in it', 'id,name,contains,vegan,vegetarian\ncorpus-cream,Corpus\u0000cream,milk,no,yes\n', /not a recognised type/],
+      ['a file that is an image', '', /neither|CSV|xlsx/i],
+    ] as const
+  ).map(([what, text, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/ingredients/import',
+    send: () => (text === '' ? form({}, { name: 'photo.csv', bytes: fixture('label-photo.png') }) : form({}, csv(text))),
+    status: 400,
+    names,
+  })),
+  // The preview answers a readable file with each row's problems (and saves nothing); a file it cannot read is refused.
+  {
+    what: 'a file that is an image',
+    method: 'POST',
+    url: '/api/ingredients/import/preview',
+    send: () => form({}, { name: 'photo.csv', bytes: fixture('label-photo.png') }),
+    status: 400,
+    names: /neither|CSV|xlsx/i,
+  },
+
+  // Specification upload: POST /api/ingredients/:code/specifications
+  ...(
+    [
+      ['no review-by date', '/api/ingredients/butter/specifications', {}, 400, /^reviewBy: Give the date by which the kitchen must check/m],
+      [
+        'a review-by date in the past',
+        '/api/ingredients/butter/specifications',
+        { reviewBy: '2001-01-01' },
+        400,
+        /^reviewBy: 2001-01-01 has already passed/m,
+      ],
+      [
+        'a review-by date that does not exist',
+        '/api/ingredients/butter/specifications',
+        { reviewBy: '2099-02-30' },
+        400,
+        /^reviewBy: 2099-02-30 is not a real date/m,
+      ],
+      [
+        'a review-by date that looks like SQL',
+        '/api/ingredients/butter/specifications',
+        { reviewBy: "2099-01-01'; DROP TABLE specifications; --" },
+        400,
+        /^reviewBy: .* is not a date written as YYYY-MM-DD/m,
+      ],
+      [
+        'a note of 501 characters',
+        '/api/ingredients/butter/specifications',
+        { reviewBy, note: 'n'.repeat(501) },
+        400,
+        /^note: Keep the note to 500 characters/m,
+      ],
+      [
+        'a note with NUL',
+        '/api/ingredients/butter/specifications',
+        { reviewBy, note: 'From\u0000the mill' },
+        400,
+        /^note: Leave out control characters/m,
+      ],
+      [
+        'an ingredient that does not exist',
+        '/api/ingredients/no-such-ingredient/specifications',
+        { reviewBy },
+        404,
+        /There is no ingredient 'no-such-ingredient'/,
+      ],
+      [
+        'an ingredient in capitals',
+        '/api/ingredients/BUTTER/specifications',
+        { reviewBy },
+        400,
+        /^code: Use lower-case letters.*'butter'/m,
+      ],
+      [
+        'an ingredient with an accent',
+        `/api/ingredients/${encodeURIComponent('bütter')}/specifications`,
+        { reviewBy },
+        400,
+        /^code: .*'butter'/m,
+      ],
+    ] as const
+  ).map(([what, url, fields, status, names]) => ({ what, method: 'POST' as const, url, send: () => form(fields, pdf()), status, names })),
+  {
+    what: 'a text file instead of a PDF or image',
+    method: 'POST',
+    url: '/api/ingredients/butter/specifications',
+    send: () => form({ reviewBy }, csv('id,name\n')),
+    status: 400,
+    names: /Only PDF files and images/,
+  },
+  {
+    what: 'an HTML page named as a PDF',
+    method: 'POST',
+    url: '/api/ingredients/butter/specifications',
+    send: () => form({ reviewBy }, { name: 'spec.pdf', bytes: Buffer.from('<html><script>alert(1)</script></html>') }),
+    status: 400,
+    names: /Only PDF files and images/,
+  },
+  {
+    what: 'two files',
+    method: 'POST',
+    url: '/api/ingredients/butter/specifications',
+    send: () => form({ reviewBy }, pdf(), pdf()),
+    status: 400,
+    names: /one file|file/,
+  },
+
+  // Routes that do not exist: nothing can be deleted
+  ...(
+    [
+      ['DELETE', '/api/ingredients/butter'],
+      ['DELETE', '/api/recipes/vanilla-sponge'],
+      ['DELETE', '/api/users/2'],
+      ['DELETE', '/api/kitchen'],
+      ['DELETE', '/api/book'],
+      ['DELETE', '/api/specifications/1/file'],
+      ['PATCH', '/api/ingredients/butter'],
+      ['PUT', '/api/kitchen'],
+    ] as const
+  ).map(([method, url]) => ({
+    what: 'a method the route does not take',
+    method,
+    url,
+    send: nothing,
+    status: 404,
+    names: /There is nothing at this address/,
+  })),
+];
+
+describe('malformed requests to every write route are refused with a 4xx naming the problem, and change no table (real MariaDB)', () => {
+  let t: TestApp;
+  let manager: string;
+  beforeAll(async () => {
+    t = await startTestApp({ seed: true });
+    manager = await t.signIn('manager@example.com');
+  });
+  afterAll(() => t.close());
+
+  it('holds at least 150 requests, with some for every route of the app that writes', () => {
+    expect(CORPUS.length).toBeGreaterThanOrEqual(150);
+    const discovery = t.app.get(DiscoveryService);
+    const scanner = t.app.get(MetadataScanner);
+    const writes: { method: string; pattern: RegExp; route: string }[] = [];
+    for (const wrapper of discovery.getControllers()) {
+      const base = String(Reflect.getMetadata(PATH_METADATA, wrapper.metatype as object) ?? '');
+      const proto = Object.getPrototypeOf(wrapper.instance as object);
+      for (const name of scanner.getAllMethodNames(proto)) {
+        const path = Reflect.getMetadata(PATH_METADATA, proto[name]) as string | undefined;
+        const method = RequestMethod[Reflect.getMetadata(METHOD_METADATA, proto[name]) as number];
+        if (path === undefined || !['POST', 'PUT', 'PATCH', 'DELETE'].includes(method)) continue;
+        const route = `/api/${[base, path].filter((p) => p && p !== '/').join('/')}`.replace(/\/+/g, '/');
+        writes.push({ method, route, pattern: new RegExp(`^${route.replace(/:[^/]+/g, '[^/]+')}(\\?.*)?$`) });
+      }
+    }
+    expect(writes.length).toBeGreaterThanOrEqual(18);
+    const uncovered = writes
+      .filter((w) => !CORPUS.some((c) => c.method === w.method && w.pattern.test(c.url)))
+      .map((w) => `${w.method} ${w.route}`);
+    expect(uncovered).toEqual([]);
+  });
+
+  it.each(CORPUS.map((c) => ({ ...c, title: `${c.method} ${c.url.length > 70 ? `${c.url.slice(0, 70)}…` : c.url}: ${c.what}` })))(
+    '$title',
+    async ({ method, url, send, status, names }) => {
+      const before = await tableChecksums(t.sequelize);
+      const sent = await send();
+      const res = await t.app.inject({ method, url, payload: sent.payload, headers: { ...sent.headers, cookie: manager } });
+      const body = res.json<{
+        message?: string;
+        fields?: { path: string; message: string }[];
+        problems?: unknown[];
+        rows?: { problems: string[] }[];
+      }>();
+      const said = [
+        body.message ?? '',
+        ...(body.fields ?? []).map((f) => `${f.path}: ${f.message}`),
+        ...(body.rows ?? []).flatMap((r) => r.problems),
+      ].join('\n');
+      expect({ status: res.statusCode, said }).toEqual({ status, said: expect.stringMatching(names) });
+      expect(await tableChecksums(t.sequelize)).toEqual(before);
+    },
+  );
+});
