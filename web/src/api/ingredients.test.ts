@@ -1,4 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import { requestUrl } from '@/testing/mock-api';
 import { getIngredients, INGREDIENT_PAGE_SIZE } from './ingredients';
 
 describe('getIngredients', () => {
@@ -9,8 +10,8 @@ describe('getIngredients', () => {
     const asked: string[] = [];
     vi.stubGlobal(
       'fetch',
-      vi.fn(async (input: RequestInfo | URL) => {
-        const url = new URL(String(input), 'http://crumbproof.test');
+      vi.fn((input: RequestInfo | URL) => {
+        const url = new URL(requestUrl(input), 'http://crumbproof.test');
         asked.push(url.search);
         const offset = Number(url.searchParams.get('offset'));
         const limit = Number(url.searchParams.get('limit'));
@@ -18,7 +19,7 @@ describe('getIngredients', () => {
           id: `i${offset + i}`,
           name: `I ${offset + i}`,
         }));
-        return new Response(JSON.stringify(rows), { status: 200, headers: { 'content-type': 'application/json' } });
+        return Promise.resolve(new Response(JSON.stringify(rows), { status: 200, headers: { 'content-type': 'application/json' } }));
       }),
     );
     const rows = await getIngredients();

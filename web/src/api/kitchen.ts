@@ -1,8 +1,7 @@
 import { kitchenSchema, type KitchenView } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
-
-export const kitchenQueryKey = ['kitchen'] as const;
+import { queryKeys } from './query-keys';
 
 /** The kitchen: name, address, declaring regime, household measures and allergen handling. */
 export async function getKitchen({ signal }: { signal?: AbortSignal } = {}): Promise<KitchenView> {
@@ -11,7 +10,7 @@ export async function getKitchen({ signal }: { signal?: AbortSignal } = {}): Pro
 
 export function getKitchenQueryOptions() {
   return queryOptions({
-    queryKey: kitchenQueryKey,
+    queryKey: queryKeys.kitchen(),
     queryFn: ({ signal }) => getKitchen({ signal }),
     staleTime: 10 * 60_000,
   });

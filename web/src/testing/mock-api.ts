@@ -18,14 +18,19 @@ export interface RecordedCall {
   credentials: RequestCredentials | undefined;
 }
 
+/** The address a fetch was called with, whichever form it came in. */
+export function requestUrl(input: RequestInfo | URL): string {
+  return typeof input === 'string' ? input : input instanceof URL ? input.href : input.url;
+}
+
 /**
  * Replaces fetch for one test. Unknown routes answer 404 in the API's error shape, so a test
  * that forgets a route fails loudly instead of hanging.
  */
 export function mockApi(handlers: ApiHandlers) {
   const calls: RecordedCall[] = [];
-  const fetchMock = vi.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-    const url = typeof input === 'string' ? input : input instanceof URL ? input.href : input.url;
+  const fetchMock = vi.fn((input: RequestInfo | URL, init?: RequestInit): Promise<Response> => {
+    const url = requestUrl(input);
     const method = (init?.method ?? 'GET').toUpperCase();
     const path = new URL(url, 'http://crumbproof.test').pathname;
     const body = typeof init?.body === 'string' ? (JSON.parse(init.body) as unknown) : undefined;
@@ -39,10 +44,12 @@ export function mockApi(handlers: ApiHandlers) {
           ? handler({ body, url })
           : handler;
     const status = answer.status ?? 200;
-    return new Response(answer.body === undefined || status === 204 ? null : JSON.stringify(answer.body), {
-      status,
-      headers: { 'Content-Type': 'application/json' },
-    });
+    return Promise.resolve(
+      new Response(answer.body === undefined || status === 204 ? null : JSON.stringify(answer.body), {
+        status,
+        headers: { 'Content-Type': 'application/json' },
+      }),
+    );
   });
   vi.stubGlobal('fetch', fetchMock);
   return { calls, fetchMock };

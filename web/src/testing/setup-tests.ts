@@ -1,5 +1,5 @@
 import '@testing-library/jest-dom/vitest';
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterEach } from 'vitest';
 
 // next-themes renders its no-flash <script> into the tree; React notes it once per render. Not a fault.
@@ -40,6 +40,10 @@ if (!('ResizeObserver' in window)) {
 // jsdom does not implement scrolling.
 window.scrollTo = () => {};
 Element.prototype.scrollIntoView = () => {};
+
+// findBy… and waitFor wait for the app as a user would; on a busy 2-core machine a first render
+// can take longer than Testing Library's one second.
+configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => {
   cleanup();

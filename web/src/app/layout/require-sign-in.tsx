@@ -1,7 +1,8 @@
-import { Button, Spinner, Stack, Text } from '@chakra-ui/react';
+import { Stack } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
-import { ErrorAlert } from '@/components/ui/error-alert';
+import { LoadFailed } from '@/components/ui/load-failed';
+import { Loading } from '@/components/ui/loading';
 import { useMe } from '@/features/auth/api/get-me';
 import { SignedInUserProvider } from '@/lib/signed-in-user';
 
@@ -16,20 +17,16 @@ export function RequireSignIn({ children }: RequireSignInProps) {
 
   if (me.isPending) {
     return (
-      <Stack role="status" align="center" justify="center" minH="60dvh" gap="3">
-        <Spinner color="accent.solid" size="lg" />
-        <Text>Checking who is signed in…</Text>
+      <Stack align="center" justify="center" minH="60dvh">
+        <Loading size="lg">Checking who is signed in…</Loading>
       </Stack>
     );
   }
 
   if (me.isError) {
     return (
-      <Stack as="main" maxW="xl" mx="auto" p="8" gap="4">
-        <ErrorAlert title="Crumbproof could not check who is signed in">{me.error.message}</ErrorAlert>
-        <Button alignSelf="flex-start" size="lg" onClick={() => void me.refetch()}>
-          Try again
-        </Button>
+      <Stack as="main" maxW="xl" mx="auto" p="8">
+        <LoadFailed title="Crumbproof could not check who is signed in" error={me.error} onRetry={() => void me.refetch()} />
       </Stack>
     );
   }

@@ -1,5 +1,6 @@
 import { Box, Button, SimpleGrid, Text } from '@chakra-ui/react';
-import { useEffect, useId, useRef, useState } from 'react';
+import { useEffect, useRef } from 'react';
+import { useDisclosure } from '@/lib/use-disclosure';
 import { CheckboxInput } from './choice-inputs';
 
 export interface ColumnChoice {
@@ -17,9 +18,7 @@ interface ColumnsMenuProps {
 
 /** A "Columns" button opening a list of checkboxes, one per column. Escape closes it. */
 export function ColumnsMenu({ columns, visibility, onChange }: ColumnsMenuProps) {
-  const [open, setOpen] = useState(false);
-  const panelId = useId();
-  const buttonRef = useRef<HTMLButtonElement>(null);
+  const { open, setOpen, buttonProps, panelProps } = useDisclosure();
   const rootRef = useRef<HTMLDivElement>(null);
 
   useEffect(() => {
@@ -29,28 +28,20 @@ export function ColumnsMenu({ columns, visibility, onChange }: ColumnsMenuProps)
     }
     document.addEventListener('pointerdown', handlePointer);
     return () => document.removeEventListener('pointerdown', handlePointer);
-  }, [open]);
+  }, [open, setOpen]);
 
   const shown = columns.filter((column) => visibility[column.id] !== false).length;
 
   return (
     <Box position="relative" ref={rootRef}>
-      <Button
-        ref={buttonRef}
-        variant="outline"
-        size="md"
-        aria-expanded={open}
-        aria-controls={panelId}
-        onClick={() => setOpen((value) => !value)}
-      >
+      <Button variant="outline" size="md" {...buttonProps}>
         Columns
         <Text as="span" color="fg.muted" fontWeight="normal">
           ({shown} of {columns.length})
         </Text>
       </Button>
       <Box
-        id={panelId}
-        hidden={!open}
+        {...panelProps}
         role="group"
         aria-label="Show columns"
         position="absolute"
@@ -64,12 +55,6 @@ export function ColumnsMenu({ columns, visibility, onChange }: ColumnsMenuProps)
         shadow="md"
         p="3"
         minW="64"
-        onKeyDown={(event) => {
-          if (event.key === 'Escape') {
-            setOpen(false);
-            buttonRef.current?.focus();
-          }
-        }}
       >
         <SimpleGrid columns={1} gap="0">
           {columns.map((column) => (

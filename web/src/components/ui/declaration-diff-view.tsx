@@ -1,10 +1,11 @@
 import { Box, Stack, Text } from '@chakra-ui/react';
-import type { ClaimChange, DeclarationDiff, GroupChange } from '@crumbproof/shared';
-import { CLAIM_LABELS } from '@crumbproof/shared';
+import { CLAIM_LABELS, type ClaimChange, type DeclarationDiff, type GroupChange } from '@crumbproof/shared';
 import { ClaimReasonList } from './claim-reasons';
 import { CLAIM_STATUS_WORDS, ClaimMark } from './claim-status';
 import type { ItemLookup } from './layer-path';
+import { Quantity } from './quantity';
 import { StatusMark } from './status-mark';
+import { TitledList } from './titled-list';
 
 interface DeclarationDiffViewProps {
   diff: DeclarationDiff;
@@ -92,47 +93,23 @@ export function DeclarationDiffView({ diff, lookup, claims = 'changed', showReas
           </Box>
         </Box>
       ) : null}
-      {diff.shares.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold">Ingredient shares</Text>
-          <Box as="ul" ps="5" m="0">
-            {diff.shares.map((share) => (
-              <Box as="li" key={share.id} textStyle="quantity">
-                {`${share.name}: ${formatPercent(share.before)} → ${formatPercent(share.after)}`}
-              </Box>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
+      <TitledList title="Ingredient shares" items={diff.shares} itemKey={(share) => share.id}>
+        {(share) => <Quantity>{`${share.name}: ${formatPercent(share.before)} → ${formatPercent(share.after)}`}</Quantity>}
+      </TitledList>
       {diff.finishedWeightG.before !== diff.finishedWeightG.after ? (
         <Text textStyle="quantity">{`Weight after baking: ${diff.finishedWeightG.before} g → ${diff.finishedWeightG.after} g`}</Text>
       ) : null}
-      {diff.errorsAdded.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold" color="fg.error">
-            New errors (labels cannot be printed until fixed)
-          </Text>
-          <Box as="ul" ps="5" m="0">
-            {diff.errorsAdded.map((message) => (
-              <Box as="li" key={message}>
-                {message}
-              </Box>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
-      {diff.errorsRemoved.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold">Errors fixed</Text>
-          <Box as="ul" ps="5" m="0">
-            {diff.errorsRemoved.map((message) => (
-              <Box as="li" key={message}>
-                {message}
-              </Box>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
+      <TitledList
+        title="New errors (labels cannot be printed until fixed)"
+        items={diff.errorsAdded}
+        itemKey={(message) => message}
+        tone="error"
+      >
+        {(message) => message}
+      </TitledList>
+      <TitledList title="Errors fixed" items={diff.errorsRemoved} itemKey={(message) => message}>
+        {(message) => message}
+      </TitledList>
       {!diff.changed && claims === 'all' ? <Text color="fg.muted">Nothing a label or the counter shows would change.</Text> : null}
     </Stack>
   );

@@ -1,10 +1,11 @@
-import type { Declaration, DeclaredIngredient, NutritionDeclaration } from '@crumbproof/shared';
+import type { Declaration, DeclaredIngredient, ProductDeclaration } from '@crumbproof/shared';
 import type { ItemInfo, ItemLookup } from './layer-path';
 
 interface LookupSources {
   recipes?: readonly { id: string; name: string }[] | undefined;
   ingredients?: readonly { id: string; name: string }[] | undefined;
-  declarations?: readonly ((Declaration & { nutrition?: NutritionDeclaration | null }) | null | undefined)[];
+  /** Declarations with nutrition (a product's) or without (a swap's before and after); undefined while loading. */
+  declarations?: readonly (Declaration | ProductDeclaration | undefined)[];
 }
 
 function walk(items: readonly DeclaredIngredient[], into: Map<string, ItemInfo>) {
@@ -33,7 +34,7 @@ export function buildItemLookup({ recipes = [], ingredients = [], declarations =
     for (const exempt of declaration.exempt) {
       if (!index.has(exempt.ingredient)) index.set(exempt.ingredient, { name: exempt.name, kind: 'ingredient' });
     }
-    for (const source of declaration.nutrition?.sources ?? []) {
+    for (const source of 'nutrition' in declaration ? declaration.nutrition.sources : []) {
       if (!index.has(source.id)) index.set(source.id, { name: source.name, kind: 'ingredient' });
     }
   }

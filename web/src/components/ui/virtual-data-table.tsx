@@ -1,56 +1,16 @@
-import { Box, chakra, Table, Text } from '@chakra-ui/react';
-import {
-  columnVisibilityFeature,
-  createColumnHelper,
-  createSortedRowModel,
-  rowSortingFeature,
-  sortFn_alphanumeric,
-  sortFn_basic,
-  sortFn_datetime,
-  sortFn_text,
-  flexRender,
-  tableFeatures,
-  useTable,
-  type ColumnDef,
-  type Row,
-  type ColumnVisibilityState,
-  type RowData,
-  type SortingState,
-} from '@tanstack/react-table';
+import { Box, Table } from '@chakra-ui/react';
+import { flexRender, useTable, type ColumnVisibilityState, type Row, type RowData, type SortingState } from '@tanstack/react-table';
 import { observeElementRect, useVirtualizer, type Virtualizer } from '@tanstack/react-virtual';
 import { memo, useRef, type ReactNode } from 'react';
-
-/**
- * The features of a long table: sorting by header and hiding columns. Module scope keeps them
- * stable between renders.
- */
-export const virtualTableFeatures = tableFeatures({
-  rowSortingFeature,
-  columnVisibilityFeature,
-  sortedRowModel: createSortedRowModel(),
-  sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic, datetime: sortFn_datetime, text: sortFn_text },
-});
-export type VirtualTableFeatures = typeof virtualTableFeatures;
-
-/** A column helper bound to the long table's features: `const column = virtualTableColumns<Row>()`. */
-export function virtualTableColumns<TData extends RowData>() {
-  return createColumnHelper<VirtualTableFeatures, TData>();
-}
-
-export interface VirtualTableColumnMeta {
-  /** The column's name where the header is not plain text (the Columns menu uses it). */
-  label?: string;
-  /** Width in px; the columns share any extra room in proportion. */
-  width?: number;
-  /** Right-align and use tabular figures (quantities, dates, counts). */
-  numeric?: boolean;
-  /** Keep the column in view when the table scrolls sideways (the column that names the row). */
-  sticky?: boolean;
-}
-
-const stickyCell = { position: 'sticky', insetStart: 0, zIndex: 1, boxShadow: 'inset -1px 0 0 var(--chakra-colors-border-muted)' } as const;
-
-export type VirtualTableColumn<TData extends RowData> = ColumnDef<VirtualTableFeatures, TData, any>;
+import {
+  columnMeta,
+  dataTableFeatures,
+  EmptyRow,
+  TableHead,
+  type DataTableColumn,
+  type DataTableFeatures,
+  type RowTone,
+} from './data-table';
 
 const ROW_ESTIMATE_PX = 45;
 /** jsdom and not-yet-laid-out boxes report no height; assume a screenful so rows still render. */
@@ -59,8 +19,6 @@ const FALLBACK_VIEWPORT_PX = 720;
 function observeRectWithFallback(instance: Virtualizer<HTMLDivElement, Element>, cb: (rect: { width: number; height: number }) => void) {
   return observeElementRect(instance, (rect) => cb(rect.height > 0 ? rect : { width: rect.width, height: FALLBACK_VIEWPORT_PX }));
 }
-
-const HeaderButton = chakra('button');
 
 /**
  * Body rows are plain <tr>/<td> styled from here rather than one styled component per cell:
@@ -93,10 +51,10 @@ const BODY_CSS = {
   '& thead tr': { zIndex: 3 },
 } as const;
 
-interface VirtualRowProps<TFeatures extends VirtualTableFeatures, TData extends RowData> {
+interface VirtualRowProps<TFeatures extends DataTableFeatures, TData extends RowData> {
   row: Row<TFeatures, TData>;
   index: number;
-  tone: 'attention' | undefined;
+  tone: RowTone;
   measure: (element: Element | null) => void;
   /** The visible column ids and the column definitions: a change re-renders the row. */
   visibility: string;
@@ -109,27 +67,25 @@ const VirtualRow = memo(function VirtualRow<TData extends RowData>({
   index,
   tone,
   measure,
-}: VirtualRowProps<VirtualTableFeatures, TData>) {
+}: VirtualRowProps<DataTableFeatures, TData>) {
   return (
     <tr ref={measure} data-index={index} data-row="" data-tone={tone} aria-rowindex={index + 2}>
       {row.getVisibleCells().map((cell) => {
-        const meta = cell.column.columnDef.meta as VirtualTableColumnMeta | undefined;
+        const meta = columnMeta(cell.column);
         return (
-          <td key={cell.id} data-cell="" data-numeric={meta?.numeric ? '' : undefined} data-sticky={meta?.sticky ? '' : undefined}>
+          <td key={cell.id} data-cell="" data-numeric={meta.numeric ? '' : undefined} data-sticky={meta.sticky ? '' : undefined}>
             {flexRender(cell.column.columnDef.cell, cell.getContext())}
           </td>
         );
       })}
     </tr>
   );
-}) as <TData extends RowData>(props: VirtualRowProps<VirtualTableFeatures, TData>) => ReactNode;
-
-const ARIA_SORT = { asc: 'ascending', desc: 'descending' } as const;
+}) as <TData extends RowData>(props: VirtualRowProps<DataTableFeatures, TData>) => ReactNode;
 
 interface VirtualDataTableProps<TData extends RowData> {
   /** Names the table (and its scroll region) for assistive technology. */
   caption: string;
-  columns: VirtualTableColumn<TData>[];
+  columns: DataTableColumn<TData>[];
   data: TData[];
   getRowId: (row: TData) => string;
   columnVisibility: ColumnVisibilityState;
@@ -137,13 +93,16 @@ interface VirtualDataTableProps<TData extends RowData> {
   /** Shown in place of rows when there are none. */
   empty?: ReactNode;
   /** Marks a row (e.g. one with problems); return an accessible description in words too. */
-  rowTone?: (row: TData) => 'attention' | undefined;
+  rowTone?: (row: TData) => RowTone;
 }
 
 /**
  * A table for thousands of rows: only the rows in view are in the document (with spacer rows
  * above and below, so it stays a real table), the header row sticks, columns sort by their
  * header button and can be hidden. Row and column counts are announced with aria-rowcount.
+ *
+ * Parallel to DataTable on purpose: the features, columns, header and empty row are DataTable's
+ * own; only the body differs, because drawing the rows in view is what makes 2,000 rows scroll.
  */
 export function VirtualDataTable<TData extends RowData>({
   caption,
@@ -156,7 +115,7 @@ export function VirtualDataTable<TData extends RowData>({
   rowTone,
 }: VirtualDataTableProps<TData>) {
   const table = useTable({
-    features: virtualTableFeatures,
+    features: dataTableFeatures,
     columns,
     data,
     getRowId: (row) => getRowId(row),
@@ -170,6 +129,7 @@ export function VirtualDataTable<TData extends RowData>({
   const leafColumns = table.getVisibleLeafColumns();
   const scrollRef = useRef<HTMLDivElement>(null);
 
+  // eslint-disable-next-line react-hooks/incompatible-library -- this component is not memoised by the compiler; it reads the virtualizer afresh each render, and the rows it memoises are given their props explicitly
   const virtualizer = useVirtualizer({
     count: rows.length,
     getScrollElement: () => scrollRef.current,
@@ -184,10 +144,8 @@ export function VirtualDataTable<TData extends RowData>({
   const visibilityKey = leafColumns.map((column) => column.id).join(' ');
   const padTop = items[0]?.start ?? 0;
   const padBottom = items.length > 0 ? virtualizer.getTotalSize() - (items.at(-1)?.end ?? 0) : 0;
-  const minWidth = leafColumns.reduce(
-    (sum, column) => sum + ((column.columnDef.meta as VirtualTableColumnMeta | undefined)?.width ?? 140),
-    0,
-  );
+  const widthOf = (column: (typeof leafColumns)[number]) => columnMeta(column).width ?? 140;
+  const minWidth = leafColumns.reduce((sum, column) => sum + widthOf(column), 0);
 
   return (
     <Box
@@ -216,65 +174,13 @@ export function VirtualDataTable<TData extends RowData>({
         <Table.Caption srOnly>{caption}</Table.Caption>
         <colgroup>
           {leafColumns.map((column) => (
-            <col key={column.id} style={{ width: `${(column.columnDef.meta as VirtualTableColumnMeta | undefined)?.width ?? 140}px` }} />
+            <col key={column.id} style={{ width: `${widthOf(column)}px` }} />
           ))}
         </colgroup>
-        <Table.Header>
-          {table.getHeaderGroups().map((group) => (
-            <Table.Row key={group.id} bg="bg.subtle" aria-rowindex={1}>
-              {group.headers.map((header) => {
-                const meta = header.column.columnDef.meta as VirtualTableColumnMeta | undefined;
-                const sorted = header.column.getIsSorted();
-                const canSort = header.column.getCanSort();
-                return (
-                  <Table.ColumnHeader
-                    key={header.id}
-                    scope="col"
-                    colSpan={header.colSpan}
-                    color="fg"
-                    fontWeight="bold"
-                    bg="bg.subtle"
-                    textAlign={meta?.numeric ? 'end' : 'start'}
-                    aria-sort={sorted ? ARIA_SORT[sorted] : undefined}
-                    px="3"
-                    {...(meta?.sticky ? { ...stickyCell, zIndex: 2 } : {})}
-                  >
-                    {header.isPlaceholder ? null : canSort ? (
-                      <HeaderButton
-                        type="button"
-                        display="inline-flex"
-                        alignItems="center"
-                        gap="1"
-                        fontWeight="bold"
-                        textAlign="inherit"
-                        cursor="pointer"
-                        minH="8"
-                        rounded="sm"
-                        onClick={header.column.getToggleSortingHandler()}
-                        _focusVisible={{ outline: '2px solid', outlineColor: 'accent.focusRing', outlineOffset: '2px' }}
-                        _hover={{ textDecoration: 'underline' }}
-                      >
-                        <table.FlexRender header={header} />
-                        <Text as="span" aria-hidden="true" color={sorted ? 'fg' : 'fg.muted'} fontSize="xs">
-                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                        </Text>
-                      </HeaderButton>
-                    ) : (
-                      <table.FlexRender header={header} />
-                    )}
-                  </Table.ColumnHeader>
-                );
-              })}
-            </Table.Row>
-          ))}
-        </Table.Header>
+        <TableHead table={table} px="3" rowIndex />
         <Table.Body>
           {rows.length === 0 ? (
-            <Table.Row>
-              <Table.Cell colSpan={Math.max(leafColumns.length, 1)} color="fg.muted">
-                {typeof empty === 'string' ? <Text>{empty}</Text> : empty}
-              </Table.Cell>
-            </Table.Row>
+            <EmptyRow columns={leafColumns.length}>{empty}</EmptyRow>
           ) : (
             <>
               {padTop > 0 ? (

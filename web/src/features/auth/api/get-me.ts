@@ -1,5 +1,6 @@
 import { meSchema, type Me } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient, isApiError } from '@/lib/api-client';
 
 /** The signed-in person, or null when nobody is signed in (the API answers 401). */
@@ -12,11 +13,9 @@ export async function getMe({ signal }: { signal?: AbortSignal } = {}): Promise<
   }
 }
 
-export const meQueryKey = ['me'] as const;
-
 export function getMeQueryOptions() {
   return queryOptions({
-    queryKey: meQueryKey,
+    queryKey: queryKeys.me(),
     queryFn: ({ signal }) => getMe({ signal }),
     staleTime: 5 * 60_000,
   });

@@ -1,14 +1,14 @@
 import { meSchema, type Me, type SignInRequest } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
-import { meQueryKey } from './get-me';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 
 export async function signIn(credentials: SignInRequest): Promise<Me> {
   return meSchema.parse(await apiClient.post<unknown>('/auth/sign-in', credentials));
 }
 
 export function signInMutationOptions() {
-  return mutationOptions({ mutationKey: ['auth', 'sign-in'], mutationFn: signIn });
+  return mutationOptions({ mutationKey: mutationKeys.signIn(), mutationFn: signIn });
 }
 
 /** Signs in and stores the person as the answer to "who is signed in?". */
@@ -17,7 +17,7 @@ export function useSignIn() {
   return useMutation({
     ...signInMutationOptions(),
     onSuccess: (me) => {
-      queryClient.setQueryData(meQueryKey, me);
+      queryClient.setQueryData(queryKeys.me(), me);
     },
   });
 }

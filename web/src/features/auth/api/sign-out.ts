@@ -1,13 +1,13 @@
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
-import { meQueryKey } from './get-me';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 
 export async function signOut(): Promise<void> {
   await apiClient.post<void>('/auth/sign-out');
 }
 
 export function signOutMutationOptions() {
-  return mutationOptions({ mutationKey: ['auth', 'sign-out'], mutationFn: signOut });
+  return mutationOptions({ mutationKey: mutationKeys.signOut(), mutationFn: signOut });
 }
 
 interface UseSignOutOptions {
@@ -25,7 +25,7 @@ export function useSignOut({ onSignedOut }: UseSignOutOptions) {
     ...signOutMutationOptions(),
     onSettled: async () => {
       // Nobody is signed in from here on, so the sign-in page shows its form rather than sending them back.
-      queryClient.setQueryData(meQueryKey, null);
+      queryClient.setQueryData(queryKeys.me(), null);
       await onSignedOut();
       queryClient.clear();
     },

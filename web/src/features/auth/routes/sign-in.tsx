@@ -30,7 +30,7 @@ export function SignInRoute({ homeFor }: SignInRouteProps) {
   }, []);
 
   function handleSignedIn(signedIn: Me) {
-    navigate(wantedPath(location.state) ?? homeFor(signedIn), { replace: true });
+    void navigate(wantedPath(location.state) ?? homeFor(signedIn), { replace: true });
   }
 
   // Someone already signed in has nothing to do here.

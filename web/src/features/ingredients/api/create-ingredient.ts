@@ -1,20 +1,25 @@
-import type { BookIngredient } from '@crumbproof/shared';
+import type { BookIngredient, IngredientView } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import { ingredientsQueryKey, type IngredientView } from './types';
 
 export async function createIngredient(input: BookIngredient): Promise<IngredientView> {
   return apiClient.post<IngredientView>('/ingredients', input);
 }
 
 export function createIngredientMutationOptions() {
-  return mutationOptions({ mutationKey: ['ingredients', 'create'], mutationFn: createIngredient });
+  return mutationOptions({ mutationKey: mutationKeys.createIngredient(), mutationFn: createIngredient });
 }
 
 export function useCreateIngredient() {
   const queryClient = useQueryClient();
   return useMutation({
     ...createIngredientMutationOptions(),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ingredientsQueryKey }),
+    onSettled: (saved, error) =>
+      refreshAfterKitchenWrite(queryClient, {
+        error,
+        saved: saved ? [{ queryKey: queryKeys.ingredients.one(saved.id), data: saved }] : [],
+      }),
   });
 }

@@ -1,15 +1,15 @@
+import type { IngredientRevisionView } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import { ingredientQueryKey } from './get-ingredient';
-import type { IngredientRevision } from './types';
 
-export async function getIngredientRevisions(code: string, { signal }: { signal?: AbortSignal } = {}): Promise<IngredientRevision[]> {
-  return apiClient.get<IngredientRevision[]>(`/ingredients/${encodeURIComponent(code)}/revisions`, { signal });
+export async function getIngredientRevisions(code: string, { signal }: { signal?: AbortSignal } = {}): Promise<IngredientRevisionView[]> {
+  return apiClient.get<IngredientRevisionView[]>(`/ingredients/${encodeURIComponent(code)}/revisions`, { signal });
 }
 
 export function getIngredientRevisionsQueryOptions(code: string) {
   return queryOptions({
-    queryKey: [...ingredientQueryKey(code), 'revisions'] as const,
+    queryKey: queryKeys.ingredients.revisions(code),
     queryFn: ({ signal }) => getIngredientRevisions(code, { signal }),
   });
 }

@@ -1,6 +1,7 @@
+import type { NutrientReference } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { NutrientReference } from './types';
 
 export async function getNutrientReference({ signal }: { signal?: AbortSignal } = {}): Promise<NutrientReference> {
   return apiClient.get<NutrientReference>('/reference/nutrients', { signal });
@@ -8,8 +9,9 @@ export async function getNutrientReference({ signal }: { signal?: AbortSignal } 
 
 export function getNutrientReferenceQueryOptions() {
   return queryOptions({
-    queryKey: ['reference', 'nutrients'] as const,
+    queryKey: queryKeys.reference.nutrients(),
     queryFn: ({ signal }) => getNutrientReference({ signal }),
+    // Reference data changes only with a new release of Crumbproof.
     staleTime: Infinity,
   });
 }

@@ -1,17 +1,16 @@
+import type { SpecificationStatus } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { SpecificationStatus } from './types';
 
 /** For every ingredient: its newest specification and whether it is missing, overdue or current. */
 export async function getSpecificationStatus({ signal }: { signal?: AbortSignal } = {}): Promise<SpecificationStatus[]> {
   return apiClient.get<SpecificationStatus[]>('/specifications/status', { signal });
 }
 
-export const specificationStatusQueryKey = ['specifications', 'status'] as const;
-
 export function getSpecificationStatusQueryOptions() {
   return queryOptions({
-    queryKey: specificationStatusQueryKey,
+    queryKey: queryKeys.specifications.status(),
     queryFn: ({ signal }) => getSpecificationStatus({ signal }),
   });
 }

@@ -1,7 +1,8 @@
+import type { ImportResult } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
+import { mutationKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import { specificationStatusQueryKey } from './get-specification-status';
-import { ingredientsQueryKey, type ImportResult } from './types';
 
 /** Imports every row of the spreadsheet, or none when any row has a problem. */
 export async function importIngredients(file: File): Promise<ImportResult> {
@@ -11,17 +12,13 @@ export async function importIngredients(file: File): Promise<ImportResult> {
 }
 
 export function importIngredientsMutationOptions() {
-  return mutationOptions({ mutationKey: ['ingredients', 'import'], mutationFn: importIngredients });
+  return mutationOptions({ mutationKey: mutationKeys.importIngredients(), mutationFn: importIngredients });
 }
 
 export function useImportIngredients() {
   const queryClient = useQueryClient();
   return useMutation({
     ...importIngredientsMutationOptions(),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: ingredientsQueryKey }),
-        queryClient.invalidateQueries({ queryKey: specificationStatusQueryKey }),
-      ]),
+    onSettled: (_result, error) => refreshAfterKitchenWrite(queryClient, { error }),
   });
 }

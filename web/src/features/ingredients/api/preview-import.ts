@@ -1,6 +1,7 @@
+import type { ImportPreview } from '@crumbproof/shared';
 import { mutationOptions, useMutation } from '@tanstack/react-query';
+import { mutationKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { ImportPreview } from './types';
 
 /** Reads a spreadsheet and says what importing it would do. Nothing is saved. */
 export async function previewImport(file: File): Promise<ImportPreview> {
@@ -10,7 +11,7 @@ export async function previewImport(file: File): Promise<ImportPreview> {
 }
 
 export function previewImportMutationOptions() {
-  return mutationOptions({ mutationKey: ['ingredients', 'import', 'preview'], mutationFn: previewImport });
+  return mutationOptions({ mutationKey: mutationKeys.previewImport(), mutationFn: previewImport });
 }
 
 export function usePreviewImport() {

@@ -1,39 +1,30 @@
-import type { SourceEntry } from '@crumbproof/shared';
+import type { CompositionScan, CompositionScanRequest } from '@crumbproof/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { CompositionScan } from './types';
-
-export interface ScanCompositionInput {
-  text: string;
-  /** The supplier's contains list; left out when there is no allergen statement. */
-  contains?: SourceEntry[];
-}
 
 /** The terms the rules engine finds in a supplier's composition text. Nothing is saved. */
-export async function scanComposition(input: ScanCompositionInput, { signal }: { signal?: AbortSignal } = {}): Promise<CompositionScan> {
-  const scan = await apiClient.post<Partial<CompositionScan>>('/composition/scan', input, { signal });
-  return {
-    allergens: scan.allergens ?? [],
-    precautionary: scan.precautionary ?? [],
-    animal: scan.animal ?? [],
-    vague: scan.vague ?? [],
-    discrepancies: scan.discrepancies ?? [],
-  };
+export async function scanComposition(
+  request: CompositionScanRequest,
+  { signal }: { signal?: AbortSignal } = {},
+): Promise<CompositionScan> {
+  return apiClient.post<CompositionScan>('/composition/scan', request, { signal });
 }
 
-export function scanCompositionQueryOptions(input: ScanCompositionInput) {
+export function scanCompositionQueryOptions(request: CompositionScanRequest) {
   return queryOptions({
-    queryKey: ['composition-scan', input.text, input.contains ?? null] as const,
-    queryFn: ({ signal }) => scanComposition(input, { signal }),
+    queryKey: queryKeys.reference.compositionScan(request),
+    queryFn: ({ signal }) => scanComposition(request, { signal }),
+    // The scan depends on the text and the reference lexicon only.
     staleTime: Infinity,
   });
 }
 
 /** Pass the debounced text; an empty text asks nothing. */
-export function useCompositionScan(input: ScanCompositionInput) {
+export function useCompositionScan(request: CompositionScanRequest) {
   return useQuery({
-    ...scanCompositionQueryOptions(input),
-    enabled: input.text.trim() !== '',
+    ...scanCompositionQueryOptions(request),
+    enabled: request.text.trim() !== '',
     placeholderData: keepPreviousData,
   });
 }

@@ -1,7 +1,8 @@
-import type { BookIngredient } from '@crumbproof/shared';
+import type { BookIngredient, IngredientView } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import { ingredientsQueryKey, type IngredientView } from './types';
 
 export interface UpdateIngredientInput {
   code: string;
@@ -14,14 +15,19 @@ export async function updateIngredient({ code, ingredient }: UpdateIngredientInp
 }
 
 export function updateIngredientMutationOptions() {
-  return mutationOptions({ mutationKey: ['ingredients', 'update'], mutationFn: updateIngredient });
+  return mutationOptions({ mutationKey: mutationKeys.updateIngredient(), mutationFn: updateIngredient });
 }
 
+/** Every declaration above the ingredient, where it is used and its history change with it. */
 export function useUpdateIngredient() {
   const queryClient = useQueryClient();
   return useMutation({
     ...updateIngredientMutationOptions(),
-    // The list, this ingredient, its revisions and where it is used all change.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ingredientsQueryKey }),
+    onSettled: (saved, error, { code }) =>
+      refreshAfterKitchenWrite(queryClient, {
+        error,
+        saved: saved ? [{ queryKey: queryKeys.ingredients.one(saved.id), data: saved }] : [],
+        editing: [queryKeys.ingredients.one(code)],
+      }),
   });
 }

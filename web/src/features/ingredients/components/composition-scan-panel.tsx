@@ -1,9 +1,11 @@
-import { Box, Heading, HStack, Spinner, Stack, Text } from '@chakra-ui/react';
-import { CLAIM_LABELS, SOURCE_LABELS, type SourceEntry } from '@crumbproof/shared';
-import { useId, type ReactNode } from 'react';
+import { Box, Stack, Text } from '@chakra-ui/react';
+import { CLAIM_LABELS, SOURCE_LABELS, type CompositionTerms, type SourceEntry, type TermHit } from '@crumbproof/shared';
+import type { ReactNode } from 'react';
+import { Loading } from '@/components/ui/loading';
+import { Panel } from '@/components/ui/panel';
+import { TitledList } from '@/components/ui/titled-list';
+import { useDebouncedValue } from '@/lib/use-debounced-value';
 import { useCompositionScan } from '../api/scan-composition';
-import type { CompositionScan } from '../api/types';
-import { useDebouncedValue } from '../hooks/use-debounced-value';
 
 type HitKind = 'allergen' | 'precautionary' | 'animal' | 'vague';
 
@@ -13,7 +15,7 @@ interface Segment {
 }
 
 /** Cuts the text at every hit's start and end, so overlapping hits (whey: milk and animal) both show. */
-export function segmentText(text: string, scan: CompositionScan): Segment[] {
+export function segmentText(text: string, scan: CompositionTerms): Segment[] {
   const hits: { start: number; end: number; kind: HitKind }[] = [
     ...scan.allergens.map((hit) => ({ ...hit, kind: 'allergen' as const })),
     ...scan.precautionary.map((hit) => ({ ...hit, kind: 'precautionary' as const })),
@@ -69,7 +71,6 @@ interface CompositionScanPanelProps {
 
 /** What the rules engine finds in the composition text, as the chef types (a beat behind). */
 export function CompositionScanPanel({ text, contains }: CompositionScanPanelProps) {
-  const headingId = useId();
   const debouncedText = useDebouncedValue(text, 400);
   const debouncedContains = useDebouncedValue(contains, 400);
   const scan = useCompositionScan({ text: debouncedText, ...(debouncedContains !== undefined ? { contains: debouncedContains } : {}) });
@@ -81,108 +82,80 @@ export function CompositionScanPanel({ text, contains }: CompositionScanPanelPro
   const scannedText = debouncedText;
 
   return (
-    <Box as="section" aria-labelledby={headingId} borderWidth="1px" borderColor="border.muted" rounded="md" p="3" bg="bg.panel">
-      <Stack gap="3">
-        <HStack justify="space-between" gap="2">
-          <Heading as="h3" size="sm" id={headingId}>
-            Found in the composition
-          </Heading>
-          <Box role="status" aria-live="polite" color="fg.muted" textStyle="sm">
-            {scan.isFetching || text !== debouncedText ? (
-              <HStack gap="1.5">
-                <Spinner size="xs" color="accent.solid" />
-                <span>Checking…</span>
-              </HStack>
-            ) : null}
-          </Box>
-        </HStack>
-        {scan.isError ? (
-          <Text color="fg.error">The composition could not be checked: {scan.error.message}</Text>
-        ) : data ? (
-          <>
-            <Text data-testid="composition-highlight" whiteSpace="pre-wrap" lineHeight="1.8">
-              {segmentText(scannedText, data).map((segment, index) => (
-                <Highlighted key={index} segment={segment} />
-              ))}
-            </Text>
-            <Text textStyle="xs" color="fg.muted">
-              Bold: names an allergen source. Underlined: animal-derived. Dotted and shaded: vague, check with the supplier.
-            </Text>
-            {data.discrepancies.length > 0 ? (
-              <Box borderStartWidth="4px" borderColor="accent.solid" ps="3">
-                <Text fontWeight="bold">Differences from the supplier’s allergen list</Text>
-                <Box as="ul" ps="5" m="0">
-                  {data.discrepancies.map((item, index) => (
-                    <li key={`${item.source}-${item.term}-${index}`}>{item.message}</li>
-                  ))}
-                </Box>
-              </Box>
-            ) : null}
-            <ScanLists scan={data} />
-          </>
-        ) : null}
-      </Stack>
-    </Box>
+    <Panel
+      title="Found in the composition"
+      level="h3"
+      size="sm"
+      aside={scan.isFetching || text !== debouncedText ? <Loading size="xs">Checking…</Loading> : null}
+    >
+      {scan.isError ? (
+        <Text color="fg.error">The composition could not be checked: {scan.error.message}</Text>
+      ) : data ? (
+        <>
+          <Text data-testid="composition-highlight" whiteSpace="pre-wrap" lineHeight="1.8">
+            {segmentText(scannedText, data).map((segment, index) => (
+              <Highlighted key={index} segment={segment} />
+            ))}
+          </Text>
+          <Text textStyle="xs" color="fg.muted">
+            Bold: names an allergen source. Underlined: animal-derived. Dotted and shaded: vague, check with the supplier.
+          </Text>
+          {data.discrepancies.length > 0 ? (
+            <Box borderStartWidth="4px" borderColor="accent.solid" ps="3">
+              <TitledList
+                title="Differences from the supplier’s allergen list"
+                items={data.discrepancies}
+                itemKey={(item, index) => `${item.source}-${item.term}-${index}`}
+              >
+                {(item) => item.message}
+              </TitledList>
+            </Box>
+          ) : null}
+          <ScanLists scan={data} />
+        </>
+      ) : null}
+    </Panel>
   );
 }
 
-function ScanLists({ scan }: { scan: CompositionScan }) {
+function ScanLists({ scan }: { scan: CompositionTerms }) {
   const empty = scan.allergens.length + scan.precautionary.length + scan.animal.length + scan.vague.length === 0;
   if (empty) return <Text color="fg.muted">No allergen, animal-derived or vague terms found.</Text>;
+  const at = (hit: TermHit, index: number) => `${hit.start}-${index}`;
   return (
     <Stack gap="2" textStyle="sm">
-      {scan.allergens.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold">Allergen sources named</Text>
-          <Box as="ul" ps="5" m="0">
-            {scan.allergens.map((hit, index) => (
-              <li key={`a-${hit.start}-${index}`}>
-                <strong>{hit.matched}</strong> — {SOURCE_LABELS[hit.source]}
-                {hit.species ? ` (${hit.species})` : ''}
-              </li>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
-      {scan.precautionary.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold">Named in a may-contain clause</Text>
-          <Box as="ul" ps="5" m="0">
-            {scan.precautionary.map((hit, index) => (
-              <li key={`p-${hit.start}-${index}`}>
-                <strong>{hit.matched}</strong> — may contain {SOURCE_LABELS[hit.source]}
-              </li>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
-      {scan.animal.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold">Animal-derived</Text>
-          <Box as="ul" ps="5" m="0">
-            {scan.animal.map((hit, index) => (
-              <li key={`n-${hit.start}-${index}`}>
-                {hit.matched}
-                {hit.fails.length > 0 ? ` — not ${listDiets(hit.fails)}` : ''}
-                {hit.unverified.length > 0 ? ` — ${listDiets(hit.unverified)} not verified` : ''}
-              </li>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
-      {scan.vague.length > 0 ? (
-        <Box>
-          <Text fontWeight="bold">Vague terms</Text>
-          <Box as="ul" ps="5" m="0">
-            {scan.vague.map((hit, index) => (
-              <li key={`v-${hit.start}-${index}`}>
-                “{hit.matched}”: {hit.message}
-                {hit.unverifies.length > 0 ? ` (cannot verify: ${hit.unverifies.map((claim) => CLAIM_LABELS[claim]).join(', ')})` : ''}
-              </li>
-            ))}
-          </Box>
-        </Box>
-      ) : null}
+      <TitledList title="Allergen sources named" items={scan.allergens} itemKey={at}>
+        {(hit) => (
+          <>
+            <strong>{hit.matched}</strong> — {SOURCE_LABELS[hit.source]}
+            {hit.species ? ` (${hit.species})` : ''}
+          </>
+        )}
+      </TitledList>
+      <TitledList title="Named in a may-contain clause" items={scan.precautionary} itemKey={at}>
+        {(hit) => (
+          <>
+            <strong>{hit.matched}</strong> — may contain {SOURCE_LABELS[hit.source]}
+          </>
+        )}
+      </TitledList>
+      <TitledList title="Animal-derived" items={scan.animal} itemKey={at}>
+        {(hit) => (
+          <>
+            {hit.matched}
+            {hit.fails.length > 0 ? ` — not ${listDiets(hit.fails)}` : ''}
+            {hit.unverified.length > 0 ? ` — ${listDiets(hit.unverified)} not verified` : ''}
+          </>
+        )}
+      </TitledList>
+      <TitledList title="Vague terms" items={scan.vague} itemKey={at}>
+        {(hit) => (
+          <>
+            “{hit.matched}”: {hit.message}
+            {hit.unverifies.length > 0 ? ` (cannot verify: ${hit.unverifies.map((claim) => CLAIM_LABELS[claim]).join(', ')})` : ''}
+          </>
+        )}
+      </TitledList>
     </Stack>
   );
 }

@@ -1,15 +1,20 @@
 import { Box, Button, Heading, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { bookIngredientSchema, type BookIngredient, type SourceEntry } from '@crumbproof/shared';
+import {
+  bookIngredientSchema,
+  FIGURE_KEYS,
+  type BookIngredient,
+  type IngredientView,
+  type NutrientReferenceRow,
+  type SourceEntry,
+} from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRef, useState, type ReactNode } from 'react';
-import { Controller, useForm, type FieldErrors, type Path } from 'react-hook-form';
+import { Controller, useForm, useWatch, type FieldErrors, type Path } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
 import { isApiError } from '@/lib/api-client';
-import type { IngredientView, NutrientReferenceRow } from '../api/types';
 import { allergenStatementOf, type AllergenStatement } from '../utils/ingredient-facts';
 import {
-  ALL_NUTRITION_KEYS,
   extraFigures,
   NUTRITION_FIELDS,
   parseNumberInput,
@@ -139,7 +144,7 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     setError,
     clearErrors,
     getFieldState,
-    watch,
+    getValues,
     reset,
     formState: { errors },
   } = useForm<IngredientFormValues, unknown, BookIngredient>({
@@ -147,15 +152,15 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     defaultValues: toFormValues(ingredient),
   });
 
-  const composition = watch('composition') ?? '';
-  const contains = watch('contains');
-  const nutrition = watch('nutrition');
+  const composition = useWatch({ control, name: 'composition' }) ?? '';
+  const contains = useWatch({ control, name: 'contains' });
+  const nutrition = useWatch({ control, name: 'nutrition' });
   const extras = extraFigures(nutrition);
 
   function handleStatement(next: AllergenStatement) {
-    const current = watch('contains');
+    const current = getValues('contains');
     if (current && current.length > 0) rememberedContains.current = current;
-    const may = watch('mayContain');
+    const may = getValues('mayContain');
     if (may && may.length > 0) rememberedMayContain.current = may;
     setStatement(next);
     clearErrors('contains');
@@ -166,10 +171,10 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
   }
 
   function handleReference(row: NutrientReferenceRow) {
-    for (const key of ALL_NUTRITION_KEYS) {
+    for (const key of FIGURE_KEYS) {
       setValue(`nutrition.${key}`, row.nutrition[key], { shouldDirty: true, shouldValidate: false });
     }
-    setValue('nutrition.source', row.nutrition.source ?? `Reference table: ${row.name}`, { shouldDirty: true });
+    setValue('nutrition.source', row.nutrition.source, { shouldDirty: true });
     if (row.addsSugars !== undefined) setValue('addsSugars', row.addsSugars, { shouldDirty: true });
     clearErrors('nutrition');
     setFilledFrom(row.name);

@@ -4,16 +4,13 @@ import { Fragment, useMemo } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { Quantity } from '@/components/ui/quantity';
 import { StatusMark } from '@/components/ui/status-mark';
-import {
-  VirtualDataTable,
-  virtualTableColumns,
-  type VirtualTableColumn,
-  type VirtualTableColumnMeta,
-} from '@/components/ui/virtual-data-table';
-import { describeEntry, formatDate, yesNoUnknown } from '../utils/ingredient-facts';
+import { dataTableColumns, type DataTableColumn, type DataTableColumnMeta } from '@/components/ui/data-table';
+import { VirtualDataTable } from '@/components/ui/virtual-data-table';
+import { formatDate } from '@/lib/format';
+import { describeEntry, yesNoUnknown } from '../utils/ingredient-facts';
 import type { LibraryRow } from '../utils/library-filters';
 
-const column = virtualTableColumns<LibraryRow>();
+const column = dataTableColumns<LibraryRow>();
 
 /** The library's columns, in order, with the names the Columns menu shows. */
 export const LIBRARY_COLUMNS = [
@@ -34,7 +31,7 @@ export type LibraryColumnId = (typeof LIBRARY_COLUMNS)[number]['id'];
 /** Shown unless the chef hides them; the supplier's own code starts hidden. */
 export const DEFAULT_COLUMN_VISIBILITY: Record<string, boolean> = { supplierCode: false };
 
-function meta(value: VirtualTableColumnMeta): VirtualTableColumnMeta {
+function meta(value: DataTableColumnMeta): DataTableColumnMeta {
   return value;
 }
 
@@ -61,6 +58,11 @@ function Muted({ children }: { children: string }) {
   );
 }
 
+function DietCell({ value }: { value: boolean | null | undefined }) {
+  const words = yesNoUnknown(value);
+  return words === 'Not known' ? <Muted>Not known</Muted> : <>{words}</>;
+}
+
 function SpecificationCell({ row }: { row: LibraryRow }) {
   switch (row.specification) {
     case undefined:
@@ -82,7 +84,7 @@ function SpecificationCell({ row }: { row: LibraryRow }) {
   }
 }
 
-const columns: VirtualTableColumn<LibraryRow>[] = [
+const columns: DataTableColumn<LibraryRow>[] = [
   column.accessor((row) => row.ingredient.name, {
     id: 'name',
     header: 'Name',
@@ -100,14 +102,14 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     header: 'Supplier',
     sortFn: 'text',
     meta: meta({ width: 140 }),
-    cell: (info) => info.getValue() || <Muted>Not recorded</Muted>,
+    cell: (info) => info.row.original.ingredient.supplier || <Muted>Not recorded</Muted>,
   }),
   column.accessor((row) => row.ingredient.supplierCode ?? '', {
     id: 'supplierCode',
     header: 'Supplier code',
     sortFn: 'text',
     meta: meta({ width: 130 }),
-    cell: (info) => info.getValue() || <Muted>Not recorded</Muted>,
+    cell: (info) => info.row.original.ingredient.supplierCode || <Muted>Not recorded</Muted>,
   }),
   column.accessor((row) => row.ingredient.id, {
     id: 'code',
@@ -148,14 +150,14 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     header: 'Vegan',
     sortFn: 'text',
     meta: meta({ width: 105 }),
-    cell: (info) => (info.getValue() === 'Not known' ? <Muted>Not known</Muted> : info.getValue()),
+    cell: (info) => <DietCell value={info.row.original.ingredient.vegan} />,
   }),
   column.accessor((row) => yesNoUnknown(row.ingredient.vegetarian), {
     id: 'vegetarian',
     header: 'Vegetarian',
     sortFn: 'text',
     meta: meta({ width: 115 }),
-    cell: (info) => (info.getValue() === 'Not known' ? <Muted>Not known</Muted> : info.getValue()),
+    cell: (info) => <DietCell value={info.row.original.ingredient.vegetarian} />,
   }),
   column.accessor((row) => row.specification ?? '', {
     id: 'specification',
@@ -176,7 +178,7 @@ const columns: VirtualTableColumn<LibraryRow>[] = [
     header: 'Updated',
     sortFn: 'text',
     meta: meta({ width: 125, numeric: true }),
-    cell: (info) => <Quantity>{formatDate(info.getValue())}</Quantity>,
+    cell: (info) => <Quantity>{formatDate(info.row.original.ingredient.updatedAt)}</Quantity>,
   }),
 ];
 

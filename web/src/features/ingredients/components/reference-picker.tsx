@@ -1,8 +1,10 @@
-import { Box, Button, HStack, Spinner, Stack, Text } from '@chakra-ui/react';
-import { useId, useMemo, useRef, useState } from 'react';
+import { Box, Button, Stack, Text } from '@chakra-ui/react';
+import type { NutrientReferenceRow } from '@crumbproof/shared';
+import { useMemo, useState } from 'react';
 import { FormField, TextInput } from '@/components/ui/form-field';
+import { Loading } from '@/components/ui/loading';
+import { useDisclosure } from '@/lib/use-disclosure';
 import { useNutrientReference } from '../api/get-nutrient-reference';
-import type { NutrientReferenceRow } from '../api/types';
 
 interface ReferencePickerProps {
   onPick: (row: NutrientReferenceRow) => void;
@@ -10,76 +12,44 @@ interface ReferencePickerProps {
 
 /** "Fill from reference table": a searchable list; choosing a row is the one action that fills. */
 export function ReferencePicker({ onPick }: ReferencePickerProps) {
-  const [open, setOpen] = useState(false);
+  const { open, close, buttonProps, panelProps } = useDisclosure();
   const [search, setSearch] = useState('');
-  const panelId = useId();
-  const buttonRef = useRef<HTMLButtonElement>(null);
   const reference = useNutrientReference({ enabled: open });
 
   const rows = useMemo(() => {
     const words = search.trim().toLocaleLowerCase('en-GB').split(/\s+/).filter(Boolean);
     return (reference.data?.rows ?? []).filter((row) => {
-      const haystack = `${row.name} ${row.id} ${row.ifct ?? ''} ${row.nutrition.source ?? ''}`.toLocaleLowerCase('en-GB');
+      const haystack = `${row.name} ${row.id} ${row.ifct ?? ''} ${row.nutrition.source}`.toLocaleLowerCase('en-GB');
       return words.every((word) => haystack.includes(word));
     });
   }, [reference.data, search]);
 
   function handlePick(row: NutrientReferenceRow) {
     onPick(row);
-    setOpen(false);
+    close();
     setSearch('');
-    buttonRef.current?.focus();
   }
 
   return (
     <Box>
-      <Button
-        ref={buttonRef}
-        type="button"
-        variant="outline"
-        size="md"
-        aria-expanded={open}
-        aria-controls={panelId}
-        onClick={() => setOpen((value) => !value)}
-      >
+      <Button type="button" variant="outline" size="md" {...buttonProps}>
         Fill from reference table
       </Button>
-      <Box
-        id={panelId}
-        hidden={!open}
-        mt="2"
-        p="3"
-        borderWidth="1px"
-        borderColor="border"
-        rounded="md"
-        bg="bg.panel"
-        onKeyDown={(event) => {
-          if (event.key === 'Escape') {
-            event.preventDefault();
-            setOpen(false);
-            buttonRef.current?.focus();
-          }
-        }}
-      >
+      <Box {...panelProps} mt="2" p="3" borderWidth="1px" borderColor="border" rounded="md" bg="bg.panel">
         {open ? (
           <Stack gap="3">
             <FormField label="Search the reference table">
               <TextInput type="search" value={search} onChange={(event) => setSearch(event.currentTarget.value)} autoFocus />
             </FormField>
             {reference.isPending ? (
-              <HStack role="status" gap="2">
-                <Spinner size="sm" color="accent.solid" />
-                <Text>Loading the reference table…</Text>
-              </HStack>
+              <Loading size="sm">Loading the reference table…</Loading>
             ) : reference.isError ? (
               <Text color="fg.error">The reference table could not be loaded: {reference.error.message}</Text>
             ) : (
               <>
-                {reference.data.note ? (
-                  <Text textStyle="xs" color="fg.muted">
-                    {reference.data.note}
-                  </Text>
-                ) : null}
+                <Text textStyle="xs" color="fg.muted">
+                  {reference.data.note}
+                </Text>
                 <Box as="ul" role="list" aria-label="Reference rows" listStyleType="none" m="0" p="0" maxH="64" overflowY="auto">
                   {rows.length === 0 ? (
                     <li>
@@ -105,7 +75,7 @@ export function ReferencePicker({ onPick }: ReferencePickerProps) {
                               {row.name}
                             </Text>
                             <Text as="span" textStyle="xs" color="fg.muted" fontWeight="normal">
-                              {row.nutrition.source ?? 'No source given'}
+                              {row.nutrition.source}
                             </Text>
                           </Stack>
                         </Button>

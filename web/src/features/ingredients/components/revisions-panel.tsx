@@ -1,16 +1,18 @@
 import { Box, Stack, Text } from '@chakra-ui/react';
+import { Loading } from '@/components/ui/loading';
+import { Panel } from '@/components/ui/panel';
 import { Quantity } from '@/components/ui/quantity';
 import { useIngredientRevisions } from '../api/get-ingredient-revisions';
-import { allergenStatementOf, describeEntry, formatDateTime } from '../utils/ingredient-facts';
-import { PanelLoading, SidePanel } from './panel';
+import { formatDateTime } from '@/lib/format';
+import { allergenStatementOf, describeEntry } from '../utils/ingredient-facts';
 
 /** Every saved revision, newest first, with what its allergen statement said. */
 export function RevisionsPanel({ code }: { code: string }) {
   const revisions = useIngredientRevisions(code);
   return (
-    <SidePanel title="Revisions">
+    <Panel title="Revisions" size="md">
       {revisions.isPending ? (
-        <PanelLoading>Loading revisions…</PanelLoading>
+        <Loading size="sm">Loading revisions…</Loading>
       ) : revisions.isError ? (
         <Text color="fg.error">The revisions could not be loaded: {revisions.error.message}</Text>
       ) : (
@@ -41,6 +43,6 @@ export function RevisionsPanel({ code }: { code: string }) {
           })}
         </Stack>
       )}
-    </SidePanel>
+    </Panel>
   );
 }

@@ -4,6 +4,7 @@ import {
   EXEMPT_FORM_LABELS,
   EXEMPT_FORMS,
   SOURCE_LABELS,
+  sourceOf,
   SPECIES_SOURCES,
   type AllergenSource,
   type ExemptForm,
@@ -11,7 +12,6 @@ import {
 } from '@crumbproof/shared';
 import { CheckboxInput } from '@/components/ui/choice-inputs';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
-import { sourceOf } from '../utils/ingredient-facts';
 
 const Fieldset = chakra('fieldset');
 const Legend = chakra('legend');

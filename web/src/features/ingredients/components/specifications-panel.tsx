@@ -2,11 +2,13 @@ import { Box, Button, Link, Progress, Stack, Text } from '@chakra-ui/react';
 import { useRef, useState, type FormEvent } from 'react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
+import { Loading } from '@/components/ui/loading';
+import { Panel } from '@/components/ui/panel';
 import { isApiError } from '@/lib/api-client';
-import { specificationFileUrl, useSpecifications } from '../api/get-specifications';
+import { useSpecifications } from '../api/get-specifications';
 import { SPECIFICATION_MAX_BYTES, useUploadSpecification } from '../api/upload-specification';
-import { formatBytes, formatDate, formatDateTime } from '../utils/ingredient-facts';
-import { PanelLoading, SidePanel } from './panel';
+import { formatDate, formatDateTime } from '@/lib/format';
+import { formatBytes } from '../utils/ingredient-facts';
 
 const ACCEPT = 'application/pdf,image/png,image/jpeg,image/webp,.pdf,.png,.jpg,.jpeg,.webp';
 
@@ -71,15 +73,15 @@ export function SpecificationsPanel({ code }: { code: string }) {
   }
 
   return (
-    <SidePanel title="Specifications">
+    <Panel title="Specifications" size="md">
       <Stack gap="4">
         {specifications.isPending ? (
-          <PanelLoading>Loading specifications…</PanelLoading>
+          <Loading size="sm">Loading specifications…</Loading>
         ) : specifications.isError ? (
           <Text color="fg.error">The specifications could not be loaded: {specifications.error.message}</Text>
         ) : current ? (
           <Box>
-            <Link href={specificationFileUrl(current)} target="_blank" rel="noopener" color="accent.fg" fontWeight="bold">
+            <Link href={current.fileUrl} target="_blank" rel="noopener" color="accent.fg" fontWeight="bold">
               Open the current specification
             </Link>
             <Text textStyle="sm" color={current.reviewOverdue ? 'fg' : 'fg.muted'} fontWeight={current.reviewOverdue ? 'bold' : 'normal'}>
@@ -142,7 +144,7 @@ export function SpecificationsPanel({ code }: { code: string }) {
             <Stack as="ol" aria-label="Specification versions, newest first" gap="2" listStyleType="none" m="0" p="0">
               {specifications.data.map((spec) => (
                 <Box as="li" key={spec.id} textStyle="sm">
-                  <Link href={specificationFileUrl(spec)} target="_blank" rel="noopener" color="accent.fg">
+                  <Link href={spec.fileUrl} target="_blank" rel="noopener" color="accent.fg">
                     Version {spec.version}: {spec.filename}
                   </Link>
                   <Text color="fg.muted">
@@ -156,6 +158,6 @@ export function SpecificationsPanel({ code }: { code: string }) {
           </Box>
         ) : null}
       </Stack>
-    </SidePanel>
+    </Panel>
   );
 }

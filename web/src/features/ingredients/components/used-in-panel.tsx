@@ -1,8 +1,9 @@
 import { Box, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router-dom';
 import { LayerPath, type ItemLookup } from '@/components/ui/layer-path';
+import { Loading } from '@/components/ui/loading';
+import { Panel } from '@/components/ui/panel';
 import { useIngredientUsedIn } from '../api/get-ingredient-used-in';
-import { PanelLoading, SidePanel } from './panel';
 
 interface UsedInPanelProps {
   code: string;
@@ -17,9 +18,9 @@ export function UsedInPanel({ code, name }: UsedInPanelProps) {
     id === code ? { name, kind: 'ingredient' } : names.has(id) ? { name: names.get(id) as string, kind: 'recipe' } : undefined;
 
   return (
-    <SidePanel title="Used in">
+    <Panel title="Used in" size="md">
       {usedIn.isPending ? (
-        <PanelLoading>Finding the recipes that use it…</PanelLoading>
+        <Loading size="sm">Finding the recipes that use it…</Loading>
       ) : usedIn.isError ? (
         <Text color="fg.error">Where it is used could not be loaded: {usedIn.error.message}</Text>
       ) : usedIn.data.length === 0 ? (
@@ -45,6 +46,6 @@ export function UsedInPanel({ code, name }: UsedInPanelProps) {
           ))}
         </Stack>
       )}
-    </SidePanel>
+    </Panel>
   );
 }

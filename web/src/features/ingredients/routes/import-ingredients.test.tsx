@@ -1,8 +1,8 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { mockApi, signedInAs } from '@/testing/mock-api';
+import { mockApi, requestUrl, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
-import type { ImportPreview } from '../api/types';
+import type { ImportPreview } from '@crumbproof/shared';
 
 const CSV = new File(['id,name\nbutter,Unsalted butter\n'], 'ingredients.csv', { type: 'text/csv' });
 
@@ -72,7 +72,7 @@ describe('Spreadsheet import', () => {
     expect(screen.getByText(/The ingredient id used in recipes/)).toBeInTheDocument();
     expect(screen.getByText(/Correct the rows with problems/)).toBeInTheDocument();
 
-    const sent = fetchMock.mock.calls.find(([url]) => String(url).endsWith('/import/preview'))?.[1]?.body as FormData;
+    const sent = fetchMock.mock.calls.find(([url]) => requestUrl(url).endsWith('/import/preview'))?.[1]?.body as FormData;
     expect((sent.get('file') as File).name).toBe('ingredients.csv');
   });
 

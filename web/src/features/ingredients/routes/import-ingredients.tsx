@@ -1,4 +1,5 @@
 import { Box, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import type { ImportCounts, ImportPreview, ImportResult } from '@crumbproof/shared';
 import { useRef, useState, type FormEvent } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -7,7 +8,6 @@ import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
 import { useImportIngredients } from '../api/import-ingredients';
 import { usePreviewImport } from '../api/preview-import';
-import type { ImportPreview, ImportResult, ImportSummary } from '../api/types';
 import { ImportPreviewTable } from '../components/import-preview-table';
 
 const ACCEPT = '.csv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
@@ -16,7 +16,7 @@ function plural(count: number, one: string, many: string): string {
   return `${count} ${count === 1 ? one : many}`;
 }
 
-function describeSummary(summary: ImportSummary): string {
+function describeSummary(summary: ImportCounts): string {
   return [
     `${plural(summary.create, 'new ingredient', 'new ingredients')}`,
     `${plural(summary.update, 'update', 'updates')}`,
@@ -50,19 +50,15 @@ function ImportHelp({ columns, rules }: { columns: ImportPreview['columns']; rul
           <Box>
             <Text fontWeight="bold">Columns</Text>
             <Box as="ul" ps="5" m="0">
-              {columns.map((column) =>
-                typeof column === 'string' ? (
-                  <li key={column}>{column}</li>
-                ) : (
-                  <li key={column.header}>
-                    <Text as="span" fontWeight="bold">
-                      {column.header}
-                    </Text>
-                    {column.required ? ' (required)' : ''}
-                    {column.description ? `: ${column.description}` : ''}
-                  </li>
-                ),
-              )}
+              {columns.map((column) => (
+                <li key={column.header}>
+                  <Text as="span" fontWeight="bold">
+                    {column.header}
+                  </Text>
+                  {column.required ? ' (required)' : ''}
+                  {`: ${column.description}`}
+                </li>
+              ))}
             </Box>
           </Box>
         ) : null}
@@ -192,7 +188,7 @@ export function ImportIngredientsRoute() {
             </ErrorAlert>
           ) : null}
           {preview.rows.length > 0 ? <ImportPreviewTable preview={preview} /> : null}
-          <ImportHelp columns={preview.columns} rules={preview.rules ?? []} />
+          <ImportHelp columns={preview.columns} rules={preview.rules} />
           {importIngredients.isError ? (
             <ErrorAlert title="Nothing was imported">
               {errorText(importIngredients.error, 'Try again in a moment.').map((line, index) => (

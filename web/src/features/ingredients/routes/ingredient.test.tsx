@@ -1,8 +1,8 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { mockApi, signedInAs, type ApiHandlers } from '@/testing/mock-api';
+import { mockApi, requestUrl, signedInAs, type ApiHandlers } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
-import type { CompositionScan, IngredientView, NutrientReference, Specification } from '../api/types';
+import type { CompositionScan, IngredientView, NutrientReference, SpecificationView } from '@crumbproof/shared';
 import { BUTTER } from '../testing/fixtures';
 
 function created(body: unknown): IngredientView {
@@ -237,7 +237,7 @@ describe('New ingredient form', () => {
   });
 });
 
-const SPECS: Specification[] = [
+const SPECS: SpecificationView[] = [
   {
     id: 12,
     ingredient: 'butter',
@@ -359,7 +359,7 @@ describe('Ingredient page', () => {
     const { fetchMock } = butterApi({
       'GET /api/ingredients/butter/specifications': () => ({ body: specs }),
       'POST /api/ingredients/butter/specifications': () => {
-        const added: Specification = {
+        const added: SpecificationView = {
           ...SPECS[0]!,
           id: 20,
           version: 3,
@@ -380,7 +380,7 @@ describe('Ingredient page', () => {
     await user.click(within(specsPanel).getByRole('button', { name: 'Upload specification' }));
 
     expect(await within(specsPanel).findByText(/Version 3 \(butter-2027.pdf\) uploaded/)).toBeInTheDocument();
-    const upload = fetchMock.mock.calls.find(([url, init]) => String(url).endsWith('/specifications') && init?.method === 'POST');
+    const upload = fetchMock.mock.calls.find(([url, init]) => requestUrl(url).endsWith('/specifications') && init?.method === 'POST');
     const sent = upload?.[1]?.body as FormData;
     expect(sent).toBeInstanceOf(FormData);
     expect(sent.get('reviewBy')).toBe('2099-01-31');
@@ -401,6 +401,6 @@ describe('Ingredient page', () => {
     fireEvent.change(within(specsPanel).getByLabelText(/^Review by/), { target: { value: '2001-01-01' } });
     await user.click(within(specsPanel).getByRole('button', { name: 'Upload specification' }));
     expect(await within(specsPanel).findByText(/has already passed/)).toBeInTheDocument();
-    expect(fetchMock.mock.calls.some(([url, init]) => String(url).endsWith('/specifications') && init?.method === 'POST')).toBe(false);
+    expect(fetchMock.mock.calls.some(([url, init]) => requestUrl(url).endsWith('/specifications') && init?.method === 'POST')).toBe(false);
   });
 });

@@ -1,6 +1,7 @@
-import { Box, Button, Grid, Link, Spinner, Stack, Text } from '@chakra-ui/react';
+import { Box, Grid, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink, useLocation, useNavigate, useParams } from 'react-router-dom';
-import { ErrorAlert } from '@/components/ui/error-alert';
+import { LoadFailed } from '@/components/ui/load-failed';
+import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
 import { useCreateIngredient } from '../api/create-ingredient';
@@ -42,24 +43,16 @@ export function IngredientRoute() {
   const updateIngredient = useUpdateIngredient();
   const added = (location.state as { added?: string } | null)?.added;
 
-  if (ingredient.isPending) {
-    return (
-      <Stack role="status" direction="row" align="center" gap="3">
-        <Spinner color="accent.solid" />
-        <Text>Loading the ingredient…</Text>
-      </Stack>
-    );
-  }
+  if (ingredient.isPending) return <Loading>Loading the ingredient…</Loading>;
   if (ingredient.isError) {
     const notFound = isApiError(ingredient.error) && ingredient.error.status === 404;
     return (
       <Page title={notFound ? 'Ingredient not found' : 'Ingredient'} actions={<BackToLibrary />}>
-        <ErrorAlert title="The ingredient could not be loaded">{ingredient.error.message}</ErrorAlert>
-        {notFound ? null : (
-          <Button alignSelf="flex-start" variant="outline" onClick={() => void ingredient.refetch()}>
-            Try again
-          </Button>
-        )}
+        <LoadFailed
+          title="The ingredient could not be loaded"
+          error={ingredient.error}
+          onRetry={notFound ? undefined : () => void ingredient.refetch()}
+        />
       </Page>
     );
   }

@@ -1,4 +1,4 @@
-import type { IngredientView, SpecificationStatus } from '../api/types';
+import type { IngredientView, SpecificationStatus } from '@crumbproof/shared';
 
 export const BUTTER: IngredientView = {
   id: 'butter',

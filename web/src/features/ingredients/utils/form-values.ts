@@ -1,6 +1,6 @@
-import type { BookIngredient, Nutrition } from '@crumbproof/shared';
+import { FIGURE_KEYS, type BookIngredient, type bookIngredientSchema, type FigureKey, type Nutrition } from '@crumbproof/shared';
 import type { z } from 'zod';
-import type { bookIngredientSchema } from '@crumbproof/shared';
+import { FIGURE_NAMES } from '@/lib/nutrients';
 
 /** What the form holds: the schema's input (mayContain may be missing before defaults). */
 export type IngredientFormValues = z.input<typeof bookIngredientSchema>;
@@ -14,60 +14,25 @@ export const NUTRITION_FIELDS = [
   { key: 'fibre', label: 'Fibre' },
   { key: 'protein', label: 'Protein' },
   { key: 'salt', label: 'Salt' },
-] as const satisfies readonly { key: keyof Nutrition; label: string }[];
-
-/** Every figure a nutrition record may hold (what "Fill from reference table" replaces). */
-export const ALL_NUTRITION_KEYS = [
-  'energyKj',
-  'energyKcal',
-  'fat',
-  'saturates',
-  'transFat',
-  'cholesterolMg',
-  'carbohydrate',
-  'sugars',
-  'addedSugars',
-  'polyols',
-  'erythritol',
-  'fibre',
-  'protein',
-  'salt',
-  'sodium',
-  'alcohol',
-  'organicAcids',
-  'salatrims',
-] as const satisfies readonly Exclude<keyof Nutrition, 'source'>[];
-
-const EXTRA_LABELS: Partial<Record<(typeof ALL_NUTRITION_KEYS)[number], [string, string]>> = {
-  energyKj: ['energy', 'kJ'],
-  energyKcal: ['energy', 'kcal'],
-  transFat: ['trans fat', 'g'],
-  cholesterolMg: ['cholesterol', 'mg'],
-  addedSugars: ['added sugars', 'g'],
-  polyols: ['polyols', 'g'],
-  erythritol: ['erythritol', 'g'],
-  sodium: ['sodium', 'g'],
-  alcohol: ['alcohol', 'g'],
-  organicAcids: ['organic acids', 'g'],
-  salatrims: ['salatrims', 'g'],
-};
+] as const satisfies readonly { key: FigureKey; label: string }[];
 
 /** Figures kept with the ingredient that the form has no field for: "energy 1472 kJ, sodium 0.0015 g". */
 export function extraFigures(nutrition: Partial<Nutrition> | undefined): string[] {
   if (!nutrition) return [];
-  return (Object.keys(EXTRA_LABELS) as (keyof typeof EXTRA_LABELS)[])
-    .filter((key) => typeof nutrition[key] === 'number')
-    .map((key) => {
-      const [name, unit] = EXTRA_LABELS[key] as [string, string];
-      return `${name} ${(nutrition[key] as number).toLocaleString('en-GB', { maximumFractionDigits: 5 })} ${unit}`;
-    });
+  const shown = new Set<FigureKey>(NUTRITION_FIELDS.map((field) => field.key));
+  return FIGURE_KEYS.filter((key) => !shown.has(key) && typeof nutrition[key] === 'number').map((key) => {
+    const { name, unit } = FIGURE_NAMES[key];
+    return `${name.toLowerCase()} ${(nutrition[key] as number).toLocaleString('en-GB', { maximumFractionDigits: 5 })} ${unit}`;
+  });
 }
 
 /** A typed number, or undefined for an empty box; anything else is passed on for the schema to refuse. */
 export function parseNumberInput(value: unknown): unknown {
   if (value === null || value === undefined) return undefined;
   if (typeof value === 'number') return Number.isNaN(value) ? undefined : value;
-  const text = String(value).trim().replace(',', '.');
+  // A number box gives text; anything else is not a number the form can read, and the schema says so.
+  if (typeof value !== 'string') return value;
+  const text = value.trim().replace(',', '.');
   if (text === '') return undefined;
   const number = Number(text);
   return Number.isFinite(number) ? number : text;
@@ -85,7 +50,8 @@ export function cleanNutrition(nutrition: Nutrition | undefined): Nutrition | un
   const entries = Object.entries(nutrition).filter(([, value]) => value !== undefined && value !== '');
   const figures = entries.filter(([key]) => key !== 'source');
   if (figures.length === 0) return undefined;
-  return Object.fromEntries(entries) as Nutrition;
+  const clean: Nutrition = Object.fromEntries(entries);
+  return clean;
 }
 
 /** The body sent to the API: no empty strings, no undefined keys. */

@@ -1,9 +1,11 @@
-import { EXEMPT_FORM_LABELS, SOURCE_LABELS, type AllergenSource, type BookIngredient, type SourceEntry } from '@crumbproof/shared';
-import type { SpecificationState } from '../api/types';
-
-export function sourceOf(entry: SourceEntry): AllergenSource {
-  return typeof entry === 'string' ? entry : entry.source;
-}
+import {
+  EXEMPT_FORM_LABELS,
+  FIGURE_KEYS,
+  SOURCE_LABELS,
+  type BookIngredient,
+  type SourceEntry,
+  type SpecificationState,
+} from '@crumbproof/shared';
 
 /** "milk", "wheat (glucose syrup)", "fish (cod)". */
 export function describeEntry(entry: SourceEntry): string {
@@ -20,13 +22,11 @@ export function allergenStatementOf(ingredient: Pick<BookIngredient, 'contains'>
   return ingredient.contains.length === 0 ? 'none' : 'stated';
 }
 
-const FIGURES = ['fat', 'saturates', 'carbohydrate', 'sugars', 'fibre', 'protein', 'salt', 'sodium'] as const;
-
 /** True when at least one nutrition figure is recorded. */
 export function hasNutrition(ingredient: Pick<BookIngredient, 'nutrition'>): boolean {
   const nutrition = ingredient.nutrition;
   if (!nutrition) return false;
-  return FIGURES.some((key) => typeof nutrition[key] === 'number');
+  return FIGURE_KEYS.some((key) => typeof nutrition[key] === 'number');
 }
 
 export const MISSING_DATA = {
@@ -54,8 +54,6 @@ export function yesNoUnknown(value: boolean | null | undefined): 'Yes' | 'No' | 
   if (value === false) return 'No';
   return 'Not known';
 }
-
-export { formatDate, formatDateTime } from '@/lib/format';
 
 export function formatBytes(bytes: number): string {
   if (bytes < 1024) return `${bytes} bytes`;

@@ -1,29 +1,23 @@
-import type { AllergenSource } from '@crumbproof/shared';
-import type { IngredientView, SpecificationState } from '../api/types';
-import { missingDataOf, sourceOf, type MissingData } from './ingredient-facts';
+import type { AllergenSource, IngredientView, SpecificationState, SpecificationStatus } from '@crumbproof/shared';
+import type { IngredientSearch } from '@/api/query-keys';
+import { missingDataOf, type MissingData } from './ingredient-facts';
 
 /** One row of the library: the ingredient and what the library knows about it. */
 export interface LibraryRow {
   ingredient: IngredientView;
   /** undefined while the specification status is not loaded (or could not be). */
   specification: SpecificationState | undefined;
-  specificationReviewBy: string | undefined;
   missing: MissingData[];
 }
 
+/** Each ingredient with its specification state; the status is by ingredient id, undefined when not known. */
 export function toLibraryRows(
   ingredients: readonly IngredientView[],
-  status: ReadonlyMap<string, { state: SpecificationState; reviewBy?: string }> | undefined,
+  status: ReadonlyMap<string, SpecificationStatus> | undefined,
 ): LibraryRow[] {
   return ingredients.map((ingredient) => {
-    const spec = status?.get(ingredient.id);
-    const specification = status ? (spec?.state ?? 'missing') : undefined;
-    return {
-      ingredient,
-      specification,
-      specificationReviewBy: spec?.reviewBy,
-      missing: missingDataOf(ingredient, specification),
-    };
+    const specification = status ? (status.get(ingredient.id)?.state ?? 'missing') : undefined;
+    return { ingredient, specification, missing: missingDataOf(ingredient, specification) };
   });
 }
 
@@ -50,19 +44,15 @@ function matchesDietary(row: LibraryRow, filter: DietaryFilter): boolean {
   return value === null || value === undefined;
 }
 
-/** Search looks in the name, supplier, supplier code and id. */
+/** The part of the filters the API answers: the search words and the allergen source contained. */
+export function searchOf(filters: LibraryFilters): IngredientSearch {
+  const q = filters.search.trim();
+  return { ...(q ? { q } : {}), ...(filters.source ? { source: filters.source } : {}) };
+}
+
+/** The rest, on the rows the API returned: dietary status, specification state, data missing. */
 export function filterLibrary(rows: readonly LibraryRow[], filters: LibraryFilters): LibraryRow[] {
-  const words = filters.search.trim().toLocaleLowerCase('en-GB').split(/\s+/).filter(Boolean);
   return rows.filter((row) => {
-    const { ingredient } = row;
-    if (words.length > 0) {
-      const haystack = [ingredient.name, ingredient.supplier, ingredient.supplierCode, ingredient.id]
-        .filter(Boolean)
-        .join(' ')
-        .toLocaleLowerCase('en-GB');
-      if (!words.every((word) => haystack.includes(word))) return false;
-    }
-    if (filters.source !== '' && !(ingredient.contains ?? []).some((entry) => sourceOf(entry) === filters.source)) return false;
     if (!matchesDietary(row, filters.dietary)) return false;
     if (filters.specification !== '' && row.specification !== filters.specification) return false;
     if (filters.missing === 'any' && row.missing.length === 0) return false;

@@ -1,5 +1,7 @@
 import { kitchenSchema, type KitchenUpdate, type KitchenView } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
 
 export async function updateKitchen(changes: KitchenUpdate): Promise<KitchenView> {
@@ -7,14 +9,19 @@ export async function updateKitchen(changes: KitchenUpdate): Promise<KitchenView
 }
 
 export function updateKitchenMutationOptions() {
-  return mutationOptions({ mutationKey: ['kitchen', 'update'], mutationFn: updateKitchen });
+  return mutationOptions({ mutationKey: mutationKeys.updateKitchen(), mutationFn: updateKitchen });
 }
 
-/** Every declaration depends on the kitchen's regime and handling, so everything cached is read again. */
+/** Every declaration depends on the kitchen's regime and handling, so every one is read again. */
 export function useUpdateKitchen() {
   const queryClient = useQueryClient();
   return useMutation({
     ...updateKitchenMutationOptions(),
-    onSuccess: () => queryClient.invalidateQueries(),
+    onSettled: (saved, error) =>
+      refreshAfterKitchenWrite(queryClient, {
+        error,
+        saved: saved ? [{ queryKey: queryKeys.kitchen(), data: saved }] : [],
+        editing: [queryKeys.kitchen()],
+      }),
   });
 }

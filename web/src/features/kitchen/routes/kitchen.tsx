@@ -1,5 +1,5 @@
-import { Spinner, Stack, Text } from '@chakra-ui/react';
-import { ErrorAlert } from '@/components/ui/error-alert';
+import { LoadFailed } from '@/components/ui/load-failed';
+import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { useKitchen } from '@/api/kitchen';
 import { KitchenForm } from '../components/kitchen-form';
@@ -13,12 +13,9 @@ export function KitchenRoute() {
       lead="The law this kitchen declares under, and how it handles each allergen source. Every declaration follows these settings."
     >
       {kitchen.isPending ? (
-        <Stack role="status" direction="row" align="center" gap="3">
-          <Spinner color="accent.solid" />
-          <Text>Loading the kitchen…</Text>
-        </Stack>
+        <Loading>Loading the kitchen…</Loading>
       ) : kitchen.isError ? (
-        <ErrorAlert title="The kitchen could not be loaded">{kitchen.error.message}</ErrorAlert>
+        <LoadFailed title="The kitchen could not be loaded" error={kitchen.error} onRetry={() => void kitchen.refetch()} />
       ) : (
         <KitchenForm kitchen={kitchen.data} />
       )}

@@ -1,29 +1,29 @@
-import type { Regime } from '@crumbproof/shared';
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { Regime, ServedDeclaration } from '@crumbproof/shared';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { DeclarationView } from './types';
 
+/** A product's declaration as the API serves it, with what it was worked out from. */
 export async function getDeclaration(
   code: string,
   regime: Regime | undefined,
   { signal }: { signal?: AbortSignal } = {},
-): Promise<DeclarationView> {
+): Promise<ServedDeclaration> {
   const query = regime ? `?regime=${regime}` : '';
-  return apiClient.get<DeclarationView>(`/recipes/${encodeURIComponent(code)}/declaration${query}`, { signal });
+  return apiClient.get<ServedDeclaration>(`/recipes/${encodeURIComponent(code)}/declaration${query}`, { signal });
 }
-
-/** Every regime of one product sits under this prefix, so saving the recipe invalidates them all. */
-export const declarationQueryPrefix = (code: string) => ['recipes', code, 'declaration'] as const;
-export const declarationQueryKey = (code: string, regime: Regime | undefined) =>
-  [...declarationQueryPrefix(code), regime ?? 'kitchen'] as const;
 
 export function getDeclarationQueryOptions(code: string, regime: Regime | undefined) {
   return queryOptions({
-    queryKey: declarationQueryKey(code, regime),
+    queryKey: queryKeys.declarations.product(code, regime),
     queryFn: ({ signal }) => getDeclaration(code, regime, { signal }),
   });
 }
 
+/**
+ * No earlier answer stands in while another regime's declaration is read: a declaration is
+ * shown only for the product and regime it was worked out for.
+ */
 export function useDeclaration(code: string, regime: Regime | undefined, { enabled = true }: { enabled?: boolean } = {}) {
-  return useQuery({ ...getDeclarationQueryOptions(code, regime), enabled, placeholderData: keepPreviousData });
+  return useQuery({ ...getDeclarationQueryOptions(code, regime), enabled });
 }

@@ -1,20 +1,17 @@
-import type { Regime } from '@crumbproof/shared';
+import type { Regime, ServedDeclaration } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { DeclarationView } from './types';
 
 /** Declarations of every product for sale (sub-recipes have none). */
-export async function getDeclarations(regime: Regime | undefined, { signal }: { signal?: AbortSignal } = {}): Promise<DeclarationView[]> {
+export async function getDeclarations(regime: Regime | undefined, { signal }: { signal?: AbortSignal } = {}): Promise<ServedDeclaration[]> {
   const query = regime ? `?regime=${regime}` : '';
-  return apiClient.get<DeclarationView[]>(`/declarations${query}`, { signal });
+  return apiClient.get<ServedDeclaration[]>(`/declarations${query}`, { signal });
 }
-
-export const declarationsQueryPrefix = ['declarations', 'products'] as const;
-export const declarationsQueryKey = (regime: Regime | undefined) => [...declarationsQueryPrefix, regime ?? 'kitchen'] as const;
 
 export function getDeclarationsQueryOptions(regime: Regime | undefined) {
   return queryOptions({
-    queryKey: declarationsQueryKey(regime),
+    queryKey: queryKeys.declarations.products(regime),
     queryFn: ({ signal }) => getDeclarations(regime, { signal }),
   });
 }

@@ -1,15 +1,14 @@
+import type { RecipeRevisionView } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { RecipeRevision } from './types';
 
-export async function getRevisions(code: string, { signal }: { signal?: AbortSignal } = {}): Promise<RecipeRevision[]> {
-  return apiClient.get<RecipeRevision[]>(`/recipes/${encodeURIComponent(code)}/revisions`, { signal });
+export async function getRevisions(code: string, { signal }: { signal?: AbortSignal } = {}): Promise<RecipeRevisionView[]> {
+  return apiClient.get<RecipeRevisionView[]>(`/recipes/${encodeURIComponent(code)}/revisions`, { signal });
 }
 
-export const revisionsQueryKey = (code: string) => ['recipes', code, 'revisions'] as const;
-
 export function getRevisionsQueryOptions(code: string) {
-  return queryOptions({ queryKey: revisionsQueryKey(code), queryFn: ({ signal }) => getRevisions(code, { signal }) });
+  return queryOptions({ queryKey: queryKeys.recipes.revisions(code), queryFn: ({ signal }) => getRevisions(code, { signal }) });
 }
 
 /** Newest first. Only kitchen writers may read the history; pass enabled=false for the others. */

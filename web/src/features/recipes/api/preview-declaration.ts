@@ -1,33 +1,33 @@
-import type { BookRecipe, Regime } from '@crumbproof/shared';
+import type { BookRecipe, ProductDeclaration, Regime } from '@crumbproof/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { DeclarationView } from './types';
 
 /** Declares the recipe as edited, without saving it. */
 export async function previewDeclaration(
   recipe: BookRecipe,
   regime: Regime | undefined,
   { signal }: { signal?: AbortSignal } = {},
-): Promise<DeclarationView> {
+): Promise<ProductDeclaration> {
   const query = regime ? `?regime=${regime}` : '';
-  return apiClient.post<DeclarationView>(`/declarations/preview${query}`, recipe, { signal });
+  return apiClient.post<ProductDeclaration>(`/declarations/preview${query}`, recipe, { signal });
 }
 
-export const previewQueryPrefix = ['declarations', 'preview'] as const;
-
 /**
- * A preview is a pure function of the recipe as typed, so it is a query keyed by that recipe:
- * typing back to an earlier state reuses its answer, and a newer keystroke cancels an older request.
+ * A preview is a pure function of the recipe as typed and the kitchen as recorded, so it is a
+ * query keyed by that recipe: typing back to an earlier state reuses its answer, a newer
+ * keystroke cancels an older request, and a write to the kitchen drops every preview.
  */
 export function getPreviewQueryOptions(recipe: BookRecipe | null, regime: Regime | undefined) {
   return queryOptions({
-    queryKey: [...previewQueryPrefix, regime ?? 'kitchen', recipe] as const,
+    queryKey: queryKeys.declarations.preview(recipe, regime),
     queryFn: ({ signal }) => previewDeclaration(recipe!, regime, { signal }),
     enabled: recipe !== null,
     staleTime: 60_000,
   });
 }
 
+/** While the next keystroke's preview is worked out, the last one stays on screen, dimmed and marked busy. */
 export function usePreviewDeclaration(recipe: BookRecipe | null, regime: Regime | undefined) {
   return useQuery({ ...getPreviewQueryOptions(recipe, regime), placeholderData: keepPreviousData });
 }

@@ -4,33 +4,31 @@ import type { ReactNode } from 'react';
 import { describe, expect, it } from 'vitest';
 import { mockApi } from '@/testing/mock-api';
 import { RECIPES } from '../testing/fixtures';
-import { declarationsQueryKey } from './get-declarations';
-import { declarationQueryKey } from './get-declaration';
-import { recipeQueryKey } from './get-recipe';
-import { recipesQueryKey } from '@/api/recipes';
-import { revisionsQueryKey } from './get-revisions';
+import { queryKeys } from '@/api/query-keys';
 import { useSaveRecipe } from './save-recipe';
 
 describe('useSaveRecipe', () => {
-  it('PUTs the recipe and invalidates the recipe, its declarations, the list, the history and product declarations', async () => {
+  it('PUTs the recipe, keeps the saved revision and drops every declaration, list and history it can change', async () => {
     const { calls } = mockApi({
       'PUT /api/recipes/victoria-sponge': ({ body }) => ({
         body: { ...(body as object), revision: 5, updatedAt: '2026-12-01T19:00:00.000Z' },
       }),
     });
     const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity } } });
-    const keys = [
-      recipeQueryKey('victoria-sponge'),
-      declarationQueryKey('victoria-sponge', 'UK'),
-      declarationQueryKey('victoria-sponge', 'US'),
-      recipesQueryKey,
-      revisionsQueryKey('victoria-sponge'),
-      declarationsQueryKey(undefined),
+    const dropped = [
+      queryKeys.declarations.product('victoria-sponge', 'UK'),
+      queryKeys.declarations.product('victoria-sponge', 'US'),
+      queryKeys.recipes.list(),
+      queryKeys.recipes.revisions('victoria-sponge'),
+      queryKeys.declarations.products(undefined),
       // A product that uses this recipe as a sub-recipe.
-      declarationQueryKey('trifle', 'UK'),
+      queryKeys.declarations.product('trifle', 'UK'),
+      // Where an ingredient is used: the recipe may have gained or lost it.
+      queryKeys.ingredients.usedIn('butter'),
     ];
-    for (const key of keys) queryClient.setQueryData(key, { cached: true });
-    const untouched = ['kitchen'];
+    for (const key of dropped) queryClient.setQueryData(key, { cached: true });
+    queryClient.setQueryData(queryKeys.recipes.one('victoria-sponge'), { ...RECIPES[0], revision: 4 });
+    const untouched = queryKeys.me();
     queryClient.setQueryData(untouched, { cached: true });
 
     const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
@@ -40,9 +38,9 @@ describe('useSaveRecipe', () => {
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
 
     expect(calls).toEqual([expect.objectContaining({ method: 'PUT', path: '/api/recipes/victoria-sponge', body: { id, name, lines } })]);
-    for (const key of keys.slice(1)) expect(queryClient.getQueryState(key)?.isInvalidated, JSON.stringify(key)).toBe(true);
-    expect(queryClient.getQueryData(recipeQueryKey('victoria-sponge'))).toMatchObject({ revision: 5 });
-    expect(queryClient.getQueryState(untouched)?.isInvalidated).toBe(false);
+    for (const key of dropped) expect(queryClient.getQueryData(key), JSON.stringify(key)).toBeUndefined();
+    expect(queryClient.getQueryData(queryKeys.recipes.one('victoria-sponge'))).toMatchObject({ revision: 5 });
+    expect(queryClient.getQueryData(untouched)).toEqual({ cached: true });
   });
 
   it('POSTs a new recipe', async () => {

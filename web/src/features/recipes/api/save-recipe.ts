@@ -1,12 +1,8 @@
-import type { BookRecipe } from '@crumbproof/shared';
+import type { BookRecipe, RecipeView } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import { declarationsQueryPrefix } from './get-declarations';
-import { declarationQueryPrefix } from './get-declaration';
-import { recipeQueryKey } from './get-recipe';
-import { recipesQueryKey } from '@/api/recipes';
-import { revisionsQueryKey } from './get-revisions';
-import type { RecipeView } from './types';
 
 export interface SaveRecipeInput {
   recipe: BookRecipe;
@@ -21,24 +17,19 @@ export async function saveRecipe({ recipe, code }: SaveRecipeInput): Promise<Rec
 }
 
 export function saveRecipeMutationOptions() {
-  return mutationOptions({ mutationKey: ['recipes', 'save'], mutationFn: saveRecipe });
+  return mutationOptions({ mutationKey: mutationKeys.saveRecipe(), mutationFn: saveRecipe });
 }
 
+/** A recipe's change reaches every product above it: every declaration is read again. */
 export function useSaveRecipe() {
   const queryClient = useQueryClient();
   return useMutation({
     ...saveRecipeMutationOptions(),
-    onSuccess: (saved) => {
-      queryClient.setQueryData(recipeQueryKey(saved.id), saved);
-      void Promise.all([
-        queryClient.invalidateQueries({ queryKey: recipeQueryKey(saved.id), exact: true }),
-        queryClient.invalidateQueries({ queryKey: declarationQueryPrefix(saved.id) }),
-        queryClient.invalidateQueries({ queryKey: revisionsQueryKey(saved.id) }),
-        queryClient.invalidateQueries({ queryKey: recipesQueryKey, exact: true }),
-        // A sub-recipe's change reaches every product that uses it.
-        queryClient.invalidateQueries({ queryKey: declarationsQueryPrefix }),
-        queryClient.invalidateQueries({ queryKey: ['recipes'], predicate: (query) => query.queryKey[2] === 'declaration' }),
-      ]);
-    },
+    onSettled: (saved, error, { code }) =>
+      refreshAfterKitchenWrite(queryClient, {
+        error,
+        saved: saved ? [{ queryKey: queryKeys.recipes.one(saved.id), data: saved }] : [],
+        editing: code === undefined ? [] : [queryKeys.recipes.one(code)],
+      }),
   });
 }

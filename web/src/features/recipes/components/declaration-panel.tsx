@@ -4,9 +4,10 @@ import { ClaimReasonList } from '@/components/ui/claim-reasons';
 import { ClaimStatusLine } from '@/components/ui/claim-status';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { LayerPath, type ItemLookup } from '@/components/ui/layer-path';
+import { Panel, type HeadingLevel } from '@/components/ui/panel';
 import { Quantity } from '@/components/ui/quantity';
 import { StatusMark } from '@/components/ui/status-mark';
-import { PanelSection, type HeadingLevel } from './panel-section';
+import { TitledList } from '@/components/ui/titled-list';
 import { SulphiteSummary } from './sulphite-summary';
 
 export const DECLARATION_CAUTION =
@@ -55,7 +56,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
       ) : null}
 
       <SimpleGrid minChildWidth="min(100%, 18rem)" gap="4" alignItems="start">
-        <PanelSection title="Contains" level={level}>
+        <Panel title="Contains" level={level}>
           {contains.length === 0 ? (
             <StatusMark status="none-recorded">allergens</StatusMark>
           ) : (
@@ -72,9 +73,9 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
               ))}
             </Box>
           )}
-        </PanelSection>
+        </Panel>
 
-        <PanelSection title="May contain" level={level}>
+        <Panel title="May contain" level={level}>
           {mayContain.length === 0 ? (
             <Text>No may-contain recorded.</Text>
           ) : (
@@ -91,9 +92,9 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
               ))}
             </Box>
           )}
-        </PanelSection>
+        </Panel>
 
-        <PanelSection title="Not known" level={level}>
+        <Panel title="Not known" level={level}>
           {unknown.length === 0 ? (
             <Text>Every ingredient has an allergen statement recorded.</Text>
           ) : (
@@ -109,22 +110,19 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
               ))}
             </Box>
           )}
-          {exempt.length > 0 ? (
-            <Box>
-              <Text fontWeight="bold">Exempt from declaration under {declaration.regime}</Text>
-              <Box as="ul" ps="5" m="0">
-                {exempt.map((use) => (
-                  <li key={`${use.ingredient}-${use.source}`}>
-                    {`${use.name}: ${SOURCE_LABELS[use.source] ?? use.source} as ${EXEMPT_FORM_LABELS[use.form] ?? use.form} (${use.basis})`}
-                  </li>
-                ))}
-              </Box>
-            </Box>
-          ) : null}
-        </PanelSection>
+          <TitledList
+            title={`Exempt from declaration under ${declaration.regime}`}
+            items={exempt}
+            itemKey={(use) => `${use.ingredient}-${use.source}`}
+          >
+            {(use) =>
+              `${use.name}: ${SOURCE_LABELS[use.source] ?? use.source} as ${EXEMPT_FORM_LABELS[use.form] ?? use.form} (${use.basis})`
+            }
+          </TitledList>
+        </Panel>
       </SimpleGrid>
 
-      <PanelSection title="Claims" level={level}>
+      <Panel title="Claims" level={level}>
         <SimpleGrid as="ul" listStyleType="none" m="0" p="0" minChildWidth="min(100%, 26rem)" columnGap="6" rowGap="3" alignItems="start">
           {CLAIMS.filter((claim) => claims[claim]).map((claim) => (
             <Box as="li" key={claim} data-claim={claim}>
@@ -133,9 +131,9 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
             </Box>
           ))}
         </SimpleGrid>
-      </PanelSection>
+      </Panel>
 
-      <PanelSection title="Ingredients as printed" level={level}>
+      <Panel title="Ingredients as printed" level={level}>
         <Text maxW="80ch" data-testid="ingredients-text">
           {declaration.ingredientsSegments.map((segment, index) =>
             segment.emphasis ? (
@@ -148,38 +146,26 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
           )}
         </Text>
         {declaration.mayContainText ? <Text fontWeight="bold">{declaration.mayContainText}</Text> : null}
-        {declaration.quid.length > 0 ? (
-          <Box>
-            <Text fontWeight="bold">Quantity of ingredients (QUID)</Text>
-            <Box as="ul" ps="5" m="0">
-              {declaration.quid.map((entry) => (
-                <li key={entry.ingredient}>
-                  <Quantity>{entry.text}</Quantity>
-                  <Text as="span" color="fg.muted" textStyle="sm">
-                    {` (${formatPercent(entry.percent)} of the finished weight)`}
-                  </Text>
-                </li>
-              ))}
-            </Box>
-          </Box>
-        ) : null}
+        <TitledList title="Quantity of ingredients (QUID)" items={declaration.quid} itemKey={(entry) => entry.ingredient}>
+          {(entry) => (
+            <>
+              <Quantity>{entry.text}</Quantity>
+              <Text as="span" color="fg.muted" textStyle="sm">
+                {` (${formatPercent(entry.percent)} of the finished weight)`}
+              </Text>
+            </>
+          )}
+        </TitledList>
         <SulphiteSummary sulphites={declaration.sulphites} />
         <Text color="fg.muted" textStyle="sm">
           <Quantity>{`Finished weight ${declaration.finishedWeightG} g; mix ${declaration.mixWeightG} g${
             declaration.portionG ? `; portion ${declaration.portionG} g` : ''
           }.`}</Quantity>
         </Text>
-        {warnings.length > 0 ? (
-          <Box>
-            <Text fontWeight="bold">Warnings</Text>
-            <Box as="ul" ps="5" m="0">
-              {warnings.map((warning, index) => (
-                <li key={`${warning.code}-${index}`}>{warning.message}</li>
-              ))}
-            </Box>
-          </Box>
-        ) : null}
-      </PanelSection>
+        <TitledList title="Warnings" items={warnings} itemKey={(warning, index) => `${warning.code}-${index}`}>
+          {(warning) => warning.message}
+        </TitledList>
+      </Panel>
     </Stack>
   );
 }

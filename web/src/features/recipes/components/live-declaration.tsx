@@ -1,16 +1,15 @@
 import { Alert, Badge, Box, Heading, Stack, Text } from '@chakra-ui/react';
-import type { Claim } from '@crumbproof/shared';
+import type { Claim, ProductDeclaration } from '@crumbproof/shared';
 import { useId } from 'react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import type { ItemLookup } from '@/components/ui/layer-path';
-import type { DeclarationView } from '../api/types';
+import { Loading } from '@/components/ui/loading';
 import { DeclarationPanel } from './declaration-panel';
-import { Loading } from './loading';
 import { NutritionPanel } from './nutrition-panel';
 import { wantedClaimNotices } from './wanted-claims';
 
 interface LiveDeclarationProps {
-  declaration: DeclarationView | undefined;
+  declaration: ProductDeclaration | undefined;
   /** The preview request is running (typing paused, answer not back yet). */
   computing: boolean;
   /** The form has changes that are not saved. */

@@ -1,31 +1,11 @@
 import { Box, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import type { EuLabelRow, FigureKey, NutritionDeclaration, UsLabelRow } from '@crumbproof/shared';
+import type { EuLabelRow, NutritionDeclaration, UsLabelRow } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
 import { hrefFor, useCanOpenPath } from '@/components/ui/layer-path';
-import { PanelSection, type HeadingLevel } from './panel-section';
-
-export const FIGURE_LABELS: Record<FigureKey, string> = {
-  energyKj: 'Energy (kJ)',
-  energyKcal: 'Energy (kcal)',
-  fat: 'Fat',
-  saturates: 'Saturates',
-  transFat: 'Trans fat',
-  cholesterolMg: 'Cholesterol',
-  carbohydrate: 'Carbohydrate',
-  sugars: 'Sugars',
-  addedSugars: 'Added sugars',
-  polyols: 'Polyols',
-  erythritol: 'Erythritol',
-  fibre: 'Fibre',
-  protein: 'Protein',
-  salt: 'Salt',
-  sodium: 'Sodium',
-  alcohol: 'Alcohol',
-  organicAcids: 'Organic acids',
-  salatrims: 'Salatrims',
-};
+import { Panel, type HeadingLevel } from '@/components/ui/panel';
+import { figureLabel } from '@/lib/nutrients';
 
 /** The API prints "incomplete" where a figure is missing; the screen says so in words and weight. */
 function Cell({ text, value }: { text: string; value: number | null }) {
@@ -51,7 +31,7 @@ function RowName({ name, indent }: { name: string; indent: boolean }) {
 }
 
 interface NutritionPanelProps {
-  nutrition: NutritionDeclaration | null | undefined;
+  nutrition: NutritionDeclaration;
   level?: HeadingLevel;
 }
 
@@ -59,11 +39,11 @@ interface NutritionPanelProps {
 export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps) {
   const canOpen = useCanOpenPath();
   const euColumns = useMemo<DataTableColumn<EuLabelRow>[]>(() => {
-    const portion = nutrition?.label.eu?.portionG ?? null;
+    const portion = nutrition.label.eu?.portionG ?? null;
     const columns: DataTableColumn<EuLabelRow>[] = [
       euColumn.accessor('name', {
         header: 'Nutrient',
-        cell: (info) => <RowName name={info.getValue()} indent={info.row.original.indent} />,
+        cell: (info) => <RowName name={info.row.original.name} indent={info.row.original.indent} />,
       }),
       euColumn.display({
         id: 'per100g',
@@ -92,7 +72,7 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
     () => [
       usColumn.accessor('name', {
         header: 'Nutrient',
-        cell: (info) => <RowName name={info.getValue()} indent={info.row.original.indent} />,
+        cell: (info) => <RowName name={info.row.original.name} indent={info.row.original.indent} />,
       }),
       usColumn.display({
         id: 'amount',
@@ -113,17 +93,9 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
     [],
   );
 
-  if (!nutrition) {
-    return (
-      <PanelSection title="Nutrition" level={level}>
-        <Text color="fg.muted">No nutrition declaration came with this declaration.</Text>
-      </PanelSection>
-    );
-  }
-
   const { label, missing, incomplete, sources } = nutrition;
   return (
-    <PanelSection title="Nutrition" level={level}>
+    <Panel title="Nutrition" level={level}>
       {label.note ? <Text>{label.note}</Text> : null}
       {label.eu || label.us ? (
         <SimpleGrid
@@ -153,11 +125,11 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
       ) : null}
       {incomplete.length > 0 ? (
         <Box borderStartWidth="4px" borderColor="border.emphasized" borderStyle="dashed" ps="3">
-          <Text fontWeight="bold">{`Incomplete: ${incomplete.map((key) => FIGURE_LABELS[key] ?? key).join(', ')}`}</Text>
+          <Text fontWeight="bold">{`Incomplete: ${incomplete.map(figureLabel).join(', ')}`}</Text>
           <Box as="ul" ps="5" m="0">
             {missing.map((entry) => (
               <li key={entry.nutrient}>
-                {`${FIGURE_LABELS[entry.nutrient] ?? entry.nutrient}: no figure recorded for ${entry.ingredients.map((i) => i.name).join(', ')}`}
+                {`${figureLabel(entry.nutrient)}: no figure recorded for ${entry.ingredients.map((i) => i.name).join(', ')}`}
               </li>
             ))}
           </Box>
@@ -190,6 +162,6 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
             : `Divided by the sum of the lines${nutrition.finishedWeightG ? ` (${nutrition.finishedWeightG} g)` : ''}: no weight after baking is recorded.`}
         </Text>
       </Box>
-    </PanelSection>
+    </Panel>
   );
 }

@@ -1,15 +1,15 @@
 import { Link, Text } from '@chakra-ui/react';
-import { CLAIM_LABELS, CLAIMS } from '@crumbproof/shared';
+import { CLAIM_LABELS, CLAIMS, type RecipeView, type ServedDeclaration } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
 import { Quantity } from '@/components/ui/quantity';
-import type { DeclarationView, RecipeView } from '../api/types';
+import { workedOutAt } from '@/components/ui/declaration-basis';
 import { formatDate } from '@/lib/format';
 
 export interface RecipeRow {
   recipe: RecipeView;
-  declaration: DeclarationView | undefined;
+  declaration: ServedDeclaration | undefined;
 }
 
 const column = dataTableColumns<RecipeRow>();
@@ -58,12 +58,27 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
           );
         },
       }),
+      column.display({
+        id: 'worked-out',
+        header: 'Declaration worked out',
+        cell: (info) => {
+          const { recipe, declaration } = info.row.original;
+          if (!declaration) return '';
+          const from = declaration.basis.items[0]?.revision;
+          return (
+            <Quantity>
+              {`${workedOutAt(declaration.basis.computedAt)}, from revision ${from}`}
+              {from !== recipe.revision ? ` (the recipe is now at revision ${recipe.revision})` : ''}
+            </Quantity>
+          );
+        },
+      }),
       column.accessor((row) => row.recipe.revision, { id: 'revision', header: 'Revision', meta: { numeric: true } }),
       column.accessor((row) => row.recipe.updatedAt, {
         id: 'updated',
         header: 'Updated',
         meta: { numeric: true },
-        cell: (info) => <Quantity>{formatDate(info.getValue())}</Quantity>,
+        cell: (info) => <Quantity>{formatDate(info.row.original.recipe.updatedAt)}</Quantity>,
       }),
     ],
     [declarationsReady],

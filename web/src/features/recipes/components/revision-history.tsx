@@ -1,18 +1,19 @@
-import { Box, Button, Spinner, Stack, Text } from '@chakra-ui/react';
+import { Box, Button, Text } from '@chakra-ui/react';
+import type { RecipeRevisionView } from '@crumbproof/shared';
 import { useState } from 'react';
 import { DeclarationDiffView } from '@/components/ui/declaration-diff-view';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import type { ItemLookup } from '@/components/ui/layer-path';
+import { Loading } from '@/components/ui/loading';
+import { Panel, type HeadingLevel } from '@/components/ui/panel';
 import { Quantity } from '@/components/ui/quantity';
 import { useRevisions } from '../api/get-revisions';
-import type { RecipeRevision } from '../api/types';
 import { formatDateTime } from '@/lib/format';
-import { PanelSection, type HeadingLevel } from './panel-section';
 
 /** How many revisions show before "Show earlier revisions". */
 export const REVISIONS_SHOWN = 3;
 
-function RevisionItem({ revision, lookup, oldest }: { revision: RecipeRevision; lookup: ItemLookup; oldest: boolean }) {
+function RevisionItem({ revision, lookup, oldest }: { revision: RecipeRevisionView; lookup: ItemLookup; oldest: boolean }) {
   return (
     <Box as="li" borderTopWidth="1px" borderColor="border.subtle" pt="3">
       <Text>
@@ -48,12 +49,9 @@ export function RevisionHistory({ code, lookup, level = 'h2' }: RevisionHistoryP
   const [showAll, setShowAll] = useState(false);
 
   return (
-    <PanelSection title="Revision history" level={level}>
+    <Panel title="Revision history" level={level}>
       {revisions.isPending ? (
-        <Stack role="status" direction="row" align="center" gap="3">
-          <Spinner color="accent.solid" size="sm" />
-          <Text>Loading revisions…</Text>
-        </Stack>
+        <Loading size="sm">Loading revisions…</Loading>
       ) : revisions.isError ? (
         <ErrorAlert title="The revision history could not be loaded">{revisions.error.message}</ErrorAlert>
       ) : revisions.data.length === 0 ? (
@@ -85,6 +83,6 @@ export function RevisionHistory({ code, lookup, level = 'h2' }: RevisionHistoryP
           ) : null}
         </>
       )}
-    </PanelSection>
+    </Panel>
   );
 }

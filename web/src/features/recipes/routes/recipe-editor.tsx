@@ -1,16 +1,15 @@
-import { KITCHEN_WRITERS } from '@crumbproof/shared';
+import { KITCHEN_WRITERS, type RecipeView } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import type { ComboboxOption } from '@/components/ui/item-combobox';
+import { buildItemLookup } from '@/components/ui/item-lookup';
+import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { RoleRequired } from '@/components/ui/role-required';
 import { useIngredients } from '@/api/ingredients';
 import { useRecipe } from '../api/get-recipe';
 import { useRecipes } from '@/api/recipes';
-import type { RecipeView } from '../api/types';
-import { buildLookup } from '../components/item-index';
-import { Loading } from '../components/loading';
 import { RecipeEditorForm } from '../components/recipe-editor-form';
 import type { SavedState } from './recipe';
 
@@ -29,7 +28,7 @@ function useLineChoices(exclude: string | null) {
     }));
     return [...fromIngredients, ...fromRecipes].sort((a, b) => a.label.localeCompare(b.label));
   }, [recipes.data, ingredients.data, exclude]);
-  const lookup = useMemo(() => buildLookup({ recipes: recipes.data, ingredients: ingredients.data }), [recipes.data, ingredients.data]);
+  const lookup = useMemo(() => buildItemLookup({ recipes: recipes.data, ingredients: ingredients.data }), [recipes.data, ingredients.data]);
   const problem = recipes.error ?? ingredients.error ?? null;
   return { options, lookup, problem };
 }

@@ -212,3 +212,61 @@ describe('Product page: writers and readers', () => {
     expect(within(path).getByText('Butter')).toBeInTheDocument();
   });
 });
+
+describe('Product page: what the declaration was worked out from', () => {
+  function basisNote() {
+    return screen.findByRole('note', { name: 'What this declaration was worked out from' });
+  }
+
+  it('says when it was worked out and from which revisions, in one line above the declaration', async () => {
+    const today = new Date();
+    today.setHours(10, 42, 0, 0);
+    const served = declarationFor();
+    productApi('manager', { ...served, basis: { ...served.basis, computedAt: today.toISOString() } });
+    renderApp('/recipes/victoria-sponge');
+
+    const note = await basisNote();
+    expect(note).toHaveTextContent(
+      'Worked out 10:42 from revision 4 of this recipe, 1 sub-recipe and 4 ingredients at their current revisions, with version 3 of the kitchen settings.',
+    );
+    expect(within(note).getByText('10:42')).toHaveAttribute('datetime', today.toISOString());
+  });
+
+  it('gives the day as well when it was worked out on an earlier day', async () => {
+    const served = declarationFor();
+    productApi('manager', { ...served, basis: { ...served.basis, computedAt: new Date(2026, 10, 28, 9, 5).toISOString() } });
+    renderApp('/recipes/victoria-sponge');
+
+    expect(await basisNote()).toHaveTextContent(/^Worked out 28 Nov 2026, 09:05 from revision 4 of this recipe/);
+  });
+
+  it('lists every sub-recipe and ingredient with its revision, each opening its page', async () => {
+    productApi('manager');
+    const { user } = renderApp('/recipes/victoria-sponge');
+
+    const note = await basisNote();
+    await user.click(within(note).getByText('The revisions it used'));
+    const items = within(note)
+      .getAllByRole('listitem')
+      .map((item) => item.textContent);
+    expect(items).toEqual([
+      'Vanilla sponge, sub-recipe: revision 2',
+      'Plain wheat flour, ingredient: revision 1',
+      'Butter, ingredient: revision 1',
+      'Free-range eggs, ingredient: revision 1',
+      'Raspberry jam, ingredient: revision 1',
+    ]);
+    expect(within(note).getByRole('link', { name: 'Vanilla sponge' })).toHaveAttribute('href', '/recipes/vanilla-sponge');
+    expect(within(note).getByRole('link', { name: 'Butter' })).toHaveAttribute('href', '/ingredients/butter');
+  });
+
+  it('names the ingredients without a link for front of house, who cannot open ingredient pages', async () => {
+    productApi('front-of-house');
+    renderApp('/recipes/victoria-sponge');
+
+    const note = await basisNote();
+    expect(within(note).getByRole('link', { name: 'Vanilla sponge' })).toBeInTheDocument();
+    expect(within(note).queryByRole('link', { name: 'Butter' })).not.toBeInTheDocument();
+    expect(within(note).getByText('Butter')).toBeInTheDocument();
+  });
+});

@@ -1,21 +1,22 @@
-import { Box, Link, Stack, Text } from '@chakra-ui/react';
-import { ActionLink } from '../components/action-link';
+import { Link, Stack, Text } from '@chakra-ui/react';
 import { KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink, useLocation, useParams, useSearchParams } from 'react-router-dom';
+import { useRecipes } from '@/api/recipes';
+import { DeclarationBasisLine } from '@/components/ui/declaration-basis';
 import { ErrorAlert } from '@/components/ui/error-alert';
+import { buildItemLookup } from '@/components/ui/item-lookup';
 import { LayerPathLinks } from '@/components/ui/layer-path';
+import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
+import { formatDate } from '@/lib/format';
 import { useSignedInUser } from '@/lib/signed-in-user';
 import { useDeclaration } from '../api/get-declaration';
 import { isRegime, useKitchenRegime } from '../api/get-kitchen-regime';
 import { useRecipe } from '../api/get-recipe';
-import { useRecipes } from '@/api/recipes';
+import { ActionLink } from '../components/action-link';
 import { DeclarationPanel } from '../components/declaration-panel';
-import { formatDate } from '@/lib/format';
-import { buildLookup } from '../components/item-index';
-import { Loading } from '../components/loading';
 import { NutritionPanel } from '../components/nutrition-panel';
 import { RegimeSelect } from '../components/regime-select';
 import { RevisionHistory } from '../components/revision-history';
@@ -40,7 +41,10 @@ export function RecipeRoute() {
   const recipe = useRecipe(code);
   const recipes = useRecipes();
   const declaration = useDeclaration(code, regime, { enabled: isRegime(asked) || !kitchen.isPending });
-  const lookup = useMemo(() => buildLookup({ recipes: recipes.data, declarations: [declaration.data] }), [recipes.data, declaration.data]);
+  const lookup = useMemo(
+    () => buildItemLookup({ recipes: recipes.data, declarations: [declaration.data] }),
+    [recipes.data, declaration.data],
+  );
 
   function handleRegime(next: Regime) {
     setSearch(
@@ -90,15 +94,14 @@ export function RecipeRoute() {
       ) : declaration.isError ? (
         <ErrorAlert title="The declaration could not be computed">{declaration.error.message}</ErrorAlert>
       ) : (
-        <Box opacity={declaration.isPlaceholderData ? 0.6 : 1} aria-busy={declaration.isPlaceholderData || undefined}>
-          {/* Front of house cannot open ingredient pages: those bars are drawn without a link. */}
-          <LayerPathLinks canOpen={(href) => writer || !href.startsWith('/ingredients/')}>
-            <Stack gap="4">
-              <DeclarationPanel declaration={declaration.data} lookup={lookup} />
-              <NutritionPanel nutrition={declaration.data.nutrition} />
-            </Stack>
-          </LayerPathLinks>
-        </Box>
+        // Front of house cannot open ingredient pages: those bars and names are drawn without a link.
+        <LayerPathLinks canOpen={(href) => writer || !href.startsWith('/ingredients/')}>
+          <Stack gap="4">
+            <DeclarationBasisLine basis={declaration.data.basis} />
+            <DeclarationPanel declaration={declaration.data} lookup={lookup} />
+            <NutritionPanel nutrition={declaration.data.nutrition} />
+          </Stack>
+        </LayerPathLinks>
       )}
       {writer ? <RevisionHistory code={data.id} lookup={lookup} /> : null}
     </Page>

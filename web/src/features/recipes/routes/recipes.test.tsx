@@ -16,7 +16,7 @@ function listApi(role: 'manager' | 'front-of-house') {
 }
 
 describe('Recipes list', () => {
-  it('lists recipes and products with kind, claims held, errors, revision and date', async () => {
+  it('lists recipes and products with kind, claims held, errors, when each declaration was worked out, revision and date', async () => {
     listApi('manager');
     renderApp('/recipes');
 
@@ -26,7 +26,7 @@ describe('Recipes list', () => {
       within(table)
         .getAllByRole('columnheader')
         .map((h) => h.textContent),
-    ).toEqual(['Name', 'Kind', 'Claims held', 'Errors', 'Revision', 'Updated']);
+    ).toEqual(['Name', 'Kind', 'Claims held', 'Errors', 'Declaration worked out', 'Revision', 'Updated']);
     const product = within(table).getByRole('link', { name: 'Victoria sponge' });
     expect(product).toHaveAttribute('href', '/recipes/victoria-sponge');
     const row = product.closest('tr')!;
@@ -34,12 +34,31 @@ describe('Recipes list', () => {
     expect(within(row).getByText('1 error: labels blocked')).toBeInTheDocument();
     expect(within(row).getByText('For sale')).toBeInTheDocument();
     expect(within(row).getByText('28 Nov 2026')).toBeInTheDocument();
+    expect(within(row).getByText('28 Nov 2026, 10:42, from revision 4')).toBeInTheDocument();
 
     const sub = within(table).getByRole('link', { name: 'Vanilla sponge' }).closest('tr')!;
     expect(within(sub).getByText('Sub-recipe')).toBeInTheDocument();
 
     expect(screen.getByRole('link', { name: 'New recipe' })).toHaveAttribute('href', '/recipes/new');
     expect(screen.getByRole('link', { name: 'Swap check' })).toHaveAttribute('href', '/recipes/swap');
+  });
+
+  it('says so when a declaration was worked out from an earlier revision than the one listed', async () => {
+    const served = declarationFor();
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/recipes': { body: RECIPES },
+        'GET /api/declarations': {
+          body: [
+            { ...served, basis: { ...served.basis, items: [{ ...served.basis.items[0]!, revision: 3 }, ...served.basis.items.slice(1)] } },
+          ],
+        },
+      }),
+    );
+    renderApp('/recipes');
+
+    const row = (await screen.findByRole('link', { name: 'Victoria sponge' })).closest('tr')!;
+    expect(await within(row).findByText('28 Nov 2026, 10:42, from revision 3 (the recipe is now at revision 4)')).toBeInTheDocument();
   });
 
   it('filters by the search box', async () => {

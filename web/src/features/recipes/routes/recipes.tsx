@@ -1,15 +1,16 @@
-import { Button, HStack, Stack } from '@chakra-ui/react';
+import { HStack, Stack } from '@chakra-ui/react';
 import { KITCHEN_WRITERS } from '@crumbproof/shared';
 import { useMemo, useState } from 'react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
+import { LoadFailed } from '@/components/ui/load-failed';
+import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { useSignedInUser } from '@/lib/signed-in-user';
 import { useDeclarations } from '../api/get-declarations';
 import { useKitchenRegime } from '../api/get-kitchen-regime';
 import { useRecipes } from '@/api/recipes';
 import { ActionLink } from '../components/action-link';
-import { Loading } from '../components/loading';
 import { RecipesTable, type RecipeRow } from '../components/recipes-table';
 
 export function RecipesRoute() {
@@ -52,12 +53,7 @@ export function RecipesRoute() {
       {recipes.isPending ? (
         <Loading>Loading recipes…</Loading>
       ) : recipes.isError ? (
-        <Stack gap="3">
-          <ErrorAlert title="The recipes could not be loaded">{recipes.error.message}</ErrorAlert>
-          <Button alignSelf="flex-start" size="lg" variant="outline" onClick={() => void recipes.refetch()}>
-            Try again
-          </Button>
-        </Stack>
+        <LoadFailed title="The recipes could not be loaded" error={recipes.error} onRetry={() => void recipes.refetch()} />
       ) : (
         <RecipesTable
           rows={rows}

@@ -1,5 +1,14 @@
-import { CLAIMS, type Claim, type ClaimResult, type Declaration, type NutritionDeclaration } from '@crumbproof/shared';
-import type { DeclarationView, IngredientView, RecipeRevision, RecipeView } from '../api/types';
+import {
+  CLAIMS,
+  type Declaration,
+  type DeclarationBasis,
+  type IngredientView,
+  type NutritionDeclaration,
+  type RecipeRevisionView,
+  type RecipeView,
+  type ServedDeclaration,
+} from '@crumbproof/shared';
+import { BUTTER, claimsWith, EGGS, FLOUR, JAM, PLANT_SPREAD } from '@/testing/kitchen';
 
 /** A small kitchen for the recipe screens: a product for sale built on a sub-recipe. */
 export const RECIPES: RecipeView[] = [
@@ -29,56 +38,7 @@ export const RECIPES: RecipeView[] = [
   },
 ];
 
-export const INGREDIENTS: IngredientView[] = [
-  {
-    id: 'flour',
-    name: 'Plain wheat flour',
-    contains: ['wheat'],
-    mayContain: [],
-    vegan: true,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-  {
-    id: 'butter',
-    name: 'Butter',
-    contains: ['milk'],
-    mayContain: [],
-    vegan: false,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-  {
-    id: 'eggs',
-    name: 'Free-range eggs',
-    contains: ['egg'],
-    mayContain: [],
-    vegan: false,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-  { id: 'jam', name: 'Raspberry jam', mayContain: [], vegan: true, vegetarian: true, revision: 1, updatedAt: '2026-11-01T10:00:00.000Z' },
-  {
-    id: 'plant-spread',
-    name: 'Plant spread',
-    contains: [],
-    mayContain: ['milk'],
-    vegan: true,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-];
-
-function claims(overrides: Partial<Record<Claim, ClaimResult>>): Record<Claim, ClaimResult> {
-  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<
-    Claim,
-    ClaimResult
-  >;
-}
+export const INGREDIENTS: IngredientView[] = [FLOUR, BUTTER, EGGS, JAM, PLANT_SPREAD];
 
 export const NUTRITION: NutritionDeclaration = {
   recipeId: 'victoria-sponge',
@@ -153,7 +113,23 @@ export const NUTRITION: NutritionDeclaration = {
   },
 };
 
-export function declarationFor(overrides: Partial<DeclarationView> = {}): DeclarationView {
+/** Worked out from revision 4 of the product, its sub-recipe and four ingredients, under version 3 of the settings. */
+export const BASIS: DeclarationBasis = {
+  // 10:42 on 28 November 2026 wherever the tests run.
+  computedAt: new Date(2026, 10, 28, 10, 42).toISOString(),
+  regime: 'UK',
+  items: [
+    { id: 'victoria-sponge', kind: 'recipe', name: 'Victoria sponge', revision: 4 },
+    { id: 'vanilla-sponge', kind: 'recipe', name: 'Vanilla sponge', revision: 2 },
+    { id: 'flour', kind: 'ingredient', name: 'Plain wheat flour', revision: 1 },
+    { id: 'butter', kind: 'ingredient', name: 'Butter', revision: 1 },
+    { id: 'eggs', kind: 'ingredient', name: 'Free-range eggs', revision: 1 },
+    { id: 'jam', kind: 'ingredient', name: 'Raspberry jam', revision: 1 },
+  ],
+  siteVersion: 3,
+};
+
+export function declarationFor(overrides: Partial<ServedDeclaration> = {}): ServedDeclaration {
   const base: Declaration = {
     product: 'victoria-sponge',
     name: 'Victoria sponge',
@@ -177,7 +153,7 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
     mayContain: [{ allergen: 'sesame', label: 'sesame', why: ['Shared equipment in this kitchen: sesame is handled here.'] }],
     unknown: [{ ingredient: 'jam', name: 'Raspberry jam', via: [['victoria-sponge', 'jam']] }],
     exempt: [],
-    claims: claims({
+    claims: claimsWith({
       vegan: {
         status: 'fails',
         reasons: [{ leaf: 'butter', path: ['victoria-sponge', 'vanilla-sponge', 'butter'], message: 'Butter contains milk.' }],
@@ -275,10 +251,10 @@ export function declarationFor(overrides: Partial<DeclarationView> = {}): Declar
     warnings: [{ code: 'allergens-unknown', message: 'Raspberry jam has no allergen statement.', ingredient: 'jam' }],
     errors: [],
   };
-  return { ...base, nutrition: NUTRITION, ...overrides };
+  return { ...base, nutrition: NUTRITION, basis: BASIS, ...overrides };
 }
 
-export const REVISIONS: RecipeRevision[] = [4, 3, 2, 1].map((revision) => ({
+export const REVISIONS: RecipeRevisionView[] = [4, 3, 2, 1].map((revision) => ({
   revision,
   note: revision === 4 ? 'Swapped Margarine for Butter' : revision === 1 ? 'Created' : 'Edited',
   authorId: revision % 2 === 0 ? 2 : 1,

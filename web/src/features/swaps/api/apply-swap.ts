@@ -1,6 +1,8 @@
+import type { SwapApplied, SwapRequest } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
+import { mutationKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { SwapApplied, SwapRequest } from './types';
 
 /** Writes a new revision of every changed recipe, all or nothing. */
 export async function applySwap(request: SwapRequest): Promise<SwapApplied> {
@@ -8,17 +10,13 @@ export async function applySwap(request: SwapRequest): Promise<SwapApplied> {
 }
 
 export function applySwapMutationOptions() {
-  return mutationOptions({ mutationKey: ['swaps', 'apply'], mutationFn: applySwap });
+  return mutationOptions({ mutationKey: mutationKeys.applySwap(), mutationFn: applySwap });
 }
 
 export function useApplySwap() {
   const queryClient = useQueryClient();
   return useMutation({
     ...applySwapMutationOptions(),
-    onSuccess: () => {
-      // Every recipe, its declaration and history live under ['recipes']; product declarations under ['declarations'].
-      void queryClient.invalidateQueries({ queryKey: ['recipes'] });
-      void queryClient.invalidateQueries({ queryKey: ['declarations'] });
-    },
+    onSettled: (_applied, error) => refreshAfterKitchenWrite(queryClient, { error }),
   });
 }

@@ -1,6 +1,7 @@
+import type { SwapPreview, SwapRequest } from '@crumbproof/shared';
 import { mutationOptions, useMutation } from '@tanstack/react-query';
+import { mutationKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
-import type { SwapPreview, SwapRequest } from './types';
 
 /** What every affected product would declare after the swap. Nothing is saved. */
 export async function previewSwap(request: SwapRequest): Promise<SwapPreview> {
@@ -8,7 +9,7 @@ export async function previewSwap(request: SwapRequest): Promise<SwapPreview> {
 }
 
 export function previewSwapMutationOptions() {
-  return mutationOptions({ mutationKey: ['swaps', 'preview'], mutationFn: previewSwap });
+  return mutationOptions({ mutationKey: mutationKeys.previewSwap(), mutationFn: previewSwap });
 }
 
 export function usePreviewSwap() {

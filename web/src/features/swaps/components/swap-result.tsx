@@ -1,15 +1,16 @@
-import { Box, Heading, Link, Stack, Text } from '@chakra-ui/react';
-import { useId } from 'react';
+import { Box, Heading, Link, Text } from '@chakra-ui/react';
+import type { SwapPreview } from '@crumbproof/shared';
+import type { ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { DeclarationDiffView } from '@/components/ui/declaration-diff-view';
 import { hrefFor, type ItemLookup } from '@/components/ui/layer-path';
-import type { SwapPreview } from '../api/types';
+import { Panel } from '@/components/ui/panel';
 
 interface SwapResultProps {
   preview: SwapPreview;
   lookup: ItemLookup;
   /** The apply button and its confirmation, under the products. */
-  children?: React.ReactNode;
+  children?: ReactNode;
 }
 
 function plural(n: number, one: string, many: string) {
@@ -18,58 +19,44 @@ function plural(n: number, one: string, many: string) {
 
 /** For every product the swap reaches: what its declaration would gain, lose and keep. */
 export function SwapResult({ preview, lookup, children }: SwapResultProps) {
-  const headingId = useId();
   const { from, to, recipes, products } = preview;
   return (
-    <Box
-      as="section"
-      aria-labelledby={headingId}
-      bg="bg.panel"
-      borderWidth="1px"
-      borderColor="border.muted"
-      rounded="md"
-      p={{ base: '4', md: '6' }}
-    >
-      <Stack gap="4">
-        <Heading as="h2" size="lg" id={headingId}>
-          Swap result
-        </Heading>
-        <Text>
-          {`Replacing ${from.name} with ${to.name} changes ${plural(recipes.length, 'recipe', 'recipes')}: `}
-          {recipes.map((recipe, index) => (
-            <span key={recipe.id}>
-              {index > 0 ? ', ' : ''}
-              <Link asChild color="accent.fg" fontWeight="bold">
-                <RouterLink to={hrefFor(recipe.id, 'recipe')}>{recipe.name}</RouterLink>
+    <Panel title="Swap result">
+      <Text>
+        {`Replacing ${from.name} with ${to.name} changes ${plural(recipes.length, 'recipe', 'recipes')}: `}
+        {recipes.map((recipe, index) => (
+          <span key={recipe.id}>
+            {index > 0 ? ', ' : ''}
+            <Link asChild color="accent.fg" fontWeight="bold">
+              <RouterLink to={hrefFor(recipe.id, 'recipe')}>{recipe.name}</RouterLink>
+            </Link>
+            {` (${plural(recipe.lines, 'line', 'lines')})`}
+          </span>
+        ))}
+        {`. ${plural(products.length, 'product is', 'products are')} affected.`}
+      </Text>
+      {products.length === 0 ? <Text color="fg.muted">No product for sale uses these recipes, so no label changes.</Text> : null}
+      <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="4">
+        {products.map((product) => (
+          <Box
+            as="li"
+            key={product.product}
+            borderTopWidth="1px"
+            borderColor="border.subtle"
+            pt="4"
+            data-changed={product.diff.changed ? 'true' : 'false'}
+            _motionSafe={{ animation: 'fade-in 240ms ease-out' }}
+          >
+            <Heading as="h3" size="md" mb="2">
+              <Link asChild color="accent.fg">
+                <RouterLink to={hrefFor(product.product, 'recipe')}>{product.name}</RouterLink>
               </Link>
-              {` (${plural(recipe.lines, 'line', 'lines')})`}
-            </span>
-          ))}
-          {`. ${plural(products.length, 'product is', 'products are')} affected.`}
-        </Text>
-        {products.length === 0 ? <Text color="fg.muted">No product for sale uses these recipes, so no label changes.</Text> : null}
-        <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="4">
-          {products.map((product) => (
-            <Box
-              as="li"
-              key={product.product}
-              borderTopWidth="1px"
-              borderColor="border.subtle"
-              pt="4"
-              data-changed={product.diff.changed ? 'true' : 'false'}
-              _motionSafe={{ animation: 'fade-in 240ms ease-out' }}
-            >
-              <Heading as="h3" size="md" mb="2">
-                <Link asChild color="accent.fg">
-                  <RouterLink to={hrefFor(product.product, 'recipe')}>{product.name}</RouterLink>
-                </Link>
-              </Heading>
-              <DeclarationDiffView diff={product.diff} lookup={lookup} claims="all" showReasons />
-            </Box>
-          ))}
-        </Box>
-        {children}
-      </Stack>
-    </Box>
+            </Heading>
+            <DeclarationDiffView diff={product.diff} lookup={lookup} claims="all" showReasons />
+          </Box>
+        ))}
+      </Box>
+      {children}
+    </Panel>
   );
 }

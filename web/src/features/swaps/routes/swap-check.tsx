@@ -1,5 +1,5 @@
 import { Box, Button, HStack, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { KITCHEN_WRITERS } from '@crumbproof/shared';
+import { KITCHEN_WRITERS, type SwapApplied, type SwapPreview, type SwapRequest } from '@crumbproof/shared';
 import { useEffect, useId, useMemo, useRef, useState, type FormEvent } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -13,7 +13,6 @@ import { isApiError } from '@/lib/api-client';
 import { useApplySwap } from '../api/apply-swap';
 import { useSwapChoices } from '../api/get-swap-choices';
 import { usePreviewSwap } from '../api/preview-swap';
-import type { SwapApplied, SwapPreview, SwapRequest } from '../api/types';
 import { SwapResult } from '../components/swap-result';
 
 const EVERYWHERE = '';
@@ -63,11 +62,16 @@ function SwapCheck() {
     [recipes.data, ingredients.data, checked],
   );
 
-  // A result answers one question; changing the question clears it.
-  useEffect(() => {
+  /** A result answers one question; changing the question clears it. */
+  function ask(next: { from?: string; to?: string; where?: string }) {
+    const question = { from, to, where, ...next };
+    if (question.from === from && question.to === to && question.where === where) return;
+    setFrom(question.from);
+    setTo(question.to);
+    setWhere(question.where);
     setChecked(null);
     setConfirming(false);
-  }, [from, to, where]);
+  }
 
   useEffect(() => {
     if (confirming) confirmRef.current?.focus();
@@ -117,18 +121,15 @@ function SwapCheck() {
               <ItemCombobox
                 options={options}
                 value={from}
-                onChange={(next) => {
-                  setFrom(next);
-                  // The scope lists recipes that use the ingredient replaced; a new one starts from everywhere.
-                  setWhere(EVERYWHERE);
-                }}
+                // The scope lists recipes that use the ingredient replaced; a new one starts from everywhere.
+                onChange={(next) => ask(next === from ? {} : { from: next, where: EVERYWHERE })}
               />
             </FormField>
             <FormField label="With" error={fieldMessage(preview.error, 'to')}>
-              <ItemCombobox options={options} value={to} onChange={setTo} />
+              <ItemCombobox options={options} value={to} onChange={(next) => ask({ to: next })} />
             </FormField>
             <FormField label="Where" error={fieldMessage(preview.error, 'recipe')}>
-              <SelectInput options={whereOptions} value={where} onChange={(event) => setWhere(event.currentTarget.value)} />
+              <SelectInput options={whereOptions} value={where} onChange={(event) => ask({ where: event.currentTarget.value })} />
             </FormField>
           </SimpleGrid>
           <Button

@@ -1,5 +1,5 @@
-import { CLAIMS, diffDeclarations, type Claim, type ClaimResult, type Declaration } from '@crumbproof/shared';
-import type { IngredientView, RecipeView, SwapPreview } from '../api/types';
+import { diffDeclarations, type Declaration, type IngredientView, type RecipeView, type SwapPreview } from '@crumbproof/shared';
+import { BUTTER, claimsWith, FLOUR, PLANT_SPREAD } from '@/testing/kitchen';
 
 export const RECIPES: RecipeView[] = [
   {
@@ -23,45 +23,7 @@ export const RECIPES: RecipeView[] = [
   },
 ];
 
-export const INGREDIENTS: IngredientView[] = [
-  {
-    id: 'flour',
-    name: 'Plain wheat flour',
-    contains: ['wheat'],
-    mayContain: [],
-    vegan: true,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-  {
-    id: 'butter',
-    name: 'Butter',
-    contains: ['milk'],
-    mayContain: [],
-    vegan: false,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-  {
-    id: 'plant-spread',
-    name: 'Plant spread',
-    contains: [],
-    mayContain: ['milk'],
-    vegan: true,
-    vegetarian: true,
-    revision: 1,
-    updatedAt: '2026-11-01T10:00:00.000Z',
-  },
-];
-
-function claims(overrides: Partial<Record<Claim, ClaimResult>>): Record<Claim, ClaimResult> {
-  return Object.fromEntries(CLAIMS.map((claim) => [claim, overrides[claim] ?? { status: 'ok', reasons: [] }])) as Record<
-    Claim,
-    ClaimResult
-  >;
-}
+export const INGREDIENTS: IngredientView[] = [FLOUR, BUTTER, PLANT_SPREAD];
 
 function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
   const fat = leaf === 'butter' ? 'Butter' : 'Plant spread';
@@ -79,7 +41,7 @@ function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
     mayContain: leaf === 'butter' ? [] : [{ allergen: 'milk', label: 'milk', why: ['Supplier of Plant spread: may contain milk'] }],
     unknown: [],
     exempt: [],
-    claims: claims(
+    claims: claimsWith(
       leaf === 'butter'
         ? {
             vegan: { status: 'fails', reasons: [{ leaf: 'butter', path: ['shortbread', 'butter'], message: 'Butter contains milk.' }] },

@@ -1,7 +1,7 @@
 import { userSchema, type UpdateUserRequest, type User } from '@crumbproof/shared';
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
-import { usersQueryKey } from './get-users';
+import { mutationKeys, queryKeys } from '@/api/query-keys';
 
 export interface UpdateUserInput {
   id: number;
@@ -13,13 +13,13 @@ export async function updateUser({ id, changes }: UpdateUserInput): Promise<User
 }
 
 export function updateUserMutationOptions() {
-  return mutationOptions({ mutationKey: ['users', 'update'], mutationFn: updateUser });
+  return mutationOptions({ mutationKey: mutationKeys.updateUser(), mutationFn: updateUser });
 }
 
 export function useUpdateUser() {
   const queryClient = useQueryClient();
   return useMutation({
     ...updateUserMutationOptions(),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: usersQueryKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.users() }),
   });
 }

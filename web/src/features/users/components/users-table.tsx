@@ -52,7 +52,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: Us
               aria-label={`Role for ${user.name}`}
               minW="44"
               options={ROLE_OPTIONS}
-              value={info.getValue()}
+              value={user.role}
               disabled={user.id === currentUserId || pendingUserId === user.id}
               onChange={(event) => onUpdate({ id: user.id, changes: { role: event.currentTarget.value as Role } })}
             />
@@ -74,7 +74,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: Us
       }),
       column.accessor('createdAt', {
         header: 'Created',
-        cell: (info) => <Quantity>{formatDate(info.getValue())}</Quantity>,
+        cell: (info) => <Quantity>{formatDate(info.row.original.createdAt)}</Quantity>,
       }),
       column.display({
         id: 'actions',

@@ -1,5 +1,6 @@
-import { Button, Spinner, Stack, Text } from '@chakra-ui/react';
 import { ErrorAlert } from '@/components/ui/error-alert';
+import { LoadFailed } from '@/components/ui/load-failed';
+import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { useSignedInUser } from '@/lib/signed-in-user';
 import { useUpdateUser } from '../api/update-user';
@@ -16,17 +17,9 @@ export function UsersRoute() {
     <Page title="Users" lead="Who can sign in to this kitchen, and what each person may do.">
       {updateUser.isError ? <ErrorAlert title="That change was not saved">{updateUser.error.message}</ErrorAlert> : null}
       {users.isPending ? (
-        <Stack role="status" direction="row" align="center" gap="3">
-          <Spinner color="accent.solid" />
-          <Text>Loading users…</Text>
-        </Stack>
+        <Loading>Loading users…</Loading>
       ) : users.isError ? (
-        <Stack gap="3">
-          <ErrorAlert title="The list of users could not be loaded">{users.error.message}</ErrorAlert>
-          <Button alignSelf="flex-start" size="lg" variant="outline" onClick={() => void users.refetch()}>
-            Try again
-          </Button>
-        </Stack>
+        <LoadFailed title="The list of users could not be loaded" error={users.error} onRetry={() => void users.refetch()} />
       ) : (
         <UsersTable
           users={users.data}

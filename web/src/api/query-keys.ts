@@ -1,0 +1,83 @@
+import type { AllergenSource, BookRecipe, CompositionScanRequest, Regime } from '@crumbproof/shared';
+
+/** What the ingredient library asks the API to narrow the list by (`GET /api/ingredients?q=&source=`). */
+export interface IngredientSearch {
+  q?: string;
+  source?: AllergenSource;
+}
+
+/** A declaration asked for without a regime is the kitchen's own. */
+const regimeKey = (regime: Regime | undefined) => regime ?? 'kitchen';
+
+/**
+ * Every query key of the web app, in one place, so a key never drifts between the query that
+ * fills the cache and the write that refreshes it. Keys are grouped under roots: everything that
+ * depends on the kitchen's recorded data sits under one of `KITCHEN_DATA_ROOTS`.
+ */
+export const queryKeys = {
+  me: () => ['me'] as const,
+  users: () => ['users'] as const,
+  /** Reference data: the same for every kitchen, changed only by a new release. */
+  reference: {
+    nutrients: () => ['reference', 'nutrients'] as const,
+    compositionScan: (request: CompositionScanRequest) => ['reference', 'composition-scan', request] as const,
+  },
+  kitchen: () => ['kitchen'] as const,
+  ingredients: {
+    all: () => ['ingredients'] as const,
+    /** The whole library (no search), or the API's matches for a search. */
+    list: (search: IngredientSearch = {}) => ['ingredients', 'list', search] as const,
+    one: (code: string) => ['ingredients', 'one', code] as const,
+    revisions: (code: string) => ['ingredients', 'one', code, 'revisions'] as const,
+    usedIn: (code: string) => ['ingredients', 'one', code, 'used-in'] as const,
+    specifications: (code: string) => ['ingredients', 'one', code, 'specifications'] as const,
+  },
+  specifications: {
+    all: () => ['specifications'] as const,
+    status: () => ['specifications', 'status'] as const,
+  },
+  recipes: {
+    all: () => ['recipes'] as const,
+    list: () => ['recipes', 'list'] as const,
+    one: (code: string) => ['recipes', 'one', code] as const,
+    revisions: (code: string) => ['recipes', 'one', code, 'revisions'] as const,
+  },
+  declarations: {
+    all: () => ['declarations'] as const,
+    /** One product's served declaration. */
+    product: (code: string, regime: Regime | undefined) => ['declarations', 'product', code, regimeKey(regime)] as const,
+    /** Every product for sale, served. */
+    products: (regime: Regime | undefined) => ['declarations', 'products', regimeKey(regime)] as const,
+    /** The recipe as typed in the editor, declared without saving. */
+    preview: (recipe: BookRecipe | null, regime: Regime | undefined) => ['declarations', 'preview', regimeKey(regime), recipe] as const,
+  },
+} as const;
+
+/**
+ * The roots of every answer that a write to the kitchen's data (an ingredient, a recipe, an
+ * import, a swap, a specification, the kitchen's settings) can change.
+ */
+export const KITCHEN_DATA_ROOTS = [
+  queryKeys.kitchen(),
+  queryKeys.ingredients.all(),
+  queryKeys.specifications.all(),
+  queryKeys.recipes.all(),
+  queryKeys.declarations.all(),
+] as const;
+
+/** Mutation keys, named like the queries they change. */
+export const mutationKeys = {
+  signIn: () => ['auth', 'sign-in'] as const,
+  signOut: () => ['auth', 'sign-out'] as const,
+  createUser: () => ['users', 'create'] as const,
+  updateUser: () => ['users', 'update'] as const,
+  updateKitchen: () => ['kitchen', 'update'] as const,
+  createIngredient: () => ['ingredients', 'create'] as const,
+  updateIngredient: () => ['ingredients', 'update'] as const,
+  previewImport: () => ['ingredients', 'import', 'preview'] as const,
+  importIngredients: () => ['ingredients', 'import'] as const,
+  uploadSpecification: () => ['specifications', 'upload'] as const,
+  saveRecipe: () => ['recipes', 'save'] as const,
+  previewSwap: () => ['swaps', 'preview'] as const,
+  applySwap: () => ['swaps', 'apply'] as const,
+} as const;

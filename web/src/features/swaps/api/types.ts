@@ -1,1 +1,0 @@
-export type { IngredientView, RecipeView, SwapApplied, SwapPreview, SwapProduct, SwapRequest } from '@crumbproof/shared';
