@@ -150,7 +150,6 @@ export default defineConfig(
     // with the fix of its findings. rules-of-hooks stays on.
     files: ['web/src/**/*.{ts,tsx}'],
     rules: {
-      'react-hooks/incompatible-library': 'off',
       'react-hooks/set-state-in-effect': 'off',
       'react-hooks/exhaustive-deps': 'off',
       'react-hooks/preserve-manual-memoization': 'off',
