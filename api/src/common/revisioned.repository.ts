@@ -1,5 +1,5 @@
-import type { Transaction, WhereOptions } from 'sequelize';
-import type { Model, ModelCtor } from 'sequelize-typescript';
+import type { ModelStatic, Transaction, WhereOptions } from 'sequelize';
+import type { Model } from 'sequelize-typescript';
 import { AppError } from './app-error';
 import { parseJson } from './json-column';
 
@@ -43,8 +43,8 @@ export interface Current<B> {
  */
 export class RevisionedRepository<B extends { name: string }> {
   constructor(
-    private readonly heads: ModelCtor<Model & RevisionedRow>,
-    private readonly revisions: ModelCtor<Model & RevisionRow<B>>,
+    private readonly heads: ModelStatic<Model & RevisionedRow>,
+    private readonly revisions: ModelStatic<Model & RevisionRow<B>>,
     private readonly foreignKey: string,
   ) {}
 
