@@ -99,7 +99,7 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
       {label.note ? <Text>{label.note}</Text> : null}
       {label.eu || label.us ? (
         <SimpleGrid
-          minChildWidth="min(100%, 18rem)"
+          minChildWidth="min(100%, 24rem)"
           gap="4"
           alignItems="start"
           // Narrow columns (the editor's live panel) wrap names and headings instead of scrolling.
