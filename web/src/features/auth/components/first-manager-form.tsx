@@ -5,12 +5,10 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
-import { isApiError } from '@/lib/api-client';
+import { placeFieldErrors } from '@/lib/place-field-errors';
 import { useSetFirstManager } from '../api/set-first-manager';
 
 const FIELDS = ['name', 'email', 'password'] as const;
-type FieldName = (typeof FIELDS)[number];
-const isFieldName = (path: string): path is FieldName => (FIELDS as readonly string[]).includes(path);
 
 interface FirstManagerFormProps {
   token: string;
@@ -36,20 +34,7 @@ export function FirstManagerForm({ token, onSet }: FirstManagerFormProps) {
       { ...values, token },
       {
         onSuccess: onSet,
-        onError: (error) => {
-          if (!isApiError(error)) {
-            setFormError('The manager was not set. Try again in a moment.');
-            return;
-          }
-          let placed = false;
-          for (const field of error.fields) {
-            if (isFieldName(field.path)) {
-              setError(field.path, { message: field.message });
-              placed = true;
-            }
-          }
-          if (!placed) setFormError(error.message);
-        },
+        onError: (error) => setFormError(placeFieldErrors(error, FIELDS, setError, 'The manager was not set. Try again in a moment.')),
       },
     );
   }

@@ -5,7 +5,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
-import { isApiError } from '@/lib/api-client';
+import { placeFieldErrors } from '@/lib/place-field-errors';
 import { useSignIn } from '../api/sign-in';
 
 interface SignInFormProps {
@@ -29,20 +29,8 @@ export function SignInForm({ onSignedIn }: SignInFormProps) {
     setFormError(null);
     signIn.mutate(values, {
       onSuccess: onSignedIn,
-      onError: (error) => {
-        if (!isApiError(error)) {
-          setFormError('Signing in did not work. Try again in a moment.');
-          return;
-        }
-        let placed = false;
-        for (const field of error.fields) {
-          if (field.path === 'email' || field.path === 'password') {
-            setError(field.path, { message: field.message });
-            placed = true;
-          }
-        }
-        if (!placed) setFormError(error.message);
-      },
+      onError: (error) =>
+        setFormError(placeFieldErrors(error, ['email', 'password'], setError, 'Signing in did not work. Try again in a moment.')),
     });
   }
 

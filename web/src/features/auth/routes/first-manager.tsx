@@ -1,9 +1,9 @@
-import { Box, Heading, Link, Stack, Text } from '@chakra-ui/react';
+import { Link, Stack, Text } from '@chakra-ui/react';
 import type { Me } from '@crumbproof/shared';
 import { useEffect, useState } from 'react';
 import { Link as RouterLink, useLocation, useNavigate } from 'react-router-dom';
-import { BrandMark } from '@/components/ui/brand-mark';
 import { ErrorAlert } from '@/components/ui/error-alert';
+import { AuthCard } from '../components/auth-card';
 import { FirstManagerForm } from '../components/first-manager-form';
 
 /** Sets the first manager of a kitchen's own installation, with the one-time link its first start printed. */
@@ -24,32 +24,26 @@ export function FirstManagerRoute() {
   }, [location.hash, location.pathname, navigate]);
 
   return (
-    <Box w="full" maxW="md" mx="auto" bg="bg.panel" borderWidth="1px" borderColor="border.muted" rounded="lg" p={{ base: '6', md: '8' }}>
-      <Stack gap="6">
-        <Stack gap="3" align="flex-start">
-          <BrandMark size="40px" />
-          <Heading as="h1" size="2xl">
-            Set the first manager
-          </Heading>
-          <Text color="fg.muted">This kitchen has no manager yet. The manager adds everyone else and chooses what they may do.</Text>
+    <AuthCard
+      title="Set the first manager"
+      lead="This kitchen has no manager yet. The manager adds everyone else and chooses what they may do."
+    >
+      {manager ? (
+        <Stack gap="4" role="status">
+          <Text>
+            {manager.name} is the kitchen’s manager. Sign in with {manager.email} and the password you chose.
+          </Text>
+          <Link asChild fontWeight="bold">
+            <RouterLink to="/sign-in">Sign in</RouterLink>
+          </Link>
         </Stack>
-        {manager ? (
-          <Stack gap="4" role="status">
-            <Text>
-              {manager.name} is the kitchen’s manager. Sign in with {manager.email} and the password you chose.
-            </Text>
-            <Link asChild fontWeight="bold">
-              <RouterLink to="/sign-in">Sign in</RouterLink>
-            </Link>
-          </Stack>
-        ) : token ? (
-          <FirstManagerForm token={token} onSet={setManager} />
-        ) : (
-          <ErrorAlert>
-            Open the one-time link that Crumbproof printed when it started, with its whole address. Restart Crumbproof to print a new one.
-          </ErrorAlert>
-        )}
-      </Stack>
-    </Box>
+      ) : token ? (
+        <FirstManagerForm token={token} onSet={setManager} />
+      ) : (
+        <ErrorAlert>
+          Open the one-time link that Crumbproof printed when it started, with its whole address. Restart Crumbproof to print a new one.
+        </ErrorAlert>
+      )}
+    </AuthCard>
   );
 }

@@ -1,9 +1,8 @@
-import { Box, Heading, Stack, Text } from '@chakra-ui/react';
 import type { Me } from '@crumbproof/shared';
 import { useEffect } from 'react';
 import { Navigate, useLocation, useNavigate } from 'react-router-dom';
 import { useMe } from '../api/get-me';
-import { BrandMark } from '@/components/ui/brand-mark';
+import { AuthCard } from '../components/auth-card';
 import { SignInForm } from '../components/sign-in-form';
 
 interface SignInRouteProps {
@@ -37,17 +36,8 @@ export function SignInRoute({ homeFor }: SignInRouteProps) {
   if (me.data) return <Navigate to={wantedPath(location.state) ?? homeFor(me.data)} replace />;
 
   return (
-    <Box w="full" maxW="md" mx="auto" bg="bg.panel" borderWidth="1px" borderColor="border.muted" rounded="lg" p={{ base: '6', md: '8' }}>
-      <Stack gap="6">
-        <Stack gap="3" align="flex-start">
-          <BrandMark size="40px" />
-          <Heading as="h1" size="2xl">
-            Sign in to Crumbproof
-          </Heading>
-          <Text color="fg.muted">Use the email and password your kitchen manager gave you.</Text>
-        </Stack>
-        <SignInForm onSignedIn={handleSignedIn} />
-      </Stack>
-    </Box>
+    <AuthCard title="Sign in to Crumbproof" lead="Use the email and password your kitchen manager gave you.">
+      <SignInForm onSignedIn={handleSignedIn} />
+    </AuthCard>
   );
 }

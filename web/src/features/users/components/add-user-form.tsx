@@ -6,14 +6,10 @@ import { useForm } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
 import { isApiError } from '@/lib/api-client';
+import { placeFieldErrors } from '@/lib/place-field-errors';
 import { useCreateUser } from '../api/create-user';
 
 const FIELDS = ['name', 'email', 'role', 'password'] as const satisfies readonly (keyof CreateUserRequest)[];
-type FieldName = (typeof FIELDS)[number];
-
-function isFieldName(path: string): path is FieldName {
-  return (FIELDS as readonly string[]).includes(path);
-}
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
@@ -44,22 +40,12 @@ export function AddUserForm() {
         setAdded(`${user.name} can now sign in as ${ROLE_LABELS[user.role]}.`);
       },
       onError: (error) => {
-        if (!isApiError(error)) {
-          setFormError('The user was not added. Try again in a moment.');
-          return;
-        }
-        if (error.code === 'conflict') {
+        // A taken email is the email's problem, whatever the API names.
+        if (isApiError(error) && error.code === 'conflict') {
           setError('email', { message: error.message });
           return;
         }
-        let placed = false;
-        for (const field of error.fields) {
-          if (isFieldName(field.path)) {
-            setError(field.path, { message: field.message });
-            placed = true;
-          }
-        }
-        if (!placed) setFormError(error.message);
+        setFormError(placeFieldErrors(error, FIELDS, setError, 'The user was not added. Try again in a moment.'));
       },
     });
   }
