@@ -3,9 +3,15 @@ import { QueryClient, QueryClientProvider, QueryObserver } from '@tanstack/react
 import { act, renderHook, waitFor } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { describe, expect, it, vi } from 'vitest';
+import { useCreateIngredient } from '@/features/ingredients/api/create-ingredient';
+import { useImportIngredients } from '@/features/ingredients/api/import-ingredients';
 import { useUpdateIngredient } from '@/features/ingredients/api/update-ingredient';
+import { useUploadSpecification } from '@/features/ingredients/api/upload-specification';
+import { useUpdateKitchen } from '@/features/kitchen/api/update-kitchen';
 import { getDeclarationQueryOptions } from '@/features/recipes/api/get-declaration';
-import { requestUrl, type MockResponse } from '@/testing/mock-api';
+import { useSaveRecipe } from '@/features/recipes/api/save-recipe';
+import { useApplySwap } from '@/features/swaps/api/apply-swap';
+import { KITCHEN, mockApi, requestUrl, type MockResponse } from '@/testing/mock-api';
 import { queryKeys } from './query-keys';
 
 const SPELT: IngredientView = {
@@ -142,5 +148,78 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     // The form is built from it: kept, and marked to be read again.
     expect(queryClient.getQueryData(queryKeys.ingredients.one('spelt-flour'))).toEqual(SPELT);
     expect(queryClient.getQueryState(queryKeys.ingredients.one('spelt-flour'))?.isInvalidated).toBe(true);
+  });
+});
+
+describe('every write to the kitchen’s data refreshes the declarations and where items are used', () => {
+  /** What a test needs of each write's hook, whatever its input and answer. */
+  type Write = { mutate: (input: never) => void; isSuccess: boolean };
+  const file = new File(['id,name\n'], 'sheet.csv', { type: 'text/csv' });
+  const writes = [
+    { title: 'an ingredient added', route: 'POST /api/ingredients', answer: SPELT, run: (): Write => useCreateIngredient(), input: SPELT },
+    {
+      title: 'an ingredient saved',
+      route: 'PUT /api/ingredients/spelt-flour',
+      answer: SPELT,
+      run: (): Write => useUpdateIngredient(),
+      input: { code: 'spelt-flour', ingredient: SPELT },
+    },
+    {
+      title: 'a spreadsheet imported',
+      route: 'POST /api/ingredients/import',
+      answer: { create: 0, update: 1, unchanged: 0, withProblems: 0, written: [] },
+      run: (): Write => useImportIngredients(),
+      input: file,
+    },
+    {
+      title: 'a specification uploaded',
+      route: 'POST /api/ingredients/spelt-flour/specifications',
+      answer: { id: 1 },
+      run: (): Write => useUploadSpecification(),
+      input: { code: 'spelt-flour', file, reviewBy: '2099-01-01' },
+    },
+    {
+      title: 'a recipe saved',
+      route: 'PUT /api/recipes/loaf',
+      answer: { id: 'loaf', name: 'Loaf', lines: [], revision: 2, updatedAt: '2026-12-01T10:00:00.000Z' },
+      run: (): Write => useSaveRecipe(),
+      input: { code: 'loaf', recipe: { id: 'loaf', name: 'Loaf', lines: [{ use: 'spelt-flour', qty: 500, unit: 'g' as const }] } },
+    },
+    {
+      title: 'a swap applied',
+      route: 'POST /api/swaps/apply',
+      answer: { recipes: [{ id: 'loaf', revision: 3 }] },
+      run: (): Write => useApplySwap(),
+      input: { from: 'spelt-flour', to: 'plain-flour' },
+    },
+    {
+      title: 'the kitchen’s settings changed',
+      route: 'PATCH /api/kitchen',
+      answer: { ...KITCHEN, regime: 'EU' },
+      run: (): Write => useUpdateKitchen(),
+      input: { regime: 'EU' as const },
+    },
+  ];
+
+  it.each(writes)('$title', async ({ route, answer, run, input }) => {
+    mockApi({ [route]: { body: answer } });
+    const queryClient = new QueryClient({
+      defaultOptions: { queries: { staleTime: Infinity, retry: false }, mutations: { retry: false } },
+    });
+    const dependent = [
+      queryKeys.declarations.product('loaf', undefined),
+      queryKeys.declarations.products(undefined),
+      queryKeys.ingredients.usedIn('spelt-flour'),
+      queryKeys.specifications.status(),
+    ];
+    for (const key of dependent) queryClient.setQueryData(key, { cached: true });
+    const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
+
+    const { result } = renderHook(run, { wrapper });
+    // Each hook takes its own input; the table pairs them.
+    act(() => (result.current.mutate as (value: unknown) => void)(input));
+    await waitFor(() => expect(result.current.isSuccess).toBe(true));
+
+    for (const key of dependent) expect(queryClient.getQueryData(key), JSON.stringify(key)).toBeUndefined();
   });
 });
