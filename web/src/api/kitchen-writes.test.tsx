@@ -156,52 +156,58 @@ describe('every write to the kitchen’s data refreshes the declarations and whe
   type Write = { mutate: (input: never) => void; isSuccess: boolean };
   const file = new File(['id,name\n'], 'sheet.csv', { type: 'text/csv' });
   const writes = [
-    { title: 'an ingredient added', route: 'POST /api/ingredients', answer: SPELT, run: (): Write => useCreateIngredient(), input: SPELT },
+    {
+      title: 'an ingredient added',
+      route: 'POST /api/ingredients',
+      answer: SPELT,
+      useWrite: (): Write => useCreateIngredient(),
+      input: SPELT,
+    },
     {
       title: 'an ingredient saved',
       route: 'PUT /api/ingredients/spelt-flour',
       answer: SPELT,
-      run: (): Write => useUpdateIngredient(),
+      useWrite: (): Write => useUpdateIngredient(),
       input: { code: 'spelt-flour', ingredient: SPELT },
     },
     {
       title: 'a spreadsheet imported',
       route: 'POST /api/ingredients/import',
       answer: { create: 0, update: 1, unchanged: 0, withProblems: 0, written: [] },
-      run: (): Write => useImportIngredients(),
+      useWrite: (): Write => useImportIngredients(),
       input: file,
     },
     {
       title: 'a specification uploaded',
       route: 'POST /api/ingredients/spelt-flour/specifications',
       answer: { id: 1 },
-      run: (): Write => useUploadSpecification(),
+      useWrite: (): Write => useUploadSpecification(),
       input: { code: 'spelt-flour', file, reviewBy: '2099-01-01' },
     },
     {
       title: 'a recipe saved',
       route: 'PUT /api/recipes/loaf',
       answer: { id: 'loaf', name: 'Loaf', lines: [], revision: 2, updatedAt: '2026-12-01T10:00:00.000Z' },
-      run: (): Write => useSaveRecipe(),
+      useWrite: (): Write => useSaveRecipe(),
       input: { code: 'loaf', recipe: { id: 'loaf', name: 'Loaf', lines: [{ use: 'spelt-flour', qty: 500, unit: 'g' as const }] } },
     },
     {
       title: 'a swap applied',
       route: 'POST /api/swaps/apply',
       answer: { recipes: [{ id: 'loaf', revision: 3 }] },
-      run: (): Write => useApplySwap(),
+      useWrite: (): Write => useApplySwap(),
       input: { from: 'spelt-flour', to: 'plain-flour' },
     },
     {
       title: 'the kitchen’s settings changed',
       route: 'PATCH /api/kitchen',
       answer: { ...KITCHEN, regime: 'EU' },
-      run: (): Write => useUpdateKitchen(),
+      useWrite: (): Write => useUpdateKitchen(),
       input: { regime: 'EU' as const },
     },
   ];
 
-  it.each(writes)('$title', async ({ route, answer, run, input }) => {
+  it.each(writes)('$title', async ({ route, answer, useWrite, input }) => {
     mockApi({ [route]: { body: answer } });
     const queryClient = new QueryClient({
       defaultOptions: { queries: { staleTime: Infinity, retry: false }, mutations: { retry: false } },
@@ -215,7 +221,7 @@ describe('every write to the kitchen’s data refreshes the declarations and whe
     for (const key of dependent) queryClient.setQueryData(key, { cached: true });
     const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
 
-    const { result } = renderHook(run, { wrapper });
+    const { result } = renderHook(useWrite, { wrapper });
     // Each hook takes its own input; the table pairs them.
     act(() => (result.current.mutate as (value: unknown) => void)(input));
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
