@@ -82,15 +82,6 @@ export default defineConfig(
       'import-x/no-restricted-paths': ['error', { basePath: ROOT, zones: boundaries }],
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
       'import-x/no-self-import': 'error',
-      // Off until their findings in the source are fixed (the first run found 42 across these rules:
-      // 13 in api/src, 28 in web/src, 1 in shared); each goes back on with the fix of its findings.
-      '@typescript-eslint/no-unsafe-assignment': 'off',
-      '@typescript-eslint/no-base-to-string': 'off',
-      '@typescript-eslint/no-unsafe-return': 'off',
-      '@typescript-eslint/no-unnecessary-type-assertion': 'off',
-      '@typescript-eslint/require-await': 'off',
-      '@typescript-eslint/no-unsafe-argument': 'off',
-      '@typescript-eslint/no-floating-promises': 'off',
     },
   },
   {
@@ -144,16 +135,6 @@ export default defineConfig(
     // A table's columns hold values of every type: TanStack Table's own ColumnDef takes `any` for the value.
     files: ['web/src/components/ui/virtual-data-table.tsx'],
     rules: { '@typescript-eslint/no-explicit-any': 'off' },
-  },
-  {
-    // Off until their findings in web/src are fixed (6 of the first run's 42); each goes back on
-    // with the fix of its findings. rules-of-hooks stays on.
-    files: ['web/src/**/*.{ts,tsx}'],
-    rules: {
-      'react-hooks/set-state-in-effect': 'off',
-      'react-hooks/exhaustive-deps': 'off',
-      'react-hooks/preserve-manual-memoization': 'off',
-    },
   },
   {
     files: ['**/*.{js,mjs,cjs}'],

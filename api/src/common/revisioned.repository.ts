@@ -37,6 +37,11 @@ export interface Current<B> {
   updatedAt: Date;
 }
 
+// sequelize-typescript's Model declares id, createdAt and updatedAt as `any`; rows are read through
+// these views so that each column has the type the table gives it.
+const headRow = (m: Model & RevisionedRow): RevisionedRow => m;
+const revisionRow = <B>(m: Model & RevisionRow<B>): RevisionRow<B> => m;
+
 /**
  * Storage of a thing that keeps every revision (ingredients, recipes): a head row naming it and
  * pointing at its current revision, and one row per revision holding the full body.
@@ -50,7 +55,7 @@ export class RevisionedRepository<B extends { name: string }> {
 
   /** Every current, not archived item of a site with its current body (two queries, no N+1). */
   async listCurrent(siteId: number, t?: Transaction): Promise<Current<B>[]> {
-    const heads = await this.heads.findAll({ where: { siteId, archived: false }, order: [['name', 'ASC']], transaction: t });
+    const heads = (await this.heads.findAll({ where: { siteId, archived: false }, order: [['name', 'ASC']], transaction: t })).map(headRow);
     if (heads.length === 0) return [];
     const revs = await this.revisions.findAll({
       where: { [this.foreignKey]: heads.map((h) => h.id) },
@@ -71,7 +76,7 @@ export class RevisionedRepository<B extends { name: string }> {
       attributes: ['id', 'code', 'name'],
       order: [['name', 'ASC']],
     });
-    return rows.map((r) => ({ id: r.id, code: r.code, name: r.name }));
+    return rows.map(headRow).map((r) => ({ id: r.id, code: r.code, name: r.name }));
   }
 
   /**
@@ -94,7 +99,8 @@ export class RevisionedRepository<B extends { name: string }> {
   }
 
   async findHead(siteId: number, code: string): Promise<Head | null> {
-    const row = await this.exactHead({ siteId, archived: false }, code, { attributes: ['id', 'code', 'name'] });
+    const found = await this.exactHead({ siteId, archived: false }, code, { attributes: ['id', 'code', 'name'] });
+    const row = found && headRow(found);
     return row ? { id: row.id, code: row.code, name: row.name } : null;
   }
 
@@ -104,8 +110,9 @@ export class RevisionedRepository<B extends { name: string }> {
   }
 
   async findCurrent(siteId: number, code: string, t?: Transaction): Promise<Current<B> | null> {
-    const head = await this.exactHead({ siteId, archived: false }, code, { t });
-    if (!head) return null;
+    const found = await this.exactHead({ siteId, archived: false }, code, { t });
+    if (!found) return null;
+    const head = headRow(found);
     const rev = await this.revisions.findOne({ where: { [this.foreignKey]: head.id, revision: head.currentRevision }, transaction: t });
     if (!rev) return null;
     return {
@@ -119,10 +126,12 @@ export class RevisionedRepository<B extends { name: string }> {
   }
 
   async history(siteId: number, code: string): Promise<RevisionRow<B>[] | null> {
-    const head = await this.exactHead({ siteId }, code);
-    if (!head) return null;
-    const revs = await this.revisions.findAll({ where: { [this.foreignKey]: head.id }, order: [['revision', 'DESC']] });
-    return revs.map((r) => ({ revision: r.revision, body: parseJson(r.body), note: r.note, authorId: r.authorId, createdAt: r.createdAt }));
+    const found = await this.exactHead({ siteId }, code);
+    if (!found) return null;
+    const revs = await this.revisions.findAll({ where: { [this.foreignKey]: headRow(found).id }, order: [['revision', 'DESC']] });
+    return revs
+      .map(revisionRow)
+      .map((r) => ({ revision: r.revision, body: parseJson(r.body), note: r.note, authorId: r.authorId, createdAt: r.createdAt }));
   }
 
   /**
@@ -143,11 +152,11 @@ export class RevisionedRepository<B extends { name: string }> {
     const head = matched[0] ?? null;
     if (!head) {
       const created = await this.heads.create({ siteId, code, name: body.name, currentRevision: 1 } as never, { transaction: t });
-      await this.revisions.create({ [this.foreignKey]: created.id, revision: 1, body, ...meta } as never, { transaction: t });
+      await this.revisions.create({ [this.foreignKey]: headRow(created).id, revision: 1, body, ...meta } as never, { transaction: t });
       return 1;
     }
     const next = head.currentRevision + 1;
-    await this.revisions.create({ [this.foreignKey]: head.id, revision: next, body, ...meta } as never, { transaction: t });
+    await this.revisions.create({ [this.foreignKey]: headRow(head).id, revision: next, body, ...meta } as never, { transaction: t });
     await head.update({ currentRevision: next, name: body.name, archived: false }, { transaction: t });
     return next;
   }

@@ -2,7 +2,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { ApiError, apiClient } from './api-client';
 
 function answer(status: number, body?: unknown) {
-  const fetchMock = vi.fn(async () => new Response(body === undefined ? null : JSON.stringify(body), { status }));
+  const fetchMock = vi.fn(() => Promise.resolve(new Response(body === undefined ? null : JSON.stringify(body), { status })));
   vi.stubGlobal('fetch', fetchMock);
   return fetchMock;
 }

@@ -10,7 +10,6 @@ import {
   type ExemptForm,
   type ImportColumn,
   type IssuePlace,
-  type Nutrition,
   type SourceEntry,
 } from '@crumbproof/shared';
 
@@ -249,7 +248,7 @@ export function rowToCandidate(
   const place = rowPlace(header, row);
   const problems: string[] = [];
   const out: Record<string, unknown> = base ? structuredClone(base) : { vegan: null, vegetarian: null };
-  const nutrition: Record<string, unknown> = { ...((base?.nutrition as Nutrition | undefined) ?? {}) };
+  const nutrition: Record<string, unknown> = { ...(base?.nutrition ?? {}) };
   for (const [i, def] of header.columns) {
     const cell = cells[i] ?? null;
     const text = cellText(cell);

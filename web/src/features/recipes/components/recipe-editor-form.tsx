@@ -1,6 +1,6 @@
 import { Box, Button, Grid, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { bookRecipeSchema, CLAIM_LABELS, CLAIMS, type BookRecipe, type Claim, type RecipeView } from '@crumbproof/shared';
-import { useEffect, useMemo, useState } from 'react';
+import { bookRecipeSchema, CLAIM_LABELS, CLAIMS, type BookRecipe, type RecipeView } from '@crumbproof/shared';
+import { useMemo, useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { CheckboxInput as Checkbox } from '@/components/ui/choice-inputs';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -55,11 +55,12 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
   } = useForm<EditorValues>({ resolver: editorResolver, defaultValues: defaults });
   const lines = useFieldArray({ control, name: 'lines' });
   const save = useSaveRecipe();
-  const [saveMessage, setSaveMessage] = useState<string | null>(null);
+  // A refused save stays on screen until the recipe changes: it is kept with the recipe it refused.
+  const [refused, setRefused] = useState<{ recipeKey: string; message: string } | null>(null);
 
   const watched = useWatch({ control }) as EditorValues;
   const forSale = Boolean(watched.forSale);
-  const wantedClaims = (Array.isArray(watched.claims) ? watched.claims : watched.claims ? [watched.claims] : []) as Claim[];
+  const wantedClaims = Array.isArray(watched.claims) ? watched.claims : watched.claims ? [watched.claims] : [];
 
   // The preview: the recipe as it would be sent, once typing pauses.
   const asTyped = toBookRecipe(watched);
@@ -71,28 +72,25 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
   const preview = usePreviewDeclaration(incomplete ? null : settled, undefined);
   const previewError = preview.isError && isApiError(preview.error) ? preview.error : null;
 
-  // A refused save stays on screen until the recipe changes.
-  const { reset: resetSave, isError: saveFailed } = save;
-  useEffect(() => {
-    if (saveFailed) resetSave();
-    setSaveMessage(null);
-    // Only a change of the recipe clears the message.
-  }, [settledKey]);
-
-  const saveError = save.isError && isApiError(save.error) ? save.error : null;
+  const refusedNow = refused?.recipeKey === previewKey ? refused : null;
+  const saveMessage = refusedNow?.message ?? null;
+  const saveError = refusedNow && save.isError && isApiError(save.error) ? save.error : null;
   const shownError = saveError ?? previewError;
   const apiLineErrors = lineProblems(
     shownError,
     forPreview.id,
     (watched.lines ?? []).map((line) => line.use),
   );
+  const { id: previewId, name: previewName } = forPreview;
   const previewLookup = useMemo<ItemLookup>(
-    () => (id) => (id === forPreview.id ? { name: forPreview.name, kind: 'recipe' } : lookup(id)),
-    [lookup, forPreview.id, forPreview.name],
+    () => (id) => (id === previewId ? { name: previewName, kind: 'recipe' } : lookup(id)),
+    [lookup, previewId, previewName],
   );
 
   function handleSave(values: EditorValues) {
-    setSaveMessage(null);
+    setRefused(null);
+    const recipeKey = previewKey;
+    const setSaveMessage = (message: string) => setRefused({ recipeKey, message });
     const recipe = toBookRecipe(values);
     save.mutate(
       { recipe, code: creating ? undefined : initial.id },
