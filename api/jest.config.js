@@ -8,7 +8,10 @@ module.exports = {
   transformIgnorePatterns: [
     '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|@tokenizer|@borewit|uint8array-extras|cookie|set-cookie-parser|content-disposition)/)',
   ],
-  moduleNameMapper: { '^@crumbproof/shared$': '<rootDir>/../shared/src/index.ts' },
+  moduleNameMapper: {
+    '^@crumbproof/shared$': '<rootDir>/../shared/src/index.ts',
+    '^@crumbproof/shared/labels$': '<rootDir>/../shared/src/labels/index.ts',
+  },
   setupFiles: ['<rootDir>/test/support/env.ts'],
   testTimeout: 30000,
 };

@@ -12,6 +12,7 @@ import {
   notInListMessage,
 } from './allergens';
 import { handlingSchema } from './kitchen';
+import { type Gs1KeyKind, verifyGs1Key } from './gs1';
 import { oneLine, plainText } from './text';
 
 /**
@@ -254,14 +255,86 @@ export const recipeLineSchema = z
   });
 export type RecipeLine = z.infer<typeof recipeLineSchema>;
 
-export const saleSchema = z.strictObject({
-  portionG: z
-    .number({ error: 'Give the weight of one portion in grams.' })
-    .min(MIN_GRAMS, `Give a portion weight above zero: at least ${MIN_GRAMS} g (1 mg).`)
-    .max(100000, 'Use a portion weight no larger than 100000 g.'),
-  claims: z.array(z.enum(CLAIMS)).optional(),
-  quid: z.array(id).optional(),
-});
+/** How a date is marked on a label: a best before date (quality) or a use by date (safety), Regulation (EU) No 1169/2011 Article 24 and Annex X. */
+export const DATE_MARKS = ['best-before', 'use-by'] as const;
+export type DateMark = (typeof DATE_MARKS)[number];
+
+/** A GS1 key as text, its length and check digit verified (the message names the expected digit). */
+export function gs1KeySchema(kind: Gs1KeyKind, whenNotText: string) {
+  return z.string({ error: whenNotText }).superRefine((value, ctx) => {
+    const problem = verifyGs1Key(value, kind);
+    if (problem) ctx.addIssue({ code: 'custom', input: value, message: problem });
+  });
+}
+
+/** The units in one case of a product sold to the trade. */
+export const unitsPerCaseSchema = z
+  .number({ error: 'Give the units per case as a whole number.' })
+  .int('Give the units per case as a whole number.')
+  .min(1, 'A case holds at least 1 unit.')
+  .max(9999, 'Use at most 9999 units per case.');
+
+/**
+ * What a label of the product prints besides its declaration. Every field is optional: a book
+ * without them reads as before, and a label that needs a missing one is refused by the renderer.
+ */
+const salePrintDetailsShape = {
+  /** Days from the production date to the date on the label: from 1 day to 10 years. */
+  shelfLifeDays: z
+    .number({ error: 'Give the shelf life as a whole number of days.' })
+    .int('Give the shelf life as a whole number of days.')
+    .min(1, 'Give a shelf life of at least 1 day.')
+    .max(3650, 'Use a shelf life of at most 3650 days (10 years).')
+    .optional(),
+  dateMark: z.enum(DATE_MARKS, { error: (issue) => notInListMessage('date mark', issue.input, DATE_MARKS) }).optional(),
+  /** The unit's GTIN (GTIN-8, -12 or -13), check digit verified. */
+  gtin: gs1KeySchema('unit-gtin', 'Write the GTIN as digits.').optional(),
+  /** The GTIN-14 of the case the product is sold in to the trade, check digit verified. */
+  caseGtin: gs1KeySchema('gtin-14', 'Write the case GTIN-14 as digits.').optional(),
+  unitsPerCase: unitsPerCaseSchema.optional(),
+  /** The net weight of one unit in grams, as printed on the label. */
+  netWeightG: z
+    .number({ error: 'Give the net weight in grams.' })
+    .positive('Give a net weight above zero.')
+    .max(1_000_000, 'Use a net weight of at most 1000000 g (1 tonne).')
+    .optional(),
+  /** One line of storage conditions, e.g. "Keep refrigerated at 0–5 °C". */
+  storage: oneLine(
+    z
+      .string()
+      .trim()
+      .min(1, 'Write the storage conditions, or leave them out.')
+      .max(200, 'Keep the storage conditions to 200 characters or fewer.'),
+  ).optional(),
+};
+
+export const saleSchema = z
+  .strictObject({
+    portionG: z
+      .number({ error: 'Give the weight of one portion in grams.' })
+      .min(MIN_GRAMS, `Give a portion weight above zero: at least ${MIN_GRAMS} g (1 mg).`)
+      .max(100000, 'Use a portion weight no larger than 100000 g.'),
+    claims: z.array(z.enum(CLAIMS)).optional(),
+    quid: z.array(id).optional(),
+    ...salePrintDetailsShape,
+  })
+  .superRefine((sale, ctx) => {
+    // A date on the label needs both: how long the product keeps, and what kind of date it is.
+    if (sale.dateMark !== undefined && sale.shelfLifeDays === undefined)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['shelfLifeDays'],
+        input: undefined,
+        message: 'Give the shelf life in days for the date mark.',
+      });
+    if (sale.shelfLifeDays !== undefined && sale.dateMark === undefined)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['dateMark'],
+        input: undefined,
+        message: "Say whether the date is a best before date or a use by date ('best-before' or 'use-by').",
+      });
+  });
 export type Sale = z.infer<typeof saleSchema>;
 
 export const bookRecipeSchema = z.strictObject({

@@ -16,3 +16,5 @@ export * from './kitchen';
 export * from './composition-scan';
 export * from './ingredient-import';
 export * from './nutrient-reference';
+export * from './gs1';
+export * from './label-contracts';
