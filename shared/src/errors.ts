@@ -31,6 +31,7 @@ export const ERROR_CODES = [
   'unweighable-line',
   'duplicate-id',
   'book-invalid',
+  'label-refused',
   'internal',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];

@@ -45,6 +45,8 @@ export const labelRunItemSchema = z.strictObject({
     .int('Give how many labels to print, as a whole number.')
     .min(1, 'Print at least 1 label.')
     .max(1000, 'Print at most 1000 labels of one product in one run.'),
+  /** The product's revision to print (a reprint names the one logged); left out, the current one. One no longer current needs a manager's override. */
+  revision: z.number({ error: 'Give the revision as a whole number.' }).int('Give the revision as a whole number.').min(1).optional(),
 });
 export type LabelRunItem = z.infer<typeof labelRunItemSchema>;
 

@@ -37,6 +37,8 @@ export function httpStatusOf(code: ErrorCode): number {
       return 429;
     case 'too-large':
       return 413;
+    case 'label-refused':
+      return 422;
     case 'internal':
       return 500;
     default: {
