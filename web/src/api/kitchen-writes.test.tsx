@@ -8,7 +8,7 @@ import { useImportIngredients } from '@/features/ingredients/api/import-ingredie
 import { useUpdateIngredient } from '@/features/ingredients/api/update-ingredient';
 import { useUploadSpecification } from '@/features/ingredients/api/upload-specification';
 import { useUpdateKitchen } from '@/features/kitchen/api/update-kitchen';
-import { getDeclarationQueryOptions } from '@/features/recipes/api/get-declaration';
+import { getDeclarationQueryOptions } from './declaration';
 import { useSaveRecipe } from '@/features/recipes/api/save-recipe';
 import { useApplySwap } from '@/features/swaps/api/apply-swap';
 import { KITCHEN, mockApi, requestUrl, type MockResponse } from '@/testing/mock-api';

@@ -1,5 +1,13 @@
 import type { AllergenSource, BookRecipe, CompositionScanRequest, Regime } from '@crumbproof/shared';
 
+/** What the print log is narrowed by (`GET /api/labels/runs?product=&batch=&from=&to=`); empty fields are left out. */
+export interface LabelRunSearch {
+  product?: string;
+  batch?: string;
+  from?: string;
+  to?: string;
+}
+
 /** What the ingredient library asks the API to narrow the list by (`GET /api/ingredients?q=&source=`). */
 export interface IngredientSearch {
   q?: string;
@@ -51,6 +59,17 @@ export const queryKeys = {
     /** The recipe as typed in the editor, declared without saving. */
     preview: (recipe: BookRecipe | null, regime: Regime | undefined) => ['declarations', 'preview', regimeKey(regime), recipe] as const,
   },
+  labels: {
+    all: () => ['labels'] as const,
+    templates: () => ['labels', 'templates'] as const,
+    /** The kitchen's batch pattern and GS1 numbers. */
+    settings: () => ['labels', 'settings'] as const,
+    /** The print log: every search of it sits under `runs.all()`, which a print refreshes. */
+    runs: {
+      all: () => ['labels', 'runs'] as const,
+      search: (search: LabelRunSearch) => ['labels', 'runs', search] as const,
+    },
+  },
 } as const;
 
 /**
@@ -63,6 +82,8 @@ export const KITCHEN_DATA_ROOTS = [
   queryKeys.specifications.all(),
   queryKeys.recipes.all(),
   queryKeys.declarations.all(),
+  // A recipe saved makes earlier runs of it no longer current in the print log.
+  queryKeys.labels.all(),
 ] as const;
 
 /** Mutation keys, named like the queries they change. */
@@ -80,4 +101,6 @@ export const mutationKeys = {
   saveRecipe: () => ['recipes', 'save'] as const,
   previewSwap: () => ['swaps', 'preview'] as const,
   applySwap: () => ['swaps', 'apply'] as const,
+  updateLabelSettings: () => ['labels', 'settings', 'update'] as const,
+  printLabels: () => ['labels', 'runs', 'print'] as const,
 } as const;

@@ -1,4 +1,4 @@
-import type { KitchenView, Me, Role, User } from '@crumbproof/shared';
+import type { KitchenView, LabelSettings, Me, Role, User } from '@crumbproof/shared';
 import { vi } from 'vitest';
 
 export interface MockResponse {
@@ -70,6 +70,14 @@ export const KITCHEN: KitchenView = {
   handles: [{ allergen: 'sesame', controls: 'shared-equipment' }],
 };
 
+/** The kitchen's label settings as a new kitchen has them. */
+export const LABEL_SETTINGS: LabelSettings = {
+  batchPattern: '{YY}{MM}{DD}-{P}-{N}',
+  gs1CompanyPrefix: null,
+  ssccExtension: 0,
+  caseIndicator: 1,
+};
+
 export const USERS: User[] = [
   { ...PEOPLE.manager, active: true, createdAt: '2026-03-02T09:00:00.000Z' },
   { ...PEOPLE['pastry-chef'], active: true, createdAt: '2026-03-04T09:00:00.000Z' },
@@ -81,6 +89,7 @@ export function signedInAs(role: Role, extra: ApiHandlers = {}): ApiHandlers {
   return {
     'GET /api/me': { body: PEOPLE[role] },
     'GET /api/kitchen': { body: KITCHEN },
+    'GET /api/labels/settings': { body: LABEL_SETTINGS },
     'POST /api/auth/sign-out': { status: 204 },
     ...extra,
   };

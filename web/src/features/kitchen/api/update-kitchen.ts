@@ -21,7 +21,8 @@ export function useUpdateKitchen() {
       refreshAfterKitchenWrite(queryClient, {
         error,
         saved: saved ? [{ queryKey: queryKeys.kitchen(), data: saved }] : [],
-        editing: [queryKeys.kitchen()],
+        // The label settings form sits on the same page: what is typed into it stays.
+        editing: [queryKeys.kitchen(), queryKeys.labels.settings()],
       }),
   });
 }

@@ -1,12 +1,16 @@
 import { LoadFailed } from '@/components/ui/load-failed';
 import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
+import { Panel } from '@/components/ui/panel';
 import { useKitchen } from '@/api/kitchen';
+import { useLabelSettings } from '@/api/label-settings';
 import { KitchenForm } from '../components/kitchen-form';
+import { LabelSettingsForm } from '../components/label-settings-form';
 
 /** /kitchen — the manager's settings for the whole kitchen. */
 export function KitchenRoute() {
   const kitchen = useKitchen();
+  const labelSettings = useLabelSettings();
   return (
     <Page
       title="Kitchen"
@@ -19,6 +23,19 @@ export function KitchenRoute() {
       ) : (
         <KitchenForm kitchen={kitchen.data} />
       )}
+      <Panel title="Labels">
+        {labelSettings.isPending ? (
+          <Loading size="sm">Loading the label settings…</Loading>
+        ) : labelSettings.isError ? (
+          <LoadFailed
+            title="The label settings could not be loaded"
+            error={labelSettings.error}
+            onRetry={() => void labelSettings.refetch()}
+          />
+        ) : (
+          <LabelSettingsForm settings={labelSettings.data} />
+        )}
+      </Panel>
     </Page>
   );
 }

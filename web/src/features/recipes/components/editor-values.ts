@@ -1,4 +1,4 @@
-import { bookRecipeSchema, type BookRecipe, type Claim, type LineRole, type Unit } from '@crumbproof/shared';
+import { bookRecipeSchema, type BookRecipe, type Claim, type DateMark, type LineRole, type Sale, type Unit } from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { FieldErrors, Resolver } from 'react-hook-form';
 
@@ -19,7 +19,19 @@ export interface EditorValues {
   portionG: number | undefined;
   claims: Claim[];
   quid: string[];
+  /** Print details: what a label of the product prints besides its declaration. Empty boxes are "not given". */
+  shelfLifeDays: number | undefined;
+  dateMark: DateMark | '';
+  storage: string;
+  netWeightG: number | undefined;
+  gtin: string;
+  unitsPerCase: number | undefined;
+  caseGtin: string;
 }
+
+/** The print details, each a field of the book's sale and of the form under the same name. */
+export const PRINT_DETAIL_FIELDS = ['shelfLifeDays', 'dateMark', 'storage', 'netWeightG', 'gtin', 'unitsPerCase', 'caseGtin'] as const;
+type PrintDetailField = (typeof PRINT_DETAIL_FIELDS)[number];
 
 export const EMPTY_LINE: EditorLine = { use: '', qty: undefined, unit: 'g', role: 'ingredient' };
 
@@ -34,17 +46,32 @@ export function toEditorValues(recipe: BookRecipe | null): EditorValues {
       portionG: undefined,
       claims: [],
       quid: [],
+      shelfLifeDays: undefined,
+      dateMark: '',
+      storage: '',
+      netWeightG: undefined,
+      gtin: '',
+      unitsPerCase: undefined,
+      caseGtin: '',
     };
   }
+  const sale = recipe.sale;
   return {
     id: recipe.id,
     name: recipe.name,
     lines: recipe.lines.map((line) => ({ use: line.use, qty: line.qty, unit: line.unit, role: line.role ?? 'ingredient' })),
     finishedWeightG: recipe.finishedWeightG,
     forSale: recipe.sale !== undefined,
-    portionG: recipe.sale?.portionG,
-    claims: recipe.sale?.claims ?? [],
-    quid: recipe.sale?.quid ?? [],
+    portionG: sale?.portionG,
+    claims: sale?.claims ?? [],
+    quid: sale?.quid ?? [],
+    shelfLifeDays: sale?.shelfLifeDays,
+    dateMark: sale?.dateMark ?? '',
+    storage: sale?.storage ?? '',
+    netWeightG: sale?.netWeightG,
+    gtin: sale?.gtin ?? '',
+    unitsPerCase: sale?.unitsPerCase,
+    caseGtin: sale?.caseGtin ?? '',
   };
 }
 
@@ -53,6 +80,22 @@ function asList<T extends string>(value: unknown): T[] {
   if (Array.isArray(value)) return value as T[];
   if (typeof value === 'string' && value !== '') return [value as T];
   return [];
+}
+
+const given = (n: number | undefined): n is number => n !== undefined && !Number.isNaN(n);
+
+/** The print details that were filled in, as the book's sale holds them (a blank box is left out). */
+function printDetails(values: EditorValues): Partial<Pick<Sale, PrintDetailField>> {
+  const text = (value: string | undefined) => (value ?? '').trim();
+  return {
+    ...(given(values.shelfLifeDays) ? { shelfLifeDays: values.shelfLifeDays } : {}),
+    ...(values.dateMark ? { dateMark: values.dateMark } : {}),
+    ...(text(values.storage) ? { storage: text(values.storage) } : {}),
+    ...(given(values.netWeightG) ? { netWeightG: values.netWeightG } : {}),
+    ...(text(values.gtin) ? { gtin: text(values.gtin) } : {}),
+    ...(given(values.unitsPerCase) ? { unitsPerCase: values.unitsPerCase } : {}),
+    ...(text(values.caseGtin) ? { caseGtin: text(values.caseGtin) } : {}),
+  };
 }
 
 /** The recipe exactly as the API will receive it. */
@@ -77,6 +120,7 @@ export function toBookRecipe(values: EditorValues): BookRecipe {
             portionG: values.portionG as number,
             ...(claims.length > 0 ? { claims } : {}),
             ...(quid.length > 0 ? { quid } : {}),
+            ...printDetails(values),
           },
         }
       : {}),
@@ -95,7 +139,7 @@ const bookResolver = zodResolver(bookRecipeSchema);
 
 /**
  * Validates with the API's own schema (bookRecipeSchema) on the recipe the form would send, then
- * puts each message back on the control it belongs to (sale.portionG → portionG).
+ * puts each message back on the control it belongs to (sale.portionG → portionG, sale.gtin → gtin).
  */
 export const editorResolver: Resolver<EditorValues> = async (values, context, options) => {
   const result = await bookResolver(toBookRecipe(values), context, options as never);
@@ -104,10 +148,10 @@ export const editorResolver: Resolver<EditorValues> = async (values, context, op
   const { sale, ...rest } = errors;
   const mapped: FieldErrors<EditorValues> = { ...(rest as FieldErrors<EditorValues>) };
   if (sale && typeof sale === 'object') {
-    const s = sale as { portionG?: FieldErrors[string]; claims?: FieldErrors[string]; quid?: FieldErrors[string] };
-    if (s.portionG) mapped.portionG = s.portionG as never;
-    if (s.claims) mapped.claims = s.claims as never;
-    if (s.quid) mapped.quid = s.quid as never;
+    const s = sale as Partial<Record<'portionG' | 'claims' | 'quid' | PrintDetailField, FieldErrors[string]>>;
+    for (const field of ['portionG', 'claims', 'quid', ...PRINT_DETAIL_FIELDS] as const) {
+      if (s[field]) mapped[field] = s[field] as never;
+    }
   }
   return { values: {}, errors: mapped };
 };

@@ -7,14 +7,16 @@ import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
 import type { ComboboxOption } from '@/components/ui/item-combobox';
 import type { ItemLookup } from '@/components/ui/layer-path';
+import { useLabelSettings } from '@/api/label-settings';
 import { isApiError } from '@/lib/api-client';
 import { useDebouncedValue } from '@/lib/use-debounced-value';
 import { usePreviewDeclaration } from '../api/preview-declaration';
 import { useSaveRecipe } from '../api/save-recipe';
-import { editorResolver, numberOrUndefined, toBookRecipe, toEditorValues, type EditorValues } from './editor-values';
+import { editorResolver, numberOrUndefined, PRINT_DETAIL_FIELDS, toBookRecipe, toEditorValues, type EditorValues } from './editor-values';
 import { lineProblems } from './line-problems';
 import { LineRows } from './line-rows';
 import { LiveDeclaration } from './live-declaration';
+import { PrintDetailsFields } from './print-details-fields';
 
 /** The id a new recipe is previewed under until it has one of its own. */
 const PREVIEW_ID = 'new-recipe-preview';
@@ -39,7 +41,8 @@ function firstIssue(recipe: BookRecipe): string | null {
     const what = field === 'use' ? 'choose an ingredient or recipe' : field === 'qty' ? 'give a quantity above zero' : 'finish it';
     return `Line ${index + 1}: ${what} to see the declaration.`;
   }
-  if (head === 'sale') return 'Give the portion weight to see the declaration for sale.';
+  if (head === 'sale' && index === 'portionG') return 'Give the portion weight to see the declaration for sale.';
+  if (head === 'sale') return `Correct the sale details to see the declaration: ${issue.message}`;
   return `Finish the form to see the declaration: ${issue.message}`;
 }
 
@@ -51,10 +54,12 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
     register,
     handleSubmit,
     setError,
+    setValue,
     formState: { errors, isDirty },
   } = useForm<EditorValues>({ resolver: editorResolver, defaultValues: defaults });
   const lines = useFieldArray({ control, name: 'lines' });
   const save = useSaveRecipe();
+  const labelSettings = useLabelSettings();
   // A refused save stays on screen until the recipe changes: it is kept with the recipe it refused.
   const [refused, setRefused] = useState<{ recipeKey: string; message: string } | null>(null);
 
@@ -106,6 +111,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
             if (field.path === 'name' || field.path === 'finishedWeightG') setError(field.path, { message: field.message });
             if (field.path === 'id' && creating) setError('id', { message: field.message });
             if (field.path === 'sale.portionG') setError('portionG', { message: field.message });
+            for (const detail of PRINT_DETAIL_FIELDS) if (field.path === `sale.${detail}`) setError(detail, { message: field.message });
           }
           setSaveMessage(`Nothing was saved. ${error.message}`);
         },
@@ -216,6 +222,14 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
                       </SimpleGrid>
                     )}
                   </Box>
+                  <PrintDetailsFields
+                    register={register}
+                    control={control}
+                    setValue={setValue}
+                    errors={errors}
+                    caseIndicator={labelSettings.data?.caseIndicator}
+                    indicatorLoading={labelSettings.isPending}
+                  />
                 </>
               ) : null}
             </Stack>

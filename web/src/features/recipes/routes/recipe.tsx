@@ -12,7 +12,7 @@ import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
 import { formatDate } from '@/lib/format';
 import { useSignedInUser } from '@/lib/signed-in-user';
-import { useDeclaration } from '../api/get-declaration';
+import { useDeclaration } from '@/api/declaration';
 import { isRegime, useKitchenRegime } from '../api/get-kitchen-regime';
 import { useRecipe } from '../api/get-recipe';
 import { ActionLink } from '../components/action-link';

@@ -1,6 +1,6 @@
 import type { Regime, ServedDeclaration } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { queryKeys } from '@/api/query-keys';
+import { queryKeys } from './query-keys';
 import { apiClient } from '@/lib/api-client';
 
 /** A product's declaration as the API serves it, with what it was worked out from. */
