@@ -1,19 +1,4 @@
-// Runs the declaration CLI (api/src/cli/declare.ts) through tsx from the repository root,
-// passing the arguments on and exiting with the CLI's own exit code.
-import { spawnSync } from 'node:child_process';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+// Runs the declaration CLI (api/src/cli/declare.ts); see lib/tsx-cli.mjs.
+import { runCli } from './lib/tsx-cli.mjs';
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
-const tsx = join(root, 'node_modules', '.bin', process.platform === 'win32' ? 'tsx.cmd' : 'tsx');
-// --conditions=source resolves @crumbproof/shared to its TypeScript source (no build needed).
-// Paths on the command line are read from where the user ran npm (INIT_CWD), not the root.
-const run = spawnSync(tsx, ['--conditions=source', join(root, 'api', 'src', 'cli', 'declare.ts'), ...process.argv.slice(2)], {
-  cwd: process.env.INIT_CWD ?? process.cwd(),
-  stdio: 'inherit',
-});
-if (run.error) {
-  process.stderr.write(`Cannot run ${tsx}: ${run.error.message}\n`);
-  process.exit(1);
-}
-process.exit(run.status ?? 1);
+runCli('declare');

@@ -241,6 +241,9 @@ for (let n = 0; n <= 5; n++)
     requires: NEEDS_ITEM,
   };
 
+/** True for an AI of predefined length, which needs no separator after it (GS1 General Specifications, from memory). */
+export const isPredefinedLength = (ai: string): boolean => AI_RULES[ai]?.fixed === true;
+
 /** The application identifiers this product encodes, each with its data title. */
 export const SUPPORTED_AIS: ReadonlyArray<{ ai: string; title: string }> = Object.entries(AI_RULES).map(([ai, rule]) => ({
   ai,
@@ -287,7 +290,7 @@ export function elementString(elements: Gs1Element[]): Gs1ElementStringResult {
   }
   if (problems.length > 0) return { ok: false, problems };
 
-  const fixed = (ai: string) => AI_RULES[ai]?.fixed === true;
+  const fixed = isPredefinedLength;
   const ordered = [...elements.filter((e) => fixed(e.ai)), ...elements.filter((e) => !fixed(e.ai))];
   const hri = ordered.map(({ ai, value }) => `(${ai})${value}`).join('');
   const data = ']C1' + ordered.map(({ ai, value }, i) => `${ai}${value}${!fixed(ai) && i < ordered.length - 1 ? GS : ''}`).join('');
