@@ -113,6 +113,15 @@ export function containsFor(all: LeafFacts[], rules: RegimeRules, sulphitesDecla
   return rules.groups.flatMap((g) => found.get(g.code) ?? []);
 }
 
+/**
+ * A citation as people read it: reference-data/regimes.json tags each citation with how it was
+ * confirmed ([read] in the published text, [memory] recalled); that tag is for the data's
+ * maintainers, not for a declaration's reader.
+ */
+export function citation(text: string): string {
+  return text.replace(/\s*\[(read|memory|computed|inspected)\]/g, '').trim();
+}
+
 export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
   const out: ExemptUse[] = [];
   for (const facts of all) {
@@ -127,7 +136,7 @@ export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
           name: facts.ingredient.name,
           source: use.source,
           form: use.form,
-          basis: ex.basis,
+          basis: citation(ex.basis),
           via: [facts.node.path],
         });
     }

@@ -152,6 +152,15 @@ describe('declare', () => {
     },
   );
 
+  it('names the exemption by its point of Regulation (EU) No 1169/2011 Annex II, in words a reader can use', () => {
+    const d = declare(layered(), 'gateau', refs, { regime: 'EU' });
+    expect(d.exempt[0].basis).toMatch(/Annex II 1\(a\)/);
+    const notice = d.warnings.find((w) => w.code === 'exempt-form')!;
+    expect(notice.message).toMatch(/Annex II 1\(a\)/);
+    // reference-data/regimes.json tags each citation with how it was confirmed; readers never see the tag.
+    expect(`${d.exempt[0].basis} ${notice.message}`).not.toMatch(/\[(read|memory)\]/);
+  });
+
   it('US: fully refined soybean oil is not declared (FD&C Act 201(qq) highly refined oils, from memory)', () => {
     const b = book(
       [ing('oil', { name: 'Soybean oil', contains: [{ source: 'soy', form: 'refined-oil' }] }), ing('flour', { contains: ['wheat'] })],
