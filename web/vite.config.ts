@@ -23,6 +23,12 @@ export default defineConfig({
         codeSplitting: {
           groups: [
             { name: 'chakra', test: /node_modules[\\/](@chakra-ui|@ark-ui|@zag-js|@emotion|@pandacss)/ },
+            // The label renderer's libraries load with the Labels page's preview only (import()), never with the app.
+            {
+              name: 'label-renderer',
+              test: /node_modules[\\/](pdfmake|bwip-js|fontkit|brotli|dfa|restructure|tiny-inflate|unicode-properties|unicode-trie)[\\/]/,
+              priority: 2,
+            },
             { name: 'vendor', test: /node_modules/ },
           ],
         },

@@ -128,12 +128,7 @@ export function toBookRecipe(values: EditorValues): BookRecipe {
   return recipe;
 }
 
-/** For number inputs: an empty box is "not given", never zero. */
-export function numberOrUndefined(value: unknown): number | undefined {
-  if (value === '' || value === null || value === undefined) return undefined;
-  const n = typeof value === 'number' ? value : Number(value);
-  return Number.isNaN(n) ? undefined : n;
-}
+export { numberOrUndefined } from '@/lib/number-input';
 
 const bookResolver = zodResolver(bookRecipeSchema);
 
