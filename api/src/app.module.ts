@@ -11,6 +11,7 @@ import { DeclarationsModule } from './declarations/declarations.module';
 import { HealthModule } from './health/health.module';
 import { IngredientsModule } from './ingredients/ingredients.module';
 import { KitchenModule } from './kitchen/kitchen.module';
+import { LabelsModule } from './labels/labels.module';
 import { RecipesModule } from './recipes/recipes.module';
 import { ReferenceModule } from './reference/reference.module';
 import { SwapsModule } from './swaps/swaps.module';
@@ -31,6 +32,7 @@ import { UsersModule } from './users/users.module';
     RecipesModule,
     DeclarationsModule,
     SwapsModule,
+    LabelsModule,
     ReferenceModule,
     SeedModule,
   ],

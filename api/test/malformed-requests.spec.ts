@@ -76,6 +76,20 @@ const user = (over: Record<string, unknown> = {}) => ({
   ...over,
 });
 
+const labelRun = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  template: 'product',
+  items: [{ product: 'vegan-brownie', quantity: 2 }],
+  productionDate: '2026-12-02',
+  ...over,
+});
+const labelSettings = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  batchPattern: '{YY}{MM}{DD}-{P}-{N}',
+  gs1CompanyPrefix: '9521234',
+  ssccExtension: 0,
+  caseIndicator: 1,
+  ...over,
+});
+
 const json = (body: unknown): Sent => ({ payload: JSON.stringify(body), headers: { 'content-type': 'application/json' } });
 const raw = (payload: string | Buffer, type: string): Sent => ({ payload, headers: { 'content-type': type } });
 const nothing = (): Sent => ({ headers: {} });
@@ -112,6 +126,8 @@ const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
   },
   { method: 'POST', url: '/api/composition/scan', body: { text: 'Wheat flour, butter (milk)' } },
   { method: 'POST', url: '/api/declarations/preview', body: recipe() },
+  { method: 'POST', url: '/api/labels/runs', body: labelRun() },
+  { method: 'PUT', url: '/api/labels/settings', body: labelSettings() },
 ];
 
 /** What is wrong with a JSON body itself, tried on every JSON route. */
@@ -963,6 +979,127 @@ const CORPUS: MalformedRequest[] = [
     names: /one file|file/,
   },
 
+  // Labels: POST /api/labels/runs (nothing printed or logged) and PUT /api/labels/settings
+  ...(
+    [
+      [
+        'a production date that does not exist',
+        labelRun({ productionDate: '2026-02-29' }),
+        400,
+        /^productionDate: 2026-02-29 is not a date that exists/m,
+      ],
+      [
+        'a production date in another form',
+        labelRun({ productionDate: '02/12/2026' }),
+        400,
+        /^productionDate: Write the date as YYYY-MM-DD/m,
+      ],
+      [
+        'a count of zero',
+        labelRun({ items: [{ product: 'vegan-brownie', quantity: 0 }] }),
+        400,
+        /^items\.0\.quantity: Print at least 1 label/m,
+      ],
+      [
+        'a count of a fraction',
+        labelRun({ items: [{ product: 'vegan-brownie', quantity: 1.5 }] }),
+        400,
+        /^items\.0\.quantity: .*whole number/m,
+      ],
+      [
+        'a count above a run',
+        labelRun({ items: [{ product: 'vegan-brownie', quantity: 1001 }] }),
+        400,
+        /^items\.0\.quantity: Print at most 1000/m,
+      ],
+      ['no products', labelRun({ items: [] }), 400, /^items: Pick at least one product/m],
+      [
+        'one product twice',
+        labelRun({
+          items: [
+            { product: 'vegan-brownie', quantity: 1 },
+            { product: 'vegan-brownie', quantity: 2 },
+          ],
+        }),
+        400,
+        /^items: List each product once/m,
+      ],
+      ['a batch code with a space', labelRun({ batch: 'LOT 7' }), 400, /^batch: .*character set 82.*a space/m],
+      ['a batch code with an accent', labelRun({ batch: 'LOTÉ7' }), 400, /^batch: .*character set 82.*'É'/m],
+      ['a batch code of 21 characters', labelRun({ batch: 'B'.repeat(21) }), 400, /^batch: .*at most 20 characters/m],
+      ['a batch code that looks like SQL', labelRun({ batch: "7'; DROP TABLE label_runs; --" }), 400, /^batch: /m],
+      ['a template that does not exist', labelRun({ template: 'poster' }), 400, /^template: There is no label template 'poster'/m],
+      ['a template name that looks like a path', labelRun({ template: '../package' }), 400, /^template: /m],
+      [
+        'a product that does not exist',
+        labelRun({ items: [{ product: 'no-such-cake', quantity: 1 }] }),
+        400,
+        /^items\.0\.product: There is no product 'no-such-cake'/m,
+      ],
+      [
+        'a product that is not for sale',
+        labelRun({ items: [{ product: 'pastry-cream', quantity: 1 }] }),
+        400,
+        /^items\.0\.product: .*not for sale/m,
+      ],
+      [
+        'a product in capitals',
+        labelRun({ items: [{ product: 'VEGAN-BROWNIE', quantity: 1 }] }),
+        400,
+        /^items\.0\.product: Use lower-case letters/m,
+      ],
+      ['units per case on a product label', labelRun({ unitsPerCase: 6 }), 400, /^unitsPerCase: /m],
+      ['an override without a reason', labelRun({ override: {} }), 400, /^override\.reason: /m],
+      [
+        'an override when every revision is current',
+        labelRun({ override: { reason: 'Spoiled in the printer this morning.' } }),
+        400,
+        /^override: /m,
+      ],
+      [
+        'a revision that does not exist',
+        labelRun({ items: [{ product: 'vegan-brownie', quantity: 1, revision: 99 }] }),
+        400,
+        /^items\.0\.revision: .*has no revision 99/m,
+      ],
+    ] as const
+  ).map(([what, body, status, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/labels/runs',
+    send: () => json(body),
+    status,
+    names,
+  })),
+  ...(
+    [
+      ['an unknown token', labelSettings({ batchPattern: '{YY}{MM}{DD}-{Q}-{N}' }), /^batchPattern: Unknown token \{Q\}/m],
+      ['a pattern without a sequence', labelSettings({ batchPattern: '{YY}{MM}{DD}-{P}' }), /^batchPattern: Put a sequence token/m],
+      [
+        'a pattern that gives codes too long',
+        labelSettings({ batchPattern: '{YYYY}{MM}{DD}-{P}-{P}-{NNN}' }),
+        /^batchPattern: .*at most 20 characters/m,
+      ],
+      ['a pattern with a space', labelSettings({ batchPattern: 'L {JJJ}{N}' }), /^batchPattern: .*character set 82/m],
+      [
+        'a company prefix of letters',
+        labelSettings({ gs1CompanyPrefix: '95212AB' }),
+        /^gs1CompanyPrefix: A GS1 company prefix has 6 to 12 digits/m,
+      ],
+      ['a company prefix of 13 digits', labelSettings({ gs1CompanyPrefix: '9521234567890' }), /^gs1CompanyPrefix: /m],
+      ['an extension digit of 10', labelSettings({ ssccExtension: 10 }), /^ssccExtension: Give the SSCC extension digit, 0 to 9/m],
+      ['a case indicator of 9', labelSettings({ caseIndicator: 9 }), /^caseIndicator: Give the case indicator digit, 1 to 8/m],
+      ['a case indicator of 0', labelSettings({ caseIndicator: 0 }), /^caseIndicator: /m],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'PUT' as const,
+    url: '/api/labels/settings',
+    send: () => json(body),
+    status: 400,
+    names,
+  })),
+
   // Routes that do not exist: nothing can be deleted
   ...(
     [
@@ -974,6 +1111,8 @@ const CORPUS: MalformedRequest[] = [
       ['DELETE', '/api/specifications/1/file'],
       ['PATCH', '/api/ingredients/butter'],
       ['PUT', '/api/kitchen'],
+      ['DELETE', '/api/labels/runs/1/pdf'],
+      ['PUT', '/api/labels/runs'],
     ] as const
   ).map(([method, url]) => ({
     what: 'a method the route does not take',

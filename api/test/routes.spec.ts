@@ -52,6 +52,12 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'GET /api/reference/nutrients': [401, 403, 200, 200],
   'GET /api/reference/allergen-sources': [401, 200, 200, 200],
   'POST /api/composition/scan': [401, 403, 400, 400],
+  'GET /api/labels/templates': [401, 403, 200, 200],
+  'GET /api/labels/settings': [401, 403, 404, 404],
+  'PUT /api/labels/settings': [401, 403, 403, 404],
+  'POST /api/labels/runs': [401, 403, 400, 400],
+  'GET /api/labels/runs': [401, 403, 404, 404],
+  'GET /api/labels/runs/:id/pdf': [401, 403, 404, 404],
   // The OpenAPI document and its viewer are public: they describe the routes, not the kitchen.
   'GET /api/docs': [200, 200, 200, 200],
   'GET /api/docs/': [200, 200, 200, 200],

@@ -3,9 +3,11 @@ import { ConfigService } from '@nestjs/config';
 import { BooksService } from '../books/books.service';
 import { isDemoKitchen, type AppConfig } from '../config/config';
 import { KitchenService } from '../kitchen/kitchen.service';
+import { LabelSettingsRepository } from '../labels/label-settings.repository';
 import { hashPassword } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
 import demoBook from './seeders/demo-book.json';
+import { DEMO_LABEL_SETTINGS } from './seeders/demo-labels';
 import { DEMO_PASSWORD, DEMO_SITE_ADDRESS, DEMO_USERS } from './seeders/demo-users';
 
 /**
@@ -20,6 +22,7 @@ export class SeedService {
     private readonly users: UsersRepository,
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
+    private readonly labelSettings: LabelSettingsRepository,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
@@ -35,6 +38,7 @@ export class SeedService {
     }
     const hash = await hashPassword(DEMO_PASSWORD);
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
+    await this.labelSettings.save((await this.kitchen.current()).id, DEMO_LABEL_SETTINGS);
     for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash, demoPassword: true });
     this.logger.log(
       `Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`,

@@ -1,0 +1,366 @@
+import { createHash } from 'node:crypto';
+import { Injectable, StreamableFile } from '@nestjs/common';
+import {
+  batchProblem,
+  expandBatchPattern,
+  labelSettingsSchema,
+  sscc,
+  ssccCapacity,
+  type BookRecipe,
+  type FieldError,
+  type LabelRun,
+  type LabelRunLogItem,
+  type LabelRunRequest,
+  type LabelSettings,
+  type Sale,
+  type ServedDeclaration,
+} from '@crumbproof/shared';
+import type { Transaction } from 'sequelize';
+import { AppError } from '../common/app-error';
+import type { AuthUser } from '../common/current-user.decorator';
+import type { Page } from '../common/total-count';
+import { TransactionRunner } from '../common/transaction';
+import { BooksService, type KitchenState } from '../books/books.service';
+import { DeclarationsService } from '../declarations/declarations.service';
+import { KitchenService } from '../kitchen/kitchen.service';
+import type { SiteRow } from '../kitchen/site.repository';
+import { LabelCountersRepository } from './label-counters.repository';
+import { LabelPrinter, type PrintLabel } from './label-printer';
+import type { LabelRunQuery } from './label-run-query';
+import { LabelRunsRepository, type LabelRunRow, type RunLine } from './label-runs.repository';
+import { LabelSettingsRepository } from './label-settings.repository';
+
+/** What an item of a run was rendered from, kept with the run so that the same label can be printed again. */
+export interface PrintSource {
+  declaration: ServedDeclaration;
+  /** The product's sale details (print details) at that revision. */
+  sale: Sale;
+}
+
+/** An item of a run once its product is found: where it stands and what it is printed from. */
+interface PlannedItem {
+  product: BookRecipe;
+  rowId: number;
+  revision: number;
+  quantity: number;
+  source: PrintSource;
+  /** Where the item sits in the request, for messages: items.N. */
+  path: string;
+}
+
+const DEFAULT_SETTINGS: LabelSettings = labelSettingsSchema.parse({});
+
+/**
+ * Print runs of labels and the print log. A run takes each product's kept declaration (or, with
+ * a manager's override, the one an earlier run printed of a revision no longer current), gives
+ * out batch codes and SSCC serials, renders the labels through the shared renderer into a PDF and
+ * logs the run with that PDF, all in one transaction: a refused run changes nothing.
+ */
+@Injectable()
+export class LabelsService {
+  constructor(
+    private readonly kitchen: KitchenService,
+    private readonly books: BooksService,
+    private readonly declarations: DeclarationsService,
+    private readonly settingsRepo: LabelSettingsRepository,
+    private readonly runsRepo: LabelRunsRepository,
+    private readonly counters: LabelCountersRepository,
+    private readonly printer: LabelPrinter,
+    private readonly tx: TransactionRunner,
+  ) {}
+
+  templates() {
+    return this.printer.templates();
+  }
+
+  async settings(): Promise<LabelSettings> {
+    const site = await this.kitchen.current();
+    return (await this.settingsRepo.find(site.id)) ?? DEFAULT_SETTINGS;
+  }
+
+  async saveSettings(values: LabelSettings): Promise<LabelSettings> {
+    const site = await this.kitchen.current();
+    return this.settingsRepo.save(site.id, values);
+  }
+
+  async runs(query: LabelRunQuery): Promise<Page<LabelRun>> {
+    const state = await this.books.state();
+    const page = await this.runsRepo.search<LabelRunLogItem>(state.site.id, query);
+    return { items: page.items.map((r) => view(r, state)), total: page.total };
+  }
+
+  async pdf(id: string): Promise<StreamableFile> {
+    const site = await this.kitchen.current();
+    const n = /^[1-9]\d{0,8}$/.test(id) ? Number(id) : NaN;
+    const found = Number.isNaN(n) ? null : await this.runsRepo.findPdf(site.id, n);
+    if (!found) throw new AppError('not-found', `There is no print run ${id}.`);
+    return new StreamableFile(found.pdf, {
+      type: 'application/pdf',
+      length: found.pdf.length,
+      disposition: `attachment; filename="labels-run-${n}.pdf"`,
+    });
+  }
+
+  async print(request: LabelRunRequest, user: AuthUser): Promise<LabelRun> {
+    if (request.override && user.role !== 'manager')
+      throw new AppError('forbidden', 'Only a manager can print from a revision that is no longer current.', [
+        { path: 'override', message: 'Only a manager can give an override.' },
+      ]);
+    const template = this.printer.template(request.template);
+    if (!template)
+      throw refused('validation', [
+        {
+          path: 'template',
+          message: `There is no label template '${request.template}'. Use one of ${this.printer
+            .templates()
+            .map((x) => x.id)
+            .join(', ')}.`,
+        },
+      ]);
+    const isCase = template.template.purpose === 'case';
+    const caseOnly: FieldError[] = [];
+    if (!isCase && request.unitsPerCase !== undefined)
+      caseOnly.push({ path: 'unitsPerCase', message: 'Units per case are given for case labels only.' });
+    if (!isCase && request.shipment !== undefined)
+      caseOnly.push({ path: 'shipment', message: 'Shipment labels are printed with the case template only.' });
+    if (!template.printsBatch && request.batch !== undefined)
+      caseOnly.push({ path: 'batch', message: `The template '${request.template}' prints no batch code: leave the batch out.` });
+    if (request.batch !== undefined && request.items.length > 1)
+      caseOnly.push({
+        path: 'batch',
+        message:
+          'A batch code given by hand names one product’s production: print each product in a run of its own, or leave the batch out so the kitchen’s pattern gives each product its code.',
+      });
+    if (caseOnly.length > 0) throw refused('validation', caseOnly);
+
+    const state = await this.books.state();
+    const planned = await this.plan(request, state);
+
+    const { id } = await this.tx.run(async (t) => {
+      const settings = await this.settingsRepo.lockForRun(state.site.id, DEFAULT_SETTINGS, t);
+      const labels: PrintLabel[] = [];
+      const items: LabelRunLogItem[] = [];
+      const lines: RunLine[] = [];
+      for (const p of planned) {
+        const batch = !template.printsBatch ? '' : await this.batchFor(p, request, settings, state.site, t);
+        const serials = isCase && request.shipment ? await this.serialsFor(p, settings, state.site, t) : undefined;
+        const sale: Sale =
+          isCase && request.unitsPerCase !== undefined ? { ...p.source.sale, unitsPerCase: request.unitsPerCase } : p.source.sale;
+        const date = this.printer.dateOf(request.productionDate, sale);
+        labels.push({
+          declaration: p.source.declaration,
+          sale,
+          batch,
+          quantity: p.quantity,
+          revision: p.revision,
+          ...(serials ? { sscc: serials } : {}),
+          path: p.path,
+        });
+        items.push({
+          product: p.product.id,
+          name: p.product.name,
+          revision: p.revision,
+          basisComputedAt: p.source.declaration.basis.computedAt,
+          quantity: p.quantity,
+          batch,
+          dateMark: date ? (sale.dateMark ?? null) : null,
+          date,
+          ...(serials ? { sscc: [serials[0], serials[serials.length - 1]] as [string, string] } : {}),
+        });
+        lines.push({ recipeId: p.rowId, productCode: p.product.id, revision: p.revision, batch, date, quantity: p.quantity });
+      }
+      const rendered = await this.printer.render({
+        template: template.template,
+        labels,
+        productionDate: request.productionDate,
+        site: state.site,
+        printedAt: new Date(),
+      });
+      if (!rendered.ok) throw refused('label-refused', rendered.problems, 'The labels cannot be printed.');
+      const sha256 = createHash('sha256').update(rendered.pdf).digest('hex');
+      const runId = await this.runsRepo.add(
+        {
+          siteId: state.site.id,
+          printedBy: user.id,
+          printedByName: user.name,
+          template: request.template,
+          productionDate: request.productionDate,
+          request,
+          items,
+          lines,
+          sources: planned.map((p) => p.source),
+          overrideReason: request.override?.reason ?? null,
+          pdf: rendered.pdf,
+          sha256,
+        },
+        t,
+      );
+      return { id: runId };
+    });
+    const row = await this.runsRepo.find<LabelRunLogItem>(state.site.id, id);
+    return view(row!, state);
+  }
+
+  /**
+   * Finds each product and what it is printed from: its current declaration, or, for a revision
+   * named that is no longer current, what the newest run of that revision printed (a manager's
+   * override with a reason only). Every problem is named at once; nothing is written.
+   */
+  private async plan(request: LabelRunRequest, state: KitchenState): Promise<PlannedItem[]> {
+    const fields: FieldError[] = [];
+    const planned: PlannedItem[] = [];
+    let stale = false;
+    let conflict = false;
+    for (const [i, item] of request.items.entries()) {
+      const path = `items.${i}`;
+      const head = state.heads.get(item.product);
+      const product = head?.kind === 'recipe' ? state.book.recipes.find((r) => r.id === item.product) : undefined;
+      if (!head || !product) {
+        fields.push({ path: `${path}.product`, message: `There is no product '${item.product}'.` });
+        continue;
+      }
+      if (!product.sale) {
+        fields.push({
+          path: `${path}.product`,
+          message: `${product.name} is not for sale: give it sale details before printing its labels.`,
+        });
+        continue;
+      }
+      const wanted = item.revision ?? head.revision;
+      if (wanted > head.revision) {
+        fields.push({
+          path: `${path}.revision`,
+          message: `${product.name} has no revision ${wanted}: its current revision is ${head.revision}.`,
+        });
+        continue;
+      }
+      if (wanted !== head.revision) {
+        stale = true;
+        if (!request.override) {
+          conflict = true;
+          fields.push({
+            path: `${path}.revision`,
+            message: `Revision ${wanted} of ${product.name} is no longer current (revision ${head.revision} is). A manager can print it again with an override and a reason.`,
+          });
+          continue;
+        }
+        const source = await this.runsRepo.findSource<PrintSource>(state.site.id, product.id, wanted);
+        if (!source) {
+          fields.push({
+            path: `${path}.revision`,
+            message: `No label of revision ${wanted} of ${product.name} was ever printed, so there is none to print again; print revision ${head.revision}.`,
+          });
+          continue;
+        }
+        planned.push({ product, rowId: head.rowId, revision: wanted, quantity: item.quantity, source, path });
+        continue;
+      }
+      const declaration = await this.declarations.forProduct(product.id, undefined, state);
+      planned.push({
+        product,
+        rowId: head.rowId,
+        revision: head.revision,
+        quantity: item.quantity,
+        source: { declaration, sale: product.sale },
+        path,
+      });
+    }
+    if (fields.length > 0) throw refused(conflict ? 'conflict' : 'validation', fields);
+    if (request.override && !stale)
+      throw refused('validation', [
+        {
+          path: 'override',
+          message:
+            'An override is for printing a revision that is no longer current; every product here is printed from its current revision.',
+        },
+      ]);
+    return planned;
+  }
+
+  /**
+   * The item's batch code: the one given (which may name this product and day again, as a
+   * reprint does, but never another's), or the kitchen's pattern with the product's next
+   * sequence of the day, skipping any code another product or day already has.
+   */
+  private async batchFor(
+    p: PlannedItem,
+    request: LabelRunRequest,
+    settings: LabelSettings,
+    site: SiteRow,
+    t: Transaction,
+  ): Promise<string> {
+    const day = request.productionDate;
+    if (request.batch !== undefined) {
+      const given = await this.counters.findBatch(site.id, request.batch, t);
+      if (given && (given.productCode !== p.product.id || given.day !== day))
+        throw refused('conflict', [
+          {
+            path: 'batch',
+            message: `Batch ${request.batch} is already the batch of '${given.productCode}' made on ${given.day}; a batch code names one product and one day.`,
+          },
+        ]);
+      if (!given) await this.counters.addBatch(site.id, { code: request.batch, productCode: p.product.id, day, sequence: 0 }, t);
+      return request.batch;
+    }
+    let sequence = (await this.counters.lastSequence(site.id, p.product.id, day, t)) + 1;
+    for (;;) {
+      const code = expandBatchPattern(settings.batchPattern, { date: day, product: p.product.id, sequence });
+      const problem = batchProblem(code);
+      if (problem)
+        throw refused('label-refused', [
+          { path: `${p.path}.product`, message: `The kitchen's batch pattern gives ${p.product.name} the code '${code}': ${problem}` },
+        ]);
+      if (!(await this.counters.findBatch(site.id, code, t))) {
+        await this.counters.addBatch(site.id, { code, productCode: p.product.id, day, sequence }, t);
+        return code;
+      }
+      sequence++;
+    }
+  }
+
+  /** One SSCC per case of the item, from the kitchen's counter: never one given before. */
+  private async serialsFor(p: PlannedItem, settings: LabelSettings, site: SiteRow, t: Transaction): Promise<string[]> {
+    const prefix = settings.gs1CompanyPrefix;
+    if (prefix === null)
+      throw refused('label-refused', [
+        {
+          path: 'shipment',
+          message: 'Shipment labels carry an SSCC, which needs the kitchen’s GS1 company prefix: a manager sets it in the label settings.',
+        },
+      ]);
+    const first = await this.counters.takeSerials(site.id, prefix, settings.ssccExtension, p.quantity, t);
+    const capacity = ssccCapacity(prefix);
+    if (first + p.quantity > capacity)
+      throw refused('label-refused', [
+        {
+          path: `${p.path}.quantity`,
+          message: `The SSCC serials of company prefix ${prefix} with extension digit ${settings.ssccExtension} run out at ${capacity - 1}; ${capacity - first} are left. Use another extension digit.`,
+        },
+      ]);
+    return Array.from({ length: p.quantity }, (_, k) => sscc(settings.ssccExtension, prefix, first + k));
+  }
+}
+
+function refused(
+  code: 'validation' | 'conflict' | 'label-refused',
+  fields: FieldError[],
+  lead = 'The labels cannot be printed.',
+): AppError {
+  return new AppError(code, `${lead} ${fields.map((f) => f.message).join(' ')}`, fields);
+}
+
+/** A logged run as the API sends it, with whether every item's revision is still its product's current one. */
+function view(r: LabelRunRow<LabelRunLogItem>, state: KitchenState): LabelRun {
+  return {
+    id: r.id,
+    printedAt: r.printedAt.toISOString(),
+    printedBy: { id: r.printedBy, name: r.printedByName },
+    template: r.template,
+    productionDate: r.productionDate,
+    items: r.items,
+    override: r.overrideReason === null ? null : { reason: r.overrideReason },
+    pdfBytes: r.sizeBytes,
+    sha256: r.sha256,
+    current: r.items.every((i) => state.heads.get(i.product)?.revision === i.revision),
+  };
+}
