@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { labelRunSchema, verifyGs1Key, type Book, type BookRecipe, type LabelRun } from '@crumbproof/shared';
+import { formatPrintedAt } from '@crumbproof/shared/labels';
 import { QueryTypes } from 'sequelize';
 import { pdfText } from './fixtures/pdf-text';
 import { tableChecksums } from './fixtures/table-checksums';
@@ -241,6 +242,8 @@ describe('label runs and the print log (real MariaDB)', () => {
     // The chart carries no batch code, so none is given out for it.
     expect(chart.items.map((i) => i.batch)).toEqual(['', '']);
     const chartText = pdfText((await req('GET', `/api/labels/runs/${chart.id}/pdf`, manager)).rawPayload);
+    // The time the chart prints is the time the log keeps.
+    expect(chartText).toContain(`Printed ${formatPrintedAt(chart.printedAt)}`);
     // Each product with the revision it was printed from (a long name may break over two lines).
     expect(chartText).toContain(`Dark chocolate brownie (vegan) revision ${await revisionOf('vegan-brownie')}`);
     expect(chartText).toMatch(new RegExp(`lemon shortbread revision ${await revisionOf('lemon-shortbread')}`));

@@ -18,6 +18,8 @@ export interface RunLine {
 
 export interface NewLabelRun<Item, Source> {
   siteId: number;
+  /** When it was printed: the time the labels show (the chart) is the time logged. */
+  printedAt: Date;
   printedBy: number;
   printedByName: string;
   template: string;
@@ -83,8 +85,8 @@ export class LabelRunsRepository {
 
   /** Logs a run with its PDF and one searchable row per item; returns the run's id. */
   async add<Item, Source>(run: NewLabelRun<Item, Source>, t: Transaction): Promise<number> {
-    const { lines, ...values } = run;
-    const created = await this.runs.create({ ...values, sizeBytes: run.pdf.length }, { transaction: t });
+    const { lines, printedAt, ...values } = run;
+    const created = await this.runs.create({ ...values, createdAt: printedAt, sizeBytes: run.pdf.length }, { transaction: t });
     await this.lines.bulkCreate(
       lines.map((l, position) => ({ ...l, runId: created.id, siteId: run.siteId, position, productionDate: run.productionDate })),
       { transaction: t },

@@ -136,6 +136,7 @@ export class LabelsService {
     const state = await this.books.state();
     const planned = await this.plan(request, state);
 
+    const printedAt = new Date();
     const { id } = await this.tx.run(async (t) => {
       const settings = await this.settingsRepo.lockForRun(state.site.id, DEFAULT_SETTINGS, t);
       const labels: PrintLabel[] = [];
@@ -174,13 +175,14 @@ export class LabelsService {
         labels,
         productionDate: request.productionDate,
         site: state.site,
-        printedAt: new Date(),
+        printedAt,
       });
       if (!rendered.ok) throw refused('label-refused', rendered.problems, 'The labels cannot be printed.');
       const sha256 = createHash('sha256').update(rendered.pdf).digest('hex');
       const runId = await this.runsRepo.add(
         {
           siteId: state.site.id,
+          printedAt,
           printedBy: user.id,
           printedByName: user.name,
           template: request.template,
