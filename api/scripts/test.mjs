@@ -7,7 +7,18 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runChecks } from './lib/checks.mjs';
 import { ensureMariadbInstalled, freePort, instance } from './lib/mariadb.mjs';
-import { buildAll, dbEnv, ensureChromium, ensureNodeModules, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
+import {
+  buildAll,
+  dbEnv,
+  ensureChromium,
+  ensureNodeModules,
+  ensurePoppler,
+  ROOT,
+  run,
+  startChild,
+  step,
+  waitForHttp,
+} from './lib/workspace.mjs';
 
 const STEPS = ['checks', 'api', 'web', 'e2e'];
 const named = process.argv.slice(2);
@@ -85,6 +96,7 @@ async function main() {
 async function suites() {
   ensureMariadbInstalled((m) => step(m));
   if (steps.e2e) ensureChromium();
+  if (steps.api || steps.e2e) ensurePoppler();
 
   const port = await freePort();
   const db = instance({ dir: join(scratch, 'mariadb'), port });

@@ -6,7 +6,10 @@ import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..', '..');
 
-/** Runs api/src/cli/NAME.ts with the arguments npm was given. */
+/**
+ * Runs api/src/cli/NAME.ts with the arguments npm was given.
+ * @param {string} name
+ */
 export function runCli(name) {
   const tsx = join(root, 'node_modules', '.bin', process.platform === 'win32' ? 'tsx.cmd' : 'tsx');
   // --conditions=source resolves @crumbproof/shared to its TypeScript source (no build needed).

@@ -35,10 +35,24 @@ export function ensureNodeModules() {
   if (!existsSync(lock)) throw new Error('package-lock.json is missing.');
 }
 
+/** @param {string[]} packages Debian packages the tests need, each installed when its program is missing. */
+function ensureDebian(packages) {
+  /** @type {Record<string, string>} */
+  const programs = { chromium: '/usr/bin/chromium', 'poppler-utils': '/usr/bin/pdftoppm' };
+  const missing = packages.filter((p) => !existsSync(programs[p] ?? p));
+  if (missing.length === 0) return;
+  step(`Not found: installing Debian’s ${missing.join(' and ')} for the tests…`);
+  aptInstall(missing);
+}
+
+/** Chromium for the browser tests. */
 export function ensureChromium() {
-  if (existsSync('/usr/bin/chromium')) return;
-  step('Chromium not found: installing Debian’s chromium for the browser tests…');
-  aptInstall(['chromium']);
+  ensureDebian(['chromium']);
+}
+
+/** poppler-utils' pdftoppm, which turns label PDFs into images for the barcode tests. */
+export function ensurePoppler() {
+  ensureDebian(['poppler-utils']);
 }
 
 /** Builds shared, api and web. */

@@ -78,7 +78,7 @@ export const chartBlockSchema = z.strictObject({
 });
 export type ChartBlock = z.infer<typeof chartBlockSchema>;
 
-const leafBlockSchema = z.union([textBlockSchema, barcodeBlockSchema, chartBlockSchema]);
+const leafBlockSchema = z.discriminatedUnion('type', [textBlockSchema, barcodeBlockSchema, chartBlockSchema]);
 export type LeafBlock = z.infer<typeof leafBlockSchema>;
 
 /** Blocks side by side: each column takes its width, or shares what the others leave. */
@@ -98,7 +98,7 @@ export const rowBlockSchema = z.strictObject({
 });
 export type RowBlock = z.infer<typeof rowBlockSchema>;
 
-export const blockSchema = z.union([textBlockSchema, barcodeBlockSchema, chartBlockSchema, rowBlockSchema]);
+export const blockSchema = z.discriminatedUnion('type', [textBlockSchema, barcodeBlockSchema, chartBlockSchema, rowBlockSchema]);
 export type Block = z.infer<typeof blockSchema>;
 
 const sheetSchema = z.strictObject({
