@@ -112,6 +112,19 @@ describe('label runs and the print log (real MariaDB)', () => {
     expect(run.items[0].basisComputedAt).toBe(declaration.basis.computedAt);
   });
 
+  it('offers the templates with what each is for and whether it prints a batch code', async () => {
+    const res = await req('GET', '/api/labels/templates', chef);
+    expect(res.statusCode).toBe(200);
+    const templates = res.json<{ id: string; purpose: string; printsBatch: boolean; blocks: unknown[] }[]>();
+    expect(templates.map((x) => [x.id, x.purpose, x.printsBatch]).sort()).toEqual([
+      ['case', 'case', true],
+      ['chart', 'chart', false],
+      ['product', 'unit', true],
+      ['ticket', 'unit', false],
+    ]);
+    for (const x of templates) expect(x.blocks.length).toBeGreaterThan(0);
+  });
+
   it('finds runs by product, by batch and by production day, newest first', async () => {
     const a = await print(chef, {
       template: 'product',

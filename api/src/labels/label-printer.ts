@@ -39,8 +39,9 @@ export class LabelPrinter {
 
   constructor(private readonly rules: RulesService) {}
 
-  templates(): LabelTemplate[] {
-    return [...this.loaded.values()].map((t) => t.template);
+  /** Every template as the web lays it out in its preview, with whether its labels carry a batch code. */
+  templates(): Array<LabelTemplate & { printsBatch: boolean }> {
+    return [...this.loaded.values()].map((t) => ({ ...t.template, printsBatch: t.printsBatch }));
   }
 
   template(id: string): LoadedTemplate | undefined {
