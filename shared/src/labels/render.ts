@@ -257,7 +257,8 @@ function allergenWords(d: Declaration): Run[] {
   if (d.contains.length === 0) return plain('Allergens: none recorded in the ingredients.');
   const runs: Run[] = [{ text: 'Contains: ', bold: false }];
   d.contains.forEach((c, i) => {
-    const sources = [...new Set(c.sources.map((s) => SOURCE_LABELS[s]))].filter((s) => s !== c.label);
+    // The sources in brackets where the group's name does not already say them: "nuts (almond)", but "eggs".
+    const sources = [...new Set(c.sources.map((s) => SOURCE_LABELS[s]))].filter((s) => !c.label.toLowerCase().includes(s.toLowerCase()));
     runs.push({ text: c.label, bold: true });
     if (sources.length > 0) runs.push({ text: ` (${sources.join(', ')})`, bold: false });
     runs.push({ text: i === d.contains.length - 1 ? '.' : ', ', bold: false });
