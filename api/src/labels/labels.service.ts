@@ -139,6 +139,7 @@ export class LabelsService {
     const printedAt = new Date();
     const { id } = await this.tx.run(async (t) => {
       const settings = await this.settingsRepo.lockForRun(state.site.id, DEFAULT_SETTINGS, t);
+      await this.assertUnchanged(planned, state, t);
       const labels: PrintLabel[] = [];
       const items: LabelRunLogItem[] = [];
       const lines: RunLine[] = [];
@@ -277,6 +278,26 @@ export class LabelsService {
         },
       ]);
     return planned;
+  }
+
+  /**
+   * Refuses the run when a product printed from its current revision was saved again since the
+   * run was planned, so that no label is printed from a declaration that has just stopped being
+   * current. Read after the run's lock, so it sees every write committed before it.
+   */
+  private async assertUnchanged(planned: PlannedItem[], before: KitchenState, t: Transaction): Promise<void> {
+    const now = await this.books.state(t);
+    const fields: FieldError[] = [];
+    for (const p of planned) {
+      const was = before.heads.get(p.product.id)?.revision;
+      const is = now.heads.get(p.product.id)?.revision;
+      if (p.revision === was && is !== was)
+        fields.push({
+          path: `${p.path}.product`,
+          message: `${p.product.name} was saved again (revision ${is ?? 'none'}) while this run was being prepared; look at it again and print.`,
+        });
+    }
+    if (fields.length > 0) throw refused('conflict', fields);
   }
 
   /**
