@@ -1,4 +1,7 @@
-import { formatLabelDate, formatPrintedAt, labelDate } from './dates';
+import { formatLabelDate as withNoBreakSpaces, formatPrintedAt, labelDate } from './dates';
+
+/** The date as printed, its no-break spaces shown as spaces. */
+const formatLabelDate = (...args: Parameters<typeof withNoBreakSpaces>) => withNoBreakSpaces(...args).replace(/\u00a0/g, ' ');
 
 describe('label dates', () => {
   it('add the shelf life to the production date across months, years and 29 February', () => {
@@ -19,6 +22,10 @@ describe('label dates', () => {
     expect(formatLabelDate('2026-04-09', 'best-before', 'CA')).toBe('BEST BEFORE / MEILLEUR AVANT 26 AL 09');
     // Food Standards Code Standard 1.2.5.
     expect(formatLabelDate('2026-12-02', 'use-by', 'ANZ')).toBe('Use by 2 Dec 2026');
+  });
+
+  it('keep the date itself on one line', () => {
+    expect(withNoBreakSpaces('2026-12-12', 'best-before', 'CA')).toBe('BEST BEFORE / MEILLEUR AVANT 26\u00a0DE\u00a012');
   });
 
   it('write the print time in UTC', () => {

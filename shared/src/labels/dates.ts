@@ -37,20 +37,31 @@ function nth(list: readonly string[], index: number): string {
   return value;
 }
 
-/** The date as the regime writes it on a label, with its words: "Best before 12.12.2026". */
+/** A no-break space: the parts of a date stay on one line. */
+const NBSP = '\u00a0';
+
+/** The date as the regime writes it on a label, with its words: "Best before 12.12.2026" (the date itself never broken over two lines). */
 export function formatLabelDate(isoDate: string, mark: DateMark, regime: Regime): string {
+  const [words, date] = labelDateParts(isoDate, mark, regime);
+  return `${words} ${date.replace(/ /g, NBSP)}`;
+}
+
+function labelDateParts(isoDate: string, mark: DateMark, regime: Regime): [string, string] {
   const [y, m, d] = isoDate.split('-') as [string, string, string];
   const month = Number(m) - 1;
   switch (regime) {
     case 'EU':
     case 'UK':
-      return `${mark === 'use-by' ? 'Use by' : 'Best before'} ${d}.${m}.${y}`;
+      return [mark === 'use-by' ? 'Use by' : 'Best before', `${d}.${m}.${y}`];
     case 'US':
-      return `${mark === 'use-by' ? 'USE BY' : 'BEST BY'} ${nth(MONTHS_EN, month).toUpperCase()} ${d} ${y}`;
+      return [mark === 'use-by' ? 'USE BY' : 'BEST BY', `${nth(MONTHS_EN, month).toUpperCase()} ${d} ${y}`];
     case 'CA':
-      return `${mark === 'use-by' ? 'USE BY / UTILISER AVANT' : 'BEST BEFORE / MEILLEUR AVANT'} ${y.slice(2)} ${nth(MONTHS_CA, month)} ${d}`;
+      return [
+        mark === 'use-by' ? 'USE BY / UTILISER AVANT' : 'BEST BEFORE / MEILLEUR AVANT',
+        `${y.slice(2)} ${nth(MONTHS_CA, month)} ${d}`,
+      ];
     case 'ANZ':
-      return `${mark === 'use-by' ? 'Use by' : 'Best before'} ${Number(d)} ${nth(MONTHS_EN, month)} ${y}`;
+      return [mark === 'use-by' ? 'Use by' : 'Best before', `${Number(d)} ${nth(MONTHS_EN, month)} ${y}`];
   }
 }
 

@@ -110,9 +110,10 @@ export function wrapRuns(runs: Run[], sizePt: number, widthPt: number, fonts: La
   const items: Array<{ word: Run[] } | { space: Run }> = [];
   let word: Run[] = [];
   for (const run of runs)
-    for (const piece of run.text.split(/(\s+)/)) {
+    // Lines break at spaces, tabs and line breaks, never at a no-break space.
+    for (const piece of run.text.split(/([ \t\n\r]+)/)) {
       if (piece === '') continue;
-      if (/^\s+$/.test(piece)) {
+      if (/^[ \t\n\r]+$/.test(piece)) {
         if (word.length > 0) items.push({ word });
         word = [];
         items.push({ space: { text: ' ', bold: run.bold } });
