@@ -64,16 +64,15 @@ describe('label runs and the print log (real MariaDB)', () => {
     expect({ status: res.statusCode, body: res.statusCode === 201 ? 'printed' : res.json() }).toEqual({ status: 201, body: 'printed' });
     return labelRunSchema.parse(res.json());
   };
+  /** One product on product labels. */
+  const printOne = (cookie: string, product: string, productionDate: string, quantity: number) =>
+    print(cookie, { template: 'product', items: [{ product, quantity }], productionDate });
   const revisionOf = async (code: string) => (await req('GET', `/api/recipes/${code}`, chef)).json<{ revision: number }>().revision;
   const count = async (table: string) =>
     Number((await t.sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM \`${table}\``, { type: QueryTypes.SELECT, plain: true }))!.n);
 
   it('logs a run with its PDF, its batch code from the kitchen’s pattern and its date from the shelf life', async () => {
-    const run = await print(chef, {
-      template: 'product',
-      items: [{ product: 'vegan-brownie', quantity: 4 }],
-      productionDate: '2026-12-02',
-    });
+    const run = await printOne(chef, 'vegan-brownie', '2026-12-02', 4);
     expect(run).toMatchObject({
       template: 'product',
       productionDate: '2026-12-02',
@@ -126,11 +125,7 @@ describe('label runs and the print log (real MariaDB)', () => {
   });
 
   it('finds runs by product, by batch and by production day, newest first', async () => {
-    const a = await print(chef, {
-      template: 'product',
-      items: [{ product: 'lemon-shortbread', quantity: 2 }],
-      productionDate: '2026-11-20',
-    });
+    const a = await printOne(chef, 'lemon-shortbread', '2026-11-20', 2);
     const b = await print(chef, {
       template: 'product',
       items: [
@@ -139,11 +134,7 @@ describe('label runs and the print log (real MariaDB)', () => {
       ],
       productionDate: '2026-11-21',
     });
-    const c = await print(manager, {
-      template: 'product',
-      items: [{ product: 'vegan-brownie', quantity: 5 }],
-      productionDate: '2026-11-21',
-    });
+    const c = await printOne(manager, 'vegan-brownie', '2026-11-21', 5);
     const search = async (query: string) => {
       const res = await req('GET', `/api/labels/runs?${query}`, chef);
       expect(res.statusCode).toBe(200);
@@ -170,23 +161,11 @@ describe('label runs and the print log (real MariaDB)', () => {
     const [x, y] = await Promise.all([print(chef, body), print(manager, body)]);
     expect([x.items[0].batch, y.items[0].batch].sort()).toEqual(['261210-VEGANB-1', '261210-VEGANB-2']);
     // The tart and the tartlet both begin STRAWB: the second product of the day skips the code the first has.
-    const tart = await print(chef, {
-      template: 'product',
-      items: [{ product: 'strawberry-tart', quantity: 1 }],
-      productionDate: '2026-12-10',
-    });
-    const tartlet = await print(chef, {
-      template: 'product',
-      items: [{ product: 'strawberry-tartlet', quantity: 1 }],
-      productionDate: '2026-12-10',
-    });
+    const tart = await printOne(chef, 'strawberry-tart', '2026-12-10', 1);
+    const tartlet = await printOne(chef, 'strawberry-tartlet', '2026-12-10', 1);
     expect(tart.items[0].batch).toBe('261210-STRAWB-1');
     expect(tartlet.items[0].batch).toBe('261210-STRAWB-2');
-    const again = await print(chef, {
-      template: 'product',
-      items: [{ product: 'strawberry-tart', quantity: 1 }],
-      productionDate: '2026-12-10',
-    });
+    const again = await printOne(chef, 'strawberry-tart', '2026-12-10', 1);
     expect(again.items[0].batch).toBe('261210-STRAWB-3');
     const shared = await t.sequelize.query(
       "SELECT batch FROM label_run_items GROUP BY site_id, batch HAVING batch <> '' AND COUNT(DISTINCT product_code, production_date) > 1",
@@ -429,11 +408,7 @@ describe('label runs and the print log (real MariaDB)', () => {
     });
     const runs = await count('label_runs');
     // The current revision prints without an override.
-    const current = await print(chef, {
-      template: 'product',
-      items: [{ product: 'lemon-shortbread', quantity: 1 }],
-      productionDate: '2026-12-06',
-    });
+    const current = await printOne(chef, 'lemon-shortbread', '2026-12-06', 1);
     expect(current).toMatchObject({ current: true, override: null, items: [{ revision: revision + 1 }] });
     expect(await count('label_runs')).toBe(runs + 1);
   });
@@ -459,11 +434,7 @@ describe('label runs and the print log (real MariaDB)', () => {
     const good = { batchPattern: 'L{YY}{JJJ}{NN}', gs1CompanyPrefix: '9521234', ssccExtension: 3, caseIndicator: 2 };
     expect((await req('PUT', '/api/labels/settings', manager, good)).json()).toEqual(good);
     expect((await req('GET', '/api/labels/settings', chef)).json()).toEqual(good);
-    const run = await print(chef, {
-      template: 'product',
-      items: [{ product: 'vegan-brownie', quantity: 1 }],
-      productionDate: '2026-02-01',
-    });
+    const run = await printOne(chef, 'vegan-brownie', '2026-02-01', 1);
     expect(run.items[0].batch).toBe('L2603201');
   });
 });
