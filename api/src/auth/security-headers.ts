@@ -25,6 +25,8 @@ export async function registerSecurityHeaders(fastify: FastifyInstance, options:
         fontSrc: ["'self'", 'data:'],
         connectSrc: ["'self'"],
         objectSrc: ["'none'"],
+        // The Labels page previews a run as a PDF drawn in the browser and shown from a blob: URL.
+        frameSrc: ["'self'", 'blob:'],
         baseUri: ["'self'"],
         formAction: ["'self'"],
         frameAncestors: ["'none'"],

@@ -75,7 +75,7 @@ export function LabelPreview({ state, nameOf }: LabelPreviewProps) {
           </Text>
           <Frame
             title="Preview of the labels"
-            src={url ?? undefined}
+            src={url ? `${url}#navpanes=0&view=Fit` : undefined}
             w="100%"
             h={{ base: '32rem', lg: '40rem' }}
             borderWidth="1px"

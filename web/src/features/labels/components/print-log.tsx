@@ -44,40 +44,34 @@ export function PrintLog({ products, templateTitle, onPrintAgain }: PrintLogProp
           </Stack>
         ),
       }),
-      column.accessor('template', {
-        header: 'Template',
-        cell: (info) => (
-          <Stack gap="0">
-            <Text>{templateTitle(info.getValue())}</Text>
-            <Text color="fg.muted" textStyle="sm">
-              made {formatDate(info.row.original.productionDate)}
-            </Text>
-          </Stack>
-        ),
-      }),
       column.accessor('items', {
         header: 'What was printed',
         cell: (info) => (
-          <Stack as="ul" gap="1" m="0" ps="0" listStyleType="none">
-            {info.getValue().map((item) => (
-              <li key={item.product}>
-                <Text>
-                  <Text as="span" fontWeight="bold">
-                    {item.name}
-                  </Text>{' '}
-                  × {item.quantity}, revision {item.revision}
-                </Text>
-                <Text color="fg.muted" textStyle="sm">
-                  {[
-                    item.batch ? `batch ${item.batch}` : null,
-                    item.date && item.dateMark ? `${DATE_MARK_WORDS[item.dateMark]} ${formatDate(item.date)}` : null,
-                    item.sscc ? `SSCC ${item.sscc[0]} to ${item.sscc[1]}` : null,
-                  ]
-                    .filter(Boolean)
-                    .join(' · ')}
-                </Text>
-              </li>
-            ))}
+          <Stack gap="1" minW="14rem" whiteSpace="normal">
+            <Text color="fg.muted" textStyle="sm">
+              {templateTitle(info.row.original.template)}, made {formatDate(info.row.original.productionDate)}
+            </Text>
+            <Stack as="ul" gap="1" m="0" ps="0" listStyleType="none">
+              {info.getValue().map((item) => (
+                <li key={item.product}>
+                  <Text>
+                    <Text as="span" fontWeight="bold">
+                      {item.name}
+                    </Text>{' '}
+                    × {item.quantity}, revision {item.revision}
+                  </Text>
+                  <Text color="fg.muted" textStyle="sm">
+                    {[
+                      item.batch ? `batch ${item.batch}` : null,
+                      item.date && item.dateMark ? `${DATE_MARK_WORDS[item.dateMark]} ${formatDate(item.date)}` : null,
+                      item.sscc ? `SSCC ${item.sscc[0]} to ${item.sscc[1]}` : null,
+                    ]
+                      .filter(Boolean)
+                      .join(' · ')}
+                  </Text>
+                </li>
+              ))}
+            </Stack>
           </Stack>
         ),
       }),
@@ -87,7 +81,7 @@ export function PrintLog({ products, templateTitle, onPrintAgain }: PrintLogProp
         cell: (info) => {
           const run = info.row.original;
           return (
-            <Stack gap="1">
+            <Stack gap="1" maxW="12rem" whiteSpace="normal">
               <Text fontWeight={run.current ? undefined : 'bold'}>{run.current ? 'Current' : 'No longer current'}</Text>
               {run.override ? (
                 <Text color="fg.muted" textStyle="sm">

@@ -1,5 +1,6 @@
 import { Box, Button, HStack, Link, SimpleGrid, Stack, Table, Text } from '@chakra-ui/react';
 import {
+  expandBatchPattern,
   labelRunRequestSchema,
   type KitchenView,
   type LabelRun,
@@ -137,7 +138,7 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
 
   return (
     <Stack gap="5">
-      <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
+      <SimpleGrid columns={{ base: 1, md: 2, xl: 3 }} gap="4">
         <FormField label="Template" hint={template ? TEMPLATE_HINTS[template.purpose] : undefined}>
           <SelectInput
             options={templates.map((t) => ({ value: t.id, label: t.title }))}
@@ -149,10 +150,7 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
           <TextInput type="date" value={draft.productionDate} onChange={(e) => change({ productionDate: e.currentTarget.value })} />
         </FormField>
         {template && printsBatch(template) ? (
-          <FormField
-            label="Batch code for this run"
-            hint={`Leave empty: the kitchen’s pattern ${settings.batchPattern} gives each product its code.`}
-          >
+          <FormField label="Batch code for this run" hint={batchHint(settings, draft, products)}>
             <TextInput
               autoComplete="off"
               spellCheck={false}
@@ -216,8 +214,7 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
             </Table.Caption>
             <Table.Header>
               <Table.Row bg="bg.subtle">
-                <Table.ColumnHeader bg="bg.subtle">Product</Table.ColumnHeader>
-                <Table.ColumnHeader bg="bg.subtle">Print details</Table.ColumnHeader>
+                <Table.ColumnHeader bg="bg.subtle">Product and print details</Table.ColumnHeader>
                 <Table.ColumnHeader bg="bg.subtle" textAlign="end">
                   {isCase ? 'Cases' : 'Labels'}
                 </Table.ColumnHeader>
@@ -226,7 +223,7 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
             <Table.Body>
               {shown.length === 0 ? (
                 <Table.Row>
-                  <Table.Cell colSpan={3} color="fg.muted">
+                  <Table.Cell colSpan={2} color="fg.muted">
                     {products.length === 0
                       ? 'No product is for sale yet: mark a recipe for sale in its editor.'
                       : 'No product matches the search.'}
@@ -235,16 +232,15 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
               ) : (
                 shown.map((product) => (
                   <Table.Row key={product.id}>
-                    <Table.Cell verticalAlign="middle">
+                    <Table.Cell verticalAlign="middle" whiteSpace="normal">
                       <Text fontWeight="bold">{product.name}</Text>
                       <Text color="fg.muted" textStyle="sm">
                         {draft.revisions[product.id] !== undefined
-                          ? `revision ${draft.revisions[product.id]}, as logged`
-                          : `revision ${product.revision}`}
+                          ? `Revision ${draft.revisions[product.id]}, as logged`
+                          : `Revision ${product.revision}`}
+                        {' · '}
+                        {detailsSummary(product, isCase)}
                       </Text>
-                    </Table.Cell>
-                    <Table.Cell verticalAlign="middle" textStyle="sm">
-                      {detailsSummary(product, isCase)}
                     </Table.Cell>
                     <Table.Cell verticalAlign="middle" textAlign="end">
                       <TextInput
@@ -333,6 +329,14 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
       </Box>
     </Stack>
   );
+}
+
+/** "Leave empty to use the kitchen's pattern: Lemon tart made on this day gets 261202-LEMONT-1, or the next free number." */
+function batchHint(settings: LabelSettings, draft: RunDraft, products: readonly RecipeView[]): string {
+  const product = chosenItems(draft, products)[0]?.product ?? products[0];
+  if (!product || !/^\d{4}-\d{2}-\d{2}$/.test(draft.productionDate)) return 'Leave empty to use the kitchen’s batch code pattern.';
+  const code = expandBatchPattern(settings.batchPattern, { date: draft.productionDate, product: product.id, sequence: 1 });
+  return `Leave empty to use the kitchen’s pattern: ${product.name} gets ${code} (or the next free number that day).`;
 }
 
 /** "Use by, 3 days · GTIN 5012345678900 · 6 per case", or what is missing. */

@@ -167,7 +167,7 @@ describe('Labels page', () => {
 
     await user.click(within(table).getByRole('button', { name: 'Print run 17 again' }));
     expect(screen.getByLabelText('Cases of Lemon tart')).toHaveValue(4);
-    expect(screen.getByText('revision 5, as logged')).toBeInTheDocument();
+    expect(screen.getByText(/^Revision 5, as logged/)).toBeInTheDocument();
     await user.type(
       screen.getByLabelText('Reason for printing a revision that is no longer current'),
       'Customer asked for a copy of the November case labels.',
