@@ -1,5 +1,5 @@
 import { Body, Controller, Get, Header, HttpCode, Param, Post, Put, Query, Res } from '@nestjs/common';
-import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
 import type { FastifyReply } from 'fastify';
 import { KITCHEN_WRITERS, labelRunRequestSchema, labelSettingsSchema, type LabelRunRequest, type LabelSettings } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
@@ -52,6 +52,12 @@ export class LabelsController {
     summary:
       'The print log, newest first; product, batch, from and to (production days) narrow it, limit and offset page it (X-Total-Count)',
   })
+  @ApiQuery({ name: 'product', required: false, description: "A product's id: runs that printed it" })
+  @ApiQuery({ name: 'batch', required: false, description: 'A batch code, exactly: runs that printed it (a recall)' })
+  @ApiQuery({ name: 'from', required: false, format: 'date', description: 'First production day, YYYY-MM-DD' })
+  @ApiQuery({ name: 'to', required: false, format: 'date', description: 'Last production day, YYYY-MM-DD' })
+  @ApiQuery({ name: 'limit', required: false, type: Number, description: '1 to 500, 100 when left out' })
+  @ApiQuery({ name: 'offset', required: false, type: Number })
   async runs(@Query(new ZodPipe(labelRunQuerySchema)) query: LabelRunQuery, @Res({ passthrough: true }) reply: FastifyReply) {
     return withTotalCount(reply, await this.labels.runs(query));
   }
