@@ -8,10 +8,11 @@ import { useImportIngredients } from '@/features/ingredients/api/import-ingredie
 import { useUpdateIngredient } from '@/features/ingredients/api/update-ingredient';
 import { useUploadSpecification } from '@/features/ingredients/api/upload-specification';
 import { useUpdateKitchen } from '@/features/kitchen/api/update-kitchen';
+import { useUpdateLabelSettings } from '@/features/kitchen/api/update-label-settings';
 import { getDeclarationQueryOptions } from './declaration';
 import { useSaveRecipe } from '@/features/recipes/api/save-recipe';
 import { useApplySwap } from '@/features/swaps/api/apply-swap';
-import { KITCHEN, mockApi, requestUrl, type MockResponse } from '@/testing/mock-api';
+import { KITCHEN, LABEL_SETTINGS, mockApi, requestUrl, type MockResponse } from '@/testing/mock-api';
 import { queryKeys } from './query-keys';
 
 const SPELT: IngredientView = {
@@ -76,6 +77,8 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
       queryKeys.recipes.list(),
       queryKeys.recipes.one('loaf'),
       queryKeys.specifications.status(),
+      // Whether a logged run's revision is still current.
+      queryKeys.labels.runs.search({}),
     ];
     for (const key of dependent) queryClient.setQueryData(key, { cached: true });
     queryClient.setQueryData(queryKeys.ingredients.one('spelt-flour'), SPELT);
@@ -205,6 +208,13 @@ describe('every write to the kitchen’s data refreshes the declarations and whe
       useWrite: (): Write => useUpdateKitchen(),
       input: { regime: 'EU' as const },
     },
+    {
+      title: 'the kitchen’s label settings changed',
+      route: 'PUT /api/labels/settings',
+      answer: { ...LABEL_SETTINGS, caseIndicator: 2 },
+      useWrite: (): Write => useUpdateLabelSettings(),
+      input: { ...LABEL_SETTINGS, caseIndicator: 2 },
+    },
   ];
 
   it.each(writes)('$title', async ({ route, answer, useWrite, input }) => {
@@ -217,6 +227,8 @@ describe('every write to the kitchen’s data refreshes the declarations and whe
       queryKeys.declarations.products(undefined),
       queryKeys.ingredients.usedIn('spelt-flour'),
       queryKeys.specifications.status(),
+      // Whether a logged run's revision is still current.
+      queryKeys.labels.runs.search({}),
     ];
     for (const key of dependent) queryClient.setQueryData(key, { cached: true });
     const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
