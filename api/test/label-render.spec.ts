@@ -15,6 +15,7 @@ import { parseBarcode } from 'gs1-barcode-parser-mod';
 import { PNG } from 'pngjs';
 import { bookSchema, sscc as ssccOf, type Book, type Declaration } from '@crumbproof/shared';
 import {
+  checkTemplate,
   minimumLegibleSizePt,
   parseTemplate,
   renderLabelDocument,
@@ -187,6 +188,23 @@ describe('label templates', () => {
 });
 
 describe('legibility (Regulation (EU) No 1169/2011 Article 13(2), 13(3) and Annex IV)', () => {
+  it('refuses a template file that sets mandatory text below the limit, naming the file and the field', () => {
+    const raw = JSON.parse(readFileSync(join(TEMPLATES, 'product.json'), 'utf8'));
+    expect(checkTemplate(raw, 'label-templates/product.json', fonts).ok).toBe(true);
+    raw.blocks[1].sizePt = 6.5;
+    expect(checkTemplate(raw, 'label-templates/product.json', fonts)).toEqual({
+      ok: false,
+      problems: [
+        {
+          file: 'label-templates/product.json',
+          field: 'blocks[1].sizePt',
+          message:
+            "Template 'product' sets blocks[1].sizePt at 6.5 pt, below the smallest legible size 6.86 pt (x-height 1.2 mm, Regulation (EU) No 1169/2011 Article 13(2) and Annex IV).",
+        },
+      ],
+    });
+  });
+
   it('reads the x-height from the embedded font files', () => {
     // Atkinson Hyperlegible's OS/2 sxHeight is 496 of 1000 units in both faces (read with fontkit from the files).
     expect(fonts.regular.xHeight / fonts.regular.unitsPerEm).toBeCloseTo(0.496, 3);

@@ -12,7 +12,7 @@ import {
   type Book,
   type Declaration,
 } from '@crumbproof/shared';
-import { parseTemplate, renderLabelDocument, type LabelInput } from '@crumbproof/shared/labels';
+import { checkTemplate, renderLabelDocument, type LabelInput } from '@crumbproof/shared/labels';
 import { labelFonts, renderPdf } from '../labels/pdf-node';
 import { BookProblemsError, UnknownProductError, checkBook, declareProduct } from '../rules/core';
 import { loadReferenceData } from '../rules/reference-data';
@@ -140,7 +140,7 @@ function readTemplate(name: string) {
       1,
     );
   }
-  const parsed = parseTemplate(raw, `label-templates/${name}.json`);
+  const parsed = checkTemplate(raw, `label-templates/${name}.json`, labelFonts());
   if (!parsed.ok)
     fail(
       parsed.problems.map((p) => `template-invalid: ${p.file}, ${p.field}: ${p.message}`),

@@ -7,7 +7,17 @@ import { formatLabelDate, formatPrintedAt, labelDate } from './dates';
 import { LABEL_FONT, mmToPt, ptToMm, type LabelFonts } from './fonts';
 import { isLegible, legibilityRule, minimumLegibleSizePt, requiredXHeightMm, shownPt } from './legibility';
 import { eanUpcSymbol, gs1128Symbols, type BarcodeSymbol } from './barcodes';
-import { labelGeometry, leafBlocks, type BarcodeBlock, type Block, type ChartBlock, type LabelTemplate, type TextBlock } from './template';
+import {
+  labelGeometry,
+  leafBlocks,
+  parseTemplate,
+  type BarcodeBlock,
+  type Block,
+  type ChartBlock,
+  type LabelTemplate,
+  type TemplateProblem,
+  type TextBlock,
+} from './template';
 
 /** What a label prints of a product besides its declaration (the book's sale details). */
 export type LabelPrintDetails = Pick<
@@ -82,13 +92,18 @@ const WIDTH_SLACK = 0.985;
 
 /** Every problem with a template's sizes: text that would print below the legal x-height. */
 export function templateLegibilityProblems(template: LabelTemplate, fonts: LabelFonts): RenderProblem[] {
+  return illegibleSizes(template, fonts).map(({ message }) => ({ code: 'template-illegible', message }));
+}
+
+/** Each size of a template below the legal x-height, with its field. */
+function illegibleSizes(template: LabelTemplate, fonts: LabelFonts): Array<{ field: string; message: string }> {
   const min = minimumLegibleSizePt(fonts, template.largestSurfaceCm2);
   const xMm = requiredXHeightMm(template.largestSurfaceCm2);
-  const problems: RenderProblem[] = [];
+  const problems: Array<{ field: string; message: string }> = [];
   const check = (sizePt: number, field: string) => {
     if (!isLegible(sizePt, fonts, template.largestSurfaceCm2))
       problems.push({
-        code: 'template-illegible',
+        field,
         message: `Template '${template.id}' sets ${field} at ${sizePt} pt, below the smallest legible size ${shownPt(min)} (x-height ${xMm} mm, ${legibilityRule(template.largestSurfaceCm2)}).`,
       });
   };
@@ -101,6 +116,22 @@ export function templateLegibilityProblems(template: LabelTemplate, fonts: Label
     } else check(block.sizePt, `${field}.sizePt`);
   }
   return problems;
+}
+
+/**
+ * A template file read and checked in full, as the API does at start and the command line at once:
+ * its schema, and every font size against the legal x-height in the fonts it prints with. Each
+ * problem names the file and the field.
+ */
+export function checkTemplate(
+  raw: unknown,
+  file: string,
+  fonts: LabelFonts,
+): { ok: true; template: LabelTemplate } | { ok: false; problems: TemplateProblem[] } {
+  const parsed = parseTemplate(raw, file);
+  if (!parsed.ok) return parsed;
+  const problems = illegibleSizes(parsed.template, fonts).map((p) => ({ file, ...p }));
+  return problems.length > 0 ? { ok: false, problems } : parsed;
 }
 
 /** Runs broken into lines no wider than `widthPt`, at spaces; a word longer than a line is broken between characters. */
