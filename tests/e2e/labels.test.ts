@@ -78,6 +78,27 @@ describe('case labels previewed, printed and found in the log, in Chromium', () 
     expect(logged?.sha256).toBe(createHash('sha256').update(body).digest('hex'));
   });
 
+  it('previews shipment labels with an SSCC per case, from the kitchen’s GS1 company prefix', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/labels`);
+    await page.getByLabel('Template').selectOption('case');
+    await page.getByLabel(`Cases of ${BROWNIE}`).fill('2');
+    await page.getByLabel('Shipment units (SSCC)').check();
+    await page.getByRole('button', { name: 'Preview' }).click();
+    await page.getByText('2 labels, as they will print.').waitFor({ timeout: 60_000 });
+    await page.getByText(/SSCCs show serials from 0/).waitFor();
+  });
+
+  it('shows a product’s print details in the recipe editor, the GTIN’s check digit confirmed', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/recipes/vegan-brownie/edit`);
+    await page.getByLabel('GTIN of one unit').waitFor();
+    expect(await page.getByLabel('Date mark').inputValue()).toBe('best-before');
+    await page.getByText(/^GTIN-13: the check digit \d is right\.$/).waitFor();
+    await page.getByRole('group', { name: 'Print details' }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'recipe-print-details-1280');
+  });
+
   it('reads well at tablet width, the preview included', async () => {
     const page = s.page;
     await page.setViewportSize({ width: 768, height: 1024 });

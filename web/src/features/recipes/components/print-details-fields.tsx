@@ -85,11 +85,16 @@ export function PrintDetailsFields({ register, control, setValue, errors, caseIn
           >
             <TextInput {...wholeField} {...register('shelfLifeDays', { setValueAs: numberOrUndefined })} />
           </FormField>
-          <FormField label="Storage" error={errors.storage?.message} hint="One line, e.g. Keep refrigerated at 0–5 °C.">
-            <TextInput autoComplete="off" {...register('storage')} />
-          </FormField>
+          <Box gridColumn="1 / -1">
+            <FormField label="Storage" error={errors.storage?.message} hint="One line, e.g. Keep refrigerated at 0–5 °C.">
+              <TextInput autoComplete="off" {...register('storage')} />
+            </FormField>
+          </Box>
           <FormField label="Net weight (g)" error={errors.netWeightG?.message} hint="Of one unit, as the label states it.">
             <TextInput {...numberField} {...register('netWeightG', { setValueAs: numberOrUndefined })} />
+          </FormField>
+          <FormField label="Units per case" error={errors.unitsPerCase?.message} hint="How many units a wholesale case holds.">
+            <TextInput {...wholeField} {...register('unitsPerCase', { setValueAs: numberOrUndefined })} />
           </FormField>
           <FormField
             label="GTIN of one unit"
@@ -97,9 +102,6 @@ export function PrintDetailsFields({ register, control, setValue, errors, caseIn
             hint={unit.note ?? 'GTIN-8, -12 (UPC-A) or -13 (EAN-13), for the barcode on the product label.'}
           >
             <TextInput inputMode="numeric" autoComplete="off" spellCheck={false} textStyle="quantity" {...register('gtin')} />
-          </FormField>
-          <FormField label="Units per case" error={errors.unitsPerCase?.message} hint="How many units a wholesale case holds.">
-            <TextInput {...wholeField} {...register('unitsPerCase', { setValueAs: numberOrUndefined })} />
           </FormField>
         </SimpleGrid>
         <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ md: 'flex-start' }}>
