@@ -41,7 +41,7 @@ describe('case labels previewed, printed and found in the log, in Chromium', () 
     await screenshot(page, 'labels-preview-1280');
 
     await page.getByRole('button', { name: 'Print', exact: true }).click();
-    const opened = page.getByRole('link', { name: /^Open the PDF of run \d+$/ });
+    const opened = page.getByRole('link', { name: /^Download the PDF of run \d+$/ });
     await opened.waitFor();
     const runId = Number(/run (\d+)$/.exec((await opened.textContent()) ?? '')?.[1]);
     expect(runId).toBeGreaterThan(0);
@@ -97,6 +97,17 @@ describe('case labels previewed, printed and found in the log, in Chromium', () 
     await page.getByText(/^GTIN-13: the check digit \d is right\.$/).waitFor();
     await page.getByRole('group', { name: 'Print details' }).scrollIntoViewIfNeeded();
     await screenshot(page, 'recipe-print-details-1280');
+  });
+
+  it('the kitchen page shows the label settings with an example batch code', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/kitchen`);
+    const form = page.getByRole('form', { name: 'Label settings' });
+    await form.waitFor();
+    expect(await form.getByLabel('GS1 company prefix').inputValue()).toBe('9521234');
+    await form.getByText(/^A run made today of a product with the id lemon-tart gets \d{6}-LEMONT-1\./).waitFor();
+    await form.scrollIntoViewIfNeeded();
+    await screenshot(page, 'kitchen-labels-1280');
   });
 
   it('reads well at tablet width, the preview included', async () => {

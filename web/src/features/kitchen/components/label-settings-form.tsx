@@ -80,7 +80,8 @@ export function LabelSettingsForm({ settings }: { settings: LabelSettings }) {
           hint={
             patternProblem ? undefined : (
               <>
-                A run of Lemon tart made today gets <Code>{example(pattern.trim())}</Code>. Codes are unique per product and day.
+                A run made today of a product with the id lemon-tart gets <Code>{example(pattern.trim())}</Code>. Codes are unique per
+                product and day.
               </>
             )
           }

@@ -23,7 +23,7 @@ export function KitchenRoute() {
       ) : (
         <KitchenForm kitchen={kitchen.data} />
       )}
-      <Panel title="Labels">
+      <Panel title="Label settings">
         {labelSettings.isPending ? (
           <Loading size="sm">Loading the label settings…</Loading>
         ) : labelSettings.isError ? (

@@ -313,7 +313,7 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
             <>
               Printed run {printed.id}, kept in the log.{' '}
               <Link href={runPdfUrl(printed.id)} fontWeight="bold" color="fg">
-                Open the PDF of run {printed.id}
+                Download the PDF of run {printed.id}
               </Link>
             </>
           ) : count === 0 ? (

@@ -106,7 +106,7 @@ describe('Labels page', () => {
       unitsPerCase: 8,
       shipment: true,
     });
-    expect(await screen.findByRole('link', { name: 'Open the PDF of run 42' })).toHaveAttribute('href', '/api/labels/runs/42/pdf');
+    expect(await screen.findByRole('link', { name: 'Download the PDF of run 42' })).toHaveAttribute('href', '/api/labels/runs/42/pdf');
     // The log was read again after the print, and shows the run with its PDF.
     const log = screen.getByRole('region', { name: 'Print log, newest first' });
     expect(await within(log).findByRole('link', { name: 'PDF of run 42' })).toHaveAttribute('href', '/api/labels/runs/42/pdf');
