@@ -136,6 +136,16 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(again.json().recipes).toEqual({ created: [], revised: [], unchanged: 1 });
   });
 
+  it("carries the kitchen's address in the book, and a book without one keeps the kitchen's", async () => {
+    const exported = (await req('GET', '/api/book', chef)).json<Book>();
+    expect(exported.site.address).toBe('14 Tannery Row, Wexcombe (an invented address)');
+    const { address: _dropped, ...withoutAddress } = exported.site;
+    const res = await req('POST', '/api/book/import', manager, { ...exported, site: withoutAddress });
+    expect(res.statusCode).toBe(200);
+    expect(res.json().site).toBe('unchanged');
+    expect((await req('GET', '/api/kitchen', chef)).json().address).toBe('14 Tannery Row, Wexcombe (an invented address)');
+  });
+
   it('refuses a recipe that contains itself through a sub-recipe, and saves nothing', async () => {
     const sponge = (await req('GET', '/api/recipes/vanilla-sponge', chef)).json();
     const { revision: _r, updatedAt: _u, ...body } = sponge;

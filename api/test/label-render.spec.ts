@@ -398,6 +398,26 @@ describe('text of the rendered PDF', () => {
   });
 });
 
+describe('what a pre-packed label must name', () => {
+  it('prints each QUID percentage next to the name of the food (Regulation (EU) No 1169/2011 Article 22, Annex VIII point 2)', async () => {
+    const d = declareProduct(demo, 'strawberry-tart', refs, {});
+    expect(d.quid.map((q) => q.text)).toEqual([expect.stringMatching(/^Strawberries \d+%$/)]);
+    const text = textRuns(await pdfOf(run('product', [label('strawberry-tart', { ...SHORTBREAD, gtin: undefined })])))
+      .map((r) => r.str)
+      .join('');
+    expect(text.replace(/\s+/g, ' ')).toContain(`${d.name} (${d.quid[0].text})`);
+  });
+
+  it('refuses a product label when the kitchen has no address (Regulation (EU) No 1169/2011 Article 9(1)(h)), and prints a ticket', () => {
+    const noAddress = { business: { name: 'Wrenfield Lane Bakehouse', address: ' ' } };
+    const refused = renderLabelDocument(run('product', [label('lemon-shortbread')], noAddress));
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.problems.map((p) => p.message).join(' ')).toMatch(/no address.*Article 9\(1\)\(h\)/);
+    const ticket = renderLabelDocument(run('ticket', [label('lemon-shortbread')], noAddress));
+    expect(ticket.ok ? [] : ticket.problems).toEqual([]);
+  });
+});
+
 describe('npm run label', () => {
   const book = join(work, 'book.json');
   beforeAll(() => {

@@ -353,6 +353,8 @@ export type BookRecipe = z.infer<typeof bookRecipeSchema>;
 
 export const siteSchema = z.strictObject({
   name: oneLine(z.string().trim().min(1).max(160)),
+  /** The business's postal address, printed with its name on pre-packed labels. */
+  address: oneLine(z.string().trim().max(300)).optional(),
   regime: z.enum(REGIMES),
   measures: z.enum(MEASURE_SYSTEMS).optional(),
   handles: z.array(handlingSchema).default([]),

@@ -94,7 +94,13 @@ export class BooksService {
     ]);
     const book: Book = {
       crumbproofBook: 1,
-      site: { name: site.name, regime: site.regime, ...(site.measures ? { measures: site.measures } : {}), handles: site.handles },
+      site: {
+        name: site.name,
+        ...(site.address ? { address: site.address } : {}),
+        regime: site.regime,
+        ...(site.measures ? { measures: site.measures } : {}),
+        handles: site.handles,
+      },
       ingredients: ings.map((i) => ({ id: i.code, ...i.body })),
       recipes: recs.map((r) => ({ id: r.code, ...r.body })),
     };
@@ -172,11 +178,15 @@ export class BooksService {
         regime: book.site.regime,
         measures: book.site.measures ?? null,
         handles: book.site.handles,
+        ...(book.site.address !== undefined ? { address: book.site.address } : {}),
       };
+      // A book without an address keeps the kitchen's own.
+      const kept = current?.site.address;
+      const wanted = book.site.address === undefined && kept ? { ...book.site, address: kept } : book.site;
       if (!siteRow) {
-        siteRow = await this.sites.create({ ...siteFields, address: meta.address ?? '' }, t);
+        siteRow = await this.sites.create({ ...siteFields, address: book.site.address ?? meta.address ?? '' }, t);
         siteState = 'created';
-      } else if (!sameData(current?.site, book.site)) {
+      } else if (!sameData(current?.site, wanted)) {
         siteRow = await this.sites.update(siteRow.id, siteFields, t);
         siteState = 'updated';
       }

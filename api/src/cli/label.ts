@@ -191,7 +191,7 @@ async function main(): Promise<void> {
   const result = renderLabelDocument({
     template,
     labels,
-    business: { name: book.site.name, address: '' },
+    business: { name: book.site.name, address: book.site.address ?? '' },
     regime,
     fonts: labelFonts(),
     printedAt: new Date().toISOString(),

@@ -359,13 +359,27 @@ function labelText(input: LabelInput, run: RenderInput, problems: RenderProblem[
       message: `${d.name}: ${input.quantity} case labels need ${input.quantity} SSCCs, not ${input.sscc!.length}.`,
     });
 
+  if (hasText('business') && !business.address.trim())
+    problems.push({
+      code: 'missing-detail',
+      product,
+      message: `The kitchen has no address: the ${template.id} label names the business by its name and address (Regulation (EU) No 1169/2011 Article 9(1)(h)). Add it on the Kitchen page.`,
+    });
+
   const claims = (details.claims ?? []).filter((c) => d.claims[c]?.status === 'ok').map((c) => CLAIM_LABELS[c]);
 
   const text = (block: TextBlock): Run[] | null => {
     const bold = (runs: Run[]) => (block.bold ? runs.map((r) => ({ ...r, bold: true })) : runs);
     switch (block.type) {
       case 'name':
-        return [{ text: d.name, bold: true }];
+        // QUID: each percentage next to the name of the food on a label that lists the ingredients
+        // (Regulation (EU) No 1169/2011 Article 22 and Annex VIII point 2).
+        return hasText('ingredients') && d.quid.length > 0
+          ? [
+              { text: d.name, bold: true },
+              { text: ` (${d.quid.map((q) => q.text).join(', ')})`, bold: false },
+            ]
+          : [{ text: d.name, bold: true }];
       case 'ingredients':
         return bold(d.ingredientsSegments.map((s) => ({ text: s.text, bold: s.emphasis })));
       case 'mayContain':
