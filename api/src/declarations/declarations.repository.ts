@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Declaration, ProductDeclaration, Regime } from '@crumbproof/shared';
-import { UniqueConstraintError } from 'sequelize';
+import { Op, UniqueConstraintError } from 'sequelize';
 import { parseJson } from '../common/json-column';
 import { DeclarationModel } from './declaration.model';
 
@@ -28,6 +28,21 @@ export class DeclarationsRepository {
   async find(recipeId: number, regime: Regime, inputHash: string): Promise<KeptDeclaration | null> {
     const row = await this.declarations.findOne({ where: { recipeId, regime, inputHash } });
     return row ? { body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt } : null;
+  }
+
+  /** The kept declarations of several recipes under one regime, by `${recipeId} ${inputHash}`; one query. */
+  async findMany(regime: Regime, keys: readonly { recipeId: number; inputHash: string }[]): Promise<Map<string, KeptDeclaration>> {
+    const out = new Map<string, KeptDeclaration>();
+    if (keys.length === 0) return out;
+    const rows = await this.declarations.findAll({
+      where: { regime, inputHash: { [Op.in]: [...new Set(keys.map((k) => k.inputHash))] } },
+    });
+    const wanted = new Set(keys.map((k) => `${k.recipeId} ${k.inputHash}`));
+    for (const row of rows) {
+      const key = `${row.recipeId} ${row.inputHash}`;
+      if (wanted.has(key) && !out.has(key)) out.set(key, { body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt });
+    }
+    return out;
   }
 
   /** Keeps a declaration; when the same one was kept at the same moment elsewhere, that one is the one kept. */

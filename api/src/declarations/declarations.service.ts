@@ -46,34 +46,54 @@ export class DeclarationsService implements OnModuleInit {
    * Callers that declare many products pass the kitchen they already read.
    */
   async forProduct(code: string, regime?: Regime, state?: KitchenState): Promise<ServedDeclaration> {
+    const [served] = await this.forProducts([code], regime, state);
+    return served;
+  }
+
+  /**
+   * Declarations of several products from one state of the kitchen, as forProduct gives each: the
+   * kept ones are found in one query, and only those missing are computed and kept.
+   */
+  async forProducts(codes: readonly string[], regime?: Regime, state?: KitchenState): Promise<ServedDeclaration[]> {
     const { site, book, heads } = state ?? (await this.books.state());
-    const head = heads.get(code);
-    if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
     const useRegime = regime ?? book.site.regime;
-    const slice = closureOf(book, code);
-    const names = new Map([...slice.ingredients, ...slice.recipes].map((x) => [x.id, x.name]));
-    const items: DeclarationBasisItem[] = closureItems(book, code).map(({ id, kind }) => ({
-      id,
-      kind,
-      name: names.get(id)!,
-      revision: heads.get(id)!.revision,
-    }));
-    const inputHash = createHash('sha256')
-      .update(canonicalJson({ slice, items, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion }))
-      .digest('hex');
-    const kept =
-      (await this.kept.find(head.rowId, useRegime, inputHash)) ??
-      (await this.kept.add({
-        recipeId: head.rowId,
-        recipeRevision: head.revision,
-        regime: useRegime,
-        inputHash,
-        body: this.rules.declare(slice, code, useRegime),
+    const inputs = codes.map((code) => {
+      const head = heads.get(code);
+      if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
+      const slice = closureOf(book, code);
+      const names = new Map([...slice.ingredients, ...slice.recipes].map((x) => [x.id, x.name]));
+      const items: DeclarationBasisItem[] = closureItems(book, code).map(({ id, kind }) => ({
+        id,
+        kind,
+        name: names.get(id)!,
+        revision: heads.get(id)!.revision,
       }));
-    return {
-      ...kept.body,
-      basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
-    };
+      const inputHash = createHash('sha256')
+        .update(canonicalJson({ slice, items, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion }))
+        .digest('hex');
+      return { code, head, slice, items, inputHash };
+    });
+    const found = await this.kept.findMany(
+      useRegime,
+      inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })),
+    );
+    const out: ServedDeclaration[] = [];
+    for (const { code, head, slice, items, inputHash } of inputs) {
+      const kept =
+        found.get(`${head.rowId} ${inputHash}`) ??
+        (await this.kept.add({
+          recipeId: head.rowId,
+          recipeRevision: head.revision,
+          regime: useRegime,
+          inputHash,
+          body: this.rules.declare(slice, code, useRegime),
+        }));
+      out.push({
+        ...kept.body,
+        basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
+      });
+    }
+    return out;
   }
 
   /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */
@@ -103,8 +123,10 @@ export class DeclarationsService implements OnModuleInit {
   /** Declarations of every product for sale, each with where it comes from. */
   async all(regime?: Regime): Promise<ServedDeclaration[]> {
     const state = await this.books.state();
-    const out: ServedDeclaration[] = [];
-    for (const r of state.book.recipes.filter((x) => x.sale)) out.push(await this.forProduct(r.id, regime, state));
-    return out;
+    return this.forProducts(
+      state.book.recipes.filter((x) => x.sale).map((r) => r.id),
+      regime,
+      state,
+    );
   }
 }
