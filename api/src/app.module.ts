@@ -3,6 +3,7 @@ import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
 import { AuthModule } from './auth/auth.module';
 import { BooksModule } from './books/books.module';
 import { ApiExceptionFilter } from './common/exception.filter';
+import { CounterModule } from './counter/counter.module';
 import { RolesGuard, SessionGuard } from './auth/auth.guard';
 import { AppConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
@@ -33,6 +34,7 @@ import { UsersModule } from './users/users.module';
     DeclarationsModule,
     SwapsModule,
     LabelsModule,
+    CounterModule,
     ReferenceModule,
     SeedModule,
   ],

@@ -90,6 +90,17 @@ const labelSettings = (over: Record<string, unknown> = {}): Record<string, unkno
   ...over,
 });
 
+const counterDay = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  date: '2026-12-02',
+  products: ['vegan-brownie', 'lemon-shortbread'],
+  ...over,
+});
+const counterQuestion = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  product: 'vegan-brownie',
+  avoid: ['eggs', 'walnut'],
+  ...over,
+});
+
 const json = (body: unknown): Sent => ({ payload: JSON.stringify(body), headers: { 'content-type': 'application/json' } });
 const raw = (payload: string | Buffer, type: string): Sent => ({ payload, headers: { 'content-type': type } });
 const nothing = (): Sent => ({ headers: {} });
@@ -128,6 +139,9 @@ const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
   { method: 'POST', url: '/api/declarations/preview', body: recipe() },
   { method: 'POST', url: '/api/labels/runs', body: labelRun() },
   { method: 'PUT', url: '/api/labels/settings', body: labelSettings() },
+  { method: 'PUT', url: '/api/counter/today', body: counterDay() },
+  { method: 'POST', url: '/api/counter/questions', body: counterQuestion() },
+  { method: 'POST', url: '/api/counter/questions/1/answer', body: { answer: 'It has no egg as recorded.' } },
 ];
 
 /** What is wrong with a JSON body itself, tried on every JSON route. */
@@ -1100,6 +1114,167 @@ const CORPUS: MalformedRequest[] = [
     names,
   })),
 
+  // Counter: PUT /api/counter/today, POST /api/counter/questions, POST /api/counter/questions/:id/answer
+  ...(
+    [
+      [
+        'PUT',
+        '/api/counter/today',
+        'a day that does not exist',
+        counterDay({ date: '2026-02-29' }),
+        400,
+        /^date: 2026-02-29 is not a date that exists/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        'a day in another form',
+        counterDay({ date: '2 December 2026' }),
+        400,
+        /^date: Write the date as YYYY-MM-DD/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        'products as one text',
+        counterDay({ products: 'vegan-brownie' }),
+        400,
+        /^products: List the products/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        'a product that does not exist',
+        counterDay({ products: ['vegan-brownie', 'no-such-cake'] }),
+        400,
+        /^products\.1: There is no product 'no-such-cake'/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        'a recipe not for sale',
+        counterDay({ products: ['pastry-cream'] }),
+        400,
+        /^products\.0: .*not for sale/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        'one product twice',
+        counterDay({ products: ['vegan-brownie', 'vegan-brownie'] }),
+        400,
+        /^products: List each product once/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        'a product id that looks like SQL',
+        counterDay({ products: ["x' OR '1'='1"] }),
+        400,
+        /^products\.0: Use lower-case letters/m,
+      ],
+      [
+        'PUT',
+        '/api/counter/today',
+        '501 products',
+        counterDay({ products: Array.from({ length: 501 }, (_, i) => `p-${i}`) }),
+        400,
+        /^products: List at most 500 products/m,
+      ],
+      ['POST', '/api/counter/questions', 'no product', counterQuestion({ product: undefined }), 400, /^product: /m],
+      [
+        'POST',
+        '/api/counter/questions',
+        'a product that does not exist',
+        counterQuestion({ product: 'no-such-cake' }),
+        400,
+        /^product: There is no product 'no-such-cake'/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions',
+        'a recipe not for sale',
+        counterQuestion({ product: 'pastry-cream' }),
+        400,
+        /^product: .*not for sale/m,
+      ],
+      ['POST', '/api/counter/questions', 'nothing to avoid', counterQuestion({ avoid: [] }), 400, /^avoid: Pick at least one allergen/m],
+      [
+        'POST',
+        '/api/counter/questions',
+        'an allergen that is not one',
+        counterQuestion({ avoid: ['eggs', 'chocolate'] }),
+        400,
+        /^avoid\.1: Unknown allergen 'chocolate'/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions',
+        'an allergen that looks like HTML',
+        counterQuestion({ avoid: ['<b>egg</b>'] }),
+        400,
+        /^avoid\.0: Name each allergen as its code/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions',
+        'one allergen twice',
+        counterQuestion({ avoid: ['eggs', 'eggs'] }),
+        400,
+        /^avoid: Name each allergen once/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions',
+        'a note with NUL',
+        counterQuestion({ note: 'Ask\u0000 the chef' }),
+        400,
+        /^note: Leave out control characters/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions',
+        'a note of 501 characters',
+        counterQuestion({ note: 'n'.repeat(501) }),
+        400,
+        /^note: Keep the note to 500 characters/m,
+      ],
+      ['POST', '/api/counter/questions/1/answer', 'an empty answer', { answer: '  ' }, 400, /^answer: Write the answer for the counter/m],
+      [
+        'POST',
+        '/api/counter/questions/1/answer',
+        'an answer with a lone surrogate',
+        { answer: 'Yes \ud83c' },
+        400,
+        /^answer: This text has a broken character/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions/1/answer',
+        'an answer of 1001 characters',
+        { answer: 'a'.repeat(1001) },
+        400,
+        /^answer: Keep the answer to 1000 characters/m,
+      ],
+      [
+        'POST',
+        '/api/counter/questions/1/answer',
+        'a question that does not exist',
+        { answer: 'Yes, as recorded.' },
+        404,
+        /There is no question 1\b/,
+      ],
+      [
+        'POST',
+        '/api/counter/questions/abc/answer',
+        'a question id that is not a number',
+        { answer: 'Yes, as recorded.' },
+        404,
+        /There is no question 'abc'/,
+      ],
+    ] as const
+  ).map(([method, url, what, body, status, names]) => ({ what, method, url, send: () => json(body), status, names })),
+
   // Routes that do not exist: nothing can be deleted
   ...(
     [
@@ -1113,6 +1288,8 @@ const CORPUS: MalformedRequest[] = [
       ['PUT', '/api/kitchen'],
       ['DELETE', '/api/labels/runs/1/pdf'],
       ['PUT', '/api/labels/runs'],
+      ['DELETE', '/api/counter/today'],
+      ['DELETE', '/api/counter/questions/1'],
     ] as const
   ).map(([method, url]) => ({
     what: 'a method the route does not take',

@@ -58,6 +58,14 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'POST /api/labels/runs': [401, 403, 400, 400],
   'GET /api/labels/runs': [401, 403, 404, 404],
   'GET /api/labels/runs/:id/pdf': [401, 403, 404, 404],
+  'GET /api/counter/products': [401, 404, 404, 404],
+  // No kitchen: refused before any stream opens.
+  'GET /api/counter/events': [401, 404, 404, 404],
+  'GET /api/counter/today': [401, 404, 404, 404],
+  'PUT /api/counter/today': [401, 403, 400, 400],
+  'POST /api/counter/questions': [401, 400, 400, 400],
+  'GET /api/counter/questions': [401, 404, 404, 404],
+  'POST /api/counter/questions/:id/answer': [401, 403, 400, 400],
   // The OpenAPI document and its viewer are public: they describe the routes, not the kitchen.
   'GET /api/docs': [200, 200, 200, 200],
   'GET /api/docs/': [200, 200, 200, 200],

@@ -18,3 +18,4 @@ export * from './ingredient-import';
 export * from './nutrient-reference';
 export * from './gs1';
 export * from './label-contracts';
+export * from './counter-contracts';

@@ -46,6 +46,15 @@ export interface KitchenState {
 /** Told, after a write has been saved, the ids of the recipes it wrote. */
 export type RecipesWrittenListener = (ids: readonly string[]) => Promise<void>;
 
+/** What a saved write changed: the ids of the ingredients and recipes written, and whether the kitchen's settings changed. */
+export interface KitchenWritten {
+  ingredients: readonly string[];
+  recipes: readonly string[];
+  site: boolean;
+}
+/** Told after every saved write; it must not throw (the write is already saved). */
+export type KitchenWrittenListener = (written: KitchenWritten) => void;
+
 const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
   const { id: _id, ...body } = item;
   return body;
@@ -58,6 +67,7 @@ const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
 @Injectable()
 export class BooksService {
   private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
+  private readonly kitchenWrittenListeners: KitchenWrittenListener[] = [];
 
   constructor(
     private readonly kitchen: KitchenService,
@@ -74,6 +84,16 @@ export class BooksService {
    */
   onRecipesWritten(listener: RecipesWrittenListener): void {
     this.recipesWrittenListeners.push(listener);
+  }
+
+  /** After every saved write (the editors, swaps, the spreadsheet import, book import), each listener is told what it changed: the counter's events. */
+  onKitchenWritten(listener: KitchenWrittenListener): void {
+    this.kitchenWrittenListeners.push(listener);
+  }
+
+  private kitchenWritten(written: KitchenWritten): void {
+    if (written.ingredients.length === 0 && written.recipes.length === 0 && !written.site) return;
+    for (const listener of this.kitchenWrittenListeners) listener(written);
   }
 
   private async recipesWritten(ids: readonly string[]): Promise<void> {
@@ -219,6 +239,11 @@ export class BooksService {
       return summary;
     });
     await this.recipesWritten([...imported.recipes.created, ...imported.recipes.revised]);
+    this.kitchenWritten({
+      ingredients: [...imported.ingredients.created, ...imported.ingredients.revised],
+      recipes: [...imported.recipes.created, ...imported.recipes.revised],
+      site: imported.site !== 'unchanged',
+    });
     return imported;
   }
 
@@ -271,6 +296,11 @@ export class BooksService {
       return written;
     });
     await this.recipesWritten((changes.recipes ?? []).map((r) => r.id));
+    this.kitchenWritten({
+      ingredients: (changes.ingredients ?? []).map((i) => i.id),
+      recipes: (changes.recipes ?? []).map((r) => r.id),
+      site: false,
+    });
     return written;
   }
 

@@ -6,7 +6,14 @@ import { SiteRepository, type SiteRow } from './site.repository';
 
 @Injectable()
 export class KitchenService {
+  private readonly updatedListeners: (() => void)[] = [];
+
   constructor(private readonly sites: SiteRepository) {}
+
+  /** Told after every saved change of the kitchen's settings (the counter's events); a listener must not throw. */
+  onUpdated(listener: () => void): void {
+    this.updatedListeners.push(listener);
+  }
 
   /** The kitchen this installation serves (one site per installation for now), or null before one is set up. */
   find(t?: Transaction): Promise<SiteRow | null> {
@@ -23,7 +30,9 @@ export class KitchenService {
   /** Changes the kitchen's regime, measures or allergen handling; every declaration follows. */
   async update(changes: KitchenUpdate): Promise<KitchenView> {
     const site = await this.current();
-    return view(await this.sites.update(site.id, changes));
+    const updated = view(await this.sites.update(site.id, changes));
+    for (const listener of this.updatedListeners) listener();
+    return updated;
   }
 
   async view(): Promise<KitchenView> {

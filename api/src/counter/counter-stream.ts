@@ -1,0 +1,59 @@
+import { Injectable, type OnModuleDestroy } from '@nestjs/common';
+import type { CounterEvent } from '@crumbproof/shared';
+import type { FastifyReply } from 'fastify';
+import { KitchenService } from '../kitchen/kitchen.service';
+import { CounterEvents } from './counter-events';
+
+/** A comment line every 15 s keeps proxies and the browser from taking a quiet stream for a dead one. */
+export const HEARTBEAT_MS = 15_000;
+/** How long a browser waits before it reconnects a dropped stream (EventSource's retry field). */
+const RETRY_MS = 2_000;
+
+/** One event in the text/event-stream format (WHATWG HTML Living Standard, "Server-sent events"). */
+export function eventText(event: CounterEvent): string {
+  return `event: ${event.type}\ndata: ${JSON.stringify(event)}\n\n`;
+}
+
+/** Open server-sent event streams of the counter, each fed from CounterEvents until its client goes. */
+@Injectable()
+export class CounterStream implements OnModuleDestroy {
+  private readonly streams = new Set<() => void>();
+
+  constructor(
+    private readonly events: CounterEvents,
+    private readonly kitchen: KitchenService,
+  ) {}
+
+  /** Opens a stream on the request's connection; refused, as any route is, when there is no kitchen yet. */
+  async open(reply: FastifyReply): Promise<void> {
+    await this.kitchen.current();
+    reply.hijack();
+    const raw = reply.raw;
+    // The headers hooks set on the reply (security headers, a renewed session cookie) go out too.
+    for (const [name, value] of Object.entries(reply.getHeaders())) if (value !== undefined) raw.setHeader(name, value);
+    raw.writeHead(200, {
+      'content-type': 'text/event-stream; charset=utf-8',
+      'cache-control': 'no-store',
+      connection: 'keep-alive',
+      'x-accel-buffering': 'no',
+    });
+    raw.write(`retry: ${RETRY_MS}\n: connected\n\n`);
+    const unsubscribe = this.events.subscribe((event) => raw.write(eventText(event)));
+    const heartbeat = setInterval(() => raw.write(': heartbeat\n\n'), HEARTBEAT_MS);
+    const close = () => {
+      clearInterval(heartbeat);
+      unsubscribe();
+      this.streams.delete(close);
+      if (!raw.writableEnded && !raw.destroyed) raw.end();
+    };
+    this.streams.add(close);
+    // The response closes when the client goes (the request's own close comes once its body is read).
+    raw.on('close', close);
+    raw.on('error', close);
+  }
+
+  /** Ends every open stream, so the server can close (an open stream is never idle). */
+  onModuleDestroy() {
+    for (const close of [...this.streams]) close();
+  }
+}

@@ -1,0 +1,79 @@
+import { Injectable } from '@nestjs/common';
+import type { CounterDay, CounterDayView, CounterProductsView, FieldError } from '@crumbproof/shared';
+import { BooksService, type KitchenState } from '../books/books.service';
+import type { AuthUser } from '../common/current-user.decorator';
+import { AppError } from '../common/app-error';
+import { DeclarationsService } from '../declarations/declarations.service';
+import { today } from '../ingredients/specifications/specification.dto';
+import { KitchenService } from '../kitchen/kitchen.service';
+import { CounterDaysRepository } from './counter-days.repository';
+import { CounterEvents } from './counter-events';
+
+/** The counter's products with their declarations, and the products on sale each day. */
+@Injectable()
+export class CounterService {
+  constructor(
+    private readonly books: BooksService,
+    private readonly kitchen: KitchenService,
+    private readonly declarations: DeclarationsService,
+    private readonly days: CounterDaysRepository,
+    private readonly events: CounterEvents,
+  ) {}
+
+  /**
+   * Every product for sale with its served declaration (DeclarationsService, as the recipes'
+   * declaration route serves each), read from one state of the kitchen, and whether it is marked
+   * on sale today. `computedAt` is taken before the kitchen is read, so no write saved before it is
+   * missing from the set.
+   */
+  async products(): Promise<CounterProductsView> {
+    const computedAt = new Date().toISOString();
+    const date = today();
+    const state = await this.books.state();
+    const forSale = state.book.recipes.filter((r) => r.sale);
+    const [declared, day] = await Promise.all([
+      this.declarations.forProducts(
+        forSale.map((r) => r.id),
+        undefined,
+        state,
+      ),
+      this.days.find(state.site.id, date),
+    ]);
+    const onSale = new Set(day?.products ?? []);
+    return {
+      computedAt,
+      date,
+      products: forSale.map((r, i) => ({ id: r.id, name: r.name, onSale: onSale.has(r.id), declaration: declared[i] })),
+    };
+  }
+
+  /** The products marked on sale on a day (today when no day is given); a day never marked has none. */
+  async day(date: string = today()): Promise<CounterDayView> {
+    const site = await this.kitchen.current();
+    const row = await this.days.find(site.id, date);
+    return row
+      ? { date, products: row.products, setBy: row.setByName, setAt: row.setAt.toISOString() }
+      : { date, products: [], setBy: null, setAt: null };
+  }
+
+  /** Marks the products on sale on a day; each must be a product for sale. Nothing is saved when one is not. */
+  async setDay(body: CounterDay, user: AuthUser): Promise<CounterDayView> {
+    const state = await this.books.state();
+    assertForSale(state, body.products);
+    const row = await this.days.save(state.site.id, body.date, body.products, user);
+    this.events.publish({ type: 'display-changed', date: body.date });
+    return { date: body.date, products: row.products, setBy: row.setByName, setAt: row.setAt.toISOString() };
+  }
+}
+
+/** Refuses ids that are not products for sale, naming each by its place in the list. */
+function assertForSale(state: KitchenState, ids: readonly string[]) {
+  const recipes = new Map(state.book.recipes.map((r) => [r.id, r]));
+  const fields: FieldError[] = [];
+  ids.forEach((id, i) => {
+    const recipe = recipes.get(id);
+    if (!recipe) fields.push({ path: `products.${i}`, message: `There is no product '${id}'.` });
+    else if (!recipe.sale) fields.push({ path: `products.${i}`, message: `${recipe.name} ('${id}') is a recipe, not for sale.` });
+  });
+  if (fields.length > 0) throw new AppError('validation', fields.map((f) => `${f.path}: ${f.message}`).join(' '), fields);
+}
