@@ -19,3 +19,4 @@ export * from './nutrient-reference';
 export * from './gs1';
 export * from './label-contracts';
 export * from './counter-contracts';
+export * from './counter';
