@@ -180,7 +180,7 @@ describe('the counter (real MariaDB)', () => {
       }
     });
 
-    it('tells of a recipe saved, naming the products above it, and of new kitchen settings, naming none', async () => {
+    it('tells of a recipe saved and a book imported, naming the products they touch, and of new kitchen settings, naming none', async () => {
       const stream = await openStream(port, chef);
       try {
         const jam = (await book()).recipes.find((r) => r.id === 'strawberry-jam')!;
@@ -196,6 +196,22 @@ describe('the counter (real MariaDB)', () => {
         const settings = await stream.next('declarations-changed', since, 1000);
         expect(settings!.data).toEqual({ type: 'declarations-changed' });
         expect((await req('PATCH', '/api/kitchen', manager, { regime: 'UK' })).statusCode).toBe(200);
+
+        // A book import that revises an ingredient names the products made with it.
+        const { site, ingredients } = await book();
+        const flaxseed = ingredients.find((i) => i.id === 'flaxseed')!;
+        since = stream.text().length;
+        const imported = await req('POST', '/api/book/import', manager, {
+          crumbproofBook: 1,
+          site,
+          ingredients: [{ ...flaxseed, name: 'Golden flaxseed' }],
+          recipes: [],
+        });
+        expect(imported.statusCode).toBe(200);
+        expect((await stream.next('declarations-changed', since, 1000))!.data).toEqual({
+          type: 'declarations-changed',
+          products: ['vegan-brownie'],
+        });
       } finally {
         stream.close();
       }

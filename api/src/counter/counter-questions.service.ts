@@ -15,6 +15,7 @@ import { KitchenService } from '../kitchen/kitchen.service';
 import { RulesService } from '../rules/rules.service';
 import { CounterEvents } from './counter-events';
 import { CounterQuestionsRepository, type CounterQuestionRow } from './counter-questions.repository';
+import { notForSale } from './product-for-sale';
 
 /** Questions front of house asks the kitchen about a product, and the kitchen's answers. */
 @Injectable()
@@ -35,9 +36,9 @@ export class CounterQuestionsService {
   async ask(body: CounterQuestionRequest, user: AuthUser): Promise<CounterQuestionView> {
     const { site, book } = await this.books.state();
     const fields: FieldError[] = [];
+    const problem = notForSale(book, body.product);
+    if (problem) fields.push({ path: 'product', message: problem });
     const product = book.recipes.find((r) => r.id === body.product);
-    if (!product) fields.push({ path: 'product', message: `There is no product '${body.product}'.` });
-    else if (!product.sale) fields.push({ path: 'product', message: `${product.name} ('${product.id}') is a recipe, not for sale.` });
     const accepted = [...this.rules.refs.regimes[site.regime].groups.map((g) => g.code), ...ALLERGEN_SOURCES];
     body.avoid.forEach((code, i) => {
       if (!accepted.includes(code)) fields.push({ path: `avoid.${i}`, message: notInListMessage('allergen', code, accepted) });

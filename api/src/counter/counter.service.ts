@@ -8,6 +8,7 @@ import { today } from '../ingredients/specifications/specification.dto';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { CounterDaysRepository } from './counter-days.repository';
 import { CounterEvents } from './counter-events';
+import { notForSale } from './product-for-sale';
 
 /** The counter's products with their declarations, and the products on sale each day. */
 @Injectable()
@@ -68,12 +69,10 @@ export class CounterService {
 
 /** Refuses ids that are not products for sale, naming each by its place in the list. */
 function assertForSale(state: KitchenState, ids: readonly string[]) {
-  const recipes = new Map(state.book.recipes.map((r) => [r.id, r]));
   const fields: FieldError[] = [];
   ids.forEach((id, i) => {
-    const recipe = recipes.get(id);
-    if (!recipe) fields.push({ path: `products.${i}`, message: `There is no product '${id}'.` });
-    else if (!recipe.sale) fields.push({ path: `products.${i}`, message: `${recipe.name} ('${id}') is a recipe, not for sale.` });
+    const problem = notForSale(state.book, id);
+    if (problem) fields.push({ path: `products.${i}`, message: problem });
   });
   if (fields.length > 0) throw new AppError('validation', fields.map((f) => `${f.path}: ${f.message}`).join(' '), fields);
 }
