@@ -1,9 +1,9 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import {
+  checkTemplate,
   leafBlocks,
   parseTemplate,
-  templateLegibilityProblems,
   type LabelFonts,
   type LabelTemplate,
   type TemplateProblem,
@@ -43,14 +43,9 @@ export function loadLabelTemplates(dir: string = LABEL_TEMPLATES_DIR, fonts?: La
       problems.push({ file, field: '(the file)', message: `It is not valid JSON: ${(e as Error).message}` });
       continue;
     }
-    const parsed = parseTemplate(raw, file);
+    const parsed = fonts ? checkTemplate(raw, file, fonts) : parseTemplate(raw, file);
     if (!parsed.ok) {
       problems.push(...parsed.problems);
-      continue;
-    }
-    const illegible = fonts ? templateLegibilityProblems(parsed.template, fonts) : [];
-    if (illegible.length > 0) {
-      problems.push(...illegible.map((p) => ({ file, field: /sets (\S+) at/.exec(p.message)?.[1] ?? 'blocks', message: p.message })));
       continue;
     }
     const blocks = leafBlocks(parsed.template).map((b) => b.block);

@@ -13,6 +13,7 @@ import {
 import { useState } from 'react';
 import { useFieldArray, useForm } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
+import { SaveBar } from '@/components/ui/save-bar';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
 import { isApiError } from '@/lib/api-client';
 import { useUpdateKitchen } from '../api/update-kitchen';
@@ -138,14 +139,7 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
               : update.error.message}
           </ErrorAlert>
         ) : null}
-        <HStack gap="4" wrap="wrap">
-          <Button type="submit" size="lg" loading={update.isPending} loadingText="Saving…">
-            Save kitchen settings
-          </Button>
-          <Text role="status" color="fg.muted">
-            {saved}
-          </Text>
-        </HStack>
+        <SaveBar label="Save kitchen settings" pending={update.isPending} status={saved} />
       </Stack>
     </form>
   );

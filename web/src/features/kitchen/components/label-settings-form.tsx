@@ -1,8 +1,9 @@
-import { Box, Button, Code, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Box, Code, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { BATCH_TOKENS, batchPatternProblem, expandBatchPattern, labelSettingsSchema, type LabelSettings } from '@crumbproof/shared';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
+import { SaveBar } from '@/components/ui/save-bar';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
 import { isApiError } from '@/lib/api-client';
 import { useUpdateLabelSettings } from '../api/update-label-settings';
@@ -133,14 +134,7 @@ export function LabelSettingsForm({ settings }: { settings: LabelSettings }) {
             {isApiError(update.error) && update.error.fields.length > 0 ? ' Each problem is shown beside its field.' : null}
           </ErrorAlert>
         ) : null}
-        <HStack gap="4" wrap="wrap">
-          <Button type="submit" size="lg" loading={update.isPending} loadingText="Saving…">
-            Save label settings
-          </Button>
-          <Text role="status" color="fg.muted">
-            {saved}
-          </Text>
-        </HStack>
+        <SaveBar label="Save label settings" pending={update.isPending} status={saved} />
       </Stack>
     </form>
   );
