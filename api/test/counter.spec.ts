@@ -106,6 +106,15 @@ describe('the counter (real MariaDB)', () => {
       expect(Date.parse(feed.computedAt)).toBeGreaterThanOrEqual(before - 1000);
       expect(Date.parse(feed.computedAt)).toBeLessThanOrEqual(Date.now());
       expect(feed.date).toBe(localToday());
+      // The lookup's groups are the kitchen's regime's list: the demo kitchen is in the UK, whose
+      // list is the 14 of Regulation (EU) No 1169/2011 Annex II as assimilated in UK law, with the
+      // nuts of its point 8 as finer sources a customer can pick one of.
+      expect(feed.regime).toBe('UK');
+      expect(feed.rules.groups.map((g) => g.code)).toHaveLength(14);
+      expect(feed.rules.groups.find((g) => g.code === 'nuts')?.sources).toEqual(
+        expect.arrayContaining(['almond', 'hazelnut', 'walnut', 'cashew', 'pecan', 'brazil-nut', 'pistachio', 'macadamia']),
+      );
+      expect(feed.rules.groups.find((g) => g.code === 'eggs')).toMatchObject({ label: expect.stringMatching(/egg/i), sources: ['egg'] });
       for (const product of feed.products) {
         const own = await req('GET', `/api/recipes/${product.id}/declaration`, counter);
         expect(own.statusCode).toBe(200);

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { itemIdSchema } from './book';
 import { calendarDateSchema } from './label-contracts';
+import type { Regime } from './allergens';
+import type { CounterRules } from './counter/ask';
 import type { ServedDeclaration } from './product-declaration';
 import { plainText } from './text';
 
@@ -78,6 +80,10 @@ export interface CounterProductsView {
   computedAt: string;
   /** The day whose display `onSale` follows (the server's calendar day). */
   date: string;
+  /** The kitchen's regime: every declaration in the set is under it. */
+  regime: Regime;
+  /** The regime's allergen groups, each with its label and the sources it covers, for the counter's lookup. */
+  rules: CounterRules;
   products: CounterProduct[];
 }
 

@@ -6,6 +6,7 @@ import { AppError } from '../common/app-error';
 import { DeclarationsService } from '../declarations/declarations.service';
 import { today } from '../ingredients/specifications/specification.dto';
 import { KitchenService } from '../kitchen/kitchen.service';
+import { RulesService } from '../rules/rules.service';
 import { CounterDaysRepository } from './counter-days.repository';
 import { CounterEvents } from './counter-events';
 import { notForSale } from './product-for-sale';
@@ -19,6 +20,7 @@ export class CounterService {
     private readonly declarations: DeclarationsService,
     private readonly days: CounterDaysRepository,
     private readonly events: CounterEvents,
+    private readonly rules: RulesService,
   ) {}
 
   /**
@@ -44,6 +46,8 @@ export class CounterService {
     return {
       computedAt,
       date,
+      regime: state.site.regime,
+      rules: this.rules.counterRules(state.site.regime),
       products: forSale.map((r, i) => ({ id: r.id, name: r.name, onSale: onSale.has(r.id), declaration: declared[i] })),
     };
   }

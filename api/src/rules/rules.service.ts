@@ -8,6 +8,7 @@ import {
   type Book,
   type BookProblem,
   type CompositionScan,
+  type CounterRules,
   type ProductDeclaration,
   type Regime,
   type SourceEntry,
@@ -52,6 +53,11 @@ export class RulesService {
             message: `Composition names '${h.matched}' (${SOURCE_LABELS[h.source]}) but the supplier's list does not include ${SOURCE_LABELS[h.source]}.`,
           }));
     return { ...scan, discrepancies };
+  }
+
+  /** What the counter's lookup needs of a regime: its allergen groups with their labels and the sources each covers. */
+  counterRules(regime: Regime): CounterRules {
+    return { groups: this.refs.regimes[regime].groups.map((g) => ({ code: g.code, label: g.label, sources: g.members })) };
   }
 
   sources() {
