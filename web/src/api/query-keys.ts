@@ -59,6 +59,12 @@ export const queryKeys = {
     /** The recipe as typed in the editor, declared without saving. */
     preview: (recipe: BookRecipe | null, regime: Regime | undefined) => ['declarations', 'preview', regimeKey(regime), recipe] as const,
   },
+  counter: {
+    /** Questions asked of the kitchen, every one (newest first); a question-answered event refreshes them. */
+    questions: () => ['counter', 'questions'] as const,
+    /** The products marked on sale on one day, with who marked them. */
+    day: (date: string) => ['counter', 'day', date] as const,
+  },
   labels: {
     all: () => ['labels'] as const,
     templates: () => ['labels', 'templates'] as const,
@@ -103,4 +109,6 @@ export const mutationKeys = {
   applySwap: () => ['swaps', 'apply'] as const,
   updateLabelSettings: () => ['labels', 'settings', 'update'] as const,
   printLabels: () => ['labels', 'runs', 'print'] as const,
+  answerCounterQuestion: () => ['counter', 'questions', 'answer'] as const,
+  setCounterDay: () => ['counter', 'day', 'set'] as const,
 } as const;
