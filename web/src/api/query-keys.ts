@@ -60,6 +60,8 @@ export const queryKeys = {
     preview: (recipe: BookRecipe | null, regime: Regime | undefined) => ['declarations', 'preview', regimeKey(regime), recipe] as const,
   },
   counter: {
+    /** Every product for sale with its served declaration and whether it is on sale today: the counter's one read. */
+    products: () => ['counter', 'products'] as const,
     /** Questions asked of the kitchen, every one (newest first); a question-answered event refreshes them. */
     questions: () => ['counter', 'questions'] as const,
     /** The products marked on sale on one day, with who marked them. */

@@ -1,11 +1,10 @@
 import type { CounterQuestionView, CounterRules, Role } from '@crumbproof/shared';
 import { render, screen, waitFor, within } from '@testing-library/react';
-import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { AppProviders } from '@/app/providers';
 import { createQueryClient } from '@/lib/query-client';
-import { SignedInUserProvider } from '@/lib/signed-in-user';
-import { mockApi, PEOPLE, type ApiHandlers } from '@/testing/mock-api';
+import { mockApi, type ApiHandlers } from '@/testing/mock-api';
+import { renderAs } from '../testing/render-as';
 import { useOpenQuestionCount } from '../api/questions';
 import { avoidWords, QuestionsPanel } from './questions-panel';
 
@@ -55,18 +54,7 @@ const OPEN_NEWER: CounterQuestionView = {
 const QUESTIONS = [OPEN_NEWER, ANSWERED, OPEN_OLDER];
 
 function renderPanel(role: Role, handlers: ApiHandlers) {
-  const api = mockApi(handlers);
-  const queryClient = createQueryClient();
-  queryClient.setDefaultOptions({ queries: { retry: false }, mutations: { retry: false } });
-  const user = userEvent.setup();
-  render(
-    <AppProviders queryClient={queryClient}>
-      <SignedInUserProvider me={PEOPLE[role]}>
-        <QuestionsPanel rules={RULES} />
-      </SignedInUserProvider>
-    </AppProviders>,
-  );
-  return { ...api, user, queryClient };
+  return renderAs(role, handlers, <QuestionsPanel rules={RULES} />);
 }
 
 const cards = () => screen.getAllByRole('article');
