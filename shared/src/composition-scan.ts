@@ -41,6 +41,8 @@ export interface AnimalHit extends TermHit {
 
 export interface VagueHit extends TermHit {
   message: string;
+  /** The sources the word may stand for. */
+  mayMean: AllergenSource[];
   unverifies: Claim[];
   /** Found in a precautionary clause ("may contain nuts"). */
   precautionary: boolean;

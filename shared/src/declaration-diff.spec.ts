@@ -13,6 +13,8 @@ function declaration(over: Partial<Declaration>): Declaration {
     portionG: 50,
     contains: [],
     mayContain: [],
+    precautions: [],
+    vague: [],
     unknown: [],
     exempt: [],
     claims,

@@ -1,4 +1,4 @@
-import type { AllergenSource, Claim, ClaimStatus, ExemptForm, LineRole, Regime } from './allergens';
+import type { AllergenSource, Claim, ClaimStatus, Control, ExemptForm, LineRole, Regime } from './allergens';
 
 /**
  * The declaration of one product under one regime: what the rules engine proves from the
@@ -24,6 +24,48 @@ export interface MayContainAllergen {
   label: string;
   /** Short sentences, e.g. "Supplier of Dark chocolate: may contain milk". */
   why: string[];
+}
+
+/**
+ * One precautionary statement, with the source it names: a supplier's may-contain list, a
+ * "may contain" clause in an ingredient's composition text, or the kitchen's own shared handling.
+ * Every statement is kept, also for a group the product contains (the may-contain line leaves
+ * those out), so that a customer avoiding one source of a group (walnut, in a pecan tart) is told
+ * of a may-contain of that source.
+ */
+export interface PrecautionStatement {
+  source: AllergenSource;
+  /** The regime's groups the source counts under. */
+  allergens: string[];
+  /** 'supplier': the supplier's list; 'composition': the composition text; 'kitchen': the kitchen's handling. */
+  origin: 'supplier' | 'composition' | 'kitchen';
+  /** The ingredient whose statement it is; null for the kitchen's handling. */
+  ingredient: string | null;
+  ingredientName: string | null;
+  /** The kitchen's handling ('shared-equipment', 'shared-area'); null for an ingredient's statement. */
+  controls: Exclude<Control, 'segregated'> | null;
+  /** Every path from the product to the ingredient (empty for the kitchen's handling). */
+  via: IdPath[];
+  /** The statement as a may-contain reason says it, e.g. "Supplier of Dark chocolate: may contain hazelnut". */
+  message: string;
+}
+
+/**
+ * A composition text that names an allergen without saying which (nuts, shellfish, gluten), in
+ * the composition itself (the allergen is not known) or in a "may contain" clause.
+ */
+export interface VagueMention {
+  ingredient: string;
+  name: string;
+  /** The word as written in the composition, e.g. 'nuts'. */
+  term: string;
+  /** In a precautionary clause ("may contain nuts"), not in the composition itself. */
+  precautionary: boolean;
+  /** The sources the word may stand for (reference-data/lexicon.json). */
+  mayMean: AllergenSource[];
+  via: IdPath[];
+  /** The composition-vague warning's message. */
+  message: string;
 }
 
 /** A leaf with no allergen statement: nothing about it can be proved. */
@@ -164,6 +206,10 @@ export interface Declaration {
   portionG: number | null;
   contains: ContainedAllergen[];
   mayContain: MayContainAllergen[];
+  /** Every precautionary statement behind the may-contains, with its source, also for groups the product contains. */
+  precautions: PrecautionStatement[];
+  /** Compositions that name an allergen without saying which. */
+  vague: VagueMention[];
   unknown: UnknownAllergens[];
   exempt: ExemptUse[];
   claims: DeclaredClaims;

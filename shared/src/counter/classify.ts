@@ -2,16 +2,7 @@ import type { AllergenSource, Control } from '../allergens';
 import type { ClaimReason, ExemptUse, IdPath } from '../declaration';
 import type { ProductDeclaration } from '../product-declaration';
 import { resolveAsk, type AvoidItem, type CounterRules, type CounterWant, type CustomerAsk } from './ask';
-import {
-  nameOf,
-  pathsTo,
-  readMayContainWhy,
-  readPrecaution,
-  readVague,
-  throughContact,
-  type Precaution,
-  type PrecautionReason,
-} from './precautions';
+import { pathsTo, throughContact, type PrecautionReason } from './precautions';
 
 /**
  * The counter's answer for one product and one customer:
@@ -50,10 +41,10 @@ export interface CounterMayContain {
   avoid: string;
   /** The group it was recorded under; null for a composition that names nuts without saying which. */
   allergen: string | null;
-  /** The source the statement names; null when it names none (any source of the group may be meant). */
+  /** The source the statement names; null for a composition that names e.g. nuts without saying which. */
   source: AllergenSource | null;
   /** 'supplier': the supplier's statement; 'composition': the supplier's ingredients text; 'kitchen': the kitchen's handling. */
-  reason: PrecautionReason | 'unread';
+  reason: PrecautionReason;
   ingredientName: string | null;
   controls: Control | null;
   statement: string;
@@ -101,62 +92,37 @@ function worst(verdicts: CounterVerdict[]): CounterVerdict {
   return verdicts.reduce<CounterVerdict>((w, v) => (rank(v) > rank(w) ? v : w), 'suitable-as-recorded');
 }
 
-const sameStatement = (a: string, b: string) => a.replace(/\.$/, '') === b.replace(/\.$/, '');
-
+/**
+ * The precautionary statements that name a source of theirs. The engine keeps every statement
+ * with its source, also for a group the product contains, so avoiding walnut in a pecan tart still
+ * finds a supplier's "may contain walnut". A composition's "may contain nuts" names no source: it
+ * counts for every source the word may stand for.
+ */
 function precautionsFor(declaration: ProductDeclaration, item: AvoidItem): CounterMayContain[] {
   const out: CounterMayContain[] = [];
-  const add = (allergen: string | null, p: Precaution) => {
-    if (
-      out.some(
-        (o) =>
-          sameStatement(o.statement, p.statement) ||
-          (p.source &&
-            o.source === p.source &&
-            o.reason === p.reason &&
-            o.ingredientName === p.ingredientName &&
-            o.controls === p.controls),
-      )
-    )
-      return;
+  for (const p of declaration.precautions) {
+    if (!item.sources.includes(p.source) || out.some((o) => o.statement === p.message)) continue;
     out.push({
       avoid: item.code,
-      allergen,
+      allergen: p.allergens.find((a) => item.groups.includes(a)) ?? p.allergens[0] ?? null,
       source: p.source,
-      reason: p.reason,
+      reason: p.origin,
       ingredientName: p.ingredientName,
       controls: p.controls,
-      statement: p.statement,
+      statement: p.message,
     });
-  };
-  // A statement is theirs when it names one of their sources, or names none (any source may be meant).
-  const theirs = (p: Precaution) => p.source === null || item.sources.includes(p.source);
-
-  for (const entry of declaration.mayContain.filter((m) => item.groups.includes(m.allergen))) {
-    for (const why of entry.why) {
-      const p = readMayContainWhy(why);
-      if (theirs(p)) add(entry.allergen, p);
-    }
   }
-
-  // The engine keeps no may-contain for a group the product contains. When one avoided source of
-  // that group is not among the contained ones (avoiding walnut in a pecan tart), the statements
-  // that name it are read from the claims, which keep every supplier statement and the kitchen's
-  // handling of each source whatever the product contains.
-  const folded = declaration.contains.filter((c) => item.groups.includes(c.allergen) && !c.sources.some((s) => item.sources.includes(s)));
-  if (item.kind === 'source' && folded.length > 0) {
-    for (const claim of Object.values(declaration.claims)) {
-      for (const reason of claim.reasons) {
-        const p = readPrecaution(reason.message);
-        if (p && p.source !== null && item.sources.includes(p.source)) add(folded[0]?.allergen ?? null, p);
-      }
-    }
-  }
-
-  for (const notice of declaration.warnings.filter((w) => w.code === 'composition-vague')) {
-    const vague = readVague(notice);
-    if (!vague.precautionary || !vague.sources.some((s) => item.sources.includes(s))) continue;
-    const ingredientName = notice.ingredient ? nameOf(declaration, notice.ingredient) : null;
-    add(null, { source: null, reason: 'composition', ingredientName, controls: null, statement: notice.message });
+  for (const v of declaration.vague.filter((x) => x.precautionary && x.mayMean.some((s) => item.sources.includes(s)))) {
+    if (out.some((o) => o.statement === v.message)) continue;
+    out.push({
+      avoid: item.code,
+      allergen: null,
+      source: null,
+      reason: 'composition',
+      ingredientName: v.name,
+      controls: null,
+      statement: v.message,
+    });
   }
   return out;
 }
@@ -179,13 +145,9 @@ function notKnownFor(declaration: ProductDeclaration, avoid: AvoidItem[]): Count
       all,
     );
   }
-  for (const notice of declaration.warnings.filter((w) => w.code === 'composition-vague' && w.ingredient)) {
-    const vague = readVague(notice);
-    if (vague.precautionary) continue;
-    const id = notice.ingredient as string;
-    const via = pathsTo(declaration, id);
-    const codes = avoid.filter((a) => vague.sources.some((s) => a.sources.includes(s))).map((a) => a.code);
-    add({ ingredient: id, name: nameOf(declaration, id), via, why: 'composition-unspecified', message: notice.message }, codes);
+  for (const v of declaration.vague.filter((x) => !x.precautionary)) {
+    const codes = avoid.filter((a) => v.mayMean.some((s) => a.sources.includes(s))).map((a) => a.code);
+    add({ ingredient: v.ingredient, name: v.name, via: v.via, why: 'composition-unspecified', message: v.message }, codes);
   }
   if (declaration.sulphites.status === 'not-known') {
     const codes = avoid.filter((a) => a.sources.includes('sulphites')).map((a) => a.code);

@@ -1,4 +1,4 @@
 export * from './ask';
 export * from './classify';
 export { readAloud, COUNTER_CAUTION, type ReadAloud } from './read-aloud';
-export type { Precaution, PrecautionReason } from './precautions';
+export type { PrecautionReason } from './precautions';

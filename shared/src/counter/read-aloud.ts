@@ -1,8 +1,8 @@
 import { SOURCE_LABELS } from '../allergens';
-import type { ClaimReason, ContainedAllergen, IdPath } from '../declaration';
+import type { ClaimReason, ContainedAllergen, IdPath, PrecautionStatement } from '../declaration';
 import type { ProductDeclaration } from '../product-declaration';
 import type { CounterRules } from './ask';
-import { entriesAlong, nameOf, readMayContainWhy, readVague, throughContact, type Precaution } from './precautions';
+import { entriesAlong, nameOf, throughContact } from './precautions';
 
 /**
  * A product's declaration in sentences a person reads out to a customer at the counter: what it
@@ -100,20 +100,24 @@ function containsSentence(declaration: ProductDeclaration, rules: CounterRules):
   return said.length === 1 ? `It has ${said[0]}.` : `It has ${said.slice(0, -1).join('; ')}; and ${said[said.length - 1]}.`;
 }
 
+/**
+ * The precautionary statements, gathered: the kitchen's handling first, then what each supplier's
+ * list and each composition says. A source the product has is not said again as a may-contain
+ * (sesame on shared equipment, in a product with sesame); a source of a group it has that it does
+ * not have itself is (may contain walnut, in a pecan tart).
+ */
 function mayContainSentences(declaration: ProductDeclaration): string[] {
-  const precautions: Array<Precaution & { allergen: string }> = declaration.mayContain.flatMap((m) =>
-    m.why.map((why) => ({ ...readMayContainWhy(why), allergen: m.label })),
-  );
-  const named = (items: Array<Precaution & { allergen: string }>) =>
-    listed(unique(items.map((p) => (p.source ? SOURCE_LABELS[p.source] : p.allergen))));
+  const has = new Set(declaration.contains.flatMap((c) => c.sources));
+  const precautions = declaration.precautions.filter((p) => !has.has(p.source));
+  const named = (items: PrecautionStatement[]) => listed(unique(items.map((p) => SOURCE_LABELS[p.source])));
   const out: string[] = [];
-  const equipment = precautions.filter((p) => p.reason === 'kitchen' && p.controls === 'shared-equipment');
+  const equipment = precautions.filter((p) => p.origin === 'kitchen' && p.controls === 'shared-equipment');
   if (equipment.length > 0) out.push(`It is made on equipment shared with ${named(equipment)}.`);
-  const area = precautions.filter((p) => p.reason === 'kitchen' && p.controls === 'shared-area');
-  const areaSources = unique(area.map((p) => p.source ?? p.allergen));
+  const area = precautions.filter((p) => p.origin === 'kitchen' && p.controls === 'shared-area');
+  const areaSources = unique(area.map((p) => p.source));
   if (area.length > 0) out.push(`It is made in an area where ${named(area)} ${areaSources.length > 1 ? 'are' : 'is'} handled.`);
   for (const reason of ['supplier', 'composition'] as const) {
-    const of = precautions.filter((p) => p.reason === reason);
+    const of = precautions.filter((p) => p.origin === reason);
     const byNamed: Array<{ named: string; ingredients: string[] }> = [];
     for (const ingredient of unique(of.map((p) => p.ingredientName ?? ''))) {
       const what = named(of.filter((p) => (p.ingredientName ?? '') === ingredient));
@@ -130,13 +134,8 @@ function mayContainSentences(declaration: ProductDeclaration): string[] {
       );
     }
   }
-  for (const p of precautions.filter((x) => x.reason === 'unread')) out.push(`${stop(p.statement)}.`);
-  for (const notice of declaration.warnings.filter((w) => w.code === 'composition-vague' && w.ingredient)) {
-    const vague = readVague(notice);
-    if (vague.precautionary)
-      out.push(
-        `The ingredients text of ${nameOf(declaration, notice.ingredient as string)} says it may contain ${vague.term ?? 'an allergen'}, without saying which.`,
-      );
+  for (const v of declaration.vague.filter((x) => x.precautionary)) {
+    out.push(`The ingredients text of ${v.name} says it may contain ${v.term}, without saying which.`);
   }
   return unique(out);
 }
@@ -146,12 +145,8 @@ function notKnownSentences(declaration: ProductDeclaration): string[] {
   const names = declaration.unknown.map((u) => u.name);
   if (names.length === 1) out.push(`Not known: ${names[0]} has no allergen statement, so nothing can be said of its allergens.`);
   if (names.length > 1) out.push(`Not known: ${listed(names)} have no allergen statement, so nothing can be said of their allergens.`);
-  for (const notice of declaration.warnings.filter((w) => w.code === 'composition-vague' && w.ingredient)) {
-    const vague = readVague(notice);
-    if (vague.precautionary) continue;
-    out.push(
-      `Not known: the ingredients text of ${nameOf(declaration, notice.ingredient as string)} names ${vague.term ?? 'an allergen'} without saying which.`,
-    );
+  for (const v of declaration.vague.filter((x) => !x.precautionary)) {
+    out.push(`Not known: the ingredients text of ${v.name} names ${v.term} without saying which.`);
   }
   if (declaration.sulphites.status === 'not-known') {
     const touched = declaration.sulphites.missing.filter((m) => m.reason === 'contact-line').map((m) => m.name);

@@ -8,6 +8,7 @@ import {
   type ExemptForm,
   type ExemptUse,
   type MayContainAllergen,
+  type PrecautionStatement,
   type Site,
   type SourceEntry,
   type UnknownAllergens,
@@ -162,23 +163,34 @@ export function precautionWho(facts: LeafFacts, use: SourceUse): string {
 export const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /**
- * Supplier precautionary statements and the kitchen's shared handling, as the regime's groups.
- * 'segregated' handling gives none; a group the product contains is never repeated.
+ * Every precautionary statement with the source it names: each leaf's supplier list and
+ * composition clause (exempt forms left out), then the kitchen's shared handling ('segregated'
+ * gives none). Kept whatever the product contains; a source no group of the regime holds is left
+ * out, as the declaration says nothing of it.
  */
-export function mayContainFor(all: LeafFacts[], site: Site, rules: RegimeRules, contained: ContainedAllergen[]): MayContainAllergen[] {
-  const found = new Map<string, MayContainAllergen>();
-  const add = (source: AllergenSource, why: string) => {
-    for (const group of groupsOf(source, rules)) {
-      if (contained.some((c) => c.allergen === group.code)) continue;
-      const entry = found.get(group.code) ?? { allergen: group.code, label: group.label, why: [] };
-      pushUnique(entry.why, why);
-      found.set(group.code, entry);
-    }
-  };
+export function precautionsFor(all: LeafFacts[], site: Site, rules: RegimeRules): PrecautionStatement[] {
+  const out: PrecautionStatement[] = [];
   for (const facts of all) {
     for (const use of facts.mayContain) {
       if (exemptionOf(use, rules)) continue;
-      add(use.source, `${precautionWho(facts, use)}: may contain ${SOURCE_LABELS[use.source]}`);
+      const allergens = groupsOf(use.source, rules).map((g) => g.code);
+      if (allergens.length === 0) continue;
+      const origin = use.origin === 'composition' ? 'composition' : 'supplier';
+      const same = out.find((o) => o.origin === origin && o.ingredient === facts.ingredient.id && o.source === use.source);
+      if (same) {
+        pushPath(same.via, facts.node.path);
+        continue;
+      }
+      out.push({
+        source: use.source,
+        allergens,
+        origin,
+        ingredient: facts.ingredient.id,
+        ingredientName: facts.ingredient.name,
+        controls: null,
+        via: [facts.node.path],
+        message: `${precautionWho(facts, use)}: may contain ${SOURCE_LABELS[use.source]}`,
+      });
     }
   }
   for (const handled of site.handles) {
@@ -186,13 +198,46 @@ export function mayContainFor(all: LeafFacts[], site: Site, rules: RegimeRules, 
       case 'segregated':
         break;
       case 'shared-equipment':
-      case 'shared-area':
-        add(handled.allergen, `${capitalise(SOURCE_LABELS[handled.allergen])}: ${CONTROL_LABELS[handled.controls]}`);
+      case 'shared-area': {
+        const allergens = groupsOf(handled.allergen, rules).map((g) => g.code);
+        if (allergens.length === 0) break;
+        out.push({
+          source: handled.allergen,
+          allergens,
+          origin: 'kitchen',
+          ingredient: null,
+          ingredientName: null,
+          controls: handled.controls,
+          via: [],
+          message: `${capitalise(SOURCE_LABELS[handled.allergen])}: ${CONTROL_LABELS[handled.controls]}`,
+        });
         break;
+      }
       default: {
         const never: never = handled.controls;
         throw new Error(`Unknown control ${String(never)}`);
       }
+    }
+  }
+  return out;
+}
+
+/**
+ * The may-contain line's groups, from the precautionary statements: a group the product contains
+ * is never repeated, and a statement said twice is kept once.
+ */
+export function mayContainFor(
+  precautions: PrecautionStatement[],
+  rules: RegimeRules,
+  contained: ContainedAllergen[],
+): MayContainAllergen[] {
+  const found = new Map<string, MayContainAllergen>();
+  for (const p of precautions) {
+    for (const group of rules.groups.filter((g) => p.allergens.includes(g.code))) {
+      if (contained.some((c) => c.allergen === group.code)) continue;
+      const entry = found.get(group.code) ?? { allergen: group.code, label: group.label, why: [] };
+      pushUnique(entry.why, p.message);
+      found.set(group.code, entry);
     }
   }
   return rules.groups.flatMap((g) => found.get(g.code) ?? []);

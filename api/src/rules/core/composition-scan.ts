@@ -82,6 +82,7 @@ export function scanComposition(composition: string, lexicon: Lexicon): Composit
           ...h,
           matched: composition.slice(h.start, h.end),
           message: t.message,
+          mayMean: [...t.mayMean],
           unverifies: t.unverifies ?? [],
           precautionary: inClause,
         })),

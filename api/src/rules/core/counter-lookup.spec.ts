@@ -107,6 +107,8 @@ describe('a customer avoiding one tree nut (walnut)', () => {
     const v = customerVerdict(d, ask(['walnut']), EU);
     expect(v.verdict).toBe('may-contain');
     expect(v.mayContain).toEqual([expect.objectContaining({ source: 'walnut', reason: 'supplier', ingredientName: 'Dark chocolate' })]);
+    // Read out as well: the walnut is a source the product does not have, though it has the group.
+    expect(readAloud(d, EU).mayContain).toEqual(['The supplier of Dark chocolate says it may contain walnut.']);
   });
 
   it('is told "may contain" for a pecan product made on the kitchen\'s equipment shared with walnut', () => {
@@ -301,6 +303,16 @@ describe("the kitchen's shared handling", () => {
     expect(v.verdict).toBe('may-contain');
     expect(v.mayContain).toEqual([expect.objectContaining({ reason: 'kitchen', controls: 'shared-equipment', source: 'sesame' })]);
     expect(readAloud(d, EU).mayContain).toEqual(['It is made on equipment shared with sesame.']);
+  });
+
+  it('is not said again as a may-contain of a product that has sesame itself', () => {
+    const d = product(
+      [ing('seeds', { name: 'Sesame seeds', contains: ['sesame'] })],
+      [{ allergen: 'sesame', controls: 'shared-equipment' }],
+    );
+    expect(readAloud(d, EU).mayContain).toEqual([]);
+    expect(readAloud(d, EU).contains).toBe('It has sesame in the Sesame seeds.');
+    expect(customerVerdict(d, ask(['sesame']), EU)).toMatchObject({ verdict: 'contains', mayContain: [] });
   });
 });
 

@@ -1,5 +1,25 @@
-import { SOURCE_LABELS, type Book, type Declaration, type DeclarationNotice, type DeclarationSet, type Regime } from '@crumbproof/shared';
-import { containsFor, declaredUses, exemptUses, groupsOf, leafFacts, mayContainFor, unknownFor, type LeafFacts } from './allergens';
+import {
+  SOURCE_LABELS,
+  type Book,
+  type BookIngredient,
+  type Declaration,
+  type DeclarationNotice,
+  type DeclarationSet,
+  type Regime,
+  type VagueHit,
+  type VagueMention,
+} from '@crumbproof/shared';
+import {
+  containsFor,
+  declaredUses,
+  exemptUses,
+  groupsOf,
+  leafFacts,
+  mayContainFor,
+  precautionsFor,
+  unknownFor,
+  type LeafFacts,
+} from './allergens';
 import { checkBook } from './book-check';
 import { claimsFor } from './claims';
 import { BookProblemsError, UnknownProductError } from './errors';
@@ -34,6 +54,36 @@ export function declareAll(book: Book, refs: ReferenceData, opts: DeclareOptions
 const NOT_VEGAN = new Set(['milk', 'egg', 'fish', 'crustacean', 'mollusc']);
 const NOT_VEGETARIAN = new Set(['fish', 'crustacean', 'mollusc']);
 
+function vagueMessage(ingredient: BookIngredient, hit: VagueHit): string {
+  const what = hit.precautionary ? `says it may contain '${hit.matched}' and so ${hit.message}` : `${hit.message} ('${hit.matched}')`;
+  return `The composition of ${ingredient.name} ${what}. Ask the supplier which.`;
+}
+
+/** Each composition that names an allergen without saying which, once per ingredient, word and clause, with every path to it. */
+function vagueFor(all: LeafFacts[]): VagueMention[] {
+  const out: VagueMention[] = [];
+  for (const f of all) {
+    for (const hit of f.scan.vague) {
+      const term = hit.matched.toLowerCase();
+      const same = out.find((v) => v.ingredient === f.ingredient.id && v.term === term && v.precautionary === hit.precautionary);
+      if (same) {
+        if (!same.via.some((p) => p.join('\u0000') === f.node.path.join('\u0000'))) same.via.push(f.node.path);
+        continue;
+      }
+      out.push({
+        ingredient: f.ingredient.id,
+        name: f.ingredient.name,
+        term,
+        precautionary: hit.precautionary,
+        mayMean: [...hit.mayMean],
+        via: [f.node.path],
+        message: vagueMessage(f.ingredient, hit),
+      });
+    }
+  }
+  return out;
+}
+
 function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNotice[] {
   const warnings: DeclarationNotice[] = [];
   const seen = new Set<string>();
@@ -52,12 +102,7 @@ function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNo
       });
     }
     for (const hit of f.scan.vague) {
-      const what = hit.precautionary ? `says it may contain '${hit.matched}' and so ${hit.message}` : `${hit.message} ('${hit.matched}')`;
-      warnings.push({
-        code: 'composition-vague',
-        ingredient: i.id,
-        message: `The composition of ${i.name} ${what}. Ask the supplier which.`,
-      });
+      warnings.push({ code: 'composition-vague', ingredient: i.id, message: vagueMessage(i, hit) });
     }
     const animalVegan = f.contains.some((u) => NOT_VEGAN.has(u.source)) || f.scan.animal.some((h) => h.fails.includes('vegan'));
     const animalVegetarian =
@@ -105,7 +150,8 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
 
   const sulphites = sulphitesFor(facts, tree.finishedG, rules);
   const contains = containsFor(facts, rules, sulphites.declared);
-  const mayContain = mayContainFor(facts, book.site, rules, contains);
+  const precautions = precautionsFor(facts, book.site, rules);
+  const mayContain = mayContainFor(precautions, rules, contains);
   const claims = claimsFor(facts, book.site, rules, tree.finishedG);
 
   const groupsAt = (node: TreeNode): string[] => {
@@ -180,6 +226,8 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
     portionG: tree.recipe.sale?.portionG ?? null,
     contains,
     mayContain,
+    precautions,
+    vague: vagueFor(facts),
     unknown: unknownFor(facts),
     exempt,
     claims,

@@ -137,6 +137,8 @@ export const lexiconFileSchema = z.strictObject({
     z.strictObject({
       term,
       message: z.string().min(1),
+      /** The sources the word may stand for: a customer avoiding any of them is not answered from the record. */
+      mayMean: z.array(source).min(1),
       /** Claims that cannot be proved while the composition is this vague. */
       unverifies: z.array(z.enum(CLAIMS)).optional(),
       except: z.array(term).optional(),

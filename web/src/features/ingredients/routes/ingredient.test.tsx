@@ -143,6 +143,7 @@ describe('New ingredient form', () => {
           start: 30,
           end: 40,
           message: 'Ask the supplier what the flavouring is made from.',
+          mayMean: ['milk', 'egg'],
           unverifies: ['vegan'],
           precautionary: false,
         },

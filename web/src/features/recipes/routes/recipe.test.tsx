@@ -70,7 +70,7 @@ describe('Product page: the declaration panel', () => {
     expect(within(printed).getByText('May contain: sesame.')).toBeInTheDocument();
     expect(within(printed).getByText('Raspberry jam 17%')).toBeInTheDocument();
 
-    expect(within(region('May contain')).getByText('Shared equipment in this kitchen: sesame is handled here.')).toBeInTheDocument();
+    expect(within(region('May contain')).getByText('Sesame: shared equipment in this kitchen')).toBeInTheDocument();
     const notKnown = region('Not known');
     expect(within(notKnown).getByText('Raspberry jam', { selector: 'strong' }).closest('li')).toHaveTextContent('Not known Raspberry jam');
     expect(notKnown.querySelector('[data-mark="dashed"]')).not.toBeNull();

@@ -150,7 +150,20 @@ export function declarationFor(overrides: Partial<ServedDeclaration> = {}): Serv
       { allergen: 'milk', label: 'milk', sources: ['milk'], via: [['victoria-sponge', 'vanilla-sponge', 'butter']] },
       { allergen: 'egg', label: 'eggs', sources: ['egg'], via: [['victoria-sponge', 'vanilla-sponge', 'eggs']] },
     ],
-    mayContain: [{ allergen: 'sesame', label: 'sesame', why: ['Shared equipment in this kitchen: sesame is handled here.'] }],
+    mayContain: [{ allergen: 'sesame', label: 'sesame', why: ['Sesame: shared equipment in this kitchen'] }],
+    precautions: [
+      {
+        source: 'sesame',
+        allergens: ['sesame'],
+        origin: 'kitchen',
+        ingredient: null,
+        ingredientName: null,
+        controls: 'shared-equipment',
+        via: [],
+        message: 'Sesame: shared equipment in this kitchen',
+      },
+    ],
+    vague: [],
     unknown: [{ ingredient: 'jam', name: 'Raspberry jam', via: [['victoria-sponge', 'jam']] }],
     exempt: [],
     claims: claimsWith({

@@ -39,6 +39,22 @@ function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
       ...(leaf === 'butter' ? [{ allergen: 'milk', label: 'milk', sources: ['milk' as const], via: [['shortbread', 'butter']] }] : []),
     ],
     mayContain: leaf === 'butter' ? [] : [{ allergen: 'milk', label: 'milk', why: ['Supplier of Plant spread: may contain milk'] }],
+    precautions:
+      leaf === 'butter'
+        ? []
+        : [
+            {
+              source: 'milk',
+              allergens: ['milk'],
+              origin: 'supplier',
+              ingredient: 'plant-spread',
+              ingredientName: 'Plant spread',
+              controls: null,
+              via: [['shortbread', 'plant-spread']],
+              message: 'Supplier of Plant spread: may contain milk',
+            },
+          ],
+    vague: [],
     unknown: [],
     exempt: [],
     claims: claimsWith(
