@@ -60,6 +60,8 @@ export const queryKeys = {
     preview: (recipe: BookRecipe | null, regime: Regime | undefined) => ['declarations', 'preview', regimeKey(regime), recipe] as const,
   },
   counter: {
+    /** Everything the counter reads: read again at once when its events stream comes back after a break. */
+    all: () => ['counter'] as const,
     /** Every product for sale with its served declaration and whether it is on sale today: the counter's one read. */
     products: () => ['counter', 'products'] as const,
     /** Questions asked of the kitchen, every one (newest first); a question-answered event refreshes them. */
@@ -92,6 +94,8 @@ export const KITCHEN_DATA_ROOTS = [
   queryKeys.declarations.all(),
   // A recipe saved makes earlier runs of it no longer current in the print log.
   queryKeys.labels.all(),
+  // The counter's products carry every product's declaration.
+  queryKeys.counter.products(),
 ] as const;
 
 /** Mutation keys, named like the queries they change. */
@@ -111,6 +115,7 @@ export const mutationKeys = {
   applySwap: () => ['swaps', 'apply'] as const,
   updateLabelSettings: () => ['labels', 'settings', 'update'] as const,
   printLabels: () => ['labels', 'runs', 'print'] as const,
+  askCounterQuestion: () => ['counter', 'questions', 'ask'] as const,
   answerCounterQuestion: () => ['counter', 'questions', 'answer'] as const,
   setCounterDay: () => ['counter', 'day', 'set'] as const,
 } as const;

@@ -70,6 +70,15 @@ export const routes: RouteObject[] = [
                 path: PAGES[key].path.slice(1),
                 element: <RoleGate page={key}>{PAGE_ELEMENTS[key]}</RoleGate>,
               })),
+              // The counter's other views (questions, on sale) at their own addresses.
+              {
+                path: 'counter/:view',
+                element: (
+                  <RoleGate page="counter">
+                    <CounterRoute />
+                  </RoleGate>
+                ),
+              },
               // Inside Recipes: the page gate first; the editor and swap check refuse front of house themselves.
               {
                 path: 'recipes/new',

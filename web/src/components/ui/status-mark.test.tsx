@@ -1,7 +1,7 @@
 import { render, screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { AppProviders } from '@/app/providers';
-import { StatusMark, type AllergenStatus } from './status-mark';
+import { Mark, StatusMark, type AllergenStatus } from './status-mark';
 
 const cases: { status: AllergenStatus; words: string; mark: string | null }[] = [
   { status: 'contains', words: 'Contains milk', mark: 'solid' },
@@ -27,5 +27,16 @@ describe('StatusMark', () => {
       // The mark is decoration: the words carry the status for screen readers.
       expect(shape).toHaveAttribute('aria-hidden', 'true');
     }
+  });
+
+  it('gives the counter\'s "suitable as recorded" a ring of its own, hidden from screen readers', () => {
+    const { container } = render(
+      <AppProviders>
+        <Mark status="suitable-as-recorded" />
+      </AppProviders>,
+    );
+    const shape = container.querySelector('[data-mark]');
+    expect(shape).toHaveAttribute('data-mark', 'ring');
+    expect(shape).toHaveAttribute('aria-hidden', 'true');
   });
 });

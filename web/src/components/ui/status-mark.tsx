@@ -26,8 +26,14 @@ const markBase = {
   borderWidth: '2px',
 } as const;
 
-/** The shape carries the status; colour never does on its own. */
-function Mark({ status }: { status: AllergenStatus }) {
+/**
+ * The counter's verdict "suitable as recorded" has a shape of its own, a ring: an open outline
+ * that is none of the others, never a tick alone.
+ */
+export type MarkShape = AllergenStatus | 'suitable-as-recorded';
+
+/** The shape carries the status; colour never does on its own. Decoration: the words beside it say the status. */
+export function Mark({ status }: { status: MarkShape }) {
   switch (status) {
     case 'contains':
       return <Box aria-hidden="true" data-mark="solid" {...markBase} bg="mark.ink" />;
@@ -43,6 +49,8 @@ function Mark({ status }: { status: AllergenStatus }) {
       );
     case 'not-known':
       return <Box aria-hidden="true" data-mark="dashed" {...markBase} borderStyle="dashed" />;
+    case 'suitable-as-recorded':
+      return <Box aria-hidden="true" data-mark="ring" {...markBase} borderRadius="full" borderWidth="3px" />;
     case 'none-recorded':
       return null;
   }

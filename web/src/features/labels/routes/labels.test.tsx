@@ -73,6 +73,20 @@ function labelsApi(role: 'manager' | 'pastry-chef', extra: ApiHandlers = {}) {
 }
 
 describe('Labels page', () => {
+  it('opens with the template named in the address picked (the counter links to the allergen chart so)', async () => {
+    labelsApi('pastry-chef', {
+      'GET /api/labels/templates': { body: [...TEMPLATES, { id: 'chart', title: 'Allergen chart', purpose: 'chart', printsBatch: false }] },
+    });
+    renderApp('/labels?template=chart');
+    expect(await screen.findByLabelText('Template')).toHaveValue('chart');
+  });
+
+  it('opens with the first template when the address names none it has', async () => {
+    labelsApi('pastry-chef');
+    renderApp('/labels?template=menu');
+    expect(await screen.findByLabelText('Template')).toHaveValue('product');
+  });
+
   it('prints a case run of the products given a quantity, and the print log is read again and shows it', async () => {
     let logged: LabelRun[] = [];
     const { calls } = labelsApi('manager', {

@@ -1,6 +1,7 @@
 import { Stack } from '@chakra-ui/react';
 import type { LabelRun } from '@crumbproof/shared';
 import { useCallback, useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import { useKitchen } from '@/api/kitchen';
 import { useLabelSettings } from '@/api/label-settings';
 import { useRecipes } from '@/api/recipes';
@@ -45,7 +46,10 @@ export function LabelsRoute() {
   const products = useMemo(() => (recipes.data ?? []).filter((r) => r.sale !== undefined), [recipes.data]);
   const titles = useMemo(() => new Map((templates.data ?? []).map((t) => [t.id, t.title])), [templates.data]);
   const templateTitle = useCallback((id: string) => titles.get(id) ?? id, [titles]);
-  const first = templates.data?.[0]?.id ?? '';
+  // `?template=chart` (the counter's "Print the allergen chart") opens with that template picked.
+  const [search] = useSearchParams();
+  const asked = templates.data?.find((t) => t.id === search.get('template'))?.id;
+  const first = asked ?? templates.data?.[0]?.id ?? '';
   const current = draft ?? emptyDraft(first);
 
   const printAgain = useCallback((run: LabelRun) => {
