@@ -1,7 +1,7 @@
 import 'reflect-metadata';
 import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { Logger, type LogLevel } from '@nestjs/common';
+import { Logger, RequestMethod, type LogLevel } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { NestFactory } from '@nestjs/core';
 import { FastifyAdapter, type NestFastifyApplication } from '@nestjs/platform-fastify';
@@ -49,7 +49,13 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
     for (const method of [route.method].flat()) if (method !== 'HEAD') routes.push({ method, url: route.url });
   });
   const config = app.get<ConfigService<AppConfig, true>>(ConfigService);
-  app.setGlobalPrefix('api');
+  // The public product page (public-page/) is served outside /api, as the address a QR code carries.
+  app.setGlobalPrefix('api', {
+    exclude: [
+      { path: 'p/:code', method: RequestMethod.GET },
+      { path: 'p/fonts/:file', method: RequestMethod.GET },
+    ],
+  });
   await app.register(fastifyCookie);
   await app.register(fastifyMultipart, { limits: { fileSize: MAX_UPLOAD_BYTES, files: 1 } });
   await registerSecurityHeaders(fastify, { https: sessionCookieSecure(config) });

@@ -13,6 +13,7 @@ import { HealthModule } from './health/health.module';
 import { IngredientsModule } from './ingredients/ingredients.module';
 import { KitchenModule } from './kitchen/kitchen.module';
 import { LabelsModule } from './labels/labels.module';
+import { PublicPageModule } from './public-page/public-page.module';
 import { RecipesModule } from './recipes/recipes.module';
 import { ReferenceModule } from './reference/reference.module';
 import { SwapsModule } from './swaps/swaps.module';
@@ -35,6 +36,7 @@ import { UsersModule } from './users/users.module';
     SwapsModule,
     LabelsModule,
     CounterModule,
+    PublicPageModule,
     ReferenceModule,
     SeedModule,
   ],

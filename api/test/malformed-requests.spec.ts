@@ -142,6 +142,7 @@ const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
   { method: 'PUT', url: '/api/counter/today', body: counterDay() },
   { method: 'POST', url: '/api/counter/questions', body: counterQuestion() },
   { method: 'POST', url: '/api/counter/questions/1/answer', body: { answer: 'It has no egg as recorded.' } },
+  { method: 'PUT', url: '/api/public-page/settings', body: { enabled: true, baseUrl: 'https://menu.example.com' } },
 ];
 
 /** What is wrong with a JSON body itself, tried on every JSON route. */
@@ -1274,6 +1275,35 @@ const CORPUS: MalformedRequest[] = [
       ],
     ] as const
   ).map(([method, url, what, body, status, names]) => ({ what, method, url, send: () => json(body), status, names })),
+
+  // The public product page's settings: PUT /api/public-page/settings
+  ...(
+    [
+      ['on with no address', { enabled: true, baseUrl: null }, /^baseUrl: Give the address customers reach Crumbproof at/m],
+      ['on as text', { enabled: 'yes', baseUrl: null }, /^enabled: Say whether the public product page is on/m],
+      ['an address that is no address', { enabled: true, baseUrl: 'menu dot example' }, /^baseUrl: Write a whole address/m],
+      ['an address of another scheme', { enabled: true, baseUrl: 'javascript:alert(1)' }, /^baseUrl: Use an address starting with https:/m],
+      ['an address with a password', { enabled: true, baseUrl: 'https://a:b@menu.example.com' }, /^baseUrl: Leave the user name/m],
+      [
+        'an address with a query',
+        { enabled: true, baseUrl: 'https://menu.example.com/?x=1' },
+        /^baseUrl: Leave out anything after \? or #/m,
+      ],
+      [
+        'an address of 121 characters',
+        { enabled: true, baseUrl: `https://${'m'.repeat(105)}.example` },
+        /^baseUrl: Keep the address to 120/m,
+      ],
+      ['a field it does not take', { enabled: false, baseUrl: null, theme: 'dark' }, /theme/],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'PUT' as const,
+    url: '/api/public-page/settings',
+    send: () => json(body),
+    status: 400,
+    names,
+  })),
 
   // Routes that do not exist: nothing can be deleted
   ...(

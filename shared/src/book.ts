@@ -317,6 +317,8 @@ export const saleSchema = z
     claims: z.array(z.enum(CLAIMS)).optional(),
     quid: z.array(id).optional(),
     ...salePrintDetailsShape,
+    /** Shown on the kitchen's public product page (when the kitchen has it on). Left out: not published. */
+    published: z.boolean({ error: 'Say whether the product is published on the public page (true or false).' }).optional(),
   })
   .superRefine((sale, ctx) => {
     // A date on the label needs both: how long the product keeps, and what kind of date it is.

@@ -20,3 +20,4 @@ export * from './gs1';
 export * from './label-contracts';
 export * from './counter-contracts';
 export * from './counter';
+export * from './public-page';

@@ -1,0 +1,25 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import type { PublicPageSettings } from '@crumbproof/shared';
+import { PublicPageSettingsModel } from './public-page-settings.model';
+
+/** A kitchen's public page settings as stored. */
+export interface PublicPageSettingsRow extends PublicPageSettings {
+  updatedAt: Date;
+}
+
+/** The only place that reads and writes the public_page_settings table (one row per kitchen, none until first saved). */
+@Injectable()
+export class PublicPageSettingsRepository {
+  constructor(@InjectModel(PublicPageSettingsModel) private readonly settings: typeof PublicPageSettingsModel) {}
+
+  async find(siteId: number): Promise<PublicPageSettingsRow | null> {
+    const row = await this.settings.findByPk(siteId);
+    return row ? { enabled: Boolean(row.enabled), baseUrl: row.baseUrl, updatedAt: row.updatedAt } : null;
+  }
+
+  async save(siteId: number, values: PublicPageSettings): Promise<PublicPageSettingsRow> {
+    await this.settings.upsert({ siteId, enabled: values.enabled, baseUrl: values.baseUrl, updatedAt: new Date() });
+    return (await this.find(siteId))!;
+  }
+}

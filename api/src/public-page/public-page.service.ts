@@ -1,0 +1,86 @@
+import { Injectable } from '@nestjs/common';
+import {
+  itemIdSchema,
+  publicPageUrl,
+  readAloud,
+  type BookRecipe,
+  type PublicPageSettings,
+  type PublicPageSettingsView,
+} from '@crumbproof/shared';
+import { BooksService } from '../books/books.service';
+import { DeclarationsService } from '../declarations/declarations.service';
+import { KitchenService } from '../kitchen/kitchen.service';
+import { RulesService } from '../rules/rules.service';
+import { notFoundPage, productPage, type PublicPage } from './public-page-html';
+import { PublicPageSettingsRepository } from './public-page-settings.repository';
+
+/** The public page is off until the manager turns it on. */
+const OFF: PublicPageSettings = { enabled: false, baseUrl: null };
+
+/** A product shows on the public page only when it is for sale and marked published. */
+export const isPublished = (recipe: Pick<BookRecipe, 'sale'> | undefined): boolean => recipe?.sale?.published === true;
+
+/**
+ * The kitchen's public product page: its settings (manager), the page of each published product
+ * (anyone, no sign-in) and the address a counter ticket's QR code carries.
+ */
+@Injectable()
+export class PublicPageService {
+  constructor(
+    private readonly settingsRepo: PublicPageSettingsRepository,
+    private readonly kitchen: KitchenService,
+    private readonly books: BooksService,
+    private readonly declarations: DeclarationsService,
+    private readonly rules: RulesService,
+  ) {}
+
+  async settings(): Promise<PublicPageSettingsView> {
+    const site = await this.kitchen.current();
+    const row = await this.settingsRepo.find(site.id);
+    return row ? { enabled: row.enabled, baseUrl: row.baseUrl, updatedAt: row.updatedAt.toISOString() } : { ...OFF, updatedAt: null };
+  }
+
+  async saveSettings(body: PublicPageSettings): Promise<PublicPageSettingsView> {
+    const site = await this.kitchen.current();
+    const row = await this.settingsRepo.save(site.id, body);
+    return { enabled: row.enabled, baseUrl: row.baseUrl, updatedAt: row.updatedAt.toISOString() };
+  }
+
+  /**
+   * The address of a product's public page for its counter ticket's QR code, or null when the
+   * kitchen has the page off or the product is not published (the ticket then prints no code).
+   */
+  async ticketUrls(siteId: number, recipes: readonly Pick<BookRecipe, 'id' | 'sale'>[]): Promise<Map<string, string>> {
+    const settings = (await this.settingsRepo.find(siteId)) ?? OFF;
+    const urls = new Map<string, string>();
+    if (!settings.enabled || !settings.baseUrl) return urls;
+    for (const recipe of recipes) if (isPublished(recipe)) urls.set(recipe.id, publicPageUrl(settings.baseUrl, recipe.id));
+    return urls;
+  }
+
+  /**
+   * A product's public page: the declaration in plain sentences and the caution, with no ids,
+   * revisions, quantities or supplier names. Every address that is not a published product of a
+   * kitchen with the page on gets the same page in words, with status 404, so the page tells no
+   * one which products exist.
+   */
+  async page(code: string): Promise<PublicPage> {
+    if (!itemIdSchema.safeParse(code).success) return notFoundPage();
+    const site = await this.kitchen.find();
+    if (!site) return notFoundPage();
+    const settings = (await this.settingsRepo.find(site.id)) ?? OFF;
+    if (!settings.enabled) return notFoundPage();
+    const state = await this.books.state();
+    const recipe = state.book.recipes.find((r) => r.id === code);
+    if (!recipe || !isPublished(recipe)) return notFoundPage();
+    const [declaration] = await this.declarations.forProducts([recipe.id], undefined, state);
+    const said = readAloud(declaration, this.rules.counterRules(declaration.regime));
+    return productPage({
+      kitchen: state.book.site.name,
+      product: recipe.name,
+      computedAt: declaration.basis.computedAt,
+      incomplete: declaration.errors.length > 0,
+      said,
+    });
+  }
+}

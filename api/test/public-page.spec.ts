@@ -1,0 +1,165 @@
+import { readAloud, type Book, type CounterProductsView, type RecipeView, type ServedDeclaration } from '@crumbproof/shared';
+import { escapeHtml } from '../src/public-page/public-page-html';
+import { PAGES_PER_MINUTE } from '../src/public-page/public-page-rate';
+import { startTestApp, type TestApp } from './support/test-app';
+
+/**
+ * The public product page on the real MariaDB with the demo kitchen: off until the manager turns
+ * it on; a product's page only once the product is published; no sign-in; the declaration in the
+ * counter's sentences and the caution, with nothing internal; the same 404 page in words for
+ * every other address; the shipped font served; and a limit on how fast one address may read.
+ */
+describe('the public product page (real MariaDB)', () => {
+  let t: TestApp;
+  let manager: string;
+  let chef: string;
+  let counter: string;
+  let view: CounterProductsView;
+  let product: RecipeView;
+  let other: RecipeView;
+
+  const page = (path: string, remoteAddress = '192.0.2.10') => t.app.inject({ method: 'GET', url: path, remoteAddress });
+  const publish = async (recipe: RecipeView, published: boolean | undefined) => {
+    const { revision: _revision, updatedAt: _updatedAt, ...body } = recipe;
+    const sale = { ...body.sale!, published };
+    if (published === undefined) delete sale.published;
+    const res = await t.app.inject({
+      method: 'PUT',
+      url: `/api/recipes/${recipe.id}`,
+      headers: { cookie: chef },
+      payload: { ...body, sale },
+    });
+    expect(res.statusCode).toBe(200);
+  };
+  const recipe = async (code: string): Promise<RecipeView> =>
+    (await t.app.inject({ method: 'GET', url: `/api/recipes/${code}`, headers: { cookie: chef } })).json();
+  const settings = (payload: Record<string, unknown>, cookie = manager) =>
+    t.app.inject({ method: 'PUT', url: '/api/public-page/settings', headers: { cookie }, payload });
+
+  beforeAll(async () => {
+    t = await startTestApp({ seed: true });
+    [manager, chef, counter] = [
+      await t.signIn('manager@example.com'),
+      await t.signIn('chef@example.com'),
+      await t.signIn('counter@example.com'),
+    ];
+    view = (await t.app.inject({ method: 'GET', url: '/api/counter/products', headers: { cookie: counter } })).json();
+    expect(view.products.length).toBeGreaterThan(1);
+    product = await recipe(view.products[0].id);
+    other = await recipe(view.products[1].id);
+  });
+  afterAll(() => t.close());
+
+  it('is off in a new kitchen: the settings say so and a published product has no page', async () => {
+    const got = await t.app.inject({ method: 'GET', url: '/api/public-page/settings', headers: { cookie: manager } });
+    expect(got.json()).toEqual({ enabled: false, baseUrl: null, updatedAt: null });
+    await publish(product, true);
+    const res = await page(`/p/${product.id}`);
+    expect(res.statusCode).toBe(404);
+    expect(res.body).toContain('No product page here');
+    expect(res.body).not.toContain(product.name);
+  });
+
+  it('is turned on by the manager alone, with the address its QR codes point at', async () => {
+    expect((await settings({ enabled: true, baseUrl: 'https://menu.example.com' }, chef)).statusCode).toBe(403);
+    const refused = await settings({ enabled: true, baseUrl: null });
+    expect(refused.statusCode).toBe(400);
+    expect(refused.json().fields).toEqual([expect.objectContaining({ path: 'baseUrl' })]);
+    const saved = await settings({ enabled: true, baseUrl: ' https://menu.example.com/ ' });
+    expect(saved.statusCode).toBe(200);
+    expect(saved.json()).toMatchObject({ enabled: true, baseUrl: 'https://menu.example.com' });
+    const got = await t.app.inject({ method: 'GET', url: '/api/public-page/settings', headers: { cookie: manager } });
+    expect(got.json()).toEqual(saved.json());
+  });
+
+  it('shows a published product without sign-in: the counter’s sentences and the caution, in plain HTML with no script', async () => {
+    const res = await page(`/p/${product.id}`);
+    expect(res.statusCode).toBe(200);
+    expect(res.headers['content-type']).toBe('text/html; charset=utf-8');
+    expect(res.headers['cache-control']).toBe('no-store');
+    // The app's own security headers hold on the page, and it needs nothing they forbid.
+    expect(res.headers['content-security-policy']).toContain("script-src 'self'");
+    expect(res.headers['x-frame-options']).toBe('DENY');
+    expect(res.body).not.toMatch(/<script|javascript:|\son[a-z]+=/i);
+
+    const declaration: ServedDeclaration = (
+      await t.app.inject({ method: 'GET', url: `/api/recipes/${product.id}/declaration`, headers: { cookie: counter } })
+    ).json();
+    const said = readAloud(declaration, view.rules);
+    expect(res.body).toContain(`<h1>${escapeHtml(product.name)}</h1>`);
+    expect(res.body).toContain(escapeHtml('Wrenfield Lane Bakehouse'));
+    for (const sentence of said.sentences) expect(res.body).toContain(escapeHtml(sentence));
+    expect(res.body).toContain('/p/fonts/atkinson-hyperlegible-latin-400.woff2');
+    // Small enough for a phone on a poor connection.
+    expect(Buffer.byteLength(res.body)).toBeLessThan(16_000);
+  });
+
+  it('says nothing internal: no supplier, no id of what it is made from, no revision or quantity', async () => {
+    const book: Book = (await t.app.inject({ method: 'GET', url: '/api/book', headers: { cookie: manager } })).json();
+    const res = await page(`/p/${product.id}`);
+    const text = res.body.replace(/<style>[\s\S]*<\/style>/, '');
+    const suppliers = [...new Set(book.ingredients.map((i) => i.supplier).filter((s): s is string => Boolean(s)))];
+    expect(suppliers.length).toBeGreaterThan(0);
+    for (const supplier of suppliers) expect(text).not.toContain(escapeHtml(supplier));
+    const below = [...book.ingredients.map((i) => i.id), ...book.recipes.filter((r) => r.id !== product.id).map((r) => r.id)];
+    for (const id of below.filter((id) => id.includes('-'))) expect(text).not.toContain(id);
+    expect(text).not.toMatch(/revision|portion|\d+(\.\d+)? ?g\b|kcal|kJ/i);
+    expect(text).not.toContain(`/p/${product.id}`);
+  });
+
+  it('gives every other address the same page in words with 404: unpublished, not for sale, unknown, malformed', async () => {
+    const intermediate = (await t.app.inject({ method: 'GET', url: '/api/recipes', headers: { cookie: chef } }))
+      .json()
+      .find((r: RecipeView) => !r.sale);
+    expect(intermediate).toBeDefined();
+    const pages = await Promise.all(
+      [other.id, intermediate.id, 'no-such-cake', '%3Cscript%3Ealert(1)%3C%2Fscript%3E', 'x'.repeat(90), 'Vegan-Brownie'].map((code) =>
+        page(`/p/${code}`),
+      ),
+    );
+    for (const res of pages) {
+      expect(res.statusCode).toBe(404);
+      expect(res.headers['content-type']).toBe('text/html; charset=utf-8');
+      expect(res.body).toContain('No product page here');
+      expect(res.body).toBe(pages[0].body);
+    }
+  });
+
+  it('stops showing a product once it is no longer published, and all of them once the page is off', async () => {
+    await publish(other, true);
+    expect((await page(`/p/${other.id}`)).statusCode).toBe(200);
+    await publish(other, false);
+    expect((await page(`/p/${other.id}`)).statusCode).toBe(404);
+    await publish(other, undefined);
+    expect((await recipe(other.id)).sale).not.toHaveProperty('published');
+
+    expect((await settings({ enabled: false, baseUrl: 'https://menu.example.com' })).statusCode).toBe(200);
+    expect((await page(`/p/${product.id}`)).statusCode).toBe(404);
+    expect((await settings({ enabled: true, baseUrl: 'https://menu.example.com' })).statusCode).toBe(200);
+    expect((await page(`/p/${product.id}`)).statusCode).toBe(200);
+  });
+
+  it('serves the shipped font as woff2, and nothing else from its folder', async () => {
+    const font = await page('/p/fonts/atkinson-hyperlegible-latin-700.woff2');
+    expect(font.statusCode).toBe(200);
+    expect(font.headers['content-type']).toBe('font/woff2');
+    expect(font.rawPayload.subarray(0, 4).toString('latin1')).toBe('wOF2');
+    for (const path of ['/p/fonts/..%2F..%2Fpackage.json', '/p/fonts/atkinson-hyperlegible-latin-400-normal.woff', '/p/fonts/x']) {
+      const res = await page(path);
+      expect(res.statusCode).toBe(404);
+      expect(res.body).toContain('No product page here');
+    }
+  });
+
+  it(`lets one address read ${PAGES_PER_MINUTE} pages a minute, then says in words to wait`, async () => {
+    const address = '198.51.100.7';
+    const statuses: number[] = [];
+    for (let i = 0; i < PAGES_PER_MINUTE; i++) statuses.push((await page(`/p/${i % 2 ? product.id : 'no-such-cake'}`, address)).statusCode);
+    expect(statuses.filter((s) => s === 429)).toEqual([]);
+    const refused = await page(`/p/${product.id}`, address);
+    expect(refused.statusCode).toBe(429);
+    expect(refused.body).toContain('Wait a minute and try again');
+    // Another address reads on.
+    expect((await page(`/p/${product.id}`, '198.51.100.8')).statusCode).toBe(200);
+  });
+});
