@@ -1,5 +1,4 @@
 import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Logger, NotFoundException } from '@nestjs/common';
-import { ThrottlerException } from '@nestjs/throttler';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { ApiErrorBody, ErrorCode } from '@crumbproof/shared';
 import { AppError, httpStatusOf } from './app-error';
@@ -37,9 +36,6 @@ export class ApiExceptionFilter implements ExceptionFilter {
         ...(exception.problems ? { problems: exception.problems } : {}),
       };
     }
-    if (exception instanceof ThrottlerException) {
-      return { statusCode: 429, code: 'too-many-requests', message: 'Too many attempts. Wait a minute, then try again.' };
-    }
     if (exception instanceof HttpException) {
       const status = exception.getStatus();
       const code: ErrorCode =
@@ -63,7 +59,9 @@ export class ApiExceptionFilter implements ExceptionFilter {
             ? 'Sign in to continue.'
             : status === 403
               ? 'Your role cannot do this.'
-              : exception.message;
+              : status === 429
+                ? 'Too many attempts. Wait a minute, then try again.'
+                : exception.message;
       return { statusCode: status, code, message };
     }
     const fastifyStatus = (exception as { statusCode?: number })?.statusCode;

@@ -1,3 +1,4 @@
+import { compare } from '../round';
 import { minimumSizePt, type LabelFonts } from './fonts';
 
 /**
@@ -34,10 +35,10 @@ export function minimumLegibleSizePt(fonts: LabelFonts, largestSurfaceCm2: numbe
 /** A size as a message shows it, rounded up to a hundredth of a point so that it is never below the limit. */
 export const shownPt = (pt: number): string => `${(Math.ceil(pt * 100 - 1e-6) / 100).toFixed(2)} pt`;
 
-/** A tolerance for sizes computed through floating point. */
-const EPSILON = 1e-9;
-
-/** True when text set at `sizePt` meets the limit. */
+/**
+ * True when text set at `sizePt` meets the limit, compared at the threshold precision (a size
+ * worked out to exactly the limit comes out of floating point a hair either side of it).
+ */
 export function isLegible(sizePt: number, fonts: LabelFonts, largestSurfaceCm2: number): boolean {
-  return sizePt + EPSILON >= minimumLegibleSizePt(fonts, largestSurfaceCm2);
+  return compare(sizePt, 'gte', minimumLegibleSizePt(fonts, largestSurfaceCm2));
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ALLERGEN_SOURCES, CLAIMS, EXEMPT_FORMS, REGIMES } from '@crumbproof/shared';
+import { ALLERGEN_SOURCES, CLAIMS, COMPARISONS, EXEMPT_FORMS, REGIMES, type Comparison } from '@crumbproof/shared';
 
 /**
  * The shape of reference-data/*.json. The loader validates each file with these schemas;
@@ -36,8 +36,7 @@ export const exemptionSchema = z.strictObject({
 });
 export type Exemption = z.infer<typeof exemptionSchema>;
 
-export const COMPARISONS = ['gt', 'gte', 'lt', 'lte'] as const;
-export type Comparison = (typeof COMPARISONS)[number];
+export { COMPARISONS, type Comparison };
 
 export const regimeRulesSchema = z.strictObject({
   name: z.string().min(1),
