@@ -69,6 +69,10 @@ export const queryKeys = {
     /** The products marked on sale on one day, with who marked them. */
     day: (date: string) => ['counter', 'day', date] as const,
   },
+  /** The kitchen's public product page: on or off, and its address (manager). */
+  publicPage: {
+    settings: () => ['public-page', 'settings'] as const,
+  },
   labels: {
     all: () => ['labels'] as const,
     templates: () => ['labels', 'templates'] as const,
@@ -115,6 +119,7 @@ export const mutationKeys = {
   applySwap: () => ['swaps', 'apply'] as const,
   updateLabelSettings: () => ['labels', 'settings', 'update'] as const,
   printLabels: () => ['labels', 'runs', 'print'] as const,
+  updatePublicPageSettings: () => ['public-page', 'settings', 'update'] as const,
   askCounterQuestion: () => ['counter', 'questions', 'ask'] as const,
   answerCounterQuestion: () => ['counter', 'questions', 'answer'] as const,
   setCounterDay: () => ['counter', 'day', 'set'] as const,

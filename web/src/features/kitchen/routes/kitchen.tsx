@@ -5,12 +5,15 @@ import { Panel } from '@/components/ui/panel';
 import { useKitchen } from '@/api/kitchen';
 import { useLabelSettings } from '@/api/label-settings';
 import { KitchenForm } from '../components/kitchen-form';
+import { usePublicPageSettings } from '../api/get-public-page-settings';
 import { LabelSettingsForm } from '../components/label-settings-form';
+import { PublicPageForm } from '../components/public-page-form';
 
 /** /kitchen — the manager's settings for the whole kitchen. */
 export function KitchenRoute() {
   const kitchen = useKitchen();
   const labelSettings = useLabelSettings();
+  const publicPage = usePublicPageSettings();
   return (
     <Page
       title="Kitchen"
@@ -34,6 +37,19 @@ export function KitchenRoute() {
           />
         ) : (
           <LabelSettingsForm settings={labelSettings.data} />
+        )}
+      </Panel>
+      <Panel title="Public product page">
+        {publicPage.isPending ? (
+          <Loading size="sm">Loading the public page settings…</Loading>
+        ) : publicPage.isError ? (
+          <LoadFailed
+            title="The public page settings could not be loaded"
+            error={publicPage.error}
+            onRetry={() => void publicPage.refetch()}
+          />
+        ) : (
+          <PublicPageForm settings={publicPage.data} />
         )}
       </Panel>
     </Page>

@@ -27,6 +27,8 @@ export interface EditorValues {
   gtin: string;
   unitsPerCase: number | undefined;
   caseGtin: string;
+  /** Shown on the kitchen's public product page (sale.published). */
+  published: boolean;
 }
 
 /** The print details, each a field of the book's sale and of the form under the same name. */
@@ -53,6 +55,7 @@ export function toEditorValues(recipe: BookRecipe | null): EditorValues {
       gtin: '',
       unitsPerCase: undefined,
       caseGtin: '',
+      published: false,
     };
   }
   const sale = recipe.sale;
@@ -72,6 +75,7 @@ export function toEditorValues(recipe: BookRecipe | null): EditorValues {
     gtin: sale?.gtin ?? '',
     unitsPerCase: sale?.unitsPerCase,
     caseGtin: sale?.caseGtin ?? '',
+    published: sale?.published === true,
   };
 }
 
@@ -121,6 +125,7 @@ export function toBookRecipe(values: EditorValues): BookRecipe {
             ...(claims.length > 0 ? { claims } : {}),
             ...(quid.length > 0 ? { quid } : {}),
             ...printDetails(values),
+            ...(values.published ? { published: true } : {}),
           },
         }
       : {}),

@@ -194,6 +194,12 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
                       />
                     </FormField>
                   </Box>
+                  <Checkbox
+                    {...register('published')}
+                    hint="Its page on the kitchen’s public product page, when the manager has the page on; its counter tickets then carry a QR code to it."
+                  >
+                    Published on the public page
+                  </Checkbox>
                   <Box as="fieldset" minW="0">
                     <Text as="legend" fontWeight="bold">
                       Claims wanted
