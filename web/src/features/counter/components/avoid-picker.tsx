@@ -160,14 +160,16 @@ export function AvoidPicker({ rules, ask, onChange }: AvoidPickerProps) {
           ))}
           <Button
             type="button"
-            variant="outline"
+            variant="ghost"
             minH="12"
             px="5"
             fontSize="xl"
+            color="accent.fg"
+            textDecoration="underline"
             disabled={isEmptyAsk(ask)}
             onClick={() => onChange({ avoid: [], want: [] })}
           >
-            Clear
+            Clear every pick
           </Button>
         </Wrap>
       </Stack>

@@ -21,7 +21,7 @@ export function FreshnessBanner({ state, computedAt }: FreshnessBannerProps) {
     );
   }
   return computedAt ? (
-    <Text role="status" fontSize="md" color="fg.muted">
+    <Text role="status" fontSize="lg" color="fg.muted">
       Computed at {clockTime(computedAt)}
       {state.connection === 'open' ? '; live: changes in the kitchen show here as they are made.' : '.'}
     </Text>

@@ -1,6 +1,6 @@
 import { Box, Button, CloseButton, Collapsible, Dialog, Heading, Portal, Stack, Text } from '@chakra-ui/react';
 import { COUNTER_CAUTION, readAloud, type CounterQuestionView, type CounterRules } from '@crumbproof/shared';
-import { motion } from 'framer-motion';
+import { motion, useReducedMotion } from 'framer-motion';
 import { useMemo, useState } from 'react';
 import { formatDateTime } from '@/lib/format';
 import { useCounterQuestions } from '../api/questions';
@@ -86,6 +86,8 @@ function EarlierQuestions({ product, rules }: { product: string; rules: CounterR
  */
 export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: ProductCardProps) {
   const [asking, setAsking] = useState(false);
+  // Asked for less motion: the card is simply there (framer-motion would still fade it).
+  const reduceMotion = useReducedMotion();
   const declaration = row?.product.declaration;
   const said = useMemo(() => (declaration ? readAloud(declaration, rules) : null), [declaration, rules]);
   const close = () => {
@@ -104,7 +106,11 @@ export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: Product
         <Dialog.Backdrop />
         <Dialog.Positioner>
           <Dialog.Content asChild bg="bg.panel" color="fg">
-            <motion.div initial={{ opacity: 0, y: 16 }} animate={{ opacity: 1, y: 0 }} transition={{ duration: 0.18 }}>
+            <motion.div
+              initial={reduceMotion ? false : { opacity: 0, y: 16 }}
+              animate={{ opacity: 1, y: 0 }}
+              transition={{ duration: reduceMotion ? 0 : 0.18 }}
+            >
               {row && said && declaration ? (
                 <>
                   <Dialog.Header>
@@ -144,7 +150,7 @@ export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: Product
                           <Heading as="h3" fontSize="xl">
                             To read out
                           </Heading>
-                          <Stack as="ul" gap="2" ps="5" m="0" fontSize="lg">
+                          <Stack as="ul" gap="2" ps="6" m="0" fontSize="lg" listStyleType="disc">
                             {[said.contains, ...said.mayContain, ...said.notKnown, ...said.claims, ...said.notes].map((sentence) => (
                               <li key={sentence}>{sentence}</li>
                             ))}

@@ -1,6 +1,6 @@
 import { Box, chakra, Heading, Stack, Text } from '@chakra-ui/react';
-import { LayoutGroup, motion } from 'framer-motion';
-import { useId } from 'react';
+import { LayoutGroup, motion, useReducedMotion } from 'framer-motion';
+import { memo, useId } from 'react';
 import type { LookupRow } from '../utils/lookup';
 import { VerdictLine } from './verdict-line';
 
@@ -13,6 +13,7 @@ interface ResultsSectionProps {
 /** One section of results: each product a large row that opens its card. Rows move to their new place when the verdicts re-order them. */
 function ResultsSection({ title, rows, onOpen }: ResultsSectionProps) {
   const headingId = useId();
+  const reduceMotion = useReducedMotion();
   if (rows.length === 0) return null;
   return (
     <Box as="section" aria-labelledby={headingId}>
@@ -21,7 +22,7 @@ function ResultsSection({ title, rows, onOpen }: ResultsSectionProps) {
       </Heading>
       <Stack as="ul" gap="2" listStyleType="none" m="0" p="0">
         {rows.map((row) => (
-          <motion.li key={row.product.id} layout="position" transition={{ duration: 0.2 }}>
+          <motion.li key={row.product.id} layout={reduceMotion ? false : 'position'} transition={{ duration: reduceMotion ? 0 : 0.2 }}>
             <chakra.button
               type="button"
               onClick={() => onOpen(row.product.id)}
@@ -63,8 +64,12 @@ interface ResultsListProps {
   onOpen: (productId: string) => void;
 }
 
-/** Products on sale today first, then the rest of the products for sale. */
-export function ResultsList({ onSale, rest, onOpen }: ResultsListProps) {
+/**
+ * Products on sale today first, then the rest of the products for sale. Drawn again only when the
+ * results change, so the rows move only when the verdicts re-order them (not when a banner above
+ * them comes or goes).
+ */
+export const ResultsList = memo(function ResultsList({ onSale, rest, onOpen }: ResultsListProps) {
   return (
     <LayoutGroup>
       <Stack gap="6">
@@ -73,4 +78,4 @@ export function ResultsList({ onSale, rest, onOpen }: ResultsListProps) {
       </Stack>
     </LayoutGroup>
   );
-}
+});

@@ -76,7 +76,7 @@ describe('the counter’s look up', () => {
     expect(row(BROWNIE)).toHaveTextContent('No listed walnut, no may-contain of walnut, as recorded; vegan as recorded');
     expect(row(BROWNIE).querySelector('[data-mark]')).toHaveAttribute('data-mark', 'ring');
 
-    await user.click(screen.getByRole('button', { name: 'Clear' }));
+    await user.click(screen.getByRole('button', { name: 'Clear every pick' }));
     expect(screen.getByRole('button', { name: 'Vegan' })).toHaveAttribute('aria-pressed', 'false');
     expect(row(BROWNIE)).toHaveTextContent('Contains wheat');
     expect(row(BROWNIE)).not.toHaveTextContent('Suitable');

@@ -46,6 +46,13 @@ describe('the counter lookup over the demo kitchen (real declarations, UK groups
     for (const row of [...result.onSale, ...result.rest]) expect(row.reason).not.toMatch(/\bsafe\b/i);
   });
 
+  it('says allergens found in the same places together', () => {
+    const result = lookUp(view.products, view.rules, { avoid: ['eggs', 'milk'], want: [] });
+    expect(line(result.onSale)).toContain(
+      'Strawberry and vanilla layer cake: contains: Has egg and milk in the Vanilla sponge and the Meringue buttercream',
+    );
+  });
+
   it('names every supplier behind a may-contain', () => {
     const result = lookUp(view.products, view.rules, { avoid: ['milk'], want: [] });
     expect(line(result.onSale)[0]).toBe(

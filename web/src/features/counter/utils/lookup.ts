@@ -82,10 +82,16 @@ function placeOf(declaration: ProductDeclaration, path: IdPath): string {
 export function reasonFor(declaration: ProductDeclaration, verdict: CustomerVerdict, avoided: readonly string[]): string {
   switch (verdict.verdict) {
     case 'contains': {
-      const parts = verdict.contains.map((c) => {
-        const places = unique(c.via.map((p) => placeOf(declaration, p)));
-        return `${listed(c.sources.map((s) => SOURCE_LABELS[s]))} in ${listed(places)}`;
-      });
+      // Allergens found in the same places are said together: "egg and milk in the Vanilla sponge".
+      const byPlace: Array<{ places: string; sources: string[] }> = [];
+      for (const c of verdict.contains) {
+        const places = listed(unique(c.via.map((p) => placeOf(declaration, p))));
+        const sources = c.sources.map((s) => SOURCE_LABELS[s]);
+        const same = byPlace.find((b) => b.places === places);
+        if (same) same.sources = unique([...same.sources, ...sources]);
+        else byPlace.push({ places, sources });
+      }
+      const parts = byPlace.map((b) => `${listed(b.sources)} in ${b.places}`);
       const failed = verdict.claims.filter((c) => c.status === 'fails');
       const claims = failed.map((c) => `not ${c.claim}${c.reasons[0] ? `: ${stop(c.reasons[0].message)}` : ''}`);
       const has = parts.length > 0 ? [`Has ${unique(parts).join('; ')}`] : [];
