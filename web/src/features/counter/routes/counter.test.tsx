@@ -235,6 +235,31 @@ describe('the counter stays live', () => {
     expect(screen.getByText(/^Computed at \d\d:\d\d; live/)).toBeInTheDocument();
   });
 
+  it('moves a product to On sale today when the day is marked again elsewhere', async () => {
+    counterApi('front-of-house', [demoCounterView([]), demoCounterView(['strawberry-tart'])]);
+    renderApp('/counter');
+    await screen.findByRole('button', { name: 'Eggs' });
+    FakeEventSource.current().open();
+    expect(screen.queryByRole('region', { name: 'On sale today' })).toBeNull();
+    FakeEventSource.current().push({ type: 'display-changed', date: '2026-12-02' });
+    const onSale = await screen.findByRole('region', { name: 'On sale today' });
+    expect(onSale).toHaveTextContent('Summer strawberry tart');
+    expect(screen.getByRole('region', { name: 'Not marked on sale today' })).not.toHaveTextContent('Summer strawberry tart');
+  });
+
+  it('opens a new stream after a while when the server closed it for good', async () => {
+    counterApi('front-of-house', [demoCounterView()]);
+    renderApp('/counter');
+    await screen.findByRole('button', { name: 'Eggs' });
+    const first = FakeEventSource.current();
+    first.open();
+    first.drop(FakeEventSource.CLOSED);
+    expect(await screen.findByRole('alert')).toHaveTextContent(/^Not live since/);
+    await waitFor(() => expect(FakeEventSource.opened.length).toBe(2), { timeout: 6000 });
+    FakeEventSource.current().open();
+    await waitFor(() => expect(screen.queryByRole('alert')).toBeNull());
+  });
+
   it('opens a new stream at once when the browser is back online', async () => {
     counterApi('front-of-house', [demoCounterView()]);
     renderApp('/counter');
