@@ -8,6 +8,7 @@ import {
   DecodeHintType,
   HybridBinarizer,
   MultiFormatReader,
+  QRCodeReader,
   RGBLuminanceSource,
   type Result,
 } from '@zxing/library';
@@ -218,7 +219,12 @@ describe('legibility (Regulation (EU) No 1169/2011 Article 13(2), 13(3) and Anne
 
   const sized = (sizePt: number, largestSurfaceCm2: number): LabelTemplate => {
     const t = template('ticket');
-    return { ...t, largestSurfaceCm2, blocks: t.blocks.map((b) => (b.type === 'caution' ? { ...b, sizePt } : b)) };
+    const resized = <B extends { type: string }>(b: B): B => (b.type === 'caution' ? { ...b, sizePt } : b);
+    // The ticket's caution sits in a row beside its QR code.
+    const blocks = t.blocks.map((b) =>
+      b.type === 'row' ? { ...b, columns: b.columns.map((c) => ({ ...c, blocks: c.blocks.map(resized) })) } : resized(b),
+    );
+    return { ...t, largestSurfaceCm2, blocks };
   };
   const illegible = (t: LabelTemplate) => {
     const result = renderLabelDocument(run(t, [label('lemon-shortbread')]));
@@ -229,7 +235,7 @@ describe('legibility (Regulation (EU) No 1169/2011 Article 13(2), 13(3) and Anne
     const min = minimumLegibleSizePt(fonts, 150);
     expect(illegible(sized(min + 0.01, 150))).toEqual([]);
     expect(illegible(sized(min - 0.01, 150))).toEqual([
-      `Template 'ticket' sets blocks[4].sizePt at ${min - 0.01} pt, below the smallest legible size 6.86 pt (x-height 1.2 mm, Regulation (EU) No 1169/2011 Article 13(2) and Annex IV).`,
+      `Template 'ticket' sets blocks[1].columns[0].blocks[3].sizePt at ${min - 0.01} pt, below the smallest legible size 6.86 pt (x-height 1.2 mm, Regulation (EU) No 1169/2011 Article 13(2) and Annex IV).`,
     ]);
   });
 
@@ -415,6 +421,66 @@ describe('what a pre-packed label must name', () => {
     if (!refused.ok) expect(refused.problems.map((p) => p.message).join(' ')).toMatch(/no address.*Article 9\(1\)\(h\)/);
     const ticket = renderLabelDocument(run('ticket', [label('lemon-shortbread')], noAddress));
     expect(ticket.ok ? [] : ticket.problems).toEqual([]);
+  });
+});
+
+/** The QR code of an image, decoded by zxing; null when it finds none. */
+function decodeQr(png: PNG): string | null {
+  const luminance = new Uint8ClampedArray(png.width * png.height);
+  for (let i = 0; i < luminance.length; i++) luminance[i] = Math.round((png.data[i * 4] + png.data[i * 4 + 1] + png.data[i * 4 + 2]) / 3);
+  try {
+    return new QRCodeReader()
+      .decode(new BinaryBitmap(new HybridBinarizer(new RGBLuminanceSource(luminance, png.width, png.height))))
+      .getText();
+  } catch {
+    return null;
+  }
+}
+
+describe('the counter ticket’s QR code to the public product page', () => {
+  // The first ticket of an A4 sheet.
+  const firstTicket = { xMm: 4.65, yMm: 13.1, wMm: 99.1, hMm: 67.7 };
+  const url = 'https://menu.wrenfield-lane.example/p/lemon-shortbread';
+
+  it('prints the product’s page address as a QR code a reader decodes, with its caption', async () => {
+    const pdf = await pdfOf(run('ticket', [label('lemon-shortbread', SHORTBREAD, { publicUrl: url })]));
+    expect(decodeQr(pageImage(pdf, 300, firstTicket))).toBe(url);
+    const text = textRuns(pdf)
+      .map((r) => r.str)
+      .join(' ');
+    expect(text).toMatch(/Allergens on\s+your phone/);
+  });
+
+  it('prints no code for a product that is not published, and the ticket then looks as it did without one', async () => {
+    const ticket = template('ticket');
+    const row = ticket.blocks[1];
+    if (row.type !== 'row') throw new Error('The ticket template has its QR code in a row.');
+    const withoutCode: LabelTemplate = { ...ticket, blocks: [ticket.blocks[0], ...row.columns[0].blocks] };
+    const [plainPdf, shippedPdf] = await Promise.all([
+      pdfOf(run(withoutCode, [label('lemon-shortbread')])),
+      pdfOf(run('ticket', [label('lemon-shortbread')])),
+    ]);
+    const shipped = pageImage(shippedPdf, 150, firstTicket);
+    expect(decodeQr(pageImage(shippedPdf, 300, firstTicket))).toBeNull();
+    expect(Buffer.compare(shipped.data, pageImage(plainPdf, 150, firstTicket).data)).toBe(0);
+  });
+
+  it('refuses a code whose modules would print too small for a phone, and a code on a case label', () => {
+    const ticket = template('ticket');
+    const small = JSON.parse(JSON.stringify(ticket).replace('"sizeMm":20', '"sizeMm":12')) as LabelTemplate;
+    const long = `https://${'m'.repeat(100)}.example/p/${'lemon-shortbread-'.repeat(4)}x`;
+    const refused = renderLabelDocument(run(small, [label('lemon-shortbread', SHORTBREAD, { publicUrl: long })]));
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) {
+      expect(refused.problems.map((p) => p.code)).toEqual(['barcode-does-not-fit']);
+      expect(refused.problems[0].message).toMatch(
+        /QR code of Chocolate-dipped lemon shortbread would print with modules of 0\.\d\d mm, below 0\.3 mm/,
+      );
+    }
+    const raw = JSON.parse(readFileSync(join(TEMPLATES, 'case.json'), 'utf8'));
+    raw.blocks.push({ type: 'qr', sizeMm: 20 });
+    const parsed = parseTemplate(raw, 'label-templates/case.json');
+    expect(!parsed.ok && parsed.problems.map((p) => p.message)).toEqual([expect.stringMatching(/QR code .* is for unit labels/)]);
   });
 });
 

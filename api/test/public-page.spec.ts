@@ -1,5 +1,6 @@
 import { readAloud, type Book, type CounterProductsView, type RecipeView, type ServedDeclaration } from '@crumbproof/shared';
 import { escapeHtml } from '../src/public-page/public-page-html';
+import { pdfText } from './fixtures/pdf-text';
 import { PAGES_PER_MINUTE } from '../src/public-page/public-page-rate';
 import { startTestApp, type TestApp } from './support/test-app';
 
@@ -149,6 +150,26 @@ describe('the public product page (real MariaDB)', () => {
       expect(res.statusCode).toBe(404);
       expect(res.body).toContain('No product page here');
     }
+  });
+
+  it('puts a QR code on the counter ticket of a published product only, while the page is on', async () => {
+    const ticketText = async (code: string) => {
+      const run = await t.app.inject({
+        method: 'POST',
+        url: '/api/labels/runs',
+        headers: { cookie: chef },
+        payload: { template: 'ticket', productionDate: '2026-12-02', items: [{ product: code, quantity: 1 }] },
+      });
+      expect(run.statusCode).toBe(201);
+      const pdf = await t.app.inject({ method: 'GET', url: `/api/labels/runs/${run.json().id}/pdf`, headers: { cookie: chef } });
+      return pdfText(pdf.rawPayload).replace(/\s+/g, ' ');
+    };
+    // The settings as the previous tests left them: on, with product published and other not.
+    expect(await ticketText(product.id)).toContain('Allergens on your phone');
+    expect(await ticketText(other.id)).not.toContain('Allergens on your phone');
+    expect((await settings({ enabled: false, baseUrl: 'https://menu.example.com' })).statusCode).toBe(200);
+    expect(await ticketText(product.id)).not.toContain('Allergens on your phone');
+    expect((await settings({ enabled: true, baseUrl: 'https://menu.example.com' })).statusCode).toBe(200);
   });
 
   it(`lets one address read ${PAGES_PER_MINUTE} pages a minute, then says in words to wait`, async () => {

@@ -317,7 +317,10 @@ export const saleSchema = z
     claims: z.array(z.enum(CLAIMS)).optional(),
     quid: z.array(id).optional(),
     ...salePrintDetailsShape,
-    /** Shown on the kitchen's public product page (when the kitchen has it on). Left out: not published. */
+    /**
+     * Shown on the kitchen's public product page (when the kitchen has it on), and its counter
+     * ticket carries a QR code to it. Left out: not published.
+     */
     published: z.boolean({ error: 'Say whether the product is published on the public page (true or false).' }).optional(),
   })
   .superRefine((sale, ctx) => {

@@ -14,6 +14,8 @@ export interface PrintLabel {
   quantity: number;
   revision: number;
   sscc?: string[];
+  /** The product's public page, for the QR code of a ticket: given only when it is published and the page is on. */
+  publicUrl?: string;
   /** items.N of the request, for messages. */
   path: string;
 }
@@ -65,6 +67,7 @@ export class LabelPrinter {
         quantity: l.quantity,
         revision: l.revision,
         ...(l.sscc ? { sscc: l.sscc } : {}),
+        ...(l.publicUrl ? { publicUrl: l.publicUrl } : {}),
       })),
       business: { name: job.site.name, address: job.site.address },
       regime,

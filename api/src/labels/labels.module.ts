@@ -4,6 +4,7 @@ import { BooksModule } from '../books/books.module';
 import { TransactionRunner } from '../common/transaction';
 import { DeclarationsModule } from '../declarations/declarations.module';
 import { KitchenModule } from '../kitchen/kitchen.module';
+import { PublicPageModule } from '../public-page/public-page.module';
 import { RulesModule } from '../rules/rules.module';
 import { LabelBatchModel } from './label-batch.model';
 import { LabelCountersRepository } from './label-counters.repository';
@@ -27,6 +28,7 @@ import { SsccSerialModel } from './sscc-serial.model';
     BooksModule,
     DeclarationsModule,
     KitchenModule,
+    PublicPageModule,
     RulesModule,
     SequelizeModule.forFeature([LabelSettingsModel, LabelRunModel, LabelRunItemModel, LabelBatchModel, SsccSerialModel]),
   ],

@@ -29,6 +29,7 @@ import { LabelPrinter, type PrintLabel } from './label-printer';
 import type { LabelRunQuery } from './label-run-query';
 import { LabelRunsRepository, type LabelRunRow, type RunLine } from './label-runs.repository';
 import { LabelSettingsRepository } from './label-settings.repository';
+import { PublicPageService } from '../public-page/public-page.service';
 
 /** What an item of a run was rendered from, kept with the run so that the same label can be printed again. */
 export interface PrintSource {
@@ -66,6 +67,7 @@ export class LabelsService {
     private readonly runsRepo: LabelRunsRepository,
     private readonly counters: LabelCountersRepository,
     private readonly printer: LabelPrinter,
+    private readonly publicPages: PublicPageService,
     private readonly tx: TransactionRunner,
   ) {}
 
@@ -136,6 +138,11 @@ export class LabelsService {
     const state = await this.books.state();
     const planned = await this.plan(request, state);
 
+    // A published product's ticket carries a QR code to its public page (when the kitchen has the page on).
+    const publicUrls = await this.publicPages.ticketUrls(
+      state.site.id,
+      planned.map((p) => ({ id: p.product.id, sale: p.source.sale })),
+    );
     const printedAt = new Date();
     const { id } = await this.tx.run(async (t) => {
       const settings = await this.settingsRepo.lockForRun(state.site.id, DEFAULT_SETTINGS, t);
@@ -156,6 +163,7 @@ export class LabelsService {
           quantity: p.quantity,
           revision: p.revision,
           ...(serials ? { sscc: serials } : {}),
+          ...(publicUrls.has(p.product.id) ? { publicUrl: publicUrls.get(p.product.id) } : {}),
           path: p.path,
         });
         items.push({

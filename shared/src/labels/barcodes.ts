@@ -105,3 +105,27 @@ export function gs1128Symbols(elements: Gs1Element[], xMm: number, barMm: number
   if (last) symbols.push(last);
   return symbols;
 }
+
+/** Quiet zone around a QR code, in modules (ISO/IEC 18004, from memory). */
+export const QR_QUIET_ZONE = 4;
+/** The smallest QR module a phone camera reads from a counter ticket at arm's length (common practice). */
+export const QR_MIN_MODULE_MM = 0.3;
+
+export interface QrSymbol extends BarcodeSymbol {
+  /** The size of one module as printed. */
+  moduleMm: number;
+}
+
+/**
+ * The QR code of a text (error correction level M) drawn `sizeMm` square, its quiet zone
+ * included. bwip-js draws a QR module as 2 units of the SVG's viewBox.
+ */
+export function qrSymbol(text: string, sizeMm: number): QrSymbol {
+  const quiet = QR_QUIET_ZONE * 2;
+  // eclevel is an option of BWIPP's qrcode encoder, which bwip-js passes on but does not type.
+  const options = { bcid: 'qrcode', text, eclevel: 'M', scale: 1, paddingwidth: quiet, paddingheight: quiet };
+  const svg = toSVG(options);
+  const box = viewBox(svg);
+  const sizePt = sizeMm * PT_PER_MM;
+  return { svg, widthPt: sizePt, heightPt: sizePt, moduleMm: sizeMm / (box.width / 2) };
+}

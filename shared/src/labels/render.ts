@@ -6,7 +6,7 @@ import { gs1Date, gtin14, netWeightElement, type Gs1Element } from '../gs1';
 import { formatLabelDate, formatPrintedAt, labelDate } from './dates';
 import { LABEL_FONT, mmToPt, ptToMm, type LabelFonts } from './fonts';
 import { isLegible, legibilityRule, minimumLegibleSizePt, requiredXHeightMm, shownPt } from './legibility';
-import { eanUpcSymbol, gs1128Symbols, type BarcodeSymbol } from './barcodes';
+import { eanUpcSymbol, gs1128Symbols, QR_MIN_MODULE_MM, qrSymbol, type BarcodeSymbol } from './barcodes';
 import {
   labelGeometry,
   leafBlocks,
@@ -15,6 +15,7 @@ import {
   type Block,
   type ChartBlock,
   type LabelTemplate,
+  type QrBlock,
   type TemplateProblem,
   type TextBlock,
 } from './template';
@@ -39,6 +40,12 @@ export interface LabelInput {
   sscc?: string[];
   /** The product's revision the declaration was read from, printed on the chart. */
   revision?: number;
+  /**
+   * The address of the product's page on the kitchen's public product page, given only when the
+   * product is published and the page is on: a template's QR code block prints it, and is left
+   * out without it.
+   */
+  publicUrl?: string;
 }
 
 export interface AllergenGroup {
@@ -110,6 +117,8 @@ function illegibleSizes(template: LabelTemplate, fonts: LabelFonts): Array<{ fie
   for (const { block, field } of leafBlocks(template)) {
     if (block.type === 'barcode') {
       if (block.hriSizePt !== undefined) check(block.hriSizePt, `${field}.hriSizePt`);
+    } else if (block.type === 'qr') {
+      if (block.caption !== undefined) check(block.captionSizePt ?? QR_CAPTION_PT, `${field}.captionSizePt`);
     } else if (block.type === 'chart') {
       check(block.sizePt, `${field}.sizePt`);
       check(block.headerSizePt, `${field}.headerSizePt`);
@@ -241,6 +250,8 @@ function textPlaced(
 }
 
 const HRI_GAP_MM = 0.8;
+/** The caption under a QR code, when the template gives no size. */
+const QR_CAPTION_PT = 8;
 const SYMBOL_GAP_MM = 2.5;
 
 function barcodePlaced(symbols: BarcodeSymbol[], block: BarcodeBlock, m: Measure): Placed {
@@ -267,6 +278,24 @@ function barcodePlaced(symbols: BarcodeSymbol[], block: BarcodeBlock, m: Measure
   return { heightPt: height, node: { stack, margin: [0, mmToPt(block.spaceBeforeMm), 0, 0] } };
 }
 
+function qrPlaced(url: string, block: QrBlock, widthPt: number, m: Measure): Placed {
+  const s = qrSymbol(url, block.sizeMm);
+  const spaceBefore = mmToPt(block.spaceBeforeMm);
+  const stack: Content[] = [{ svg: s.svg, width: s.widthPt, height: s.heightPt, alignment: block.align }];
+  let height = spaceBefore + s.heightPt;
+  if (block.caption) {
+    const caption = textPlaced(
+      plain(block.caption),
+      { sizePt: block.captionSizePt ?? QR_CAPTION_PT, align: block.align, spaceBeforeMm: 0 },
+      widthPt,
+      m,
+    );
+    stack.push(caption.node);
+    height += caption.heightPt;
+  }
+  return { heightPt: height, node: { stack, margin: [0, spaceBefore, 0, 0] } };
+}
+
 /** What one product's label says, worked out once for all its copies. */
 interface LabelText {
   product: string;
@@ -275,6 +304,8 @@ interface LabelText {
   text: (block: TextBlock) => Run[] | null;
   /** The barcode symbols of a block at a width, null when the product has no barcode of that kind; copy: the label's index. */
   barcode: (block: BarcodeBlock, widthMm: number, copy: number) => BarcodeSymbol[] | null | 'too-wide';
+  /** The address a QR code block prints, or null: the product is not published (or the page is off). */
+  publicUrl: string | null;
 }
 
 const plain = (text: string): Run[] => [{ text, bold: false }];
@@ -443,14 +474,36 @@ function labelText(input: LabelInput, run: RenderInput, problems: RenderProblem[
     return symbols ?? 'too-wide';
   };
 
-  return { product, name: d.name, text, barcode };
+  return { product, name: d.name, text, barcode, publicUrl: input.publicUrl ?? null };
 }
+
+/** A row's column with nothing to print on this label: only QR code blocks, and no address for them. */
+const emptyColumn = (blocks: readonly Block[], label: LabelText) => label.publicUrl === null && blocks.every((b) => b.type === 'qr');
 
 /** A block laid out at a width, or why it cannot be. */
 type Laid = { placed: Placed | null; shrinkable: boolean } | { problem: RenderProblem };
 
 function layBlock(block: Block, widthPt: number, label: LabelText, copy: number, m: Measure, ingredientsPt: number): Laid {
   if (block.type === 'row') {
+    const present = block.columns.filter((c) => !emptyColumn(c.blocks, label));
+    if (present.length === 0) return { placed: null, shrinkable: false };
+    // One column left: its blocks take the whole width, as if the row were not there.
+    if (present.length === 1) {
+      const stack: Content[] = [];
+      let height = mmToPt(block.spaceBeforeMm);
+      let shrinkable = false;
+      for (const inner of present[0].blocks) {
+        const laid = layBlock(inner, widthPt, label, copy, m, ingredientsPt);
+        if ('problem' in laid) return laid;
+        shrinkable ||= laid.shrinkable;
+        if (laid.placed) {
+          stack.push(laid.placed.node);
+          height += laid.placed.heightPt;
+        }
+      }
+      return { placed: { heightPt: height, node: { stack, margin: [0, mmToPt(block.spaceBeforeMm), 0, 0] } }, shrinkable };
+    }
+    block = { ...block, columns: present };
     const gap = mmToPt(block.gapMm);
     const fixed = block.columns.map((c) => (c.widthMm !== undefined ? mmToPt(c.widthMm) : null));
     const free = block.columns.length - fixed.filter((w) => w !== null).length;
@@ -488,6 +541,27 @@ function layBlock(block: Block, widthPt: number, label: LabelText, copy: number,
         },
       };
     return { placed: symbols ? barcodePlaced(symbols, block, m) : null, shrinkable: false };
+  }
+  if (block.type === 'qr') {
+    if (label.publicUrl === null) return { placed: null, shrinkable: false };
+    if (mmToPt(block.sizeMm) > widthPt + 1e-6)
+      return {
+        problem: {
+          code: 'barcode-does-not-fit',
+          product: label.product,
+          message: `The QR code of ${label.name} (${block.sizeMm} mm) does not fit the width of its place on the label (${Math.round(ptToMm(widthPt))} mm).`,
+        },
+      };
+    const { moduleMm } = qrSymbol(label.publicUrl, block.sizeMm);
+    if (moduleMm < QR_MIN_MODULE_MM)
+      return {
+        problem: {
+          code: 'barcode-does-not-fit',
+          product: label.product,
+          message: `The QR code of ${label.name} would print with modules of ${moduleMm.toFixed(2)} mm, below ${QR_MIN_MODULE_MM} mm, which a phone may not read: give the kitchen a shorter public address, or use a template with a larger code.`,
+        },
+      };
+    return { placed: qrPlaced(label.publicUrl, block, widthPt, m), shrinkable: false };
   }
   if (block.type === 'chart') return { placed: null, shrinkable: false };
   const runs = label.text(block);

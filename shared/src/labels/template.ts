@@ -69,6 +69,23 @@ export const barcodeBlockSchema = z.strictObject({
 });
 export type BarcodeBlock = z.infer<typeof barcodeBlockSchema>;
 
+/**
+ * A QR code to the product's page on the kitchen's public product page, with a line of words
+ * under it. Printed only for a product that is published while the kitchen has the page on; a
+ * row's column holding nothing but such a code gives its width to the others when there is none.
+ */
+export const qrBlockSchema = z.strictObject({
+  type: z.literal('qr'),
+  /** The code's side, its quiet zone included. */
+  sizeMm: z.number().min(12, 'Print a QR code at least 12 mm square, so a phone reads it.').max(60),
+  /** The words under the code, e.g. "Allergens on your phone". */
+  caption: z.string().min(1).max(60).optional(),
+  captionSizePt: sizePt.optional(),
+  spaceBeforeMm: z.number().min(0).max(50).default(0),
+  align: z.enum(['left', 'center']).default('center'),
+});
+export type QrBlock = z.infer<typeof qrBlockSchema>;
+
 /** The allergen chart: every product against every allergen group of the regime. */
 export const chartBlockSchema = z.strictObject({
   type: z.literal('chart'),
@@ -78,7 +95,7 @@ export const chartBlockSchema = z.strictObject({
 });
 export type ChartBlock = z.infer<typeof chartBlockSchema>;
 
-const leafBlockSchema = z.discriminatedUnion('type', [textBlockSchema, barcodeBlockSchema, chartBlockSchema]);
+const leafBlockSchema = z.discriminatedUnion('type', [textBlockSchema, barcodeBlockSchema, qrBlockSchema, chartBlockSchema]);
 export type LeafBlock = z.infer<typeof leafBlockSchema>;
 
 /** Blocks side by side: each column takes its width, or shares what the others leave. */
@@ -98,7 +115,13 @@ export const rowBlockSchema = z.strictObject({
 });
 export type RowBlock = z.infer<typeof rowBlockSchema>;
 
-export const blockSchema = z.discriminatedUnion('type', [textBlockSchema, barcodeBlockSchema, chartBlockSchema, rowBlockSchema]);
+export const blockSchema = z.discriminatedUnion('type', [
+  textBlockSchema,
+  barcodeBlockSchema,
+  qrBlockSchema,
+  chartBlockSchema,
+  rowBlockSchema,
+]);
 export type Block = z.infer<typeof blockSchema>;
 
 const sheetSchema = z.strictObject({
@@ -156,6 +179,13 @@ export const labelTemplateSchema = z
         path: ['blocks'],
         input: t.blocks,
         message: 'An EAN/UPC barcode is for unit labels (purpose "unit").',
+      });
+    if (leaves.some((b) => b.type === 'qr') && t.purpose !== 'unit')
+      ctx.addIssue({
+        code: 'custom',
+        path: ['blocks'],
+        input: t.blocks,
+        message: 'A QR code to the public product page is for unit labels (purpose "unit").',
       });
   });
 export type LabelTemplate = z.infer<typeof labelTemplateSchema>;
