@@ -1,7 +1,17 @@
 import { Box, Button, CloseButton, Collapsible, Dialog, Heading, Portal, Stack, Text } from '@chakra-ui/react';
-import { COUNTER_CAUTION, readAloud, type CounterQuestionView, type CounterRules } from '@crumbproof/shared';
+import {
+  COUNTER_CAUTION,
+  readAloud,
+  SOURCE_LABELS,
+  type CounterQuestionView,
+  type CounterRules,
+  type CustomerVerdict,
+  type ServedDeclaration,
+} from '@crumbproof/shared';
 import { motion, useReducedMotion } from 'framer-motion';
 import { useMemo, useState } from 'react';
+import { buildItemLookup } from '@/components/ui/item-lookup';
+import { LayerPath, LayerPathLinks } from '@/components/ui/layer-path';
 import { formatDateTime } from '@/lib/format';
 import { useCounterQuestions } from '../api/questions';
 import { listed, type LookupRow } from '../utils/lookup';
@@ -80,6 +90,42 @@ function EarlierQuestions({ product, rules }: { product: string; rules: CounterR
   );
 }
 
+const noLinks = () => false;
+
+/**
+ * Where each avoided allergen it contains comes from, as layer paths (product on top, the
+ * ingredient at the bottom). Plain bars: the counter stays on the one question.
+ */
+function WhereFrom({ verdict, declaration }: { verdict: CustomerVerdict; declaration: ServedDeclaration }) {
+  const lookup = useMemo(() => buildItemLookup({ declarations: [declaration] }), [declaration]);
+  if (verdict.contains.length === 0) return null;
+  return (
+    <Stack gap="2">
+      <Heading as="h3" fontSize="xl">
+        Where it comes from
+      </Heading>
+      <LayerPathLinks canOpen={noLinks}>
+        <Stack gap="3">
+          {verdict.contains.map((c) => (
+            <Stack key={`${c.avoid}-${c.allergen}`} gap="1">
+              <Text fontSize="lg">
+                <Text as="strong">{c.sources.map((s) => SOURCE_LABELS[s]).join(', ')}</Text>
+              </Text>
+              <Box display="flex" flexWrap="wrap" gap="3">
+                {c.via.map((path) => (
+                  <Box key={path.join('/')} minW="10rem" maxW="18rem">
+                    <LayerPath path={path} lookup={lookup} />
+                  </Box>
+                ))}
+              </Box>
+            </Stack>
+          ))}
+        </Stack>
+      </LayerPathLinks>
+    </Stack>
+  );
+}
+
 /**
  * One product at the counter: the answer in one sentence, the declaration in sentences to read
  * out, the caution, asking the kitchen, and the ingredient list kept folded under "More detail".
@@ -130,6 +176,8 @@ export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: Product
                             </Text>
                           ) : null}
                         </Stack>
+
+                        {row.verdict ? <WhereFrom verdict={row.verdict} declaration={declaration} /> : null}
 
                         <Text
                           role="note"

@@ -102,6 +102,14 @@ describe('the counter’s look up', () => {
     expect(within(card).getByRole('group', { name: 'The answer' })).toHaveTextContent(
       'ContainsHas egg in the Vanilla sponge and the Meringue buttercream.For a customer avoiding eggs.',
     );
+    // Where the egg comes from, as layer paths, product on top.
+    const paths = within(card)
+      .getAllByRole('list', { name: /^Layer path: / })
+      .map((p) => p.getAttribute('aria-label'));
+    expect(paths).toHaveLength(2);
+    expect(paths[0]).toMatch(/^Layer path: Strawberry and vanilla layer cake → Vanilla sponge → .+/);
+    expect(paths[1]).toMatch(/^Layer path: Strawberry and vanilla layer cake → Meringue buttercream → Italian meringue → .+/);
+    expect(within(card).queryByRole('link', { name: 'Vanilla sponge' })).toBeNull();
     expect(within(card).getByRole('note', { name: 'Caution' })).toHaveTextContent(
       /comes from the recipes and supplier information recorded/,
     );
