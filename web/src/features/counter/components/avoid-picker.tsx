@@ -1,7 +1,7 @@
 import { Box, Button, Heading, HStack, Stack, Text, Wrap } from '@chakra-ui/react';
 import { COUNTER_WANTS, SOURCE_LABELS, type CounterGroup, type CounterRules, type CounterWant } from '@crumbproof/shared';
 import { useId, useState, type ReactNode } from 'react';
-import { isEmptyAsk, type CounterAsk } from '../utils/lookup';
+import { isEmptyAsk, listed, type CounterAsk } from '../utils/lookup';
 
 const WANT_LABELS: Record<CounterWant, string> = { vegan: 'Vegan', vegetarian: 'Vegetarian' };
 
@@ -73,6 +73,7 @@ function GroupChip({ group, ask, onToggle }: GroupChipProps) {
   const sourcesId = useId();
   const pickedSources = group.sources.filter((s) => ask.avoid.includes(s));
   const [open, setOpen] = useState(pickedSources.length > 0);
+  const picked = pickedSources.length > 0 ? `Only ${listed(pickedSources.map((s) => SOURCE_LABELS[s]))}` : null;
   const label = capitalised(group.label);
   if (group.sources.length <= 1) {
     return (
@@ -97,10 +98,11 @@ function GroupChip({ group, ask, onToggle }: GroupChipProps) {
           textDecoration="underline"
           aria-expanded={open}
           aria-controls={sourcesId}
-          aria-label={`Pick one of the ${group.label}`}
+          // The visible words begin the name, so a person who says what they see reaches it.
+          aria-label={picked ? `${picked}: change which of the ${group.label}` : `Pick one of the ${group.label}`}
           onClick={() => setOpen((o) => !o)}
         >
-          {pickedSources.length > 0 ? `Only ${pickedSources.map((s) => SOURCE_LABELS[s]).join(', ')}` : 'Pick one'}
+          {picked ?? 'Pick one'}
         </Button>
       </HStack>
       {open ? (

@@ -1,8 +1,8 @@
 import { Box, Button, Field, Grid, Input, Stack, Text } from '@chakra-ui/react';
-import { COUNTER_VERDICTS, type CounterProductsView } from '@crumbproof/shared';
+import { COUNTER_CAUTION, COUNTER_VERDICTS, type CounterProductsView } from '@crumbproof/shared';
 import { useId, useMemo, useState } from 'react';
 import { ErrorAlert } from '@/components/ui/error-alert';
-import { avoidLabels as labelsOf, listed, lookUp, type CounterAsk, type LookupRow } from '../utils/lookup';
+import { avoidLabels as labelsOf, isEmptyAsk, listed, lookUp, type CounterAsk, type LookupRow } from '../utils/lookup';
 import { AvoidPicker } from './avoid-picker';
 import { ProductCard } from './product-card';
 import { ResultsList } from './results-list';
@@ -91,6 +91,12 @@ export function LookUpView({ view, ask, onAskChange }: LookUpViewProps) {
         <Text role="status" fontSize="lg" color="fg.muted">
           {countsOf(rows)}
         </Text>
+        {/* Beside every verdict, what it rests on (DESIGN.md: never "safe", always "as recorded" with the caution). */}
+        {isEmptyAsk(ask) ? null : (
+          <Text fontSize="md" borderStartWidth="4px" borderColor="accent.solid" bg="accent.subtle" px="3" py="2" rounded="sm">
+            {COUNTER_CAUTION}
+          </Text>
+        )}
         {result.problems.length > 0 ? <ErrorAlert title="This ask cannot be answered here">{result.problems.join(' ')}</ErrorAlert> : null}
         {nothing ? (
           <Text fontSize="xl">
