@@ -239,7 +239,7 @@ export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: Product
                     )}
                   </Dialog.Body>
                   <Dialog.CloseTrigger asChild>
-                    <CloseButton size="lg" aria-label="Close the card" />
+                    <CloseButton size="lg" minW="12" minH="12" aria-label="Close the card" />
                   </Dialog.CloseTrigger>
                 </>
               ) : null}
