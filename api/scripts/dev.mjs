@@ -2,7 +2,7 @@
 // dev server with hot reload for the web app (http://127.0.0.1:5173, /api proxied to :3000).
 import { join } from 'node:path';
 import { ensureMariadbInstalled, instance } from './lib/mariadb.mjs';
-import { dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step } from './lib/workspace.mjs';
+import { DB_USERS, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step } from './lib/workspace.mjs';
 
 const DB_PORT = Number(process.env.DB_PORT ?? 3307);
 const dataDir = join(ROOT, '.data');
@@ -25,7 +25,7 @@ process.on('SIGTERM', () => void stop());
 try {
   if (db.runningPid()) await db.stop();
   await db.start();
-  db.createDatabase({ database: 'crumbproof', user: 'crumbproof', password: 'crumbproof-local' });
+  db.createDatabase({ database: 'crumbproof', ...DB_USERS });
   const env = {
     ...dbEnv({ port: DB_PORT, database: 'crumbproof' }),
     NODE_ENV: 'development',

@@ -2,7 +2,7 @@
 // seeds the demo kitchen into an empty database, builds the web app and serves it from the API.
 import { join } from 'node:path';
 import { ensureMariadbInstalled, instance, isPortFree } from './lib/mariadb.mjs';
-import { buildAll, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
+import { buildAll, DB_USERS, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
 
 const PORT = Number(process.env.PORT ?? 3000);
 const DB_PORT = Number(process.env.DB_PORT ?? 3307);
@@ -55,7 +55,7 @@ async function main() {
     }
     step(`Starting the private MariaDB on 127.0.0.1:${DB_PORT} (data in .data/mariadb)…`);
     await db.start();
-    db.createDatabase({ database: 'crumbproof', user: 'crumbproof', password: 'crumbproof-local' });
+    db.createDatabase({ database: 'crumbproof', ...DB_USERS });
 
     buildAll();
 

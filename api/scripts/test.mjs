@@ -9,6 +9,7 @@ import { runChecks } from './lib/checks.mjs';
 import { ensureMariadbInstalled, freePort, instance } from './lib/mariadb.mjs';
 import {
   buildAll,
+  DB_USERS,
   dbEnv,
   ensureChromium,
   ensureNodeModules,
@@ -112,7 +113,7 @@ async function suites() {
   try {
     step(`Starting a throwaway MariaDB on 127.0.0.1:${port}…`);
     await db.start();
-    db.createDatabase({ database: 'crumbproof_test', user: 'crumbproof', password: 'crumbproof-local' });
+    db.createDatabase({ database: 'crumbproof_test', ...DB_USERS });
 
     if (steps.api) {
       const report = join(scratch, 'jest.json');
@@ -140,7 +141,7 @@ async function suites() {
     if (steps.e2e) {
       buildAll();
       const appPort = await freePort();
-      db.createDatabase({ database: 'crumbproof_test_e2e', user: 'crumbproof', password: 'crumbproof-local' });
+      db.createDatabase({ database: 'crumbproof_test_e2e', ...DB_USERS });
       const env = {
         ...dbEnv({ port, database: 'crumbproof_test_e2e' }),
         NODE_ENV: 'test',

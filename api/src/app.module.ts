@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
+import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { BooksModule } from './books/books.module';
 import { ApiExceptionFilter } from './common/exception.filter';
@@ -37,6 +38,7 @@ import { UsersModule } from './users/users.module';
     LabelsModule,
     CounterModule,
     PublicPageModule,
+    AuditModule,
     ReferenceModule,
     SeedModule,
   ],

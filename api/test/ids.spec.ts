@@ -224,8 +224,8 @@ describe('migration 0005: code columns compare byte for byte, and existing codes
       dialect: 'mariadb',
       host: process.env.DB_HOST,
       port: Number(process.env.DB_PORT),
-      username: process.env.DB_USER,
-      password: process.env.DB_PASSWORD,
+      username: process.env.DB_OWNER_USER,
+      password: process.env.DB_OWNER_PASSWORD,
       database,
       logging: false,
     });

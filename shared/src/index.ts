@@ -21,3 +21,4 @@ export * from './label-contracts';
 export * from './counter-contracts';
 export * from './counter';
 export * from './public-page';
+export * from './audit-contracts';

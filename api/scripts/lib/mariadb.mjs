@@ -181,17 +181,25 @@ export function instance({ dir, port }) {
   }
 
   /**
-   * Creates the database and a TCP user for 127.0.0.1, idempotently.
-   * @param {{ database: string; user: string; password: string }} grant
+   * Creates the database and its two TCP users for 127.0.0.1, idempotently: the owner (`user`),
+   * who migrates and holds every privilege on the database (and on `database_*`, the tests'
+   * databases) with the grant option, and the API's runtime user (`runtimeUser`), who gets no
+   * database-wide privilege here: after every migration run the owner grants it table by table
+   * (api/src/database/runtime-grants.ts), only SELECT and INSERT on audit_events. An existing
+   * install gains the runtime user and the owner's grant option on its next start.
+   * @param {{ database: string; user: string; password: string; runtimeUser?: string; runtimePassword?: string }} grant
    */
-  function createDatabase({ database, user, password }) {
+  function createDatabase({ database, user, password, runtimeUser, runtimePassword }) {
     /** @param {string} s */
     const q = (s) => s.replace(/[`'\\]/g, '');
     const sql = [
       `CREATE DATABASE IF NOT EXISTS \`${q(database)}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
       `CREATE USER IF NOT EXISTS '${q(user)}'@'127.0.0.1' IDENTIFIED BY '${q(password)}';`,
-      `GRANT ALL PRIVILEGES ON \`${q(database)}\`.* TO '${q(user)}'@'127.0.0.1';`,
-      `GRANT ALL PRIVILEGES ON \`${q(database)}\\_%\`.* TO '${q(user)}'@'127.0.0.1';`,
+      `GRANT ALL PRIVILEGES ON \`${q(database)}\`.* TO '${q(user)}'@'127.0.0.1' WITH GRANT OPTION;`,
+      `GRANT ALL PRIVILEGES ON \`${q(database)}\\_%\`.* TO '${q(user)}'@'127.0.0.1' WITH GRANT OPTION;`,
+      ...(runtimeUser && runtimeUser !== user
+        ? [`CREATE USER IF NOT EXISTS '${q(runtimeUser)}'@'127.0.0.1' IDENTIFIED BY '${q(runtimePassword ?? '')}';`]
+        : []),
       'FLUSH PRIVILEGES;',
     ].join('\n');
     const r = run('mariadb', [], sql);

@@ -107,13 +107,26 @@ export async function waitForHttp(url, timeoutMs = 60_000, child) {
   throw new Error(`No answer from ${url} within ${timeoutMs / 1000} s.`);
 }
 
+/**
+ * The private database's two users: the owner migrates (and grants), the API runs as the runtime
+ * user, who may only read and add audit_events rows (see mariadb.mjs createDatabase).
+ */
+export const DB_USERS = {
+  user: 'crumbproof',
+  password: 'crumbproof-local',
+  runtimeUser: 'crumbproof_app',
+  runtimePassword: 'crumbproof-app-local',
+};
+
 /** @param {{ port: number; database: string }} where */
 export function dbEnv({ port, database }) {
   return {
     DB_HOST: '127.0.0.1',
     DB_PORT: String(port),
     DB_NAME: database,
-    DB_USER: 'crumbproof',
-    DB_PASSWORD: 'crumbproof-local',
+    DB_USER: DB_USERS.runtimeUser,
+    DB_PASSWORD: DB_USERS.runtimePassword,
+    DB_OWNER_USER: DB_USERS.user,
+    DB_OWNER_PASSWORD: DB_USERS.password,
   };
 }

@@ -40,7 +40,7 @@ export class AuthController {
   @HttpCode(204)
   @ApiOperation({ summary: 'Sign out: ends the session on the server and clears the cookie' })
   async signOut(@Req() req: FastifyRequest, @Res({ passthrough: true }) reply: FastifyReply): Promise<void> {
-    await this.tokens.end(readSessionCookie(req), reply);
+    await this.auth.signedOut(await this.tokens.end(readSessionCookie(req), reply));
   }
 
   @Post('auth/first-manager')

@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { JwtModule } from '@nestjs/jwt';
 import { PassportModule } from '@nestjs/passport';
+import { AuditStoreModule } from '../audit/audit-store.module';
 import { TransactionRunner } from '../common/transaction';
 import type { AppConfig } from '../config/config';
 import { UsersModule } from '../users/users.module';
@@ -15,6 +16,7 @@ import { SessionsModule } from './sessions.module';
 
 @Module({
   imports: [
+    AuditStoreModule,
     UsersModule,
     SessionsModule,
     PassportModule,

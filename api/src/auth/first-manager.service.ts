@@ -5,6 +5,7 @@ import type { Transaction } from 'sequelize';
 import type { FirstManagerRequest, Me } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { isDemoKitchen, type AppConfig } from '../config/config';
+import { AuditService } from '../audit/audit.service';
 import { TransactionRunner } from '../common/transaction';
 import { hashPassword, refuseCommonPassword } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
@@ -29,6 +30,7 @@ export class FirstManagerService {
     private readonly links: FirstManagerLinksRepository,
     private readonly users: UsersRepository,
     private readonly config: ConfigService<AppConfig, true>,
+    private readonly audit: AuditService,
   ) {}
 
   private get demo() {
@@ -70,6 +72,16 @@ export class FirstManagerService {
       }
       await this.links.voidAll(now, t);
       const row = await this.users.create({ email: req.email, name: req.name, role: 'manager', passwordHash }, t);
+      await this.audit.record(
+        {
+          action: 'first-manager.set',
+          actor: { id: row.id, name: row.name, role: row.role },
+          record: { kind: 'user', id: row.id },
+          summary: `${row.name} (${row.email}) was made the kitchen’s first manager with the one-time link.`,
+          after: { id: row.id, email: row.email, name: row.name, role: row.role },
+        },
+        t,
+      );
       this.logger.log(`The first manager, ${req.email}, was set with the one-time link.`);
       return { id: row.id, email: row.email, name: row.name, role: row.role };
     });

@@ -52,13 +52,18 @@ export class SessionTokens {
     await this.write(reply, claims.sub, session.id, idleExpiresAt, now);
   }
 
-  /** Ends the session the cookie names (even an expired one) and clears the cookie. */
-  async end(token: string | null, reply: FastifyReply) {
+  /** Ends the session the cookie names (even an expired one) and clears the cookie; the session's user, or null when it named none. */
+  async end(token: string | null, reply: FastifyReply): Promise<number | null> {
+    let userId: number | null = null;
     if (token) {
       const claims = await this.jwt.verifyAsync<SessionClaims>(token, { ignoreExpiration: true }).catch(() => null);
-      if (claims?.sid) await this.sessions.end(claims.sid, 'signed-out');
+      if (claims?.sid) {
+        await this.sessions.end(claims.sid, 'signed-out');
+        userId = typeof claims.sub === 'number' ? claims.sub : null;
+      }
     }
     clearSessionCookie(reply, this.secure);
+    return userId;
   }
 
   private async write(reply: FastifyReply, userId: number, sid: string, until: Date, now: Date) {

@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { AuditStoreModule } from '../audit/audit-store.module';
 import { TransactionRunner } from '../common/transaction';
 import { IngredientStoreModule } from '../ingredients/ingredient-store.module';
 import { KitchenModule } from '../kitchen/kitchen.module';
@@ -14,7 +15,7 @@ import { BooksService } from './books.service';
  * RecipesModule, which write through this one.
  */
 @Module({
-  imports: [KitchenModule, IngredientStoreModule, RecipeStoreModule, RulesModule],
+  imports: [AuditStoreModule, KitchenModule, IngredientStoreModule, RecipeStoreModule, RulesModule],
   controllers: [BooksController],
   providers: [BooksService, TransactionRunner],
   exports: [BooksService],

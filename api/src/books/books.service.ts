@@ -9,6 +9,7 @@ import {
   type FieldError,
 } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
+import { AuditService, type AuditEntry } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
 import { validationError } from '../common/zod.pipe';
@@ -76,6 +77,7 @@ export class BooksService {
     private readonly recipes: RecipesRepository,
     private readonly rules: RulesService,
     private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
   ) {}
 
   /**
@@ -236,6 +238,19 @@ export class BooksService {
         await this.recipes.write(siteRow.id, rec.id, bodyOf(rec), meta, t);
         (before ? summary.recipes.revised : summary.recipes.created).push(rec.id);
       }
+      const count = (n: number, one: string) => `${n} ${one}${n === 1 ? '' : 's'}`;
+      await this.audit.record(
+        {
+          action: 'book.imported',
+          record: { kind: 'kitchen', id: siteRow.id },
+          summary:
+            `Imported the recipe book${meta.note ? ` (${meta.note})` : ''}: kitchen ${siteState}; ` +
+            `${count(summary.ingredients.created.length, 'ingredient')} added, ${summary.ingredients.revised.length} revised; ` +
+            `${count(summary.recipes.created.length, 'recipe')} added, ${summary.recipes.revised.length} revised.`,
+          after: summary,
+        },
+        t,
+      );
       return summary;
     });
     await this.recipesWritten([...imported.recipes.created, ...imported.recipes.revised]);
@@ -255,6 +270,8 @@ export class BooksService {
     changes: { ingredients?: BookIngredient[]; recipes?: BookRecipe[] },
     meta: { authorId: number | null; note: string },
     expect: 'new' | 'existing' | 'any',
+    /** The write's one audit event (a swap, an import); left out, an editor's save of its one item. */
+    audit?: Pick<AuditEntry, 'action' | 'record' | 'summary'>,
   ): Promise<{ id: string; revision: number }[]> {
     const written = await this.tx.run(async (t) => {
       await this.sites.lock(t);
@@ -293,6 +310,7 @@ export class BooksService {
       for (const rec of changes.recipes ?? []) {
         written.push({ id: rec.id, revision: await this.recipes.write(site.id, rec.id, bodyOf(rec), meta, t) });
       }
+      await this.audit.record(itemsWritten(book, changes, written, meta.note, audit), t);
       return written;
     });
     await this.recipesWritten((changes.recipes ?? []).map((r) => r.id));
@@ -314,6 +332,50 @@ export class BooksService {
     const [written] = await this.writeItems(changes, meta, expect);
     return written.revision;
   }
+}
+
+/**
+ * The audit event of a write of items: the record before (null for a new one) and after, one item
+ * as its body, several by kind and id.
+ */
+function itemsWritten(
+  book: Book,
+  changes: { ingredients?: BookIngredient[]; recipes?: BookRecipe[] },
+  written: { id: string; revision: number }[],
+  note: string,
+  audit: Pick<AuditEntry, 'action' | 'record' | 'summary'> | undefined,
+): AuditEntry {
+  const previous = (item: { id: string }, kind: 'ingredient' | 'recipe') => {
+    const found = (kind === 'ingredient' ? book.ingredients : book.recipes).find((x) => x.id === item.id);
+    return found ? bodyOf(found) : null;
+  };
+  const items = [
+    ...(changes.ingredients ?? []).map((i) => ({ kind: 'ingredient' as const, item: i })),
+    ...(changes.recipes ?? []).map((r) => ({ kind: 'recipe' as const, item: r })),
+  ];
+  if (!audit && items.length === 1) {
+    const [{ kind, item }] = items;
+    const before = previous(item, kind);
+    const revision = written.find((w) => w.id === item.id)?.revision;
+    return {
+      action: kind === 'ingredient' ? 'ingredient.saved' : 'recipe.saved',
+      record: { kind, id: item.id },
+      summary: `${before ? 'Revised' : 'Created'} the ${kind} ${item.name} (${item.id}), revision ${revision}: ${note}.`,
+      before,
+      after: bodyOf(item),
+    };
+  }
+  const byKind = (pick: (entry: (typeof items)[number]) => unknown) => ({
+    ingredients: Object.fromEntries(items.filter((e) => e.kind === 'ingredient').map((e) => [e.item.id, pick(e)])),
+    recipes: Object.fromEntries(items.filter((e) => e.kind === 'recipe').map((e) => [e.item.id, pick(e)])),
+  });
+  return {
+    action: audit?.action ?? 'recipe.saved',
+    record: audit?.record ?? null,
+    summary: audit?.summary ?? `${note}: ${written.map((w) => `${w.id} (revision ${w.revision})`).join(', ')}.`,
+    before: byKind((e) => previous(e.item, e.kind)),
+    after: byKind((e) => bodyOf(e.item)),
+  };
 }
 
 function mergeById<T extends { id: string }>(base: T[], incoming: T[]): T[] {

@@ -5,10 +5,10 @@
 import 'reflect-metadata';
 import { Module } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
-import { Sequelize } from 'sequelize-typescript';
 import { AppConfigModule } from '../config/config.module';
+import { environmentConfig } from '../config/config';
 import { DatabaseModule } from '../database/database.module';
-import { migrateUp } from '../database/migrator';
+import { setUpSchema } from '../database/schema-setup';
 import { SeedModule } from '../database/seed.module';
 import { SeedService } from '../database/seed.service';
 
@@ -20,16 +20,21 @@ async function main(command: string) {
     console.error('Use: db migrate | db seed | db setup');
     process.exit(2);
   }
+  if (command !== 'seed') {
+    // As the owner, before the API's own connection (its runtime user may read no table before the grants).
+    const { applied, grants } = await setUpSchema(environmentConfig());
+    console.log(applied.length ? `Applied ${applied.length} migration(s): ${applied.join(', ')}` : 'The schema is up to date.');
+    if ('skipped' in grants) {
+      console.warn(
+        'DB_OWNER_USER is not set, so the API runs as the owner of its database: the audit trail is append-only in the API, not in MariaDB.',
+      );
+    }
+  }
+  if (command === 'migrate') return;
   const ctx = await NestFactory.createApplicationContext(DbCliModule, { logger: ['error', 'warn'] });
   try {
-    if (command !== 'seed') {
-      const done = await migrateUp(ctx.get(Sequelize));
-      console.log(done.length ? `Applied ${done.length} migration(s): ${done.map((m) => m.name).join(', ')}` : 'The schema is up to date.');
-    }
-    if (command !== 'migrate') {
-      const result = await ctx.get(SeedService).seedDemo();
-      console.log(result === 'seeded' ? 'Seeded the demo kitchen.' : 'Kept the existing data.');
-    }
+    const result = await ctx.get(SeedService).seedDemo();
+    console.log(result === 'seeded' ? 'Seeded the demo kitchen.' : 'Kept the existing data.');
   } finally {
     await ctx.close();
   }

@@ -1,7 +1,8 @@
-import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Logger, NotFoundException } from '@nestjs/common';
+import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Inject, Logger, NotFoundException, Optional } from '@nestjs/common';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { ApiErrorBody, ErrorCode } from '@crumbproof/shared';
 import { AppError, httpStatusOf } from './app-error';
+import { isRefusedAccess, REFUSAL_LISTENER, type RefusalListener } from './refusals';
 
 /** Turns every error into an ApiErrorBody; unknown errors become a logged 500 with a plain message. */
 @Catch()
@@ -9,6 +10,8 @@ export class ApiExceptionFilter implements ExceptionFilter {
   private readonly logger = new Logger('Errors');
   /** The web app's index.html when the API also serves the web build (see app.factory.ts). */
   static webFallbackHtml: string | null = null;
+
+  constructor(@Optional() @Inject(REFUSAL_LISTENER) private readonly refusals?: RefusalListener) {}
 
   catch(exception: unknown, host: ArgumentsHost) {
     const reply = host.switchToHttp().getResponse<FastifyReply>();
@@ -23,6 +26,11 @@ export class ApiExceptionFilter implements ExceptionFilter {
       return;
     }
     const body = this.toBody(exception);
+    if (this.refusals && isRefusedAccess(request, body)) {
+      // The refusal is recorded before it is sent; a failure to record is logged by the listener.
+      void this.refusals.refused(request, body).finally(() => void reply.status(body.statusCode).send(body));
+      return;
+    }
     void reply.status(body.statusCode).send(body);
   }
 

@@ -12,8 +12,16 @@ export const configSchema = z.object({
   DB_HOST: z.string().default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
   DB_NAME: z.string().min(1).default('crumbproof'),
+  /** The API's runtime user: npm start's may only read and add rows of audit_events (see DB_OWNER_USER). */
   DB_USER: z.string().min(1).default('crumbproof'),
   DB_PASSWORD: z.string().default('crumbproof-local'),
+  /**
+   * The owner, who runs the migrations and then grants DB_USER its privileges table by table
+   * (SELECT and INSERT only on audit_events). Unset: DB_USER is the owner too, and the audit
+   * trail is append-only in the API alone, not in the database.
+   */
+  DB_OWNER_USER: unsetIfEmpty(z.string().min(1).optional()),
+  DB_OWNER_PASSWORD: unsetIfEmpty(z.string().optional()),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters.'),
   SESSION_MINUTES: z.coerce
     .number()
@@ -86,6 +94,13 @@ export function sessionCookieSecure(settings: Settings<'COOKIE_SECURE' | 'HOST' 
   const secure = read(settings, 'COOKIE_SECURE');
   if (secure !== undefined) return secure === 'true';
   return !(read(settings, 'NODE_ENV') === 'development' || isLoopback(read(settings, 'HOST')));
+}
+
+/** Who runs the migrations: DB_OWNER_USER, or DB_USER when no owner is set. */
+export function databaseOwner(config: Pick<AppConfig, 'DB_USER' | 'DB_PASSWORD' | 'DB_OWNER_USER' | 'DB_OWNER_PASSWORD'>) {
+  return config.DB_OWNER_USER
+    ? { user: config.DB_OWNER_USER, password: config.DB_OWNER_PASSWORD ?? '' }
+    : { user: config.DB_USER, password: config.DB_PASSWORD };
 }
 
 /** The settings of this process, from its environment: the one place that reads process.env. */

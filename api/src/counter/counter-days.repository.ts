@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
+import type { Transaction } from 'sequelize';
 import { parseJson } from '../common/json-column';
 import { CounterDayModel } from './counter-day.model';
 
@@ -16,14 +17,14 @@ export interface CounterDayRow {
 export class CounterDaysRepository {
   constructor(@InjectModel(CounterDayModel) private readonly days: typeof CounterDayModel) {}
 
-  async find(siteId: number, day: string): Promise<CounterDayRow | null> {
-    const row = await this.days.findOne({ where: { siteId, day } });
+  async find(siteId: number, day: string, t?: Transaction): Promise<CounterDayRow | null> {
+    const row = await this.days.findOne({ where: { siteId, day }, transaction: t });
     return row ? { day: row.day, products: parseJson(row.products) as string[], setByName: row.setByName, setAt: row.updatedAt } : null;
   }
 
   /** Marks the products on sale on a day, in place of what was marked before. */
-  async save(siteId: number, day: string, products: string[], by: { id: number; name: string }): Promise<CounterDayRow> {
-    await this.days.upsert({ siteId, day, products, setBy: by.id, setByName: by.name, updatedAt: new Date() });
-    return (await this.find(siteId, day))!;
+  async save(siteId: number, day: string, products: string[], by: { id: number; name: string }, t?: Transaction): Promise<CounterDayRow> {
+    await this.days.upsert({ siteId, day, products, setBy: by.id, setByName: by.name, updatedAt: new Date() }, { transaction: t });
+    return (await this.find(siteId, day, t))!;
   }
 }

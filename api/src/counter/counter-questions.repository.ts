@@ -43,8 +43,8 @@ function toRow(m: CounterQuestionModel): CounterQuestionRow {
 export class CounterQuestionsRepository {
   constructor(@InjectModel(CounterQuestionModel) private readonly questions: typeof CounterQuestionModel) {}
 
-  async add(siteId: number, values: NewCounterQuestion): Promise<CounterQuestionRow> {
-    return toRow(await this.questions.create({ siteId, ...values }));
+  async add(siteId: number, values: NewCounterQuestion, t?: Transaction): Promise<CounterQuestionRow> {
+    return toRow(await this.questions.create({ siteId, ...values }, { transaction: t }));
   }
 
   /** Newest first; `open` keeps only those not answered yet. */

@@ -8,6 +8,7 @@ import {
   type FieldError,
 } from '@crumbproof/shared';
 import { BooksService } from '../books/books.service';
+import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
@@ -27,6 +28,7 @@ export class CounterQuestionsService {
     private readonly rules: RulesService,
     private readonly events: CounterEvents,
     private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
   ) {}
 
   /**
@@ -44,13 +46,29 @@ export class CounterQuestionsService {
       if (!accepted.includes(code)) fields.push({ path: `avoid.${i}`, message: notInListMessage('allergen', code, accepted) });
     });
     if (fields.length > 0 || !product) throw new AppError('validation', fields.map((f) => `${f.path}: ${f.message}`).join(' '), fields);
-    const row = await this.repo.add(site.id, {
-      productCode: product.id,
-      productName: product.name,
-      avoid: body.avoid,
-      note: body.note ? body.note : null,
-      askedBy: user.id,
-      askedByName: user.name,
+    const row = await this.tx.run(async (t) => {
+      const added = await this.repo.add(
+        site.id,
+        {
+          productCode: product.id,
+          productName: product.name,
+          avoid: body.avoid,
+          note: body.note ? body.note : null,
+          askedBy: user.id,
+          askedByName: user.name,
+        },
+        t,
+      );
+      await this.audit.record(
+        {
+          action: 'counter.question-asked',
+          record: { kind: 'counter-question', id: added.id },
+          summary: `Asked the kitchen about ${product.name} (${product.id}) for a customer avoiding ${body.avoid.join(', ')}.`,
+          after: view(added),
+        },
+        t,
+      );
+      return added;
     });
     return view(row);
   }
@@ -73,7 +91,18 @@ export class CounterQuestionsService {
         const message = `This question was answered already, by ${question.answer.by} at ${question.answer.at.toISOString()}.`;
         throw new AppError('conflict', message, [{ path: 'answer', message }]);
       }
-      return this.repo.answer(number, { text: body.answer, by: user.id, byName: user.name }, t);
+      const answered = await this.repo.answer(number, { text: body.answer, by: user.id, byName: user.name }, t);
+      await this.audit.record(
+        {
+          action: 'counter.question-answered',
+          record: { kind: 'counter-question', id: number },
+          summary: `Answered the question ${number} about ${answered.productName}.`,
+          before: view(question),
+          after: view(answered),
+        },
+        t,
+      );
+      return answered;
     });
     this.events.publish({ type: 'question-answered', question: row.id, product: row.productCode });
     return view(row);

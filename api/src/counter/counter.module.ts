@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AuditStoreModule } from '../audit/audit-store.module';
 import { BooksModule } from '../books/books.module';
 import { TransactionRunner } from '../common/transaction';
 import { DeclarationsModule } from '../declarations/declarations.module';
@@ -23,6 +24,7 @@ import { DeclarationChanges } from './declaration-changes';
  */
 @Module({
   imports: [
+    AuditStoreModule,
     BooksModule,
     DeclarationsModule,
     KitchenModule,

@@ -1,7 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import type { CounterDay, CounterDayView, CounterProductsView, FieldError } from '@crumbproof/shared';
 import { BooksService, type KitchenState } from '../books/books.service';
+import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../common/current-user.decorator';
+import { TransactionRunner } from '../common/transaction';
 import { AppError } from '../common/app-error';
 import { DeclarationsService } from '../declarations/declarations.service';
 import { today } from '../ingredients/specifications/specification.dto';
@@ -21,6 +23,8 @@ export class CounterService {
     private readonly days: CounterDaysRepository,
     private readonly events: CounterEvents,
     private readonly rules: RulesService,
+    private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
   ) {}
 
   /**
@@ -65,7 +69,21 @@ export class CounterService {
   async setDay(body: CounterDay, user: AuthUser): Promise<CounterDayView> {
     const state = await this.books.state();
     assertForSale(state, body.products);
-    const row = await this.days.save(state.site.id, body.date, body.products, user);
+    const row = await this.tx.run(async (t) => {
+      const before = await this.days.find(state.site.id, body.date, t);
+      const saved = await this.days.save(state.site.id, body.date, body.products, user, t);
+      await this.audit.record(
+        {
+          action: 'counter.day-marked',
+          record: { kind: 'counter-day', id: body.date },
+          summary: `Marked ${body.products.length} product${body.products.length === 1 ? '' : 's'} on sale on ${body.date}.`,
+          before: before ? { products: before.products } : null,
+          after: { products: saved.products },
+        },
+        t,
+      );
+      return saved;
+    });
     this.events.publish({ type: 'display-changed', date: body.date });
     return { date: body.date, products: row.products, setBy: row.setByName, setAt: row.setAt.toISOString() };
   }

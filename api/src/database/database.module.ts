@@ -2,25 +2,26 @@ import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { SequelizeModule } from '@nestjs/sequelize';
 import type { AppConfig } from '../config/config';
+import { connectionOptions } from './connection';
 
+/** The API's connection, as its runtime user (DB_USER); migrations run as the owner (schema-setup.ts). */
 @Module({
   imports: [
     SequelizeModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService<AppConfig, true>) => ({
-        dialect: 'mariadb',
-        host: config.get('DB_HOST', { infer: true }),
-        port: config.get('DB_PORT', { infer: true }),
-        database: config.get('DB_NAME', { infer: true }),
-        username: config.get('DB_USER', { infer: true }),
-        password: config.get('DB_PASSWORD', { infer: true }),
+        ...connectionOptions({
+          DB_HOST: config.get('DB_HOST', { infer: true }),
+          DB_PORT: config.get('DB_PORT', { infer: true }),
+          DB_NAME: config.get('DB_NAME', { infer: true }),
+          DB_USER: config.get('DB_USER', { infer: true }),
+          DB_PASSWORD: config.get('DB_PASSWORD', { infer: true }),
+          DB_OWNER_USER: undefined,
+          DB_OWNER_PASSWORD: undefined,
+        }),
+        dialect: 'mariadb' as const,
         autoLoadModels: true,
         synchronize: false,
-        logging: false,
-        define: { charset: 'utf8mb4', collate: 'utf8mb4_unicode_ci', underscored: true },
-        timezone: '+00:00',
-        dialectOptions: { connectTimeout: 5000 },
-        pool: { max: 10, min: 0, idle: 10000 },
       }),
     }),
   ],

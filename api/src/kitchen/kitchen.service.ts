@@ -1,14 +1,20 @@
 import { Injectable } from '@nestjs/common';
 import type { KitchenUpdate, KitchenView } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
+import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
+import { TransactionRunner } from '../common/transaction';
 import { SiteRepository, type SiteRow } from './site.repository';
 
 @Injectable()
 export class KitchenService {
   private readonly updatedListeners: (() => void)[] = [];
 
-  constructor(private readonly sites: SiteRepository) {}
+  constructor(
+    private readonly sites: SiteRepository,
+    private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
+  ) {}
 
   /** Told after every saved change of the kitchen's settings (the counter's events); a listener must not throw. */
   onUpdated(listener: () => void): void {
@@ -29,8 +35,17 @@ export class KitchenService {
 
   /** Changes the kitchen's regime, measures or allergen handling; every declaration follows. */
   async update(changes: KitchenUpdate): Promise<KitchenView> {
-    const site = await this.current();
-    const updated = view(await this.sites.update(site.id, changes));
+    const updated = await this.tx.run(async (t) => {
+      const site = await this.current(t);
+      const after = view(await this.sites.update(site.id, changes, t));
+      const before = view(site);
+      const fields = (Object.keys(changes) as (keyof KitchenUpdate)[]).join(', ');
+      await this.audit.record(
+        { action: 'kitchen.updated', record: { kind: 'kitchen', id: site.id }, summary: `Changed the kitchen’s ${fields}.`, before, after },
+        t,
+      );
+      return after;
+    });
     for (const listener of this.updatedListeners) listener();
     return updated;
   }

@@ -150,6 +150,43 @@ export class LabelRunsRepository {
     return run ? (parseJson(run.sources as Source[] | string)[line.position] ?? null) : null;
   }
 
+  /**
+   * Every print of a batch code (exactly), oldest first: each line with its run and what the
+   * label was rendered from (the recall from a batch code, api/src/audit/recall.service.ts).
+   */
+  async printsOfBatch<Item, Source>(
+    siteId: number,
+    batch: string,
+  ): Promise<{ run: LabelRunRow<Item>; line: RunLine; position: number; source: Source | null }[]> {
+    const lines = (await this.lines.findAll({ where: { siteId, batch }, order: [['id', 'ASC']] })).filter((l) => l.batch === batch);
+    if (lines.length === 0) return [];
+    const runs = await this.runs.findAll({
+      where: { siteId, id: [...new Set(lines.map((l) => l.runId))] },
+      attributes: [...METADATA, 'sources'],
+    });
+    const byId = new Map(runs.map((r) => [r.id, r]));
+    return lines.flatMap((l) => {
+      const run = byId.get(l.runId);
+      if (!run) return [];
+      const sources = parseJson(run.sources as Source[] | string);
+      return [
+        {
+          run: toRow<Item>(run),
+          line: {
+            recipeId: l.recipeId,
+            productCode: l.productCode,
+            revision: l.revision,
+            batch: l.batch,
+            date: l.date,
+            quantity: l.quantity,
+          },
+          position: l.position,
+          source: sources[l.position] ?? null,
+        },
+      ];
+    });
+  }
+
   async findPdf(siteId: number, id: number): Promise<{ pdf: Buffer; sha256: string } | null> {
     const row = await this.runs.findOne({ where: { id, siteId }, attributes: ['id', 'pdf', 'sha256'] });
     return row ? { pdf: row.pdf, sha256: row.sha256 } : null;

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AuditStoreModule } from '../audit/audit-store.module';
 import { BooksModule } from '../books/books.module';
 import { TransactionRunner } from '../common/transaction';
 import { DeclarationsModule } from '../declarations/declarations.module';
@@ -25,6 +26,7 @@ import { SsccSerialModel } from './sscc-serial.model';
  */
 @Module({
   imports: [
+    AuditStoreModule,
     BooksModule,
     DeclarationsModule,
     KitchenModule,
@@ -34,6 +36,6 @@ import { SsccSerialModel } from './sscc-serial.model';
   ],
   controllers: [LabelsController],
   providers: [LabelsService, LabelPrinter, LabelSettingsRepository, LabelRunsRepository, LabelCountersRepository, TransactionRunner],
-  exports: [LabelSettingsRepository],
+  exports: [LabelSettingsRepository, LabelRunsRepository],
 })
 export class LabelsModule {}

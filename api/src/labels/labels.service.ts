@@ -19,6 +19,7 @@ import type { Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import type { Page } from '../common/total-count';
+import { AuditService } from '../audit/audit.service';
 import { TransactionRunner } from '../common/transaction';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { DeclarationsService } from '../declarations/declarations.service';
@@ -69,6 +70,7 @@ export class LabelsService {
     private readonly printer: LabelPrinter,
     private readonly publicPages: PublicPageService,
     private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
   ) {}
 
   templates() {
@@ -82,7 +84,21 @@ export class LabelsService {
 
   async saveSettings(values: LabelSettings): Promise<LabelSettings> {
     const site = await this.kitchen.current();
-    return this.settingsRepo.save(site.id, values);
+    return this.tx.run(async (t) => {
+      const before = await this.settingsRepo.find(site.id, t);
+      const saved = await this.settingsRepo.save(site.id, values, t);
+      await this.audit.record(
+        {
+          action: 'label-settings.saved',
+          record: { kind: 'label-settings', id: site.id },
+          summary: 'Saved the label settings.',
+          before,
+          after: saved,
+        },
+        t,
+      );
+      return saved;
+    });
   }
 
   async runs(query: LabelRunQuery): Promise<Page<LabelRun>> {
@@ -203,6 +219,19 @@ export class LabelsService {
           overrideReason: request.override?.reason ?? null,
           pdf: rendered.pdf,
           sha256,
+        },
+        t,
+      );
+      const batches = [...new Set(items.map((i) => i.batch).filter(Boolean))];
+      await this.audit.record(
+        {
+          action: 'labels.printed',
+          record: { kind: 'label-run', id: runId },
+          summary:
+            `Printed run ${runId} with the ${request.template} template for ${request.productionDate}: ` +
+            `${items.map((i) => `${i.quantity} × ${i.name} (revision ${i.revision})`).join(', ')}` +
+            `${batches.length > 0 ? `; batch ${batches.join(', ')}` : ''}${request.override ? `; override: ${request.override.reason}` : ''}.`,
+          after: { template: request.template, productionDate: request.productionDate, items },
         },
         t,
       );

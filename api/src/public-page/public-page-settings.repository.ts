@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { PublicPageSettings } from '@crumbproof/shared';
+import type { Transaction } from 'sequelize';
 import { PublicPageSettingsModel } from './public-page-settings.model';
 
 /** A kitchen's public page settings as stored. */
@@ -13,13 +14,13 @@ export interface PublicPageSettingsRow extends PublicPageSettings {
 export class PublicPageSettingsRepository {
   constructor(@InjectModel(PublicPageSettingsModel) private readonly settings: typeof PublicPageSettingsModel) {}
 
-  async find(siteId: number): Promise<PublicPageSettingsRow | null> {
-    const row = await this.settings.findByPk(siteId);
+  async find(siteId: number, t?: Transaction): Promise<PublicPageSettingsRow | null> {
+    const row = await this.settings.findByPk(siteId, { transaction: t });
     return row ? { enabled: Boolean(row.enabled), baseUrl: row.baseUrl, updatedAt: row.updatedAt } : null;
   }
 
-  async save(siteId: number, values: PublicPageSettings): Promise<PublicPageSettingsRow> {
-    await this.settings.upsert({ siteId, enabled: values.enabled, baseUrl: values.baseUrl, updatedAt: new Date() });
-    return (await this.find(siteId))!;
+  async save(siteId: number, values: PublicPageSettings, t?: Transaction): Promise<PublicPageSettingsRow> {
+    await this.settings.upsert({ siteId, enabled: values.enabled, baseUrl: values.baseUrl, updatedAt: new Date() }, { transaction: t });
+    return (await this.find(siteId, t))!;
   }
 }

@@ -1,6 +1,8 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AuditStoreModule } from '../audit/audit-store.module';
 import { BooksModule } from '../books/books.module';
+import { TransactionRunner } from '../common/transaction';
 import { DeclarationsModule } from '../declarations/declarations.module';
 import { KitchenModule } from '../kitchen/kitchen.module';
 import { RulesModule } from '../rules/rules.module';
@@ -16,9 +18,16 @@ import { PublicPageService } from './public-page.service';
  * carries (PublicPageService.ticketUrls, for the labels).
  */
 @Module({
-  imports: [BooksModule, DeclarationsModule, KitchenModule, RulesModule, SequelizeModule.forFeature([PublicPageSettingsModel])],
+  imports: [
+    AuditStoreModule,
+    BooksModule,
+    DeclarationsModule,
+    KitchenModule,
+    RulesModule,
+    SequelizeModule.forFeature([PublicPageSettingsModel]),
+  ],
   controllers: [PublicPageSettingsController, PublicPageController],
-  providers: [PublicPageService, PublicPageSettingsRepository, PublicPageRate],
+  providers: [PublicPageService, PublicPageSettingsRepository, PublicPageRate, TransactionRunner],
   exports: [PublicPageService],
 })
 export class PublicPageModule {}

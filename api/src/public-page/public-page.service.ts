@@ -7,7 +7,9 @@ import {
   type PublicPageSettings,
   type PublicPageSettingsView,
 } from '@crumbproof/shared';
+import { AuditService } from '../audit/audit.service';
 import { BooksService } from '../books/books.service';
+import { TransactionRunner } from '../common/transaction';
 import { DeclarationsService } from '../declarations/declarations.service';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { RulesService } from '../rules/rules.service';
@@ -32,6 +34,8 @@ export class PublicPageService {
     private readonly books: BooksService,
     private readonly declarations: DeclarationsService,
     private readonly rules: RulesService,
+    private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
   ) {}
 
   async settings(): Promise<PublicPageSettingsView> {
@@ -42,7 +46,16 @@ export class PublicPageService {
 
   async saveSettings(body: PublicPageSettings): Promise<PublicPageSettingsView> {
     const site = await this.kitchen.current();
-    const row = await this.settingsRepo.save(site.id, body);
+    const row = await this.tx.run(async (t) => {
+      const before = await this.settingsRepo.find(site.id, t);
+      const saved = await this.settingsRepo.save(site.id, body, t);
+      const after = { enabled: saved.enabled, baseUrl: saved.baseUrl };
+      const summary = `Turned the public product page ${saved.enabled ? `on at ${saved.baseUrl}` : 'off'}.`;
+      const record = { kind: 'public-page-settings', id: site.id };
+      const was = before ? { enabled: before.enabled, baseUrl: before.baseUrl } : null;
+      await this.audit.record({ action: 'public-page.saved', record, summary, before: was, after }, t);
+      return saved;
+    });
     return { enabled: row.enabled, baseUrl: row.baseUrl, updatedAt: row.updatedAt.toISOString() };
   }
 

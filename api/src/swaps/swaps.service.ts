@@ -47,6 +47,11 @@ export class SwapsService {
       { recipes: changed },
       { authorId, note: `Swapped ${from.name} for ${to.name}` },
       'existing',
+      {
+        action: 'swap.applied',
+        record: req.recipe ? { kind: 'recipe', id: req.recipe } : { kind: 'ingredient', id: from.id },
+        summary: `Swapped ${from.name} (${from.id}) for ${to.name} (${to.id}) in ${changed.map((r) => r.name).join(', ')}.`,
+      },
     );
     return { recipes: written };
   }

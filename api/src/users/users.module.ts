@@ -1,15 +1,17 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AuditStoreModule } from '../audit/audit-store.module';
 import { SessionsModule } from '../auth/sessions.module';
+import { TransactionRunner } from '../common/transaction';
 import { UserModel } from './user.model';
 import { UsersController } from './users.controller';
 import { UsersRepository } from './users.repository';
 import { UsersService } from './users.service';
 
 @Module({
-  imports: [SequelizeModule.forFeature([UserModel]), SessionsModule],
+  imports: [SequelizeModule.forFeature([UserModel]), SessionsModule, AuditStoreModule],
   controllers: [UsersController],
-  providers: [UsersService, UsersRepository],
+  providers: [UsersService, UsersRepository, TransactionRunner],
   exports: [UsersService, UsersRepository],
 })
 export class UsersModule {}

@@ -23,8 +23,8 @@ export class UsersRepository {
     return this.users.findOne({ where: { email }, transaction });
   }
 
-  findById(id: number) {
-    return this.users.findByPk(id);
+  findById(id: number, transaction?: Transaction) {
+    return this.users.findByPk(id, { transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
   }
 
   list() {
@@ -41,18 +41,22 @@ export class UsersRepository {
     }
   }
 
-  async update(id: number, changes: Partial<Pick<UserModel, 'name' | 'role' | 'active' | 'passwordHash' | 'demoPassword'>>) {
-    const row = await this.users.findByPk(id);
+  async update(
+    id: number,
+    changes: Partial<Pick<UserModel, 'name' | 'role' | 'active' | 'passwordHash' | 'demoPassword'>>,
+    transaction?: Transaction,
+  ) {
+    const row = await this.users.findByPk(id, { transaction });
     if (!row) return null;
-    return row.update(changes);
+    return row.update(changes, { transaction });
   }
 
   count() {
     return this.users.count();
   }
 
-  countActiveManagers() {
-    return this.users.count({ where: { role: 'manager', active: true } });
+  countActiveManagers(transaction?: Transaction) {
+    return this.users.count({ where: { role: 'manager', active: true }, transaction });
   }
 
   /** Active managers whose password is their own (not the demo kitchen's published one). */

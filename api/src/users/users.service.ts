@@ -2,8 +2,10 @@ import { Injectable } from '@nestjs/common';
 import type { CreateUserRequest, UpdateUserRequest, User } from '@crumbproof/shared';
 import { SessionsRepository } from '../auth/sessions.repository';
 import { SignInLimits } from '../auth/sign-in-limits.repository';
+import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
+import { TransactionRunner } from '../common/transaction';
 import { hashPassword, refuseCommonPassword } from './password';
 import { toUser, UsersRepository } from './users.repository';
 
@@ -13,6 +15,8 @@ export class UsersService {
     private readonly repo: UsersRepository,
     private readonly sessions: SessionsRepository,
     private readonly limits: SignInLimits,
+    private readonly tx: TransactionRunner,
+    private readonly audit: AuditService,
   ) {}
 
   async list(): Promise<User[]> {
@@ -26,13 +30,21 @@ export class UsersService {
         { path: 'email', message: 'A user with that email already exists.' },
       ]);
     }
-    const row = await this.repo.create({
-      email: req.email,
-      name: req.name,
-      role: req.role,
-      passwordHash: await hashPassword(req.password),
+    const passwordHash = await hashPassword(req.password);
+    return this.tx.run(async (t) => {
+      const user = toUser(await this.repo.create({ email: req.email, name: req.name, role: req.role, passwordHash }, t));
+      await this.audit.record(
+        {
+          action: 'user.created',
+          record: { kind: 'user', id: user.id },
+          summary: `Added ${user.name} (${user.email}) as ${user.role}.`,
+          before: null,
+          after: user,
+        },
+        t,
+      );
+      return user;
     });
-    return toUser(row);
   }
 
   /**
@@ -43,20 +55,44 @@ export class UsersService {
   async update(actor: AuthUser, id: number, req: UpdateUserRequest): Promise<User> {
     const actorId = actor.id;
     if (req.password !== undefined) refuseCommonPassword(req.password);
-    const row = await this.repo.findById(id);
-    if (!row) throw new AppError('not-found', `There is no user ${id}.`);
-    const losesManager = row.role === 'manager' && row.active && (req.active === false || (req.role && req.role !== 'manager'));
-    if (losesManager && (await this.repo.countActiveManagers()) <= 1) {
-      throw new AppError('conflict', 'The kitchen needs at least one active manager. Make someone else manager first.');
-    }
-    if (id === actorId && req.active === false) {
-      throw new AppError('conflict', 'You cannot deactivate your own account.');
-    }
-    const updated = await this.repo.update(id, {
-      ...(req.name !== undefined ? { name: req.name } : {}),
-      ...(req.role !== undefined ? { role: req.role } : {}),
-      ...(req.active !== undefined ? { active: req.active } : {}),
-      ...(req.password !== undefined ? { passwordHash: await hashPassword(req.password), demoPassword: false } : {}),
+    const passwordHash = req.password !== undefined ? await hashPassword(req.password) : undefined;
+    const { row, updated } = await this.tx.run(async (t) => {
+      const row = await this.repo.findById(id, t);
+      if (!row) throw new AppError('not-found', `There is no user ${id}.`);
+      const losesManager = row.role === 'manager' && row.active && (req.active === false || (req.role && req.role !== 'manager'));
+      if (losesManager && (await this.repo.countActiveManagers(t)) <= 1) {
+        throw new AppError('conflict', 'The kitchen needs at least one active manager. Make someone else manager first.');
+      }
+      if (id === actorId && req.active === false) {
+        throw new AppError('conflict', 'You cannot deactivate your own account.');
+      }
+      const before = toUser(row);
+      const updated = await this.repo.update(
+        id,
+        {
+          ...(req.name !== undefined ? { name: req.name } : {}),
+          ...(req.role !== undefined ? { role: req.role } : {}),
+          ...(req.active !== undefined ? { active: req.active } : {}),
+          ...(passwordHash !== undefined ? { passwordHash, demoPassword: false } : {}),
+        },
+        t,
+      );
+      const after = toUser(updated!);
+      const changed = [
+        ...(['name', 'role', 'active'] as const).filter((k) => req[k] !== undefined && req[k] !== before[k]),
+        ...(req.password !== undefined ? ['password'] : []),
+      ];
+      await this.audit.record(
+        {
+          action: 'user.updated',
+          record: { kind: 'user', id },
+          summary: `Changed ${before.name} (${before.email}): ${changed.length > 0 ? changed.join(', ') : 'nothing different'}.`,
+          before,
+          after: { ...after, ...(req.password !== undefined ? { passwordChanged: true } : {}) },
+        },
+        t,
+      );
+      return { row: before, updated: after };
     });
     const keep = id === actorId ? actor.sessionId : undefined;
     if (req.active === false) await this.sessions.endAllOf(id, 'deactivated');
@@ -65,6 +101,6 @@ export class UsersService {
       await this.limits.forget(row.email);
     }
     if (req.role !== undefined && req.role !== row.role) await this.sessions.endAllOf(id, 'role-changed', keep);
-    return toUser(updated!);
+    return updated;
   }
 }

@@ -1,6 +1,6 @@
 import type { NestFastifyApplication } from '@nestjs/platform-fastify';
 import { Sequelize } from 'sequelize-typescript';
-import { adminQuery } from './test-app';
+import { createTestDatabase, dropTestDatabase } from './test-app';
 
 export interface SettingsApp {
   app: NestFastifyApplication;
@@ -28,19 +28,15 @@ export async function startAppWith(
     else process.env[k] = v;
   }
   try {
-    if (opts.create !== false) {
-      await adminQuery(`CREATE DATABASE \`${opts.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-    }
+    await createTestDatabase(opts.database, opts.create !== false);
     let built!: { app: NestFastifyApplication; sequelize: Sequelize; issueFirstManagerLink(): Promise<string | null> };
     await jest.isolateModulesAsync(async () => {
       const { createApp } = await import('../../src/app.factory');
-      const { migrateUp } = await import('../../src/database/migrator');
       const { SeedService } = await import('../../src/database/seed.service');
       const { Sequelize: IsolatedSequelize } = await import('sequelize-typescript');
       const { FirstManagerService } = await import('../../src/auth/first-manager.service');
       const app = await createApp({ logLevel: 'silent' });
       const sequelize = app.get(IsolatedSequelize);
-      await migrateUp(sequelize);
       if (opts.seed) await app.get(SeedService).seedDemo();
       built = {
         app,
@@ -53,7 +49,7 @@ export async function startAppWith(
       database: opts.database,
       async close({ keepDatabase = false } = {}) {
         await built.app.close();
-        if (!keepDatabase) await adminQuery(`DROP DATABASE IF EXISTS \`${opts.database}\``);
+        if (!keepDatabase) await dropTestDatabase(opts.database);
       },
     };
   } finally {

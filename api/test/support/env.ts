@@ -1,11 +1,15 @@
 // Runs before each test file: every file gets its own database on the test MariaDB, so files
-// can run in parallel. npm test provides DB_PORT; the other values have test defaults.
+// can run in parallel. npm test provides DB_PORT and the users; the other values have test defaults.
 import { randomBytes } from 'node:crypto';
 
 process.env.DB_HOST ??= '127.0.0.1';
 process.env.DB_PORT ??= '3307';
-process.env.DB_USER ??= 'crumbproof';
-process.env.DB_PASSWORD ??= 'crumbproof-local';
+// Two users, as npm start has them: the owner migrates and grants, the app runs as the runtime
+// user, who may only read and add audit_events rows (api/src/database/runtime-grants.ts).
+process.env.DB_USER ??= 'crumbproof_app';
+process.env.DB_PASSWORD ??= 'crumbproof-app-local';
+process.env.DB_OWNER_USER ??= 'crumbproof';
+process.env.DB_OWNER_PASSWORD ??= 'crumbproof-local';
 process.env.DB_NAME = `crumbproof_test_${process.pid}_${randomBytes(3).toString('hex')}`;
 process.env.JWT_SECRET = 'a-secret-for-the-api-tests-only-0123456789abcdef';
 process.env.LOG_LEVEL = 'silent';

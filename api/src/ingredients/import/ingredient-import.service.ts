@@ -62,7 +62,13 @@ export class IngredientImportService {
     if (preview.problems.length > 0 || bad.length > 0) throw refused(preview.problems, bad);
     const changes = preview.rows.filter((r) => r.action !== 'unchanged').map((r) => r.ingredient!);
     const note = `Imported from ${upload.file!.filename || 'a spreadsheet'}`.slice(0, 300);
-    const written = changes.length > 0 ? await this.books.writeItems({ ingredients: changes }, { authorId, note }, 'any') : [];
+    const { create: created, update: updated } = preview.summary;
+    const audit = {
+      action: 'ingredients.imported' as const,
+      record: { kind: 'spreadsheet', id: (upload.file!.filename || 'a spreadsheet').slice(0, 120) },
+      summary: `${note}: ${created} ingredient${created === 1 ? '' : 's'} added, ${updated} revised.`,
+    };
+    const written = changes.length > 0 ? await this.books.writeItems({ ingredients: changes }, { authorId, note }, 'any', audit) : [];
     return { ...preview.summary, written };
   }
 

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AuditStoreModule } from '../../audit/audit-store.module';
 import { TransactionRunner } from '../../common/transaction';
 import { KitchenModule } from '../../kitchen/kitchen.module';
 import { UsersModule } from '../../users/users.module';
@@ -11,7 +12,7 @@ import { SpecificationsService } from './specifications.service';
 
 /** Supplier specifications of ingredients (/api/ingredients/:code/specifications, /api/specifications/…); part of IngredientsModule. */
 @Module({
-  imports: [IngredientStoreModule, KitchenModule, UsersModule, SequelizeModule.forFeature([SpecificationModel])],
+  imports: [AuditStoreModule, IngredientStoreModule, KitchenModule, UsersModule, SequelizeModule.forFeature([SpecificationModel])],
   controllers: [SpecificationsController],
   providers: [SpecificationsService, SpecificationsRepository, TransactionRunner],
 })

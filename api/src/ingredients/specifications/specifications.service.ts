@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { Injectable, StreamableFile } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { AppError } from '../../common/app-error';
+import { AuditService } from '../../audit/audit.service';
 import { TransactionRunner } from '../../common/transaction';
 import { validationError } from '../../common/zod.pipe';
 import type { Head } from '../../common/revisioned.repository';
@@ -26,6 +27,7 @@ export class SpecificationsService {
     private readonly tx: TransactionRunner,
     private readonly sites: SiteRepository,
     private readonly config: ConfigService<AppConfig, true>,
+    private readonly audit: AuditService,
   ) {}
 
   private async ingredient(code: string): Promise<Head> {
@@ -67,7 +69,7 @@ export class SpecificationsService {
       await this.ingredients.lockHead(ingredient.id, t);
       const stored = await this.repo.storedBytes(kitchen.id, t);
       if (stored + bytes.length > quota * MB) throw overQuota(quota, stored, bytes.length);
-      return this.repo.add(
+      const added = await this.repo.add(
         {
           ingredientId: ingredient.id,
           filename: withExtension(filename, ACCEPTED_SPECIFICATION_TYPES[type.mime], 'specification'),
@@ -81,6 +83,24 @@ export class SpecificationsService {
         },
         t,
       );
+      await this.audit.record(
+        {
+          action: 'specification.uploaded',
+          record: { kind: 'ingredient', id: ingredient.code },
+          summary: `Uploaded the supplier specification ${added.filename} for ${ingredient.code}, to review by ${parsed.data.reviewBy}.`,
+          after: {
+            specification: added.id,
+            filename: added.filename,
+            mediaType: added.mediaType,
+            sizeBytes: added.sizeBytes,
+            sha256: added.sha256,
+            reviewBy: parsed.data.reviewBy,
+            note: parsed.data.note ?? '',
+          },
+        },
+        t,
+      );
+      return added;
     });
     return view(row, ingredient.code, true, today(), await this.uploaders());
   }
