@@ -11,9 +11,8 @@ import demo from './demo-kitchen.json';
 
 /**
  * The demo kitchen's products as the rules engine declares them (UK), and the UK's allergen groups,
- * so the counter's tests classify real declarations. Written by
- * `npm run -s declare -- api/src/database/seeders/demo-book.json` with the groups of
- * reference-data/regimes.json; write it again when the engine's declaration changes.
+ * so the counter's tests classify real declarations. tests/checks/counter-fixture.test.ts keeps the
+ * file equal to the declaration command's output for the demo book, and says how to write it again.
  */
 export const DEMO_REGIME = demo.regime as Regime;
 export const DEMO_RULES = demo.rules as CounterRules;
