@@ -63,6 +63,7 @@ describe('the public product page (real MariaDB)', () => {
 
   it('is turned on by the manager alone, with the address its QR codes point at', async () => {
     expect((await settings({ enabled: true, baseUrl: 'https://menu.example.com' }, chef)).statusCode).toBe(403);
+    expect((await t.app.inject({ method: 'GET', url: '/api/public-page/settings', headers: { cookie: counter } })).statusCode).toBe(403);
     const refused = await settings({ enabled: true, baseUrl: null });
     expect(refused.statusCode).toBe(400);
     expect(refused.json().fields).toEqual([expect.objectContaining({ path: 'baseUrl' })]);

@@ -71,7 +71,7 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'POST /api/counter/questions': [401, 400, 400, 400],
   'GET /api/counter/questions': [401, 404, 404, 404],
   'POST /api/counter/questions/:id/answer': [401, 403, 400, 400],
-  'GET /api/public-page/settings': [401, 403, 403, 404],
+  'GET /api/public-page/settings': [401, 403, 404, 404],
   'PUT /api/public-page/settings': [401, 403, 403, 400],
   // The public product page: no sign-in, and the same page in words for every address that is no published product.
   'GET /p/:code': [404, 404, 404, 404],

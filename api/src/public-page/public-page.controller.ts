@@ -3,7 +3,7 @@ import { dirname, join } from 'node:path';
 import { Body, Controller, Get, Param, Put, Req, Res } from '@nestjs/common';
 import { ApiExcludeEndpoint, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { FastifyReply, FastifyRequest } from 'fastify';
-import { publicPageSettingsSchema, type PublicPageSettings } from '@crumbproof/shared';
+import { KITCHEN_WRITERS, publicPageSettingsSchema, type PublicPageSettings } from '@crumbproof/shared';
 import { Public, Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { notFoundPage, PAGE_FONTS, tooManyPage, type PublicPage } from './public-page-html';
@@ -30,8 +30,11 @@ export class PublicPageSettingsController {
   constructor(private readonly pages: PublicPageService) {}
 
   @Get('settings')
-  @Roles(['manager'])
-  @ApiOperation({ summary: 'Whether the public product page is on, and the address customers reach it at (manager)' })
+  @Roles(KITCHEN_WRITERS)
+  @ApiOperation({
+    summary:
+      'Whether the public product page is on, and the address customers reach it at (manager, pastry chef: the label preview draws its QR codes)',
+  })
   settings() {
     return this.pages.settings();
   }

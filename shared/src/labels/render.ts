@@ -488,11 +488,12 @@ function layBlock(block: Block, widthPt: number, label: LabelText, copy: number,
     const present = block.columns.filter((c) => !emptyColumn(c.blocks, label));
     if (present.length === 0) return { placed: null, shrinkable: false };
     // One column left: its blocks take the whole width, as if the row were not there.
-    if (present.length === 1) {
+    const [only] = present;
+    if (only && present.length === 1) {
       const stack: Content[] = [];
       let height = mmToPt(block.spaceBeforeMm);
       let shrinkable = false;
-      for (const inner of present[0].blocks) {
+      for (const inner of only.blocks) {
         const laid = layBlock(inner, widthPt, label, copy, m, ingredientsPt);
         if ('problem' in laid) return laid;
         shrinkable ||= laid.shrinkable;

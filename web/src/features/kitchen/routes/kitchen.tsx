@@ -5,7 +5,7 @@ import { Panel } from '@/components/ui/panel';
 import { useKitchen } from '@/api/kitchen';
 import { useLabelSettings } from '@/api/label-settings';
 import { KitchenForm } from '../components/kitchen-form';
-import { usePublicPageSettings } from '../api/get-public-page-settings';
+import { usePublicPageSettings } from '@/api/public-page-settings';
 import { LabelSettingsForm } from '../components/label-settings-form';
 import { PublicPageForm } from '../components/public-page-form';
 

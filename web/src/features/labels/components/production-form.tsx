@@ -11,6 +11,7 @@ import {
 import { useQueryClient } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { getDeclarationQueryOptions } from '@/api/declaration';
+import { getPublicPageSettingsQueryOptions } from '@/api/public-page-settings';
 import { RadioInput } from '@/components/ui/choice-inputs';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
@@ -20,6 +21,22 @@ import { runPdfUrl } from '../api/get-label-runs';
 import { usePrintLabels } from '../api/print-labels';
 import { chosenItems, previewPlan, printsBatch, toRunRequest, type RunDraft, type TemplateOption } from '../utils/run-plan';
 import { LabelPreview, RefusalList, type PreviewState } from './label-preview';
+
+/**
+ * The public page's address for a template with a QR code block, while the page is on; null
+ * otherwise; `readable` is false when its settings could not be read (the preview then says so).
+ */
+function usePublicBase() {
+  const queryClient = useQueryClient();
+  return async (template: TemplateOption): Promise<{ base: string | null; readable: boolean }> => {
+    const hasQr = template.blocks.some(
+      (b) => b.type === 'qr' || (b.type === 'row' && b.columns.some((c) => c.blocks.some((x) => x.type === 'qr'))),
+    );
+    if (!hasQr) return { base: null, readable: true };
+    const page = await queryClient.fetchQuery(getPublicPageSettingsQueryOptions()).catch(() => null);
+    return { base: page?.enabled ? page.baseUrl : null, readable: page !== null };
+  };
+}
 
 interface ProductionFormProps {
   products: readonly RecipeView[];
@@ -40,6 +57,7 @@ const TEMPLATE_HINTS: Record<TemplateOption['purpose'], string> = {
 
 /** Today's production: what to print, previewed in the browser, then printed and logged by the API. */
 export function ProductionForm({ products, templates, settings, kitchen, draft, onDraftChange, canOverride }: ProductionFormProps) {
+  const publicBaseFor = usePublicBase();
   const queryClient = useQueryClient();
   const print = usePrintLabels();
   const [search, setSearch] = useState('');
@@ -91,7 +109,10 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
       setPreview({ status: 'blocked', message: 'The allergen chart is drawn by the server: print it to see it.' });
       return;
     }
-    const plan = previewPlan(request, products, settings);
+    const publicBase = await publicBaseFor(template);
+    const plan = previewPlan(request, products, settings, publicBase.base);
+    if (!publicBase.readable)
+      plan.notes.push('QR codes to the public product page are not shown: its settings could not be read. The print carries them.');
     if (plan.blocked) {
       setPreview({ status: 'blocked', message: plan.blocked });
       return;

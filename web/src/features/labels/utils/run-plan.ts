@@ -1,4 +1,4 @@
-import { expandBatchPattern, sscc, type LabelRunRequest, type LabelSettings, type RecipeView } from '@crumbproof/shared';
+import { expandBatchPattern, publicPageUrl, sscc, type LabelRunRequest, type LabelSettings, type RecipeView } from '@crumbproof/shared';
 import type { LabelInput, LabelPrintDetails, LabelTemplate } from '@crumbproof/shared/labels';
 
 /** A template as the API offers it; `printsBatch` says whether its labels carry a batch code. */
@@ -78,8 +78,15 @@ export interface PreviewPlan {
  * The labels of the preview. Batch codes given by hand print as typed; from the kitchen's pattern,
  * the preview shows the first of the day, and the print takes the next free number. Shipment
  * labels show SSCCs from serial 0; the print takes the next serials of the kitchen's counter.
+ * `publicBase` is the public product page's address while the page is on: a published product's
+ * label then carries its page's address, as the print does.
  */
-export function previewPlan(request: LabelRunRequest, products: readonly RecipeView[], settings: LabelSettings): PreviewPlan {
+export function previewPlan(
+  request: LabelRunRequest,
+  products: readonly RecipeView[],
+  settings: LabelSettings,
+  publicBase: string | null = null,
+): PreviewPlan {
   const byId = new Map(products.map((p) => [p.id, p]));
   const notes: string[] = [];
   if (request.shipment && settings.gs1CompanyPrefix === null)
@@ -109,6 +116,7 @@ export function previewPlan(request: LabelRunRequest, products: readonly RecipeV
         productionDate: request.productionDate,
         quantity: item.quantity,
         revision: item.revision ?? product.revision,
+        ...(publicBase !== null && product.sale?.published === true ? { publicUrl: publicPageUrl(publicBase, product.id) } : {}),
         ...(request.shipment && settings.gs1CompanyPrefix !== null
           ? {
               sscc: Array.from({ length: item.quantity }, (_, n) => sscc(settings.ssccExtension, settings.gs1CompanyPrefix!, n)),
