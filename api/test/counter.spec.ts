@@ -277,6 +277,31 @@ describe('the counter (real MariaDB)', () => {
   });
 
   describe('asking the kitchen', () => {
+    it("tells the kitchen's open screens of a new question at once", async () => {
+      const stream = await openStream(port, chef);
+      try {
+        const since = stream.text().length;
+        const asked = await req('POST', '/api/counter/questions', counter, { product: 'vegan-brownie', avoid: ['nuts'] });
+        expect(asked.statusCode).toBe(201);
+        const event = await stream.next('question-asked', since, 1000);
+        expect(event!.data).toEqual({ type: 'question-asked', question: asked.json<CounterQuestionView>().id, product: 'vegan-brownie' });
+      } finally {
+        stream.close();
+      }
+    });
+
+    it('pushes nothing for a question refused (a sub-recipe is not for sale)', async () => {
+      const stream = await openStream(port, chef);
+      try {
+        const since = stream.text().length;
+        const refused = await req('POST', '/api/counter/questions', counter, { product: 'pastry-cream', avoid: ['nuts'] });
+        expect(refused.statusCode).toBe(400);
+        expect(await stream.next('question-asked', since, 500)).toBeNull();
+      } finally {
+        stream.close();
+      }
+    });
+
     it('records a question with who asked, shows it to the kitchen, and the counter sees the answer', async () => {
       const asked = await req('POST', '/api/counter/questions', counter, {
         product: 'strawberry-tart',

@@ -109,12 +109,14 @@ export interface CounterQuestionView {
 /**
  * What an open events stream says: a declaration may have changed (with the ids it touches when
  * they are known: the products for sale made with what was written, and every recipe written, as
- * one just taken off sale leaves the counter; none named means any product), the kitchen answered
- * a question, or the products on sale on a day were marked again.
+ * one just taken off sale leaves the counter; none named means any product), someone asked the
+ * kitchen a question (so the kitchen's screens list it at once), the kitchen answered one, or the
+ * products on sale on a day were marked again.
  */
 export type CounterEvent =
   | { type: 'declarations-changed'; products?: string[] }
+  | { type: 'question-asked'; question: number; product: string }
   | { type: 'question-answered'; question: number; product: string }
   | { type: 'display-changed'; date: string };
 
-export const COUNTER_EVENT_TYPES = ['declarations-changed', 'question-answered', 'display-changed'] as const;
+export const COUNTER_EVENT_TYPES = ['declarations-changed', 'question-asked', 'question-answered', 'display-changed'] as const;

@@ -70,6 +70,7 @@ export class CounterQuestionsService {
       );
       return added;
     });
+    this.events.publish({ type: 'question-asked', question: row.id, product: row.productCode });
     return view(row);
   }
 

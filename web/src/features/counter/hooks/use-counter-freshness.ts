@@ -16,6 +16,7 @@ export function refreshFor(queryClient: QueryClient, event: CounterEvent): void 
       // A recipe page open in this browser reads its declaration again too.
       void queryClient.invalidateQueries({ queryKey: queryKeys.declarations.all() });
       return;
+    case 'question-asked':
     case 'question-answered':
       void queryClient.invalidateQueries({ queryKey: queryKeys.counter.questions() });
       return;

@@ -162,6 +162,19 @@ describe('the counter’s look up', () => {
     expect(await within(card).findByText('No sesame on that bench today.')).toBeInTheDocument();
   });
 
+  it("lists a question on the kitchen's Questions view as soon as it is asked elsewhere", async () => {
+    let asked: CounterQuestionView[] = [];
+    counterApi('pastry-chef', [demoCounterView()], { 'GET /api/counter/questions': () => ({ body: asked }) });
+    renderApp('/counter/questions');
+    await screen.findByRole('heading', { name: 'Counter', level: 1 });
+    FakeEventSource.current().open();
+    expect(await screen.findByText(/^No questions have been asked yet/)).toBeInTheDocument();
+    expect(screen.queryByText('Note: Severe sesame allergy')).toBeNull();
+    asked = [question({ note: 'Severe sesame allergy' })];
+    FakeEventSource.current().push({ type: 'question-asked', question: 7, product: 'vegan-brownie' });
+    expect(await screen.findByText('Note: Severe sesame allergy')).toBeInTheDocument();
+  });
+
   it('refuses to ask the kitchen with no allergen picked, and says so', async () => {
     const { calls } = counterApi('front-of-house', [demoCounterView()]);
     const { user } = renderApp('/counter');
