@@ -91,7 +91,7 @@ export function LookUpView({ view, ask, onAskChange }: LookUpViewProps) {
         <Text role="status" fontSize="lg" color="fg.muted">
           {countsOf(rows)}
         </Text>
-        {/* Beside every verdict, what it rests on (DESIGN.md: never "safe", always "as recorded" with the caution). */}
+        {/* Beside every verdict, what it rests on: never "safe", always "as recorded", with the caution. */}
         {isEmptyAsk(ask) ? null : (
           <Text fontSize="md" borderStartWidth="4px" borderColor="accent.solid" bg="accent.subtle" px="3" py="2" rounded="sm">
             {COUNTER_CAUTION}
