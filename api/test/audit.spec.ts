@@ -48,6 +48,10 @@ const send = (method: Method, url: string, cookie: string | undefined, payload?:
     ...(payload !== undefined ? { payload: payload as Record<string, unknown> } : {}),
   });
 
+/** The revision an editor would load and name as the base of its save. */
+const baseOf = async (kind: 'ingredients' | 'recipes', code: string) =>
+  (await send('GET', `/api/${kind}/${code}`, chef)).json<{ revision: number }>().revision;
+
 const sendForm = async (url: string, cookie: string, fields: Record<string, string>, file: { name: string; bytes: Buffer }) => {
   const form = await multipart(fields, file);
   return t.app.inject({ method: 'POST', url, headers: { ...form.headers, cookie }, payload: form.payload });
@@ -121,8 +125,8 @@ describe('the audit trail is append-only in MariaDB itself', () => {
     await adminQuery(`REVOKE INSERT ON \`${db}\`.\`audit_events\` FROM 'crumbproof_app'@'127.0.0.1'`);
     try {
       const ing = (await send('GET', '/api/ingredients/sea-salt', chef)).json<Record<string, unknown>>();
-      const { revision: _r, updatedAt: _u, ...body } = ing;
-      const res = await send('PUT', '/api/ingredients/sea-salt', chef, { ...body, supplier: 'Never saved' });
+      const { revision, updatedAt: _u, ...body } = ing;
+      const res = await send('PUT', '/api/ingredients/sea-salt', chef, { ...body, supplier: 'Never saved', baseRevision: revision });
       expect(res.statusCode).toBe(500);
     } finally {
       await adminQuery(`GRANT INSERT ON \`${db}\`.\`audit_events\` TO 'crumbproof_app'@'127.0.0.1'`);
@@ -161,12 +165,22 @@ const CASES: WriteCase[] = [
   },
   {
     route: 'PUT /api/ingredients/:code',
-    call: () => send('PUT', '/api/ingredients/audit-cream', chef, { ...ingredient, supplier: 'Audit dairy' }),
+    call: async () =>
+      send('PUT', '/api/ingredients/audit-cream', chef, {
+        ...ingredient,
+        supplier: 'Audit dairy',
+        baseRevision: await baseOf('ingredients', 'audit-cream'),
+      }),
     status: 200,
     actor: 'chef',
     action: 'ingredient.saved',
     record: ['ingredient', 'audit-cream'],
-    refused: () => send('PUT', '/api/ingredients/audit-cream', chef, { ...ingredient, id: 'other-id' }),
+    refused: async () =>
+      send('PUT', '/api/ingredients/audit-cream', chef, {
+        ...ingredient,
+        id: 'other-id',
+        baseRevision: await baseOf('ingredients', 'audit-cream'),
+      }),
   },
   {
     route: 'POST /api/recipes',
@@ -181,12 +195,18 @@ const CASES: WriteCase[] = [
   },
   {
     route: 'PUT /api/recipes/:code',
-    call: () => send('PUT', '/api/recipes/audit-tart', chef, { ...tart, name: 'Audit tart, glazed' }),
+    call: async () =>
+      send('PUT', '/api/recipes/audit-tart', chef, {
+        ...tart,
+        name: 'Audit tart, glazed',
+        baseRevision: await baseOf('recipes', 'audit-tart'),
+      }),
     status: 200,
     actor: 'chef',
     action: 'recipe.saved',
     record: ['recipe', 'audit-tart'],
-    refused: () => send('PUT', '/api/recipes/audit-tart', chef, { ...tart, finishedWeightG: 5000 }),
+    refused: async () =>
+      send('PUT', '/api/recipes/audit-tart', chef, { ...tart, finishedWeightG: 5000, baseRevision: await baseOf('recipes', 'audit-tart') }),
   },
   {
     route: 'POST /api/swaps/apply',
@@ -450,7 +470,8 @@ describe('every route that writes leaves one audit event, in its transaction', (
   it('keeps the previous revision and the new one of an edited item', async () => {
     const mark = await lastId();
     const body = { ...ingredient, supplier: 'Second dairy' };
-    expect((await send('PUT', '/api/ingredients/audit-cream', chef, body)).statusCode).toBe(200);
+    const baseRevision = await baseOf('ingredients', 'audit-cream');
+    expect((await send('PUT', '/api/ingredients/audit-cream', chef, { ...body, baseRevision })).statusCode).toBe(200);
     const [row] = await rowsAfter(mark);
     const { id: _id, ...after } = body;
     expect(row.before).toMatchObject({ name: 'Audit cream', supplier: 'Audit dairy' });
@@ -647,9 +668,10 @@ describe('recall from a batch code', () => {
 
     // The sugar's supplier now declares mustard: the shortbread's declaration changes.
     const sugar = (await send('GET', '/api/ingredients/caster-sugar', chef)).json<Record<string, unknown>>();
-    const { revision: _r, updatedAt: _u, ...body } = sugar;
+    const { revision, updatedAt: _u, ...body } = sugar;
     const saved = await send('PUT', '/api/ingredients/caster-sugar', chef, {
       ...body,
+      baseRevision: revision,
       contains: [...(body.contains as string[]), 'mustard'],
     });
     expect(saved.statusCode).toBe(200);

@@ -175,7 +175,8 @@ describe('the counter (real MariaDB)', () => {
         const walnuts = (await book()).ingredients.find((i) => i.id === 'walnuts')!;
         const since = stream.text().length;
         const changed: BookIngredient = { ...walnuts, mayContain: [...walnuts.mayContain, 'hazelnut'] };
-        const put = await req('PUT', '/api/ingredients/walnuts', chef, changed);
+        const { revision } = (await req('GET', '/api/ingredients/walnuts', chef)).json<{ revision: number }>();
+        const put = await req('PUT', '/api/ingredients/walnuts', chef, { ...changed, baseRevision: revision });
         expect(put.statusCode).toBe(200);
         const event = await stream.next('declarations-changed', since, 1000);
         expect(event).not.toBeNull();
@@ -194,7 +195,11 @@ describe('the counter (real MariaDB)', () => {
       try {
         const jam = (await book()).recipes.find((r) => r.id === 'strawberry-jam')!;
         let since = stream.text().length;
-        expect((await req('PUT', '/api/recipes/strawberry-jam', chef, { ...jam, name: 'Strawberry jam (set)' })).statusCode).toBe(200);
+        const { revision } = (await req('GET', '/api/recipes/strawberry-jam', chef)).json<{ revision: number }>();
+        expect(
+          (await req('PUT', '/api/recipes/strawberry-jam', chef, { ...jam, name: 'Strawberry jam (set)', baseRevision: revision }))
+            .statusCode,
+        ).toBe(200);
         const saved = await stream.next('declarations-changed', since, 1000);
         // The jam itself is named too (a recipe saved may have just been taken off sale).
         expect(saved!.data.type).toBe('declarations-changed');

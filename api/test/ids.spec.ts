@@ -99,10 +99,10 @@ describe('ids compare exactly: a case or accent variant never reaches another it
 
     it('is refused as the address and the id of an ingredient update', async () => {
       await expectRefusedUnchanged(
-        () => send('PUT', `/api/ingredients/${encodeURIComponent(variant)}`, plainIngredient(variant)),
+        () => send('PUT', `/api/ingredients/${encodeURIComponent(variant)}`, { ...plainIngredient(variant), baseRevision: 1 }),
         /^(id|code)$/,
       );
-      await expectRefusedUnchanged(() => send('PUT', '/api/ingredients/sp-case', plainIngredient(variant)), /^id$/);
+      await expectRefusedUnchanged(() => send('PUT', '/api/ingredients/sp-case', { ...plainIngredient(variant), baseRevision: 1 }), /^id$/);
     });
 
     it('is refused as the id of a new recipe that would contain itself, and as a line of a recipe', async () => {
@@ -123,11 +123,12 @@ describe('ids compare exactly: a case or accent variant never reaches another it
             ...product,
             id: productVariant,
             lines: [{ use: 'sp-case-plain', qty: 10, unit: 'g' }],
+            baseRevision: 1,
           }),
         /^(id|code)$/,
       );
       await expectRefusedUnchanged(
-        () => send('PUT', '/api/recipes/sp-case-product', { ...product, lines: [{ use: variant, qty: 10, unit: 'g' }] }),
+        () => send('PUT', '/api/recipes/sp-case-product', { ...product, lines: [{ use: variant, qty: 10, unit: 'g' }], baseRevision: 1 }),
         /^lines\.0\.use$/,
       );
     });
@@ -205,7 +206,7 @@ describe('ids compare exactly: a case or accent variant never reaches another it
   });
 
   it('still writes by the exact id: an update of sp-case is revision 2 of sp-case and nothing else', async () => {
-    const res = await send('PUT', '/api/ingredients/sp-case', { ...milkIngredient, name: 'Case test cream (double)' });
+    const res = await send('PUT', '/api/ingredients/sp-case', { ...milkIngredient, name: 'Case test cream (double)', baseRevision: 1 });
     expect(res.statusCode).toBe(200);
     expect(res.json()).toMatchObject({ id: 'sp-case', revision: 2 });
     const plain = await t.app.inject({ method: 'GET', url: '/api/ingredients/sp-case-plain', headers: { cookie: manager } });

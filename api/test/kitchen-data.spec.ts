@@ -148,8 +148,8 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
 
   it('refuses a recipe that contains itself through a sub-recipe, and saves nothing', async () => {
     const sponge = (await req('GET', '/api/recipes/vanilla-sponge', chef)).json();
-    const { revision: _r, updatedAt: _u, ...body } = sponge;
-    const looped = { ...body, lines: [...body.lines, { use: 'strawberry-layer-cake', qty: 10, unit: 'g' }] };
+    const { revision, updatedAt: _u, ...body } = sponge;
+    const looped = { ...body, lines: [...body.lines, { use: 'strawberry-layer-cake', qty: 10, unit: 'g' }], baseRevision: revision };
     const res = await req('PUT', '/api/recipes/vanilla-sponge', chef, looped);
     expect(res.statusCode).toBe(400);
     expect(res.json().code).toBe('recipe-cycle');
@@ -183,8 +183,14 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     const before = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json<ProductDeclaration>();
     expect(before.claims['dairy-free'].status).toBe('fails');
     const butter = (await req('GET', '/api/ingredients/butter', chef)).json();
-    const { revision: _r, updatedAt: _u, ...body } = butter;
-    const res = await req('PUT', '/api/ingredients/butter', chef, { ...body, name: 'Plant butter', contains: [], vegan: true });
+    const { revision, updatedAt: _u, ...body } = butter;
+    const res = await req('PUT', '/api/ingredients/butter', chef, {
+      ...body,
+      name: 'Plant butter',
+      contains: [],
+      vegan: true,
+      baseRevision: revision,
+    });
     expect(res.statusCode).toBe(200);
     expect(res.json().revision).toBe(butter.revision + 1);
     const after = (await req('GET', '/api/recipes/shortbread/declaration', counter)).json<ProductDeclaration>();
@@ -205,8 +211,8 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
 
   it('keeps a recipe’s revisions with what changed in its declaration', async () => {
     const rec = (await req('GET', '/api/recipes/shortbread', chef)).json();
-    const { revision: _r, updatedAt: _u, ...body } = rec;
-    const withEgg = { ...body, lines: [...body.lines, { use: 'free-range-eggs', qty: 50, unit: 'g' }] };
+    const { revision, updatedAt: _u, ...body } = rec;
+    const withEgg = { ...body, lines: [...body.lines, { use: 'free-range-eggs', qty: 50, unit: 'g' }], baseRevision: revision };
     const ingredients = (await req('GET', '/api/ingredients', chef)).json<{ id: string; contains?: string[] }[]>();
     const egg = ingredients.find((i) => (i.contains ?? []).includes('egg'))!;
     withEgg.lines[withEgg.lines.length - 1].use = egg.id;
@@ -276,10 +282,15 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
 
   it('keeps declaring a product whose QUID names an ingredient no longer in it, with an error that blocks its labels', async () => {
     const rec = (await req('GET', '/api/recipes/lemon-shortbread', chef)).json();
-    const { revision: _r, updatedAt: _u, ...body } = rec;
+    const { revision, updatedAt: _u, ...body } = rec;
     expect(body.sale.quid).toContain('butter');
     // 502 g go in without the butter, so the bake cannot come out at the 640 g it did with it.
-    const withoutButter = { ...body, lines: body.lines.filter((l: { use: string }) => l.use !== 'butter'), finishedWeightG: 480 };
+    const withoutButter = {
+      ...body,
+      lines: body.lines.filter((l: { use: string }) => l.use !== 'butter'),
+      finishedWeightG: 480,
+      baseRevision: revision,
+    };
     const res = await req('PUT', '/api/recipes/lemon-shortbread', chef, withoutButter);
     expect(res.statusCode).toBe(200);
     const d = (await req('GET', '/api/recipes/lemon-shortbread/declaration', counter)).json<ProductDeclaration>();
@@ -317,7 +328,7 @@ describe('two writes at once (real MariaDB)', () => {
         method: 'PUT',
         url: `/api/recipes/${id}`,
         headers: { cookie: chef },
-        payload: { id, name: id, lines: [...base.lines, { use: other, qty: 5, unit: 'g' }] },
+        payload: { id, name: id, lines: [...base.lines, { use: other, qty: 5, unit: 'g' }], baseRevision: 1 },
       });
     const [a, b] = await Promise.all([put('alpha-crumb', 'beta-crumb'), put('beta-crumb', 'alpha-crumb')]);
     expect([a.statusCode, b.statusCode].sort()).toEqual([200, 400]);

@@ -320,7 +320,11 @@ describe('label runs and the print log (real MariaDB)', () => {
       });
       const before = await tableChecksums(t.sequelize);
       // 952123400003 has the check digit 7 (GS1 modulo 10); 4 is wrong.
-      const res = await req('PUT', '/api/recipes/vegan-brownie', chef, { ...brownie, sale: { ...brownie.sale, gtin: '9521234000034' } });
+      const res = await req('PUT', '/api/recipes/vegan-brownie', chef, {
+        ...brownie,
+        sale: { ...brownie.sale, gtin: '9521234000034' },
+        baseRevision: await revisionOf('vegan-brownie'),
+      });
       expect(res.statusCode).toBe(400);
       expect(res.json().fields).toEqual([expect.objectContaining({ path: 'sale.gtin', message: expect.stringMatching(/should be 7/) })]);
       expect(await tableChecksums(t.sequelize)).toEqual(before);
@@ -354,7 +358,7 @@ describe('label runs and the print log (real MariaDB)', () => {
     const book = (await req('GET', '/api/book', chef)).json<Book>();
     const shortbread = book.recipes.find((r) => r.id === 'lemon-shortbread')!;
     const changed: BookRecipe = { ...shortbread, sale: { ...shortbread.sale!, storage: 'Store in an airtight tin.' } };
-    expect((await req('PUT', '/api/recipes/lemon-shortbread', chef, changed)).statusCode).toBe(200);
+    expect((await req('PUT', '/api/recipes/lemon-shortbread', chef, { ...changed, baseRevision: revision })).statusCode).toBe(200);
     expect(await revisionOf('lemon-shortbread')).toBe(revision + 1);
     const logged = (await req('GET', `/api/labels/runs?product=lemon-shortbread&from=2026-12-06&to=2026-12-06`, chef)).json<LabelRun[]>();
     expect(logged.map((r) => [r.id, r.current])).toEqual([[first.id, false]]);

@@ -95,9 +95,9 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   it('after an ingredient is revised, shows its new revision, a later computation and the allergen it brings', async () => {
     const before = await served('basis-biscuit');
     const spread = (await req('GET', '/api/ingredients/basis-spread', chef)).json();
-    const { revision: _r, updatedAt: _u, ...body } = spread;
+    const { revision, updatedAt: _u, ...body } = spread;
     // The supplier's new specification states soya.
-    const res = await req('PUT', '/api/ingredients/basis-spread', chef, { ...body, contains: ['soy'] });
+    const res = await req('PUT', '/api/ingredients/basis-spread', chef, { ...body, contains: ['soy'], baseRevision: revision });
     expect(res.statusCode).toBe(200);
     const after = await served('basis-biscuit');
     expect(after.basis.items.find((i) => i.id === 'basis-spread')!.revision).toBe(2);

@@ -1,4 +1,6 @@
 import type { Unit } from './allergens';
+import type { BookIngredient, BookRecipe } from './book';
+import type { ItemChange } from './item-diff';
 
 /**
  * Every error the API returns has this body. `code` is stable for programs,
@@ -12,6 +14,56 @@ export interface ApiErrorBody {
   fields?: FieldError[];
   /** Sent with recipe-cycle, unknown-reference, unweighable-line and duplicate-id: every problem found, not only the first. */
   problems?: BookProblem[];
+  /** Sent with stale-base: the saves made since the revision the editor started from. */
+  stale?: StaleBase;
+  /** Sent with stale-preview: every row of the spreadsheet whose ingredient changed since the preview. */
+  staleRows?: StaleImportRow[];
+}
+
+/** A save someone else made after the revision an editor started from. */
+export interface OtherSave {
+  revision: number;
+  authorId: number | null;
+  /** Null when the save has no author (an import from the command line) or the account is gone. */
+  authorName: string | null;
+  /** ISO 8601. */
+  savedAt: string;
+  note: string;
+  /** What this save changed against the revision before it. */
+  changes: ItemChange[];
+}
+
+/**
+ * A save refused because the item was saved by someone else since the editor loaded it
+ * (code stale-base, 409). Nothing was saved; the editor shows who changed what.
+ */
+export interface StaleBase {
+  kind: 'ingredient' | 'recipe';
+  id: string;
+  name: string;
+  /** The revision the editor started from (baseRevision of the request). */
+  baseRevision: number;
+  currentRevision: number;
+  /** Every save after the base, oldest first. */
+  saves: OtherSave[];
+  /** What all of them changed together, from the base to the current revision. */
+  changes: ItemChange[];
+  /** The item as it stands now: its current revision, which a new save must name as its base. */
+  current: BookIngredient | BookRecipe;
+}
+
+/** A spreadsheet row whose ingredient was created or revised after the preview (code stale-preview, 409). */
+export interface StaleImportRow {
+  /** The spreadsheet's row number, as the preview named it. */
+  row: number;
+  id: string;
+  /** The revision the preview compared against; null when the ingredient did not exist then. */
+  previewRevision: number | null;
+  /** The revision now; null when the ingredient no longer exists. */
+  currentRevision: number | null;
+  /** Who saved the current revision and when (ISO 8601); null when nobody is recorded. */
+  authorName: string | null;
+  savedAt: string | null;
 }
 export interface FieldError {
   path: string;
@@ -24,6 +76,8 @@ export const ERROR_CODES = [
   'forbidden',
   'not-found',
   'conflict',
+  'stale-base',
+  'stale-preview',
   'too-many-requests',
   'too-large',
   'recipe-cycle',

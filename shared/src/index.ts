@@ -8,6 +8,7 @@ export * from './book';
 export * from './nutrition';
 export * from './declaration';
 export * from './declaration-diff';
+export * from './item-diff';
 export * from './product-declaration';
 export * from './round';
 export * from './source-entry';

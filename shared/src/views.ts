@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { itemId, type BookIngredient, type BookRecipe } from './book';
+import { bookIngredientSchema, bookRecipeSchema, itemId, type BookIngredient, type BookRecipe } from './book';
 import type { Declaration } from './declaration';
 import type { DeclarationDiff } from './declaration-diff';
 
@@ -7,6 +7,26 @@ import type { DeclarationDiff } from './declaration-diff';
  * What the API sends for the kitchen's items, revisions and the swap check: one definition for
  * the API that builds them and the web app that reads them.
  */
+
+/**
+ * The revision an editor loaded and changed: a save of an existing item names it, and is refused
+ * (stale-base) when the item has a later revision, so that no save replaces one it has not seen.
+ */
+export const baseRevisionSchema = z
+  .number({ error: 'Give baseRevision: the revision you started editing from, a whole number from 1.' })
+  .int('Give baseRevision as a whole number.')
+  .min(1, 'Give baseRevision as a revision number from 1.')
+  .meta({
+    description: 'The revision the editor loaded and changed. A later revision saved by someone else refuses the save (409 stale-base).',
+  });
+
+/** PUT /api/ingredients/:code: the ingredient, and the revision the editor started from. */
+export const ingredientSaveSchema = bookIngredientSchema.extend({ baseRevision: baseRevisionSchema });
+export type IngredientSave = z.infer<typeof ingredientSaveSchema>;
+
+/** PUT /api/recipes/:code: the recipe, and the revision the editor started from. */
+export const recipeSaveSchema = bookRecipeSchema.extend({ baseRevision: baseRevisionSchema });
+export type RecipeSave = z.infer<typeof recipeSaveSchema>;
 
 /** An ingredient as listed: its current revision's body with the revision number. */
 export type IngredientView = BookIngredient & { revision: number; updatedAt: string };

@@ -5,6 +5,7 @@ import { IngredientStoreModule } from '../ingredients/ingredient-store.module';
 import { KitchenModule } from '../kitchen/kitchen.module';
 import { RecipeStoreModule } from '../recipes/recipe-store.module';
 import { RulesModule } from '../rules/rules.module';
+import { UsersModule } from '../users/users.module';
 import { BooksController } from './books.controller';
 import { BooksService } from './books.service';
 
@@ -15,7 +16,7 @@ import { BooksService } from './books.service';
  * RecipesModule, which write through this one.
  */
 @Module({
-  imports: [AuditStoreModule, KitchenModule, IngredientStoreModule, RecipeStoreModule, RulesModule],
+  imports: [AuditStoreModule, KitchenModule, IngredientStoreModule, RecipeStoreModule, RulesModule, UsersModule],
   controllers: [BooksController],
   providers: [BooksService, TransactionRunner],
   exports: [BooksService],

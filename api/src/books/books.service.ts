@@ -7,6 +7,10 @@ import {
   type BookProblem,
   type BookRecipe,
   type FieldError,
+  type OtherSave,
+  type StaleBase,
+  diffIngredient,
+  diffRecipe,
 } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { AuditService, type AuditEntry } from '../audit/audit.service';
@@ -17,6 +21,7 @@ import { IngredientsRepository } from '../ingredients/ingredients.repository';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { SiteRepository, type SiteRow } from '../kitchen/site.repository';
 import { RecipesRepository } from '../recipes/recipes.repository';
+import { UsersRepository } from '../users/users.repository';
 import { atThresholdPrecision, compare } from '../rules/core/compare';
 import { sameData } from '../rules/core/same-data';
 import { buildTree } from '../rules/core/tree';
@@ -43,6 +48,12 @@ export interface KitchenState {
   /** Every ingredient and recipe by its id in the book. */
   heads: Map<string, ItemHead>;
 }
+
+/**
+ * Run inside a write's lock, on the kitchen as it stands, before anything is written: it throws to
+ * refuse the write (an editor's base revision or a spreadsheet preview that is no longer current).
+ */
+export type WriteCheck = (state: KitchenState, t: Transaction) => Promise<void>;
 
 /** Told, after a write has been saved, the ids of the recipes it wrote. */
 export type RecipesWrittenListener = (ids: readonly string[]) => Promise<void>;
@@ -78,6 +89,7 @@ export class BooksService {
     private readonly rules: RulesService,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
+    private readonly users: UsersRepository,
   ) {}
 
   /**
@@ -272,10 +284,14 @@ export class BooksService {
     expect: 'new' | 'existing' | 'any',
     /** The write's one audit event (a swap, an import); left out, an editor's save of its one item. */
     audit?: Pick<AuditEntry, 'action' | 'record' | 'summary'>,
+    /** Refuses the write when what it was prepared from is no longer current. */
+    check?: WriteCheck,
   ): Promise<{ id: string; revision: number }[]> {
     const written = await this.tx.run(async (t) => {
       await this.sites.lock(t);
-      const { site, book } = await this.state(t);
+      const state = await this.state(t);
+      const { site, book } = state;
+      if (check) await check(state, t);
       this.assertDistinctIds(book.site, changes);
       const all = new Set([...book.ingredients, ...book.recipes].map((x) => x.id));
       for (const [kind, items, own] of [
@@ -322,16 +338,88 @@ export class BooksService {
     return written;
   }
 
+  /**
+   * An editor's save of one item. A new one (expect 'new') has no base; an existing one names the
+   * revision the editor started from, and is refused (stale-base, nothing saved) when someone
+   * else saved the item since: the refusal says who saved which revision when, and what changed.
+   */
   async writeItem(
     kind: 'ingredient' | 'recipe',
     item: BookIngredient | BookRecipe,
     meta: { authorId: number | null; note: string },
-    expect: 'new' | 'existing',
+    expect: { new: true } | { baseRevision: number },
   ): Promise<number> {
     const changes = kind === 'ingredient' ? { ingredients: [item as BookIngredient] } : { recipes: [item as BookRecipe] };
-    const [written] = await this.writeItems(changes, meta, expect);
+    const check: WriteCheck | undefined =
+      'baseRevision' in expect ? (state, t) => this.assertBase(kind, item.id, expect.baseRevision, state, t) : undefined;
+    const [written] = await this.writeItems(changes, meta, 'new' in expect ? 'new' : 'existing', undefined, check);
     return written.revision;
   }
+
+  /** Every write checks its base against the current revision inside the kitchen's lock: no save replaces one it has not seen. */
+  private async assertBase(kind: 'ingredient' | 'recipe', id: string, base: number, state: KitchenState, t: Transaction): Promise<void> {
+    const head = state.heads.get(id);
+    // An id that is not this kind's is refused by the write itself, as not found or as used.
+    if (!head || head.kind !== kind || head.revision === base) return;
+    if (base > head.revision) {
+      throw new AppError(
+        'validation',
+        `The ${kind} '${id}' has no revision ${base}: its current revision is ${head.revision}. Reload it, then save again.`,
+        [{ path: 'baseRevision', message: `There is no revision ${base}; the current one is ${head.revision}.` }],
+      );
+    }
+    const stale = await this.staleBase(kind, id, base, head, t);
+    const last = stale.saves[stale.saves.length - 1];
+    const who = (save: OtherSave) => save.authorName ?? 'someone without a kitchen account';
+    const what = stale.changes.length > 0 ? stale.changes.map((c) => c.text).join(' ') : 'No field changed.';
+    throw new AppError(
+      'stale-base',
+      `Someone else saved this ${kind} while you were editing: ${who(last)} saved revision ${last.revision} at ${savedAtWords(last.savedAt)}` +
+        `${stale.saves.length > 1 ? ` (${stale.saves.length} saves since your revision ${base})` : ''}. ${what} ` +
+        `Nothing was saved. Reload their version, or copy your values over theirs and save again.`,
+      undefined,
+      undefined,
+      { stale },
+    );
+  }
+
+  /** The saves of an item after `base`, each with what it changed, and what they changed together. */
+  private async staleBase(kind: 'ingredient' | 'recipe', id: string, base: number, head: ItemHead, t: Transaction): Promise<StaleBase> {
+    const revisions =
+      kind === 'ingredient'
+        ? await this.ingredients.revisionsFrom(head.rowId, base, t)
+        : await this.recipes.revisionsFrom(head.rowId, base, t);
+    const diff = (before: (typeof revisions)[number]['body'], after: (typeof revisions)[number]['body']) =>
+      kind === 'ingredient'
+        ? diffIngredient(before as Omit<BookIngredient, 'id'>, after as Omit<BookIngredient, 'id'>)
+        : diffRecipe(before as Omit<BookRecipe, 'id'>, after as Omit<BookRecipe, 'id'>);
+    const names = new Map((await this.users.list()).map((u) => [u.id, u.name]));
+    const [first, ...later] = revisions;
+    const saves = later.map((r, i) => ({
+      revision: r.revision,
+      authorId: r.authorId,
+      authorName: r.authorId ? (names.get(r.authorId) ?? null) : null,
+      savedAt: r.createdAt.toISOString(),
+      note: r.note,
+      changes: diff(i === 0 ? first.body : later[i - 1].body, r.body),
+    }));
+    const current = revisions[revisions.length - 1];
+    return {
+      kind,
+      id,
+      name: current.body.name,
+      baseRevision: base,
+      currentRevision: head.revision,
+      saves,
+      changes: diff(first.body, current.body),
+      current: { id, ...current.body },
+    };
+  }
+}
+
+/** "2026-12-02 15:50 UTC": when a save was made, as a refusal's message says it. */
+function savedAtWords(iso: string): string {
+  return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 }
 
 /**

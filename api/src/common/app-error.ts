@@ -1,4 +1,4 @@
-import type { BookProblem, ErrorCode, FieldError } from '@crumbproof/shared';
+import type { BookProblem, ErrorCode, FieldError, StaleBase, StaleImportRow } from '@crumbproof/shared';
 
 /**
  * The one error type services throw; the exception filter maps its code to HTTP. `fields` name
@@ -10,6 +10,8 @@ export class AppError extends Error {
     message: string,
     readonly fields?: FieldError[],
     readonly problems?: BookProblem[],
+    /** What a stale-base or stale-preview refusal shows: the other saves, or the rows that changed. */
+    readonly stale?: { stale?: StaleBase; staleRows?: StaleImportRow[] },
   ) {
     super(message);
   }
@@ -32,6 +34,8 @@ export function httpStatusOf(code: ErrorCode): number {
     case 'not-found':
       return 404;
     case 'conflict':
+    case 'stale-base':
+    case 'stale-preview':
       return 409;
     case 'too-many-requests':
       return 429;

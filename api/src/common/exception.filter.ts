@@ -42,6 +42,8 @@ export class ApiExceptionFilter implements ExceptionFilter {
         message: exception.message,
         ...(exception.fields ? { fields: exception.fields } : {}),
         ...(exception.problems ? { problems: exception.problems } : {}),
+        ...(exception.stale?.stale ? { stale: exception.stale.stale } : {}),
+        ...(exception.stale?.staleRows ? { staleRows: exception.stale.staleRows } : {}),
       };
     }
     if (exception instanceof HttpException) {

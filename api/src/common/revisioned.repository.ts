@@ -1,4 +1,4 @@
-import type { ModelStatic, Transaction, WhereOptions } from 'sequelize';
+import { Op, type ModelStatic, type Transaction, type WhereOptions } from 'sequelize';
 import type { Model } from 'sequelize-typescript';
 import { AppError } from './app-error';
 import { parseJson } from './json-column';
@@ -129,6 +129,18 @@ export class RevisionedRepository<B extends { name: string }> {
     const found = await this.exactHead({ siteId }, code);
     if (!found) return null;
     const revs = await this.revisions.findAll({ where: { [this.foreignKey]: headRow(found).id }, order: [['revision', 'DESC']] });
+    return revs
+      .map(revisionRow)
+      .map((r) => ({ revision: r.revision, body: parseJson(r.body), note: r.note, authorId: r.authorId, createdAt: r.createdAt }));
+  }
+
+  /** The revisions of an item from `from` on, oldest first, read in the write's transaction. */
+  async revisionsFrom(headId: number, from: number, t: Transaction): Promise<RevisionRow<B>[]> {
+    const revs = await this.revisions.findAll({
+      where: { [this.foreignKey]: headId, revision: { [Op.gte]: from } },
+      order: [['revision', 'ASC']],
+      transaction: t,
+    });
     return revs
       .map(revisionRow)
       .map((r) => ({ revision: r.revision, body: parseJson(r.body), note: r.note, authorId: r.authorId, createdAt: r.createdAt }));

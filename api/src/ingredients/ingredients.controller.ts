@@ -1,7 +1,7 @@
 import { Body, Controller, Get, HttpCode, Param, Post, Put, Query, Res } from '@nestjs/common';
 import type { FastifyReply } from 'fastify';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { bookIngredientSchema, KITCHEN_WRITERS, type BookIngredient } from '@crumbproof/shared';
+import { bookIngredientSchema, ingredientSaveSchema, KITCHEN_WRITERS, type BookIngredient, type IngredientSave } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { ItemCodePipe } from '../common/item-code.pipe';
 import { Roles } from '../common/roles.decorator';
@@ -52,11 +52,11 @@ export class IngredientsController {
 
   @Put(':code')
   @ApiOperation({ summary: 'Save an ingredient as a new revision' })
-  @ApiZodBody(bookIngredientSchema)
+  @ApiZodBody(ingredientSaveSchema, 'The ingredient with baseRevision, the revision the editor started from')
   update(
     @CurrentUser() user: AuthUser,
     @Param('code', ItemCodePipe) code: string,
-    @Body(new ZodPipe(bookIngredientSchema)) body: BookIngredient,
+    @Body(new ZodPipe(ingredientSaveSchema)) body: IngredientSave,
   ) {
     return this.ingredients.update(code, body, user.id);
   }

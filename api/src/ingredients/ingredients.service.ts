@@ -1,5 +1,12 @@
 import { Injectable } from '@nestjs/common';
-import { ALLERGEN_SOURCES, sourceOf, type BookIngredient, type IngredientRevisionView, type IngredientView } from '@crumbproof/shared';
+import {
+  ALLERGEN_SOURCES,
+  sourceOf,
+  type BookIngredient,
+  type IngredientSave,
+  type IngredientRevisionView,
+  type IngredientView,
+} from '@crumbproof/shared';
 import { z } from 'zod';
 import { AppError } from '../common/app-error';
 import type { Page } from '../common/total-count';
@@ -75,16 +82,18 @@ export class IngredientsService {
   }
 
   async create(item: BookIngredient, authorId: number) {
-    await this.books.writeItem('ingredient', item, { authorId, note: 'Created' }, 'new');
+    await this.books.writeItem('ingredient', item, { authorId, note: 'Created' }, { new: true });
     return this.get(item.id);
   }
 
-  async update(code: string, item: BookIngredient, authorId: number, note?: string) {
+  /** Saves a new revision of an existing ingredient; refused (stale-base) when `save.baseRevision` is no longer its current revision. */
+  async update(code: string, save: IngredientSave, authorId: number, note?: string) {
+    const { baseRevision, ...item } = save;
     if (item.id !== code)
       throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [
         { path: 'id', message: 'Must match the address.' },
       ]);
-    await this.books.writeItem('ingredient', item, { authorId, note: note ?? 'Edited' }, 'existing');
+    await this.books.writeItem('ingredient', item, { authorId, note: note ?? 'Edited' }, { baseRevision });
     return this.get(code);
   }
 }

@@ -1,6 +1,15 @@
 import { Body, Controller, Get, HttpCode, Param, Post, Put, Query } from '@nestjs/common';
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
-import { bookRecipeSchema, KITCHEN_WRITERS, REGIMES, ROLES, type BookRecipe, type Regime } from '@crumbproof/shared';
+import {
+  bookRecipeSchema,
+  recipeSaveSchema,
+  KITCHEN_WRITERS,
+  REGIMES,
+  ROLES,
+  type BookRecipe,
+  type RecipeSave,
+  type Regime,
+} from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { ItemCodePipe } from '../common/item-code.pipe';
 import { Roles } from '../common/roles.decorator';
@@ -62,8 +71,8 @@ export class RecipesController {
   @Put(':code')
   @Roles(KITCHEN_WRITERS)
   @ApiOperation({ summary: 'Save a recipe as a new revision; refused if it cannot be declared' })
-  @ApiZodBody(bookRecipeSchema)
-  update(@CurrentUser() user: AuthUser, @Param('code', ItemCodePipe) code: string, @Body(new ZodPipe(bookRecipeSchema)) body: BookRecipe) {
+  @ApiZodBody(recipeSaveSchema, 'The recipe with baseRevision, the revision the editor started from')
+  update(@CurrentUser() user: AuthUser, @Param('code', ItemCodePipe) code: string, @Body(new ZodPipe(recipeSaveSchema)) body: RecipeSave) {
     return this.recipes.update(code, body, user.id);
   }
 }

@@ -1,5 +1,12 @@
 import { Injectable } from '@nestjs/common';
-import { diffDeclarations, type BookRecipe, type RecipeRevisionView, type RecipeView, type Regime } from '@crumbproof/shared';
+import {
+  diffDeclarations,
+  type BookRecipe,
+  type RecipeSave,
+  type RecipeRevisionView,
+  type RecipeView,
+  type Regime,
+} from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { usedIn } from '../rules/core/book-graph';
 import { BooksService } from '../books/books.service';
@@ -71,16 +78,18 @@ export class RecipesService {
   }
 
   async create(item: BookRecipe, authorId: number) {
-    await this.books.writeItem('recipe', item, { authorId, note: 'Created' }, 'new');
+    await this.books.writeItem('recipe', item, { authorId, note: 'Created' }, { new: true });
     return this.get(item.id);
   }
 
-  async update(code: string, item: BookRecipe, authorId: number, note?: string) {
+  /** Saves a new revision of an existing recipe; refused (stale-base) when `save.baseRevision` is no longer its current revision. */
+  async update(code: string, save: RecipeSave, authorId: number, note?: string) {
+    const { baseRevision, ...item } = save;
     if (item.id !== code)
       throw new AppError('validation', `The body's id '${item.id}' does not match '${code}'.`, [
         { path: 'id', message: 'Must match the address.' },
       ]);
-    await this.books.writeItem('recipe', item, { authorId, note: note ?? 'Edited' }, 'existing');
+    await this.books.writeItem('recipe', item, { authorId, note: note ?? 'Edited' }, { baseRevision });
     return this.get(code);
   }
 }

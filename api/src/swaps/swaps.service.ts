@@ -42,7 +42,8 @@ export class SwapsService {
 
   /** Writes new revisions of every changed recipe in one transaction; each keeps the declaration it was saved with. */
   async apply(req: SwapRequest, authorId: number): Promise<SwapApplied> {
-    const { from, to, changed } = this.plan(await this.books.exportBook(), req);
+    const planned = await this.books.state();
+    const { from, to, changed } = this.plan(planned.book, req);
     const written = await this.books.writeItems(
       { recipes: changed },
       { authorId, note: `Swapped ${from.name} for ${to.name}` },
@@ -51,6 +52,16 @@ export class SwapsService {
         action: 'swap.applied',
         record: req.recipe ? { kind: 'recipe', id: req.recipe } : { kind: 'ingredient', id: from.id },
         summary: `Swapped ${from.name} (${from.id}) for ${to.name} (${to.id}) in ${changed.map((r) => r.name).join(', ')}.`,
+      },
+      // A recipe saved between the plan and the write would be replaced unseen: refuse instead.
+      (now) => {
+        const moved = changed.filter((r) => now.heads.get(r.id)?.revision !== planned.heads.get(r.id)?.revision);
+        if (moved.length > 0)
+          throw new AppError(
+            'conflict',
+            `${moved.map((r) => r.name).join(', ')} ${moved.length === 1 ? 'was' : 'were'} saved while the swap was being applied. Nothing was saved; check the swap again.`,
+          );
+        return Promise.resolve();
       },
     );
     return { recipes: written };
