@@ -92,10 +92,13 @@ export function diffIngredient(before: IngredientBody, after: IngredientBody): I
   ].filter((c): c is ItemChange => c !== null);
 }
 
-const lineWords = (line: RecipeLine) => `${line.use} ${number(line.qty)} ${line.unit}${line.role === 'contact' ? ' (contact only)' : ''}`;
+/** The name of an ingredient or recipe a line uses; undefined when it is not known (the id is said instead). */
+export type NameOf = (id: string) => string | undefined;
 
-/** The lines of a recipe, by what they use: "added butter 50 g; butter 50 g → 60 g; removed egg 1 each". */
-function lines(before: RecipeLine[], after: RecipeLine[]): ItemChange | null {
+/** The lines of a recipe, by what they use: "added Butter 50 g; Butter 50 g → 60 g; removed Eggs 1 each". */
+function lines(before: RecipeLine[], after: RecipeLine[], nameOf: NameOf): ItemChange | null {
+  const lineWords = (line: RecipeLine) =>
+    `${nameOf(line.use) ?? line.use} ${number(line.qty)} ${line.unit}${line.role === 'contact' ? ' (contact only)' : ''}`;
   const b = before.map(lineWords);
   const a = after.map(lineWords);
   if (b.join('\n') === a.join('\n')) return null;
@@ -133,11 +136,11 @@ function sale(before: Sale | undefined, after: Sale | undefined): (ItemChange | 
   ];
 }
 
-/** Every change between two revisions of a recipe, in the editor's order. */
-export function diffRecipe(before: RecipeBody, after: RecipeBody): ItemChange[] {
+/** Every change between two revisions of a recipe, in the editor's order; its lines name what they use by `nameOf`. */
+export function diffRecipe(before: RecipeBody, after: RecipeBody, nameOf: NameOf = () => undefined): ItemChange[] {
   return [
     change('name', 'Name', text(before.name), text(after.name)),
-    lines(before.lines, after.lines),
+    lines(before.lines, after.lines, nameOf),
     change('finishedWeightG', 'Finished weight', amount(before.finishedWeightG, 'g'), amount(after.finishedWeightG, 'g')),
     ...sale(before.sale, after.sale),
   ].filter((c): c is ItemChange => c !== null);

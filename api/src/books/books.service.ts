@@ -368,7 +368,7 @@ export class BooksService {
         [{ path: 'baseRevision', message: `There is no revision ${base}; the current one is ${head.revision}.` }],
       );
     }
-    const stale = await this.staleBase(kind, id, base, head, t);
+    const stale = await this.staleBase(kind, id, base, state, t);
     const last = stale.saves[stale.saves.length - 1];
     const who = (save: OtherSave) => save.authorName ?? 'someone without a kitchen account';
     const what = stale.changes.length > 0 ? stale.changes.map((c) => c.text).join(' ') : 'No field changed.';
@@ -384,7 +384,15 @@ export class BooksService {
   }
 
   /** The saves of an item after `base`, each with what it changed, and what they changed together. */
-  private async staleBase(kind: 'ingredient' | 'recipe', id: string, base: number, head: ItemHead, t: Transaction): Promise<StaleBase> {
+  private async staleBase(
+    kind: 'ingredient' | 'recipe',
+    id: string,
+    base: number,
+    state: KitchenState,
+    t: Transaction,
+  ): Promise<StaleBase> {
+    const head = state.heads.get(id)!;
+    const names = new Map([...state.book.ingredients, ...state.book.recipes].map((x) => [x.id, x.name]));
     const revisions =
       kind === 'ingredient'
         ? await this.ingredients.revisionsFrom(head.rowId, base, t)
@@ -392,13 +400,13 @@ export class BooksService {
     const diff = (before: (typeof revisions)[number]['body'], after: (typeof revisions)[number]['body']) =>
       kind === 'ingredient'
         ? diffIngredient(before as Omit<BookIngredient, 'id'>, after as Omit<BookIngredient, 'id'>)
-        : diffRecipe(before as Omit<BookRecipe, 'id'>, after as Omit<BookRecipe, 'id'>);
-    const names = new Map((await this.users.list()).map((u) => [u.id, u.name]));
+        : diffRecipe(before as Omit<BookRecipe, 'id'>, after as Omit<BookRecipe, 'id'>, (use) => names.get(use));
+    const authors = new Map((await this.users.list()).map((u) => [u.id, u.name]));
     const [first, ...later] = revisions;
     const saves = later.map((r, i) => ({
       revision: r.revision,
       authorId: r.authorId,
-      authorName: r.authorId ? (names.get(r.authorId) ?? null) : null,
+      authorName: r.authorId ? (authors.get(r.authorId) ?? null) : null,
       savedAt: r.createdAt.toISOString(),
       note: r.note,
       changes: diff(i === 0 ? first.body : later[i - 1].body, r.body),

@@ -86,7 +86,7 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     for (const key of independent) queryClient.setQueryData(key, { cached: true });
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] } }));
+    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }));
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
 
     for (const key of dependent) expect(queryClient.getQueryData(key), JSON.stringify(key)).toBeUndefined();
@@ -106,7 +106,7 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     await waitFor(() => expect(pending).toHaveLength(1));
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] } }));
+    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }));
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
     // The write dropped the read in flight and asked again.
     await waitFor(() => expect(pending).toHaveLength(2));
@@ -131,7 +131,7 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     queryClient.setQueryData(queryKeys.ingredients.one('spelt-flour'), SPELT);
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, name: '' } }));
+    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, name: '' }, baseRevision: SPELT.revision }));
     await waitFor(() => expect(result.current.isError).toBe(true));
 
     expect(queryClient.getQueryData(queryKeys.declarations.product('loaf', undefined))).toEqual(declaring('gluten'));
@@ -144,7 +144,7 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     queryClient.setQueryData(queryKeys.ingredients.one('spelt-flour'), SPELT);
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] } }));
+    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }));
     await waitFor(() => expect(result.current.isError).toBe(true));
 
     expect(queryClient.getQueryData(queryKeys.declarations.product('loaf', undefined))).toBeUndefined();

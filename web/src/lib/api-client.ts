@@ -1,4 +1,4 @@
-import type { ApiErrorBody, BookProblem, ErrorCode, FieldError } from '@crumbproof/shared';
+import type { ApiErrorBody, BookProblem, ErrorCode, FieldError, StaleBase, StaleImportRow } from '@crumbproof/shared';
 
 /** Codes the browser adds to the API's own: the request never arrived, or the answer was unreadable. */
 export type ClientErrorCode = ErrorCode | 'network' | 'bad-response';
@@ -13,14 +13,27 @@ export class ApiError extends Error {
   readonly code: ClientErrorCode;
   readonly fields: FieldError[];
   readonly problems: BookProblem[];
+  /** With stale-base: the saves someone else made since the revision the editor started from. */
+  readonly stale: StaleBase | null;
+  /** With stale-preview: the spreadsheet rows whose ingredient changed since the preview. */
+  readonly staleRows: StaleImportRow[];
 
-  constructor(status: number, code: ClientErrorCode, message: string, fields: FieldError[] = [], problems: BookProblem[] = []) {
+  constructor(
+    status: number,
+    code: ClientErrorCode,
+    message: string,
+    fields: FieldError[] = [],
+    problems: BookProblem[] = [],
+    changed: { stale?: StaleBase; staleRows?: StaleImportRow[] } = {},
+  ) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
     this.problems = problems;
+    this.stale = changed.stale ?? null;
+    this.staleRows = changed.staleRows ?? [];
   }
 }
 
@@ -83,7 +96,10 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
   const body = await readJson(response);
   if (!response.ok) {
     if (isErrorBody(body)) {
-      throw new ApiError(response.status, body.code, body.message, body.fields ?? [], body.problems ?? []);
+      throw new ApiError(response.status, body.code, body.message, body.fields ?? [], body.problems ?? [], {
+        stale: body.stale,
+        staleRows: body.staleRows,
+      });
     }
     throw new ApiError(
       response.status,

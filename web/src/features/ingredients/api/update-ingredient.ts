@@ -7,11 +7,13 @@ import { apiClient } from '@/lib/api-client';
 export interface UpdateIngredientInput {
   code: string;
   ingredient: BookIngredient;
+  /** The revision the form was loaded from: the API refuses the save (stale-base) if someone saved a later one. */
+  baseRevision: number;
 }
 
-/** Saves the whole ingredient as a new revision. */
-export async function updateIngredient({ code, ingredient }: UpdateIngredientInput): Promise<IngredientView> {
-  return apiClient.put<IngredientView>(`/ingredients/${encodeURIComponent(code)}`, ingredient);
+/** Saves the whole ingredient as a new revision on top of the one it was edited from. */
+export async function updateIngredient({ code, ingredient, baseRevision }: UpdateIngredientInput): Promise<IngredientView> {
+  return apiClient.put<IngredientView>(`/ingredients/${encodeURIComponent(code)}`, { ...ingredient, baseRevision });
 }
 
 export function updateIngredientMutationOptions() {

@@ -6,12 +6,14 @@ import {
   type IngredientView,
   type NutrientReferenceRow,
   type SourceEntry,
+  type StaleBase,
 } from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRef, useState, type ReactNode } from 'react';
 import { Controller, useForm, useWatch, type FieldErrors, type Path } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
+import { StaleSavePanel } from '@/components/ui/stale-save-panel';
 import { isApiError } from '@/lib/api-client';
 import { allergenStatementOf, type AllergenStatement } from '../utils/ingredient-facts';
 import {
@@ -88,7 +90,7 @@ function errorAt(errors: FieldErrors<IngredientFormValues>, path: string): strin
   return firstMessage(node);
 }
 
-function toFormValues(ingredient: IngredientView | undefined): IngredientFormValues {
+function toFormValues(ingredient: IngredientView | BookIngredient | undefined): IngredientFormValues {
   if (!ingredient) {
     return {
       id: '',
@@ -103,7 +105,7 @@ function toFormValues(ingredient: IngredientView | undefined): IngredientFormVal
       nutrition: {},
     };
   }
-  const { revision: _revision, updatedAt: _updatedAt, ...body } = ingredient;
+  const { revision: _revision, updatedAt: _updatedAt, ...body } = ingredient as IngredientView;
   return { ...body, mayContain: body.mayContain ?? [], nutrition: body.nutrition ?? {} };
 }
 
@@ -121,7 +123,8 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
 interface IngredientFormProps {
   /** The ingredient being edited; none for a new one. */
   ingredient?: IngredientView;
-  onSave: (ingredient: BookIngredient) => Promise<IngredientView>;
+  /** `baseRevision` is the revision the form shows (none for a new ingredient). */
+  onSave: (ingredient: BookIngredient, baseRevision: number | undefined) => Promise<IngredientView>;
   saving: boolean;
   onSaved: (saved: IngredientView) => void;
 }
@@ -132,6 +135,9 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
   const [formError, setFormError] = useState<{ title: string; messages: string[] } | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
   const [filledFrom, setFilledFrom] = useState<string | null>(null);
+  // The revision the form was loaded from; a save names it, and moves it on only by a save or a reload.
+  const [base, setBase] = useState(ingredient?.revision);
+  const [stale, setStale] = useState<StaleBase | null>(null);
   // Sources ticked before switching to "no allergens" or "no statement", restored on switching back.
   const rememberedContains = useRef<SourceEntry[]>(ingredient?.contains ?? []);
   const rememberedMayContain = useRef<SourceEntry[]>(ingredient?.mayContain ?? []);
@@ -180,9 +186,10 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     setFilledFrom(row.name);
   }
 
-  async function handleSave(values: BookIngredient) {
+  async function handleSave(values: BookIngredient, baseRevision = base) {
     setFormError(null);
     setSaved(null);
+    setStale(null);
     if (statement === 'stated' && (values.contains ?? []).length === 0) {
       setError('contains', { message: 'Tick at least one allergen source, or choose “Supplier states no allergens”.' });
       return;
@@ -193,7 +200,8 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
       mayContain: statement === 'unknown' ? [] : values.mayContain,
     });
     try {
-      const result = await onSave(payload);
+      const result = await onSave(payload, baseRevision);
+      setBase(result.revision);
       reset(toFormValues(result));
       setStatement(allergenStatementOf(result));
       setSaved(isNew ? `${result.name} was added.` : `Saved. This is revision ${result.revision}.`);
@@ -201,6 +209,10 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     } catch (error) {
       if (!isApiError(error)) {
         setFormError({ title: 'The ingredient was not saved', messages: ['Try again in a moment.'] });
+        return;
+      }
+      if (error.code === 'stale-base' && error.stale) {
+        setStale(error.stale);
         return;
       }
       if (error.code === 'conflict') {
@@ -218,6 +230,24 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     }
   }
 
+  /** Their version in the form, as the base of the next save; what was typed is dropped (the panel said so). */
+  function reloadTheirs(theirs: StaleBase) {
+    const current = theirs.current as BookIngredient;
+    setBase(theirs.currentRevision);
+    rememberedContains.current = current.contains ?? [];
+    rememberedMayContain.current = current.mayContain ?? [];
+    reset(toFormValues(current));
+    setStatement(allergenStatementOf(current));
+    setStale(null);
+    setSaved(`Showing revision ${theirs.currentRevision}, as ${theirs.saves.at(-1)?.authorName ?? 'they'} saved it.`);
+  }
+
+  /** The values in the form saved again, on top of their revision. */
+  function saveMineOver(theirs: StaleBase) {
+    setBase(theirs.currentRevision);
+    void handleSubmit((values) => handleSave(values, theirs.currentRevision))();
+  }
+
   const nameField = register('name', {
     onChange: (event: { target: { value: string } }) => {
       if (isNew && !getFieldState('id').isDirty) setValue('id', slugify(event.target.value));
@@ -225,8 +255,15 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
   });
 
   return (
-    <form aria-label={isNew ? 'New ingredient' : `Edit ${ingredient.name}`} noValidate onSubmit={handleSubmit(handleSave)}>
+    <form
+      aria-label={isNew ? 'New ingredient' : `Edit ${ingredient.name}`}
+      noValidate
+      onSubmit={handleSubmit((values) => handleSave(values))}
+    >
       <Stack gap="5">
+        {stale ? (
+          <StaleSavePanel stale={stale} saving={saving} onReload={() => reloadTheirs(stale)} onSaveMine={() => saveMineOver(stale)} />
+        ) : null}
         {formError ? (
           <ErrorAlert title={formError.title}>
             {formError.messages.map((message, index) => (

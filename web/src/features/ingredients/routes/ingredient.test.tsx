@@ -2,7 +2,7 @@ import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { mockApi, requestUrl, signedInAs, type ApiHandlers } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
-import type { CompositionScan, IngredientView, NutrientReference, SpecificationView } from '@crumbproof/shared';
+import type { CompositionScan, IngredientView, NutrientReference, SpecificationView, StaleBase } from '@crumbproof/shared';
 import { BUTTER } from '../testing/fixtures';
 
 function created(body: unknown): IngredientView {
@@ -352,7 +352,101 @@ describe('Ingredient page', () => {
     const put = calls.find((call) => call.method === 'PUT');
     expect(put?.body).not.toHaveProperty('gPerMl');
     expect(put?.body).not.toHaveProperty('revision');
-    expect(put?.body).toMatchObject({ id: 'butter', contains: ['milk'] });
+    expect(put?.body).toMatchObject({ id: 'butter', contains: ['milk'], baseRevision: 3 });
+  });
+
+  describe('when someone else saved it while it was being edited', () => {
+    const theirs: IngredientView = { ...BUTTER, contains: ['milk', 'egg'], supplier: 'Vale Creamery', revision: 4 };
+    const stale: StaleBase = {
+      kind: 'ingredient',
+      id: 'butter',
+      name: 'Unsalted butter',
+      baseRevision: 3,
+      currentRevision: 4,
+      saves: [
+        {
+          revision: 4,
+          authorId: 2,
+          authorName: 'Maren Holloway',
+          savedAt: '2026-12-02T15:50:00.000Z',
+          note: 'Edited',
+          changes: [
+            {
+              field: 'supplier',
+              label: 'Supplier',
+              before: '“Dale Dairy”',
+              after: '“Vale Creamery”',
+              text: 'Supplier: changed from “Dale Dairy” to “Vale Creamery”.',
+            },
+            { field: 'contains', label: 'Allergens', before: 'milk', after: 'milk, egg', text: 'Allergens: added egg.' },
+          ],
+        },
+      ],
+      changes: [],
+      current: (({ revision: _r, updatedAt: _u, ...body }) => body)(theirs),
+    };
+    const refusal = {
+      status: 409,
+      body: { statusCode: 409, code: 'stale-base', message: 'Someone else saved this ingredient while you were editing.', stale },
+    };
+    const puts = (calls: { method: string; body: unknown }[]) =>
+      calls.filter((call) => call.method === 'PUT').map((call) => call.body as Record<string, unknown>);
+
+    /** The chef changes the supplier and saves; the first save is refused as stale, the next one passes as revision 5. */
+    async function saveRefusedOnce() {
+      let answered = 0;
+      const { calls } = butterApi({
+        'PUT /api/ingredients/butter': ({ body }) =>
+          answered++ === 0 ? refusal : { body: { ...(body as IngredientView), revision: 5, updatedAt: '2026-12-02T15:55:00.000Z' } },
+      });
+      const { user } = renderApp('/ingredients/butter');
+      const supplier = await screen.findByLabelText(/^Supplier$/);
+      await user.clear(supplier);
+      await user.type(supplier, 'Hill Farm');
+      await user.click(screen.getByRole('button', { name: 'Save ingredient' }));
+      return { calls, user };
+    }
+
+    it('names who saved which revision and what they changed, and saves the chef’s values over theirs only when asked, on the new base', async () => {
+      const { calls, user } = await saveRefusedOnce();
+
+      const panel = await screen.findByRole('alert', { name: 'Someone else saved this while you were editing' });
+      expect(panel).toHaveTextContent('You started from revision 3; Unsalted butter is now at revision 4.');
+      expect(panel).toHaveTextContent(/Maren Holloway saved revision 4 on 2 Dec 2026/);
+      const changes = within(panel).getByRole('list', { name: 'What revision 4 changed' });
+      expect(
+        within(changes)
+          .getAllByRole('listitem')
+          .map((item) => item.textContent),
+      ).toEqual(['Supplier: changed from “Dale Dairy” to “Vale Creamery”.', 'Allergens: added egg.']);
+      // Nothing is done until the chef chooses: the form keeps what was typed.
+      expect(screen.getByLabelText(/^Supplier$/)).toHaveValue('Hill Farm');
+      expect(puts(calls)).toEqual([expect.objectContaining({ supplier: 'Hill Farm', baseRevision: 3 })]);
+
+      await user.click(within(panel).getByRole('button', { name: 'Save my values over theirs' }));
+      expect(await screen.findByText('Saved. This is revision 5.')).toBeInTheDocument();
+      expect(puts(calls)).toEqual([
+        expect.objectContaining({ supplier: 'Hill Farm', baseRevision: 3 }),
+        expect.objectContaining({ supplier: 'Hill Farm', baseRevision: 4 }),
+      ]);
+      expect(screen.queryByRole('alert', { name: 'Someone else saved this while you were editing' })).not.toBeInTheDocument();
+    });
+
+    it('reloads their version into the form without saving, and the next save starts from it', async () => {
+      const { calls, user } = await saveRefusedOnce();
+      const panel = await screen.findByRole('alert', { name: 'Someone else saved this while you were editing' });
+      expect(panel).toHaveTextContent('your unsaved changes are dropped');
+
+      await user.click(within(panel).getByRole('button', { name: 'Reload their version' }));
+      expect(screen.getByLabelText(/^Supplier$/)).toHaveValue('Vale Creamery');
+      expect(within(screen.getByRole('group', { name: /^Contains/ })).getByRole('checkbox', { name: 'egg' })).toBeChecked();
+      expect(screen.getByText('Showing revision 4, as Maren Holloway saved it.')).toBeInTheDocument();
+      expect(puts(calls)).toHaveLength(1);
+
+      await user.click(screen.getByRole('button', { name: 'Save ingredient' }));
+      await waitFor(() => expect(puts(calls)).toHaveLength(2));
+      expect(puts(calls)[1]).toMatchObject({ supplier: 'Vale Creamery', contains: ['milk', 'egg'], baseRevision: 4 });
+    });
   });
 
   it('uploads a specification as multipart with its review date, then shows the new version as current', async () => {

@@ -76,7 +76,9 @@ export function IngredientRoute() {
         <IngredientForm
           key={data.id}
           ingredient={data}
-          onSave={(body) => updateIngredient.mutateAsync({ code: data.id, ingredient: body })}
+          onSave={(body, baseRevision) =>
+            updateIngredient.mutateAsync({ code: data.id, ingredient: body, baseRevision: baseRevision ?? data.revision })
+          }
           saving={updateIngredient.isPending}
           onSaved={() => undefined}
         />

@@ -34,10 +34,12 @@ describe('useSaveRecipe', () => {
     const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
     const { result } = renderHook(() => useSaveRecipe(), { wrapper });
     const { id, name, lines } = RECIPES[0]!;
-    act(() => result.current.mutate({ recipe: { id, name, lines }, code: 'victoria-sponge' }));
+    act(() => result.current.mutate({ recipe: { id, name, lines }, code: 'victoria-sponge', baseRevision: 4 }));
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
 
-    expect(calls).toEqual([expect.objectContaining({ method: 'PUT', path: '/api/recipes/victoria-sponge', body: { id, name, lines } })]);
+    expect(calls).toEqual([
+      expect.objectContaining({ method: 'PUT', path: '/api/recipes/victoria-sponge', body: { id, name, lines, baseRevision: 4 } }),
+    ]);
     for (const key of dropped) expect(queryClient.getQueryData(key), JSON.stringify(key)).toBeUndefined();
     expect(queryClient.getQueryData(queryKeys.recipes.one('victoria-sponge'))).toMatchObject({ revision: 5 });
     expect(queryClient.getQueryData(untouched)).toEqual({ cached: true });

@@ -4,16 +4,16 @@ import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
 import { mutationKeys, queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
 
-export interface SaveRecipeInput {
-  recipe: BookRecipe;
-  /** The id the recipe is saved under; absent for a new recipe (POST). */
-  code?: string;
-}
+/**
+ * A new recipe (no code, POST), or an edit: the id it is saved under and the revision the editor
+ * was loaded from, which the API refuses (stale-base) when someone saved a later one.
+ */
+export type SaveRecipeInput = { recipe: BookRecipe; code?: undefined } | { recipe: BookRecipe; code: string; baseRevision: number };
 
 /** PUT /recipes/:code for an edit, POST /recipes for a new one. Nothing is saved if the API refuses. */
-export async function saveRecipe({ recipe, code }: SaveRecipeInput): Promise<RecipeView> {
-  if (code === undefined) return apiClient.post<RecipeView>('/recipes', recipe);
-  return apiClient.put<RecipeView>(`/recipes/${encodeURIComponent(code)}`, recipe);
+export async function saveRecipe(input: SaveRecipeInput): Promise<RecipeView> {
+  if (input.code === undefined) return apiClient.post<RecipeView>('/recipes', input.recipe);
+  return apiClient.put<RecipeView>(`/recipes/${encodeURIComponent(input.code)}`, { ...input.recipe, baseRevision: input.baseRevision });
 }
 
 export function saveRecipeMutationOptions() {

@@ -1,10 +1,11 @@
 import { Box, Button, Grid, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { bookRecipeSchema, CLAIM_LABELS, CLAIMS, type BookRecipe, type RecipeView } from '@crumbproof/shared';
+import { bookRecipeSchema, CLAIM_LABELS, CLAIMS, type BookRecipe, type RecipeView, type StaleBase } from '@crumbproof/shared';
 import { useMemo, useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { CheckboxInput as Checkbox } from '@/components/ui/choice-inputs';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
+import { StaleSavePanel } from '@/components/ui/stale-save-panel';
 import type { ComboboxOption } from '@/components/ui/item-combobox';
 import type { ItemLookup } from '@/components/ui/layer-path';
 import { useLabelSettings } from '@/api/label-settings';
@@ -55,6 +56,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
     handleSubmit,
     setError,
     setValue,
+    reset,
     formState: { errors, isDirty },
   } = useForm<EditorValues>({ resolver: editorResolver, defaultValues: defaults });
   const lines = useFieldArray({ control, name: 'lines' });
@@ -62,6 +64,10 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
   const labelSettings = useLabelSettings();
   // A refused save stays on screen until the recipe changes: it is kept with the recipe it refused.
   const [refused, setRefused] = useState<{ recipeKey: string; message: string } | null>(null);
+  // The revision the form was loaded from; a save names it, and only a reload or a new save moves it on.
+  const [base, setBase] = useState(initial?.revision ?? 0);
+  const [stale, setStale] = useState<StaleBase | null>(null);
+  const [reloaded, setReloaded] = useState<string | null>(null);
 
   const watched = useWatch({ control }) as EditorValues;
   const forSale = Boolean(watched.forSale);
@@ -92,31 +98,51 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
     [lookup, previewId, previewName],
   );
 
-  function handleSave(values: EditorValues) {
+  function handleSave(values: EditorValues, baseRevision = base) {
     setRefused(null);
+    setStale(null);
+    setReloaded(null);
     const recipeKey = previewKey;
     const setSaveMessage = (message: string) => setRefused({ recipeKey, message });
     const recipe = toBookRecipe(values);
-    save.mutate(
-      { recipe, code: creating ? undefined : initial.id },
-      {
-        onSuccess: (saved) => onSaved(saved),
-        onError: (error) => {
-          if (!isApiError(error)) {
-            setSaveMessage('Nothing was saved. Try again in a moment.');
-            return;
-          }
-          if (error.code === 'conflict') setError('id', { message: error.message });
-          for (const field of error.fields) {
-            if (field.path === 'name' || field.path === 'finishedWeightG') setError(field.path, { message: field.message });
-            if (field.path === 'id' && creating) setError('id', { message: field.message });
-            if (field.path === 'sale.portionG') setError('portionG', { message: field.message });
-            for (const detail of PRINT_DETAIL_FIELDS) if (field.path === `sale.${detail}`) setError(detail, { message: field.message });
-          }
-          setSaveMessage(`Nothing was saved. ${error.message}`);
-        },
+    save.mutate(creating ? { recipe } : { recipe, code: initial.id, baseRevision }, {
+      onSuccess: (saved) => onSaved(saved),
+      onError: (error) => {
+        if (!isApiError(error)) {
+          setSaveMessage('Nothing was saved. Try again in a moment.');
+          return;
+        }
+        if (error.code === 'stale-base' && error.stale) {
+          setStale(error.stale);
+          return;
+        }
+        if (error.code === 'conflict') setError('id', { message: error.message });
+        for (const field of error.fields) {
+          if (field.path === 'name' || field.path === 'finishedWeightG') setError(field.path, { message: field.message });
+          if (field.path === 'id' && creating) setError('id', { message: field.message });
+          if (field.path === 'sale.portionG') setError('portionG', { message: field.message });
+          for (const detail of PRINT_DETAIL_FIELDS) if (field.path === `sale.${detail}`) setError(detail, { message: field.message });
+        }
+        setSaveMessage(`Nothing was saved. ${error.message}`);
       },
-    );
+    });
+  }
+
+  /** Moves the base on to their revision: the form shows it, or keeps the person's values to save over it. */
+  function moveBase(theirs: StaleBase) {
+    setBase(theirs.currentRevision);
+    setStale(null);
+  }
+
+  function reloadTheirs(theirs: StaleBase) {
+    moveBase(theirs);
+    reset(toEditorValues(theirs.current as BookRecipe));
+    setReloaded(`Showing revision ${theirs.currentRevision}, as ${theirs.saves.at(-1)?.authorName ?? 'they'} saved it.`);
+  }
+
+  function saveMineOver(theirs: StaleBase) {
+    moveBase(theirs);
+    void handleSubmit((values) => handleSave(values, theirs.currentRevision))();
   }
 
   const lineOptions = useMemo(() => {
@@ -129,8 +155,21 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
 
   return (
     <Grid templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)' }} gap="6" alignItems="start">
-      <form aria-label={creating ? 'New recipe' : `Edit ${initial.name}`} noValidate onSubmit={handleSubmit(handleSave)}>
+      <form
+        aria-label={creating ? 'New recipe' : `Edit ${initial.name}`}
+        noValidate
+        onSubmit={handleSubmit((values) => handleSave(values))}
+      >
         <Stack gap="5" minW="0">
+          {stale ? (
+            <StaleSavePanel
+              stale={stale}
+              saving={save.isPending}
+              onReload={() => reloadTheirs(stale)}
+              onSaveMine={() => saveMineOver(stale)}
+            />
+          ) : null}
+          {reloaded ? <Text role="status">{reloaded}</Text> : null}
           {saveMessage ? <ErrorAlert title="The recipe was not saved">{saveMessage}</ErrorAlert> : null}
           <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
             <FormField label="Recipe name" error={errors.name?.message} required>
@@ -245,7 +284,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
             <Button type="submit" size="lg" alignSelf="flex-start" loading={save.isPending} loadingText="Saving…">
               Save recipe
             </Button>
-            <Text color="fg.muted">{creating ? 'Saving creates revision 1.' : `Saving creates revision ${initial.revision + 1}.`}</Text>
+            <Text color="fg.muted">{creating ? 'Saving creates revision 1.' : `Saving creates revision ${base + 1}.`}</Text>
           </Stack>
         </Stack>
       </form>

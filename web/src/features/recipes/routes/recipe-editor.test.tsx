@@ -1,4 +1,4 @@
-import type { BookProblem, BookRecipe } from '@crumbproof/shared';
+import type { BookProblem, BookRecipe, StaleBase } from '@crumbproof/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { mockApi, signedInAs, type ApiHandlers } from '@/testing/mock-api';
@@ -46,6 +46,29 @@ function lineMarks() {
     const picker = screen.getByRole('combobox', { name: `Ingredient or recipe for line ${n}` });
     return picker.getAttribute('aria-invalid') === 'true';
   });
+}
+
+/** The refusal of a save from revision 4 of the sponge: Maren saved revision 5 with the finished weight at 850 g. */
+function staleSponge(changes: StaleBase['saves'][number]['changes']): StaleBase {
+  const { revision: _r, updatedAt: _u, ...body } = RECIPES[0]!;
+  return {
+    kind: 'recipe',
+    id: 'victoria-sponge',
+    name: 'Victoria sponge',
+    baseRevision: 4,
+    currentRevision: 5,
+    saves: [{ revision: 5, authorId: 2, authorName: 'Maren Holloway', savedAt: '2026-12-02T15:50:00.000Z', note: 'Edited', changes }],
+    changes: [],
+    current: { ...body, finishedWeightG: 850 },
+  };
+}
+
+/** Renames the sponge in the editor and saves it. */
+async function renameAndSave(user: ReturnType<typeof renderApp>['user']) {
+  const name = await screen.findByLabelText('Recipe name');
+  await user.clear(name);
+  await user.type(name, 'Victoria sandwich');
+  await user.click(screen.getByRole('button', { name: 'Save recipe' }));
 }
 
 describe('Recipe editor', () => {
@@ -111,6 +134,71 @@ describe('Recipe editor', () => {
     await waitFor(() => expect(router.state.location.pathname).toBe('/recipes/victoria-sponge'));
     expect(saved!.lines.at(-1)).toEqual({ use: 'plant-spread', qty: 50, unit: 'g' });
     expect(await screen.findByText('Saved. This is revision 5.')).toBeInTheDocument();
+  });
+
+  it('when someone else saved the recipe first, names them and their change, and saves over theirs only when asked, from their revision', async () => {
+    const stale = staleSponge([
+      {
+        field: 'finishedWeightG',
+        label: 'Finished weight',
+        before: '900 g',
+        after: '850 g',
+        text: 'Finished weight: changed from 900 g to 850 g.',
+      },
+    ]);
+    const puts: Record<string, unknown>[] = [];
+    const { calls } = editorApi({
+      'PUT /api/recipes/victoria-sponge': ({ body: sent }) => {
+        puts.push(sent as Record<string, unknown>);
+        return puts.length === 1
+          ? {
+              status: 409,
+              body: { statusCode: 409, code: 'stale-base', message: 'Someone else saved this recipe while you were editing.', stale },
+            }
+          : { body: { ...(sent as BookRecipe), revision: 6, updatedAt: '2026-12-02T15:55:00.000Z' } };
+      },
+      'GET /api/recipes/victoria-sponge/declaration': { body: declarationFor() },
+      'GET /api/recipes/victoria-sponge/revisions': { body: [] },
+    });
+    const { user, router } = renderApp('/recipes/victoria-sponge/edit');
+
+    await renameAndSave(user);
+
+    const panel = await screen.findByRole('alert', { name: 'Someone else saved this while you were editing' });
+    expect(panel).toHaveTextContent(/Maren Holloway saved revision 5 on 2 Dec 2026/);
+    expect(within(panel).getByRole('listitem')).toHaveTextContent('Finished weight: changed from 900 g to 850 g.');
+    expect(screen.getByLabelText('Recipe name')).toHaveValue('Victoria sandwich');
+    expect(router.state.location.pathname).toBe('/recipes/victoria-sponge/edit');
+    expect(puts).toEqual([expect.objectContaining({ name: 'Victoria sandwich', baseRevision: 4 })]);
+
+    await user.click(within(panel).getByRole('button', { name: 'Save my values over theirs' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/recipes/victoria-sponge'));
+    expect(puts).toEqual([
+      expect.objectContaining({ name: 'Victoria sandwich', baseRevision: 4 }),
+      expect.objectContaining({ name: 'Victoria sandwich', baseRevision: 5 }),
+    ]);
+    expect(calls.filter((call) => call.method === 'PUT')).toHaveLength(2);
+  });
+
+  it('reloads their version of the recipe into the editor without saving', async () => {
+    const stale = staleSponge([]);
+    const { calls } = editorApi({
+      'PUT /api/recipes/victoria-sponge': {
+        status: 409,
+        body: { statusCode: 409, code: 'stale-base', message: 'Someone else saved this recipe.', stale },
+      },
+    });
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+    await renameAndSave(user);
+    const panel = await screen.findByRole('alert', { name: 'Someone else saved this while you were editing' });
+    expect(panel).toHaveTextContent('It changed no field.');
+
+    await user.click(within(panel).getByRole('button', { name: 'Reload their version' }));
+    expect(screen.getByLabelText('Recipe name')).toHaveValue('Victoria sponge');
+    expect(screen.getByLabelText('Weight after baking (g)')).toHaveValue(850);
+    expect(screen.getByText('Showing revision 5, as Maren Holloway saved it.')).toBeInTheDocument();
+    expect(screen.getByText('Saving creates revision 6.')).toBeInTheDocument();
+    expect(calls.filter((call) => call.method === 'PUT')).toHaveLength(1);
   });
 
   it('shows a line the API cannot weigh in place on that line, and in an alert', async () => {

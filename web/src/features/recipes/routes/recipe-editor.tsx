@@ -57,7 +57,9 @@ function EditRecipe() {
     <Page title={`Edit ${recipe.data.name}`} lead="The declaration beside the form follows every change; nothing is saved until you save.">
       {problem ? <ErrorAlert title="The list of ingredients and recipes could not be loaded">{problem.message}</ErrorAlert> : null}
       <RecipeEditorForm
-        key={`${recipe.data.id}-${recipe.data.revision}`}
+        // Kept while the recipe is read again: the form holds the revision it was loaded from, and a
+        // save from it is refused when someone saved a later one (nothing typed is dropped unseen).
+        key={recipe.data.id}
         initial={recipe.data}
         options={options}
         lookup={lookup}
