@@ -295,7 +295,11 @@ const CASES: WriteCase[] = [
   },
   {
     route: 'POST /api/ingredients/import',
-    call: () => sendForm('/api/ingredients/import', chef, {}, { name: 'new.csv', bytes: fixture('new-ingredients.csv') }),
+    call: async () => {
+      const file = { name: 'new.csv', bytes: fixture('new-ingredients.csv') };
+      const { basis } = (await sendForm('/api/ingredients/import/preview', chef, {}, file)).json<{ basis: string }>();
+      return sendForm('/api/ingredients/import', chef, { basis }, file);
+    },
     status: 200,
     actor: 'chef',
     action: 'ingredients.imported',

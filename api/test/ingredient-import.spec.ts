@@ -1,5 +1,7 @@
+import type { ApiErrorBody, ImportPreview, ImportResult, IngredientView } from '@crumbproof/shared';
 import ExcelJS from 'exceljs';
 import { fixture, multipart } from './fixtures/forms';
+import { tableChecksums } from './fixtures/table-checksums';
 import { startTestApp, type TestApp } from './support/test-app';
 
 interface Row {
@@ -87,12 +89,16 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
   });
   afterAll(() => t.close());
 
-  const send = async (url: string, bytes: Buffer, name: string, cookie = chef) => {
-    const form = await multipart({}, { name, bytes, type: 'text/csv' });
+  const send = async (url: string, bytes: Buffer, name: string, cookie = chef, fields: Record<string, string> = {}) => {
+    const form = await multipart(fields, { name, bytes, type: 'text/csv' });
     return t.app.inject({ method: 'POST', url, payload: form.payload, headers: { ...form.headers, cookie } });
   };
   const preview = (bytes: Buffer, name = 'ingredients.csv', cookie = chef) => send('/api/ingredients/import/preview', bytes, name, cookie);
-  const importFile = (bytes: Buffer, name = 'ingredients.csv', cookie = chef) => send('/api/ingredients/import', bytes, name, cookie);
+  /** Imports with the basis of a preview: one made just before, unless one is given. */
+  const importFile = async (bytes: Buffer, name = 'ingredients.csv', cookie = chef, basis?: string) => {
+    const seen = basis ?? (await preview(bytes, name, cookie)).json<{ basis?: string }>().basis ?? '';
+    return send('/api/ingredients/import', bytes, name, cookie, { basis: seen });
+  };
   const ingredients = async () =>
     (await t.app.inject({ method: 'GET', url: '/api/ingredients', headers: { cookie: chef } })).json<{ id: string; revision: number }[]>();
   const ingredient = (id: string) => t.app.inject({ method: 'GET', url: `/api/ingredients/${id}`, headers: { cookie: chef } });
@@ -159,7 +165,11 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     const body = res.json();
     expect(body.format).toBe('csv');
     expect(body.problems).toEqual([]);
-    expect(body.rows).toEqual(expectedNew);
+    // Each row says what it was compared against: here, no ingredient had its id.
+    expect(body.rows).toEqual(expectedNew.map((r) => ({ ...r, base: { revision: null, token: expect.stringMatching(/^0\.[\w-]{22}$/) } })));
+    expect(JSON.parse(body.basis)).toEqual(
+      Object.fromEntries(body.rows.map((r: Row & { base: { token: string } }) => [String(r.row), r.base.token])),
+    );
     expect(body.summary).toEqual({ create: 3, update: 0, unchanged: 0, withProblems: 0 });
     expect(body.columns.map((c: { header: string }) => c.header)).toEqual(
       expect.arrayContaining([
@@ -231,6 +241,7 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
       row: 3,
       ingredient: null,
       action: 'create',
+      base: { revision: null, token: expect.any(String) },
       problems: [
         "row 3, column contains: 'sugar' is not an allergen source. The sources are: wheat, rye, barley, oats, spelt, khorasan, triticale, almond, hazelnut, walnut, cashew, pecan, brazil-nut, pistachio, macadamia, pine-nut, coconut, peanut, soy, milk, egg, fish, crustacean, mollusc, celery, mustard, sesame, lupin, sulphites.",
         "row 3, column contains: 'hazlenut' is not an allergen source; did you mean 'hazelnut'?",
@@ -340,6 +351,100 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     expect(latin1.json().message).toMatch(/not UTF-8 text/);
     const empty = await preview(Buffer.alloc(0));
     expect(empty.json().message).toBe('The file is empty.');
+  });
+
+  it('refuses the import when a row’s ingredient was saved after the preview, naming the row, who and when, and saves nothing; a new preview imports', async () => {
+    const sugar = (await ingredient('caster-sugar')).json<IngredientView>();
+    const file = csv(
+      'id,name,supplier,contains,may contain,vegan,vegetarian\n' +
+        'caster-sugar,Caster sugar,Fenwick Sugar Co,none,,yes,yes\n' +
+        'rose-water,Rose water,Attar House,none,,yes,yes\n',
+    );
+    const seen = (await preview(file)).json<ImportPreview>();
+    expect(seen.rows.map((r) => [r.row, r.action, r.base?.revision])).toEqual([
+      [2, 'update', sugar.revision],
+      [3, 'create', null],
+    ]);
+
+    // The manager saves the sugar between the preview and the import.
+    const manager = await t.signIn('manager@example.com');
+    const { revision, updatedAt: _u, ...body } = sugar;
+    const saved = await t.app.inject({
+      method: 'PUT',
+      url: '/api/ingredients/caster-sugar',
+      headers: { cookie: manager },
+      payload: { ...body, supplierCode: 'BSW-9', baseRevision: revision },
+    });
+    expect(saved.statusCode).toBe(200);
+
+    const before = await tableChecksums(t.sequelize);
+    const refused = await importFile(file, 'ingredients.csv', chef, seen.basis);
+    expect(refused.statusCode).toBe(409);
+    const answer = refused.json<ApiErrorBody>();
+    expect(answer.code).toBe('stale-preview');
+    expect(answer.staleRows).toEqual([
+      {
+        row: 2,
+        id: 'caster-sugar',
+        previewRevision: sugar.revision,
+        currentRevision: sugar.revision + 1,
+        authorName: 'Maren Holloway',
+        savedAt: expect.stringMatching(/^\d{4}-\d\d-\d\dT/),
+      },
+    ]);
+    expect(answer.message).toMatch(
+      new RegExp(
+        `^Nothing was imported: 1 row's ingredient changed since the preview\\. Row 2 \\(caster-sugar\\): Maren Holloway saved revision ${sugar.revision + 1} at .+ UTC\\. Preview the file again`,
+      ),
+    );
+    expect(await tableChecksums(t.sequelize)).toEqual(before);
+    expect((await ingredient('rose-water')).statusCode).toBe(404);
+
+    // A new preview compares against the manager's revision; its import passes.
+    const res = await importFile(file);
+    expect(res.statusCode).toBe(200);
+    expect(res.json<ImportResult>().written).toEqual([
+      { id: 'caster-sugar', revision: sugar.revision + 2 },
+      { id: 'rose-water', revision: 1 },
+    ]);
+  });
+
+  it('refuses the import when an ingredient a row would create was created after the preview', async () => {
+    const file = csv('id,name,contains,vegan,vegetarian\nlavender-sugar,Lavender sugar,none,yes,yes\n');
+    const seen = (await preview(file)).json<ImportPreview>();
+    expect(seen.rows[0]?.base).toEqual({ revision: null, token: expect.any(String) });
+    const created = await t.app.inject({
+      method: 'POST',
+      url: '/api/ingredients',
+      headers: { cookie: chef },
+      payload: { id: 'lavender-sugar', name: 'Lavender sugar', contains: [], mayContain: [], vegan: true, vegetarian: true },
+    });
+    expect(created.statusCode).toBe(201);
+    const refused = await importFile(file, 'ingredients.csv', chef, seen.basis);
+    expect(refused.statusCode).toBe(409);
+    expect(refused.json<ApiErrorBody>().staleRows).toEqual([
+      expect.objectContaining({ row: 2, previewRevision: null, currentRevision: 1, authorName: 'Tobiah Quill' }),
+    ]);
+    expect(refused.json<ApiErrorBody>().message).toMatch(/Row 2 \(lavender-sugar\): Tobiah Quill created it at /);
+  });
+
+  it('refuses an import without the preview’s basis, or with one no preview gave, and saves nothing', async () => {
+    const file = fixture('new-ingredients.csv');
+    const before = await tableChecksums(t.sequelize);
+    for (const [basis, names] of [
+      ['', /^Preview the file first/],
+      ['{"2": 5}', /^The basis is not the one a preview gives/],
+      ['not json', /^The basis is not the one a preview gives/],
+    ] as const) {
+      const res = await importFile(file, 'ingredients.csv', chef, basis);
+      expect(res.statusCode).toBe(400);
+      expect(res.json<ApiErrorBody>()).toMatchObject({
+        code: 'validation',
+        message: expect.stringMatching(names),
+        fields: [{ path: 'basis' }],
+      });
+    }
+    expect(await tableChecksums(t.sequelize)).toEqual(before);
   });
 
   it('refuses front of house (403)', async () => {

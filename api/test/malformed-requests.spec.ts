@@ -918,6 +918,22 @@ const CORPUS: MalformedRequest[] = [
     status: 400,
     names,
   })),
+  // A clean file needs the preview's basis: what the person saw is what is written, or nothing.
+  ...(
+    [
+      ['a clean file without the preview’s basis', {}, /^basis: Preview the file first/m],
+      ['a basis that is not JSON', { basis: 'rows 2 to 4' }, /^basis: The basis is not the one a preview gives/m],
+      ['a basis of numbers', { basis: '{"2": 1}' }, /^basis: The basis is not the one a preview gives/m],
+      ['a basis keyed by names', { basis: '{"two": "1.abc"}' }, /^basis: The basis is not the one a preview gives/m],
+    ] as const
+  ).map(([what, fields, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/ingredients/import',
+    send: () => form(fields, { name: 'new.csv', bytes: fixture('new-ingredients.csv') }),
+    status: 400,
+    names,
+  })),
   // The preview answers a readable file with each row's problems (and saves nothing); a file it cannot read is refused.
   {
     what: 'a file that is an image',

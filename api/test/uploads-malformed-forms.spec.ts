@@ -43,7 +43,18 @@ describe('upload forms that cannot be read (real MariaDB)', () => {
     {
       route: 'the spreadsheet import',
       url: '/api/ingredients/import',
-      form: () => multipart({}, { name: 'new.csv', bytes: fixture('new-ingredients.csv') }),
+      // With the basis of a preview made just before, as the import page sends it.
+      form: async () => {
+        const file = { name: 'new.csv', bytes: fixture('new-ingredients.csv') };
+        const shown = await multipart({}, file);
+        const seen = await t.app.inject({
+          method: 'POST',
+          url: '/api/ingredients/import/preview',
+          payload: shown.payload,
+          headers: { ...shown.headers, cookie: chef },
+        });
+        return multipart({ basis: seen.json<{ basis: string }>().basis }, file);
+      },
     },
   ];
 

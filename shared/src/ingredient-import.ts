@@ -28,6 +28,16 @@ export interface ImportRow {
   action: ImportAction;
   /** Each names the row, the column and the value: "row 4, column Contains: 'hazlenut' is not…". */
   problems: string[];
+  /** The ingredient the row was compared against; null when the row has no id. */
+  base: ImportRowBase | null;
+}
+
+/** The state of a row's ingredient when the preview compared the row against it. */
+export interface ImportRowBase {
+  /** Its current revision then; null when no ingredient had the row's id. */
+  revision: number | null;
+  /** A token of that state: the import is refused when it no longer matches (someone saved or created the ingredient since). */
+  token: string;
 }
 
 export interface ImportCounts {
@@ -46,6 +56,11 @@ export interface ImportPreview {
   problems: string[];
   rows: ImportRow[];
   summary: ImportCounts;
+  /**
+   * Every row's token, as the import takes it back in its form field `basis` (a JSON object from
+   * row number to token): the import saves nothing when any row's ingredient changed since.
+   */
+  basis: string;
 }
 
 /** The summary of what was imported, and each ingredient written. */

@@ -356,6 +356,37 @@ export class BooksService {
     return written.revision;
   }
 
+  /** Runs a check on the kitchen as it stands inside the kitchen's lock, writing nothing (an import with nothing to write). */
+  async readLocked(check: WriteCheck): Promise<void> {
+    await this.tx.run(async (t) => {
+      await this.sites.lock(t);
+      await check(await this.state(t), t);
+    });
+  }
+
+  /** Who saved the current revision of each item, and when (read in the write's transaction). */
+  async currentSaves(
+    state: KitchenState,
+    ids: readonly string[],
+    t: Transaction,
+  ): Promise<Map<string, { revision: number; authorName: string | null; savedAt: string }>> {
+    const authors = new Map((await this.users.list()).map((u) => [u.id, u.name]));
+    const found = new Map<string, { revision: number; authorName: string | null; savedAt: string }>();
+    for (const id of ids) {
+      const head = state.heads.get(id);
+      if (!head) continue;
+      const repo = head.kind === 'ingredient' ? this.ingredients : this.recipes;
+      const [current] = await repo.revisionsFrom(head.rowId, head.revision, t);
+      if (current)
+        found.set(id, {
+          revision: current.revision,
+          authorName: current.authorId ? (authors.get(current.authorId) ?? null) : null,
+          savedAt: current.createdAt.toISOString(),
+        });
+    }
+    return found;
+  }
+
   /** Every write checks its base against the current revision inside the kitchen's lock: no save replaces one it has not seen. */
   private async assertBase(kind: 'ingredient' | 'recipe', id: string, base: number, state: KitchenState, t: Transaction): Promise<void> {
     const head = state.heads.get(id);
@@ -426,7 +457,7 @@ export class BooksService {
 }
 
 /** "2026-12-02 15:50 UTC": when a save was made, as a refusal's message says it. */
-function savedAtWords(iso: string): string {
+export function savedAtWords(iso: string): string {
   return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 }
 

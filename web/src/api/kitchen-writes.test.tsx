@@ -86,7 +86,9 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     for (const key of independent) queryClient.setQueryData(key, { cached: true });
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }));
+    act(() =>
+      result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }),
+    );
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
 
     for (const key of dependent) expect(queryClient.getQueryData(key), JSON.stringify(key)).toBeUndefined();
@@ -106,7 +108,9 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     await waitFor(() => expect(pending).toHaveLength(1));
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }));
+    act(() =>
+      result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }),
+    );
     await waitFor(() => expect(result.current.isSuccess).toBe(true));
     // The write dropped the read in flight and asked again.
     await waitFor(() => expect(pending).toHaveLength(2));
@@ -144,7 +148,9 @@ describe('refreshAfterKitchenWrite, as every kitchen write calls it', () => {
     queryClient.setQueryData(queryKeys.ingredients.one('spelt-flour'), SPELT);
 
     const { result } = renderHook(() => useUpdateIngredient(), { wrapper });
-    act(() => result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }));
+    act(() =>
+      result.current.mutate({ code: 'spelt-flour', ingredient: { ...SPELT, contains: ['spelt', 'milk'] }, baseRevision: SPELT.revision }),
+    );
     await waitFor(() => expect(result.current.isError).toBe(true));
 
     expect(queryClient.getQueryData(queryKeys.declarations.product('loaf', undefined))).toBeUndefined();
@@ -171,14 +177,14 @@ describe('every write to the kitchen’s data refreshes the declarations and whe
       route: 'PUT /api/ingredients/spelt-flour',
       answer: SPELT,
       useWrite: (): Write => useUpdateIngredient(),
-      input: { code: 'spelt-flour', ingredient: SPELT },
+      input: { code: 'spelt-flour', ingredient: SPELT, baseRevision: SPELT.revision },
     },
     {
       title: 'a spreadsheet imported',
       route: 'POST /api/ingredients/import',
       answer: { create: 0, update: 1, unchanged: 0, withProblems: 0, written: [] },
       useWrite: (): Write => useImportIngredients(),
-      input: file,
+      input: { file, basis: '{}' },
     },
     {
       title: 'a specification uploaded',
@@ -192,7 +198,11 @@ describe('every write to the kitchen’s data refreshes the declarations and whe
       route: 'PUT /api/recipes/loaf',
       answer: { id: 'loaf', name: 'Loaf', lines: [], revision: 2, updatedAt: '2026-12-01T10:00:00.000Z' },
       useWrite: (): Write => useSaveRecipe(),
-      input: { code: 'loaf', recipe: { id: 'loaf', name: 'Loaf', lines: [{ use: 'spelt-flour', qty: 500, unit: 'g' as const }] } },
+      input: {
+        code: 'loaf',
+        baseRevision: 1,
+        recipe: { id: 'loaf', name: 'Loaf', lines: [{ use: 'spelt-flour', qty: 500, unit: 'g' as const }] },
+      },
     },
     {
       title: 'a swap applied',

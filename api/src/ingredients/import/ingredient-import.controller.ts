@@ -27,10 +27,16 @@ export class IngredientImportController {
   @HttpCode(200)
   @ApiOperation({
     summary:
-      'Import a CSV file or an .xlsx workbook of ingredients in one transaction; refused, saving nothing, when any row has a problem',
+      "Import a CSV file or an .xlsx workbook of ingredients in one transaction, with the preview's basis in the field basis; refused, saving nothing, when any row has a problem (400) or any row's ingredient was saved or created since the preview (409 stale-preview)",
   })
-  @ApiUpload()
+  @ApiUpload({
+    basis: {
+      description:
+        "The preview's basis, as the preview gave it (a JSON object from row number to a token of the state its ingredient was in)",
+      required: true,
+    },
+  })
   async import(@CurrentUser() user: AuthUser, @Req() req: FastifyRequest) {
-    return this.imports.import(await readUpload(req, []), user.id);
+    return this.imports.import(await readUpload(req, ['basis']), user.id);
   }
 }

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import {
   bookIngredientSchema,
@@ -11,12 +12,15 @@ import {
   type ImportPreview,
   type ImportResult,
   type ImportRow,
+  type StaleImportRow,
 } from '@crumbproof/shared';
+import { z } from 'zod';
 import { AppError } from '../../common/app-error';
-import { BooksService } from '../../books/books.service';
+import { BooksService, savedAtWords, type KitchenState } from '../../books/books.service';
 import { sameData } from '../../rules/core/same-data';
 import { RulesService } from '../../rules/rules.service';
 import type { Upload } from '../../common/multipart-upload';
+import type { Transaction } from 'sequelize';
 import { cellText, IMPORT_COLUMNS, mapHeader, rowPlace, rowToCandidate, type HeaderMap } from './import-columns';
 import { readSheet, type SheetRow } from './spreadsheet';
 
@@ -45,14 +49,16 @@ export class IngredientImportService {
         { path: 'file', message: 'Attach a file.' },
       ]);
     const sheet = await readSheet(upload.file.bytes);
-    const book = await this.books.exportBook();
+    const state = await this.books.state();
+    const book = state.book;
     const header = mapHeader(sheet.header);
     const problems = [...sheet.problems, ...header.problems];
     const idColumn = [...header.columns].find(([, d]) => d.field === 'id')?.[0];
     const nameColumn = [...header.columns].find(([, d]) => d.field === 'name')?.[0];
-    const rows = idColumn === undefined || nameColumn === undefined ? [] : this.readRows(sheet.rows, header, idColumn, book);
+    const rows = idColumn === undefined || nameColumn === undefined ? [] : this.readRows(sheet.rows, header, idColumn, state);
     if (rows.length > 0) this.checkDeclarable(rows, book, header, problems);
-    return { format: sheet.format, columns: IMPORT_COLUMNS, rules: IMPORT_RULES, problems, rows, summary: count(rows) };
+    const basis = JSON.stringify(Object.fromEntries(rows.filter((r) => r.base).map((r) => [String(r.row), r.base!.token])));
+    return { format: sheet.format, columns: IMPORT_COLUMNS, rules: IMPORT_RULES, problems, rows, summary: count(rows), basis };
   }
 
   /** Imports every row in one transaction, or nothing when any row or the file has a problem. */
@@ -60,6 +66,9 @@ export class IngredientImportService {
     const preview = await this.preview(upload);
     const bad = preview.rows.filter((r) => r.problems.length > 0);
     if (preview.problems.length > 0 || bad.length > 0) throw refused(preview.problems, bad);
+    const basis = parseBasis(upload.fields.basis);
+    // Inside the write's lock: every row's ingredient must be as the person's preview saw it.
+    const check = (state: KitchenState, t: Transaction) => this.assertUnchanged(preview.rows, basis, state, t);
     const changes = preview.rows.filter((r) => r.action !== 'unchanged').map((r) => r.ingredient!);
     const note = `Imported from ${upload.file!.filename || 'a spreadsheet'}`.slice(0, 300);
     const { create: created, update: updated } = preview.summary;
@@ -68,11 +77,49 @@ export class IngredientImportService {
       record: { kind: 'spreadsheet', id: (upload.file!.filename || 'a spreadsheet').slice(0, 120) },
       summary: `${note}: ${created} ingredient${created === 1 ? '' : 's'} added, ${updated} revised.`,
     };
-    const written = changes.length > 0 ? await this.books.writeItems({ ingredients: changes }, { authorId, note }, 'any', audit) : [];
+    if (changes.length === 0) {
+      await this.books.readLocked(check);
+      return { ...preview.summary, written: [] };
+    }
+    const written = await this.books.writeItems({ ingredients: changes }, { authorId, note }, 'any', audit, check);
     return { ...preview.summary, written };
   }
 
-  private readRows(sheetRows: SheetRow[], header: HeaderMap, idColumn: number, book: Book): ImportRow[] {
+  /** Refuses the import (stale-preview, nothing saved) when a row's ingredient was created or revised after the preview. */
+  private async assertUnchanged(rows: ImportRow[], basis: Record<string, string>, state: KitchenState, t: Transaction): Promise<void> {
+    const moved = rows.filter((r) => r.base && basis[String(r.row)] !== rowToken(r.ingredient!.id, state.heads.get(r.ingredient!.id)));
+    if (moved.length === 0) return;
+    const ids = moved.map((r) => r.ingredient!.id);
+    const saves = await this.books.currentSaves(state, ids, t);
+    // The token the person sent back starts with the revision their preview saw (0: none).
+    const previewed = (r: ImportRow): number | null => Number(/^(\d+)\./.exec(basis[String(r.row)] ?? '')?.[1] ?? 0) || null;
+    const staleRows: StaleImportRow[] = moved.map((r) => {
+      const save = saves.get(r.ingredient!.id);
+      return {
+        row: r.row,
+        id: r.ingredient!.id,
+        previewRevision: previewed(r),
+        currentRevision: state.heads.get(r.ingredient!.id)?.revision ?? null,
+        authorName: save?.authorName ?? null,
+        savedAt: save?.savedAt ?? null,
+      };
+    });
+    const words = staleRows.map((s) => {
+      const who = s.authorName ?? 'someone without a kitchen account';
+      const what = s.previewRevision === null && s.currentRevision === 1 ? 'created it' : `saved revision ${s.currentRevision}`;
+      return `Row ${s.row} (${s.id}): ${who} ${what}${s.savedAt ? ` at ${savedAtWords(s.savedAt)}` : ''}.`;
+    });
+    throw new AppError(
+      'stale-preview',
+      `Nothing was imported: ${staleRows.length === 1 ? "1 row's ingredient" : `${staleRows.length} rows' ingredients`} changed since the preview. ${words.join(' ')} Preview the file again to see what it would change now.`,
+      undefined,
+      undefined,
+      { staleRows },
+    );
+  }
+
+  private readRows(sheetRows: SheetRow[], header: HeaderMap, idColumn: number, state: KitchenState): ImportRow[] {
+    const book = state.book;
     const existing = new Map(book.ingredients.map((i) => [i.id.toLowerCase(), i]));
     const recipes = new Map(book.recipes.map((r) => [r.id.toLowerCase(), r.id]));
     const rows = sheetRows.map(({ row, cells }): ImportRow => {
@@ -97,7 +144,13 @@ export class IngredientImportService {
       if (!parsed.success) for (const issue of parsed.error.issues) problems.push(formatIssue(issue, place));
       const ingredient = parsed.success && problems.length === 0 ? parsed.data : null;
       const action: ImportAction = !base ? 'create' : ingredient && sameData(base, ingredient) ? 'unchanged' : 'update';
-      return { row, ingredient, action, problems };
+      return {
+        row,
+        ingredient,
+        action,
+        problems,
+        base: id === '' ? null : { revision: state.heads.get(id)?.revision ?? null, token: rowToken(id, state.heads.get(id)) },
+      };
     });
     const ids = sheetRows.map(({ cells }) => cellText(cells[idColumn] ?? null));
     const byId = new Map<string, number[]>();
@@ -141,6 +194,36 @@ function rowOfProblem(p: BookProblem): { id?: string; column: string[] } {
     case 'recipe-cycle':
       return { column: [] };
   }
+}
+
+/**
+ * A token of the state a row's ingredient is in: its current revision (0 when it does not exist),
+ * then a hash of the id with it. Revisions only ever grow, so an equal token means nobody saved or
+ * created the ingredient since.
+ */
+function rowToken(id: string, head: { revision: number } | undefined): string {
+  const revision = head ? head.revision : 0;
+  return `${revision}.${createHash('sha256').update(`ingredient-import\n${id}\n${revision}`).digest('base64url').slice(0, 22)}`;
+}
+
+const basisSchema = z.record(z.string().regex(/^\d+$/), z.string().max(100));
+
+/** The preview's basis, sent back with the import; without it the import cannot know what the person saw. */
+function parseBasis(text: string | undefined): Record<string, string> {
+  const missing = 'Preview the file first, then import it with the basis the preview gave (the form field basis).';
+  if (text === undefined || text === '') throw new AppError('validation', missing, [{ path: 'basis', message: missing }]);
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch {
+    value = undefined;
+  }
+  const parsed = basisSchema.safeParse(value);
+  if (!parsed.success) {
+    const message = "The basis is not the one a preview gives: send the preview's basis as it came. Preview the file again if it is lost.";
+    throw new AppError('validation', message, [{ path: 'basis', message }]);
+  }
+  return parsed.data;
 }
 
 /** 0 → A, 25 → Z, 26 → AA. */

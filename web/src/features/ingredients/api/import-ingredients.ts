@@ -4,9 +4,16 @@ import { refreshAfterKitchenWrite } from '@/api/kitchen-writes';
 import { mutationKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
 
-/** Imports every row of the spreadsheet, or none when any row has a problem. */
-export async function importIngredients(file: File): Promise<ImportResult> {
+export interface ImportIngredientsInput {
+  file: File;
+  /** The preview's basis: the API imports nothing when a row's ingredient changed since (stale-preview). */
+  basis: string;
+}
+
+/** Imports every row of the spreadsheet, or none when any row has a problem or changed since the preview. */
+export async function importIngredients({ file, basis }: ImportIngredientsInput): Promise<ImportResult> {
   const form = new FormData();
+  form.append('basis', basis);
   form.append('file', file, file.name);
   return apiClient.post<ImportResult>('/ingredients/import', form);
 }

@@ -22,21 +22,25 @@ const WITH_PROBLEM: ImportPreview = {
       ingredient: { id: 'butter', name: 'Unsalted butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true },
       action: 'update',
       problems: [],
+      base: { revision: 3, token: '3.butter-token' },
     },
     {
       row: 3,
       ingredient: { id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: true, vegetarian: true },
       action: 'create',
       problems: [],
+      base: { revision: null, token: '0.rice-token' },
     },
     {
       row: 4,
       ingredient: null,
       action: 'create',
       problems: ["Column 'contains' names 'nuts', which is not an allergen source. Use e.g. 'almond' or 'hazelnut'."],
+      base: null,
     },
   ],
   summary: { create: 2, update: 1, unchanged: 0, withProblems: 1 },
+  basis: '{"2":"3.butter-token","3":"0.rice-token"}',
 };
 
 const CLEAN: ImportPreview = {
@@ -93,6 +97,63 @@ describe('Spreadsheet import', () => {
 
     expect(await screen.findByText('Imported 2 ingredients: 1 added, 1 updated.')).toBeInTheDocument();
     await waitFor(() => expect(calls.filter((call) => call.path === '/api/ingredients/import')).toHaveLength(1));
+  });
+
+  it('sends the check’s basis, and when an ingredient changed since names each row, who and when, and checks again on request', async () => {
+    let previews = 0;
+    const { calls, fetchMock } = mockApi(
+      signedInAs('pastry-chef', {
+        'POST /api/ingredients/import/preview': () => {
+          previews++;
+          return { body: CLEAN };
+        },
+        'POST /api/ingredients/import': {
+          status: 409,
+          body: {
+            statusCode: 409,
+            code: 'stale-preview',
+            message: "Nothing was imported: 1 row's ingredient changed since the preview.",
+            staleRows: [
+              {
+                row: 2,
+                id: 'butter',
+                previewRevision: 3,
+                currentRevision: 4,
+                authorName: 'Maren Holloway',
+                savedAt: '2026-12-02T16:20:00.000Z',
+              },
+            ],
+          },
+        },
+      }),
+    );
+    const { user } = await openImport();
+    await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+    await user.click(await screen.findByRole('button', { name: 'Import 2 ingredients' }));
+
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent('Someone saved these ingredients after your check: nothing was imported');
+    const rows = within(alert).getByRole('list', { name: 'Rows whose ingredient changed since the check' });
+    expect(
+      within(rows)
+        .getAllByRole('listitem')
+        .map((item) => item.textContent),
+    ).toEqual([
+      expect.stringMatching(
+        /^Row 2, butter: Maren Holloway saved revision 4 on 2 Dec 2026, \d\d:\d\d; the check compared it with revision 3\.$/,
+      ),
+    ]);
+    const sent = fetchMock.mock.calls
+      .filter(([url]) => requestUrl(url).endsWith('/ingredients/import'))
+      .map(([, init]) => init?.body as FormData);
+    expect(sent.map((form) => form.get('basis'))).toEqual([CLEAN.basis]);
+
+    await user.click(within(alert).getByRole('button', { name: 'Check the file again' }));
+    await waitFor(() => expect(previews).toBe(2));
+    expect(await screen.findByRole('button', { name: 'Import 2 ingredients' })).toBeEnabled();
+    expect(screen.queryByRole('alert')).not.toBeInTheDocument();
+    expect(calls.filter((call) => call.path === '/api/ingredients/import')).toHaveLength(1);
   });
 
   it('refuses to import when the file as a whole has a problem', async () => {

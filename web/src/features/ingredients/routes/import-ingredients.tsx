@@ -1,11 +1,12 @@
 import { Box, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
-import type { ImportCounts, ImportPreview, ImportResult } from '@crumbproof/shared';
+import type { ImportCounts, ImportPreview, ImportResult, StaleImportRow } from '@crumbproof/shared';
 import { useRef, useState, type FormEvent } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
 import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/format';
 import { useImportIngredients } from '../api/import-ingredients';
 import { usePreviewImport } from '../api/preview-import';
 import { ImportPreviewTable } from '../components/import-preview-table';
@@ -67,6 +68,40 @@ function ImportHelp({ columns, rules }: { columns: ImportPreview['columns']; rul
   );
 }
 
+/** "Row 2, caster-sugar: Maren Holloway saved revision 4 on 2 Dec 2026, 16:20; the check compared it with revision 3." */
+function staleRowWords(stale: StaleImportRow): string {
+  const who = stale.authorName ?? 'Someone without a kitchen account';
+  const what =
+    stale.currentRevision === null
+      ? 'it is no longer in the library'
+      : stale.previewRevision === null
+        ? `${who} created it`
+        : `${who} saved revision ${stale.currentRevision}`;
+  const when = stale.savedAt ? ` on ${formatDateTime(stale.savedAt)}` : '';
+  const compared =
+    stale.previewRevision === null ? 'the check found no such ingredient' : `the check compared it with revision ${stale.previewRevision}`;
+  return `Row ${stale.row}, ${stale.id}: ${what}${when}; ${compared}.`;
+}
+
+/** The import refused because ingredients changed after the check: which rows, who and when, and a new check. */
+function StalePreviewAlert({ rows, onCheckAgain, checking }: { rows: StaleImportRow[]; onCheckAgain: () => void; checking: boolean }) {
+  return (
+    <ErrorAlert title="Someone saved these ingredients after your check: nothing was imported">
+      <Stack gap="2">
+        <Box as="ul" ps="5" m="0" aria-label="Rows whose ingredient changed since the check">
+          {rows.map((row) => (
+            <li key={row.row}>{staleRowWords(row)}</li>
+          ))}
+        </Box>
+        <Text>Check the file again to see what it would change now, then import.</Text>
+        <Button alignSelf="flex-start" variant="outline" onClick={onCheckAgain} loading={checking} loadingText="Checking…">
+          Check the file again
+        </Button>
+      </Stack>
+    </ErrorAlert>
+  );
+}
+
 export function ImportIngredientsRoute() {
   const fileRef = useRef<HTMLInputElement>(null);
   const [file, setFile] = useState<File | null>(null);
@@ -87,22 +122,39 @@ export function ImportIngredientsRoute() {
     }
     setFileError(undefined);
     setFile(chosen);
+    check(chosen);
+  }
+
+  function check(chosen: File) {
     setPreview(null);
     previewImport.mutate(chosen, { onSuccess: setPreview });
   }
 
-  function handleImport() {
+  function checkAgain() {
     if (!file) return;
-    importIngredients.mutate(file, {
-      onSuccess: (summary) => {
-        setImported(summary);
-        setPreview(null);
-        setFile(null);
-        if (fileRef.current) fileRef.current.value = '';
-      },
-    });
+    importIngredients.reset();
+    check(file);
   }
 
+  function handleImport() {
+    if (!file || !preview) return;
+    importIngredients.mutate(
+      { file, basis: preview.basis },
+      {
+        onSuccess: (summary) => {
+          setImported(summary);
+          setPreview(null);
+          setFile(null);
+          if (fileRef.current) fileRef.current.value = '';
+        },
+      },
+    );
+  }
+
+  const staleRows =
+    importIngredients.isError && isApiError(importIngredients.error) && importIngredients.error.code === 'stale-preview'
+      ? importIngredients.error.staleRows
+      : [];
   // Rows that would change something; a row with problems is never imported.
   const count = preview ? preview.rows.filter((row) => row.problems.length === 0 && row.action !== 'unchanged').length : 0;
   const fileProblems = preview?.problems ?? [];
@@ -189,7 +241,9 @@ export function ImportIngredientsRoute() {
           ) : null}
           {preview.rows.length > 0 ? <ImportPreviewTable preview={preview} /> : null}
           <ImportHelp columns={preview.columns} rules={preview.rules} />
-          {importIngredients.isError ? (
+          {staleRows.length > 0 ? (
+            <StalePreviewAlert rows={staleRows} onCheckAgain={checkAgain} checking={previewImport.isPending} />
+          ) : importIngredients.isError ? (
             <ErrorAlert title="Nothing was imported">
               {errorText(importIngredients.error, 'Try again in a moment.').map((line, index) => (
                 <Text key={index}>{line}</Text>
