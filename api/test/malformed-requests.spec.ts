@@ -1105,6 +1105,9 @@ const CORPUS: MalformedRequest[] = [
       ['an extension digit of 10', labelSettings({ ssccExtension: 10 }), /^ssccExtension: Give the SSCC extension digit, 0 to 9/m],
       ['a case indicator of 9', labelSettings({ caseIndicator: 9 }), /^caseIndicator: Give the case indicator digit, 1 to 8/m],
       ['a case indicator of 0', labelSettings({ caseIndicator: 0 }), /^caseIndicator: /m],
+      // PUT replaces every setting: one left out is named, never put back to its default.
+      ['no settings at all', {}, /^batchPattern: Write the batch pattern as text/m],
+      ['a body without the company prefix', { ...labelSettings(), gs1CompanyPrefix: undefined }, /^gs1CompanyPrefix: /m],
     ] as const
   ).map(([what, body, names]) => ({
     what,
