@@ -195,7 +195,7 @@ describe('invitations', () => {
       manager,
     );
     expect(res.statusCode).toBe(201);
-    expect(res.json()).toMatchObject({ email: 'new.baker@example.com', passwordSet: false, active: true });
+    expect(res.json()).toMatchObject({ email: 'new.baker@example.com', invitationPending: true, active: true });
     const got = await smtp.waitFor(to('new.baker@example.com'));
     expect(got.subject).toBe(`You are invited to ${KITCHEN} on Crumbproof`);
     expect(got.from?.text).toBe(`"${KITCHEN} via Crumbproof" <kitchen-mail@bakehouse.example>`);

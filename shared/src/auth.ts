@@ -83,8 +83,8 @@ export const updateUserSchema = z
   .refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
 export type UpdateUserRequest = z.infer<typeof updateUserSchema>;
 
-/** passwordSet: false for a user who was invited and has not chosen a password yet (they cannot sign in). */
-export const userSchema = meSchema.extend({ active: z.boolean(), passwordSet: z.boolean(), createdAt: z.string() });
+/** invitationPending: true for a user who was invited and has not chosen a password yet (they cannot sign in). */
+export const userSchema = meSchema.extend({ active: z.boolean(), invitationPending: z.boolean(), createdAt: z.string() });
 export type User = z.infer<typeof userSchema>;
 
 /** Sets the first manager of a kitchen's own installation, with the one-time link printed at its first start. */

@@ -85,7 +85,7 @@ export function toUser(row: UserModel): User {
     name: row.name,
     role: row.role,
     active: row.active,
-    passwordSet: row.passwordHash !== null,
+    invitationPending: row.passwordHash === null,
     createdAt: row.createdAt.toISOString(),
   };
 }
