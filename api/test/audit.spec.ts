@@ -159,7 +159,7 @@ async function newestInvitationToken(): Promise<string> {
       type: QueryTypes.SELECT,
     },
   );
-  return /\/set-password#([A-Za-z0-9_-]+)/.exec(row.text)![1];
+  return /\/set-password#token=([A-Za-z0-9_-]+)/.exec(row.text)![1];
 }
 
 /** A mail kept as not sent after its last attempt, as the sender leaves one. */

@@ -73,7 +73,7 @@ async function outboxRow(id: string) {
 
 const to = (address: string) => (m: ParsedMail) =>
   m.to !== undefined && [m.to].flat().some((a) => a.value.some((v) => v.address === address));
-const tokenIn = (m: ParsedMail) => /\/set-password#([A-Za-z0-9_-]+)/.exec(m.text ?? '')![1];
+const tokenIn = (m: ParsedMail) => /\/set-password#token=([A-Za-z0-9_-]+)/.exec(m.text ?? '')![1];
 
 describe('the outbox', () => {
   it('never sends a mail queued in a write that was rolled back', async () => {
@@ -204,7 +204,7 @@ describe('invitations', () => {
     expect(got.html).not.toContain('<Baker>');
     expect(got.text).toContain('for 72 hours');
     const token = tokenIn(got);
-    expect(got.html).toContain(`/set-password#${token}`);
+    expect(got.html).toContain(`/set-password#token=${token}`);
 
     // Only the token's SHA-256 is kept, and the sent mail's kept copy no longer carries it.
     await sender.whenIdle();

@@ -227,7 +227,7 @@ export class AccountsService {
     const expiresAt = new Date(now.getTime() + LINK_MINUTES[purpose] * 60_000);
     await this.links.replace(user.id, purpose, sha256(token), expiresAt, now, t);
     const kitchen = (await this.sites.first(t))?.name ?? 'your kitchen';
-    const url = `${appAddress(this.config)}/set-password#${token}`;
+    const url = `${appAddress(this.config)}/set-password#token=${token}`;
     const body =
       purpose === 'invitation'
         ? invitationMail({
