@@ -1,6 +1,7 @@
 // npm start: installs what is missing, starts the private MariaDB under .data/, migrates,
 // seeds the demo kitchen into an empty database, builds the web app and serves it from the API.
 import { join } from 'node:path';
+import { startDevInbox } from './lib/dev-inbox.mjs';
 import { ensureMariadbInstalled, instance, isPortFree } from './lib/mariadb.mjs';
 import { buildAll, DB_USERS, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
 
@@ -22,6 +23,8 @@ async function main() {
   db.claim('npm start');
   /** @type {import('node:child_process').ChildProcess | null} */
   let api = null;
+  /** @type {import('./lib/dev-inbox.mjs').DevInbox | null} */
+  let inbox = null;
   let stopping = false;
   const stop = async (code = 0) => {
     if (stopping) return;
@@ -37,6 +40,7 @@ async function main() {
         })
       );
     }
+    await inbox?.stop();
     await db.stop();
     db.release();
     console.log('Stopped. Your data is kept in .data/ for the next npm start.');
@@ -59,6 +63,12 @@ async function main() {
 
     buildAll();
 
+    // Mail goes to the kitchen's own server when SMTP_HOST is set, otherwise to the development inbox here.
+    if (!process.env.SMTP_HOST) {
+      step('Starting the development inbox (maildev) on 127.0.0.1…');
+      inbox = await startDevInbox({ dir: join(dataDir, 'mail'), from: process.env.MAIL_FROM });
+    }
+
     const env = {
       ...dbEnv({ port: DB_PORT, database: 'crumbproof' }),
       NODE_ENV: 'production',
@@ -68,6 +78,7 @@ async function main() {
       JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
       WEB_DIST: join(ROOT, 'web', 'dist'),
       LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
+      ...(inbox ? inbox.env : {}),
     };
     step('Migrating and seeding…');
     run('node', ['api/dist/cli/db.js', 'setup'], { env });
@@ -101,6 +112,12 @@ async function main() {
 ${intro}
 
   API documentation: http://${HOST}:${PORT}/api/docs
+${
+  inbox
+    ? `  Mail (invitations, password links) goes to the development inbox on this machine, read at
+  ${inbox.url} (kept in .data/mail); set SMTP_HOST and MAIL_FROM to send it through your mail server.`
+    : `  Mail goes through ${process.env.SMTP_HOST}; the manager's Mail page shows what was sent.`
+}
   Press Ctrl-C to stop.`);
   } catch (err) {
     console.error(`\n${err instanceof Error ? err.message : String(err)}`);
