@@ -62,7 +62,7 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'POST /api/composition/scan': [401, 403, 400, 400],
   'GET /api/labels/templates': [401, 403, 200, 200],
   'GET /api/labels/settings': [401, 403, 404, 404],
-  'PUT /api/labels/settings': [401, 403, 403, 404],
+  'PUT /api/labels/settings': [401, 403, 403, 400],
   'POST /api/labels/runs': [401, 403, 400, 400],
   'GET /api/labels/runs': [401, 403, 404, 404],
   'GET /api/labels/runs/:id/pdf': [401, 403, 404, 404],
