@@ -2,14 +2,14 @@
 // dev server with hot reload for the web app (http://127.0.0.1:5173, /api proxied to :3000).
 import { join } from 'node:path';
 import { startDevInbox } from './lib/dev-inbox.mjs';
-import { ensureMariadbInstalled, instance } from './lib/mariadb.mjs';
+import { chooseDatabasePort, ensureMariadbInstalled, instance } from './lib/mariadb.mjs';
 import { DB_USERS, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step } from './lib/workspace.mjs';
 
-const DB_PORT = Number(process.env.DB_PORT ?? 3307);
 const dataDir = join(ROOT, '.data');
 
 ensureNodeModules();
 ensureMariadbInstalled((m) => step(m));
+const DB_PORT = await chooseDatabasePort(join(dataDir, 'mariadb'), (m) => step(m));
 const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
 db.claim('npm run dev');
 /** @type {import('node:child_process').ChildProcess[]} */

@@ -2,11 +2,9 @@
 // seeds the demo kitchen into an empty database, builds the web app and serves it from the API.
 import { join } from 'node:path';
 import { startDevInbox } from './lib/dev-inbox.mjs';
-import { ensureMariadbInstalled, instance, isPortFree } from './lib/mariadb.mjs';
+import { chooseDatabasePort, ensureMariadbInstalled, freePort, instance, isPortFree } from './lib/mariadb.mjs';
 import { buildAll, DB_USERS, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
 
-const PORT = Number(process.env.PORT ?? 3000);
-const DB_PORT = Number(process.env.DB_PORT ?? 3307);
 // Loopback by default. HOST=0.0.0.0 npm start listens on every network: no demo kitchen then,
 // and the session cookie is Secure, so serve it over HTTPS (a reverse proxy in front).
 const HOST = process.env.HOST ?? '127.0.0.1';
@@ -15,10 +13,27 @@ const LOOPBACK = HOST === 'localhost' || HOST === '::1' || /^127(\.\d{1,3}){3}$/
 const DEMO = (process.env.DEMO_KITCHEN ?? (LOOPBACK ? 'true' : 'false')) === 'true';
 const dataDir = join(ROOT, '.data');
 
+/**
+ * PORT when it is set (refused, naming it, when in use); otherwise 3000, or a free port when
+ * something else holds 3000 (another copy of Crumbproof), said in the output.
+ */
+async function appPort() {
+  if (process.env.PORT) {
+    const port = Number(process.env.PORT);
+    if (!(await isPortFree(port))) throw new Error(`Port ${port} on ${HOST} is in use. Stop what uses it, or choose another PORT.`);
+    return port;
+  }
+  if (await isPortFree(3000)) return 3000;
+  const port = await freePort();
+  step(`Port 3000 is in use (another copy of Crumbproof?): this one serves on port ${port}. Set PORT to choose.`);
+  return port;
+}
+
 async function main() {
   ensureNodeModules();
   ensureMariadbInstalled((m) => step(m));
 
+  const DB_PORT = await chooseDatabasePort(join(dataDir, 'mariadb'), (m) => step(m));
   const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
   db.claim('npm start');
   /** @type {import('node:child_process').ChildProcess | null} */
@@ -50,9 +65,7 @@ async function main() {
   process.on('SIGTERM', () => void stop(0));
 
   try {
-    if (!(await isPortFree(PORT))) {
-      throw new Error(`Port ${PORT} on ${HOST} is in use. Stop what uses it, or run PORT=3100 npm start.`);
-    }
+    const PORT = await appPort();
     if (db.runningPid()) {
       step('A database from an earlier run is still up: stopping it first…');
       await db.stop();
