@@ -20,15 +20,16 @@ describe('the public product page (real MariaDB)', () => {
   let other: RecipeView;
 
   const page = (path: string, remoteAddress = '192.0.2.10') => t.app.inject({ method: 'GET', url: path, remoteAddress });
-  const publish = async (recipe: RecipeView, published: boolean | undefined) => {
-    const { revision: _revision, updatedAt: _updatedAt, ...body } = recipe;
+  /** Publishes the product, or not, in a save from its current revision (the one an editor would load now). */
+  const publish = async (product: RecipeView, published: boolean | undefined) => {
+    const { revision, updatedAt: _updatedAt, ...body } = await recipe(product.id);
     const sale = { ...body.sale!, published };
     if (published === undefined) delete sale.published;
     const res = await t.app.inject({
       method: 'PUT',
-      url: `/api/recipes/${recipe.id}`,
+      url: `/api/recipes/${product.id}`,
       headers: { cookie: chef },
-      payload: { ...body, sale },
+      payload: { ...body, sale, baseRevision: revision },
     });
     expect(res.statusCode).toBe(200);
   };

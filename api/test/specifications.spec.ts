@@ -149,7 +149,11 @@ describe('supplier specifications (real MariaDB)', () => {
   });
 
   it.each<{ case: string; fields: Record<string, string>; message: RegExp }>([
-    { case: 'missing', fields: {}, message: /reviewBy: Give the date by which the kitchen must check this specification again/ },
+    {
+      case: 'written another way',
+      fields: { reviewBy: '1 March 2031' },
+      message: /reviewBy: '1 March 2031' is not a date written as YYYY-MM-DD/,
+    },
     { case: 'in the past', fields: { reviewBy: isoDay(-1) }, message: new RegExp(`reviewBy: ${isoDay(-1)} has already passed`) },
     { case: 'not a real date', fields: { reviewBy: '2031-02-30' }, message: /reviewBy: 2031-02-30 is not a real date/ },
     { case: 'not a date', fields: { reviewBy: 'next spring' }, message: /reviewBy: 'next spring' is not a date written as YYYY-MM-DD/ },

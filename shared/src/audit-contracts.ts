@@ -27,12 +27,19 @@ export const AUDIT_ACTIONS = [
   'counter.question-asked',
   'counter.question-answered',
   'specification.uploaded',
+  'specifications.reviewed',
   'swap.applied',
   'sign-in.succeeded',
   'sign-in.failed',
   'signed-out',
   'access.refused',
   'first-manager.set',
+  'user.invited',
+  'invitation.resent',
+  'password-reset.requested',
+  'password.set',
+  'account-link.refused',
+  'mail.retried',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 
@@ -53,12 +60,19 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'counter.question-asked': 'Question asked of the kitchen',
   'counter.question-answered': 'Question answered',
   'specification.uploaded': 'Supplier specification uploaded',
+  'specifications.reviewed': 'Supplier specifications looked at for review (daily)',
   'swap.applied': 'Swap applied',
   'sign-in.succeeded': 'Signed in',
   'sign-in.failed': 'Sign-in refused',
   'signed-out': 'Signed out',
   'access.refused': 'Access refused',
   'first-manager.set': 'First manager set',
+  'user.invited': 'User invited',
+  'invitation.resent': 'Invitation sent again',
+  'password-reset.requested': 'Password reset asked for',
+  'password.set': 'Password set with a mailed link',
+  'account-link.refused': 'Mailed link refused',
+  'mail.retried': 'Mail sent again',
 };
 
 /** Who did it, as they were at the time (a later rename or new role does not rewrite the trail); null for an anonymous event. */

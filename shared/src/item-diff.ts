@@ -97,8 +97,15 @@ export type NameOf = (id: string) => string | undefined;
 
 /** The lines of a recipe, by what they use: "added Butter 50 g; Butter 50 g → 60 g; removed Eggs 1 each". */
 function lines(before: RecipeLine[], after: RecipeLine[], nameOf: NameOf): ItemChange | null {
+  // A contact line brings its allergens and no weight: a quantity given to one never counts.
   const lineWords = (line: RecipeLine) =>
-    `${nameOf(line.use) ?? line.use} ${number(line.qty)} ${line.unit}${line.role === 'contact' ? ' (contact only)' : ''}`;
+    `${nameOf(line.use) ?? line.use}${
+      line.role === 'contact'
+        ? ' (contact only)'
+        : line.qty !== undefined && line.unit !== undefined
+          ? ` ${number(line.qty)} ${line.unit}`
+          : ''
+    }`;
   const b = before.map(lineWords);
   const a = after.map(lineWords);
   if (b.join('\n') === a.join('\n')) return null;

@@ -1,3 +1,4 @@
+import type { SpecificationReviewWarning } from './views';
 import type { Regime } from './allergens';
 import type { Declaration } from './declaration';
 import type { NutritionDeclaration } from './nutrition';
@@ -33,4 +34,6 @@ export interface DeclarationBasis {
 /** A product's declaration as the API serves it from the store: the declaration and its basis. */
 export interface ServedDeclaration extends ProductDeclaration {
   basis: DeclarationBasis;
+  /** Present when an ingredient below the product has a specification overdue for review, as of the day it is served. */
+  reviewWarnings?: SpecificationReviewWarning[];
 }

@@ -116,6 +116,42 @@ export interface SpecificationView {
 
 export type SpecificationState = 'missing' | 'overdue' | 'current';
 
+/** The newest specification of an ingredient, with its review-by date counted from the kitchen's today. */
+export interface SpecificationReview {
+  ingredient: string;
+  name: string;
+  specification: number;
+  version: number;
+  /** YYYY-MM-DD. */
+  reviewBy: string;
+  /** Days from today to the review-by date: negative when it has passed. */
+  daysLeft: number;
+}
+
+/** GET /api/specifications/reviews-due: what to review, as the kitchen's calendar stands today. */
+export interface ReviewsDue {
+  /** The kitchen's date the lists are counted from (YYYY-MM-DD). */
+  today: string;
+  /** How many days ahead dueSoon looks. */
+  withinDays: number;
+  /** Review-by date passed: oldest first. */
+  overdue: SpecificationReview[];
+  /** Review-by date today or within withinDays days: soonest first. */
+  dueSoon: SpecificationReview[];
+}
+
+/**
+ * Served with a declaration (never kept with it) when an ingredient below the product has a
+ * newest specification whose review-by date has passed: the declaration stands on what may no
+ * longer be the supplier's word. It never blocks anything.
+ */
+export interface SpecificationReviewWarning {
+  ingredient: string;
+  name: string;
+  reviewBy: string;
+  message: string;
+}
+
 export interface SpecificationStatus {
   ingredient: string;
   name: string;

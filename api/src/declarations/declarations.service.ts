@@ -16,6 +16,7 @@ import { KitchenService } from '../kitchen/kitchen.service';
 import { closureItems, closureOf } from '../rules/core/book-graph';
 import { canonicalJson } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
+import { SpecificationsService } from '../ingredients/specifications/specifications.service';
 import { DeclarationsRepository } from './declarations.repository';
 
 /**
@@ -29,6 +30,7 @@ export class DeclarationsService implements OnModuleInit {
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
     private readonly rules: RulesService,
+    private readonly specifications: SpecificationsService,
   ) {}
 
   /** Every recipe revision saved keeps the declaration it was saved with, for the revision history. */
@@ -93,7 +95,18 @@ export class DeclarationsService implements OnModuleInit {
         basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
       });
     }
-    return out;
+    // Worked out as the declaration is served, from today's date: a kept declaration never freezes it.
+    const below = new Map(
+      inputs.flatMap(({ items }) =>
+        items.filter((i) => i.kind === 'ingredient').map((i) => [i.id, { rowId: heads.get(i.id)!.rowId, id: i.id, name: i.name }] as const),
+      ),
+    );
+    const warnings = await this.specifications.overdueWarnings([...below.values()]);
+    if (warnings.size === 0) return out;
+    return out.map((served, n) => {
+      const found = inputs[n].items.flatMap((i) => (i.kind === 'ingredient' && warnings.has(i.id) ? [warnings.get(i.id)!] : []));
+      return found.length > 0 ? { ...served, reviewWarnings: found } : served;
+    });
   }
 
   /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */

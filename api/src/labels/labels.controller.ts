@@ -1,7 +1,13 @@
 import { Body, Controller, Get, Header, HttpCode, Param, Post, Put, Query, Res } from '@nestjs/common';
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
 import type { FastifyReply } from 'fastify';
-import { KITCHEN_WRITERS, labelRunRequestSchema, labelSettingsSchema, type LabelRunRequest, type LabelSettings } from '@crumbproof/shared';
+import {
+  KITCHEN_WRITERS,
+  labelRunRequestSchema,
+  labelSettingsSaveSchema,
+  type LabelRunRequest,
+  type LabelSettings,
+} from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { withTotalCount } from '../common/total-count';
@@ -31,8 +37,8 @@ export class LabelsController {
   @Put('settings')
   @Roles(['manager'])
   @ApiOperation({ summary: 'Change the kitchen’s label settings (manager)' })
-  @ApiZodBody(labelSettingsSchema)
-  saveSettings(@Body(new ZodPipe(labelSettingsSchema)) body: LabelSettings) {
+  @ApiZodBody(labelSettingsSaveSchema, 'Every setting, as PUT replaces them all')
+  saveSettings(@Body(new ZodPipe(labelSettingsSaveSchema)) body: LabelSettings) {
     return this.labels.saveSettings(body);
   }
 

@@ -10,7 +10,7 @@ describe('navigation map', () => {
   });
 
   it('lets only managers open users, approvals and audit', () => {
-    for (const page of ['users', 'approvals', 'audit'] as const) {
+    for (const page of ['users', 'approvals', 'audit', 'mail'] as const) {
       expect(rolesThatCanOpen(page)).toEqual(['manager']);
     }
     expect(canOpen('front-of-house', 'ingredients')).toBe(false);

@@ -3,6 +3,7 @@ import { ROLE_LABELS, ROLES, type Role } from '@crumbproof/shared';
 /** Every page of the workbench, in the order the navigation shows them. */
 export const PAGES = {
   ingredients: { path: '/ingredients', label: 'Ingredients' },
+  today: { path: '/today', label: 'Today' },
   recipes: { path: '/recipes', label: 'Recipes' },
   counter: { path: '/counter', label: 'Counter' },
   labels: { path: '/labels', label: 'Labels' },
@@ -10,6 +11,7 @@ export const PAGES = {
   audit: { path: '/audit', label: 'Audit' },
   kitchen: { path: '/kitchen', label: 'Kitchen' },
   users: { path: '/users', label: 'Users' },
+  mail: { path: '/mail', label: 'Mail' },
 } as const satisfies Record<string, { path: string; label: string }>;
 
 export type PageKey = keyof typeof PAGES;
@@ -19,8 +21,8 @@ export type PageKey = keyof typeof PAGES;
  * after sign-in and the refused page all read it.
  */
 export const PAGES_BY_ROLE: Record<Role, readonly PageKey[]> = {
-  manager: ['ingredients', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users'],
-  'pastry-chef': ['ingredients', 'recipes', 'counter', 'labels'],
+  manager: ['ingredients', 'today', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users', 'mail'],
+  'pastry-chef': ['ingredients', 'today', 'recipes', 'counter', 'labels'],
   'front-of-house': ['counter', 'recipes'],
 };
 

@@ -3,6 +3,9 @@ import type { ReactNode } from 'react';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { SignInRoute } from '@/features/auth/routes/sign-in';
 import { FirstManagerRoute } from '@/features/auth/routes/first-manager';
+import { ForgotPasswordRoute } from '@/features/auth/routes/forgot-password';
+import { SetPasswordRoute } from '@/features/auth/routes/set-password';
+import { MailRoute } from '@/features/mail/routes/mail';
 import { ApprovalsRoute } from '@/features/approvals/routes/approvals';
 import { AuditRoute } from '@/features/audit/routes/audit';
 import { CounterRoute } from '@/features/counter/routes/counter';
@@ -10,6 +13,7 @@ import { IngredientsRoute } from '@/features/ingredients/routes/ingredients';
 import { ImportIngredientsRoute } from '@/features/ingredients/routes/import-ingredients';
 import { IngredientRoute, NewIngredientRoute } from '@/features/ingredients/routes/ingredient';
 import { LabelsRoute } from '@/features/labels/routes/labels';
+import { TodayRoute } from '@/features/today/routes/today';
 import { RecipeRoute } from '@/features/recipes/routes/recipe';
 import { NewRecipeRoute, RecipeEditorRoute } from '@/features/recipes/routes/recipe-editor';
 import { RecipesRoute } from '@/features/recipes/routes/recipes';
@@ -26,6 +30,7 @@ import { RouteError } from './routes/route-error';
 
 const PAGE_ELEMENTS: Record<PageKey, ReactNode> = {
   ingredients: <IngredientsRoute />,
+  today: <TodayRoute />,
   recipes: <RecipesRoute />,
   counter: <CounterRoute />,
   labels: <LabelsRoute />,
@@ -33,6 +38,7 @@ const PAGE_ELEMENTS: Record<PageKey, ReactNode> = {
   audit: <AuditRoute />,
   kitchen: <KitchenRoute />,
   users: <UsersRoute />,
+  mail: <MailRoute />,
 };
 
 const homeFor = (me: Me) => firstPathFor(me.role);
@@ -51,6 +57,8 @@ export const routes: RouteObject[] = [
         children: [
           { path: '/sign-in', element: <SignInRoute homeFor={homeFor} /> },
           { path: '/first-manager', element: <FirstManagerRoute /> },
+          { path: '/set-password', element: <SetPasswordRoute /> },
+          { path: '/forgot-password', element: <ForgotPasswordRoute /> },
         ],
       },
       {

@@ -18,7 +18,10 @@ export class SpecificationsController {
   @HttpCode(201)
   @ApiOperation({ summary: "Attach a new version of an ingredient's supplier specification (PDF, PNG, JPEG or WebP, at most 10 MB)" })
   @ApiUpload({
-    reviewBy: { description: 'YYYY-MM-DD, today or later: when the kitchen must check it again', format: 'date', required: true },
+    reviewBy: {
+      description: 'YYYY-MM-DD, today or later: when the kitchen must check it again; left out, one year from today',
+      format: 'date',
+    },
     note: { description: 'Optional, at most 500 characters' },
   })
   async upload(@CurrentUser() user: AuthUser, @Param('code', ItemCodePipe) code: string, @Req() req: FastifyRequest) {
@@ -35,6 +38,15 @@ export class SpecificationsController {
   @ApiOperation({ summary: 'For every ingredient: its newest specification and whether it is missing, overdue or current' })
   status() {
     return this.specs.status();
+  }
+
+  @Get('specifications/reviews-due')
+  @ApiOperation({
+    summary:
+      "The specifications to review, counted from the kitchen's date today: overdue ones (review-by date passed) and those due within 30 days",
+  })
+  reviewsDue() {
+    return this.specs.reviewsDue();
   }
 
   @Get('specifications/:id/file')

@@ -11,8 +11,15 @@ import { KitchenService } from '../../kitchen/kitchen.service';
 import { SiteRepository } from '../../kitchen/site.repository';
 import { UsersRepository } from '../../users/users.repository';
 import { IngredientsRepository } from '../ingredients.repository';
-import { ACCEPTED_SPECIFICATION_TYPES, specificationFieldsSchema, today } from './specification.dto';
-import type { SpecificationStatus, SpecificationView } from '@crumbproof/shared';
+import { Clock } from '../../common/clock';
+import { ACCEPTED_SPECIFICATION_TYPES, addDays, defaultReviewBy, specificationFieldsSchema, today } from './specification.dto';
+import type {
+  ReviewsDue,
+  SpecificationReview,
+  SpecificationReviewWarning,
+  SpecificationStatus,
+  SpecificationView,
+} from '@crumbproof/shared';
 import { describeType, detectType, safeFilename, withExtension, type Upload } from '../../common/multipart-upload';
 import { SpecificationsRepository, type SpecificationRow } from './specifications.repository';
 
@@ -28,7 +35,13 @@ export class SpecificationsService {
     private readonly sites: SiteRepository,
     private readonly config: ConfigService<AppConfig, true>,
     private readonly audit: AuditService,
+    private readonly clock: Clock,
   ) {}
+
+  /** The kitchen's date now (the server's calendar, as `today()` counts it). */
+  private today(): string {
+    return today(this.clock.now());
+  }
 
   private async ingredient(code: string): Promise<Head> {
     const found = await this.ingredients.findHead((await this.kitchen.current()).id, code);
@@ -61,6 +74,7 @@ export class SpecificationsService {
       const message = `Only PDF files and images (PNG, JPEG, WebP) can be attached; this file is ${describeType(type)}.`;
       throw new AppError('validation', message, [{ path: 'file', message }]);
     }
+    const reviewBy = parsed.data.reviewBy || defaultReviewBy(this.today());
     const quota = this.config.get('KITCHEN_FILE_QUOTA_MB', { infer: true });
     const kitchen = await this.kitchen.current();
     const row = await this.tx.run(async (t) => {
@@ -77,7 +91,7 @@ export class SpecificationsService {
           sizeBytes: bytes.length,
           sha256: createHash('sha256').update(bytes).digest('hex'),
           content: bytes,
-          reviewBy: parsed.data.reviewBy,
+          reviewBy,
           note: parsed.data.note ?? '',
           uploadedBy: userId,
         },
@@ -87,14 +101,14 @@ export class SpecificationsService {
         {
           action: 'specification.uploaded',
           record: { kind: 'ingredient', id: ingredient.code },
-          summary: `Uploaded the supplier specification ${added.filename} for ${ingredient.code}, to review by ${parsed.data.reviewBy}.`,
+          summary: `Uploaded the supplier specification ${added.filename} for ${ingredient.code}, to review by ${reviewBy}${parsed.data.reviewBy ? '' : ' (one year from today, as none was given)'}.`,
           after: {
             specification: added.id,
             filename: added.filename,
             mediaType: added.mediaType,
             sizeBytes: added.sizeBytes,
             sha256: added.sha256,
-            reviewBy: parsed.data.reviewBy,
+            reviewBy,
             note: parsed.data.note ?? '',
           },
         },
@@ -102,14 +116,14 @@ export class SpecificationsService {
       );
       return added;
     });
-    return view(row, ingredient.code, true, today(), await this.uploaders());
+    return view(row, ingredient.code, true, this.today(), await this.uploaders());
   }
 
   /** Every version, newest first. */
   async list(code: string): Promise<SpecificationView[]> {
     const ingredient = await this.ingredient(code);
     const rows = await this.repo.listFor([ingredient.id]);
-    const now = today();
+    const now = this.today();
     const uploaders = await this.uploaders();
     return rows.map((r, i) => view(r, ingredient.code, i === 0, now, uploaders));
   }
@@ -135,9 +149,8 @@ export class SpecificationsService {
   async status(): Promise<SpecificationStatus[]> {
     const ingredients = await this.ingredients.listHeads((await this.kitchen.current()).id);
     const rows = await this.repo.listFor(ingredients.map((i) => i.id));
-    const latest = new Map<number, SpecificationRow>();
-    for (const r of rows) if (!latest.has(r.ingredientId)) latest.set(r.ingredientId, r);
-    const now = today();
+    const latest = newest(rows);
+    const now = this.today();
     return ingredients.map((i) => {
       const r = latest.get(i.id);
       return {
@@ -148,6 +161,76 @@ export class SpecificationsService {
       };
     });
   }
+
+  /**
+   * The newest specification of every ingredient whose review-by date has passed (overdue) or
+   * comes within `withinDays` days (due soon), counted from the kitchen's date at `now`.
+   */
+  async reviewsDue(now = this.clock.now(), withinDays = REVIEW_WINDOW_DAYS): Promise<ReviewsDue> {
+    const day = today(now);
+    const ingredients = await this.ingredients.listHeads((await this.kitchen.current()).id);
+    const latest = newest(await this.repo.listFor(ingredients.map((i) => i.id)));
+    const horizon = addDays(day, withinDays);
+    const reviews: SpecificationReview[] = ingredients.flatMap((i) => {
+      const r = latest.get(i.id);
+      if (!r || r.reviewBy > horizon) return [];
+      return [
+        {
+          ingredient: i.code,
+          name: i.name,
+          specification: r.id,
+          version: r.version,
+          reviewBy: r.reviewBy,
+          daysLeft: daysBetween(day, r.reviewBy),
+        },
+      ];
+    });
+    const byDate = (a: SpecificationReview, b: SpecificationReview) => a.reviewBy.localeCompare(b.reviewBy) || a.name.localeCompare(b.name);
+    return {
+      today: day,
+      withinDays,
+      overdue: reviews.filter((r) => r.reviewBy < day).sort(byDate),
+      dueSoon: reviews.filter((r) => r.reviewBy >= day).sort(byDate),
+    };
+  }
+
+  /**
+   * For the ingredients with these head ids, a warning for each whose newest specification is
+   * overdue for review today (computed as it is served, never kept).
+   */
+  async overdueWarnings(
+    ingredients: readonly { rowId: number; id: string; name: string }[],
+  ): Promise<Map<string, SpecificationReviewWarning>> {
+    const latest = newest(await this.repo.listFor(ingredients.map((i) => i.rowId)));
+    const day = this.today();
+    const warnings = new Map<string, SpecificationReviewWarning>();
+    for (const i of ingredients) {
+      const r = latest.get(i.rowId);
+      if (!r || r.reviewBy >= day) continue;
+      warnings.set(i.id, {
+        ingredient: i.id,
+        name: i.name,
+        reviewBy: r.reviewBy,
+        message: `The supplier specification of ${i.name} was due for review on ${r.reviewBy}; this declaration uses what it recorded. Check it against the supplier's current specification.`,
+      });
+    }
+    return warnings;
+  }
+}
+
+/** How far ahead the reviews-due list and its daily mail look. */
+export const REVIEW_WINDOW_DAYS = 30;
+
+/** The newest specification of each ingredient (rows come newest version first for each). */
+function newest(rows: SpecificationRow[]): Map<number, SpecificationRow> {
+  const latest = new Map<number, SpecificationRow>();
+  for (const r of rows) if (!latest.has(r.ingredientId)) latest.set(r.ingredientId, r);
+  return latest;
+}
+
+/** Calendar days from one YYYY-MM-DD to another. */
+function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
 }
 
 function view(r: SpecificationRow, ingredient: string, current: boolean, now: string, uploaders: Map<number, string>): SpecificationView {

@@ -7,10 +7,10 @@ import { renderApp } from '@/testing/render-app';
 const cases: { role: Role; links: string[]; first: string }[] = [
   {
     role: 'manager',
-    links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users'],
+    links: ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
     first: 'Ingredients',
   },
-  { role: 'pastry-chef', links: ['Ingredients', 'Recipes', 'Counter', 'Labels'], first: 'Ingredients' },
+  { role: 'pastry-chef', links: ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels'], first: 'Ingredients' },
   { role: 'front-of-house', links: ['Counter', 'Recipes'], first: 'Counter' },
 ];
 

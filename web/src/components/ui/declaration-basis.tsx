@@ -1,5 +1,5 @@
 import { Box, Link, Text } from '@chakra-ui/react';
-import type { DeclarationBasis, DeclarationBasisItem } from '@crumbproof/shared';
+import type { DeclarationBasis, DeclarationBasisItem, SpecificationReviewWarning } from '@crumbproof/shared';
 import { Link as RouterLink } from 'react-router-dom';
 import { formatDateTime } from '@/lib/format';
 import { hrefFor, useCanOpenPath } from './layer-path';
@@ -85,6 +85,34 @@ export function DeclarationBasisLine({ basis }: { basis: DeclarationBasis }) {
           </Box>
         </Box>
       ) : null}
+    </Box>
+  );
+}
+
+/**
+ * The ingredients below a product whose supplier specification is overdue for review, as of
+ * the day the declaration was served: said beside the basis, never blocking anything.
+ */
+export function ReviewWarnings({ warnings }: { warnings: readonly SpecificationReviewWarning[] | undefined }) {
+  if (!warnings || warnings.length === 0) return null;
+  return (
+    <Box
+      as="section"
+      aria-label="Specifications overdue for review"
+      borderStartWidth="4px"
+      borderColor="fg.muted"
+      bg="bg.subtle"
+      p="3"
+      rounded="md"
+    >
+      <Text fontWeight="bold">
+        Specification overdue for review: {warnings.length === 1 ? warnings[0]!.name : `${warnings.length} ingredients`}
+      </Text>
+      <Box as="ul" ps="5" m="0">
+        {warnings.map((warning) => (
+          <li key={warning.ingredient}>{warning.message}</li>
+        ))}
+      </Box>
     </Box>
   );
 }

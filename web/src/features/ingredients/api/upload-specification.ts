@@ -9,14 +9,14 @@ export const SPECIFICATION_MAX_BYTES = 10 * 1024 * 1024;
 export interface UploadSpecificationInput {
   code: string;
   file: File;
-  /** YYYY-MM-DD, today or later. */
+  /** YYYY-MM-DD, today or later; empty, the API gives one year from today. */
   reviewBy: string;
   note?: string;
 }
 
 export async function uploadSpecification({ code, file, reviewBy, note }: UploadSpecificationInput): Promise<SpecificationView> {
   const form = new FormData();
-  form.append('reviewBy', reviewBy);
+  if (reviewBy !== '') form.append('reviewBy', reviewBy);
   if (note && note.trim() !== '') form.append('note', note.trim());
   // The file goes last so the API has read the fields before the bytes arrive.
   form.append('file', file, file.name);

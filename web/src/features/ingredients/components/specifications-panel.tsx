@@ -44,8 +44,8 @@ export function SpecificationsPanel({ code }: { code: string }) {
     if (!file) found.file = 'Choose the specification file: a PDF or an image (PNG, JPEG or WebP).';
     else if (file.size > SPECIFICATION_MAX_BYTES)
       found.file = `This file is ${formatBytes(file.size)}; the limit is 10 MB. Save a smaller copy and upload that.`;
-    if (reviewBy === '') found.reviewBy = 'Give the date by which the kitchen must check this specification again.';
-    else if (reviewBy < todayIso()) found.reviewBy = `${formatDate(reviewBy)} has already passed; give today or a later date.`;
+    if (reviewBy !== '' && reviewBy < todayIso())
+      found.reviewBy = `${formatDate(reviewBy)} has already passed; give today or a later date.`;
     setProblems(found);
     if (!file || Object.keys(found).length > 0) return;
 
@@ -98,7 +98,7 @@ export function SpecificationsPanel({ code }: { code: string }) {
             <FormField label="Specification file" hint="PDF, PNG, JPEG or WebP, up to 10 MB." error={problems.file}>
               <TextInput ref={fileRef} type="file" accept={ACCEPT} size="md" p="1.5" disabled={upload.isPending} />
             </FormField>
-            <FormField label="Review by" error={problems.reviewBy}>
+            <FormField label="Review by" hint="Left empty: one year from today." error={problems.reviewBy}>
               <TextInput
                 type="date"
                 min={todayIso()}

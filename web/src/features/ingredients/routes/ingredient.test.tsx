@@ -488,6 +488,23 @@ describe('Ingredient page', () => {
     );
   });
 
+  it('uploads a specification without a review date, leaving the API to give one year from today', async () => {
+    const { fetchMock } = butterApi({
+      'POST /api/ingredients/butter/specifications': { status: 201, body: { ...SPECS[0]!, id: 21, version: 3, reviewBy: '2027-12-02' } },
+    });
+    const { user } = renderApp('/ingredients/butter');
+    const specsPanel = await screen.findByRole('region', { name: 'Specifications' });
+    expect(within(specsPanel).getByText('Left empty: one year from today.')).toBeInTheDocument();
+    await user.upload(
+      within(specsPanel).getByLabelText(/^Specification file/),
+      new File(['%PDF-1.7'], 'b.pdf', { type: 'application/pdf' }),
+    );
+    await user.click(within(specsPanel).getByRole('button', { name: 'Upload specification' }));
+    expect(await within(specsPanel).findByText(/uploaded\. Review by 2 Dec 2027\./)).toBeInTheDocument();
+    const upload = fetchMock.mock.calls.find(([url, init]) => requestUrl(url).endsWith('/specifications') && init?.method === 'POST');
+    expect((upload?.[1]?.body as FormData).has('reviewBy')).toBe(false);
+  });
+
   it('refuses a past review date before uploading', async () => {
     const { fetchMock } = butterApi();
     const { user } = renderApp('/ingredients/butter');

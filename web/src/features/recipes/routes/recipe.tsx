@@ -3,7 +3,7 @@ import { KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink, useLocation, useParams, useSearchParams } from 'react-router-dom';
 import { useRecipes } from '@/api/recipes';
-import { DeclarationBasisLine } from '@/components/ui/declaration-basis';
+import { DeclarationBasisLine, ReviewWarnings } from '@/components/ui/declaration-basis';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { buildItemLookup } from '@/components/ui/item-lookup';
 import { LayerPathLinks } from '@/components/ui/layer-path';
@@ -98,6 +98,7 @@ export function RecipeRoute() {
         <LayerPathLinks canOpen={(href) => writer || !href.startsWith('/ingredients/')}>
           <Stack gap="4">
             <DeclarationBasisLine basis={declaration.data.basis} />
+            <ReviewWarnings warnings={declaration.data.reviewWarnings} />
             <DeclarationPanel declaration={declaration.data} lookup={lookup} />
             <NutritionPanel nutrition={declaration.data.nutrition} />
           </Stack>
