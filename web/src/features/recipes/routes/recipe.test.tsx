@@ -50,6 +50,27 @@ describe('Product page: the declaration panel', () => {
     expect(milk.closest('li')).not.toHaveTextContent('From contact');
   });
 
+  it('warns, beside the basis, of an ingredient whose specification is overdue for review, and shows the declaration all the same', async () => {
+    const message =
+      "The supplier specification of Butter was due for review on 2026-11-28; this declaration uses what it recorded. Check it against the supplier's current specification.";
+    productApi('front-of-house', {
+      ...declarationFor(),
+      reviewWarnings: [{ ingredient: 'butter', name: 'Butter', reviewBy: '2026-11-28', message }],
+    });
+    renderApp('/recipes/victoria-sponge');
+    const warning = await screen.findByRole('region', { name: 'Specifications overdue for review' });
+    expect(warning).toHaveTextContent('Specification overdue for review: Butter');
+    expect(warning).toHaveTextContent(message);
+    expect(screen.getByRole('region', { name: 'Contains' })).toBeInTheDocument();
+  });
+
+  it('shows no review warning when every specification is current', async () => {
+    productApi();
+    renderApp('/recipes/victoria-sponge');
+    expect(await screen.findByRole('region', { name: 'Contains' })).toBeInTheDocument();
+    expect(screen.queryByRole('region', { name: 'Specifications overdue for review' })).not.toBeInTheDocument();
+  });
+
   it('gives every claim its status word, and the reasons with their paths', async () => {
     productApi();
     renderApp('/recipes/victoria-sponge');
