@@ -176,6 +176,39 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await page.getByRole('heading', { name: 'Oat drink', level: 1 }).waitFor();
   });
 
+  it('refuses a save from a revision someone else has replaced, shows who changed what, and saves over it only when asked', async () => {
+    const page = s.page;
+    await page.goto(`${BASE_URL}/ingredients/oat-drink`);
+    await page.getByRole('heading', { name: 'Oat drink', level: 1 }).waitFor();
+    // The manager saves the oat drink from another browser while the chef has it open.
+    const other = await openBrowser();
+    try {
+      await signIn(other.page, 'manager@example.com');
+      const status = await other.page.evaluate(async () => {
+        const { revision, updatedAt: _u, ...body } = await (await fetch('/api/ingredients/oat-drink')).json();
+        const res = await fetch('/api/ingredients/oat-drink', {
+          method: 'PUT',
+          headers: { 'Content-Type': 'application/json' },
+          body: JSON.stringify({ ...body, supplierCode: 'HF-OAT-2', baseRevision: revision }),
+        });
+        return res.status;
+      });
+      expect(status).toBe(200);
+    } finally {
+      await other.close();
+    }
+    await page.getByLabel('Supplier', { exact: true }).fill('Hillfold Dairy-free');
+    await page.getByRole('button', { name: 'Save ingredient' }).click();
+    const panel = page.getByRole('alert').filter({ hasText: 'Someone else saved this while you were editing' });
+    await panel.getByText(/Maren Holloway saved revision 2/).waitFor();
+    await panel.getByText('Supplier code: changed from “HF-OAT” to “HF-OAT-2”.').waitFor();
+    await screenshot(page, 'stale-save-1280');
+    await panel.getByRole('button', { name: 'Save my values over theirs' }).click();
+    await page.getByText('Saved. This is revision 3.').waitFor();
+    const saved = await page.evaluate(async () => (await fetch('/api/ingredients/oat-drink')).json());
+    expect(saved).toMatchObject({ revision: 3, supplier: 'Hillfold Dairy-free' });
+  });
+
   it('has no accessibility violations on the workbench pages', async () => {
     for (const path of [
       '/ingredients',
@@ -184,6 +217,7 @@ describe('the pastry chef’s workbench, in Chromium', () => {
       '/recipes',
       '/recipes/vanilla-cream-cup/edit',
       '/recipes/swap',
+      '/today',
     ]) {
       await s.page.goto(`${BASE_URL}${path}`);
       await s.page.getByRole('heading', { level: 1 }).waitFor();
@@ -199,6 +233,7 @@ describe('the pastry chef’s workbench, in Chromium', () => {
       ['/recipes/vanilla-cream-cup/edit', 'recipe-editor-768'],
       ['/ingredients', 'ingredients-768'],
       ['/recipes/swap', 'swap-check-768'],
+      ['/today', 'today-768'],
     ] as const) {
       await s.page.goto(`${BASE_URL}${path}`);
       await s.page.getByRole('heading', { level: 1 }).waitFor();
