@@ -5,6 +5,7 @@
 import 'reflect-metadata';
 import { Module } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
+import { ClockModule } from '../common/clock';
 import { AppConfigModule } from '../config/config.module';
 import { environmentConfig } from '../config/config';
 import { DatabaseModule } from '../database/database.module';
@@ -12,7 +13,7 @@ import { setUpSchema } from '../database/schema-setup';
 import { SeedModule } from '../database/seed.module';
 import { SeedService } from '../database/seed.service';
 
-@Module({ imports: [AppConfigModule, DatabaseModule, SeedModule] })
+@Module({ imports: [AppConfigModule, ClockModule, DatabaseModule, SeedModule] })
 class DbCliModule {}
 
 async function main(command: string) {

@@ -6,6 +6,7 @@ import { UsersModule } from '../users/users.module';
 import { IngredientStoreModule } from './ingredient-store.module';
 import { IngredientsController } from './ingredients.controller';
 import { IngredientsService } from './ingredients.service';
+import { SpecificationReviewsModule } from './specifications/specification-reviews.module';
 import { SpecificationsModule } from './specifications/specifications.module';
 
 /**
@@ -14,7 +15,15 @@ import { SpecificationsModule } from './specifications/specifications.module';
  * Writes go through the book's checked write path.
  */
 @Module({
-  imports: [IngredientStoreModule, BooksModule, KitchenModule, UsersModule, SpecificationsModule, IngredientImportModule],
+  imports: [
+    IngredientStoreModule,
+    BooksModule,
+    KitchenModule,
+    UsersModule,
+    SpecificationsModule,
+    SpecificationReviewsModule,
+    IngredientImportModule,
+  ],
   controllers: [IngredientsController],
   providers: [IngredientsService],
 })

@@ -22,7 +22,10 @@ export function StaleSavePanel({ stale, onReload, onSaveMine, saving }: StaleSav
   const headingId = useId();
   const box = useRef<HTMLElement>(null);
   // The save button is at the foot of a long form: bring the panel into view when it appears.
-  useEffect(() => box.current?.scrollIntoView?.({ block: 'start', behavior: 'smooth' }), []);
+  useEffect(() => {
+    // A block body: scrollIntoView may answer a promise, which React would take for a cleanup.
+    void box.current?.scrollIntoView?.({ block: 'start', behavior: 'smooth' });
+  }, []);
   const next = stale.currentRevision + 1;
   return (
     <Box
