@@ -3,8 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
 
 const NAV: Record<string, string[]> = {
-  'manager@example.com': ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
-  'chef@example.com': ['Ingredients', 'Recipes', 'Counter', 'Labels'],
+  'manager@example.com': ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
+  'chef@example.com': ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels'],
   'counter@example.com': ['Counter', 'Recipes'],
 };
 
