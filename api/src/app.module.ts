@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
+import { ApprovalsModule } from './approvals/approvals.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { BooksModule } from './books/books.module';
@@ -35,6 +36,7 @@ import { UsersModule } from './users/users.module';
     RecipesModule,
     DeclarationsModule,
     SwapsModule,
+    ApprovalsModule,
     LabelsModule,
     CounterModule,
     PublicPageModule,

@@ -22,3 +22,4 @@ export * from './counter-contracts';
 export * from './counter';
 export * from './public-page';
 export * from './audit-contracts';
+export * from './approval-contracts';

@@ -32,6 +32,7 @@ export function httpStatusOf(code: ErrorCode): number {
     case 'not-found':
       return 404;
     case 'conflict':
+    case 'approval-needed':
       return 409;
     case 'too-many-requests':
       return 429;
