@@ -150,9 +150,10 @@ const STATUS_WORDS: Record<ClaimStatus, string> = {
 const list = (names: string[]) =>
   names.length <= 1 ? (names[0] ?? '') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 
-/** A group added, as a sentence says it: "egg" or "tree nuts (walnut)". */
+/** A group added, as a sentence says it: "Eggs" or "Nuts (walnut)" (a source is named where the group's name does not say it). */
 export function addedName(a: AddedAllergen): string {
-  return a.sources.length > 0 && a.sources.join(' ') !== a.allergen ? `${a.label} (${a.sources.join(', ')})` : a.label;
+  const label = a.label.toLowerCase();
+  return a.sources.every((s) => label.includes(s)) ? a.label : `${a.label} (${a.sources.join(', ')})`;
 }
 
 /** A change of a product's declaration in sentences, before and after, from the approved one to the current one. */
@@ -161,7 +162,7 @@ export function declaredChangeInWords(c: DeclaredChange): string[] {
   const contains = c.added.filter((a) => a.how === 'contains');
   const may = c.added.filter((a) => a.how === 'may-contain');
   if (contains.length) out.push(`Now contains ${list(contains.map(addedName))}.`);
-  if (may.length) out.push(`Now may contain ${list(may.map((a) => a.label))}.`);
+  if (may.length) out.push(`Now may contain ${list(may.map(addedName))}.`);
   if (c.containsRemoved.length) out.push(`No longer contains ${list(c.containsRemoved.map((g) => g.label))}.`);
   if (c.mayContainRemoved.length) out.push(`No longer may contain ${list(c.mayContainRemoved.map((g) => g.label))}.`);
   for (const n of c.notKnownAdded) out.push(`The allergens of ${n.name} are not known (it has no allergen statement).`);

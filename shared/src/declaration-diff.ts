@@ -150,7 +150,25 @@ export function declaredChange(before: Declaration, after: Declaration): Declare
     if (!was || fresh.length > 0) added.push({ allergen: c.allergen, label: c.label, how: 'contains', sources: fresh });
   }
   // A may-contain of a group the product now contains is said by the contains.
-  for (const g of minus(ma, mb)) if (!ca.has(g.allergen)) added.push({ ...g, how: 'may-contain', sources: [] });
+  const may = new Map<string, AddedAllergen>();
+  for (const g of minus(ma, mb)) if (!ca.has(g.allergen)) may.set(g.allergen, { ...g, how: 'may-contain', sources: [] });
+  // A precautionary statement of a source new to the product (hazelnut beside walnuts) is news to a
+  // customer who avoids that source, even when its group is declared already.
+  const containedAfter = new Set(after.contains.flatMap((c) => c.sources as string[]));
+  const warnedBefore = new Set([
+    ...before.precautions.map((p) => p.source as string),
+    ...before.contains.flatMap((c) => c.sources as string[]),
+  ]);
+  const labels = new Map([...ca, ...ma, ...cb, ...mb]);
+  for (const p of after.precautions) {
+    if (containedAfter.has(p.source) || warnedBefore.has(p.source)) continue;
+    for (const g of p.allergens) {
+      const entry = may.get(g) ?? { allergen: g, label: labels.get(g) ?? g, how: 'may-contain' as const, sources: [] };
+      if (!entry.sources.includes(p.source)) entry.sources.push(p.source);
+      may.set(g, entry);
+    }
+  }
+  added.push(...may.values());
   const claims = CLAIMS.filter((c) => before.claims[c].status !== after.claims[c].status).map((claim) => ({
     claim,
     before: before.claims[claim].status,

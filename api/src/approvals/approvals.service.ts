@@ -147,7 +147,7 @@ export class ApprovalsService {
           action: 'approval.given',
           actor: { id: user.id, name: user.name, role: user.role },
           record: out.length === 1 ? { kind: 'product', id: out[0].product } : null,
-          summary: `Approved the declaration of ${out.map((o) => `${o.name} (${o.product})`).join(', ')}${body.note ? `: ${body.note}` : ''}.`,
+          summary: `Approved the declaration of ${out.map((o) => `${o.name} (${o.product})`).join(', ')}${body.note ? `: ${body.note.replace(/\.$/, '')}` : ''}.`,
           before: Object.fromEntries(
             out.map((o) => {
               const was = statuses.get(o.product)!.approval;
