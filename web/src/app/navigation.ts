@@ -20,7 +20,7 @@ export type PageKey = keyof typeof PAGES;
  */
 export const PAGES_BY_ROLE: Record<Role, readonly PageKey[]> = {
   manager: ['ingredients', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users'],
-  'pastry-chef': ['ingredients', 'recipes', 'counter', 'labels'],
+  'pastry-chef': ['ingredients', 'recipes', 'counter', 'labels', 'approvals'],
   'front-of-house': ['counter', 'recipes'],
 };
 

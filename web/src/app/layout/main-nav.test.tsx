@@ -10,7 +10,7 @@ const cases: { role: Role; links: string[]; first: string }[] = [
     links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users'],
     first: 'Ingredients',
   },
-  { role: 'pastry-chef', links: ['Ingredients', 'Recipes', 'Counter', 'Labels'], first: 'Ingredients' },
+  { role: 'pastry-chef', links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals'], first: 'Ingredients' },
   { role: 'front-of-house', links: ['Counter', 'Recipes'], first: 'Counter' },
 ];
 
