@@ -173,7 +173,7 @@ export function declaredChangeInWords(c: DeclaredChange): string[] {
     else if (q.after === null) out.push(`Percentage no longer given: ${q.before}.`);
     else out.push(`Percentage was ${q.before}, now ${q.after}.`);
   }
-  if (c.ingredientsText) out.push(`Ingredient list was: ${c.ingredientsText.before} Now: ${c.ingredientsText.after}`);
+  if (c.ingredientsText) out.push(`The ingredient list read “${c.ingredientsText.before}”; it now reads “${c.ingredientsText.after}”.`);
   return out;
 }
 
