@@ -39,9 +39,9 @@ export function ApprovalMarkShape({ flag }: { flag: ApprovalFlag }) {
 
 export function ApprovalMark({ flag, children }: { flag: ApprovalFlag; children?: ReactNode }) {
   return (
-    <HStack as="span" display="inline-flex" gap="1.5" align="center" color="fg">
+    <HStack as="span" display="inline-flex" flexWrap="wrap" gap="1.5" align="center" color="fg">
       <ApprovalMarkShape flag={flag} />
-      <Text as="span" fontWeight="bold">
+      <Text as="span" fontWeight="bold" whiteSpace="nowrap">
         {APPROVAL_FLAG_WORDS[flag]}
       </Text>
       {children ? <Text as="span">{children}</Text> : null}
