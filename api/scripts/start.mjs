@@ -1,11 +1,10 @@
 // npm start: installs what is missing, starts the private MariaDB under .data/, migrates,
 // seeds the demo kitchen into an empty database, builds the web app and serves it from the API.
 import { join } from 'node:path';
-import { ensureMariadbInstalled, instance, isPortFree } from './lib/mariadb.mjs';
+import { startDevInbox } from './lib/dev-inbox.mjs';
+import { chooseDatabasePort, ensureMariadbInstalled, freePort, instance, isPortFree } from './lib/mariadb.mjs';
 import { buildAll, DB_USERS, dbEnv, ensureNodeModules, localSecret, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
 
-const PORT = Number(process.env.PORT ?? 3000);
-const DB_PORT = Number(process.env.DB_PORT ?? 3307);
 // Loopback by default. HOST=0.0.0.0 npm start listens on every network: no demo kitchen then,
 // and the session cookie is Secure, so serve it over HTTPS (a reverse proxy in front).
 const HOST = process.env.HOST ?? '127.0.0.1';
@@ -14,14 +13,33 @@ const LOOPBACK = HOST === 'localhost' || HOST === '::1' || /^127(\.\d{1,3}){3}$/
 const DEMO = (process.env.DEMO_KITCHEN ?? (LOOPBACK ? 'true' : 'false')) === 'true';
 const dataDir = join(ROOT, '.data');
 
+/**
+ * PORT when it is set (refused, naming it, when in use); otherwise 3000, or a free port when
+ * something else holds 3000 (another copy of Crumbproof), said in the output.
+ */
+async function appPort() {
+  if (process.env.PORT) {
+    const port = Number(process.env.PORT);
+    if (!(await isPortFree(port))) throw new Error(`Port ${port} on ${HOST} is in use. Stop what uses it, or choose another PORT.`);
+    return port;
+  }
+  if (await isPortFree(3000)) return 3000;
+  const port = await freePort();
+  step(`Port 3000 is in use (another copy of Crumbproof?): this one serves on port ${port}. Set PORT to choose.`);
+  return port;
+}
+
 async function main() {
   ensureNodeModules();
   ensureMariadbInstalled((m) => step(m));
 
+  const DB_PORT = await chooseDatabasePort(join(dataDir, 'mariadb'), (m) => step(m));
   const db = instance({ dir: join(dataDir, 'mariadb'), port: DB_PORT });
   db.claim('npm start');
   /** @type {import('node:child_process').ChildProcess | null} */
   let api = null;
+  /** @type {import('./lib/dev-inbox.mjs').DevInbox | null} */
+  let inbox = null;
   let stopping = false;
   const stop = async (code = 0) => {
     if (stopping) return;
@@ -37,6 +55,7 @@ async function main() {
         })
       );
     }
+    await inbox?.stop();
     await db.stop();
     db.release();
     console.log('Stopped. Your data is kept in .data/ for the next npm start.');
@@ -46,9 +65,7 @@ async function main() {
   process.on('SIGTERM', () => void stop(0));
 
   try {
-    if (!(await isPortFree(PORT))) {
-      throw new Error(`Port ${PORT} on ${HOST} is in use. Stop what uses it, or run PORT=3100 npm start.`);
-    }
+    const PORT = await appPort();
     if (db.runningPid()) {
       step('A database from an earlier run is still up: stopping it first…');
       await db.stop();
@@ -59,6 +76,12 @@ async function main() {
 
     buildAll();
 
+    // Mail goes to the kitchen's own server when SMTP_HOST is set, otherwise to the development inbox here.
+    if (!process.env.SMTP_HOST) {
+      step('Starting the development inbox (maildev) on 127.0.0.1…');
+      inbox = await startDevInbox({ dir: join(dataDir, 'mail'), from: process.env.MAIL_FROM });
+    }
+
     const env = {
       ...dbEnv({ port: DB_PORT, database: 'crumbproof' }),
       NODE_ENV: 'production',
@@ -68,6 +91,7 @@ async function main() {
       JWT_SECRET: process.env.JWT_SECRET ?? localSecret(dataDir),
       WEB_DIST: join(ROOT, 'web', 'dist'),
       LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
+      ...(inbox ? inbox.env : {}),
     };
     step('Migrating and seeding…');
     run('node', ['api/dist/cli/db.js', 'setup'], { env });
@@ -101,6 +125,12 @@ async function main() {
 ${intro}
 
   API documentation: http://${HOST}:${PORT}/api/docs
+${
+  inbox
+    ? `  Mail (invitations, password links) goes to the development inbox on this machine, read at
+  ${inbox.url} (kept in .data/mail); set SMTP_HOST and MAIL_FROM to send it through your mail server.`
+    : `  Mail goes through ${process.env.SMTP_HOST}; the manager's Mail page shows what was sent.`
+}
   Press Ctrl-C to stop.`);
   } catch (err) {
     console.error(`\n${err instanceof Error ? err.message : String(err)}`);

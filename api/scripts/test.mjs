@@ -6,6 +6,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runChecks } from './lib/checks.mjs';
+import { startDevInbox } from './lib/dev-inbox.mjs';
 import { ensureMariadbInstalled, freePort, instance } from './lib/mariadb.mjs';
 import {
   buildAll,
@@ -103,8 +104,11 @@ async function suites() {
   const db = instance({ dir: join(scratch, 'mariadb'), port });
   /** @type {import('node:child_process').ChildProcess | null} */
   let server = null;
+  /** @type {import('./lib/dev-inbox.mjs').DevInbox | null} */
+  let inbox = null;
   const cleanup = async () => {
     if (server && server.exitCode === null) server.kill('SIGTERM');
+    await inbox?.stop();
     await db.stop();
     rmSync(scratch, { recursive: true, force: true });
   };
@@ -142,7 +146,11 @@ async function suites() {
       buildAll();
       const appPort = await freePort();
       db.createDatabase({ database: 'crumbproof_test_e2e', ...DB_USERS });
+      // The app's mail goes to an inbox on this machine, which the end-to-end tests read.
+      inbox = await startDevInbox({ from: 'crumbproof-e2e@localhost.localdomain' });
       const env = {
+        ...inbox.env,
+        MAIL_POLL_SECONDS: '5',
         ...dbEnv({ port, database: 'crumbproof_test_e2e' }),
         NODE_ENV: 'test',
         HOST: '127.0.0.1',
@@ -168,7 +176,7 @@ async function suites() {
           '--reporter=json',
           `--outputFile.json=${report}`,
         ],
-        { CRUMBPROOF_URL: `http://127.0.0.1:${appPort}`, DB_TEST_PORT: String(port), FORCE_COLOR: '0' },
+        { CRUMBPROOF_URL: `http://127.0.0.1:${appPort}`, DB_TEST_PORT: String(port), MAILDEV_URL: inbox.url, FORCE_COLOR: '0' },
         report,
         vitestCount,
       );

@@ -1,9 +1,12 @@
 import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
+import { ScheduleModule } from '@nestjs/schedule';
+import { AccountsModule } from './accounts/accounts.module';
 import { ApprovalsModule } from './approvals/approvals.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { BooksModule } from './books/books.module';
+import { ClockModule } from './common/clock';
 import { ApiExceptionFilter } from './common/exception.filter';
 import { CounterModule } from './counter/counter.module';
 import { RolesGuard, SessionGuard } from './auth/auth.guard';
@@ -15,6 +18,7 @@ import { HealthModule } from './health/health.module';
 import { IngredientsModule } from './ingredients/ingredients.module';
 import { KitchenModule } from './kitchen/kitchen.module';
 import { LabelsModule } from './labels/labels.module';
+import { MailModule } from './mail/mail.module';
 import { PublicPageModule } from './public-page/public-page.module';
 import { RecipesModule } from './recipes/recipes.module';
 import { ReferenceModule } from './reference/reference.module';
@@ -25,11 +29,15 @@ import { UsersModule } from './users/users.module';
 @Module({
   imports: [
     DiscoveryModule,
+    ScheduleModule.forRoot(),
+    ClockModule,
     AppConfigModule,
     DatabaseModule,
     HealthModule,
     AuthModule,
     UsersModule,
+    AccountsModule,
+    MailModule,
     KitchenModule,
     BooksModule,
     IngredientsModule,

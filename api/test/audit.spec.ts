@@ -69,7 +69,8 @@ async function lastId(): Promise<string> {
   return String(row.id ?? 0);
 }
 
-const NAMES = { manager: 'Maren Holloway', chef: 'Tobiah Quill', counter: 'Priya Santangelo' };
+const NAMES = { manager: 'Maren Holloway', chef: 'Tobiah Quill', counter: 'Priya Santangelo', invited: 'Audit Invitee' };
+const ROLE_OF = { manager: 'manager', chef: 'pastry-chef', counter: 'front-of-house', invited: 'front-of-house' } as const;
 
 beforeAll(async () => {
   t = await startTestApp({ seed: true });
@@ -148,7 +149,31 @@ interface WriteCase {
 const ingredient = { id: 'audit-cream', name: 'Audit cream', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true };
 const tart = { id: 'audit-tart', name: 'Audit tart', lines: [{ use: 'butter', qty: 100, unit: 'g' }], sale: { portionG: 80 } };
 let newUserId = 0;
+let invitedId = 0;
 let questionId = 0;
+
+/** The one-time token of the newest invitation mail, read from the outbox (no mail server here, so it waits unsent). */
+async function newestInvitationToken(): Promise<string> {
+  const [row] = await t.sequelize.query<{ text: string }>(
+    "SELECT text FROM mail_outbox WHERE kind = 'invitation' ORDER BY id DESC LIMIT 1",
+    {
+      type: QueryTypes.SELECT,
+    },
+  );
+  return /\/set-password#token=([A-Za-z0-9_-]+)/.exec(row.text)![1];
+}
+
+/** A mail kept as not sent after its last attempt, as the sender leaves one. */
+async function failedMail(): Promise<string> {
+  await t.sequelize.query(
+    `INSERT INTO mail_outbox (kind, recipients, subject, text, html, state, attempts, last_error, next_attempt_at, created_at)
+     VALUES ('note', '["chef@example.com"]', 'Audit note', 'Words.', '<p>Words.</p>', 'failed', 5, 'ECONNREFUSED', NOW(3), NOW(3))`,
+  );
+  const [row] = await t.sequelize.query<{ id: string }>("SELECT MAX(id) AS id FROM mail_outbox WHERE subject = 'Audit note'", {
+    type: QueryTypes.SELECT,
+  });
+  return String(row.id);
+}
 
 const CASES: WriteCase[] = [
   {
@@ -281,6 +306,61 @@ const CASES: WriteCase[] = [
         role: 'pastry-chef',
         password: 'a-long-pass-phrase-7',
       }),
+  },
+  {
+    route: 'POST /api/users/invitations',
+    call: async () => {
+      const res = await send('POST', '/api/users/invitations', manager, {
+        email: 'invited@example.com',
+        name: NAMES.invited,
+        role: 'front-of-house',
+      });
+      invitedId = res.json<{ id: number }>().id;
+      return res;
+    },
+    status: 201,
+    actor: 'manager',
+    action: 'user.invited',
+    record: ['user', /^\d+$/],
+    refused: () => send('POST', '/api/users/invitations', manager, { email: 'chef@example.com', name: 'Twice', role: 'pastry-chef' }),
+  },
+  {
+    route: 'POST /api/users/:id/invitation',
+    call: () => send('POST', `/api/users/${invitedId}/invitation`, manager, {}),
+    status: 200,
+    actor: 'manager',
+    action: 'invitation.resent',
+    record: ['user', /^\d+$/],
+    refused: () => send('POST', '/api/users/999999/invitation', manager, {}),
+  },
+  {
+    route: 'POST /api/auth/set-password',
+    call: async () =>
+      send('POST', '/api/auth/set-password', undefined, { token: await newestInvitationToken(), password: 'Audit-invitee-pass-8' }),
+    status: 200,
+    actor: 'invited',
+    action: 'password.set',
+    record: ['user', /^\d+$/],
+    refused: async () =>
+      send('POST', '/api/auth/set-password', undefined, { token: await newestInvitationToken(), password: 'password1234' }),
+  },
+  {
+    route: 'POST /api/auth/password-reset',
+    call: () => send('POST', '/api/auth/password-reset', undefined, { email: 'invited@example.com' }),
+    status: 202,
+    actor: null,
+    action: 'password-reset.requested',
+    record: ['user', /^\d+$/],
+    refused: () => send('POST', '/api/auth/password-reset', undefined, { email: 'not an address' }),
+  },
+  {
+    route: 'POST /api/mail/outbox/:id/retry',
+    call: async () => send('POST', `/api/mail/outbox/${await failedMail()}/retry`, manager, {}),
+    status: 200,
+    actor: 'manager',
+    action: 'mail.retried',
+    record: ['mail', /^\d+$/],
+    refused: () => send('POST', '/api/mail/outbox/999999/retry', manager, {}),
   },
   {
     route: 'PATCH /api/users/:id',
@@ -423,6 +503,11 @@ const READS: { route: string; call: () => Promise<{ statusCode: number }>; statu
     status: 200,
   },
   {
+    route: 'POST /api/auth/account-link',
+    call: async () => send('POST', '/api/auth/account-link', undefined, { token: await newestInvitationToken() }),
+    status: 200,
+  },
+  {
     route: 'POST /api/composition/scan',
     call: () => send('POST', '/api/composition/scan', chef, { text: 'Wheat flour, butter (milk)' }),
     status: 200,
@@ -475,7 +560,7 @@ describe('every route that writes leaves one audit event, in its transaction', (
     expect(rows.map((r) => r.action)).toEqual([c.action]);
     const [row] = rows;
     expect(row.actor_name).toBe(c.actor ? NAMES[c.actor] : null);
-    expect(row.actor_role).toBe(c.actor === 'chef' ? 'pastry-chef' : c.actor === 'counter' ? 'front-of-house' : c.actor);
+    expect(row.actor_role).toBe(c.actor ? ROLE_OF[c.actor] : null);
     expect(row.address).toBe('127.0.0.1');
     expect(row.summary.length).toBeGreaterThan(5);
     if (c.record) {

@@ -52,6 +52,10 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(us.json().contains.map((c: { allergen: string }) => c.allergen)).toEqual(expect.arrayContaining(['tree-nuts', 'wheat']));
     const bad = await req('GET', '/api/recipes/apricot-walnut-loaf/declaration?regime=XX', counter);
     expect(bad.statusCode).toBe(400);
+    // The query parameter is named as it was sent, never as a body.
+    expect(bad.json().fields[0].path).toBe('regime');
+    expect(bad.json().message).toMatch(/regime: Use one of EU, UK, US, CA, ANZ/);
+    expect(bad.json().message).not.toContain('(body)');
   });
 
   it('imports a book all or nothing: one bad recipe and nothing is saved, naming the recipe and line', async () => {

@@ -132,6 +132,10 @@ const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
   { method: 'PATCH', url: '/api/kitchen', body: { regime: 'EU' } },
   { method: 'POST', url: '/api/users', body: user() },
   { method: 'PATCH', url: '/api/users/2', body: { name: 'Renamed' } },
+  { method: 'POST', url: '/api/users/invitations', body: { email: 'corpus-invite@example.com', name: 'Corpus', role: 'pastry-chef' } },
+  { method: 'POST', url: '/api/auth/password-reset', body: { email: 'manager@example.com' } },
+  { method: 'POST', url: '/api/auth/account-link', body: { token: 'A'.repeat(43) } },
+  { method: 'POST', url: '/api/auth/set-password', body: { token: 'A'.repeat(43), password: 'a-long-pass-phrase-7' } },
   { method: 'POST', url: '/api/auth/sign-in', body: { email: 'manager@example.com', password: 'crumbproof-demo' } },
   {
     method: 'POST',
@@ -757,6 +761,118 @@ const CORPUS: MalformedRequest[] = [
     ] as const
   ).map(([what, url, body, status, names]) => ({ what, method: 'PATCH' as const, url, send: () => json(body), status, names })),
 
+  // Invitations: POST /api/users/invitations and POST /api/users/:id/invitation
+  ...(
+    [
+      ['an email that is not one', { email: 'not-an-email', name: 'Corpus', role: 'pastry-chef' }, 400, /^email: Enter an email address/m],
+      [
+        'an email longer than the column',
+        { email: `${'e'.repeat(250)}@example.com`, name: 'Corpus', role: 'pastry-chef' },
+        400,
+        /^email: Use an email address of at most 254 characters/m,
+      ],
+      [
+        'an email that exists',
+        { email: 'chef@example.com', name: 'Corpus', role: 'pastry-chef' },
+        409,
+        /A user with that email already exists/,
+      ],
+      ['no name', { email: 'corpus-invite@example.com', role: 'pastry-chef' }, 400, /^name: /m],
+      [
+        'a name of 121 characters',
+        { email: 'corpus-invite@example.com', name: 'n'.repeat(121), role: 'pastry-chef' },
+        400,
+        /^name: Keep this to 120/m,
+      ],
+      [
+        'a name with NUL',
+        { email: 'corpus-invite@example.com', name: 'Cor\u0000pus', role: 'pastry-chef' },
+        400,
+        /^name: Leave out control characters/m,
+      ],
+      ['an unknown role', { email: 'corpus-invite@example.com', name: 'Corpus', role: 'owner' }, 400, /^role: /m],
+      [
+        'a password, which the invited person chooses',
+        { email: 'corpus-invite@example.com', name: 'Corpus', role: 'pastry-chef', password: 'a-long-pass-phrase-7' },
+        400,
+        /password/,
+      ],
+    ] as const
+  ).map(([what, body, status, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/users/invitations',
+    send: () => json(body),
+    status,
+    names,
+  })),
+  ...(
+    [
+      ['a user that does not exist', '/api/users/999999/invitation', 404, /There is no user 999999/],
+      ['a user id that is not a number', '/api/users/abc/invitation', 400, /numeric/],
+      ['a user id that looks like SQL', `/api/users/${encodeURIComponent('2 OR 1=1')}/invitation`, 400, /numeric/],
+      ['a user who has chosen a password', '/api/users/2/invitation', 409, /has chosen a password already/],
+    ] as const
+  ).map(([what, url, status, names]) => ({ what, method: 'POST' as const, url, send: () => json({}), status, names })),
+
+  // Forgot your password, and the mailed links
+  ...(
+    [
+      ['no email', {}, /^email: /m],
+      ['an email that is not one', { email: 'manager' }, /^email: Enter an email address/m],
+      ['an email that looks like SQL', { email: "manager@example.com' OR '1'='1" }, /^email: Enter an email address/m],
+      ['an email that is a list', { email: ['manager@example.com'] }, /^email: Write this as text/m],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/auth/password-reset',
+    send: () => json(body),
+    status: 400,
+    names,
+  })),
+  ...(
+    [
+      ['no token', {}, /^token: /m],
+      ['an empty token', { token: '' }, /^token: Open the link in the mail/m],
+      ['a token of 201 characters', { token: 'A'.repeat(201) }, /^token: This is not the link from the mail/m],
+      ['a token that looks like SQL', { token: "x' OR '1'='1" }, /^token: This is not the link from the mail/m],
+    ] as const
+  ).map(([what, body, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/auth/account-link',
+    send: () => json(body),
+    status: 400,
+    names,
+  })),
+  ...(
+    [
+      ['no token', { password: 'a-long-pass-phrase-7' }, 400, /^token: /m],
+      ['a token with a slash', { token: 'abc/def', password: 'a-long-pass-phrase-7' }, 400, /^token: This is not the link from the mail/m],
+      ['no password', { token: 'A'.repeat(43) }, 400, /^password: /m],
+      ['a short password', { token: 'A'.repeat(43), password: 'short-7' }, 400, /^password: Use at least 12 characters/m],
+      ['a common password', { token: 'A'.repeat(43), password: 'password1234' }, 400, /common passwords/],
+      ['a link that was never sent', { token: 'A'.repeat(43), password: 'a-long-pass-phrase-7' }, 403, /This link is not known/],
+    ] as const
+  ).map(([what, body, status, names]) => ({
+    what,
+    method: 'POST' as const,
+    url: '/api/auth/set-password',
+    send: () => json(body),
+    status,
+    names,
+  })),
+
+  // The outbox: POST /api/mail/outbox/:id/retry
+  ...(
+    [
+      ['a mail that does not exist', '/api/mail/outbox/999999/retry', /There is no mail 999999/],
+      ['a mail id that is not a number', '/api/mail/outbox/abc/retry', /There is no mail abc/],
+      ['a mail id that looks like SQL', `/api/mail/outbox/${encodeURIComponent('1 OR 1=1')}/retry`, /There is no mail 1 OR 1=1/],
+    ] as const
+  ).map(([what, url, names]) => ({ what, method: 'POST' as const, url, send: () => json({}), status: 404, names })),
+
   // Sign-in, first manager and sign-out
   ...(
     [
@@ -1110,6 +1226,9 @@ const CORPUS: MalformedRequest[] = [
       ['an extension digit of 10', labelSettings({ ssccExtension: 10 }), /^ssccExtension: Give the SSCC extension digit, 0 to 9/m],
       ['a case indicator of 9', labelSettings({ caseIndicator: 9 }), /^caseIndicator: Give the case indicator digit, 1 to 8/m],
       ['a case indicator of 0', labelSettings({ caseIndicator: 0 }), /^caseIndicator: /m],
+      // PUT replaces every setting: one left out is named, never put back to its default.
+      ['no settings at all', {}, /^batchPattern: Write the batch pattern as text/m],
+      ['a body without the company prefix', { ...labelSettings(), gs1CompanyPrefix: undefined }, /^gs1CompanyPrefix: /m],
     ] as const
   ).map(([what, body, names]) => ({
     what,

@@ -35,6 +35,12 @@ export const AUDIT_ACTIONS = [
   'signed-out',
   'access.refused',
   'first-manager.set',
+  'user.invited',
+  'invitation.resent',
+  'password-reset.requested',
+  'password.set',
+  'account-link.refused',
+  'mail.retried',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 
@@ -63,6 +69,12 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'signed-out': 'Signed out',
   'access.refused': 'Access refused',
   'first-manager.set': 'First manager set',
+  'user.invited': 'User invited',
+  'invitation.resent': 'Invitation sent again',
+  'password-reset.requested': 'Password reset asked for',
+  'password.set': 'Password set with a mailed link',
+  'account-link.refused': 'Mailed link refused',
+  'mail.retried': 'Mail sent again',
 };
 
 /** Who did it, as they were at the time (a later rename or new role does not rewrite the trail); null for an anonymous event. */

@@ -83,7 +83,8 @@ export const updateUserSchema = z
   .refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
 export type UpdateUserRequest = z.infer<typeof updateUserSchema>;
 
-export const userSchema = meSchema.extend({ active: z.boolean(), createdAt: z.string() });
+/** invitationPending: true for a user who was invited and has not chosen a password yet (they cannot sign in). */
+export const userSchema = meSchema.extend({ active: z.boolean(), invitationPending: z.boolean(), createdAt: z.string() });
 export type User = z.infer<typeof userSchema>;
 
 /** Sets the first manager of a kitchen's own installation, with the one-time link printed at its first start. */
@@ -94,3 +95,44 @@ export const firstManagerSchema = z.strictObject({
   password: passwordSchema,
 });
 export type FirstManagerRequest = z.infer<typeof firstManagerSchema>;
+
+/** A manager adds someone by name, email and role; they get an invitation mail with a link to choose their password. */
+export const inviteUserSchema = z.strictObject({
+  email: emailSchema,
+  name: oneLine(z.string().trim().min(1, 'Enter the person’s name.').max(120)),
+  role: roleSchema,
+});
+export type InviteUserRequest = z.infer<typeof inviteUserSchema>;
+
+/** "Forgot your password?": the answer is the same whether or not the address has an account. */
+export const passwordResetRequestSchema = z.strictObject({ email: emailSchema });
+export type PasswordResetRequest = z.infer<typeof passwordResetRequestSchema>;
+
+/** The one-time token of a mailed link (base64url, 43 characters for its 32 random bytes). */
+export const accountLinkTokenSchema = z
+  .string()
+  .min(1, 'Open the link in the mail you were sent.')
+  .max(200, 'This is not the link from the mail: open it from the mail again.')
+  .regex(/^[A-Za-z0-9_-]+$/, 'This is not the link from the mail: open it from the mail again.');
+
+export const accountLinkCheckSchema = z.strictObject({ token: accountLinkTokenSchema });
+export type AccountLinkCheckRequest = z.infer<typeof accountLinkCheckSchema>;
+
+export const setPasswordSchema = z.strictObject({ token: accountLinkTokenSchema, password: passwordSchema });
+export type SetPasswordRequest = z.infer<typeof setPasswordSchema>;
+
+export type AccountLinkPurpose = 'invitation' | 'password-reset';
+
+/**
+ * What a mailed link is: usable (with whose account it opens), or why not in one word: used, expired,
+ * replaced (a newer link was sent) or unknown (no such link, or its account is deactivated).
+ */
+export type AccountLinkState =
+  | { state: 'usable'; purpose: AccountLinkPurpose; name: string; email: string; expiresAt: string }
+  | { state: 'used' | 'expired' | 'replaced'; purpose: AccountLinkPurpose }
+  | { state: 'unknown' };
+
+/** The answer to a password reset request, the same for every address. */
+export interface PasswordResetAnswer {
+  message: string;
+}

@@ -225,17 +225,32 @@ export const QUANTITY_LIMITS: Record<Unit, { min: number; max: number }> = {
   each: { min: 0.001, max: 100_000 },
 };
 
+/**
+ * One line of a recipe. A line used in the mix has a quantity and a unit. A contact line (a
+ * floured tin, a greased board) brings its allergens but no weight: it needs neither, and a
+ * quantity given to one never counts toward the mix, the percentages or the nutrition.
+ */
 export const recipeLineSchema = z
   .strictObject({
     use: id,
     qty: z
       .number({ error: 'Give a quantity above zero.' })
       .positive('Give a quantity above zero.')
-      .max(1_000_000, 'Use a quantity no larger than 1000000.'),
-    unit: z.enum(UNITS),
+      .max(1_000_000, 'Use a quantity no larger than 1000000.')
+      .optional(),
+    unit: z.enum(UNITS).optional(),
     role: z.enum(LINE_ROLES).optional(),
   })
+  .meta({
+    description:
+      'A line of a recipe. qty and unit are required unless role is "contact": a contact line brings its allergens but no weight, and a quantity given to one never counts.',
+  })
   .superRefine((line, ctx) => {
+    if (line.role !== 'contact') {
+      if (line.qty === undefined) ctx.addIssue({ code: 'custom', path: ['qty'], message: 'Give a quantity above zero.' });
+      if (line.unit === undefined) ctx.addIssue({ code: 'custom', path: ['unit'], message: `Give a unit: one of ${UNITS.join(', ')}.` });
+    }
+    if (line.qty === undefined || line.unit === undefined) return;
     const limits = QUANTITY_LIMITS[line.unit];
     if (!limits || !(line.qty > 0)) return;
     if (line.qty < limits.min)
@@ -254,6 +269,11 @@ export const recipeLineSchema = z
       });
   });
 export type RecipeLine = z.infer<typeof recipeLineSchema>;
+/** A line that counts toward the mix: not a contact line, with its quantity and unit. */
+export type WeighedLine = RecipeLine & { qty: number; unit: Unit };
+/** Whether a line counts toward the mix (a contact line never does, whatever it is given). */
+export const isWeighed = (line: RecipeLine): line is WeighedLine =>
+  line.role !== 'contact' && line.qty !== undefined && line.unit !== undefined;
 
 /** How a date is marked on a label: a best before date (quality) or a use by date (safety), Regulation (EU) No 1169/2011 Article 24 and Annex X. */
 export const DATE_MARKS = ['best-before', 'use-by'] as const;

@@ -17,6 +17,11 @@ export interface ContainedAllergen {
   species?: string[];
   /** Every path from the product to a leaf that brings this group. */
   via: IdPath[];
+  /**
+   * The paths of `via` that pass through a contact line (a floured tin, a greased griddle): the
+   * allergen is still in the food and declared here, never as a may-contain. Absent when none does.
+   */
+  contactVia?: IdPath[];
 }
 
 export interface MayContainAllergen {

@@ -23,3 +23,4 @@ export * from './counter';
 export * from './public-page';
 export * from './audit-contracts';
 export * from './approval-contracts';
+export * from './mail-contracts';

@@ -183,6 +183,17 @@ export const labelSettingsSchema = z.strictObject({
     .default(1),
 });
 export type LabelSettings = z.infer<typeof labelSettingsSchema>;
+
+/**
+ * A save of the label settings (PUT replaces them): every field is given, so a body that leaves
+ * one out is refused naming it rather than putting the default in its place.
+ */
+export const labelSettingsSaveSchema = z.strictObject({
+  batchPattern: labelSettingsSchema.shape.batchPattern.unwrap(),
+  gs1CompanyPrefix: labelSettingsSchema.shape.gs1CompanyPrefix.unwrap(),
+  ssccExtension: labelSettingsSchema.shape.ssccExtension.unwrap(),
+  caseIndicator: labelSettingsSchema.shape.caseIndicator.unwrap(),
+});
 export type LabelSettingsInput = z.input<typeof labelSettingsSchema>;
 
 /** One product of a logged run, as it was printed. */

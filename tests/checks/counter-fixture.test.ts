@@ -30,7 +30,7 @@ describe('the counter’s demo-kitchen fixture', () => {
       rules: { groups: (regimes.regimes[regime]?.groups ?? []).map((g) => ({ code: g.code, label: g.label, sources: g.members })) },
       declarations,
     };
-    if (process.env.UPDATE_FIXTURES === '1') writeFileSync(FIXTURE, `${JSON.stringify(expected, null, 2)}\n`);
+    if (process.env.UPDATE_FIXTURES === '1') writeFileSync(FIXTURE, `${JSON.stringify(expected)}\n`);
     expect(JSON.parse(readFileSync(FIXTURE, 'utf8'))).toEqual(expected);
     expect(regime).toBe('UK');
   });

@@ -1,10 +1,11 @@
 import { spawn, spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 // The library behind npm start and npm test.
-import { freePort, instance } from '../../api/scripts/lib/mariadb.mjs';
+import { chooseDatabasePort, freePort, instance } from '../../api/scripts/lib/mariadb.mjs';
 
 describe('the private MariaDB of npm start', () => {
   const dir = mkdtempSync(join(tmpdir(), 'crumbproof-db-check-'));
@@ -80,5 +81,41 @@ describe('the private MariaDB of npm start', () => {
     } finally {
       srv.close();
     }
+  });
+});
+
+describe('the database port of a second copy on the same machine', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'crumbproof-port-check-'));
+  const saved = process.env.DB_PORT;
+  afterAll(() => {
+    if (saved === undefined) delete process.env.DB_PORT;
+    else process.env.DB_PORT = saved;
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('keeps a free remembered port, and moves to a free one (remembered) when another program holds it', async () => {
+    delete process.env.DB_PORT;
+    const taken = await freePort();
+    writeFileSync(join(dir, 'port'), `${taken}\n`);
+    expect(await chooseDatabasePort(dir, () => {})).toBe(taken);
+
+    const holder = createServer().listen(taken, '127.0.0.1');
+    await new Promise((r) => holder.once('listening', r));
+    const said: string[] = [];
+    try {
+      const moved = await chooseDatabasePort(dir, (m) => said.push(m));
+      expect(moved).not.toBe(taken);
+      expect(readFileSync(join(dir, 'port'), 'utf8').trim()).toBe(String(moved));
+      expect(said.join(' ')).toContain(`Port ${taken} on 127.0.0.1 is taken`);
+      // The next start finds the same address again.
+      expect(await chooseDatabasePort(dir, () => {})).toBe(moved);
+    } finally {
+      await new Promise((r) => holder.close(r));
+    }
+  });
+
+  it('uses DB_PORT as given', async () => {
+    process.env.DB_PORT = '3999';
+    expect(await chooseDatabasePort(dir, () => {})).toBe(3999);
   });
 });

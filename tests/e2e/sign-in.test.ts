@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
 
 const NAV: Record<string, string[]> = {
-  'manager@example.com': ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users'],
+  'manager@example.com': ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
   'chef@example.com': ['Ingredients', 'Recipes', 'Counter', 'Labels'],
   'counter@example.com': ['Counter', 'Recipes'],
 };

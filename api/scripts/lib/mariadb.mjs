@@ -270,3 +270,28 @@ export function instance({ dir, port }) {
 
   return { dir, cnf, port, socket, datadir, start, stop, ping, createDatabase, dropDatabase, runningPid, claim, release };
 }
+
+/**
+ * The private database's port for a data folder: DB_PORT when it is set; otherwise the one
+ * remembered in the folder (3307 at first), unless something else holds it (another copy of
+ * Crumbproof on this machine, another database): then a free one, remembered in `port` there so
+ * the next start finds its data at the same address.
+ * @param {string} dir The instance's folder (.data/mariadb).
+ * @param {(message: string) => void} [log]
+ * @returns {Promise<number>}
+ */
+export async function chooseDatabasePort(dir, log = console.log) {
+  if (process.env.DB_PORT) return Number(process.env.DB_PORT);
+  const file = join(resolve(dir), 'port');
+  const remembered = existsSync(file) ? Number(readFileSync(file, 'utf8').trim()) : NaN;
+  const port = Number.isInteger(remembered) && remembered > 0 ? remembered : 3307;
+  // Our own database from an earlier run holds it: it is stopped and started again.
+  if (instance({ dir, port }).runningPid() || (await isPortFree(port))) return port;
+  const free = await freePort();
+  mkdirSync(resolve(dir), { recursive: true });
+  writeFileSync(file, `${free}\n`);
+  log(
+    `Port ${port} on 127.0.0.1 is taken (another copy of Crumbproof, or another database): this copy's database uses port ${free}, remembered in ${file}.`,
+  );
+  return free;
+}

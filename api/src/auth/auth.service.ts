@@ -30,13 +30,13 @@ export class AuthService {
     const attempt = await this.limits.begin(email, address);
     const row = await this.users.findByEmail(email);
     const ok = await checkPassword(password, row?.passwordHash ?? DUMMY_HASH);
-    if (!row || !ok || !row.active) {
+    if (!row || !ok || !row.active || row.passwordHash === null) {
       this.logger.warn(`Refused sign-in for ${email}`);
       await this.audit.recordRefusal({
         action: 'sign-in.failed',
         actor: null,
         record: { kind: 'email', id: email.slice(0, 120) },
-        summary: `Refused a sign-in as ${email}: ${!row ? 'no account has this email' : !row.active ? 'the account is deactivated' : 'the password is not right'}.`,
+        summary: `Refused a sign-in as ${email}: ${!row ? 'no account has this email' : !row.active ? 'the account is deactivated' : row.passwordHash === null ? 'the account has no password yet (its invitation was not used)' : 'the password is not right'}.`,
       });
       throw new AppError('bad-credentials', 'Email or password is not right.');
     }

@@ -95,6 +95,36 @@ export class SignInLimits {
     return { email, scopes, windowStart };
   }
 
+  /**
+   * Counts a "Forgot your password?" request against the same limits as sign-in, per address
+   * (SIGN_IN_LIMIT) and across the kitchen (SIGN_IN_GLOBAL_LIMIT) in each window, kept apart from
+   * wrong passwords so that asking for a link never locks an account. Refuses with a plain
+   * message past a limit, the same whichever address was asked for.
+   */
+  async beginReset(address: string, now = new Date()): Promise<void> {
+    const windowStart = new Date(Math.floor(now.getTime() / this.windowMs) * this.windowMs);
+    const scopes = ['reset:kitchen', `reset:address:${address}`.slice(0, 80)];
+    await retryingDeadlocks(() => this.countWindow(scopes, windowStart, +1));
+    const counts = await this.sequelize.query<{ scope: string; failures: number }>(
+      'SELECT scope, failures FROM sign_in_counters WHERE window_start = ? AND scope IN (?)',
+      { replacements: [windowStart, scopes], type: QueryTypes.SELECT },
+    );
+    const count = (scope: string) => Number(counts.find((c) => c.scope === scope)?.failures ?? 0);
+    const waitMs = windowStart.getTime() + this.windowMs - now.getTime();
+    if (count(scopes[0]) > this.config.get('SIGN_IN_GLOBAL_LIMIT', { infer: true })) {
+      throw new AppError(
+        'too-many-requests',
+        `Too many password links were asked for in the last minutes. Wait ${minutes(waitMs)}, then ask again.`,
+      );
+    }
+    if (count(scopes[1]) > this.config.get('SIGN_IN_LIMIT', { infer: true })) {
+      throw new AppError(
+        'too-many-requests',
+        `Too many password links were asked for from this device. Wait ${minutes(waitMs)}, then ask again.`,
+      );
+    }
+  }
+
   /** The password was right: the attempt is not a failure after all, and the email starts afresh. */
   async succeeded(attempt: Attempt, now = new Date()) {
     await retryingDeadlocks(() => this.countWindow(attempt.scopes, attempt.windowStart, -1));

@@ -1,4 +1,4 @@
-import { PipeTransform } from '@nestjs/common';
+import type { ArgumentMetadata, PipeTransform } from '@nestjs/common';
 import { ApiBody } from '@nestjs/swagger';
 import { bodyPlace, formatIssue, issueField, type ErrorCode, type IssuePlace } from '@crumbproof/shared';
 import { z } from 'zod';
@@ -8,11 +8,21 @@ import { AppError } from './app-error';
 export class ZodPipe<S extends z.ZodType> implements PipeTransform<unknown, z.infer<S>> {
   constructor(private readonly schema: S) {}
 
-  transform(value: unknown): z.infer<S> {
+  transform(value: unknown, metadata?: ArgumentMetadata): z.infer<S> {
     const result = this.schema.safeParse(value);
     if (result.success) return result.data;
-    throw validationError(result.error);
+    throw validationError(result.error, { place: placeOf(metadata) });
   }
+}
+
+/**
+ * Where a bad value was sent: a body's dotted paths; a query or path parameter by its name
+ * ("regime"), with the query's own names when the whole query is checked.
+ */
+function placeOf(metadata?: ArgumentMetadata): IssuePlace {
+  if (!metadata || metadata.type === 'body' || metadata.type === 'custom') return bodyPlace;
+  const whole = metadata.type === 'query' ? '(query)' : '(address)';
+  return (path) => [metadata.data, ...path.map(String)].filter((x) => x !== undefined && x !== '').join('.') || whole;
 }
 
 /**

@@ -59,6 +59,21 @@ export const configSchema = z.object({
   PUBLIC_URL: unsetIfEmpty(z.url({ protocol: /^https?$/, error: 'PUBLIC_URL must be an http or https address.' }).optional()),
   /** The most the supplier specification files of one kitchen may take in all, in MB (1 MB = 1,048,576 bytes). */
   KITCHEN_FILE_QUOTA_MB: z.coerce.number().positive().default(500),
+  /**
+   * The mail server the kitchen's e-mail goes through (invitations, password resets, what other
+   * features tell people). Unset: nothing is sent, and mails wait in the outbox (the manager's
+   * Mail page says so) until a server is set.
+   */
+  SMTP_HOST: unsetIfEmpty(z.string().min(1).optional()),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  /** true: TLS from the first byte (usually port 465); false: STARTTLS when the server offers it (587, 25). */
+  SMTP_SECURE: z.enum(['true', 'false']).default('false'),
+  SMTP_USER: unsetIfEmpty(z.string().min(1).optional()),
+  SMTP_PASSWORD: unsetIfEmpty(z.string().optional()),
+  /** The address mail is sent from; the sender's name is the kitchen's ("Wrenfield Lane Bakehouse via Crumbproof"). */
+  MAIL_FROM: unsetIfEmpty(z.email({ error: 'MAIL_FROM must be an email address such as crumbproof@bakery.example.' }).optional()),
+  /** How often the sender looks for mail that is due (it is also woken as soon as a mail is queued). */
+  MAIL_POLL_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   WEB_DIST: z.string().optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
 });
@@ -96,6 +111,18 @@ export function sessionCookieSecure(settings: Settings<'COOKIE_SECURE' | 'HOST' 
   return !(read(settings, 'NODE_ENV') === 'development' || isLoopback(read(settings, 'HOST')));
 }
 
+/**
+ * Where people open Crumbproof, for the links mail carries: PUBLIC_URL, or the address the API
+ * listens on (loopback installations and tests).
+ */
+export function appAddress(settings: Settings<'PUBLIC_URL' | 'HOST' | 'PORT'>): string {
+  const url = read(settings, 'PUBLIC_URL');
+  if (url) return url.replace(/\/+$/, '');
+  const host = read(settings, 'HOST');
+  const shown = host === '0.0.0.0' || host === '::' ? '127.0.0.1' : host.includes(':') ? `[${host}]` : host;
+  return `http://${shown}:${read(settings, 'PORT')}`;
+}
+
 /** Who runs the migrations: DB_OWNER_USER, or DB_USER when no owner is set. */
 export function databaseOwner(config: Pick<AppConfig, 'DB_USER' | 'DB_PASSWORD' | 'DB_OWNER_USER' | 'DB_OWNER_PASSWORD'>) {
   return config.DB_OWNER_USER
@@ -124,6 +151,12 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
           path: ['COOKIE_SECURE'],
           message: `A session cookie without Secure would cross the network from ${c.HOST} in clear text: serve Crumbproof over HTTPS and leave COOKIE_SECURE unset.`,
         });
+      }
+      if (c.SMTP_HOST && !c.MAIL_FROM) {
+        ctx.addIssue({ code: 'custom', path: ['MAIL_FROM'], message: 'Set MAIL_FROM, the address mail is sent from, with SMTP_HOST.' });
+      }
+      if (c.SMTP_PASSWORD && !c.SMTP_USER) {
+        ctx.addIssue({ code: 'custom', path: ['SMTP_USER'], message: 'Set SMTP_USER with SMTP_PASSWORD (or leave both unset).' });
       }
       if (c.SESSION_MAX_HOURS * 60 < c.SESSION_MINUTES) {
         ctx.addIssue({ code: 'custom', path: ['SESSION_MAX_HOURS'], message: 'SESSION_MAX_HOURS must be at least SESSION_MINUTES.' });

@@ -4,7 +4,7 @@ import type { FastifyReply } from 'fastify';
 import {
   KITCHEN_WRITERS,
   labelRunRequestSchema,
-  labelSettingsSchema,
+  labelSettingsSaveSchema,
   staleHandledSchema,
   type LabelRunRequest,
   type LabelSettings,
@@ -43,8 +43,8 @@ export class LabelsController {
   @Put('settings')
   @Roles(['manager'])
   @ApiOperation({ summary: 'Change the kitchen’s label settings (manager)' })
-  @ApiZodBody(labelSettingsSchema)
-  saveSettings(@Body(new ZodPipe(labelSettingsSchema)) body: LabelSettings) {
+  @ApiZodBody(labelSettingsSaveSchema, 'Every setting, as PUT replaces them all')
+  saveSettings(@Body(new ZodPipe(labelSettingsSaveSchema)) body: LabelSettings) {
     return this.labels.saveSettings(body);
   }
 

@@ -14,8 +14,9 @@ export class UserModel extends Model {
   @Column({ type: DataType.ENUM('manager', 'pastry-chef', 'front-of-house'), allowNull: false })
   role: Role;
 
-  @Column({ type: DataType.STRING(100), allowNull: false, field: 'password_hash' })
-  passwordHash: string;
+  /** Null for a user who was invited and has not chosen a password yet: they cannot sign in. */
+  @Column({ type: DataType.STRING(100), allowNull: true, field: 'password_hash' })
+  passwordHash: string | null;
 
   @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: true })
   active: boolean;

@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { UniqueConstraintError, type Transaction } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
 import type { Role, User } from '@crumbproof/shared';
 import { UserModel } from './user.model';
@@ -9,7 +9,8 @@ export interface NewUser {
   email: string;
   name: string;
   role: Role;
-  passwordHash: string;
+  /** Null: invited, no password yet. */
+  passwordHash: string | null;
   /** The demo kitchen's published password (the demo seed only). */
   demoPassword?: boolean;
 }
@@ -51,6 +52,18 @@ export class UsersRepository {
     return row.update(changes, { transaction });
   }
 
+  /** The addresses of active users with one of the roles, by address. */
+  async activeEmailsWithRoles(roles: readonly Role[], transaction?: Transaction): Promise<string[]> {
+    if (roles.length === 0) return [];
+    const rows = await this.users.findAll({
+      where: { role: { [Op.in]: [...roles] }, active: true },
+      attributes: ['email'],
+      order: [['email', 'ASC']],
+      transaction,
+    });
+    return rows.map((r) => r.email);
+  }
+
   count() {
     return this.users.count();
   }
@@ -72,6 +85,7 @@ export function toUser(row: UserModel): User {
     name: row.name,
     role: row.role,
     active: row.active,
+    invitationPending: row.passwordHash === null,
     createdAt: row.createdAt.toISOString(),
   };
 }

@@ -25,6 +25,7 @@ const regimeKey = (regime: Regime | undefined) => regime ?? 'kitchen';
 export const queryKeys = {
   me: () => ['me'] as const,
   users: () => ['users'] as const,
+  mailOutbox: () => ['mail', 'outbox'] as const,
   /** Reference data: the same for every kitchen, changed only by a new release. */
   reference: {
     nutrients: () => ['reference', 'nutrients'] as const,
@@ -114,7 +115,9 @@ export const KITCHEN_DATA_ROOTS = [
 export const mutationKeys = {
   signIn: () => ['auth', 'sign-in'] as const,
   signOut: () => ['auth', 'sign-out'] as const,
-  createUser: () => ['users', 'create'] as const,
+  inviteUser: () => ['users', 'invite'] as const,
+  resendInvitation: () => ['users', 'invitation'] as const,
+  retryMail: () => ['mail', 'retry'] as const,
   updateUser: () => ['users', 'update'] as const,
   updateKitchen: () => ['kitchen', 'update'] as const,
   createIngredient: () => ['ingredients', 'create'] as const,

@@ -9,8 +9,8 @@ describe('navigation map', () => {
     expect(firstPathFor('front-of-house')).toBe('/counter');
   });
 
-  it('lets only managers open users and audit', () => {
-    for (const page of ['users', 'audit'] as const) {
+  it('lets only managers open users, audit and mail', () => {
+    for (const page of ['users', 'audit', 'mail'] as const) {
       expect(rolesThatCanOpen(page)).toEqual(['manager']);
     }
     expect(canOpen('front-of-house', 'ingredients')).toBe(false);

@@ -10,6 +10,7 @@ export const PAGES = {
   audit: { path: '/audit', label: 'Audit' },
   kitchen: { path: '/kitchen', label: 'Kitchen' },
   users: { path: '/users', label: 'Users' },
+  mail: { path: '/mail', label: 'Mail' },
 } as const satisfies Record<string, { path: string; label: string }>;
 
 export type PageKey = keyof typeof PAGES;
@@ -19,7 +20,7 @@ export type PageKey = keyof typeof PAGES;
  * after sign-in and the refused page all read it.
  */
 export const PAGES_BY_ROLE: Record<Role, readonly PageKey[]> = {
-  manager: ['ingredients', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users'],
+  manager: ['ingredients', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users', 'mail'],
   'pastry-chef': ['ingredients', 'recipes', 'counter', 'labels', 'approvals'],
   'front-of-house': ['counter', 'recipes'],
 };

@@ -3,6 +3,9 @@ import type { ReactNode } from 'react';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { SignInRoute } from '@/features/auth/routes/sign-in';
 import { FirstManagerRoute } from '@/features/auth/routes/first-manager';
+import { ForgotPasswordRoute } from '@/features/auth/routes/forgot-password';
+import { SetPasswordRoute } from '@/features/auth/routes/set-password';
+import { MailRoute } from '@/features/mail/routes/mail';
 import { ApprovalsRoute } from '@/features/approvals/routes/approvals';
 import { AuditRoute } from '@/features/audit/routes/audit';
 import { CounterRoute } from '@/features/counter/routes/counter';
@@ -33,6 +36,7 @@ const PAGE_ELEMENTS: Record<PageKey, ReactNode> = {
   audit: <AuditRoute />,
   kitchen: <KitchenRoute />,
   users: <UsersRoute />,
+  mail: <MailRoute />,
 };
 
 const homeFor = (me: Me) => firstPathFor(me.role);
@@ -51,6 +55,8 @@ export const routes: RouteObject[] = [
         children: [
           { path: '/sign-in', element: <SignInRoute homeFor={homeFor} /> },
           { path: '/first-manager', element: <FirstManagerRoute /> },
+          { path: '/set-password', element: <SetPasswordRoute /> },
+          { path: '/forgot-password', element: <ForgotPasswordRoute /> },
         ],
       },
       {

@@ -79,9 +79,9 @@ export const LABEL_SETTINGS: LabelSettings = {
 };
 
 export const USERS: User[] = [
-  { ...PEOPLE.manager, active: true, createdAt: '2026-03-02T09:00:00.000Z' },
-  { ...PEOPLE['pastry-chef'], active: true, createdAt: '2026-03-04T09:00:00.000Z' },
-  { ...PEOPLE['front-of-house'], active: false, createdAt: '2026-05-20T09:00:00.000Z' },
+  { ...PEOPLE.manager, active: true, invitationPending: false, createdAt: '2026-03-02T09:00:00.000Z' },
+  { ...PEOPLE['pastry-chef'], active: true, invitationPending: false, createdAt: '2026-03-04T09:00:00.000Z' },
+  { ...PEOPLE['front-of-house'], active: false, invitationPending: false, createdAt: '2026-05-20T09:00:00.000Z' },
 ];
 
 /** The API as seen by a signed-in person of the given role. */

@@ -107,6 +107,9 @@ export function containsFor(all: LeafFacts[], rules: RegimeRules, sulphitesDecla
           pushUnique(entry.species, use.species);
         }
         pushPath(entry.via, facts.node.path);
+        // Still in the food, so declared here (Regulation (EU) No 1169/2011 Art. 9(1)(c) and 21),
+        // and said to come through contact.
+        if (facts.node.role === 'contact') pushPath((entry.contactVia ??= []), facts.node.path);
         found.set(group.code, entry);
       }
     }

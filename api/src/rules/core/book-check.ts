@@ -1,8 +1,8 @@
-import type { Book, BookIngredient, BookProblem, BookRecipe, RecipeLine } from '@crumbproof/shared';
+import { isWeighed, type Book, type BookIngredient, type BookProblem, type BookRecipe, type WeighedLine } from '@crumbproof/shared';
 import { defaultMeasures, toGrams } from './quantities';
 
 /** Lines of these units can be weighed for a sub-recipe (recipes have no density or unit weight). */
-const RECIPE_UNITS: ReadonlySet<RecipeLine['unit']> = new Set(['g', 'kg']);
+const RECIPE_UNITS: ReadonlySet<WeighedLine['unit']> = new Set(['g', 'kg']);
 
 /**
  * Refusals that name what is wrong. A book with any problem declares nothing.
@@ -52,7 +52,7 @@ function lineProblems(book: Book): BookProblem[] {
         });
         return;
       }
-      if (line.role === 'contact') return; // contact lines carry no weight
+      if (!isWeighed(line)) return; // contact lines carry no weight
       if (ingredient) {
         const weighed = toGrams(line.qty, line.unit, ingredient, measures);
         if (!weighed.ok) problems.push(unweighable(recipe, n, line, ingredient, weighed.needs));
@@ -73,7 +73,7 @@ function lineProblems(book: Book): BookProblem[] {
   return problems;
 }
 
-function unweighable(recipe: BookRecipe, n: number, line: RecipeLine, item: BookIngredient, needs: 'gPerMl' | 'gEach'): BookProblem {
+function unweighable(recipe: BookRecipe, n: number, line: WeighedLine, item: BookIngredient, needs: 'gPerMl' | 'gEach'): BookProblem {
   const lower = item.name.toLowerCase();
   const missing =
     needs === 'gEach'

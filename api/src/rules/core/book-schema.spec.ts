@@ -93,3 +93,34 @@ describe('bookSchema: an unknown allergen source or form says which value and wh
     expect(withEntry({ source: 'fish', species: 'cod' }).success).toBe(true);
   });
 });
+
+describe('bookSchema: a line in the mix needs its quantity and unit; a contact line needs neither', () => {
+  const lineIssues = (line: Record<string, unknown>) => {
+    const b = JSON.parse(readFileSync(join(ROOT, 'tests/fixtures/shortbread.book.json'), 'utf8')) as RawBook;
+    b.recipes[0].lines = [b.recipes[0].lines[0], line];
+    const r = bookSchema.safeParse(b);
+    return r.success ? [] : r.error.issues.map((i) => ({ path: i.path.slice(2).join('.'), message: i.message }));
+  };
+
+  it.each([
+    { title: 'a contact line with no quantity or unit', line: { use: 'butter', role: 'contact' }, issues: [] },
+    { title: 'a contact line with a quantity', line: { use: 'butter', role: 'contact', qty: 5, unit: 'g' }, issues: [] },
+    {
+      title: 'a line in the mix with no quantity',
+      line: { use: 'butter', unit: 'g' },
+      issues: [{ path: 'lines.1.qty', message: 'Give a quantity above zero.' }],
+    },
+    {
+      title: 'a line in the mix with no unit',
+      line: { use: 'butter', qty: 5, role: 'ingredient' },
+      issues: [{ path: 'lines.1.unit', message: 'Give a unit: one of g, kg, ml, l, tsp, tbsp, cup, each.' }],
+    },
+    {
+      title: 'a contact line with a quantity of zero',
+      line: { use: 'butter', role: 'contact', qty: 0, unit: 'g' },
+      issues: [{ path: 'lines.1.qty', message: 'Give a quantity above zero.' }],
+    },
+  ])('$title', ({ line, issues }) => {
+    expect(lineIssues(line)).toEqual(issues);
+  });
+});

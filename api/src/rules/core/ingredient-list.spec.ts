@@ -108,8 +108,62 @@ describe('ingredient list order and percentages', () => {
       [recipe('p', [['sugar', 100], { use: 'flour', qty: 5, unit: 'g', role: 'contact' }])],
     );
     const d = declare(b, 'p', refs);
-    expect(d.contains).toEqual([expect.objectContaining({ allergen: 'gluten', via: [['p', 'flour']] })]);
+    expect(d.contains).toEqual([expect.objectContaining({ allergen: 'gluten', via: [['p', 'flour']], contactVia: [['p', 'flour']] })]);
     expect(d.mixWeightG).toBe(100);
+  });
+
+  // Regulation (EU) No 1169/2011 Art. 9(1)(c) and Art. 21: an allergen in the food is declared
+  // under contains, however it got there; a contact line never turns it into a may-contain.
+  it('declares a contact line with no quantity under contains, never as a may-contain, and weighs nothing for it', () => {
+    const b = book(
+      [ing('batter', { name: 'Oat batter', vegan: true }), ing('butter', { name: 'Butter', contains: ['milk'], vegan: false })],
+      [recipe('pancake', [['batter', 200], { use: 'butter', role: 'contact' }])],
+    );
+    const d = declare(b, 'pancake', refs);
+    expect(d.contains).toEqual([
+      expect.objectContaining({ allergen: 'milk', via: [['pancake', 'butter']], contactVia: [['pancake', 'butter']] }),
+    ]);
+    expect(d.mayContain).toEqual([]);
+    expect(d.mixWeightG).toBe(200);
+    expect(d.ingredients.map((e) => [e.name, e.role, e.percent])).toEqual([
+      ['Oat batter', 'ingredient', 100],
+      ['Butter', 'contact', 0],
+    ]);
+    expect(d.claims.vegan.status).not.toBe('holds');
+  });
+
+  it('never counts a quantity given to a contact line toward the mix or the percentages', () => {
+    const weighed = (qty?: number) =>
+      declare(
+        book(
+          [ing('sugar'), ing('flour', { name: 'Wheat flour', contains: ['wheat'] })],
+          [recipe('p', [['sugar', 100], { use: 'flour', role: 'contact', ...(qty ? { qty, unit: 'g' as const } : {}) }])],
+        ),
+        'p',
+        refs,
+      );
+    expect(weighed(50).mixWeightG).toBe(100);
+    expect(weighed(50).ingredients).toEqual(weighed().ingredients);
+  });
+
+  it('lists an ingredient used in the mix and also by contact once, in its place by weight', () => {
+    const b = book(
+      [
+        ing('flour', { name: 'Plain flour', contains: ['wheat'] }),
+        ing('sugar', { name: 'Sugar' }),
+        ing('butter', { name: 'Butter', contains: ['milk'] }),
+      ],
+      [recipe('loaf', [{ use: 'flour', role: 'contact' }, ['sugar', 300], ['flour', 200], ['butter', 100]])],
+    );
+    const d = declare(b, 'loaf', refs);
+    expect(d.ingredients.map((e) => [e.name, e.role])).toEqual([
+      ['Sugar', 'ingredient'],
+      ['Plain flour', 'ingredient'],
+      ['Butter', 'ingredient'],
+    ]);
+    expect(d.ingredientsMarkdown).toBe('Ingredients: Sugar, Plain flour (**wheat**), Butter (**milk**).');
+    // Both uses are paths to the allergen; only the tin's is through contact.
+    expect(d.contains.find((c) => c.allergen === 'gluten')).toMatchObject({ via: [['loaf', 'flour']], contactVia: [['loaf', 'flour']] });
   });
 });
 

@@ -22,7 +22,8 @@ export interface IngredientList {
 /**
  * The ingredient list: each level in descending order of weight at the time of use
  * (Regulation (EU) No 1169/2011 Art. 18 and Annex VII; 21 CFR 101.4(a)(1)), ties kept in line
- * order, contact lines at the end of their level. A sub-recipe appears under its own name with
+ * order, contact lines at the end of their level (an ingredient also used in the mix at that
+ * level is listed once, in its place by weight). A sub-recipe appears under its own name with
  * its own ingredients in brackets in their own order, whatever its share: the 2 % option of
  * Annex VII Part E point 2(a) is only for compounds defined in Union law, and keeping the
  * brackets never loses an allergen. No 2 % threshold is therefore applied.
@@ -89,7 +90,17 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
       });
     }
     const used = entries.filter((e) => e.role !== 'contact');
-    const contact = entries.filter((e) => e.role === 'contact');
+    // An ingredient used in the mix and also by contact (flour in the dough and on the tin) is
+    // listed once, in its place by weight; one used only by contact once at the end of its level.
+    const contact: DeclaredIngredient[] = [];
+    for (const e of entries.filter((x) => x.role === 'contact')) {
+      const same = used.find((u) => u.id === e.id) ?? contact.find((c) => c.id === e.id);
+      if (!same) {
+        contact.push(e);
+        continue;
+      }
+      for (const a of e.allergens) if (!same.allergens.includes(a)) same.allergens.push(a);
+    }
     // Array.prototype.sort is stable: equal weights keep their line order.
     return [...used.sort((a, b) => b.orderWeightG - a.orderWeightG), ...contact];
   };

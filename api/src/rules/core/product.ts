@@ -8,7 +8,7 @@ import type { ReferenceData } from './reference-schema';
  * Changes whenever the engine's output changes shape or meaning, so that declarations kept in
  * the database are computed again rather than served stale.
  */
-export const ENGINE_VERSION = 7;
+export const ENGINE_VERSION = 8;
 
 /** A product's full declaration: allergens, claims and list (declare) with its nutrition. */
 export function declareProduct(book: Book, productId: string, refs: ReferenceData, opts: { regime?: Regime } = {}): ProductDeclaration {

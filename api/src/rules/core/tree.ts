@@ -1,4 +1,4 @@
-import type { Book, BookIngredient, BookRecipe, LineRole, MeasureSystem } from '@crumbproof/shared';
+import { isWeighed, type Book, type BookIngredient, type BookRecipe, type LineRole, type MeasureSystem } from '@crumbproof/shared';
 import { defaultMeasures, toGrams } from './quantities';
 
 /**
@@ -53,7 +53,7 @@ export function buildTree(book: Book, productId: string): ProductTree {
         const ingredient = ingredients.get(line.use);
         const recipeUsed = recipes.get(line.use);
         let grams = 0;
-        if (line.role !== 'contact') {
+        if (isWeighed(line)) {
           if (ingredient) {
             const w = toGrams(line.qty, line.unit, ingredient, measures);
             if (!w.ok) throw new Error(`${recipe.name} uses ${ingredient.name} in a unit that cannot be weighed; check the book first.`);

@@ -7,7 +7,7 @@ import { renderApp } from '@/testing/render-app';
 const cases: { role: Role; links: string[]; first: string }[] = [
   {
     role: 'manager',
-    links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users'],
+    links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
     first: 'Ingredients',
   },
   { role: 'pastry-chef', links: ['Ingredients', 'Recipes', 'Counter', 'Labels', 'Approvals'], first: 'Ingredients' },

@@ -8,6 +8,7 @@ const cases: { status: AllergenStatus; words: string; mark: string | null }[] = 
   { status: 'may-contain', words: 'May contain milk', mark: 'striped' },
   { status: 'not-known', words: 'Not known milk', mark: 'dashed' },
   { status: 'none-recorded', words: 'None recorded milk', mark: null },
+  { status: 'stated-none', words: 'Supplier states none milk', mark: null },
 ];
 
 describe('StatusMark', () => {

@@ -1,13 +1,18 @@
 import { Box, HStack, Text } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
 
-export type AllergenStatus = 'contains' | 'may-contain' | 'not-known' | 'none-recorded';
+/**
+ * 'none-recorded': a product's declaration with nothing to declare; 'stated-none': an
+ * ingredient whose supplier states it has none (never to be read as "not known").
+ */
+export type AllergenStatus = 'contains' | 'may-contain' | 'not-known' | 'none-recorded' | 'stated-none';
 
 export const STATUS_WORDS: Record<AllergenStatus, string> = {
   contains: 'Contains',
   'may-contain': 'May contain',
   'not-known': 'Not known',
   'none-recorded': 'None recorded',
+  'stated-none': 'Supplier states none',
 };
 
 interface StatusMarkProps {
@@ -52,6 +57,7 @@ export function Mark({ status }: { status: MarkShape }) {
     case 'suitable-as-recorded':
       return <Box aria-hidden="true" data-mark="ring" {...markBase} borderRadius="full" borderWidth="3px" />;
     case 'none-recorded':
+    case 'stated-none':
       return null;
   }
 }

@@ -8,7 +8,7 @@ import type {
   NutritionSource,
   UnweighedLine,
 } from '@crumbproof/shared';
-import { NUTRIENT_KEYS } from '@crumbproof/shared';
+import { isWeighed, NUTRIENT_KEYS } from '@crumbproof/shared';
 import { toGrams } from '../quantities';
 import { ingredientFigures } from './ingredient-figures';
 
@@ -92,8 +92,7 @@ export class NutritionRoller {
 
     for (const line of recipe.lines) {
       const item = this.item(line.use, recipeId);
-      const role = line.role ?? 'ingredient';
-      if (role === 'contact') continue; // cross-contact only: no weight, no nutrients
+      if (!isWeighed(line)) continue; // a contact line: cross-contact only, no weight, no nutrients
       const child = item.kind === 'recipe' ? this.roll(item.recipe.id, here) : null;
       const lineLeaves: NutritionSource[] =
         item.kind === 'ingredient' ? [sourceOf(item.ingredient)] : [...(child as Rollup).leaves.values()];

@@ -1,6 +1,7 @@
 import type { Me } from '@crumbproof/shared';
 import { useEffect } from 'react';
-import { Navigate, useLocation, useNavigate } from 'react-router-dom';
+import { Link, Text } from '@chakra-ui/react';
+import { Link as RouterLink, Navigate, useLocation, useNavigate } from 'react-router-dom';
 import { useMe } from '../api/get-me';
 import { AuthCard } from '../components/auth-card';
 import { SignInForm } from '../components/sign-in-form';
@@ -38,6 +39,11 @@ export function SignInRoute({ homeFor }: SignInRouteProps) {
   return (
     <AuthCard title="Sign in to Crumbproof" lead="Use the email and password your kitchen manager gave you.">
       <SignInForm onSignedIn={handleSignedIn} />
+      <Text mt="5">
+        <Link asChild>
+          <RouterLink to="/forgot-password">Forgot your password?</RouterLink>
+        </Link>
+      </Text>
     </AuthCard>
   );
 }

@@ -131,7 +131,7 @@ const columns: DataTableColumn<LibraryRow>[] = [
     cell: (info) => {
       const contains = info.row.original.ingredient.contains;
       if (contains === undefined) return <StatusMark status="not-known" />;
-      if (contains.length === 0) return <StatusMark status="none-recorded" />;
+      if (contains.length === 0) return <StatusMark status="stated-none" />;
       return <EntryList entries={contains} />;
     },
   }),
@@ -142,7 +142,7 @@ const columns: DataTableColumn<LibraryRow>[] = [
     meta: meta({ width: 160 }),
     cell: (info) => {
       const mayContain = info.row.original.ingredient.mayContain ?? [];
-      return mayContain.length === 0 ? <StatusMark status="none-recorded" /> : <EntryList entries={mayContain} />;
+      return mayContain.length === 0 ? <StatusMark status="stated-none" /> : <EntryList entries={mayContain} />;
     },
   }),
   column.accessor((row) => yesNoUnknown(row.ingredient.vegan), {

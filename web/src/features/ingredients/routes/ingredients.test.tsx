@@ -68,7 +68,9 @@ describe('Ingredient library', () => {
     const decorations = within(table).getByRole('link', { name: 'Chocolate decorations' }).closest('tr') as HTMLElement;
     expect(decorations).toHaveTextContent('Not known');
     const sugar = within(table).getByRole('link', { name: 'Caster sugar' }).closest('tr') as HTMLElement;
-    expect(within(sugar).getAllByText('None recorded')).toHaveLength(2);
+    // An empty statement is the supplier's word, never to be read as "not known".
+    expect(within(sugar).getAllByText('Supplier states none')).toHaveLength(2);
+    expect(within(sugar).queryByText('None recorded')).not.toBeInTheDocument();
     expect(table).toHaveAttribute('aria-rowcount', '5');
   });
 

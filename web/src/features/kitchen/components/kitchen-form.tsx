@@ -15,7 +15,7 @@ import { useFieldArray, useForm } from 'react-hook-form';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { SaveBar } from '@/components/ui/save-bar';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
-import { isApiError } from '@/lib/api-client';
+import { placeFieldErrors } from '@/lib/place-field-errors';
 import { useUpdateKitchen } from '../api/update-kitchen';
 
 const REGIME_OPTIONS = REGIMES.map((r) => ({ value: r, label: `${REGIME_LABELS[r]} (${r})` }));
@@ -28,6 +28,13 @@ const MEASURE_OPTIONS = [
 const SOURCE_OPTIONS = ALLERGEN_SOURCES.map((s) => ({ value: s, label: SOURCE_LABELS[s] }));
 const CONTROL_OPTIONS = CONTROLS.map((c) => ({ value: c, label: CONTROL_LABELS[c] }));
 
+const MARKED = 'Nothing was saved. Check the fields marked above.';
+
+/** The fields a message can be placed beside; a path below one (handles.0.controls) goes on it. */
+const FIELDS = ['name', 'address', 'regime', 'measures', 'handles'] as const;
+type Field = (typeof FIELDS)[number];
+const fieldOf = (path: string): Field | undefined => FIELDS.find((f) => path === f || path.startsWith(`${f}.`));
+
 type FormValues = Required<Pick<KitchenUpdate, 'name' | 'address' | 'regime' | 'handles'>> & { measures: string };
 
 interface KitchenFormProps {
@@ -38,7 +45,7 @@ interface KitchenFormProps {
 export function KitchenForm({ kitchen }: KitchenFormProps) {
   const update = useUpdateKitchen();
   const [saved, setSaved] = useState<string | null>(null);
-  const { register, control, handleSubmit, formState } = useForm<FormValues>({
+  const { register, control, handleSubmit, formState, setError, clearErrors } = useForm<FormValues>({
     defaultValues: {
       name: kitchen.name,
       address: kitchen.address,
@@ -53,13 +60,32 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
   function handleSave(values: FormValues) {
     setSaved(null);
     setProblem(null);
+    clearErrors();
     const body = { ...values, measures: values.measures === '' ? null : values.measures };
     const parsed = kitchenUpdateSchema.safeParse(body);
     if (!parsed.success) {
-      setProblem(parsed.error.issues.map((i) => i.message).join(' '));
+      // Each message goes beside the field it is about; one about the form as a whole goes above the button.
+      const loose: string[] = [];
+      for (const issue of parsed.error.issues) {
+        const field = fieldOf(issue.path.map(String).join('.'));
+        if (field) setError(field, { message: issue.message });
+        else loose.push(issue.message);
+      }
+      setProblem(loose.length > 0 ? loose.join(' ') : MARKED);
       return;
     }
-    update.mutate(parsed.data, { onSuccess: () => setSaved('Saved. Every product’s declaration now follows these settings.') });
+    update.mutate(parsed.data, {
+      onSuccess: () => setSaved('Saved. Every product’s declaration now follows these settings.'),
+      onError: (error) =>
+        setProblem(
+          placeFieldErrors(
+            error,
+            FIELDS,
+            (field, e) => setError(field, e),
+            'The settings could not be saved. Check the connection and try again.',
+          ) ?? MARKED,
+        ),
+    });
   }
 
   const unused = (index: number) => {
@@ -74,13 +100,21 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
           <FormField label="Kitchen name" error={formState.errors.name?.message}>
             <TextInput {...register('name')} />
           </FormField>
-          <FormField label="Address">
+          <FormField label="Address" error={formState.errors.address?.message}>
             <TextInput {...register('address')} />
           </FormField>
-          <FormField label="Declaring regime" hint="The allergen list, thresholds and statement form the declarations follow.">
+          <FormField
+            label="Declaring regime"
+            error={formState.errors.regime?.message}
+            hint="The allergen list, thresholds and statement form the declarations follow."
+          >
             <SelectInput options={REGIME_OPTIONS} {...register('regime')} />
           </FormField>
-          <FormField label="Household measures" hint="How tsp, tbsp and cup in recipes are turned into millilitres.">
+          <FormField
+            label="Household measures"
+            error={formState.errors.measures?.message}
+            hint="How tsp, tbsp and cup in recipes are turned into millilitres."
+          >
             <SelectInput options={MEASURE_OPTIONS} {...register('measures')} />
           </FormField>
         </SimpleGrid>
@@ -118,6 +152,11 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
             ))}
           </Stack>
           {handles.fields.length === 0 ? <Text>No allergen source is recorded as handled here.</Text> : null}
+          {formState.errors.handles?.message ? (
+            <Text role="alert" color="fg.error" mt="2">
+              {formState.errors.handles.message}
+            </Text>
+          ) : null}
           <Button
             mt="3"
             variant="outline"
@@ -132,13 +171,6 @@ export function KitchenForm({ kitchen }: KitchenFormProps) {
         </Box>
 
         {problem ? <ErrorAlert title="Not saved">{problem}</ErrorAlert> : null}
-        {update.isError ? (
-          <ErrorAlert title="Not saved">
-            {isApiError(update.error) && update.error.fields?.length
-              ? update.error.fields.map((f) => `${f.path}: ${f.message}`).join(' ')
-              : update.error.message}
-          </ErrorAlert>
-        ) : null}
         <SaveBar label="Save kitchen settings" pending={update.isPending} status={saved} />
       </Stack>
     </form>

@@ -36,7 +36,7 @@ describe('Kitchen settings (manager)', () => {
     expect(await screen.findByText(/Every product’s declaration now follows these settings/)).toBeInTheDocument();
   });
 
-  it('shows the API’s refusal and says nothing was saved', async () => {
+  it('places the API’s refusal beside the field it names, and says nothing was saved', async () => {
     mockApi(
       signedInAs('manager', {
         'PATCH /api/kitchen': {
@@ -52,8 +52,36 @@ describe('Kitchen settings (manager)', () => {
     );
     const { user } = renderApp('/kitchen');
     await user.click(await screen.findByRole('button', { name: 'Save kitchen settings' }));
+    const name = await screen.findByLabelText('Kitchen name');
+    await waitFor(() => expect(name).toHaveAttribute('aria-invalid', 'true'));
+    expect(name).toHaveAccessibleDescription(/Give the kitchen a name/);
+    expect(screen.queryByText(/name: Give the kitchen a name/)).not.toBeInTheDocument();
+    expect(await screen.findByText('Nothing was saved. Check the fields marked above.')).toBeInTheDocument();
+  });
+
+  it('places its own check beside the field before sending anything', async () => {
+    const { calls } = mockApi(signedInAs('manager'));
+    const { user } = renderApp('/kitchen');
+    const name = await screen.findByLabelText('Kitchen name');
+    await user.clear(name);
+    await user.click(screen.getByRole('button', { name: 'Save kitchen settings' }));
+    await waitFor(() => expect(name).toHaveAccessibleDescription(/Give the kitchen a name/));
+    expect(calls.some((c) => c.method === 'PATCH')).toBe(false);
+  });
+
+  it('says a refusal that names no field above the button', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'PATCH /api/kitchen': {
+          status: 409,
+          body: { statusCode: 409, code: 'conflict', message: 'The kitchen was changed by someone else.', fields: [] },
+        },
+      }),
+    );
+    const { user } = renderApp('/kitchen');
+    await user.click(await screen.findByRole('button', { name: 'Save kitchen settings' }));
     const alert = await screen.findByRole('alert');
-    expect(within(alert).getByText(/name: Give the kitchen a name/)).toBeInTheDocument();
+    expect(within(alert).getByText(/changed by someone else/)).toBeInTheDocument();
   });
 
   it('is refused to a pastry chef', async () => {

@@ -32,6 +32,12 @@ function Paths({ paths, lookup }: { paths: readonly string[][]; lookup: ItemLook
   );
 }
 
+/** "From contact with Butter (greasing, dusting)", naming each item that reaches the product by contact once. */
+function contactWords(paths: readonly string[][], lookup: ItemLookup): string {
+  const names = [...new Set(paths.map((path) => lookup(path.at(-1) ?? '')?.name ?? path.at(-1) ?? ''))];
+  return `From contact with ${new Intl.ListFormat('en-GB').format(names)} (a contact line: greasing or dusting)`;
+}
+
 function formatPercent(value: number): string {
   return `${value.toLocaleString('en-GB', { maximumFractionDigits: 1 })}%`;
 }
@@ -68,6 +74,11 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
                     {`From ${group.sources.map((source) => SOURCE_LABELS[source] ?? source).join(', ')}`}
                     {group.species && group.species.length > 0 ? ` (species: ${group.species.join(', ')})` : ''}
                   </Text>
+                  {group.contactVia && group.contactVia.length > 0 ? (
+                    <Text textStyle="sm" mt="1">
+                      {`${contactWords(group.contactVia, lookup)}: it is still in the food, so it is declared here, not as a may-contain.`}
+                    </Text>
+                  ) : null}
                   <Paths paths={group.via} lookup={lookup} />
                 </Box>
               ))}

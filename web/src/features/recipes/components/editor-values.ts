@@ -62,7 +62,7 @@ export function toEditorValues(recipe: BookRecipe | null): EditorValues {
   return {
     id: recipe.id,
     name: recipe.name,
-    lines: recipe.lines.map((line) => ({ use: line.use, qty: line.qty, unit: line.unit, role: line.role ?? 'ingredient' })),
+    lines: recipe.lines.map((line) => ({ use: line.use, qty: line.qty, unit: line.unit ?? 'g', role: line.role ?? 'ingredient' })),
     finishedWeightG: recipe.finishedWeightG,
     forSale: recipe.sale !== undefined,
     portionG: sale?.portionG,
@@ -111,12 +111,12 @@ export function toBookRecipe(values: EditorValues): BookRecipe {
   const recipe = {
     id: (values.id ?? '').trim(),
     name: values.name ?? '',
-    lines: lines.map((line) => ({
-      use: (line.use ?? '').trim(),
-      qty: line.qty as number,
-      unit: line.unit,
-      ...(line.role === 'contact' ? { role: 'contact' as const } : {}),
-    })),
+    // A contact line takes no weight: whatever its boxes held, it is sent without a quantity.
+    lines: lines.map((line) =>
+      line.role === 'contact'
+        ? { use: (line.use ?? '').trim(), role: 'contact' as const }
+        : { use: (line.use ?? '').trim(), qty: line.qty as number, unit: line.unit },
+    ),
     ...(values.finishedWeightG !== undefined && !Number.isNaN(values.finishedWeightG) ? { finishedWeightG: values.finishedWeightG } : {}),
     ...(values.forSale
       ? {

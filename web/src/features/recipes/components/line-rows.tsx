@@ -1,7 +1,7 @@
 import { Box, Button, HStack, Table, Text } from '@chakra-ui/react';
 import { LINE_ROLES, UNITS } from '@crumbproof/shared';
 import type { ReactNode } from 'react';
-import { Controller, type Control, type FieldErrors, type UseFieldArrayReturn, type UseFormRegister } from 'react-hook-form';
+import { Controller, useWatch, type Control, type FieldErrors, type UseFieldArrayReturn, type UseFormRegister } from 'react-hook-form';
 import { SelectInput, TextInput } from '@/components/ui/form-field';
 import { ItemCombobox, type ComboboxOption } from '@/components/ui/item-combobox';
 import { EMPTY_LINE, numberOrUndefined, type EditorValues } from './editor-values';
@@ -32,6 +32,7 @@ function errorIdFor(index: number) {
 /** The recipe's lines as an editable table: pick by typing, quantity, unit, role, move, remove. */
 export function LineRows({ control, register, lines, errors, apiErrors, options }: LineRowsProps) {
   const { fields, append, remove, move } = lines;
+  const watched = useWatch({ control, name: 'lines' });
   return (
     <Box as="fieldset" minW="0">
       <Text as="legend" fontWeight="bold" mb="2">
@@ -77,6 +78,7 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                 ...fromApi,
               ].filter(Boolean);
               const describedBy = messages.length > 0 ? errorIdFor(index) : undefined;
+              const contact = watched?.[index]?.role === 'contact';
               return (
                 <Table.Row key={field.id} bg="bg.panel" data-line={n}>
                   <Table.Cell textAlign="end" textStyle="quantity" pt="4">
@@ -108,30 +110,40 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                       </Box>
                     ) : null}
                   </Table.Cell>
-                  <Table.Cell>
-                    <TextInput
-                      type="number"
-                      inputMode="decimal"
-                      step="any"
-                      min="0"
-                      textAlign="end"
-                      textStyle="quantity"
-                      w="5.5rem"
-                      px="2"
-                      aria-label={`Quantity for line ${n}`}
-                      aria-invalid={Boolean(lineErrors?.qty) || undefined}
-                      aria-describedby={describedBy}
-                      {...register(`lines.${index}.qty`, { setValueAs: numberOrUndefined })}
-                    />
-                  </Table.Cell>
-                  <Table.Cell>
-                    <SelectInput
-                      aria-label={`Unit for line ${n}`}
-                      options={UNIT_OPTIONS}
-                      w="5.25rem"
-                      {...register(`lines.${index}.unit`)}
-                    />
-                  </Table.Cell>
+                  {contact ? (
+                    <Table.Cell colSpan={2} pt="3">
+                      <Text id={`recipe-line-${n}-no-weight`} color="fg.muted" textStyle="sm" maxW="11rem">
+                        No weight: brings its allergens only
+                      </Text>
+                    </Table.Cell>
+                  ) : (
+                    <>
+                      <Table.Cell>
+                        <TextInput
+                          type="number"
+                          inputMode="decimal"
+                          step="any"
+                          min="0"
+                          textAlign="end"
+                          textStyle="quantity"
+                          w="5.5rem"
+                          px="2"
+                          aria-label={`Quantity for line ${n}`}
+                          aria-invalid={Boolean(lineErrors?.qty) || undefined}
+                          aria-describedby={describedBy}
+                          {...register(`lines.${index}.qty`, { setValueAs: numberOrUndefined })}
+                        />
+                      </Table.Cell>
+                      <Table.Cell>
+                        <SelectInput
+                          aria-label={`Unit for line ${n}`}
+                          options={UNIT_OPTIONS}
+                          w="5.25rem"
+                          {...register(`lines.${index}.unit`)}
+                        />
+                      </Table.Cell>
+                    </>
+                  )}
                   <Table.Cell>
                     <SelectInput
                       aria-label={`Role for line ${n}`}
@@ -191,7 +203,8 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
         </Text>
       ) : null}
       <Text color="fg.muted" textStyle="sm" mt="1">
-        A contact line (greasing a tin, dusting a board) brings its allergens but no weight.
+        A contact line (greasing a tin, dusting a board) brings its allergens but no weight: it takes no quantity, and what it brings is
+        declared under contains.
       </Text>
       <Button mt="3" size="lg" variant="outline" onClick={() => append({ ...EMPTY_LINE })}>
         Add line

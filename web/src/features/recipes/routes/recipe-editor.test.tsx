@@ -48,6 +48,26 @@ function lineMarks() {
   });
 }
 
+/** Opens the sponge's editor with saving answered, and adds a fourth line of plant spread picked by typing. */
+async function addPlantSpreadLine() {
+  let saved: BookRecipe | null = null;
+  const { calls } = editorApi({
+    'PUT /api/recipes/victoria-sponge': ({ body }) => {
+      saved = body as BookRecipe;
+      return { body: { ...(body as BookRecipe), revision: 5, updatedAt: '2026-12-01T19:00:00.000Z' } };
+    },
+    'GET /api/recipes/victoria-sponge/declaration': { body: declarationFor() },
+    'GET /api/recipes/victoria-sponge/revisions': { body: [] },
+  });
+  const { user, router } = renderApp('/recipes/victoria-sponge/edit');
+  await screen.findByRole('heading', { level: 1, name: 'Edit Victoria sponge' });
+  await user.click(screen.getByRole('button', { name: 'Add line' }));
+  const picker = screen.getByRole('combobox', { name: 'Ingredient or recipe for line 4' });
+  await user.type(picker, 'plant');
+  await user.click(await screen.findByRole('option', { name: /Plant spread/ }));
+  return { saved: () => saved, calls, user, router, picker };
+}
+
 describe('Recipe editor', () => {
   it('loads the recipe into the form with its lines, and the live declaration beside it', async () => {
     const { calls } = editorApi();
@@ -59,6 +79,9 @@ describe('Recipe editor', () => {
     expect(screen.getByRole('spinbutton', { name: 'Quantity for line 1' })).toHaveValue(800);
     expect(screen.getByRole('combobox', { name: 'Unit for line 1' })).toHaveValue('g');
     expect(screen.getByRole('combobox', { name: 'Role for line 3' })).toHaveValue('contact');
+    // A contact line takes no weight: no quantity box, and words in its place.
+    expect(screen.queryByRole('spinbutton', { name: 'Quantity for line 3' })).not.toBeInTheDocument();
+    expect(screen.getByText('No weight: brings its allergens only')).toBeInTheDocument();
     expect(screen.getByLabelText('Weight after baking (g)')).toHaveValue(900);
     expect(screen.getByLabelText('For sale')).toBeChecked();
     expect(screen.getByLabelText('Portion (g)')).toHaveValue(90);
@@ -76,22 +99,7 @@ describe('Recipe editor', () => {
   });
 
   it('adds a line picked by typing, previews it and saves it, then opens the product page at the new revision', async () => {
-    let saved: BookRecipe | null = null;
-    const { calls } = editorApi({
-      'PUT /api/recipes/victoria-sponge': ({ body }) => {
-        saved = body as BookRecipe;
-        return { body: { ...(body as BookRecipe), revision: 5, updatedAt: '2026-12-01T19:00:00.000Z' } };
-      },
-      'GET /api/recipes/victoria-sponge/declaration': { body: declarationFor() },
-      'GET /api/recipes/victoria-sponge/revisions': { body: [] },
-    });
-    const { user, router } = renderApp('/recipes/victoria-sponge/edit');
-
-    await screen.findByRole('heading', { level: 1, name: 'Edit Victoria sponge' });
-    await user.click(screen.getByRole('button', { name: 'Add line' }));
-    const picker = screen.getByRole('combobox', { name: 'Ingredient or recipe for line 4' });
-    await user.type(picker, 'plant');
-    await user.click(await screen.findByRole('option', { name: /Plant spread/ }));
+    const { saved, calls, user, router, picker } = await addPlantSpreadLine();
     expect(picker).toHaveValue('Plant spread');
     await user.type(screen.getByRole('spinbutton', { name: 'Quantity for line 4' }), '50');
 
@@ -109,8 +117,20 @@ describe('Recipe editor', () => {
 
     await user.click(screen.getByRole('button', { name: 'Save recipe' }));
     await waitFor(() => expect(router.state.location.pathname).toBe('/recipes/victoria-sponge'));
-    expect(saved!.lines.at(-1)).toEqual({ use: 'plant-spread', qty: 50, unit: 'g' });
+    expect(saved()!.lines.at(-1)).toEqual({ use: 'plant-spread', qty: 50, unit: 'g' });
     expect(await screen.findByText('Saved. This is revision 5.')).toBeInTheDocument();
+  });
+
+  it('saves a contact line with no quantity: choosing the role takes the weight boxes away', async () => {
+    const { saved, user, router } = await addPlantSpreadLine();
+    await user.type(screen.getByRole('spinbutton', { name: 'Quantity for line 4' }), '3');
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Role for line 4' }), 'contact');
+    expect(screen.queryByRole('spinbutton', { name: 'Quantity for line 4' })).not.toBeInTheDocument();
+    expect(screen.getAllByText('No weight: brings its allergens only')).toHaveLength(2);
+
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/recipes/victoria-sponge'));
+    expect(saved()!.lines.at(-1)).toEqual({ use: 'plant-spread', role: 'contact' });
   });
 
   it('shows a line the API cannot weigh in place on that line, and in an alert', async () => {

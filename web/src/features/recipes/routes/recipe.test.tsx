@@ -42,6 +42,12 @@ describe('Product page: the declaration panel', () => {
     ]);
     // Gluten reaches the product twice: through the sponge and through the dusting flour.
     expect(within(contains).getAllByRole('list', { name: /^Layer path: .* → Plain wheat flour$/ })).toHaveLength(2);
+    // The dusting flour's gluten is said to come through contact, and stays under contains.
+    const gluten = within(contains).getByText('cereals containing gluten', { selector: 'strong' }).closest('li')!;
+    expect(gluten).toHaveTextContent(
+      'From contact with Plain wheat flour (a contact line: greasing or dusting): it is still in the food, so it is declared here, not as a may-contain.',
+    );
+    expect(milk.closest('li')).not.toHaveTextContent('From contact');
   });
 
   it('gives every claim its status word, and the reasons with their paths', async () => {

@@ -18,7 +18,7 @@ export const RECIPES: RecipeView[] = [
     lines: [
       { use: 'vanilla-sponge', qty: 800, unit: 'g' },
       { use: 'jam', qty: 150, unit: 'g' },
-      { use: 'flour', qty: 5, unit: 'g', role: 'contact' },
+      { use: 'flour', role: 'contact' },
     ],
     finishedWeightG: 900,
     sale: { portionG: 90, claims: ['vegetarian'], quid: ['jam'] },
@@ -146,6 +146,7 @@ export function declarationFor(overrides: Partial<ServedDeclaration> = {}): Serv
           ['victoria-sponge', 'vanilla-sponge', 'flour'],
           ['victoria-sponge', 'flour'],
         ],
+        contactVia: [['victoria-sponge', 'flour']],
       },
       { allergen: 'milk', label: 'milk', sources: ['milk'], via: [['victoria-sponge', 'vanilla-sponge', 'butter']] },
       { allergen: 'egg', label: 'eggs', sources: ['egg'], via: [['victoria-sponge', 'vanilla-sponge', 'eggs']] },

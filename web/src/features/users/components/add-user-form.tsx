@@ -1,5 +1,5 @@
 import { Box, Button, Heading, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { createUserSchema, PASSWORD_RULE, ROLE_LABELS, ROLES, type CreateUserRequest } from '@crumbproof/shared';
+import { inviteUserSchema, ROLE_LABELS, ROLES, type InviteUserRequest } from '@crumbproof/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -7,16 +7,15 @@ import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
 import { isApiError } from '@/lib/api-client';
 import { placeFieldErrors } from '@/lib/place-field-errors';
-import { useCreateUser } from '../api/create-user';
+import { useInviteUser } from '../api/invite-user';
 
-const FIELDS = ['name', 'email', 'role', 'password'] as const satisfies readonly (keyof CreateUserRequest)[];
+const FIELDS = ['name', 'email', 'role'] as const satisfies readonly (keyof InviteUserRequest)[];
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
-export const PASSWORD_HINT = PASSWORD_RULE;
-
+/** Invites someone by name, email and role: they choose their own password from the mailed link. */
 export function AddUserForm() {
-  const createUser = useCreateUser();
+  const inviteUser = useInviteUser();
   const headingId = useId();
   const [formError, setFormError] = useState<string | null>(null);
   const [added, setAdded] = useState<string | null>(null);
@@ -26,18 +25,20 @@ export function AddUserForm() {
     setError,
     reset,
     formState: { errors },
-  } = useForm<CreateUserRequest>({
-    resolver: zodResolver(createUserSchema),
-    defaultValues: { name: '', email: '', role: 'front-of-house', password: '' },
+  } = useForm<InviteUserRequest>({
+    resolver: zodResolver(inviteUserSchema),
+    defaultValues: { name: '', email: '', role: 'front-of-house' },
   });
 
-  function handleAdd(values: CreateUserRequest) {
+  function handleAdd(values: InviteUserRequest) {
     setFormError(null);
     setAdded(null);
-    createUser.mutate(values, {
+    inviteUser.mutate(values, {
       onSuccess: (user) => {
         reset();
-        setAdded(`${user.name} can now sign in as ${ROLE_LABELS[user.role]}.`);
+        setAdded(
+          `Invitation sent to ${user.email}: ${user.name} chooses a password from the link in it (it works for 72 hours), then signs in as ${ROLE_LABELS[user.role]}.`,
+        );
       },
       onError: (error) => {
         // A taken email is the email's problem, whatever the API names.
@@ -45,7 +46,7 @@ export function AddUserForm() {
           setError('email', { message: error.message });
           return;
         }
-        setFormError(placeFieldErrors(error, FIELDS, setError, 'The user was not added. Try again in a moment.'));
+        setFormError(placeFieldErrors(error, FIELDS, setError, 'The invitation was not sent. Try again in a moment.'));
       },
     });
   }
@@ -55,7 +56,7 @@ export function AddUserForm() {
       <form aria-labelledby={headingId} noValidate onSubmit={handleSubmit(handleAdd)}>
         <Stack gap="5">
           <Heading as="h2" size="lg" id={headingId}>
-            Add a user
+            Invite a user
           </Heading>
           {formError ? <ErrorAlert>{formError}</ErrorAlert> : null}
           <SimpleGrid columns={{ base: 1, md: 2 }} gap="5">
@@ -68,13 +69,10 @@ export function AddUserForm() {
             <FormField label="Role" error={errors.role?.message}>
               <SelectInput options={ROLE_OPTIONS} {...register('role')} />
             </FormField>
-            <FormField label="Password" hint={PASSWORD_HINT} error={errors.password?.message}>
-              <TextInput type="password" autoComplete="new-password" {...register('password')} />
-            </FormField>
           </SimpleGrid>
           <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ md: 'center' }}>
-            <Button type="submit" size="lg" alignSelf="flex-start" loading={createUser.isPending} loadingText="Adding…">
-              Add user
+            <Button type="submit" size="lg" alignSelf="flex-start" loading={inviteUser.isPending} loadingText="Sending…">
+              Send invitation
             </Button>
             <Text role="status" color="fg.muted">
               {added}

@@ -23,9 +23,12 @@ interface UsersTableProps {
   currentUserId: number;
   onUpdate: ReturnType<typeof useUpdateUser>['mutate'];
   pendingUserId: number | null;
+  /** Sends a new invitation to someone who has not chosen a password yet. */
+  onResend: (user: User) => void;
+  resendingUserId: number | null;
 }
 
-export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: UsersTableProps) {
+export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onResend, resendingUserId }: UsersTableProps) {
   const columns = useMemo<DataTableColumn<User>[]>(
     () => [
       column.accessor('name', {
@@ -62,7 +65,11 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: Us
       column.accessor('active', {
         header: 'Active',
         cell: (info) =>
-          info.getValue() ? (
+          info.getValue() && info.row.original.invitationPending ? (
+            <Badge variant="outline" size="lg" borderStyle="dashed">
+              Invited, no password yet
+            </Badge>
+          ) : info.getValue() ? (
             <Badge variant="subtle" colorPalette="accent" size="lg">
               Active
             </Badge>
@@ -84,7 +91,18 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: Us
           if (user.id === currentUserId) return <Text color="fg.muted">Your own account</Text>;
           const action = user.active ? 'Deactivate' : 'Reactivate';
           return (
-            <HStack>
+            <HStack wrap="wrap">
+              {user.active && user.invitationPending ? (
+                <Button
+                  size="lg"
+                  variant="outline"
+                  aria-label={`Send the invitation again to ${user.name}`}
+                  loading={resendingUserId === user.id}
+                  onClick={() => onResend(user)}
+                >
+                  Send invitation again
+                </Button>
+              ) : null}
               <Button
                 size="lg"
                 variant="outline"
@@ -99,7 +117,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId }: Us
         },
       }),
     ],
-    [currentUserId, onUpdate, pendingUserId],
+    [currentUserId, onUpdate, pendingUserId, onResend, resendingUserId],
   );
 
   return (

@@ -68,92 +68,64 @@ describe('Users page', () => {
     expect(calls.filter((call) => call.method === 'GET' && call.path === '/api/users')).toHaveLength(3);
   });
 
-  it('adds a user and shows them in the list', async () => {
+  it('invites a user by name, email and role, and shows them as invited', async () => {
     let users: User[] = [...USERS];
     const { calls } = mockApi(
       signedInAs('manager', {
         'GET /api/users': () => ({ body: users }),
-        'POST /api/users': ({ body }) => {
+        'POST /api/users/invitations': ({ body }) => {
           const input = body as { email: string; name: string; role: User['role'] };
-          const created: User = { id: 4, ...input, active: true, createdAt: '2026-12-01T10:00:00.000Z' };
+          const created: User = { id: 4, ...input, active: true, invitationPending: true, createdAt: '2026-12-01T10:00:00.000Z' };
           users = [...users, created];
           return { status: 201, body: created };
         },
+        'POST /api/users/4/invitation': () => ({ body: users.find((u) => u.id === 4) }),
       }),
     );
     const { user } = renderApp('/users');
 
-    const form = await screen.findByRole('form', { name: 'Add a user' });
+    const form = await screen.findByRole('form', { name: 'Invite a user' });
+    expect(within(form).queryByLabelText('Password')).not.toBeInTheDocument();
     await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
     await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
     await user.selectOptions(within(form).getByLabelText('Role'), 'Pastry chef');
-    await user.type(within(form).getByLabelText('Password'), 'tempering-91-chocolate');
-    await user.click(within(form).getByRole('button', { name: 'Add user' }));
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
     expect(await within(screen.getByRole('table')).findByText('Ines Moreau')).toBeInTheDocument();
-    expect(screen.getByText('Ines Moreau can now sign in as Pastry chef.')).toBeInTheDocument();
+    expect(screen.getByText(/Invitation sent to ines@crumbproof.test/)).toBeInTheDocument();
     expect(calls.find((call) => call.method === 'POST')?.body).toEqual({
       name: 'Ines Moreau',
       email: 'ines@crumbproof.test',
       role: 'pastry-chef',
-      password: 'tempering-91-chocolate',
     });
     expect(within(form).getByLabelText('Name')).toHaveValue('');
+
+    const row = rowFor('Ines Moreau');
+    expect(within(row).getByText('Invited, no password yet')).toBeInTheDocument();
+    expect(within(rowFor('Teodor Lind')).queryByRole('button', { name: /Send the invitation again/ })).not.toBeInTheDocument();
+    await user.click(within(row).getByRole('button', { name: 'Send the invitation again to Ines Moreau' }));
+    expect(await screen.findByText(/A new invitation is on its way to ines@crumbproof.test/)).toBeInTheDocument();
+    expect(calls.some((call) => call.method === 'POST' && call.path === '/api/users/4/invitation')).toBe(true);
   });
 
-  it('checks the password rule before sending, with the hint beside the field', async () => {
+  it('checks the fields before sending', async () => {
     const { calls } = mockApi(signedInAs('manager', { 'GET /api/users': { body: USERS } }));
     const { user } = renderApp('/users');
 
-    const form = await screen.findByRole('form', { name: 'Add a user' });
-    const password = within(form).getByLabelText('Password');
-    expect(password).toHaveAccessibleDescription(expect.stringContaining('At least 12 characters'));
+    const form = await screen.findByRole('form', { name: 'Invite a user' });
+    await user.type(within(form).getByLabelText('Email'), 'not-an-address');
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
-    await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
-    await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
-    await user.type(password, 'short1');
-    await user.click(within(form).getByRole('button', { name: 'Add user' }));
-
-    expect(await within(form).findByText('Use at least 12 characters.')).toBeInTheDocument();
+    expect(await within(form).findByText('Enter the person’s name.')).toBeInTheDocument();
+    expect(within(form).getByText('Enter an email address such as name@example.com.')).toBeInTheDocument();
     expect(calls.some((call) => call.method === 'POST')).toBe(false);
-  });
-
-  it('shows a field error from the API in place', async () => {
-    mockApi(
-      signedInAs('manager', {
-        'GET /api/users': { body: USERS },
-        'POST /api/users': {
-          status: 400,
-          body: {
-            statusCode: 400,
-            code: 'validation',
-            message: 'Some fields need attention.',
-            fields: [{ path: 'password', message: 'This password appears in lists of leaked passwords. Choose another.' }],
-          },
-        },
-      }),
-    );
-    const { user } = renderApp('/users');
-
-    const form = await screen.findByRole('form', { name: 'Add a user' });
-    await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
-    await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
-    await user.type(within(form).getByLabelText('Password'), 'password1234');
-    await user.click(within(form).getByRole('button', { name: 'Add user' }));
-
-    const message = 'This password appears in lists of leaked passwords. Choose another.';
-    expect(await within(form).findByText(message)).toBeInTheDocument();
-    const password = within(form).getByLabelText('Password');
-    expect(password).toHaveAttribute('aria-invalid', 'true');
-    await waitFor(() => expect(password).toHaveAccessibleDescription(expect.stringContaining(message)));
-    expect(within(form).getByLabelText('Name')).not.toHaveAttribute('aria-invalid', 'true');
   });
 
   it('puts the API’s duplicate-email answer under Email', async () => {
     mockApi(
       signedInAs('manager', {
         'GET /api/users': { body: USERS },
-        'POST /api/users': {
+        'POST /api/users/invitations': {
           status: 409,
           body: { statusCode: 409, code: 'conflict', message: 'A user with that email already exists.' },
         },
@@ -161,11 +133,10 @@ describe('Users page', () => {
     );
     const { user } = renderApp('/users');
 
-    const form = await screen.findByRole('form', { name: 'Add a user' });
+    const form = await screen.findByRole('form', { name: 'Invite a user' });
     await user.type(within(form).getByLabelText('Name'), 'Teodor Again');
     await user.type(within(form).getByLabelText('Email'), 'teodor@crumbproof.test');
-    await user.type(within(form).getByLabelText('Password'), 'tempering-91-chocolate');
-    await user.click(within(form).getByRole('button', { name: 'Add user' }));
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
     expect(await within(form).findByText('A user with that email already exists.')).toBeInTheDocument();
     expect(within(form).getByLabelText('Email')).toHaveAttribute('aria-invalid', 'true');

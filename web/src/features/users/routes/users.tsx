@@ -1,8 +1,11 @@
+import { Text } from '@chakra-ui/react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { LoadFailed } from '@/components/ui/load-failed';
 import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
 import { useSignedInUser } from '@/lib/signed-in-user';
+import { useState } from 'react';
+import { useResendInvitation } from '../api/resend-invitation';
 import { useUpdateUser } from '../api/update-user';
 import { useUsers } from '../api/get-users';
 import { AddUserForm } from '../components/add-user-form';
@@ -12,10 +15,17 @@ export function UsersRoute() {
   const me = useSignedInUser();
   const users = useUsers();
   const updateUser = useUpdateUser();
+  const resend = useResendInvitation();
+  const [resent, setResent] = useState<string | null>(null);
 
   return (
-    <Page title="Users" lead="Who can sign in to this kitchen, and what each person may do.">
+    <Page
+      title="Users"
+      lead="Who can sign in to this kitchen, and what each person may do. Invite someone by email: they choose their own password."
+    >
       {updateUser.isError ? <ErrorAlert title="That change was not saved">{updateUser.error.message}</ErrorAlert> : null}
+      {resend.isError ? <ErrorAlert title="The invitation was not sent again">{resend.error.message}</ErrorAlert> : null}
+      <Text role="status">{resent}</Text>
       {users.isPending ? (
         <Loading>Loading users…</Loading>
       ) : users.isError ? (
@@ -26,6 +36,13 @@ export function UsersRoute() {
           currentUserId={me.id}
           onUpdate={updateUser.mutate}
           pendingUserId={updateUser.isPending ? updateUser.variables.id : null}
+          onResend={(user) => {
+            setResent(null);
+            resend.mutate(user.id, {
+              onSuccess: () => setResent(`A new invitation is on its way to ${user.email}; the earlier link no longer works.`),
+            });
+          }}
+          resendingUserId={resend.isPending ? resend.variables : null}
         />
       )}
       <AddUserForm />
