@@ -136,6 +136,23 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
   const feed = async () => (await req('GET', '/api/counter/products', counter)).json<CounterProductsView>();
   const print = (cookie: string, template: string, products: string[], productionDate = '2026-12-02') =>
     req('POST', '/api/labels/runs', cookie, { template, items: products.map((product) => ({ product, quantity: 2 })), productionDate });
+  /** The newest mail of a kind in the outbox, once it is there (the approval-needed mail is queued after the write answers). */
+  const lastMail = async (kind: string, after = 0) => {
+    for (let i = 0; i < 50; i++) {
+      const [row] = await t.sequelize.query<{ id: number; recipients: string | string[]; subject: string; text: string }>(
+        'SELECT id, recipients, subject, text FROM mail_outbox WHERE kind = ? AND id > ? ORDER BY id DESC LIMIT 1',
+        { replacements: [kind, after], type: QueryTypes.SELECT },
+      );
+      if (row)
+        return { ...row, recipients: typeof row.recipients === 'string' ? (JSON.parse(row.recipients) as string[]) : row.recipients };
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    throw new Error(`No ${kind} mail was queued.`);
+  };
+  const lastMailId = async () =>
+    Number(
+      (await t.sequelize.query<{ id: number | null }>('SELECT MAX(id) AS id FROM mail_outbox', { type: QueryTypes.SELECT }))[0].id ?? 0,
+    );
   const auditOf = async (action: string) =>
     t.sequelize.query<{ actor_name: string; actor_role: string; summary: string; after: string }>(
       'SELECT actor_name, actor_role, summary, `after` FROM audit_events WHERE action = ? ORDER BY id',
@@ -205,8 +222,16 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
     printedChart = chart.json<LabelRun>();
 
     const was = await spread();
+    const mailsBefore = await lastMailId();
     await saveSpread({ ...was, contains: [...(was.contains ?? []), 'egg'], composition: `${was.composition}, pasteurised egg` });
     egg = await pending(chef);
+    // One mail to the managers for the write, listing every product it sends to approval.
+    const needed = await lastMail('approval-needed', mailsBefore);
+    expect(needed.recipients).toEqual(['manager@example.com']);
+    expect(needed.subject).toBe('2 products wait for your approval');
+    expect(needed.text).toContain('Tobiah Quill saved a change that reaches these products');
+    expect(needed.text).toContain('Hazel slice (adds an allergen): Now contains eggs.');
+    expect(needed.text).toContain('Hazel tart (adds an allergen): Now contains eggs.');
     // Two levels down (slice ← filling ← base cream ← spread) and one (tart ← base cream); the bun is untouched.
     expect(egg.map((p) => p.product)).toEqual(['hazel-slice', 'hazel-tart']);
     for (const p of egg) {
@@ -316,6 +341,7 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
     expect(await tableChecksums(t.sequelize)).toEqual(before);
 
     const again = await pending();
+    const mailsBefore = await lastMailId();
     const given = await req('POST', '/api/approvals', manager, {
       products: again.map((p) => ({ product: p.product, inputHash: p.inputHash })),
       note: 'Checked against the supplier’s new specification.',
@@ -326,6 +352,11 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
       ['hazel-tart', true],
     ]);
     expect(await pending()).toEqual([]);
+    // Every active user, front of house too, is told the approved change adds an allergen.
+    const told = await lastMail('allergen-approved', mailsBefore);
+    expect([...told.recipients].sort()).toEqual(['chef@example.com', 'counter@example.com', 'manager@example.com']);
+    expect(told.subject).toBe('2 products now have allergens they did not have');
+    expect(told.text).toContain('Hazel slice: now may contain mustard.');
     // Approving again what is approved already is refused: nothing waits.
     const twice = await req('POST', '/api/approvals', manager, { products: [{ product: 'hazel-slice', inputHash: again[0].inputHash }] });
     expect(twice.statusCode).toBe(400);

@@ -20,6 +20,7 @@ import { DeclarationsService } from '../declarations/declarations.service';
 import { SiteRepository } from '../kitchen/site.repository';
 import { closureItems } from '../rules/core/book-graph';
 import { causesFor, DECLARATION_WRITES } from './approval-causes';
+import { ApprovalMails } from './approval-mails';
 import { ApprovalStatus, type ProductStatus } from './approval-status';
 import { ApprovalsRepository, type ApprovalRow } from './approvals.repository';
 
@@ -44,6 +45,7 @@ export class ApprovalsService {
     private readonly auditTrail: AuditRepository,
     private readonly audit: AuditService,
     private readonly tx: TransactionRunner,
+    private readonly mails: ApprovalMails,
   ) {}
 
   /** Every product for sale whose current declaration is not its approved one, with the change in words and what caused it. */
@@ -168,6 +170,12 @@ export class ApprovalsService {
             }),
           ),
         },
+        t,
+      );
+      await this.mails.allergenApproved(
+        state.site.name,
+        user.name,
+        out.map((o) => statuses.get(o.product)!),
         t,
       );
       return out;
