@@ -79,7 +79,7 @@ export interface PendingApproval {
   change: DeclaredChange | null;
   /** The change in words (before and after); for a first approval, what the declaration says. */
   words: string[];
-  /** The change adds an allergen (contains, may contain or a source), an ingredient whose allergens are not known, or loses a claim. */
+  /** The change adds an allergen to contains or may contain (a group, or a source of one). */
   addsAllergen: boolean;
   /** The writes since the approval that reach the product, oldest first (empty for a first approval). */
   causes: ApprovalCause[];

@@ -207,3 +207,8 @@ export function declaredChange(before: Declaration, after: Declaration): Declare
     change.ingredientsText !== null;
   return change;
 }
+
+/** The change adds an allergen: a group to contains or may contain, or a source to one. */
+export function addsAllergen(change: DeclaredChange): boolean {
+  return change.added.length > 0;
+}

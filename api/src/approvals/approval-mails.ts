@@ -1,6 +1,6 @@
 import { Injectable, Logger, type OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { ROLES, addedName, declaredChangeInWords, declarationInWords } from '@crumbproof/shared';
+import { ROLES, addedName, addsAllergen, declaredChangeInWords, declarationInWords } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { BooksService, type KitchenWritten } from '../books/books.service';
 import { currentRequest } from '../common/request-context';
@@ -128,6 +128,6 @@ function mailed(s: ProductStatus): MailedProduct {
   return {
     name: s.product.name,
     words: s.change ? declaredChangeInWords(s.change) : ['Never approved.', ...declarationInWords(s.current.served)],
-    addsAllergen: s.change?.urgent ?? false,
+    addsAllergen: s.change ? addsAllergen(s.change) : false,
   };
 }

@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import {
+  addsAllergen,
   declarationInWords,
   declaredChange,
   declaredChangeInWords,
@@ -83,7 +84,7 @@ export class ApprovalsService {
         approved: stamp(s.approval),
         change: s.change,
         words: declaredChangeInWords(s.change),
-        addsAllergen: s.change.urgent,
+        addsAllergen: addsAllergen(s.change),
         causes: causesFor(events, s.approval.approvedAt, closure, state.book),
       };
     });
@@ -142,7 +143,12 @@ export class ApprovalsService {
           },
           t,
         );
-        out.push({ product: s.product.id, name: s.product.name, approval: stamp(row), addsAllergen: s.change?.urgent ?? false });
+        out.push({
+          product: s.product.id,
+          name: s.product.name,
+          approval: stamp(row),
+          addsAllergen: s.change ? addsAllergen(s.change) : false,
+        });
       }
       await this.audit.record(
         {

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import {
   addedName,
+  addsAllergen,
   declaredChange,
   declaredChangeInWords,
   type LabelRunLogItem,
@@ -80,7 +81,7 @@ export class StaleLabelsService {
         quantity: p.line.quantity,
         action,
         words: declaredChangeInWords(change),
-        addsAllergen: change.urgent,
+        addsAllergen: addsAllergen(change),
         approvedAt: approval.approvedAt.toISOString(),
       });
     }

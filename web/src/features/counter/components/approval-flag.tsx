@@ -31,7 +31,7 @@ export function ApprovalFlag({ approval, size = 'md' }: { approval: CounterAppro
   const flag =
     approval.state === 'never-approved'
       ? 'not-yet-approved'
-      : approval.state === 'pending' && approval.serves === 'current'
+      : approval.state === 'pending' && approval.adds.length > 0
         ? 'adds-allergen'
         : 'waiting';
   return (
