@@ -100,7 +100,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
                   loading={resendingUserId === user.id}
                   onClick={() => onResend(user)}
                 >
-                  Send invitation again
+                  Invite again
                 </Button>
               ) : null}
               <Button
