@@ -67,6 +67,7 @@ async function chosenPort(name) {
   if (!given) return freePort();
   const port = Number(given);
   if (!Number.isInteger(port) || port < 1 || port > 65535) throw new Error(`${name} must be a port number; it is ${given}.`);
-  if (!(await isPortFree(port))) throw new Error(`Port ${port} (${name}) is in use. Stop what uses it, or leave ${name} unset for a free one.`);
+  if (!(await isPortFree(port)))
+    throw new Error(`Port ${port} (${name}) is in use. Stop what uses it, or leave ${name} unset for a free one.`);
   return port;
 }

@@ -46,11 +46,15 @@ describe('Mail page', () => {
     const table = await screen.findByRole('table', { name: 'Mail sent by Crumbproof, newest first' });
     const rows = within(table).getAllByRole('row');
     expect(rows).toHaveLength(3);
-    const failedRow = within(table).getByText(/to ines@crumbproof.test/).closest('tr')!;
+    const failedRow = within(table)
+      .getByText(/to ines@crumbproof.test/)
+      .closest('tr')!;
     expect(within(failedRow).getByText('Not sent')).toBeInTheDocument();
     expect(within(failedRow).getByText('5 of 5')).toBeInTheDocument();
     expect(within(failedRow).getByText(/ECONNREFUSED/)).toBeInTheDocument();
-    const sentRow = within(table).getByText(/to teodor@crumbproof.test/).closest('tr')!;
+    const sentRow = within(table)
+      .getByText(/to teodor@crumbproof.test/)
+      .closest('tr')!;
     expect(within(sentRow).getByText('Sent')).toBeInTheDocument();
     expect(within(sentRow).queryByRole('button')).not.toBeInTheDocument();
 
