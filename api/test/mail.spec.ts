@@ -265,6 +265,28 @@ describe('invitations', () => {
     expect(done.json().message).toMatch(/chosen a password already/);
   });
 
+  it('stops an invitation working once a manager has set the password', async () => {
+    const res = await post(
+      '/api/users/invitations',
+      { email: 'set.by.manager@example.com', name: 'Set By Manager', role: 'front-of-house' },
+      manager,
+    );
+    const token = tokenIn(await smtp.waitFor(to('set.by.manager@example.com')));
+    const { id } = res.json<{ id: number }>();
+    expect(
+      (
+        await t.app.inject({
+          method: 'PATCH',
+          url: `/api/users/${id}`,
+          headers: { cookie: manager },
+          payload: { password: 'Manager-chose-this-1' },
+        })
+      ).statusCode,
+    ).toBe(200);
+    expect((await post('/api/auth/account-link', { token })).json()).toEqual({ state: 'used', purpose: 'invitation' });
+    expect((await post('/api/auth/set-password', { token, password: 'Invitee-chose-this-2' })).statusCode).toBe(403);
+  });
+
   it('refuses an invitation to an address that has an account', async () => {
     const res = await post('/api/users/invitations', { email: 'chef@example.com', name: 'Twice', role: 'pastry-chef' }, manager);
     expect(res.statusCode).toBe(409);

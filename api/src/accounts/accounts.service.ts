@@ -229,7 +229,8 @@ export class AccountsService {
 
   private stateOf(link: AccountLinkRow | null, user: UserModel | null): 'usable' | 'used' | 'expired' | 'replaced' | 'unknown' {
     if (!link || !user || !user.active) return 'unknown';
-    if (link.usedAt) return 'used';
+    // An invitation has done its work once the account has a password (a manager may have set one).
+    if (link.usedAt || (link.purpose === 'invitation' && user.passwordHash !== null)) return 'used';
     if (link.voidedAt) return 'replaced';
     if (link.expiresAt <= this.clock.now()) return 'expired';
     return 'usable';
