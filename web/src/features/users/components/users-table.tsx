@@ -1,4 +1,4 @@
-import { Badge, Button, HStack, Text } from '@chakra-ui/react';
+import { Badge, Button, HStack, Stack, Text } from '@chakra-ui/react';
 import { ROLE_LABELS, ROLES, type Role, type User } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
@@ -66,9 +66,20 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
         header: 'Active',
         cell: (info) =>
           info.getValue() && info.row.original.invitationPending ? (
-            <Badge variant="outline" size="lg" borderStyle="dashed">
-              Invited, no password yet
-            </Badge>
+            <Stack align="flex-start" gap="2">
+              <Badge variant="outline" size="lg" borderStyle="dashed">
+                Invited, no password yet
+              </Badge>
+              <Button
+                size="lg"
+                variant="outline"
+                aria-label={`Send the invitation again to ${info.row.original.name}`}
+                loading={resendingUserId === info.row.original.id}
+                onClick={() => onResend(info.row.original)}
+              >
+                Invite again
+              </Button>
+            </Stack>
           ) : info.getValue() ? (
             <Badge variant="subtle" colorPalette="accent" size="lg">
               Active
@@ -91,18 +102,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
           if (user.id === currentUserId) return <Text color="fg.muted">Your own account</Text>;
           const action = user.active ? 'Deactivate' : 'Reactivate';
           return (
-            <HStack wrap="wrap">
-              {user.active && user.invitationPending ? (
-                <Button
-                  size="lg"
-                  variant="outline"
-                  aria-label={`Send the invitation again to ${user.name}`}
-                  loading={resendingUserId === user.id}
-                  onClick={() => onResend(user)}
-                >
-                  Send invitation again
-                </Button>
-              ) : null}
+            <HStack>
               <Button
                 size="lg"
                 variant="outline"
