@@ -4,7 +4,7 @@ import { useMemo } from 'react';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
 import { SelectInput } from '@/components/ui/form-field';
 import { Quantity } from '@/components/ui/quantity';
-import { useUpdateUser } from '../api/update-user';
+import type { AccessChange } from './confirm-access-change';
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
@@ -21,14 +21,15 @@ interface UsersTableProps {
   users: User[];
   /** The signed-in manager: their own row cannot be demoted or deactivated from here. */
   currentUserId: number;
-  onUpdate: ReturnType<typeof useUpdateUser>['mutate'];
+  /** Asks for a change of role or access (confirmed before it is sent). */
+  onRequest: (change: AccessChange) => void;
   pendingUserId: number | null;
   /** Sends a new invitation to someone who has not chosen a password yet. */
   onResend: (user: User) => void;
   resendingUserId: number | null;
 }
 
-export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onResend, resendingUserId }: UsersTableProps) {
+export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onResend, resendingUserId }: UsersTableProps) {
   const columns = useMemo<DataTableColumn<User>[]>(
     () => [
       column.accessor('name', {
@@ -57,7 +58,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
               options={ROLE_OPTIONS}
               value={user.role}
               disabled={user.id === currentUserId || pendingUserId === user.id}
-              onChange={(event) => onUpdate({ id: user.id, changes: { role: event.currentTarget.value as Role } })}
+              onChange={(event) => onRequest({ user, changes: { role: event.currentTarget.value as Role } })}
             />
           );
         },
@@ -108,7 +109,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
                 variant="outline"
                 aria-label={`${action} ${user.name}`}
                 loading={pendingUserId === user.id}
-                onClick={() => onUpdate({ id: user.id, changes: { active: !user.active } })}
+                onClick={() => onRequest({ user, changes: { active: !user.active } })}
               >
                 {action}
               </Button>
@@ -117,7 +118,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
         },
       }),
     ],
-    [currentUserId, onUpdate, pendingUserId, onResend, resendingUserId],
+    [currentUserId, onRequest, pendingUserId, onResend, resendingUserId],
   );
 
   return (
