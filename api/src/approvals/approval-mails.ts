@@ -73,10 +73,10 @@ export class ApprovalMails implements OnModuleInit {
   ) {}
 
   onModuleInit() {
-    this.books.onKitchenWritten((written) => {
+    this.books.onKitchenSaved(async (written) => {
       // Who wrote, from the request the write came with; a write without one (the demo seed) tells no one.
       const by = currentRequest()?.actor?.name;
-      if (by) void this.approvalNeeded(written, by);
+      if (by) await this.approvalNeeded(written, by);
     });
   }
 
