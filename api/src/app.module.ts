@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD, DiscoveryModule } from '@nestjs/core';
 import { ScheduleModule } from '@nestjs/schedule';
 import { AccountsModule } from './accounts/accounts.module';
+import { ApprovalsModule } from './approvals/approvals.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { BooksModule } from './books/books.module';
@@ -43,6 +44,7 @@ import { UsersModule } from './users/users.module';
     RecipesModule,
     DeclarationsModule,
     SwapsModule,
+    ApprovalsModule,
     LabelsModule,
     CounterModule,
     PublicPageModule,

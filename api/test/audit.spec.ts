@@ -1,8 +1,9 @@
 import { QueryTypes } from 'sequelize';
-import type { AuditEventDetail, AuditPage, Book, RecallResult } from '@crumbproof/shared';
+import type { ApprovalsView, AuditEventDetail, AuditPage, Book, RecallResult, StaleLabel } from '@crumbproof/shared';
 import { registeredRoutes } from '../src/app.factory';
 import { startAppWith } from './support/app-with-settings';
 import { fixture, multipart } from './fixtures/forms';
+import { approveAll } from './support/approvals';
 import { adminQuery, startTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -266,6 +267,19 @@ const CASES: WriteCase[] = [
     },
   },
   {
+    route: 'POST /api/labels/stale/:id/handled',
+    call: async () => {
+      const stale = (await send('GET', '/api/labels/stale', manager)).json<StaleLabel[]>();
+      const shortbread = stale.find((x) => x.product === 'lemon-shortbread')!;
+      return send('POST', `/api/labels/stale/${shortbread.id}/handled`, manager, { note: 'Withdrawn from the shelf and relabelled.' });
+    },
+    status: 200,
+    actor: 'manager',
+    action: 'label-stale.handled',
+    record: ['label-run', /^\d+$/],
+    refused: () => send('POST', '/api/labels/stale/999999-0/handled', manager, { note: 'Nothing printed there.' }),
+  },
+  {
     route: 'PATCH /api/kitchen',
     call: () => send('PATCH', '/api/kitchen', manager, { regime: 'EU' }),
     status: 200,
@@ -273,6 +287,21 @@ const CASES: WriteCase[] = [
     action: 'kitchen.updated',
     record: ['kitchen', /^\d+$/],
     refused: () => send('PATCH', '/api/kitchen', manager, { regime: 'MARS' }),
+  },
+  {
+    // Under the new regime every product waits for a first approval: the manager approves them all.
+    route: 'POST /api/approvals',
+    call: async () => {
+      const { pending } = (await send('GET', '/api/approvals', manager)).json<ApprovalsView>();
+      return send('POST', '/api/approvals', manager, {
+        products: pending.map((p) => ({ product: p.product, inputHash: p.inputHash })),
+        note: 'Checked under the EU regime.',
+      });
+    },
+    status: 201,
+    actor: 'manager',
+    action: 'approval.given',
+    refused: () => send('POST', '/api/approvals', manager, { products: [{ product: 'vegan-brownie', inputHash: '0'.repeat(64) }] }),
   },
   {
     route: 'POST /api/users',
@@ -518,6 +547,21 @@ const READS: { route: string; call: () => Promise<{ statusCode: number }>; statu
 const ELSEWHERE = ['POST /api/auth/first-manager'];
 
 describe('every route that writes leaves one audit event, in its transaction', () => {
+  beforeAll(async () => {
+    // Labels printed, then an approved change they do not show: out-of-date labels for the handled case.
+    const printed = await send('POST', '/api/labels/runs', chef, {
+      template: 'product',
+      items: [{ product: 'lemon-shortbread', quantity: 3 }],
+      productionDate: today,
+    });
+    expect(printed.statusCode).toBe(201);
+    const shortbread = (await send('GET', '/api/book', chef)).json<Book>().recipes.find((r) => r.id === 'lemon-shortbread')!;
+    const { id: _id, ...body } = shortbread;
+    const withSesame = { ...body, lines: [...body.lines, { use: 'sesame-seeds', qty: 5, unit: 'g' }] };
+    expect((await send('PUT', '/api/recipes/lemon-shortbread', chef, { id: shortbread.id, ...withSesame })).statusCode).toBe(200);
+    expect(await approveAll(t, manager)).toEqual(['lemon-shortbread']);
+  });
+
   it('has a case for every route that takes POST, PUT, PATCH or DELETE', () => {
     const writing = registeredRoutes(t.app)
       .filter((r) => ['POST', 'PUT', 'PATCH', 'DELETE'].includes(r.method))

@@ -4,6 +4,7 @@ import { formatPrintedAt } from '@crumbproof/shared/labels';
 import { QueryTypes } from 'sequelize';
 import { pdfText } from './fixtures/pdf-text';
 import { tableChecksums } from './fixtures/table-checksums';
+import { approveAll } from './support/approvals';
 import { startTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -54,6 +55,8 @@ describe('label runs and the print log (real MariaDB)', () => {
       ],
     });
     expect(imported.statusCode).toBe(200);
+    // Labels print only from an approved declaration.
+    expect((await approveAll(t, manager)).sort()).toEqual(['false-vegan-biscuit', 'strawberry-tartlet']);
   });
   afterAll(() => t.close());
 

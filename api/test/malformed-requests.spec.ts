@@ -117,6 +117,9 @@ const NESTED = '(nested lists)';
 const jsonNested = (body: unknown, depth: number): Sent =>
   raw(JSON.stringify(body).replace(`"${NESTED}"`, nested(depth)), 'application/json');
 
+/** An input hash of the right shape that is no declaration's. */
+const HASH = 'ab'.repeat(32);
+
 /** Each route that takes a JSON body, with a body it would take. */
 const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
   { method: 'POST', url: '/api/ingredients', body: ingredient() },
@@ -147,6 +150,8 @@ const JSON_ROUTES: { method: Method; url: string; body: unknown }[] = [
   { method: 'POST', url: '/api/counter/questions', body: counterQuestion() },
   { method: 'POST', url: '/api/counter/questions/1/answer', body: { answer: 'It has no egg as recorded.' } },
   { method: 'PUT', url: '/api/public-page/settings', body: { enabled: true, baseUrl: 'https://menu.example.com' } },
+  { method: 'POST', url: '/api/approvals', body: { products: [{ product: 'vegan-brownie', inputHash: HASH }] } },
+  { method: 'POST', url: '/api/labels/stale/1-0/handled', body: { note: 'Withdrawn.' } },
 ];
 
 /** What is wrong with a JSON body itself, tried on every JSON route. */
@@ -1437,6 +1442,84 @@ const CORPUS: MalformedRequest[] = [
       ],
     ] as const
   ).map(([method, url, what, body, status, names]) => ({ what, method, url, send: () => json(body), status, names })),
+
+  // Approvals: POST /api/approvals (the demo starts approved, so nothing waits)
+  ...(
+    [
+      ['no products', {}, 400, /^products: List the products to approve, each with its inputHash/m],
+      ['an empty list', { products: [] }, 400, /^products: Pick at least one product to approve/m],
+      ['a list as text', { products: 'vegan-brownie' }, 400, /^products: List the products to approve/m],
+      [
+        'an inputHash that is no hash',
+        { products: [{ product: 'vegan-brownie', inputHash: 'xyz' }] },
+        400,
+        /^products\.0\.inputHash: Give the declaration’s inputHash, as GET \/api\/approvals lists it \(64/m,
+      ],
+      ['no inputHash', { products: [{ product: 'vegan-brownie' }] }, 400, /^products\.0\.inputHash: Give the declaration’s inputHash/m],
+      ['a product id written another way', { products: [{ product: 'Vegan Brownie', inputHash: HASH }] }, 400, /^products\.0\.product: /m],
+      [
+        'one product twice',
+        {
+          products: [
+            { product: 'vegan-brownie', inputHash: HASH },
+            { product: 'vegan-brownie', inputHash: HASH },
+          ],
+        },
+        400,
+        /^products: List each product once/m,
+      ],
+      ['a field it does not take', { products: [{ product: 'vegan-brownie', inputHash: HASH }], approvedBy: 1 }, 400, /approvedBy/],
+      [
+        'a note of 501 characters',
+        { products: [{ product: 'vegan-brownie', inputHash: HASH }], note: 'n'.repeat(501) },
+        400,
+        /^note: Keep the note to 500/m,
+      ],
+      [
+        'a product that does not exist',
+        { products: [{ product: 'no-such-cake', inputHash: HASH }] },
+        400,
+        /There is no product 'no-such-cake'/,
+      ],
+      [
+        'a recipe not for sale',
+        { products: [{ product: 'vanilla-sponge', inputHash: HASH }] },
+        400,
+        /is a recipe, not for sale: there is nothing to approve/,
+      ],
+      ['a product approved already', { products: [{ product: 'vegan-brownie', inputHash: HASH }] }, 400, /is approved already/],
+    ] as const
+  ).map(([what, body, status, names]) => ({ what, method: 'POST' as const, url: '/api/approvals', send: () => json(body), status, names })),
+
+  // Out-of-date labels: POST /api/labels/stale/:id/handled (nothing printed yet, so nothing is out of date)
+  ...(
+    [
+      ['/api/labels/stale/1-0/handled', 'no note', {}, 400, /^note: Say what was done/m],
+      [
+        '/api/labels/stale/1-0/handled',
+        'an empty note',
+        { note: '   ' },
+        400,
+        /^note: Say what was done \(reprinted, withdrawn, thrown away\)/m,
+      ],
+      ['/api/labels/stale/1-0/handled', 'a note of 501 characters', { note: 'n'.repeat(501) }, 400, /^note: Keep the note to 500/m],
+      ['/api/labels/stale/1-0/handled', 'a field it does not take', { note: 'Withdrawn.', by: 'me' }, 400, /by/],
+      [
+        '/api/labels/stale/1-0/handled',
+        'labels that are not out of date',
+        { note: 'Withdrawn.' },
+        404,
+        /There are no out-of-date labels '1-0'/,
+      ],
+      [
+        '/api/labels/stale/abc/handled',
+        'an id that is no printed item',
+        { note: 'Withdrawn.' },
+        404,
+        /There are no out-of-date labels 'abc'/,
+      ],
+    ] as const
+  ).map(([url, what, body, status, names]) => ({ what, method: 'POST' as const, url, send: () => json(body), status, names })),
 
   // The public product page's settings: PUT /api/public-page/settings
   ...(

@@ -67,6 +67,11 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'POST /api/labels/runs': [401, 403, 400, 400],
   'GET /api/labels/runs': [401, 403, 404, 404],
   'GET /api/labels/runs/:id/pdf': [401, 403, 404, 404],
+  'GET /api/labels/stale': [401, 403, 404, 404],
+  'POST /api/labels/stale/:id/handled': [401, 403, 403, 400],
+  // Approvals: the pastry chef reads what waits, the manager approves.
+  'GET /api/approvals': [401, 403, 404, 404],
+  'POST /api/approvals': [401, 403, 403, 400],
   // The audit trail and the recall (manager): an empty trail is a page of none; a recall needs its batch.
   'GET /api/audit': [401, 403, 403, 200],
   'GET /api/audit/export.csv': [401, 403, 403, 200],

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { itemIdSchema } from './book';
 import { calendarDateSchema } from './label-contracts';
 import type { Regime } from './allergens';
+import type { CounterApproval } from './approval-contracts';
 import type { CounterRules } from './counter/ask';
 import type { ServedDeclaration } from './product-declaration';
 import { plainText } from './text';
@@ -65,13 +66,18 @@ export const counterQuestionsQuerySchema = z.strictObject({
 });
 export type CounterQuestionsQuery = z.infer<typeof counterQuestionsQuerySchema>;
 
-/** One product on the counter: its served declaration (as GET /api/recipes/:code/declaration serves it). */
+/**
+ * One product on the counter: its approved declaration, or its current one (as GET
+ * /api/recipes/:code/declaration serves it) when it was never approved or a change waiting for
+ * approval adds an allergen or loses a claim; `approval` says which.
+ */
 export interface CounterProduct {
   id: string;
   name: string;
   /** Marked on sale on the day of the feed. */
   onSale: boolean;
   declaration: ServedDeclaration;
+  approval: CounterApproval;
 }
 
 /** GET /api/counter/products: every product for sale, read from one state of the kitchen. */

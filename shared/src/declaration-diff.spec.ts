@@ -1,6 +1,7 @@
 import { CLAIMS } from './allergens';
 import type { Declaration } from './declaration';
-import { diffDeclarations } from './declaration-diff';
+import { declaredChange, diffDeclarations } from './declaration-diff';
+import { declaredChangeInWords } from './approval-contracts';
 
 function declaration(over: Partial<Declaration>): Declaration {
   const claims = Object.fromEntries(CLAIMS.map((c) => [c, { status: 'ok', reasons: [] }])) as unknown as Declaration['claims'];
@@ -72,5 +73,72 @@ describe('diffDeclarations', () => {
   it('says nothing changed for the same declaration', () => {
     const a = declaration({ contains: [milk], ingredients: [butter] });
     expect(diffDeclarations(a, structuredClone(a)).changed).toBe(false);
+  });
+});
+
+describe('declaredChange: what a customer or a label depends on', () => {
+  const nuts = (sources: ('walnut' | 'pecan')[]) => ({ allergen: 'nuts', label: 'nuts', sources, via: [['p', 'x']] });
+  const precaution = (source: 'hazelnut' | 'sesame', allergens: string[]) => ({
+    source,
+    allergens,
+    origin: 'supplier' as const,
+    ingredient: 'x',
+    ingredientName: 'X',
+    controls: null,
+    via: [['p', 'x']],
+    message: `Supplier of X: may contain ${source}`,
+  });
+
+  it('leaves out nutrition, the finished weight and the wording of reasons: nothing to approve', () => {
+    const a = declaration({ contains: [nuts(['walnut'])], ingredientsText: 'walnuts' });
+    const b = declaration({ contains: [nuts(['walnut'])], ingredientsText: 'walnuts', finishedWeightG: 90, mixWeightG: 120 });
+    b.claims.vegan = { status: 'ok', reasons: [{ leaf: null, path: [], message: 'worded again' }] };
+    expect(declaredChange(a, b).changed).toBe(false);
+  });
+
+  it('names a source new to a group already declared, and a may-contain of a new source, as added', () => {
+    const a = declaration({ contains: [nuts(['pecan'])] });
+    const b = declaration({ contains: [nuts(['pecan', 'walnut'])], precautions: [precaution('hazelnut', ['nuts'])] });
+    const c = declaredChange(a, b);
+    expect(c.added).toEqual([
+      { allergen: 'nuts', label: 'nuts', how: 'contains', sources: ['walnut'] },
+      { allergen: 'nuts', label: 'nuts', how: 'may-contain', sources: ['hazelnut'] },
+    ]);
+    expect(c.urgent).toBe(true);
+    expect(declaredChangeInWords(c)).toEqual(['Now contains nuts (walnut).', 'Now may contain nuts (hazelnut).']);
+  });
+
+  it('is urgent when a claim that held is lost, not when an allergen is taken away', () => {
+    const a = declaration({ contains: [nuts(['pecan'])] });
+    const lost = declaration({ contains: [nuts(['pecan'])] });
+    lost.claims['egg-free'] = { status: 'fails', reasons: [] };
+    expect(declaredChange(a, lost)).toMatchObject({
+      urgent: true,
+      changed: true,
+      claims: [{ claim: 'egg-free', before: 'ok', after: 'fails' }],
+    });
+    expect(declaredChange(a, declaration({}))).toMatchObject({
+      urgent: false,
+      changed: true,
+      containsRemoved: [{ allergen: 'nuts', label: 'nuts' }],
+    });
+  });
+
+  it('counts a QUID percentage and the printed list, and an ingredient whose allergens became not known', () => {
+    const quid = (text: string) => [{ ingredient: 'butter', name: 'Butter', percent: 28, text }];
+    const a = declaration({ quid: quid('Butter 28%'), ingredientsText: 'flour, butter' });
+    const b = declaration({
+      quid: quid('Butter 30%'),
+      ingredientsText: 'flour, butter',
+      unknown: [{ ingredient: 'x', name: 'X', via: [['p', 'x']] }],
+    });
+    const c = declaredChange(a, b);
+    expect(c.quid).toEqual([{ ingredient: 'butter', name: 'Butter', before: 'Butter 28%', after: 'Butter 30%' }]);
+    expect(c.notKnownAdded).toEqual([{ ingredient: 'x', name: 'X' }]);
+    expect(c.urgent).toBe(true);
+    expect(declaredChange(a, declaration({ quid: quid('Butter 28%'), ingredientsText: 'flour, butter (milk)' })).ingredientsText).toEqual({
+      before: 'flour, butter',
+      after: 'flour, butter (milk)',
+    });
   });
 });

@@ -86,6 +86,8 @@ export const ERROR_CODES = [
   'duplicate-id',
   'book-invalid',
   'label-refused',
+  /** A label print of a product whose current declaration a manager has not approved. */
+  'approval-needed',
   'internal',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];

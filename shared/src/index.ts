@@ -23,4 +23,5 @@ export * from './counter-contracts';
 export * from './counter';
 export * from './public-page';
 export * from './audit-contracts';
+export * from './approval-contracts';
 export * from './mail-contracts';

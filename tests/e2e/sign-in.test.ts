@@ -4,7 +4,7 @@ import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './suppo
 
 const NAV: Record<string, string[]> = {
   'manager@example.com': ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
-  'chef@example.com': ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels'],
+  'chef@example.com': ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels', 'Approvals'],
   'counter@example.com': ['Counter', 'Recipes'],
 };
 

@@ -32,6 +32,12 @@ export const LINK_MINUTES: Record<AccountLinkPurpose, number> = { invitation: 72
 /** Reset links one account is sent in an hour at most; past that a request is answered alike and sends nothing. */
 export const RESETS_PER_HOUR = 3;
 
+/**
+ * Every answer to a reset request takes at least this long, so that a known address (a link
+ * written and a mail queued) cannot be told from an unknown one by the time the answer takes.
+ */
+const RESET_ANSWER_MS = 400;
+
 export const RESET_ANSWER: PasswordResetAnswer = {
   message: `If an account has this email address, a link to choose a new password is on its way to it. The link works once, for ${LINK_MINUTES['password-reset']} minutes.`,
 };
@@ -125,6 +131,15 @@ export class AccountsService {
    */
   async requestReset(req: PasswordResetRequest, address: string): Promise<PasswordResetAnswer> {
     await this.limits.beginReset(address, this.clock.now());
+    const started = Date.now();
+    try {
+      return await this.reset(req);
+    } finally {
+      await new Promise((resolve) => setTimeout(resolve, Math.max(0, RESET_ANSWER_MS - (Date.now() - started))));
+    }
+  }
+
+  private async reset(req: PasswordResetRequest): Promise<PasswordResetAnswer> {
     const row = await this.users.findByEmail(req.email);
     const record = { action: 'password-reset.requested' as const, actor: null };
     if (!row || !row.active) {
@@ -214,7 +229,8 @@ export class AccountsService {
 
   private stateOf(link: AccountLinkRow | null, user: UserModel | null): 'usable' | 'used' | 'expired' | 'replaced' | 'unknown' {
     if (!link || !user || !user.active) return 'unknown';
-    if (link.usedAt) return 'used';
+    // An invitation has done its work once the account has a password (a manager may have set one).
+    if (link.usedAt || (link.purpose === 'invitation' && user.passwordHash !== null)) return 'used';
     if (link.voidedAt) return 'replaced';
     if (link.expiresAt <= this.clock.now()) return 'expired';
     return 'usable';

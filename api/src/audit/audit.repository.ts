@@ -107,6 +107,17 @@ export class AuditRepository {
     }
   }
 
+  /** Rows of the given actions after a moment, oldest first, with before and after (at most `limit`): what changed since an approval. */
+  async since(actions: readonly string[], after: Date, limit = 500): Promise<AuditEventFull[]> {
+    const rows = await this.events.findAll({
+      where: { action: { [Op.in]: [...actions] }, at: { [Op.gt]: after } },
+      attributes: [...LIST, 'before', 'after'] as never,
+      order: this.order({ order: 'oldest' }),
+      limit,
+    });
+    return rows.map(toFull);
+  }
+
   async find(id: string): Promise<AuditEventFull | null> {
     const row = await this.events.findOne({ where: { id }, attributes: [...LIST, 'before', 'after'] as never });
     return row ? toFull(row) : null;

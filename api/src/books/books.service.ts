@@ -66,6 +66,8 @@ export interface KitchenWritten {
 }
 /** Told after every saved write; it must not throw (the write is already saved). */
 export type KitchenWrittenListener = (written: KitchenWritten) => void;
+/** As KitchenWrittenListener, awaited before the write answers (the approvals' mail); it must not throw. */
+export type KitchenSavedListener = (written: KitchenWritten) => Promise<void>;
 
 const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
   const { id: _id, ...body } = item;
@@ -80,6 +82,7 @@ const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
 export class BooksService {
   private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
   private readonly kitchenWrittenListeners: KitchenWrittenListener[] = [];
+  private readonly kitchenSavedListeners: KitchenSavedListener[] = [];
 
   constructor(
     private readonly kitchen: KitchenService,
@@ -105,9 +108,18 @@ export class BooksService {
     this.kitchenWrittenListeners.push(listener);
   }
 
-  private kitchenWritten(written: KitchenWritten): void {
+  /**
+   * After every saved write, awaited before the write answers, so what a listener queues (the
+   * approvals' mail to the managers) is there when the caller reads on.
+   */
+  onKitchenSaved(listener: KitchenSavedListener): void {
+    this.kitchenSavedListeners.push(listener);
+  }
+
+  private async kitchenWritten(written: KitchenWritten): Promise<void> {
     if (written.ingredients.length === 0 && written.recipes.length === 0 && !written.site) return;
     for (const listener of this.kitchenWrittenListeners) listener(written);
+    for (const listener of this.kitchenSavedListeners) await listener(written);
   }
 
   private async recipesWritten(ids: readonly string[]): Promise<void> {
@@ -266,7 +278,7 @@ export class BooksService {
       return summary;
     });
     await this.recipesWritten([...imported.recipes.created, ...imported.recipes.revised]);
-    this.kitchenWritten({
+    await this.kitchenWritten({
       ingredients: [...imported.ingredients.created, ...imported.ingredients.revised],
       recipes: [...imported.recipes.created, ...imported.recipes.revised],
       site: imported.site !== 'unchanged',
@@ -330,7 +342,7 @@ export class BooksService {
       return written;
     });
     await this.recipesWritten((changes.recipes ?? []).map((r) => r.id));
-    this.kitchenWritten({
+    await this.kitchenWritten({
       ingredients: (changes.ingredients ?? []).map((i) => i.id),
       recipes: (changes.recipes ?? []).map((r) => r.id),
       site: false,

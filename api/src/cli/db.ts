@@ -5,6 +5,7 @@
 import 'reflect-metadata';
 import { Module } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
+import { ScheduleModule } from '@nestjs/schedule';
 import { ClockModule } from '../common/clock';
 import { AppConfigModule } from '../config/config.module';
 import { environmentConfig } from '../config/config';
@@ -13,7 +14,9 @@ import { setUpSchema } from '../database/schema-setup';
 import { SeedModule } from '../database/seed.module';
 import { SeedService } from '../database/seed.service';
 
-@Module({ imports: [AppConfigModule, ClockModule, DatabaseModule, SeedModule] })
+// The seed approves the demo's products, whose module can send mail: its sender needs the clock and
+// the scheduler (stopped again when the context closes).
+@Module({ imports: [AppConfigModule, ClockModule, ScheduleModule.forRoot(), DatabaseModule, SeedModule] })
 class DbCliModule {}
 
 async function main(command: string) {

@@ -36,6 +36,7 @@ export function httpStatusOf(code: ErrorCode): number {
     case 'conflict':
     case 'stale-base':
     case 'stale-preview':
+    case 'approval-needed':
       return 409;
     case 'too-many-requests':
       return 429;

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { ApprovalStoreModule } from '../approvals/approval-store.module';
 import { AuditStoreModule } from '../audit/audit-store.module';
 import { BooksModule } from '../books/books.module';
 import { TransactionRunner } from '../common/transaction';
@@ -24,6 +25,7 @@ import { DeclarationChanges } from './declaration-changes';
  */
 @Module({
   imports: [
+    ApprovalStoreModule,
     AuditStoreModule,
     BooksModule,
     DeclarationsModule,

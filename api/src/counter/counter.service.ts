@@ -5,7 +5,7 @@ import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
 import { AppError } from '../common/app-error';
-import { DeclarationsService } from '../declarations/declarations.service';
+import { ApprovalStatus, counterView } from '../approvals/approval-status';
 import { today } from '../ingredients/specifications/specification.dto';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { RulesService } from '../rules/rules.service';
@@ -19,7 +19,7 @@ export class CounterService {
   constructor(
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
-    private readonly declarations: DeclarationsService,
+    private readonly approvals: ApprovalStatus,
     private readonly days: CounterDaysRepository,
     private readonly events: CounterEvents,
     private readonly rules: RulesService,
@@ -28,31 +28,24 @@ export class CounterService {
   ) {}
 
   /**
-   * Every product for sale with its served declaration (DeclarationsService, as the recipes'
-   * declaration route serves each), read from one state of the kitchen, and whether it is marked
-   * on sale today. `computedAt` is taken before the kitchen is read, so no write saved before it is
+   * Every product for sale with the declaration the counter serves (ApprovalStatus: the approved
+   * one, or the current one, as the recipes' declaration route serves it, when the product was
+   * never approved or a change waiting for approval adds an allergen or loses a claim) and its
+   * approval, read from one state of the kitchen, and whether it is marked on sale today. `computedAt` is taken before the kitchen is read, so no write saved before it is
    * missing from the set.
    */
   async products(): Promise<CounterProductsView> {
     const computedAt = new Date().toISOString();
     const date = today();
     const state = await this.books.state();
-    const forSale = state.book.recipes.filter((r) => r.sale);
-    const [declared, day] = await Promise.all([
-      this.declarations.forProducts(
-        forSale.map((r) => r.id),
-        undefined,
-        state,
-      ),
-      this.days.find(state.site.id, date),
-    ]);
+    const [statuses, day] = await Promise.all([this.approvals.of(state), this.days.find(state.site.id, date)]);
     const onSale = new Set(day?.products ?? []);
     return {
       computedAt,
       date,
       regime: state.site.regime,
       rules: this.rules.counterRules(state.site.regime),
-      products: forSale.map((r, i) => ({ id: r.id, name: r.name, onSale: onSale.has(r.id), declaration: declared[i] })),
+      products: statuses.map((s) => ({ id: s.product.id, name: s.product.name, onSale: onSale.has(s.product.id), ...counterView(s) })),
     };
   }
 

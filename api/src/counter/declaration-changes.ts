@@ -1,4 +1,5 @@
 import { Injectable, Logger, type OnModuleInit } from '@nestjs/common';
+import { ApprovalStatus } from '../approvals/approval-status';
 import { BooksService, type KitchenWritten } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { recipesAbove } from '../rules/core/book-graph';
@@ -8,7 +9,7 @@ import { CounterEvents } from './counter-events';
  * Publishes `declarations-changed` after every saved write that can change a declaration. Every
  * such write passes BooksService (ingredients created, edited or imported from a spreadsheet,
  * recipes saved, swaps applied, book import) or KitchenService.update (the kitchen's regime and
- * allergen handling). A supplier specification is kept beside its ingredient and changes no
+ * allergen handling), and after approvals (ApprovalStatus), which change what the counter serves. A supplier specification is kept beside its ingredient and changes no
  * declaration (nothing of it is an input of one), so it publishes nothing.
  */
 @Injectable()
@@ -19,6 +20,7 @@ export class DeclarationChanges implements OnModuleInit {
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
     private readonly events: CounterEvents,
+    private readonly approvals: ApprovalStatus,
   ) {}
 
   onModuleInit() {
@@ -27,6 +29,8 @@ export class DeclarationChanges implements OnModuleInit {
     });
     // New settings reach every product: no ids are named.
     this.kitchen.onUpdated(() => this.events.publish({ type: 'declarations-changed' }));
+    // An approval changes what the counter serves of the products approved.
+    this.approvals.onApproved((products) => this.events.publish({ type: 'declarations-changed', products: [...products] }));
   }
 
   private async published(written: KitchenWritten): Promise<void> {

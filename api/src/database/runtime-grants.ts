@@ -5,7 +5,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
  * an UPDATE or DELETE there. Privileges add up across levels, so the runtime user holds no
  * database-wide privilege and gets these table by table.
  */
-export const APPEND_ONLY_TABLES = ['audit_events'] as const;
+export const APPEND_ONLY_TABLES = ['audit_events', 'product_approvals', 'label_stale_handled'] as const;
 /** Read only for the API: the migrations' own record. */
 const READ_ONLY_TABLES = ['schema_migrations'];
 

@@ -1,5 +1,6 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import { ApprovalsService } from '../approvals/approvals.service';
 import { BooksService } from '../books/books.service';
 import { isDemoKitchen, type AppConfig } from '../config/config';
 import { KitchenService } from '../kitchen/kitchen.service';
@@ -23,6 +24,7 @@ export class SeedService {
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
     private readonly labelSettings: LabelSettingsRepository,
+    private readonly approvals: ApprovalsService,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
@@ -39,7 +41,11 @@ export class SeedService {
     const hash = await hashPassword(DEMO_PASSWORD);
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
     await this.labelSettings.save((await this.kitchen.current()).id, DEMO_LABEL_SETTINGS);
-    for (const u of DEMO_USERS) await this.users.create({ ...u, passwordHash: hash, demoPassword: true });
+    const created = [];
+    for (const u of DEMO_USERS) created.push(await this.users.create({ ...u, passwordHash: hash, demoPassword: true }));
+    // The demo starts approved: its manager approves every product's declaration as seeded.
+    const manager = created.find((u) => u.role === 'manager')!;
+    await this.approvals.approveAll({ id: manager.id, name: manager.name, role: manager.role }, 'Demo kitchen as seeded');
     this.logger.log(
       `Seeded the demo kitchen: ${demoBook.ingredients.length} ingredients, ${demoBook.recipes.length} recipes, ${DEMO_USERS.length} users.`,
     );

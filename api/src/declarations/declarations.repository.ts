@@ -7,6 +7,8 @@ import { DeclarationModel } from './declaration.model';
 
 /** A declaration as kept: what it declares and when it was computed. */
 export interface KeptDeclaration {
+  /** The row's id (an approval names the declaration it approves by it). */
+  id: number;
   body: ProductDeclaration;
   computedAt: Date;
 }
@@ -27,7 +29,7 @@ export class DeclarationsRepository {
 
   async find(recipeId: number, regime: Regime, inputHash: string): Promise<KeptDeclaration | null> {
     const row = await this.declarations.findOne({ where: { recipeId, regime, inputHash } });
-    return row ? { body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt } : null;
+    return row ? { id: row.id as number, body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt } : null;
   }
 
   /** The kept declarations of several recipes under one regime, by `${recipeId} ${inputHash}`; one query. */
@@ -40,7 +42,8 @@ export class DeclarationsRepository {
     const wanted = new Set(keys.map((k) => `${k.recipeId} ${k.inputHash}`));
     for (const row of rows) {
       const key = `${row.recipeId} ${row.inputHash}`;
-      if (wanted.has(key) && !out.has(key)) out.set(key, { body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt });
+      if (wanted.has(key) && !out.has(key))
+        out.set(key, { id: row.id as number, body: parseJson(row.body) as ProductDeclaration, computedAt: row.createdAt });
     }
     return out;
   }
@@ -49,7 +52,7 @@ export class DeclarationsRepository {
   async add(values: NewDeclaration): Promise<KeptDeclaration> {
     try {
       const row = await this.declarations.create({ ...values });
-      return { body: values.body, computedAt: row.createdAt };
+      return { id: row.id as number, body: values.body, computedAt: row.createdAt };
     } catch (e) {
       if (!(e instanceof UniqueConstraintError)) throw e;
       const kept = await this.find(values.recipeId, values.regime, values.inputHash);

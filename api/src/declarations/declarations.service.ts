@@ -19,6 +19,15 @@ import { RulesService } from '../rules/rules.service';
 import { SpecificationsService } from '../ingredients/specifications/specifications.service';
 import { DeclarationsRepository } from './declarations.repository';
 
+/** A served declaration with the kept row it comes from and the hash of its inputs. */
+export interface KeptServed {
+  served: ServedDeclaration;
+  declarationId: number;
+  inputHash: string;
+  /** The product's row in the recipes table. */
+  recipeRowId: number;
+}
+
 /**
  * Declarations of products, kept per recipe revision and regime and reused until anything they
  * depend on changes (an ingredient, a sub-recipe, the site's handling, the reference data).
@@ -57,6 +66,14 @@ export class DeclarationsService implements OnModuleInit {
    * kept ones are found in one query, and only those missing are computed and kept.
    */
   async forProducts(codes: readonly string[], regime?: Regime, state?: KitchenState): Promise<ServedDeclaration[]> {
+    return (await this.keptForProducts(codes, regime, state)).map((k) => k.served);
+  }
+
+  /**
+   * As forProducts, with each declaration's kept row and input hash: what an approval names, and
+   * what a print run records it printed.
+   */
+  async keptForProducts(codes: readonly string[], regime?: Regime, state?: KitchenState): Promise<KeptServed[]> {
     const { site, book, heads } = state ?? (await this.books.state());
     const useRegime = regime ?? book.site.regime;
     const inputs = codes.map((code) => {
@@ -79,7 +96,7 @@ export class DeclarationsService implements OnModuleInit {
       useRegime,
       inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })),
     );
-    const out: ServedDeclaration[] = [];
+    const out: KeptServed[] = [];
     for (const { code, head, slice, items, inputHash } of inputs) {
       const kept =
         found.get(`${head.rowId} ${inputHash}`) ??
@@ -91,8 +108,10 @@ export class DeclarationsService implements OnModuleInit {
           body: this.rules.declare(slice, code, useRegime),
         }));
       out.push({
-        ...kept.body,
-        basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
+        declarationId: kept.id,
+        inputHash,
+        recipeRowId: head.rowId,
+        served: { ...kept.body, basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version } },
       });
     }
     // Worked out as the declaration is served, from today's date: a kept declaration never freezes it.
@@ -107,6 +126,11 @@ export class DeclarationsService implements OnModuleInit {
       const found = inputs[n].items.flatMap((i) => (i.kind === 'ingredient' && warnings.has(i.id) ? [warnings.get(i.id)!] : []));
       return found.length > 0 ? { ...served, reviewWarnings: found } : served;
     });
+  }
+
+  /** The declaration kept for a recipe (by its row id) under a regime and input hash, or null when there is none. */
+  async keptByHash(recipeRowId: number, regime: Regime, inputHash: string): Promise<ProductDeclaration | null> {
+    return (await this.kept.find(recipeRowId, regime, inputHash))?.body ?? null;
   }
 
   /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */

@@ -35,4 +35,12 @@ export class LabelRunItemModel extends Model {
 
   @Column({ type: DataType.INTEGER, allowNull: false })
   quantity: number;
+
+  /** The input hash of the declaration printed (null for a reprint of an earlier revision, and for runs before approvals). */
+  @Column({ type: DataType.CHAR(64), allowNull: true })
+  inputHash: string | null;
+
+  /** product_approvals.id the item was printed under. */
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  approvalId: number | null;
 }

@@ -14,6 +14,9 @@ export interface RunLine {
   /** YYYY-MM-DD, or null when the product has no date mark. */
   date: string | null;
   quantity: number;
+  /** The declaration printed (its input hash) and the approval it was printed under; null for a reprint of an earlier revision. */
+  inputHash: string | null;
+  approvalId: number | null;
 }
 
 export interface NewLabelRun<Item, Source> {
@@ -34,6 +37,14 @@ export interface NewLabelRun<Item, Source> {
   overrideReason: string | null;
   pdf: Buffer;
   sha256: string;
+}
+
+/** A printed item with its run and what it was rendered from. */
+export interface PrintedLine<Item, Source> {
+  run: LabelRunRow<Item>;
+  line: RunLine;
+  position: number;
+  source: Source | null;
 }
 
 /** A run as logged, without the PDF's bytes. */
@@ -154,11 +165,30 @@ export class LabelRunsRepository {
    * Every print of a batch code (exactly), oldest first: each line with its run and what the
    * label was rendered from (the recall from a batch code, api/src/audit/recall.service.ts).
    */
-  async printsOfBatch<Item, Source>(
-    siteId: number,
-    batch: string,
-  ): Promise<{ run: LabelRunRow<Item>; line: RunLine; position: number; source: Source | null }[]> {
+  async printsOfBatch<Item, Source>(siteId: number, batch: string): Promise<PrintedLine<Item, Source>[]> {
     const lines = (await this.lines.findAll({ where: { siteId, batch }, order: [['id', 'ASC']] })).filter((l) => l.batch === batch);
+    return this.withRuns<Item, Source>(siteId, lines);
+  }
+
+  /**
+   * The newest printed items of the products (at most `limit`), each with its run and what it
+   * was rendered from: the out-of-date labels are found among them.
+   */
+  async printsOfProducts<Item, Source>(
+    siteId: number,
+    productCodes: readonly string[],
+    limit = 2000,
+  ): Promise<PrintedLine<Item, Source>[]> {
+    if (productCodes.length === 0) return [];
+    const wanted = new Set(productCodes);
+    const lines = (await this.lines.findAll({ where: { siteId, productCode: [...wanted] }, order: [['id', 'DESC']], limit })).filter((l) =>
+      wanted.has(l.productCode),
+    );
+    return this.withRuns<Item, Source>(siteId, lines);
+  }
+
+  /** Each line with its run and what it was rendered from, in the lines' order. */
+  private async withRuns<Item, Source>(siteId: number, lines: LabelRunItemModel[]): Promise<PrintedLine<Item, Source>[]> {
     if (lines.length === 0) return [];
     const runs = await this.runs.findAll({
       where: { siteId, id: [...new Set(lines.map((l) => l.runId))] },
@@ -168,7 +198,6 @@ export class LabelRunsRepository {
     return lines.flatMap((l) => {
       const run = byId.get(l.runId);
       if (!run) return [];
-      const sources = parseJson(run.sources as Source[] | string);
       return [
         {
           run: toRow<Item>(run),
@@ -179,9 +208,11 @@ export class LabelRunsRepository {
             batch: l.batch,
             date: l.date,
             quantity: l.quantity,
+            inputHash: l.inputHash,
+            approvalId: l.approvalId,
           },
           position: l.position,
-          source: sources[l.position] ?? null,
+          source: parseJson(run.sources as Source[] | string)[l.position] ?? null,
         },
       ];
     });

@@ -5,8 +5,10 @@ import {
   KITCHEN_WRITERS,
   labelRunRequestSchema,
   labelSettingsSaveSchema,
+  staleHandledSchema,
   type LabelRunRequest,
   type LabelSettings,
+  type StaleHandledRequest,
 } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
@@ -14,13 +16,17 @@ import { withTotalCount } from '../common/total-count';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { labelRunQuerySchema, type LabelRunQuery } from './label-run-query';
 import { LabelsService } from './labels.service';
+import { StaleLabelsService } from './stale-labels.service';
 
 /** Label templates, the kitchen's label settings, print runs and the print log. Front of house reads nothing here. */
 @ApiTags('labels')
 @Controller('labels')
 @Roles(KITCHEN_WRITERS)
 export class LabelsController {
-  constructor(private readonly labels: LabelsService) {}
+  constructor(
+    private readonly labels: LabelsService,
+    private readonly stale: StaleLabelsService,
+  ) {}
 
   @Get('templates')
   @ApiOperation({ summary: 'The label templates this installation prints (from label-templates/)' })
@@ -75,5 +81,23 @@ export class LabelsController {
   @ApiOperation({ summary: 'The PDF of a run exactly as printed, to download (sandboxed)' })
   pdf(@Param('id') id: string) {
     return this.labels.pdf(id);
+  }
+
+  @Get('stale')
+  @ApiOperation({
+    summary:
+      'Printed labels and charts out of date: the product’s latest approval is newer than the print and differs from it; each says what to do, in words',
+  })
+  staleLabels() {
+    return this.stale.list();
+  }
+
+  @Post('stale/:id/handled')
+  @Roles(['manager'])
+  @HttpCode(200)
+  @ApiOperation({ summary: 'Mark out-of-date labels of a printed item (run-position) handled, with what was done (manager)' })
+  @ApiZodBody(staleHandledSchema)
+  markHandled(@CurrentUser() user: AuthUser, @Param('id') id: string, @Body(new ZodPipe(staleHandledSchema)) body: StaleHandledRequest) {
+    return this.stale.markHandled(id, body, user);
   }
 }

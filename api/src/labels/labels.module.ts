@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { ApprovalStoreModule } from '../approvals/approval-store.module';
 import { AuditStoreModule } from '../audit/audit-store.module';
 import { BooksModule } from '../books/books.module';
 import { TransactionRunner } from '../common/transaction';
@@ -14,10 +15,13 @@ import { LabelRunItemModel } from './label-run-item.model';
 import { LabelRunModel } from './label-run.model';
 import { LabelRunsRepository } from './label-runs.repository';
 import { LabelSettingsModel } from './label-settings.model';
+import { LabelStaleHandledModel } from './label-stale-handled.model';
+import { LabelStaleRepository } from './label-stale.repository';
 import { LabelSettingsRepository } from './label-settings.repository';
 import { LabelsController } from './labels.controller';
 import { LabelsService } from './labels.service';
 import { SsccSerialModel } from './sscc-serial.model';
+import { StaleLabelsService } from './stale-labels.service';
 
 /**
  * Labels (/api/labels): the templates, the kitchen's label settings, print runs rendered from each
@@ -26,16 +30,33 @@ import { SsccSerialModel } from './sscc-serial.model';
  */
 @Module({
   imports: [
+    ApprovalStoreModule,
     AuditStoreModule,
     BooksModule,
     DeclarationsModule,
     KitchenModule,
     PublicPageModule,
     RulesModule,
-    SequelizeModule.forFeature([LabelSettingsModel, LabelRunModel, LabelRunItemModel, LabelBatchModel, SsccSerialModel]),
+    SequelizeModule.forFeature([
+      LabelSettingsModel,
+      LabelRunModel,
+      LabelRunItemModel,
+      LabelBatchModel,
+      SsccSerialModel,
+      LabelStaleHandledModel,
+    ]),
   ],
   controllers: [LabelsController],
-  providers: [LabelsService, LabelPrinter, LabelSettingsRepository, LabelRunsRepository, LabelCountersRepository, TransactionRunner],
+  providers: [
+    LabelsService,
+    StaleLabelsService,
+    LabelStaleRepository,
+    LabelPrinter,
+    LabelSettingsRepository,
+    LabelRunsRepository,
+    LabelCountersRepository,
+    TransactionRunner,
+  ],
   exports: [LabelSettingsRepository, LabelRunsRepository],
 })
 export class LabelsModule {}

@@ -19,10 +19,10 @@ import type { Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import type { Page } from '../common/total-count';
+import { ApprovalStatus, type ProductStatus } from '../approvals/approval-status';
 import { AuditService } from '../audit/audit.service';
 import { TransactionRunner } from '../common/transaction';
 import { BooksService, type KitchenState } from '../books/books.service';
-import { DeclarationsService } from '../declarations/declarations.service';
 import { KitchenService } from '../kitchen/kitchen.service';
 import type { SiteRow } from '../kitchen/site.repository';
 import { LabelCountersRepository } from './label-counters.repository';
@@ -48,6 +48,9 @@ interface PlannedItem {
   source: PrintSource;
   /** Where the item sits in the request, for messages: items.N. */
   path: string;
+  /** The declaration printed, by its input hash, and the approval it is printed under (null for a reprint of an earlier revision). */
+  inputHash: string | null;
+  approvalId: number | null;
 }
 
 const DEFAULT_SETTINGS: LabelSettings = labelSettingsSchema.parse({});
@@ -63,7 +66,7 @@ export class LabelsService {
   constructor(
     private readonly kitchen: KitchenService,
     private readonly books: BooksService,
-    private readonly declarations: DeclarationsService,
+    private readonly approvals: ApprovalStatus,
     private readonly settingsRepo: LabelSettingsRepository,
     private readonly runsRepo: LabelRunsRepository,
     private readonly counters: LabelCountersRepository,
@@ -193,7 +196,16 @@ export class LabelsService {
           date,
           ...(serials ? { sscc: [serials[0], serials[serials.length - 1]] as [string, string] } : {}),
         });
-        lines.push({ recipeId: p.rowId, productCode: p.product.id, revision: p.revision, batch, date, quantity: p.quantity });
+        lines.push({
+          recipeId: p.rowId,
+          productCode: p.product.id,
+          revision: p.revision,
+          batch,
+          date,
+          quantity: p.quantity,
+          inputHash: p.inputHash,
+          approvalId: p.approvalId,
+        });
       }
       const rendered = await this.printer.render({
         template: template.template,
@@ -249,6 +261,8 @@ export class LabelsService {
   private async plan(request: LabelRunRequest, state: KitchenState): Promise<PlannedItem[]> {
     const fields: FieldError[] = [];
     const planned: PlannedItem[] = [];
+    /** Items printed from their current revision: only from an approved declaration. */
+    const current: Omit<PlannedItem, 'source' | 'inputHash' | 'approvalId'>[] = [];
     let stale = false;
     let conflict = false;
     for (const [i, item] of request.items.entries()) {
@@ -292,20 +306,37 @@ export class LabelsService {
           });
           continue;
         }
-        planned.push({ product, rowId: head.rowId, revision: wanted, quantity: item.quantity, source, path });
+        planned.push({
+          product,
+          rowId: head.rowId,
+          revision: wanted,
+          quantity: item.quantity,
+          source,
+          path,
+          inputHash: null,
+          approvalId: null,
+        });
         continue;
       }
-      const declaration = await this.declarations.forProduct(product.id, undefined, state);
-      planned.push({
-        product,
-        rowId: head.rowId,
-        revision: head.revision,
-        quantity: item.quantity,
-        source: { declaration, sale: product.sale },
-        path,
-      });
+      current.push({ product, rowId: head.rowId, revision: head.revision, quantity: item.quantity, path });
     }
     if (fields.length > 0) throw refused(conflict ? 'conflict' : 'validation', fields);
+    const statuses = await this.approvals.of(
+      state,
+      current.map((c) => c.product.id),
+    );
+    assertApproved(current, statuses);
+    current.forEach((c, k) =>
+      planned.push({
+        ...c,
+        source: { declaration: statuses[k].current.served, sale: c.product.sale! },
+        inputHash: statuses[k].current.inputHash,
+        approvalId: statuses[k].approval!.id,
+      }),
+    );
+    // In the request's order (each path is items.N).
+    const place = (p: PlannedItem) => Number(p.path.slice('items.'.length));
+    planned.sort((a, b) => place(a) - place(b));
     if (request.override && !stale)
       throw refused('validation', [
         {
@@ -319,8 +350,9 @@ export class LabelsService {
 
   /**
    * Refuses the run when a product printed from its current revision was saved again since the
-   * run was planned, so that no label is printed from a declaration that has just stopped being
-   * current. Read after the run's lock, so it sees every write committed before it.
+   * run was planned, or its declaration changed (an ingredient or sub-recipe below it), so that
+   * no label is printed from a declaration that has just stopped being current or approved. Read
+   * after the run's lock, so it sees every write committed before it.
    */
   private async assertUnchanged(planned: PlannedItem[], before: KitchenState, t: Transaction): Promise<void> {
     const now = await this.books.state(t);
@@ -334,6 +366,21 @@ export class LabelsService {
           message: `${p.product.name} was saved again (revision ${is ?? 'none'}) while this run was being prepared; look at it again and print.`,
         });
     }
+    if (fields.length > 0) throw refused('conflict', fields);
+    const fromCurrent = planned.filter((p) => p.inputHash !== null);
+    const statuses = await this.approvals.of(
+      now,
+      fromCurrent.map((p) => p.product.id),
+      t,
+    );
+    assertApproved(fromCurrent, statuses);
+    fromCurrent.forEach((p, k) => {
+      if (statuses[k].current.inputHash !== p.inputHash)
+        fields.push({
+          path: `${p.path}.product`,
+          message: `${p.product.name}'s declaration changed while this run was being prepared (something it is made of was saved); look at it again and print.`,
+        });
+    });
     if (fields.length > 0) throw refused('conflict', fields);
   }
 
@@ -401,8 +448,29 @@ export class LabelsService {
   }
 }
 
+/**
+ * Labels print only from an approved declaration: refuses the run, naming every product whose
+ * current declaration a manager has not approved (never approved, or changed since), before
+ * anything is written or a batch code given out.
+ */
+function assertApproved(items: readonly { product: BookRecipe; path: string }[], statuses: readonly ProductStatus[]): void {
+  const fields: FieldError[] = [];
+  items.forEach((item, k) => {
+    const s = statuses[k];
+    if (s.state === 'approved') return;
+    fields.push({
+      path: `${item.path}.product`,
+      message:
+        s.state === 'never-approved'
+          ? `${item.product.name}'s declaration has never been approved: a manager approves it in Approvals first.`
+          : `${item.product.name}'s declaration has changed since it was approved: a manager approves it in Approvals first.`,
+    });
+  });
+  if (fields.length > 0) throw refused('approval-needed', fields);
+}
+
 function refused(
-  code: 'validation' | 'conflict' | 'label-refused',
+  code: 'validation' | 'conflict' | 'label-refused' | 'approval-needed',
   fields: FieldError[],
   lead = 'The labels cannot be printed.',
 ): AppError {

@@ -18,3 +18,7 @@ process.env.NODE_ENV = 'test';
 // sees its window roll over halfway.
 process.env.SIGN_IN_WINDOW_SECONDS ??= '86400';
 delete process.env.WEB_DIST;
+// No mail server unless a test starts its own (test/support/fake-smtp.ts): mail stays in the outbox
+// and nothing a test queues can leave the machine through a server set in the shell.
+for (const name of ['SMTP_HOST', 'SMTP_PORT', 'SMTP_SECURE', 'SMTP_USER', 'SMTP_PASSWORD', 'MAIL_FROM', 'MAIL_POLL_SECONDS'])
+  delete process.env[name];

@@ -75,8 +75,14 @@ export const queryKeys = {
   publicPage: {
     settings: () => ['public-page', 'settings'] as const,
   },
+  /** Products waiting for a manager's approval of their declaration: any write to the kitchen can add one. */
+  approvals: {
+    all: () => ['approvals'] as const,
+  },
   labels: {
     all: () => ['labels'] as const,
+    /** Printed labels and charts out of date after an approved change. */
+    stale: () => ['labels', 'stale'] as const,
     templates: () => ['labels', 'templates'] as const,
     /** The kitchen's batch pattern and GS1 numbers. */
     settings: () => ['labels', 'settings'] as const,
@@ -102,6 +108,8 @@ export const KITCHEN_DATA_ROOTS = [
   queryKeys.labels.all(),
   // The counter's products carry every product's declaration.
   queryKeys.counter.products(),
+  // A change below a product sends it to approval.
+  queryKeys.approvals.all(),
 ] as const;
 
 /** Mutation keys, named like the queries they change. */
@@ -127,4 +135,6 @@ export const mutationKeys = {
   askCounterQuestion: () => ['counter', 'questions', 'ask'] as const,
   answerCounterQuestion: () => ['counter', 'questions', 'answer'] as const,
   setCounterDay: () => ['counter', 'day', 'set'] as const,
+  approve: () => ['approvals', 'approve'] as const,
+  markStaleHandled: () => ['labels', 'stale', 'handled'] as const,
 } as const;

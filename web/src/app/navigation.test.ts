@@ -9,11 +9,15 @@ describe('navigation map', () => {
     expect(firstPathFor('front-of-house')).toBe('/counter');
   });
 
-  it('lets only managers open users, approvals and audit', () => {
-    for (const page of ['users', 'approvals', 'audit', 'mail'] as const) {
+  it('lets only managers open users, audit and mail', () => {
+    for (const page of ['users', 'audit', 'mail'] as const) {
       expect(rolesThatCanOpen(page)).toEqual(['manager']);
     }
     expect(canOpen('front-of-house', 'ingredients')).toBe(false);
+  });
+
+  it('lets the pastry chef read approvals (the manager approves), and not front of house', () => {
+    expect(rolesThatCanOpen('approvals')).toEqual(['manager', 'pastry-chef']);
   });
 
   it('gives every role at least one page, and every page a role', () => {

@@ -22,7 +22,7 @@ export type PageKey = keyof typeof PAGES;
  */
 export const PAGES_BY_ROLE: Record<Role, readonly PageKey[]> = {
   manager: ['ingredients', 'today', 'recipes', 'counter', 'labels', 'approvals', 'audit', 'kitchen', 'users', 'mail'],
-  'pastry-chef': ['ingredients', 'today', 'recipes', 'counter', 'labels'],
+  'pastry-chef': ['ingredients', 'today', 'recipes', 'counter', 'labels', 'approvals'],
   'front-of-house': ['counter', 'recipes'],
 };
 

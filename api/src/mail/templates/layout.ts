@@ -38,9 +38,10 @@ export interface MailParts {
   kitchen: string;
 }
 
-const INK = '#2b2118';
-const PAPER = '#fbf6ee';
-const ACCENT = '#8a3b12';
+/** The web app's paper, ink and its one accent, damson (web/src/lib/theme.ts). */
+const INK = '#231B14';
+const PAPER = '#FAF5EC';
+const ACCENT = '#5E2750';
 const FONT = "'Atkinson Hyperlegible', Verdana, Arial, sans-serif";
 
 export function renderMail(parts: MailParts): RenderedMail {
@@ -71,7 +72,7 @@ ${parts.paragraphs.map((t) => p(t)).join('\n')}
 ${button}
 ${after.map((t) => p(t)).join('\n')}
 ${caution.map((t) => p(t, `border-left:4px solid ${ACCENT};padding-left:12px;`)).join('\n')}
-<p style="margin:32px 0 0;font-size:14px;border-top:1px solid #d9cbb8;padding-top:12px;">${escapeHtml(footer)}</p>
+<p style="margin:32px 0 0;font-size:14px;border-top:1px solid #E4D7C2;padding-top:12px;">${escapeHtml(footer)}</p>
 </div>
 </body></html>
 `;

@@ -1,7 +1,7 @@
 import type { Role } from '@crumbproof/shared';
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { mockApi, signedInAs } from '@/testing/mock-api';
+import { mockApi, PEOPLE, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 const cases: { role: Role; links: string[]; first: string }[] = [
@@ -10,7 +10,7 @@ const cases: { role: Role; links: string[]; first: string }[] = [
     links: ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels', 'Approvals', 'Audit', 'Kitchen', 'Users', 'Mail'],
     first: 'Ingredients',
   },
-  { role: 'pastry-chef', links: ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels'], first: 'Ingredients' },
+  { role: 'pastry-chef', links: ['Ingredients', 'Today', 'Recipes', 'Counter', 'Labels', 'Approvals'], first: 'Ingredients' },
   { role: 'front-of-house', links: ['Counter', 'Recipes'], first: 'Counter' },
 ];
 
@@ -64,5 +64,45 @@ describe('Main navigation', () => {
     expect(screen.getByRole('contentinfo')).toHaveTextContent(
       'Crumbproof computes declarations from the recipes and supplier information entered.',
     );
+  });
+});
+
+describe('Main navigation after a change of access', () => {
+  const refused = { status: 403, body: { statusCode: 403, code: 'forbidden', message: 'This needs the manager or pastry chef role.' } };
+
+  it('follows a role changed while the page is open at the next refused request, without a reload', async () => {
+    let role: Role = 'pastry-chef';
+    mockApi({
+      ...signedInAs('pastry-chef', { 'GET /api/recipes': { body: [] }, 'GET /api/declarations': { body: [] } }),
+      'GET /api/me': () => ({ body: PEOPLE[role] }),
+      'GET /api/ingredients': () => (role === 'pastry-chef' ? { body: [] } : refused),
+    });
+    const { user } = renderApp('/recipes');
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    expect(within(nav).getByRole('link', { name: 'Ingredients' })).toBeInTheDocument();
+
+    role = 'front-of-house';
+    await user.click(within(nav).getByRole('link', { name: 'Ingredients' }));
+    await waitFor(() => expect(within(nav).queryByRole('link', { name: 'Ingredients' })).not.toBeInTheDocument());
+    expect(
+      within(nav)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual(['Counter', 'Recipes']);
+  });
+
+  it('opens sign-in at the next request once the person’s sessions were ended', async () => {
+    let ended = false;
+    const gone = { status: 401, body: { statusCode: 401, code: 'unauthenticated', message: 'Sign in first.' } };
+    mockApi({
+      ...signedInAs('pastry-chef', { 'GET /api/recipes': { body: [] }, 'GET /api/declarations': { body: [] } }),
+      'GET /api/me': () => (ended ? gone : { body: PEOPLE['pastry-chef'] }),
+      'GET /api/ingredients': () => (ended ? gone : { body: [] }),
+    });
+    const { user } = renderApp('/recipes');
+    const nav = await screen.findByRole('navigation', { name: 'Main' });
+    ended = true;
+    await user.click(within(nav).getByRole('link', { name: 'Ingredients' }));
+    expect(await screen.findByRole('heading', { level: 1, name: /Sign in/ })).toBeInTheDocument();
   });
 });

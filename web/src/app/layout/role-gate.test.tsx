@@ -21,7 +21,8 @@ describe('Pages a role may not use', () => {
 
   it.each<{ role: Role; path: string; sentence: RegExp }>([
     { role: 'front-of-house', path: '/ingredients', sentence: /Only Manager and Pastry chef accounts can open Ingredients\./ },
-    { role: 'pastry-chef', path: '/approvals', sentence: /Only Manager accounts can open Approvals\./ },
+    { role: 'front-of-house', path: '/approvals', sentence: /Only Manager and Pastry chef accounts can open Approvals\./ },
+    { role: 'pastry-chef', path: '/audit', sentence: /Only Manager accounts can open Audit\./ },
     { role: 'pastry-chef', path: '/users', sentence: /Only Manager accounts can open Users\./ },
   ])('refuses $path to $role', async ({ role, path, sentence }) => {
     mockApi(signedInAs(role));

@@ -15,6 +15,7 @@ import { LayerPath, LayerPathLinks } from '@/components/ui/layer-path';
 import { formatDateTime } from '@/lib/format';
 import { useCounterQuestions } from '../api/questions';
 import { listed, type LookupRow } from '../utils/lookup';
+import { ApprovalFlag } from './approval-flag';
 import { AskKitchenForm } from './ask-kitchen-form';
 import { VerdictLine } from './verdict-line';
 
@@ -175,6 +176,7 @@ export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: Product
                               For a customer avoiding {listed([...avoidLabels])}.
                             </Text>
                           ) : null}
+                          <ApprovalFlag approval={row.product.approval} size="lg" />
                         </Stack>
 
                         {row.verdict ? <WhereFrom verdict={row.verdict} declaration={declaration} /> : null}

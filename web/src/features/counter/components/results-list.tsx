@@ -2,6 +2,7 @@ import { Box, chakra, Heading, Stack, Text } from '@chakra-ui/react';
 import { LayoutGroup, motion, useReducedMotion } from 'framer-motion';
 import { memo, useId } from 'react';
 import type { LookupRow } from '../utils/lookup';
+import { ApprovalFlag } from './approval-flag';
 import { VerdictLine } from './verdict-line';
 
 interface ResultsSectionProps {
@@ -49,6 +50,7 @@ function ResultsSection({ title, rows, onOpen }: ResultsSectionProps) {
                 <Text as="span" fontSize="lg" color="fg.muted">
                   {row.reason}
                 </Text>
+                <ApprovalFlag approval={row.product.approval} />
               </Stack>
             </chakra.button>
           </motion.li>

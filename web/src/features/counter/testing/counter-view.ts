@@ -1,4 +1,5 @@
 import type {
+  CounterApproval,
   CounterProduct,
   CounterProductsView,
   CounterRules,
@@ -45,6 +46,9 @@ export function demoDeclaration(id: string): ProductDeclaration {
   return found;
 }
 
+/** As the demo starts: every product approved by the demo manager. */
+export const APPROVED: CounterApproval = { state: 'approved', approvedAt: '2026-12-01T07:00:00.000Z', approvedBy: 'Maren Holloway' };
+
 /** The counter's one read for the demo kitchen, with the products given marked on sale today. */
 export function demoCounterView(
   onSale: readonly string[] = ['strawberry-layer-cake', 'vegan-brownie', 'lemon-shortbread'],
@@ -55,6 +59,7 @@ export function demoCounterView(
     name: d.name,
     onSale: onSale.includes(d.product),
     declaration: served(d, computedAt),
+    approval: APPROVED,
   }));
   return { computedAt, date: '2026-12-02', regime: DEMO_REGIME, rules: DEMO_RULES, products };
 }

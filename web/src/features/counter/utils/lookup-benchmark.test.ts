@@ -1,7 +1,7 @@
 import { cpus } from 'node:os';
 import type { CounterProduct, ProductDeclaration } from '@crumbproof/shared';
 import { describe, expect, it } from 'vitest';
-import { DEMO_DECLARATIONS, DEMO_RULES, served } from '../testing/counter-view';
+import { APPROVED, DEMO_DECLARATIONS, DEMO_RULES, served } from '../testing/counter-view';
 import { lookUp, type CounterAsk } from './lookup';
 
 /** The most products one kitchen puts on the counter on one day (COUNTER_DAY_MAX_PRODUCTS). */
@@ -32,7 +32,7 @@ function kitchenOf500(): CounterProduct[] {
       precautions: i % 3 === 0 ? [...base.precautions, ...other.precautions] : base.precautions,
       mayContain: i % 3 === 0 ? [...base.mayContain, ...other.mayContain] : base.mayContain,
     };
-    return { id: declaration.product, name: declaration.name, onSale: i % 5 !== 0, declaration: served(declaration) };
+    return { id: declaration.product, name: declaration.name, onSale: i % 5 !== 0, declaration: served(declaration), approval: APPROVED };
   });
 }
 

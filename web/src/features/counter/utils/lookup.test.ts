@@ -1,6 +1,6 @@
 import { COUNTER_VERDICTS, type CounterProduct } from '@crumbproof/shared';
 import { describe, expect, it } from 'vitest';
-import { DEMO_RULES, demoCounterView, demoDeclaration, served } from '../testing/counter-view';
+import { APPROVED, DEMO_RULES, demoCounterView, demoDeclaration, served } from '../testing/counter-view';
 import { lookUp, matchesSearch, type CounterAsk, type LookupRow } from './lookup';
 
 const view = demoCounterView(['strawberry-layer-cake', 'vegan-brownie', 'lemon-shortbread']);
@@ -83,6 +83,7 @@ describe('ordering within a section', () => {
     name,
     onSale: true,
     declaration: served({ ...demoDeclaration(from), product: id, name }),
+    approval: APPROVED,
   });
   const products = [
     product('a', 'Almond slice', 'strawberry-tart'), // has egg: contains

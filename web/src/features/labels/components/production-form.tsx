@@ -10,6 +10,7 @@ import {
 } from '@crumbproof/shared';
 import { useQueryClient } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
+import { Link as RouterLink } from 'react-router-dom';
 import { getDeclarationQueryOptions } from '@/api/declaration';
 import { getPublicPageSettingsQueryOptions } from '@/api/public-page-settings';
 import { RadioInput } from '@/components/ui/choice-inputs';
@@ -319,6 +320,14 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
         <ErrorAlert title="Nothing was printed">
           <Text>{printError.message}</Text>
           {refusals.length > 0 ? <RefusalList problems={refusals} nameOf={nameOf} /> : null}
+          {isApiError(printError) && printError.code === 'approval-needed' ? (
+            <Text>
+              Labels print only from an approved declaration.{' '}
+              <Link asChild fontWeight="bold" color="fg">
+                <RouterLink to="/approvals">Open Approvals</RouterLink>
+              </Link>
+            </Text>
+          ) : null}
         </ErrorAlert>
       ) : null}
 

@@ -66,7 +66,7 @@ export function LabelsRoute() {
   return (
     <Page
       title="Labels"
-      lead="Print today’s labels from each product’s current declaration. Every run is kept in the log below with its PDF."
+      lead="Print today’s labels from each product’s current declaration, once a manager has approved it. Every run is kept in the log below with its PDF."
     >
       <Panel title="Today’s production">
         {failed?.error ? (

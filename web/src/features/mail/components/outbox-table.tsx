@@ -43,9 +43,20 @@ export function OutboxTable({ mails, maxAttempts, onRetry, retryingId }: OutboxT
         cell: (info) => <Quantity>{format(info.row.original.createdAt)}</Quantity>,
         meta: { numeric: true },
       }),
-      column.accessor('kind', { header: 'Kind', cell: (info) => KIND_LABELS[info.row.original.kind] ?? info.row.original.kind }),
-      column.accessor('recipients', { header: 'To', cell: (info) => info.row.original.recipients.join(', '), enableSorting: false }),
-      column.accessor('subject', { header: 'Subject' }),
+      column.accessor('subject', {
+        header: 'Mail',
+        cell: (info) => {
+          const mail = info.row.original;
+          return (
+            <>
+              <Text fontWeight="bold">{mail.subject}</Text>
+              <Text fontSize="sm">
+                {KIND_LABELS[mail.kind] ?? mail.kind} to {mail.recipients.join(', ')}
+              </Text>
+            </>
+          );
+        },
+      }),
       column.accessor('state', {
         header: 'State',
         cell: (info) => {

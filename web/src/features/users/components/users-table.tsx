@@ -1,10 +1,10 @@
-import { Badge, Button, HStack, Text } from '@chakra-ui/react';
+import { Badge, Button, HStack, Stack, Text } from '@chakra-ui/react';
 import { ROLE_LABELS, ROLES, type Role, type User } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
 import { SelectInput } from '@/components/ui/form-field';
 import { Quantity } from '@/components/ui/quantity';
-import { useUpdateUser } from '../api/update-user';
+import type { AccessChange } from './confirm-access-change';
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
@@ -21,14 +21,15 @@ interface UsersTableProps {
   users: User[];
   /** The signed-in manager: their own row cannot be demoted or deactivated from here. */
   currentUserId: number;
-  onUpdate: ReturnType<typeof useUpdateUser>['mutate'];
+  /** Asks for a change of role or access (confirmed before it is sent). */
+  onRequest: (change: AccessChange) => void;
   pendingUserId: number | null;
   /** Sends a new invitation to someone who has not chosen a password yet. */
   onResend: (user: User) => void;
   resendingUserId: number | null;
 }
 
-export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onResend, resendingUserId }: UsersTableProps) {
+export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onResend, resendingUserId }: UsersTableProps) {
   const columns = useMemo<DataTableColumn<User>[]>(
     () => [
       column.accessor('name', {
@@ -57,7 +58,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
               options={ROLE_OPTIONS}
               value={user.role}
               disabled={user.id === currentUserId || pendingUserId === user.id}
-              onChange={(event) => onUpdate({ id: user.id, changes: { role: event.currentTarget.value as Role } })}
+              onChange={(event) => onRequest({ user, changes: { role: event.currentTarget.value as Role } })}
             />
           );
         },
@@ -66,9 +67,20 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
         header: 'Active',
         cell: (info) =>
           info.getValue() && info.row.original.invitationPending ? (
-            <Badge variant="outline" size="lg" borderStyle="dashed">
-              Invited, no password yet
-            </Badge>
+            <Stack align="flex-start" gap="2">
+              <Badge variant="outline" size="lg" borderStyle="dashed">
+                Invited, no password yet
+              </Badge>
+              <Button
+                size="lg"
+                variant="outline"
+                aria-label={`Send the invitation again to ${info.row.original.name}`}
+                loading={resendingUserId === info.row.original.id}
+                onClick={() => onResend(info.row.original)}
+              >
+                Invite again
+              </Button>
+            </Stack>
           ) : info.getValue() ? (
             <Badge variant="subtle" colorPalette="accent" size="lg">
               Active
@@ -91,24 +103,13 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
           if (user.id === currentUserId) return <Text color="fg.muted">Your own account</Text>;
           const action = user.active ? 'Deactivate' : 'Reactivate';
           return (
-            <HStack wrap="wrap">
-              {user.active && user.invitationPending ? (
-                <Button
-                  size="lg"
-                  variant="outline"
-                  aria-label={`Send the invitation again to ${user.name}`}
-                  loading={resendingUserId === user.id}
-                  onClick={() => onResend(user)}
-                >
-                  Send invitation again
-                </Button>
-              ) : null}
+            <HStack>
               <Button
                 size="lg"
                 variant="outline"
                 aria-label={`${action} ${user.name}`}
                 loading={pendingUserId === user.id}
-                onClick={() => onUpdate({ id: user.id, changes: { active: !user.active } })}
+                onClick={() => onRequest({ user, changes: { active: !user.active } })}
               >
                 {action}
               </Button>
@@ -117,7 +118,7 @@ export function UsersTable({ users, currentUserId, onUpdate, pendingUserId, onRe
         },
       }),
     ],
-    [currentUserId, onUpdate, pendingUserId, onResend, resendingUserId],
+    [currentUserId, onRequest, pendingUserId, onResend, resendingUserId],
   );
 
   return (

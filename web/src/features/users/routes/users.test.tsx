@@ -57,15 +57,37 @@ describe('Users page', () => {
 
     const select = await screen.findByRole('combobox', { name: 'Role for Teodor Lind' });
     await user.selectOptions(select, 'Front of house');
+    // Nothing is sent until the manager confirms, and the question says what the role may do.
+    const ask = await screen.findByRole('alertdialog', { name: 'Make Teodor Lind Front of house?' });
+    expect(ask).toHaveTextContent('will be able to read declarations and answer customers at the counter, without editing anything');
+    expect(calls.some((call) => call.method === 'PATCH')).toBe(false);
+    await user.click(within(ask).getByRole('button', { name: 'Make Front of house' }));
     await waitFor(() => expect(screen.getByRole('combobox', { name: 'Role for Teodor Lind' })).toHaveValue('front-of-house'));
+    expect(await screen.findByText(/Teodor Lind is now Front of house: they can read declarations/)).toBeInTheDocument();
 
     await user.click(screen.getByRole('button', { name: 'Deactivate Teodor Lind' }));
+    // The earlier result is cleared as soon as another change is asked for.
+    expect(screen.queryByText(/Teodor Lind is now Front of house/)).not.toBeInTheDocument();
+    const deactivate = await screen.findByRole('alertdialog', { name: 'Deactivate Teodor Lind?' });
+    await user.click(within(deactivate).getByRole('button', { name: 'Deactivate Teodor Lind' }));
     expect(await screen.findByRole('button', { name: 'Reactivate Teodor Lind' })).toBeInTheDocument();
+    expect(await screen.findByText('Teodor Lind is deactivated and can no longer sign in.')).toBeInTheDocument();
 
     const patches = calls.filter((call) => call.method === 'PATCH');
     expect(patches.map((call) => call.body)).toEqual([{ role: 'front-of-house' }, { active: false }]);
     // Each change invalidated the users query, so the list was fetched again.
     expect(calls.filter((call) => call.method === 'GET' && call.path === '/api/users')).toHaveLength(3);
+  });
+
+  it('keeps the role when the manager answers no to the question', async () => {
+    const { calls } = mockApi(signedInAs('manager', { 'GET /api/users': { body: USERS } }));
+    const { user } = renderApp('/users');
+    await user.selectOptions(await screen.findByRole('combobox', { name: 'Role for Teodor Lind' }), 'Manager');
+    const ask = await screen.findByRole('alertdialog', { name: 'Make Teodor Lind Manager?' });
+    await user.click(within(ask).getByRole('button', { name: /^Keep / }));
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument());
+    expect(screen.getByRole('combobox', { name: 'Role for Teodor Lind' })).not.toHaveValue('manager');
+    expect(calls.some((call) => call.method === 'PATCH')).toBe(false);
   });
 
   it('invites a user by name, email and role, and shows them as invited', async () => {

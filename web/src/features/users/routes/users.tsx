@@ -9,6 +9,7 @@ import { useResendInvitation } from '../api/resend-invitation';
 import { useUpdateUser } from '../api/update-user';
 import { useUsers } from '../api/get-users';
 import { AddUserForm } from '../components/add-user-form';
+import { ConfirmAccessChange, describeAccessChange, type AccessChange } from '../components/confirm-access-change';
 import { UsersTable } from '../components/users-table';
 
 export function UsersRoute() {
@@ -17,6 +18,17 @@ export function UsersRoute() {
   const updateUser = useUpdateUser();
   const resend = useResendInvitation();
   const [resent, setResent] = useState<string | null>(null);
+  const [asking, setAsking] = useState<AccessChange | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+
+  const confirm = (change: AccessChange) =>
+    updateUser.mutate(
+      { id: change.user.id, changes: change.changes },
+      {
+        onSuccess: () => setDone(describeAccessChange(change).done),
+        onSettled: () => setAsking(null),
+      },
+    );
 
   return (
     <Page
@@ -25,7 +37,7 @@ export function UsersRoute() {
     >
       {updateUser.isError ? <ErrorAlert title="That change was not saved">{updateUser.error.message}</ErrorAlert> : null}
       {resend.isError ? <ErrorAlert title="The invitation was not sent again">{resend.error.message}</ErrorAlert> : null}
-      <Text role="status">{resent}</Text>
+      <Text role="status">{done ?? resent}</Text>
       {users.isPending ? (
         <Loading>Loading users…</Loading>
       ) : users.isError ? (
@@ -34,10 +46,17 @@ export function UsersRoute() {
         <UsersTable
           users={users.data}
           currentUserId={me.id}
-          onUpdate={updateUser.mutate}
+          onRequest={(change) => {
+            // A new request clears what the last one said.
+            setDone(null);
+            setResent(null);
+            updateUser.reset();
+            setAsking(change);
+          }}
           pendingUserId={updateUser.isPending ? updateUser.variables.id : null}
           onResend={(user) => {
             setResent(null);
+            setDone(null);
             resend.mutate(user.id, {
               onSuccess: () => setResent(`A new invitation is on its way to ${user.email}; the earlier link no longer works.`),
             });
@@ -45,6 +64,7 @@ export function UsersRoute() {
           resendingUserId={resend.isPending ? resend.variables : null}
         />
       )}
+      <ConfirmAccessChange change={asking} pending={updateUser.isPending} onConfirm={confirm} onCancel={() => setAsking(null)} />
       <AddUserForm />
     </Page>
   );
