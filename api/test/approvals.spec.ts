@@ -123,8 +123,14 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
     return res.json<ApprovalsView>().pending;
   };
   const spread = async () => (await req('GET', '/api/book', chef)).json<Book>().ingredients.find((i) => i.id === 'nut-spread')!;
+  /** The revision an editor would load now, named as the base of its save. */
+  const baseOf = async (kind: 'ingredients' | 'recipes', code: string) =>
+    (await req('GET', `/api/${kind}/${code}`, chef)).json<{ revision: number }>().revision;
   const saveSpread = async (changed: BookIngredient) => {
-    const res = await req('PUT', '/api/ingredients/nut-spread', chef, changed);
+    const res = await req('PUT', '/api/ingredients/nut-spread', chef, {
+      ...changed,
+      baseRevision: await baseOf('ingredients', 'nut-spread'),
+    });
     expect(res.statusCode).toBe(200);
   };
   /** The spread without its egg: neither in its allergen statement nor in its composition (which the engine reads too). */
@@ -267,11 +273,16 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
     const book = (await req('GET', '/api/book', chef)).json<Book>();
     const bun = book.recipes.find((r) => r.id === 'plain-bun')!;
     const wetter = bun.lines.map((l) => (l.use === 'water' ? { ...l, qty: 200 } : l));
-    expect((await req('PUT', '/api/recipes/plain-bun', chef, { ...bun, lines: wetter })).statusCode).toBe(200);
+    expect(
+      (await req('PUT', '/api/recipes/plain-bun', chef, { ...bun, lines: wetter, baseRevision: await baseOf('recipes', 'plain-bun') }))
+        .statusCode,
+    ).toBe(200);
     expect((await pending()).map((p) => p.product)).toEqual(['hazel-slice', 'hazel-tart']);
     // Salt in the bun changes its list but adds nothing a customer avoids: it keeps the approved declaration.
     const lines = [...wetter, { use: 'sea-salt', qty: 5, unit: 'g' }];
-    expect((await req('PUT', '/api/recipes/plain-bun', chef, { ...bun, lines })).statusCode).toBe(200);
+    expect(
+      (await req('PUT', '/api/recipes/plain-bun', chef, { ...bun, lines, baseRevision: await baseOf('recipes', 'plain-bun') })).statusCode,
+    ).toBe(200);
     const waiting = await pending();
     const bunPending = waiting.find((p) => p.product === 'plain-bun')!;
     expect(bunPending).toMatchObject({ addsAllergen: false, change: { added: [], ingredientsText: expect.any(Object) } });

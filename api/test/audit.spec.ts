@@ -558,7 +558,15 @@ describe('every route that writes leaves one audit event, in its transaction', (
     const shortbread = (await send('GET', '/api/book', chef)).json<Book>().recipes.find((r) => r.id === 'lemon-shortbread')!;
     const { id: _id, ...body } = shortbread;
     const withSesame = { ...body, lines: [...body.lines, { use: 'sesame-seeds', qty: 5, unit: 'g' }] };
-    expect((await send('PUT', '/api/recipes/lemon-shortbread', chef, { id: shortbread.id, ...withSesame })).statusCode).toBe(200);
+    expect(
+      (
+        await send('PUT', '/api/recipes/lemon-shortbread', chef, {
+          id: shortbread.id,
+          ...withSesame,
+          baseRevision: await baseOf('recipes', 'lemon-shortbread'),
+        })
+      ).statusCode,
+    ).toBe(200);
     expect(await approveAll(t, manager)).toEqual(['lemon-shortbread']);
   });
 

@@ -122,9 +122,9 @@ export class DeclarationsService implements OnModuleInit {
     );
     const warnings = await this.specifications.overdueWarnings([...below.values()]);
     if (warnings.size === 0) return out;
-    return out.map((served, n) => {
+    return out.map((kept, n) => {
       const found = inputs[n].items.flatMap((i) => (i.kind === 'ingredient' && warnings.has(i.id) ? [warnings.get(i.id)!] : []));
-      return found.length > 0 ? { ...served, reviewWarnings: found } : served;
+      return found.length > 0 ? { ...kept, served: { ...kept.served, reviewWarnings: found } } : kept;
     });
   }
 
