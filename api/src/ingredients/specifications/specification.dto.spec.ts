@@ -22,10 +22,14 @@ describe('specification uploads', () => {
     expect(messages({ reviewBy: ` ${days(400)} `, note: 'Annual check' })).toEqual([]);
   });
 
-  it('refuses a missing, malformed, impossible or past review date, naming it', () => {
-    expect(messages({})).toEqual(['reviewBy: Give the date by which the kitchen must check this specification again, as YYYY-MM-DD.']);
-    expect(messages({ reviewBy: '' })).toEqual([
-      'reviewBy: Give the date by which the kitchen must check this specification again, as YYYY-MM-DD.',
+  it('takes no review date, or an empty one, as one year from the upload (worked out when it is saved)', () => {
+    expect(messages({})).toEqual([]);
+    expect(messages({ reviewBy: '' })).toEqual([]);
+  });
+
+  it('refuses a malformed, impossible or past review date, naming it', () => {
+    expect(messages({ reviewBy: 20301231 })).toEqual([
+      'reviewBy: Give the date by which the kitchen must check this specification again as YYYY-MM-DD, or leave it out for one year from today.',
     ]);
     expect(messages({ reviewBy: '01/02/2030' })).toEqual(["reviewBy: '01/02/2030' is not a date written as YYYY-MM-DD."]);
     expect(messages({ reviewBy: '2030-13-01' })).toEqual(['reviewBy: 2030-13-01 is not a real date.']);
