@@ -230,14 +230,16 @@ export const QUANTITY_LIMITS: Record<Unit, { min: number; max: number }> = {
  * floured tin, a greased board) brings its allergens but no weight: it needs neither, and a
  * quantity given to one never counts toward the mix, the percentages or the nutrition.
  */
+/** A line's quantity: above zero. The editor checks each keystroke against this same schema. */
+export const lineQtySchema = z
+  .number({ error: 'Give a quantity above zero.' })
+  .positive('Give a quantity above zero.')
+  .max(1_000_000, 'Use a quantity no larger than 1000000.');
+
 export const recipeLineSchema = z
   .strictObject({
     use: id,
-    qty: z
-      .number({ error: 'Give a quantity above zero.' })
-      .positive('Give a quantity above zero.')
-      .max(1_000_000, 'Use a quantity no larger than 1000000.')
-      .optional(),
+    qty: lineQtySchema.optional(),
     unit: z.enum(UNITS).optional(),
     role: z.enum(LINE_ROLES).optional(),
   })

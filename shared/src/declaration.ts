@@ -191,6 +191,12 @@ export const DECLARATION_NOTICE_CODES = [
   'vegan-not-dairy-free',
   'added-water-omitted',
   'exempt-form',
+  /** A line of the product weighs more than the whole finished product (the notice names the line). */
+  'line-weight-out-of-proportion',
+  /** The portion weighs more than the finished product. */
+  'portion-over-finished-weight',
+  /** A nutrition figure per 100 g beyond physical limits (more than 100 g of a nutrient, more energy than pure fat). */
+  'nutrition-out-of-limits',
 ] as const;
 export type DeclarationNoticeCode = (typeof DECLARATION_NOTICE_CODES)[number];
 
@@ -198,6 +204,8 @@ export interface DeclarationNotice {
   code: DeclarationNoticeCode;
   message: string;
   ingredient?: string;
+  /** The 1-based line of the product's own recipe the notice is about. */
+  line?: number;
 }
 
 export interface Declaration {

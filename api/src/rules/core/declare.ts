@@ -1,4 +1,5 @@
 import {
+  isWeighed,
   SOURCE_LABELS,
   type Book,
   type BookIngredient,
@@ -27,8 +28,9 @@ import { ingredientList } from './ingredient-list';
 import { quidFor } from './quid';
 import type { ReferenceData, RegimeRules } from './reference-schema';
 import { mayContainText, renderList, type Mark } from './statement';
+import { lineWeightWarnings, portionWarnings, type WeighedLineFact } from './sanity';
 import { sulphitesFor } from './sulphites';
-import { buildTree, leavesOf, type TreeNode } from './tree';
+import { buildTree, leavesOf, lineGrams, measuresOf, type ProductTree, type TreeNode } from './tree';
 
 export interface DeclareOptions {
   /** Defaults to the book's site regime. */
@@ -142,6 +144,26 @@ function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNo
   return warnings;
 }
 
+/** The product's own weighed lines, one by one as listed (not merged), contact lines left out. */
+function weighedLines(book: Book, tree: ProductTree): WeighedLineFact[] {
+  const measures = measuresOf(book);
+  return tree.recipe.lines.flatMap((line, index) => {
+    if (!isWeighed(line)) return [];
+    const ingredient = book.ingredients.find((i) => i.id === line.use);
+    const name = ingredient?.name ?? book.recipes.find((r) => r.id === line.use)?.name ?? line.use;
+    const w = lineGrams(line, ingredient, measures);
+    return w.ok ? [{ line: index + 1, name, grams: w.grams }] : [];
+  });
+}
+
+/** Quantities out of proportion: a line heavier than the finished product, a portion heavier than it. */
+function quantityWarnings(book: Book, tree: ProductTree): DeclarationNotice[] {
+  return [
+    ...lineWeightWarnings(tree.recipe.name, tree.recipe.finishedWeightG, weighedLines(book, tree)),
+    ...portionWarnings(tree.recipe.name, tree.recipe.sale?.portionG, tree.finishedG),
+  ];
+}
+
 function declareChecked(book: Book, productId: string, refs: ReferenceData, regime: Regime): Declaration {
   const rules = refs.regimes[regime];
   const tree = buildTree(book, productId);
@@ -190,6 +212,7 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
   const quid = quidFor(tree, tree.recipe.sale?.quid ?? []);
 
   const warnings: DeclarationNotice[] = [...ingredientWarnings(facts, rules), ...sulphites.warnings, ...list.warnings];
+  warnings.push(...quantityWarnings(book, tree));
   const exempt = exemptUses(facts, rules);
   for (const e of exempt) {
     warnings.push({

@@ -1,5 +1,13 @@
-import { isWeighed, type Book, type BookIngredient, type BookRecipe, type LineRole, type MeasureSystem } from '@crumbproof/shared';
-import { defaultMeasures, toGrams } from './quantities';
+import {
+  isWeighed,
+  type Book,
+  type BookIngredient,
+  type BookRecipe,
+  type LineRole,
+  type MeasureSystem,
+  type WeighedLine,
+} from '@crumbproof/shared';
+import { defaultMeasures, toGrams, type WeighResult } from './quantities';
 
 /**
  * A product resolved into a tree of weighed lines.
@@ -40,6 +48,12 @@ export function measuresOf(book: Book): MeasureSystem {
   return book.site.measures ?? defaultMeasures(book.site.regime);
 }
 
+/** A weighed line in grams: an ingredient through its measures, a sub-recipe in g or kg. */
+export function lineGrams(line: WeighedLine, ingredient: BookIngredient | undefined, measures: MeasureSystem): WeighResult {
+  if (ingredient) return toGrams(line.qty, line.unit, ingredient, measures);
+  return { ok: true, grams: line.unit === 'kg' ? line.qty * 1000 : line.qty };
+}
+
 export function buildTree(book: Book, productId: string): ProductTree {
   const ingredients = new Map(book.ingredients.map((i) => [i.id, i]));
   const recipes = new Map(book.recipes.map((r) => [r.id, r]));
@@ -54,13 +68,10 @@ export function buildTree(book: Book, productId: string): ProductTree {
         const recipeUsed = recipes.get(line.use);
         let grams = 0;
         if (isWeighed(line)) {
-          if (ingredient) {
-            const w = toGrams(line.qty, line.unit, ingredient, measures);
-            if (!w.ok) throw new Error(`${recipe.name} uses ${ingredient.name} in a unit that cannot be weighed; check the book first.`);
-            grams = w.grams;
-          } else {
-            grams = line.unit === 'kg' ? line.qty * 1000 : line.qty;
-          }
+          const w = lineGrams(line, ingredient, measures);
+          if (!w.ok)
+            throw new Error(`${recipe.name} uses ${ingredient?.name ?? line.use} in a unit that cannot be weighed; check the book first.`);
+          grams = w.grams;
         }
         return { line, ingredient, recipe: recipeUsed, grams };
       }),

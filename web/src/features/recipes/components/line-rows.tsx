@@ -1,5 +1,5 @@
 import { Box, Button, HStack, Table, Text } from '@chakra-ui/react';
-import { LINE_ROLES, UNITS } from '@crumbproof/shared';
+import { LINE_ROLES, lineQtySchema, UNITS } from '@crumbproof/shared';
 import type { ReactNode } from 'react';
 import { Controller, useWatch, type Control, type FieldErrors, type UseFieldArrayReturn, type UseFormRegister } from 'react-hook-form';
 import { SelectInput, TextInput } from '@/components/ui/form-field';
@@ -22,6 +22,8 @@ interface LineRowsProps {
   errors: FieldErrors<EditorValues>;
   /** Messages from the API for a line, by 0-based index (unknown id, unweighable unit, cycle). */
   apiErrors: ReadonlyMap<number, string[]>;
+  /** The declaration's warnings about a line (a weight out of proportion), by 0-based index; they never block saving. */
+  lineWarnings: ReadonlyMap<number, string[]>;
   options: readonly ComboboxOption[];
 }
 
@@ -29,8 +31,19 @@ function errorIdFor(index: number) {
   return `recipe-line-${index + 1}-error`;
 }
 
+function warningIdFor(index: number) {
+  return `recipe-line-${index + 1}-warning`;
+}
+
+/** What is wrong with a quantity as it is typed (zero, negative, too large), before any save; nothing while the box is empty. */
+function typedQtyProblem(qty: unknown): string | null {
+  if (typeof qty !== 'number' || Number.isNaN(qty)) return null;
+  const parsed = lineQtySchema.safeParse(qty);
+  return parsed.success ? null : (parsed.error.issues[0]?.message ?? null);
+}
+
 /** The recipe's lines as an editable table: pick by typing, quantity, unit, role, move, remove. */
-export function LineRows({ control, register, lines, errors, apiErrors, options }: LineRowsProps) {
+export function LineRows({ control, register, lines, errors, apiErrors, lineWarnings, options }: LineRowsProps) {
   const { fields, append, remove, move } = lines;
   const watched = useWatch({ control, name: 'lines' });
   return (
@@ -71,14 +84,20 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
               const n = index + 1;
               const lineErrors = errors.lines?.[index];
               const fromApi = apiErrors.get(index) ?? [];
+              const contact = watched?.[index]?.role === 'contact';
+              const qtyMessage = lineErrors?.qty?.message ?? (contact ? null : typedQtyProblem(watched?.[index]?.qty));
               const messages: ReactNode[] = [
                 lineErrors?.use?.message,
-                lineErrors?.qty?.message ? `Quantity: ${lineErrors.qty.message}` : undefined,
+                qtyMessage ? `Quantity: ${qtyMessage}` : undefined,
                 lineErrors?.unit?.message,
                 ...fromApi,
               ].filter(Boolean);
-              const describedBy = messages.length > 0 ? errorIdFor(index) : undefined;
-              const contact = watched?.[index]?.role === 'contact';
+              // A contact line has no weight: nothing about its weight is ever out of proportion.
+              const warnings = contact ? [] : (lineWarnings.get(index) ?? []);
+              const describedBy =
+                [messages.length > 0 ? errorIdFor(index) : null, warnings.length > 0 ? warningIdFor(index) : null]
+                  .filter(Boolean)
+                  .join(' ') || undefined;
               return (
                 <Table.Row key={field.id} bg="bg.panel" data-line={n}>
                   <Table.Cell textAlign="end" textStyle="quantity" pt="4">
@@ -109,6 +128,19 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                         ))}
                       </Box>
                     ) : null}
+                    {warnings.length > 0 ? (
+                      <Box id={warningIdFor(index)} textStyle="sm" mt="1" maxW="24rem">
+                        {warnings.map((message, i) => (
+                          <Text key={i}>
+                            <span aria-hidden="true">△ </span>
+                            <Text as="span" fontWeight="bold">
+                              Check:
+                            </Text>{' '}
+                            {message}
+                          </Text>
+                        ))}
+                      </Box>
+                    ) : null}
                   </Table.Cell>
                   {contact ? (
                     <Table.Cell colSpan={2} pt="3">
@@ -129,7 +161,7 @@ export function LineRows({ control, register, lines, errors, apiErrors, options 
                           w="5.5rem"
                           px="2"
                           aria-label={`Quantity for line ${n}`}
-                          aria-invalid={Boolean(lineErrors?.qty) || undefined}
+                          aria-invalid={Boolean(qtyMessage) || undefined}
                           aria-describedby={describedBy}
                           {...register(`lines.${index}.qty`, { setValueAs: numberOrUndefined })}
                         />

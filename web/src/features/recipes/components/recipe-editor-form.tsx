@@ -1,5 +1,13 @@
 import { Box, Button, Grid, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { bookRecipeSchema, CLAIM_LABELS, CLAIMS, type BookRecipe, type RecipeView, type StaleBase } from '@crumbproof/shared';
+import {
+  bookRecipeSchema,
+  CLAIM_LABELS,
+  CLAIMS,
+  type BookRecipe,
+  type DeclarationNotice,
+  type RecipeView,
+  type StaleBase,
+} from '@crumbproof/shared';
 import { useMemo, useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { CheckboxInput as Checkbox } from '@/components/ui/choice-inputs';
@@ -47,6 +55,13 @@ function firstIssue(recipe: BookRecipe): string | null {
   return `Finish the form to see the declaration: ${issue.message}`;
 }
 
+/** The declaration's warnings that name a line of the recipe (1-based), by 0-based index. */
+function warningsByLine(warnings: readonly DeclarationNotice[]): Map<number, string[]> {
+  const byLine = new Map<number, string[]>();
+  for (const w of warnings) if (w.line !== undefined) byLine.set(w.line - 1, [...(byLine.get(w.line - 1) ?? []), w.message]);
+  return byLine;
+}
+
 export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEditorFormProps) {
   const creating = initial === null;
   const defaults = useMemo(() => toEditorValues(initial), [initial]);
@@ -92,6 +107,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
     forPreview.id,
     (watched.lines ?? []).map((line) => line.use),
   );
+  const lineWarnings = useMemo(() => warningsByLine(preview.data?.warnings ?? []), [preview.data]);
   const { id: previewId, name: previewName } = forPreview;
   const previewLookup = useMemo<ItemLookup>(
     () => (id) => (id === previewId ? { name: previewName, kind: 'recipe' } : lookup(id)),
@@ -194,7 +210,15 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
             )}
           </SimpleGrid>
 
-          <LineRows control={control} register={register} lines={lines} errors={errors} apiErrors={apiLineErrors} options={options} />
+          <LineRows
+            control={control}
+            register={register}
+            lines={lines}
+            errors={errors}
+            apiErrors={apiLineErrors}
+            lineWarnings={lineWarnings}
+            options={options}
+          />
 
           <Box maxW="xs">
             <FormField

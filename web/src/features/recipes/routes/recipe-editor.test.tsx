@@ -294,6 +294,47 @@ describe('Recipe editor', () => {
     expect(calls.filter((call) => call.method === 'PUT')).toHaveLength(1);
   });
 
+  it('shows a line weight out of proportion beside that line, as a warning that does not stop saving', async () => {
+    const message =
+      "Line 2 (Raspberry jam) weighs 5000 g, more than the whole finished weight of Victoria sponge (850 g). Check the line's quantity and unit (g or kg), and the finished weight.";
+    const { calls } = editorApi({
+      'POST /api/declarations/preview': {
+        body: declarationFor({ warnings: [{ code: 'line-weight-out-of-proportion', line: 2, message }] }),
+      },
+      'PUT /api/recipes/victoria-sponge': { body: RECIPES[0] },
+    });
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+
+    const qty2 = await screen.findByRole('spinbutton', { name: 'Quantity for line 2' });
+    await waitFor(() => expect(qty2).toHaveAccessibleDescription(`Check: ${message}`));
+    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 2' })).toHaveAccessibleDescription(`Check: ${message}`);
+    expect(qty2).not.toHaveAttribute('aria-invalid');
+    expect(screen.getByRole('spinbutton', { name: 'Quantity for line 1' })).not.toHaveAccessibleDescription();
+    expect(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 3' })).not.toHaveAccessibleDescription();
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }));
+    await waitFor(() => expect(calls.some((call) => call.method === 'PUT')).toBe(true));
+  });
+
+  it('marks a zero or negative quantity on its box as it is typed, before any save', async () => {
+    const { calls } = editorApi();
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+
+    const qty1 = await screen.findByRole('spinbutton', { name: 'Quantity for line 1' });
+    expect(qty1).not.toHaveAttribute('aria-invalid');
+    await user.clear(qty1);
+    await user.type(qty1, '0');
+    expect(qty1).toHaveAttribute('aria-invalid', 'true');
+    expect(qty1).toHaveAccessibleDescription('Quantity: Give a quantity above zero.');
+    await user.clear(qty1);
+    await user.type(qty1, '-3');
+    expect(qty1).toHaveAttribute('aria-invalid', 'true');
+    await user.clear(qty1);
+    await user.type(qty1, '250');
+    expect(qty1).not.toHaveAttribute('aria-invalid');
+    expect(qty1).not.toHaveAccessibleDescription();
+    expect(calls.some((call) => call.method === 'PUT')).toBe(false);
+  });
+
   it('warns before saving when a claim the sale details want does not hold', async () => {
     editorApi();
     const { user } = renderApp('/recipes/victoria-sponge/edit');
