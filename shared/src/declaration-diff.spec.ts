@@ -70,9 +70,37 @@ describe('diffDeclarations', () => {
     expect(d.changed).toBe(true);
   });
 
+  it('gives the ingredient list, the may-contain line and the QUID as printed, before and after', () => {
+    const before = declaration({
+      ingredients: [butter],
+      ingredientsText: 'Wheat flour, butter (milk).',
+      mayContainText: null,
+      quid: [{ ingredient: 'butter', name: 'Butter', percent: 40, text: 'Butter 40%' }],
+    });
+    const after = declaration({
+      ingredients: [butter],
+      ingredientsText: 'Wheat flour, butter (milk), hazelnuts.',
+      mayContainText: 'May contain: peanuts.',
+      quid: [],
+    });
+    const d = diffDeclarations(before, after);
+    expect(d.ingredientsText).toEqual({ before: 'Wheat flour, butter (milk).', after: 'Wheat flour, butter (milk), hazelnuts.' });
+    expect(d.mayContainText).toEqual({ before: null, after: 'May contain: peanuts.' });
+    expect(d.quid).toEqual([{ ingredient: 'butter', name: 'Butter', before: 'Butter 40%', after: null }]);
+    expect(d.shares).toEqual([]);
+    expect(d.changed).toBe(true);
+    // A may-contain line alone changing is a change a label shows.
+    const worded = diffDeclarations(after, { ...after, mayContainText: 'May contain: peanuts and sesame.' });
+    expect(worded.ingredientsText).toBeNull();
+    expect(worded.mayContainText).toEqual({ before: 'May contain: peanuts.', after: 'May contain: peanuts and sesame.' });
+    expect(worded.changed).toBe(true);
+  });
+
   it('says nothing changed for the same declaration', () => {
     const a = declaration({ contains: [milk], ingredients: [butter] });
-    expect(diffDeclarations(a, structuredClone(a)).changed).toBe(false);
+    const same = diffDeclarations(a, structuredClone(a));
+    expect(same.changed).toBe(false);
+    expect([same.ingredientsText, same.mayContainText, same.quid]).toEqual([null, null, []]);
   });
 });
 

@@ -27,6 +27,20 @@ export interface ShareChange {
   after: number | null;
 }
 
+/** A line of the label as printed, before and after (null where the label has no such line). */
+export interface PrintedChange {
+  before: string | null;
+  after: string | null;
+}
+
+/** A QUID entry whose printed text changed (the engine's own rounding), by ingredient; null where absent. */
+export interface QuidChange {
+  ingredient: string;
+  name: string;
+  before: string | null;
+  after: string | null;
+}
+
 export interface DeclarationDiff {
   containsAdded: GroupChange[];
   containsRemoved: GroupChange[];
@@ -35,6 +49,12 @@ export interface DeclarationDiff {
   /** Every claim, changed or not, so a screen can show before and after side by side. */
   claims: ClaimChange[];
   shares: ShareChange[];
+  /** The ingredient list as printed, when it changed; null when it did not. */
+  ingredientsText: PrintedChange | null;
+  /** The may-contain line as printed, when it changed; null when it did not. */
+  mayContainText: PrintedChange | null;
+  /** QUID entries whose printed text changed. */
+  quid: QuidChange[];
   finishedWeightG: { before: number; after: number };
   errorsAdded: string[];
   errorsRemoved: string[];
@@ -55,6 +75,23 @@ function flatten(items: DeclaredIngredient[], out = new Map<string, { name: stri
     flatten(i.children, out);
   }
   return out;
+}
+
+function printedChange(before: string | null, after: string | null): PrintedChange | null {
+  return before === after ? null : { before, after };
+}
+
+function quidChanges(before: Declaration, after: Declaration): QuidChange[] {
+  const qb = new Map(before.quid.map((q) => [q.ingredient, q]));
+  const qa = new Map(after.quid.map((q) => [q.ingredient, q]));
+  return [...new Set([...qb.keys(), ...qa.keys()])]
+    .filter((id) => qb.get(id)?.text !== qa.get(id)?.text)
+    .map((id) => ({
+      ingredient: id,
+      name: (qa.get(id) ?? qb.get(id))!.name,
+      before: qb.get(id)?.text ?? null,
+      after: qa.get(id)?.text ?? null,
+    }));
 }
 
 export function diffDeclarations(before: Declaration, after: Declaration): DeclarationDiff {
@@ -88,6 +125,9 @@ export function diffDeclarations(before: Declaration, after: Declaration): Decla
     mayContainRemoved: minus(mb, ma),
     claims,
     shares,
+    ingredientsText: printedChange(before.ingredientsText, after.ingredientsText),
+    mayContainText: printedChange(before.mayContainText ?? null, after.mayContainText ?? null),
+    quid: quidChanges(before, after),
     finishedWeightG: { before: before.finishedWeightG, after: after.finishedWeightG },
     errorsAdded: [...ea].filter((m) => !eb.has(m)),
     errorsRemoved: [...eb].filter((m) => !ea.has(m)),
@@ -97,7 +137,9 @@ export function diffDeclarations(before: Declaration, after: Declaration): Decla
     diff.containsAdded.length + diff.containsRemoved.length + diff.mayContainAdded.length + diff.mayContainRemoved.length > 0 ||
     claims.some((c) => c.before !== c.after) ||
     shares.length > 0 ||
-    before.ingredientsText !== after.ingredientsText ||
+    diff.ingredientsText !== null ||
+    diff.mayContainText !== null ||
+    diff.quid.length > 0 ||
     diff.finishedWeightG.before !== diff.finishedWeightG.after;
   return diff;
 }
@@ -126,7 +168,7 @@ export interface DeclaredChange {
   claims: { claim: Claim; before: ClaimStatus; after: ClaimStatus }[];
   ingredientsText: { before: string; after: string } | null;
   /** QUID entries whose printed text changed, by ingredient (null where absent). */
-  quid: { ingredient: string; name: string; before: string | null; after: string | null }[];
+  quid: QuidChange[];
   /** Ingredients whose allergens became not known (no allergen statement). */
   notKnownAdded: { ingredient: string; name: string }[];
   notKnownRemoved: { ingredient: string; name: string }[];
@@ -174,16 +216,7 @@ export function declaredChange(before: Declaration, after: Declaration): Declare
     before: before.claims[claim].status,
     after: after.claims[claim].status,
   }));
-  const qb = new Map(before.quid.map((q) => [q.ingredient, q]));
-  const qa = new Map(after.quid.map((q) => [q.ingredient, q]));
-  const quid = [...new Set([...qb.keys(), ...qa.keys()])]
-    .filter((id) => qb.get(id)?.text !== qa.get(id)?.text)
-    .map((id) => ({
-      ingredient: id,
-      name: (qa.get(id) ?? qb.get(id))!.name,
-      before: qb.get(id)?.text ?? null,
-      after: qa.get(id)?.text ?? null,
-    }));
+  const quid = quidChanges(before, after);
   const ub = new Map(before.unknown.map((u) => [u.ingredient, u.name]));
   const ua = new Map(after.unknown.map((u) => [u.ingredient, u.name]));
   const notKnownAdded = [...ua].filter(([id]) => !ub.has(id)).map(([ingredient, name]) => ({ ingredient, name }));

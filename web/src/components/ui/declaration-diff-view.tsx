@@ -1,8 +1,9 @@
 import { Box, Stack, Text } from '@chakra-ui/react';
-import { CLAIM_LABELS, type ClaimChange, type DeclarationDiff, type GroupChange } from '@crumbproof/shared';
+import { CLAIM_LABELS, type ClaimChange, type DeclarationDiff, type GroupChange, type PrintedChange } from '@crumbproof/shared';
 import { ClaimReasonList } from './claim-reasons';
 import { CLAIM_STATUS_WORDS, ClaimMark } from './claim-status';
 import type { ItemLookup } from './layer-path';
+import { MIX_SHARE_KIND, QUID_KIND, formatMixShare } from './percent-kinds';
 import { Quantity } from './quantity';
 import { StatusMark } from './status-mark';
 import { TitledList } from './titled-list';
@@ -16,9 +17,28 @@ interface DeclarationDiffViewProps {
   showReasons?: boolean;
 }
 
-function formatPercent(value: number | null): string {
-  if (value === null) return 'not used';
-  return `${value.toLocaleString('en-GB', { maximumFractionDigits: 2 })}%`;
+/** A printed line of the label, before and after, each in full so the reader compares them as printed. */
+function PrintedLine({ title, change, absent, testId }: { title: string; change: PrintedChange | null; absent: string; testId: string }) {
+  if (!change) return null;
+  return (
+    <Box data-testid={testId}>
+      <Text fontWeight="bold">{title}</Text>
+      <Box as="dl" m="0" display="grid" gridTemplateColumns="auto 1fr" columnGap="3" rowGap="1">
+        <Text as="dt" color="fg.muted">
+          Before
+        </Text>
+        <Text as="dd" m="0" maxW="80ch">
+          {change.before ?? absent}
+        </Text>
+        <Text as="dt" color="fg.muted">
+          After
+        </Text>
+        <Text as="dd" m="0" maxW="80ch" fontWeight="bold">
+          {change.after ?? absent}
+        </Text>
+      </Box>
+    </Box>
+  );
 }
 
 interface GroupListProps {
@@ -71,7 +91,7 @@ function ClaimChangeRow({ change, lookup, showReasons }: { change: ClaimChange; 
   );
 }
 
-/** What changed between two declarations of one product: allergens, may contain, claims, shares, errors. */
+/** What changed between two declarations of one product: allergens, may contain, claims, the printed lines, QUID, shares, errors. */
 export function DeclarationDiffView({ diff, lookup, claims = 'changed', showReasons = false }: DeclarationDiffViewProps) {
   const claimRows = claims === 'all' ? diff.claims : diff.claims.filter((c) => c.before !== c.after);
   const nothing = !diff.changed && diff.errorsAdded.length === 0 && diff.errorsRemoved.length === 0 && claims === 'changed';
@@ -93,9 +113,40 @@ export function DeclarationDiffView({ diff, lookup, claims = 'changed', showReas
           </Box>
         </Box>
       ) : null}
-      <TitledList title="Ingredient shares" items={diff.shares} itemKey={(share) => share.id}>
-        {(share) => <Quantity>{`${share.name}: ${formatPercent(share.before)} → ${formatPercent(share.after)}`}</Quantity>}
-      </TitledList>
+      <PrintedLine
+        title="Ingredient list as printed"
+        change={diff.ingredientsText}
+        absent="No ingredient list."
+        testId="ingredients-text-change"
+      />
+      <PrintedLine
+        title="May-contain line as printed"
+        change={diff.mayContainText}
+        absent="No may-contain line."
+        testId="may-contain-text-change"
+      />
+      {diff.quid.length > 0 ? (
+        <Box>
+          <TitledList title="QUID as printed" items={diff.quid} itemKey={(entry) => entry.ingredient}>
+            {(entry) => (
+              <Quantity>{`${entry.before ?? `${entry.name}: not given`} → ${entry.after ?? `${entry.name}: not given`}`}</Quantity>
+            )}
+          </TitledList>
+          <Text color="fg.muted" textStyle="sm">
+            {QUID_KIND}
+          </Text>
+        </Box>
+      ) : null}
+      {diff.shares.length > 0 ? (
+        <Box>
+          <TitledList title="Share of the mix" items={diff.shares} itemKey={(share) => share.id}>
+            {(share) => <Quantity>{`${share.name}: ${formatMixShare(share.before)} → ${formatMixShare(share.after)}`}</Quantity>}
+          </TitledList>
+          <Text color="fg.muted" textStyle="sm">
+            {MIX_SHARE_KIND}
+          </Text>
+        </Box>
+      ) : null}
       {diff.finishedWeightG.before !== diff.finishedWeightG.after ? (
         <Text textStyle="quantity">{`Weight after baking: ${diff.finishedWeightG.before} g → ${diff.finishedWeightG.after} g`}</Text>
       ) : null}

@@ -1,10 +1,11 @@
 import { Box, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { CLAIMS, EXEMPT_FORM_LABELS, SOURCE_LABELS, type Declaration } from '@crumbproof/shared';
+import { CLAIMS, EXEMPT_FORM_LABELS, SOURCE_LABELS, type Claim, type Declaration } from '@crumbproof/shared';
 import { ClaimReasonList } from '@/components/ui/claim-reasons';
 import { ClaimStatusLine } from '@/components/ui/claim-status';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { LayerPath, type ItemLookup } from '@/components/ui/layer-path';
 import { Panel, type HeadingLevel } from '@/components/ui/panel';
+import { QUID_KIND } from '@/components/ui/percent-kinds';
 import { Quantity } from '@/components/ui/quantity';
 import { StatusMark } from '@/components/ui/status-mark';
 import { TitledList } from '@/components/ui/titled-list';
@@ -17,7 +18,16 @@ interface DeclarationPanelProps {
   declaration: Declaration;
   lookup: ItemLookup;
   level?: HeadingLevel;
+  /**
+   * The claims the kitchen wants to make (the recipe's sale details). Shown beside each result so
+   * that what the kitchen intends is never read as what the recipe supports; left out for a
+   * sub-recipe.
+   */
+  wanted?: readonly Claim[];
 }
+
+/** The heading of the engine's claim results, worded apart from "Claims you want to make". */
+export const CLAIMS_SUPPORTED_TITLE = 'What the recipe supports';
 
 function Paths({ paths, lookup }: { paths: readonly string[][]; lookup: ItemLookup }) {
   if (paths.length === 0) return null;
@@ -38,12 +48,8 @@ function contactWords(paths: readonly string[][], lookup: ItemLookup): string {
   return `From contact with ${new Intl.ListFormat('en-GB').format(names)} (a contact line: greasing or dusting)`;
 }
 
-function formatPercent(value: number): string {
-  return `${value.toLocaleString('en-GB', { maximumFractionDigits: 1 })}%`;
-}
-
 /** A product's declaration as Crumbproof computed it, in the order a label reads. */
-export function DeclarationPanel({ declaration, lookup, level = 'h2' }: DeclarationPanelProps) {
+export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted }: DeclarationPanelProps) {
   const { contains, mayContain, unknown, exempt, claims, warnings, errors } = declaration;
   return (
     <Stack gap="4">
@@ -133,11 +139,23 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
         </Panel>
       </SimpleGrid>
 
-      <Panel title="Claims" level={level}>
+      <Panel title={CLAIMS_SUPPORTED_TITLE} level={level}>
+        <Text color="fg.muted" textStyle="sm" maxW="80ch">
+          {`Crumbproof's check of each claim against every ingredient in the recipe. ${
+            wanted
+              ? 'Whether the kitchen makes a claim is set under “Claims you want to make” in the sale details. Holding is not the same as wanting it.'
+              : 'A sub-recipe makes no claim of its own.'
+          }`}
+        </Text>
         <SimpleGrid as="ul" listStyleType="none" m="0" p="0" minChildWidth="min(100%, 26rem)" columnGap="6" rowGap="3" alignItems="start">
           {CLAIMS.filter((claim) => claims[claim]).map((claim) => (
             <Box as="li" key={claim} data-claim={claim}>
               <ClaimStatusLine claim={claim} status={claims[claim].status} />
+              {wanted ? (
+                <Text color="fg.muted" textStyle="sm" data-testid="claim-wanted">
+                  {wanted.includes(claim) ? 'You want to make this claim.' : 'Not among the claims you want to make.'}
+                </Text>
+              ) : null}
               {claims[claim].status !== 'ok' ? <ClaimReasonList reasons={claims[claim].reasons} lookup={lookup} /> : null}
             </Box>
           ))}
@@ -158,15 +176,13 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2' }: Declarat
         </Text>
         {declaration.mayContainText ? <Text fontWeight="bold">{declaration.mayContainText}</Text> : null}
         <TitledList title="Quantity of ingredients (QUID)" items={declaration.quid} itemKey={(entry) => entry.ingredient}>
-          {(entry) => (
-            <>
-              <Quantity>{entry.text}</Quantity>
-              <Text as="span" color="fg.muted" textStyle="sm">
-                {` (${formatPercent(entry.percent)} of the finished weight)`}
-              </Text>
-            </>
-          )}
+          {(entry) => <Quantity>{entry.text}</Quantity>}
         </TitledList>
+        {declaration.quid.length > 0 ? (
+          <Text color="fg.muted" textStyle="sm" data-testid="quid-kind">
+            {QUID_KIND}
+          </Text>
+        ) : null}
         <SulphiteSummary sulphites={declaration.sulphites} />
         <Text color="fg.muted" textStyle="sm">
           <Quantity>{`Finished weight ${declaration.finishedWeightG} g; mix ${declaration.mixWeightG} g${

@@ -19,11 +19,22 @@ interface LiveDeclarationProps {
   /** The API refused to declare the recipe as edited. */
   error: string | null;
   wantedClaims: readonly Claim[];
+  /** The recipe is for sale (only then does it make claims of its own). */
+  forSale: boolean;
   lookup: ItemLookup;
 }
 
 /** The declaration of the recipe as edited, beside the form, before anything is saved. */
-export function LiveDeclaration({ declaration, computing, unsaved, incomplete, error, wantedClaims, lookup }: LiveDeclarationProps) {
+export function LiveDeclaration({
+  declaration,
+  computing,
+  unsaved,
+  incomplete,
+  error,
+  wantedClaims,
+  forSale,
+  lookup,
+}: LiveDeclarationProps) {
   const headingId = useId();
   const notices = declaration && !error && !incomplete ? wantedClaimNotices(wantedClaims, declaration, lookup) : [];
   return (
@@ -71,7 +82,7 @@ export function LiveDeclaration({ declaration, computing, unsaved, incomplete, e
         {declaration ? (
           <Box opacity={computing || error || incomplete ? 0.55 : 1} aria-busy={computing || undefined}>
             <Stack gap="4">
-              <DeclarationPanel declaration={declaration} lookup={lookup} level="h3" />
+              <DeclarationPanel declaration={declaration} lookup={lookup} level="h3" wanted={forSale ? wantedClaims : undefined} />
               <NutritionPanel nutrition={declaration.nutrition} level="h3" />
             </Stack>
           </Box>

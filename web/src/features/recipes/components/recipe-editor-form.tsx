@@ -265,7 +265,10 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
                   </Checkbox>
                   <Box as="fieldset" minW="0">
                     <Text as="legend" fontWeight="bold">
-                      Claims wanted
+                      Claims you want to make
+                    </Text>
+                    <Text color="fg.muted" textStyle="sm">
+                      The kitchen’s intent. Whether the recipe supports each claim is worked out under “What the recipe supports” below.
                     </Text>
                     <SimpleGrid columns={{ base: 2, md: 4 }} gapX="4">
                       {CLAIMS.map((claim) => (
@@ -323,6 +326,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
             previewError ? previewError.message : preview.isError ? 'The declaration could not be computed. Try again in a moment.' : null
           }
           wantedClaims={forSale ? wantedClaims : []}
+          forSale={forSale}
           lookup={previewLookup}
         />
       </Box>

@@ -36,7 +36,7 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
       column.accessor((row) => (row.recipe.sale ? 'For sale' : 'Sub-recipe'), { id: 'kind', header: 'Kind' }),
       column.display({
         id: 'claims',
-        header: 'Claims held',
+        header: 'What the recipe supports',
         cell: (info) => {
           const { recipe, declaration } = info.row.original;
           if (!recipe.sale) return <Text color="fg.muted">Not declared alone</Text>;

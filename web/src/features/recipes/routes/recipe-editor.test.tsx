@@ -348,6 +348,20 @@ describe('Recipe editor', () => {
     expect(within(live).queryByText(/^Vegetarian is wanted/)).not.toBeInTheDocument();
   });
 
+  it('words the claims the kitchen wants apart from what the recipe supports, and follows the ticks', async () => {
+    editorApi();
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+
+    const wanted = await screen.findByRole('group', { name: 'Claims you want to make' });
+    expect(within(wanted).getByRole('checkbox', { name: 'Vegetarian' })).toBeChecked();
+    const live = screen.getByRole('region', { name: 'Live declaration' });
+    const supports = await within(live).findByRole('region', { name: 'What the recipe supports' });
+    const vegan = await within(supports).findByText('Vegan: Fails');
+    expect(vegan.closest('li')).toHaveTextContent('Not among the claims you want to make.');
+    await user.click(within(wanted).getByRole('checkbox', { name: 'Vegan' }));
+    await waitFor(() => expect(within(supports).getByText('Vegan: Fails').closest('li')).toHaveTextContent('You want to make this claim.'));
+  });
+
   it('checks the form with the book schema before sending', async () => {
     const { calls } = editorApi();
     const { user } = renderApp('/recipes/victoria-sponge/edit');

@@ -1,5 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { QUID_KIND } from '@/components/ui/percent-kinds';
 import { mockApi, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 import { DECLARATION_CAUTION } from '../components/declaration-panel';
@@ -75,7 +76,7 @@ describe('Product page: the declaration panel', () => {
     productApi();
     renderApp('/recipes/victoria-sponge');
 
-    const claims = await screen.findByRole('region', { name: 'Claims' });
+    const claims = await screen.findByRole('region', { name: 'What the recipe supports' });
     expect(within(claims).getByText('Vegan: Fails')).toBeInTheDocument();
     expect(within(claims).getByText('Vegetarian: Holds')).toBeInTheDocument();
     expect(within(claims).getByText('Sesame-free: Not verified')).toBeInTheDocument();
@@ -84,6 +85,21 @@ describe('Product page: the declaration panel', () => {
     expect(within(vegan).getByRole('link', { name: 'Vanilla sponge' })).toHaveAttribute('href', '/recipes/vanilla-sponge');
     // The marks are decoration; the words carry the status.
     expect(vegan.querySelector('[data-claim-mark="fails"]')).toHaveAttribute('aria-hidden', 'true');
+  });
+
+  it('keeps the claims the kitchen wants apart from what the recipe supports', async () => {
+    productApi();
+    renderApp('/recipes/victoria-sponge');
+
+    const claims = await screen.findByRole('region', { name: 'What the recipe supports' });
+    // The sale details want vegetarian only: a claim that holds is not thereby wanted, and the reverse.
+    expect(within(claims).getByText('Vegetarian: Holds').closest('li')).toHaveTextContent('You want to make this claim.');
+    expect(within(claims).getByText('Vegan: Fails').closest('li')).toHaveTextContent('Not among the claims you want to make.');
+    expect(
+      within(claims)
+        .getAllByTestId('claim-wanted')
+        .filter((n) => n.textContent === 'You want to make this claim.'),
+    ).toHaveLength(1);
   });
 
   it('prints the ingredient list with allergens emphasised, and the may contain, not known, QUID and caution', async () => {
@@ -96,6 +112,8 @@ describe('Product page: the declaration panel', () => {
     expect([...list.querySelectorAll('strong')].map((node) => node.textContent)).toEqual(['wheat', 'milk', 'eggs']);
     expect(within(printed).getByText('May contain: sesame.')).toBeInTheDocument();
     expect(within(printed).getByText('Raspberry jam 17%')).toBeInTheDocument();
+    // The QUID is the engine's printed text, its basis and rounding said once beside it.
+    expect(within(printed).getByTestId('quid-kind')).toHaveTextContent(QUID_KIND);
 
     expect(within(region('May contain')).getByText('Sesame: shared equipment in this kitchen')).toBeInTheDocument();
     const notKnown = region('Not known');
@@ -213,6 +231,10 @@ describe('Product page: writers and readers', () => {
     expect(within(item).getByText('milk', { selector: 'strong' })).toBeInTheDocument();
     expect(item).toHaveTextContent('No longer may contain soy');
     expect(within(item).getByText('Vegan: Holds → Fails')).toBeInTheDocument();
+    // What the label prints changed too: the ingredient list and the may-contain line, before and after.
+    const printed = (id: string) => [...within(item).getByTestId(id).querySelectorAll('dd')].map((cell) => cell.textContent);
+    expect(printed('ingredients-text-change')).toEqual(['Wheat flour, sugar, soya spread (soya).', 'Wheat flour, sugar, butter (milk).']);
+    expect(printed('may-contain-text-change')).toEqual(['May contain: soya.', 'No may-contain line.']);
 
     // The latest three show; the first revision waits behind a button.
     expect(within(history).queryByText('Revision 1')).not.toBeInTheDocument();
@@ -224,7 +246,7 @@ describe('Product page: writers and readers', () => {
     const { calls } = productApi('front-of-house');
     renderApp('/recipes/victoria-sponge');
 
-    expect(await screen.findByRole('region', { name: 'Claims' })).toBeInTheDocument();
+    expect(await screen.findByRole('region', { name: 'What the recipe supports' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { level: 1, name: 'Victoria sponge' })).toBeInTheDocument();
     expect(screen.queryByRole('link', { name: 'Edit recipe' })).not.toBeInTheDocument();
     expect(screen.queryByRole('region', { name: 'Revision history' })).not.toBeInTheDocument();

@@ -26,7 +26,7 @@ describe('Recipes list', () => {
       within(table)
         .getAllByRole('columnheader')
         .map((h) => h.textContent),
-    ).toEqual(['Name', 'Kind', 'Claims held', 'Errors', 'Declaration worked out', 'Revision', 'Updated']);
+    ).toEqual(['Name', 'Kind', 'What the recipe supports', 'Errors', 'Declaration worked out', 'Revision', 'Updated']);
     const product = within(table).getByRole('link', { name: 'Victoria sponge' });
     expect(product).toHaveAttribute('href', '/recipes/victoria-sponge');
     const row = product.closest('tr')!;

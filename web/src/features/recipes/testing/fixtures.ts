@@ -291,6 +291,10 @@ export const REVISIONS: RecipeRevisionView[] = [4, 3, 2, 1].map((revision) => ({
             reasons: [],
           })),
           shares: [],
+          ingredientsText:
+            revision === 4 ? { before: 'Wheat flour, sugar, soya spread (soya).', after: 'Wheat flour, sugar, butter (milk).' } : null,
+          mayContainText: revision === 4 ? { before: 'May contain: soya.', after: null } : null,
+          quid: [],
           finishedWeightG: { before: 900, after: 900 },
           errorsAdded: [],
           errorsRemoved: [],

@@ -1,5 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { MIX_SHARE_KIND, QUID_KIND } from '@/components/ui/percent-kinds';
 import { mockApi, signedInAs, type ApiHandlers } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 import { INGREDIENTS, PREVIEW, RECIPES } from '../testing/fixtures';
@@ -49,8 +50,19 @@ describe('Swap check', () => {
     expect(within(product).getByText('Dairy-free: Fails (unchanged)')).toBeInTheDocument();
     const dairy = within(product).getByText('Dairy-free: Fails (unchanged)').closest('li')!;
     expect(dairy).toHaveTextContent('May contain milk: Supplier of Plant spread says it may contain milk.');
-    expect(product).toHaveTextContent('Butter: 40% → not used');
-    expect(product).toHaveTextContent('Plant spread: not used → 40%');
+    // The printed lines, before and after, in full.
+    const list = within(product).getByTestId('ingredients-text-change');
+    expect(list).toHaveTextContent('Ingredient list as printed');
+    const printed = (node: HTMLElement) => [...node.querySelectorAll('dt, dd')].map((cell) => cell.textContent);
+    expect(printed(list)).toEqual(['Before', 'Wheat flour, butter.', 'After', 'Wheat flour, plant spread.']);
+    const may = within(product).getByTestId('may-contain-text-change');
+    expect(printed(may)).toEqual(['Before', 'No may-contain line.', 'After', 'May contain: milk.']);
+    // Each kind of percentage says which it is, with one precision each, the rule stated beside it.
+    expect(product).toHaveTextContent('Butter 44% → Butter: not given');
+    expect(product).toHaveTextContent(QUID_KIND);
+    expect(product).toHaveTextContent('Butter: 40.00% of the mix → not used');
+    expect(product).toHaveTextContent('Plant spread: not used → 40.00% of the mix');
+    expect(product).toHaveTextContent(MIX_SHARE_KIND);
   });
 
   it('applies the swap after a confirmation naming how many recipes get a new revision', async () => {

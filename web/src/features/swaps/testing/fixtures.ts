@@ -113,7 +113,8 @@ function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
     ingredientsSegments: [{ text: `Wheat flour, ${fat.toLowerCase()}.`, emphasis: false }],
     ingredientsMarkdown: `Wheat flour, ${fat.toLowerCase()}.`,
     mayContainText: leaf === 'butter' ? null : 'May contain: milk.',
-    quid: [],
+    // QUID is of the finished product (the mix loses water in the oven), so it differs from the share of the mix.
+    quid: leaf === 'butter' ? [{ ingredient: 'butter', name: 'Butter', percent: 44.4, text: 'Butter 44%' }] : [],
     sulphites: { status: 'below-threshold', mgPerKg: 0, statedMgPerKg: 0, declared: false, missing: [] },
     warnings: [],
     errors: [],
