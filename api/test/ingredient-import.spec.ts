@@ -1,4 +1,4 @@
-import type { ApiErrorBody, ImportPreview, ImportResult, IngredientView } from '@crumbproof/shared';
+import { IMPORT_COLUMNS, type ApiErrorBody, type ImportPreview, type ImportResult, type IngredientView } from '@crumbproof/shared';
 import ExcelJS from 'exceljs';
 import { fixture, multipart } from './fixtures/forms';
 import { tableChecksums } from './fixtures/table-checksums';
@@ -166,7 +166,14 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     expect(body.format).toBe('csv');
     expect(body.problems).toEqual([]);
     // Each row says what it was compared against: here, no ingredient had its id.
-    expect(body.rows).toEqual(expectedNew.map((r) => ({ ...r, base: { revision: null, token: expect.stringMatching(/^0\.[\w-]{22}$/) } })));
+    expect(body.rows).toEqual(
+      expectedNew.map((r) => ({
+        ...r,
+        idCell: r.ingredient.id,
+        nameCell: r.ingredient.name,
+        base: { revision: null, token: expect.stringMatching(/^0\.[\w-]{22}$/) },
+      })),
+    );
     expect(JSON.parse(body.basis)).toEqual(
       Object.fromEntries(body.rows.map((r: Row & { base: { token: string } }) => [String(r.row), r.base.token])),
     );
@@ -237,8 +244,11 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     expect(res.statusCode).toBe(200);
     const rows = res.json().rows as Row[];
     expect(rows[0]).toMatchObject({ row: 2, action: 'create', problems: [] });
+    // The row is named by its id and name cells even though its other cells cannot be read.
     expect(rows[1]).toEqual({
       row: 3,
+      idCell: 'praline',
+      nameCell: 'Hazelnut praline',
       ingredient: null,
       action: 'create',
       base: { revision: null, token: expect.any(String) },
@@ -248,7 +258,8 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
         "row 3, column vegan: 'maybe' is not yes, no or unknown.",
       ],
     });
-    expect(res.json().summary).toEqual({ create: 2, update: 0, unchanged: 0, withProblems: 1 });
+    // Only the rows that can be imported are counted as new; the row with problems is counted apart.
+    expect(res.json().summary).toEqual({ create: 1, update: 0, unchanged: 0, withProblems: 1 });
 
     const refused = await importFile(fixture('ingredients-with-mistakes.csv'));
     expect(refused.statusCode).toBe(400);
@@ -452,5 +463,98 @@ describe('spreadsheet import of ingredients (real MariaDB)', () => {
     const res = await importFile(fixture('new-ingredients.csv'), 'x.csv', counter);
     expect(res.statusCode).toBe(403);
     expect(res.json()).toMatchObject({ code: 'forbidden' });
+  });
+  describe('the template', () => {
+    const download = (ext: 'csv' | 'xlsx', cookie = chef) =>
+      t.app.inject({ method: 'GET', url: `/api/ingredients/import/template.${ext}`, headers: { cookie } });
+    const headers = IMPORT_COLUMNS.map((c) => c.header);
+    // Filled in as a newcomer would: two new ingredients and a revision of the glucose syrup already in the library.
+    const filled: Record<string, string>[] = [
+      {
+        id: 'hazelnut-praline',
+        name: 'Hazelnut praline',
+        contains: 'hazelnut; milk',
+        'may contain': 'almond',
+        vegan: 'no',
+        vegetarian: 'yes',
+      },
+      {
+        id: 'glucose-syrup',
+        name: 'Glucose syrup',
+        contains: 'wheat (glucose-syrup)',
+        'may contain': 'none',
+        vegan: 'yes',
+        vegetarian: 'yes',
+      },
+      { id: 'rice-flour', name: 'Rice flour', contains: 'none', vegan: '', vegetarian: 'unknown', fat: '1,4' },
+    ];
+    const expectRows = (body: ImportPreview) => {
+      expect(body.problems).toEqual([]);
+      expect(
+        body.rows.map((r) => ({ row: r.row, idCell: r.idCell, nameCell: r.nameCell, action: r.action, problems: r.problems })),
+      ).toEqual([
+        { row: 2, idCell: 'hazelnut-praline', nameCell: 'Hazelnut praline', action: 'create', problems: [] },
+        { row: 3, idCell: 'glucose-syrup', nameCell: 'Glucose syrup', action: 'update', problems: [] },
+        { row: 4, idCell: 'rice-flour', nameCell: 'Rice flour', action: 'create', problems: [] },
+      ]);
+      expect(body.rows[0].ingredient).toMatchObject({
+        contains: ['hazelnut', 'milk'],
+        mayContain: ['almond'],
+        vegan: false,
+        vegetarian: true,
+      });
+      expect(body.rows[1].ingredient).toMatchObject({
+        contains: [{ source: 'wheat', form: 'glucose-syrup' }],
+        mayContain: [],
+        vegan: true,
+      });
+      // 'none' is a verified none; the empty cell and 'unknown' stay unknown.
+      expect(body.rows[2].ingredient).toMatchObject({ contains: [], vegan: null, vegetarian: null, nutrition: { fat: 1.4 } });
+      expect(body.summary).toEqual({ create: 2, update: 1, unchanged: 0, withProblems: 0 });
+    };
+
+    it('downloads as CSV: the header row of every column the import reads, nothing more', async () => {
+      const res = await download('csv');
+      expect(res.statusCode).toBe(200);
+      expect(res.headers['content-type']).toBe('text/csv; charset=utf-8');
+      expect(res.headers['content-disposition']).toBe('attachment; filename="crumbproof-ingredients-template.csv"');
+      expect(res.body).toBe(`\uFEFF${headers.join(',')}\r\n`);
+      const empty = (await preview(res.rawPayload, 'template.csv')).json<ImportPreview>();
+      expect(empty.problems).toEqual(['The file has no ingredient rows under the header.']);
+    });
+
+    it('round trip: the CSV template with rows filled in previews as the rows say', async () => {
+      const template = (await download('csv')).body;
+      const lines = filled.map((row) => headers.map((h) => (/[,;]/.test(row[h] ?? '') ? `"${row[h]}"` : (row[h] ?? ''))).join(','));
+      const res = await preview(Buffer.from(template + lines.join('\r\n'), 'utf8'), 'template.csv');
+      expect(res.statusCode).toBe(200);
+      expectRows(res.json<ImportPreview>());
+    });
+
+    it('downloads as XLSX, read back by the import’s own reader; filled in, it previews as the rows say', async () => {
+      const res = await download('xlsx');
+      expect(res.statusCode).toBe(200);
+      expect(res.headers['content-type']).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+      expect(res.headers['content-disposition']).toBe('attachment; filename="crumbproof-ingredients-template.xlsx"');
+      const wb = new ExcelJS.Workbook();
+      await wb.xlsx.load(res.rawPayload as unknown as ArrayBuffer);
+      const sheet = wb.worksheets[0];
+      expect(sheet.name).toBe('Ingredients');
+      expect((sheet.getRow(1).values as unknown[]).slice(1)).toEqual(headers);
+      expect(sheet.rowCount).toBe(1);
+      const help = wb.getWorksheet('Columns')!;
+      expect(help.getRow(2).values).toEqual([undefined, IMPORT_COLUMNS[0].header, 'yes', IMPORT_COLUMNS[0].description]);
+      for (const row of filled) sheet.addRow(headers.map((h) => row[h] ?? null));
+      const upload = Buffer.from(await wb.xlsx.writeBuffer());
+      const read = await preview(upload, 'template.xlsx');
+      expect(read.statusCode).toBe(200);
+      expect(read.json<ImportPreview>().format).toBe('xlsx');
+      expectRows(read.json<ImportPreview>());
+    });
+
+    it('is for the kitchen: front of house is refused (403)', async () => {
+      expect((await download('csv', counter)).statusCode).toBe(403);
+      expect((await download('xlsx', counter)).statusCode).toBe(403);
+    });
   });
 });

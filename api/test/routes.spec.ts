@@ -45,6 +45,8 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'GET /api/specifications/status': [401, 403, 404, 404],
   'GET /api/specifications/reviews-due': [401, 403, 404, 404],
   'GET /api/specifications/:id/file': [401, 403, 404, 404],
+  'GET /api/ingredients/import/template.csv': [401, 403, 200, 200],
+  'GET /api/ingredients/import/template.xlsx': [401, 403, 200, 200],
   'POST /api/ingredients/import/preview': [401, 403, 400, 400],
   'POST /api/ingredients/import': [401, 403, 400, 400],
   'GET /api/recipes': [401, 404, 404, 404],

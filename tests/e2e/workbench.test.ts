@@ -164,13 +164,23 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await page.getByRole('button', { name: 'Check the file' }).click();
     const rows = page.getByRole('table', { name: 'Rows of the spreadsheet' });
     await rows.getByText(/did you mean 'hazelnut'\?/).waitFor();
-    expect(await page.getByRole('button', { name: /^Import \d+ ingredients?$/ }).isDisabled()).toBe(true);
+    expect(await page.getByRole('button', { name: /^Import \d+ ingredients?: \d+ new, \d+ revised$/ }).isDisabled()).toBe(true);
+    // At tablet width every problem is shown whole: wrapped, never cut short.
+    await page.setViewportSize({ width: 768, height: 1024 });
+    const problem = rows.getByText(/did you mean 'hazelnut'\?/);
+    const cut = await problem.evaluate((el) => {
+      const style = getComputedStyle(el);
+      return { ellipsis: style.textOverflow === 'ellipsis', hidden: el.scrollWidth > el.clientWidth + 1 };
+    });
+    expect(cut).toEqual({ ellipsis: false, hidden: false });
+    await screenshot(page, 'import-preview-768');
+    await page.setViewportSize({ width: 1280, height: 900 });
 
     await page.getByLabel('Spreadsheet (CSV or XLSX)').setInputFiles(join(FIXTURES, 'new-ingredients.csv'));
     await page.getByRole('button', { name: 'Check the file' }).click();
     await rows.getByText('pistachio-paste').waitFor();
     await screenshot(page, 'import-preview-1280');
-    await page.getByRole('button', { name: 'Import 3 ingredients' }).click();
+    await page.getByRole('button', { name: 'Import 3 ingredients: 3 new, 0 revised' }).click();
     await page.getByText(/Imported 3 ingredients: 3 added, 0 updated/).waitFor();
     await page.goto(`${BASE_URL}/ingredients/oat-drink`);
     await page.getByRole('heading', { name: 'Oat drink', level: 1 }).waitFor();

@@ -8,7 +8,8 @@ import {
   type AllergenSource,
   type BookIngredient,
   type ExemptForm,
-  type ImportColumn,
+  IMPORT_COLUMN_DEFS,
+  type ImportColumnDef,
   type IssuePlace,
   type SourceEntry,
 } from '@crumbproof/shared';
@@ -17,145 +18,8 @@ import {
 export type Cell = string | number | boolean | null;
 
 type NutrientKey = 'energyKj' | 'energyKcal' | 'fat' | 'saturates' | 'carbohydrate' | 'sugars' | 'fibre' | 'protein' | 'salt';
-type Kind = 'text' | 'sources' | 'diet' | 'number';
-
-interface ColumnDef extends ImportColumn {
-  kind: Kind;
-}
-
-const NUTRIENT_NAMES: Record<NutrientKey, { header: string; more: string[]; unit: string }> = {
-  energyKj: { header: 'energy kj', more: ['kj', 'energy (kj)'], unit: 'kJ' },
-  energyKcal: { header: 'energy kcal', more: ['kcal', 'calories', 'energy (kcal)'], unit: 'kcal' },
-  fat: { header: 'fat', more: ['total fat'], unit: 'g' },
-  saturates: { header: 'saturates', more: ['saturated fat', 'saturated', 'sat fat'], unit: 'g' },
-  carbohydrate: { header: 'carbohydrate', more: ['carbohydrates', 'carbs'], unit: 'g' },
-  sugars: { header: 'sugars', more: ['sugar'], unit: 'g' },
-  fibre: { header: 'fibre', more: ['fiber'], unit: 'g' },
-  protein: { header: 'protein', more: [], unit: 'g' },
-  salt: { header: 'salt', more: [], unit: 'g' },
-};
-
-const SOURCES_HELP =
-  "Allergen sources separated by ';' or ',' (e.g. 'wheat; milk'). A source may name an exempt form or a species in brackets: 'wheat (glucose-syrup)', 'fish (cod)'.";
-
-const DEFS: ColumnDef[] = [
-  {
-    header: 'id',
-    aliases: ['code', 'ingredient id'],
-    field: 'id',
-    kind: 'text',
-    required: true,
-    description: "The ingredient's id, used in recipe lines. A row whose id exists already becomes a new revision of that ingredient.",
-  },
-  {
-    header: 'name',
-    aliases: ['ingredient', 'ingredient name'],
-    field: 'name',
-    kind: 'text',
-    required: true,
-    description: 'The name shown on declarations.',
-  },
-  { header: 'supplier', aliases: [], field: 'supplier', kind: 'text', required: false, description: 'Who supplies it.' },
-  {
-    header: 'supplier code',
-    aliases: ['supplier ref', 'product code'],
-    field: 'supplierCode',
-    kind: 'text',
-    required: false,
-    description: "The supplier's product code.",
-  },
-  {
-    header: 'contains',
-    aliases: ['allergens'],
-    field: 'contains',
-    kind: 'sources',
-    required: false,
-    description: `${SOURCES_HELP} 'none' means the supplier states it contains no allergens (verified none); an EMPTY cell means there is no allergen statement yet (unknown), which declarations treat as unverified.`,
-  },
-  {
-    header: 'may contain',
-    aliases: ['may contains', 'traces'],
-    field: 'mayContain',
-    kind: 'sources',
-    required: false,
-    description: `The supplier's precautionary statement. ${SOURCES_HELP} 'none' or an empty cell: no precautionary statement.`,
-  },
-  {
-    header: 'composition',
-    aliases: ['ingredients', 'ingredient list'],
-    field: 'composition',
-    kind: 'text',
-    required: false,
-    description: "The supplier's ingredient list.",
-  },
-  {
-    header: 'vegan',
-    aliases: [],
-    field: 'vegan',
-    kind: 'diet',
-    required: false,
-    description: 'yes, no or unknown (an empty cell is unknown).',
-  },
-  {
-    header: 'vegetarian',
-    aliases: [],
-    field: 'vegetarian',
-    kind: 'diet',
-    required: false,
-    description: 'yes, no or unknown (an empty cell is unknown).',
-  },
-  {
-    header: 'sulphites mg/kg',
-    aliases: ['sulphites', 'sulfites mg/kg', 'sulfites', 'so2 mg/kg'],
-    field: 'sulphiteMgPerKg',
-    kind: 'number',
-    required: false,
-    description: 'Sulphites (as SO2) in mg per kg, when the supplier states it.',
-  },
-  {
-    header: 'gluten mg/kg',
-    aliases: ['gluten'],
-    field: 'glutenMgPerKg',
-    kind: 'number',
-    required: false,
-    description: 'Gluten measured or specified by the supplier, mg per kg.',
-  },
-  {
-    header: 'g per ml',
-    aliases: ['g/ml', 'density', 'density g/ml'],
-    field: 'gPerMl',
-    kind: 'number',
-    required: false,
-    description: 'Grams per millilitre, to weigh recipe lines given in ml, l, tsp, tbsp or cups.',
-  },
-  {
-    header: 'g each',
-    aliases: ['weight each', 'each g'],
-    field: 'gEach',
-    kind: 'number',
-    required: false,
-    description: "Grams of one piece, to weigh recipe lines given as 'each'.",
-  },
-  ...(Object.entries(NUTRIENT_NAMES) as [NutrientKey, (typeof NUTRIENT_NAMES)[NutrientKey]][]).map(([key, n]) => ({
-    header: n.header,
-    aliases: [...n.more, ...[n.header, ...n.more].flatMap((h) => nutrientVariants(h, n.unit))],
-    field: `nutrition.${key}`,
-    kind: 'number' as const,
-    required: false,
-    description:
-      key === 'energyKj' || key === 'energyKcal'
-        ? `Energy per 100 g, in ${n.unit}.`
-        : `${n.unit === 'g' ? 'Grams' : n.unit} of ${n.header} per 100 g.`,
-  })),
-];
-
-function nutrientVariants(h: string, unit: string): string[] {
-  const u = unit.toLowerCase();
-  return [`${h} ${u}`, `${h} ${u}/100g`, `${h} ${u}/100 g`, `${h} per 100 g`, `${h} per 100g`, `${h} ${u} per 100 g`, `${h} ${u} per 100g`];
-}
-
-/** The columns an import understands, as documented in every preview. */
-export const IMPORT_COLUMNS: ImportColumn[] = DEFS.map(({ kind: _kind, ...c }) => ({ ...c, aliases: [...new Set(c.aliases)] }));
+type ColumnDef = ImportColumnDef;
+const DEFS: ColumnDef[] = IMPORT_COLUMN_DEFS;
 
 /** "Supplier_Code", " Fat (g/100 g) " → "supplier code", "fat g/100 g". */
 export function normaliseHeader(h: string): string {

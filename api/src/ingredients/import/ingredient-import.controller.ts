@@ -1,4 +1,4 @@
-import { Controller, HttpCode, Post, Req } from '@nestjs/common';
+import { Controller, Get, Header, HttpCode, Post, Req } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { FastifyRequest } from 'fastify';
 import { KITCHEN_WRITERS } from '@crumbproof/shared';
@@ -6,12 +6,31 @@ import { CurrentUser, type AuthUser } from '../../common/current-user.decorator'
 import { Roles } from '../../common/roles.decorator';
 import { ApiUpload, readUpload } from '../../common/multipart-upload';
 import { IngredientImportService } from './ingredient-import.service';
+import { templateCsv, templateXlsx } from './import-template';
 
 @ApiTags('ingredients')
 @Controller('ingredients/import')
 @Roles(KITCHEN_WRITERS)
 export class IngredientImportController {
   constructor(private readonly imports: IngredientImportService) {}
+
+  @Get('template.csv')
+  @Header('Cache-Control', 'private, no-store')
+  @Header('X-Content-Type-Options', 'nosniff')
+  @ApiOperation({ summary: 'A CSV template to fill in: the header row of every column the import reads' })
+  template() {
+    return templateCsv();
+  }
+
+  @Get('template.xlsx')
+  @Header('Cache-Control', 'private, no-store')
+  @Header('X-Content-Type-Options', 'nosniff')
+  @ApiOperation({
+    summary: 'An .xlsx template to fill in: the header row of every column the import reads, and a sheet saying what each column means',
+  })
+  workbookTemplate() {
+    return templateXlsx();
+  }
 
   @Post('preview')
   @HttpCode(200)

@@ -7,6 +7,8 @@ import {
   type Book,
   type BookProblem,
   type FieldError,
+  IMPORT_COLUMNS,
+  IMPORT_RULES,
   type ImportAction,
   type ImportCounts,
   type ImportPreview,
@@ -21,18 +23,8 @@ import { sameData } from '../../rules/core/same-data';
 import { RulesService } from '../../rules/rules.service';
 import type { Upload } from '../../common/multipart-upload';
 import type { Transaction } from 'sequelize';
-import { cellText, IMPORT_COLUMNS, mapHeader, rowPlace, rowToCandidate, type HeaderMap } from './import-columns';
+import { cellText, mapHeader, rowPlace, rowToCandidate, type HeaderMap } from './import-columns';
 import { readSheet, type SheetRow } from './spreadsheet';
-
-export const IMPORT_RULES = [
-  'Row 1 is the header; headers are matched without regard to case, spaces, underscores, hyphens or brackets.',
-  "contains: 'none' means the supplier states there are no allergens (verified none); an empty cell means no allergen statement (unknown).",
-  "may contain: an empty cell or 'none' means no precautionary statement.",
-  'vegan, vegetarian: yes, no or unknown; an empty cell is unknown.',
-  'Numbers may use a decimal point or a decimal comma; nutrition figures are per 100 g.',
-  'A row whose id exists becomes a new revision of that ingredient: columns in the file replace its fields (an empty cell clears the field), fields without a column in the file keep their current value.',
-  'Rows that are entirely empty are skipped. Each id may appear on one row only.',
-];
 
 /** Previews and imports ingredients from a CSV file or an Excel workbook; all or nothing. */
 @Injectable()
@@ -55,7 +47,7 @@ export class IngredientImportService {
     const problems = [...sheet.problems, ...header.problems];
     const idColumn = [...header.columns].find(([, d]) => d.field === 'id')?.[0];
     const nameColumn = [...header.columns].find(([, d]) => d.field === 'name')?.[0];
-    const rows = idColumn === undefined || nameColumn === undefined ? [] : this.readRows(sheet.rows, header, idColumn, state);
+    const rows = idColumn === undefined || nameColumn === undefined ? [] : this.readRows(sheet.rows, header, idColumn, nameColumn, state);
     if (rows.length > 0) this.checkDeclarable(rows, book, header, problems);
     const basis = JSON.stringify(Object.fromEntries(rows.filter((r) => r.base).map((r) => [String(r.row), r.base!.token])));
     return { format: sheet.format, columns: IMPORT_COLUMNS, rules: IMPORT_RULES, problems, rows, summary: count(rows), basis };
@@ -118,7 +110,13 @@ export class IngredientImportService {
     );
   }
 
-  private readRows(sheetRows: SheetRow[], header: HeaderMap, idColumn: number, state: KitchenState): ImportRow[] {
+  private readRows(
+    sheetRows: SheetRow[],
+    header: HeaderMap,
+    idColumn: number,
+    nameColumn: number | undefined,
+    state: KitchenState,
+  ): ImportRow[] {
     const book = state.book;
     const existing = new Map(book.ingredients.map((i) => [i.id.toLowerCase(), i]));
     const recipes = new Map(book.recipes.map((r) => [r.id.toLowerCase(), r.id]));
@@ -146,6 +144,8 @@ export class IngredientImportService {
       const action: ImportAction = !base ? 'create' : ingredient && sameData(base, ingredient) ? 'unchanged' : 'update';
       return {
         row,
+        idCell: id,
+        nameCell: nameColumn === undefined ? '' : cellText(cells[nameColumn] ?? null),
         ingredient,
         action,
         problems,
@@ -233,9 +233,9 @@ function columnLetter(i: number): string {
 
 function count(rows: ImportRow[]): ImportCounts {
   return {
-    create: rows.filter((r) => r.action === 'create').length,
-    update: rows.filter((r) => r.action === 'update').length,
-    unchanged: rows.filter((r) => r.action === 'unchanged').length,
+    create: rows.filter((r) => r.problems.length === 0 && r.action === 'create').length,
+    update: rows.filter((r) => r.problems.length === 0 && r.action === 'update').length,
+    unchanged: rows.filter((r) => r.problems.length === 0 && r.action === 'unchanged').length,
     withProblems: rows.filter((r) => r.problems.length > 0).length,
   };
 }

@@ -1,10 +1,11 @@
 import { Box, Text } from '@chakra-ui/react';
 import type { ImportAction, ImportPreview, ImportRow } from '@crumbproof/shared';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
+import { ImportRowSummary } from './import-row-summary';
 
 const ACTION_WORDS: Record<ImportAction, string> = {
   create: 'Add new',
-  update: 'Update',
+  update: 'Revise',
   unchanged: 'No change',
 };
 
@@ -16,8 +17,9 @@ function Problems({ problems }: { problems: readonly string[] }) {
       </Text>
     );
   }
+  // Problems wrap at any width and are never cut short: each is the whole sentence the import gave.
   return (
-    <Box>
+    <Box whiteSpace="normal" overflowWrap="anywhere" minW="16rem">
       <Text as="span" fontWeight="bold" color="fg.error">
         {problems.length === 1 ? 'Problem: ' : `${problems.length} problems: `}
       </Text>
@@ -41,24 +43,34 @@ const COLUMNS: DataTableColumn<ImportRow>[] = [
   column.display({
     id: 'ingredient',
     header: 'Ingredient',
+    // Named by its name cell even when other cells cannot be read.
     cell: (info) => {
-      const name = info.row.original.ingredient?.name;
+      const name = info.row.original.ingredient?.name ?? info.row.original.nameCell;
       return name ? (
-        <Text as="span" fontWeight="bold">
+        <Text as="span" fontWeight="bold" overflowWrap="anywhere">
           {name}
         </Text>
       ) : (
         <Text as="span" color="fg.muted">
-          Not readable
+          No name given
         </Text>
       );
     },
   }),
-  column.display({ id: 'id', header: 'Id', cell: (info) => info.row.original.ingredient?.id ?? '' }),
+  column.display({
+    id: 'id',
+    header: 'Id',
+    cell: (info) => info.row.original.ingredient?.id ?? (info.row.original.idCell || 'No id given'),
+  }),
   column.display({
     id: 'action',
     header: 'Action',
     cell: (info) => (info.row.original.problems.length > 0 ? 'Not imported' : ACTION_WORDS[info.row.original.action]),
+  }),
+  column.display({
+    id: 'records',
+    header: 'What it records',
+    cell: (info) => <ImportRowSummary ingredient={info.row.original.problems.length > 0 ? null : info.row.original.ingredient} />,
   }),
   column.display({ id: 'problems', header: 'Problems', cell: (info) => <Problems problems={info.row.original.problems} /> }),
 ];

@@ -2,7 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { mockApi, requestUrl, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
-import type { ImportPreview } from '@crumbproof/shared';
+import { IMPORT_COLUMNS, type ImportPreview } from '@crumbproof/shared';
 
 const CSV = new File(['id,name\nbutter,Unsalted butter\n'], 'ingredients.csv', { type: 'text/csv' });
 
@@ -19,6 +19,8 @@ const WITH_PROBLEM: ImportPreview = {
   rows: [
     {
       row: 2,
+      idCell: 'butter',
+      nameCell: 'Unsalted butter',
       ingredient: { id: 'butter', name: 'Unsalted butter', contains: ['milk'], mayContain: [], vegan: false, vegetarian: true },
       action: 'update',
       problems: [],
@@ -26,6 +28,8 @@ const WITH_PROBLEM: ImportPreview = {
     },
     {
       row: 3,
+      idCell: 'rice-flour',
+      nameCell: 'Rice flour',
       ingredient: { id: 'rice-flour', name: 'Rice flour', mayContain: [], vegan: true, vegetarian: true },
       action: 'create',
       problems: [],
@@ -33,13 +37,15 @@ const WITH_PROBLEM: ImportPreview = {
     },
     {
       row: 4,
+      idCell: 'praline',
+      nameCell: 'Hazelnut praline',
       ingredient: null,
       action: 'create',
       problems: ["Column 'contains' names 'nuts', which is not an allergen source. Use e.g. 'almond' or 'hazelnut'."],
       base: null,
     },
   ],
-  summary: { create: 2, update: 1, unchanged: 0, withProblems: 1 },
+  summary: { create: 1, update: 1, unchanged: 0, withProblems: 1 },
   basis: '{"2":"3.butter-token","3":"0.rice-token"}',
 };
 
@@ -66,13 +72,16 @@ describe('Spreadsheet import', () => {
     const table = await screen.findByRole('table', { name: 'Rows of the spreadsheet' });
     const rows = within(table).getAllByRole('row').slice(1);
     expect(rows).toHaveLength(3);
-    expect(rows[0]).toHaveTextContent('Update');
+    expect(rows[0]).toHaveTextContent('Revise');
     expect(rows[1]).toHaveTextContent('Add new');
     expect(rows[2]).toHaveTextContent('Not imported');
     expect(rows[2]).toHaveTextContent("Problem: Column 'contains' names 'nuts', which is not an allergen source.");
-    expect(screen.getByText(/2 new ingredients, 1 update, 0 unchanged, 1 row with problems/)).toBeInTheDocument();
+    // The unreadable row is still named by its name and id cells.
+    expect(rows[2]).toHaveTextContent('Hazelnut praline');
+    expect(rows[2]).toHaveTextContent('praline');
+    expect(screen.getByText(/1 new, 1 revised, 0 unchanged, 1 row with problems \(not imported\)/)).toBeInTheDocument();
 
-    expect(screen.getByRole('button', { name: 'Import 2 ingredients' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' })).toBeDisabled();
     expect(screen.getByText(/The ingredient id used in recipes/)).toBeInTheDocument();
     expect(screen.getByText(/Correct the rows with problems/)).toBeInTheDocument();
 
@@ -91,7 +100,7 @@ describe('Spreadsheet import', () => {
 
     await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
     await user.click(screen.getByRole('button', { name: 'Check the file' }));
-    const importButton = await screen.findByRole('button', { name: 'Import 2 ingredients' });
+    const importButton = await screen.findByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' });
     expect(importButton).toBeEnabled();
     await user.click(importButton);
 
@@ -130,7 +139,7 @@ describe('Spreadsheet import', () => {
     const { user } = await openImport();
     await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
     await user.click(screen.getByRole('button', { name: 'Check the file' }));
-    await user.click(await screen.findByRole('button', { name: 'Import 2 ingredients' }));
+    await user.click(await screen.findByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' }));
 
     const alert = await screen.findByRole('alert');
     expect(alert).toHaveTextContent('Someone saved these ingredients after your check: nothing was imported');
@@ -151,7 +160,7 @@ describe('Spreadsheet import', () => {
 
     await user.click(within(alert).getByRole('button', { name: 'Check the file again' }));
     await waitFor(() => expect(previews).toBe(2));
-    expect(await screen.findByRole('button', { name: 'Import 2 ingredients' })).toBeEnabled();
+    expect(await screen.findByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' })).toBeEnabled();
     expect(screen.queryByRole('alert')).not.toBeInTheDocument();
     expect(calls.filter((call) => call.path === '/api/ingredients/import')).toHaveLength(1);
   });
@@ -166,7 +175,84 @@ describe('Spreadsheet import', () => {
     await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
     await user.click(screen.getByRole('button', { name: 'Check the file' }));
     expect(await screen.findByText("There is no 'name' column; add one to row 1.")).toBeInTheDocument();
-    expect(screen.getByRole('button', { name: 'Import 2 ingredients' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' })).toBeDisabled();
+  });
+
+  it('lists every column the import reads with its meaning, and the templates, before the first upload', async () => {
+    mockApi(signedInAs('pastry-chef'));
+    await openImport();
+    const list = screen.getByRole('list', { name: 'Columns the import reads' });
+    const items = within(list).getAllByRole('listitem');
+    expect(items.map((item) => item.textContent)).toEqual(
+      IMPORT_COLUMNS.map((c) => `${c.header}${c.required ? ' (required)' : ''}: ${c.description}`),
+    );
+    expect(items[0]).toHaveTextContent(/^id \(required\): /);
+    expect(screen.getByRole('link', { name: 'Template for Excel (.xlsx)' })).toHaveAttribute(
+      'href',
+      '/api/ingredients/import/template.xlsx',
+    );
+    expect(screen.getByRole('link', { name: 'Template as CSV' })).toHaveAttribute('href', '/api/ingredients/import/template.csv');
+  });
+
+  it('says for each row what it will record, with not known kept apart from none', async () => {
+    const preview: ImportPreview = {
+      ...CLEAN,
+      rows: [
+        CLEAN.rows[0]!,
+        CLEAN.rows[1]!,
+        {
+          row: 4,
+          idCell: 'glucose-syrup',
+          nameCell: 'Glucose syrup',
+          ingredient: {
+            id: 'glucose-syrup',
+            name: 'Glucose syrup',
+            contains: [],
+            mayContain: [{ source: 'wheat', form: 'glucose-syrup' }, 'hazelnut'],
+            vegan: true,
+            vegetarian: null,
+          },
+          action: 'update',
+          problems: [],
+          base: { revision: 2, token: '2.glucose-token' },
+        },
+      ],
+      summary: { create: 1, update: 2, unchanged: 0, withProblems: 0 },
+    };
+    mockApi(signedInAs('manager', { 'POST /api/ingredients/import/preview': { body: preview } }));
+    const { user } = await openImport();
+    await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+    const table = await screen.findByRole('table', { name: 'Rows of the spreadsheet' });
+    const rows = within(table).getAllByRole('row').slice(1);
+    expect(rows[0]).toHaveTextContent('Contains:milk');
+    expect(rows[0]).toHaveTextContent('May contain:No precautionary statement');
+    expect(rows[0]).toHaveTextContent('Vegan:No');
+    expect(rows[0]).toHaveTextContent('Vegetarian:Yes');
+    // No contains: not known; contains []: the supplier states none.
+    expect(rows[1]).toHaveTextContent('Contains:Not known (no allergen statement)');
+    expect(rows[2]).toHaveTextContent('Contains:None (the supplier states none)');
+    expect(rows[2]).toHaveTextContent('May contain:wheat (glucose syrup), hazelnut');
+    expect(rows[2]).toHaveTextContent('Vegetarian:Not known');
+    expect(screen.getByRole('button', { name: 'Import 3 ingredients: 1 new, 2 revised' })).toBeEnabled();
+  });
+
+  it('says there is nothing to import when every row matches what is saved', async () => {
+    mockApi(
+      signedInAs('pastry-chef', {
+        'POST /api/ingredients/import/preview': {
+          body: {
+            ...CLEAN,
+            rows: CLEAN.rows.map((r) => ({ ...r, action: 'unchanged' })),
+            summary: { create: 0, update: 0, unchanged: 2, withProblems: 0 },
+          },
+        },
+      }),
+    );
+    const { user } = await openImport();
+    await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
+    await user.click(screen.getByRole('button', { name: 'Check the file' }));
+    expect(await screen.findByRole('button', { name: 'Nothing to import' })).toBeDisabled();
   });
 
   it('asks for a file before checking', async () => {

@@ -1,5 +1,12 @@
 import { Box, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
-import type { ImportCounts, ImportPreview, ImportResult, StaleImportRow } from '@crumbproof/shared';
+import {
+  IMPORT_COLUMNS,
+  IMPORT_RULES,
+  type ImportCounts,
+  type ImportPreview,
+  type ImportResult,
+  type StaleImportRow,
+} from '@crumbproof/shared';
 import { useRef, useState, type FormEvent } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -19,11 +26,75 @@ function plural(count: number, one: string, many: string): string {
 
 function describeSummary(summary: ImportCounts): string {
   return [
-    `${plural(summary.create, 'new ingredient', 'new ingredients')}`,
-    `${plural(summary.update, 'update', 'updates')}`,
+    `${summary.create} new`,
+    `${summary.update} revised`,
     `${summary.unchanged} unchanged`,
-    `${plural(summary.withProblems, 'row', 'rows')} with problems`,
+    `${plural(summary.withProblems, 'row', 'rows')} with problems (not imported)`,
   ].join(', ');
+}
+
+/** What the import button does: "Import 12 ingredients: 3 new, 9 revised". */
+function importButtonWords(summary: ImportCounts): string {
+  const count = summary.create + summary.update;
+  if (count === 0) return 'Nothing to import';
+  return `Import ${plural(count, 'ingredient', 'ingredients')}: ${summary.create} new, ${summary.update} revised`;
+}
+
+const TEMPLATE_URL = '/api/ingredients/import/template';
+
+/** Every column the import reads and what it means, from the list the import itself reads by. */
+function ColumnList({ columns }: { columns: ImportPreview['columns'] }) {
+  return (
+    <Box as="ul" ps="5" m="0" aria-label="Columns the import reads">
+      {columns.map((column) => (
+        <li key={column.header}>
+          <Text as="span" fontWeight="bold">
+            {column.header}
+          </Text>
+          {column.required ? ' (required)' : ''}
+          {`: ${column.description}`}
+        </li>
+      ))}
+    </Box>
+  );
+}
+
+/** Before the first upload: the templates to start from, the columns and how the file is read. */
+function ImportGuide() {
+  return (
+    <Stack gap="3" maxW="4xl" borderWidth="1px" borderColor="border.muted" rounded="md" p="4" bg="bg.panel">
+      <Text as="h2" fontWeight="bold" textStyle="lg">
+        Start from a template
+      </Text>
+      <Text>
+        Download a template, fill in one ingredient per row under the header, and check the file here. The workbook has a second sheet
+        saying what each column means.
+      </Text>
+      <HStack gap="4" flexWrap="wrap">
+        <Link href={`${TEMPLATE_URL}.xlsx`} download color="accent.fg" fontWeight="bold">
+          Template for Excel (.xlsx)
+        </Link>
+        <Link href={`${TEMPLATE_URL}.csv`} download color="accent.fg" fontWeight="bold">
+          Template as CSV
+        </Link>
+      </HStack>
+      <Text as="h3" fontWeight="bold">
+        Columns
+      </Text>
+      <Text textStyle="sm">Only id and name are required; leave out any other column you do not use.</Text>
+      <Box textStyle="sm">
+        <ColumnList columns={IMPORT_COLUMNS} />
+      </Box>
+      <Text as="h3" fontWeight="bold">
+        How the file is read
+      </Text>
+      <Box as="ul" ps="5" m="0" textStyle="sm">
+        {IMPORT_RULES.map((rule, index) => (
+          <li key={index}>{rule}</li>
+        ))}
+      </Box>
+    </Stack>
+  );
 }
 
 function errorText(error: unknown, fallback: string): string[] {
@@ -50,17 +121,7 @@ function ImportHelp({ columns, rules }: { columns: ImportPreview['columns']; rul
         {columns.length > 0 ? (
           <Box>
             <Text fontWeight="bold">Columns</Text>
-            <Box as="ul" ps="5" m="0">
-              {columns.map((column) => (
-                <li key={column.header}>
-                  <Text as="span" fontWeight="bold">
-                    {column.header}
-                  </Text>
-                  {column.required ? ' (required)' : ''}
-                  {`: ${column.description}`}
-                </li>
-              ))}
-            </Box>
+            <ColumnList columns={columns} />
           </Box>
         ) : null}
       </Stack>
@@ -155,8 +216,8 @@ export function ImportIngredientsRoute() {
     importIngredients.isError && isApiError(importIngredients.error) && importIngredients.error.code === 'stale-preview'
       ? importIngredients.error.staleRows
       : [];
-  // Rows that would change something; a row with problems is never imported.
-  const count = preview ? preview.rows.filter((row) => row.problems.length === 0 && row.action !== 'unchanged').length : 0;
+  // Rows that would change something; the summary counts only rows without problems.
+  const count = preview ? preview.summary.create + preview.summary.update : 0;
   const fileProblems = preview?.problems ?? [];
   const blocked = preview
     ? fileProblems.length > 0 || preview.summary.withProblems > 0 || preview.rows.some((row) => row.problems.length > 0)
@@ -226,6 +287,8 @@ export function ImportIngredientsRoute() {
         </Box>
       ) : null}
 
+      {!preview && !imported && !previewImport.isPending ? <ImportGuide /> : null}
+
       {preview ? (
         <Stack gap="4">
           <Text role="status" fontWeight="bold">
@@ -258,7 +321,7 @@ export function ImportIngredientsRoute() {
               loadingText="Importing…"
               onClick={handleImport}
             >
-              Import {plural(count, 'ingredient', 'ingredients')}
+              {importButtonWords(preview.summary)}
             </Button>
             <Text color="fg.muted">
               {blocked
