@@ -128,10 +128,12 @@ describe('the counter, in Chromium, with the kitchen in a second browser', () =>
 
     const read = await kitchen.page.request.get(`${BASE_URL}/api/ingredients/flaxseed`);
     expect(read.status()).toBe(200);
-    const { revision: _revision, updatedAt: _updatedAt, ...flaxseed } = (await read.json()) as Record<string, unknown>;
-    const put = (body: unknown) => kitchen.page.request.put(`${BASE_URL}/api/ingredients/flaxseed`, { data: body });
+    const { revision, updatedAt: _updatedAt, ...flaxseed } = (await read.json()) as Record<string, unknown> & { revision: number };
+    // Each save names the revision it starts from.
+    const put = (body: unknown, baseRevision: number) =>
+      kitchen.page.request.put(`${BASE_URL}/api/ingredients/flaxseed`, { data: { ...(body as object), baseRevision } });
     try {
-      const changed = await put({ ...flaxseed, contains: ['egg'] });
+      const changed = await put({ ...flaxseed, contains: ['egg'] }, revision);
       expect(changed.status(), await changed.text()).toBe(200);
       const started = Date.now();
       await expect
@@ -140,7 +142,7 @@ describe('the counter, in Chromium, with the kitchen in a second browser', () =>
       console.log(`counter showed the change ${Date.now() - started} ms after the save answered`);
       await screenshot(page, 'counter-after-push-1280');
     } finally {
-      const restored = await put(flaxseed);
+      const restored = await put(flaxseed, revision + 1);
       expect(restored.status(), await restored.text()).toBe(200);
     }
     await expect.poll(() => row(page, brownie!.name).textContent(), { timeout: 5_000 }).not.toMatch(/Has egg/);
