@@ -170,9 +170,15 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     const problem = rows.getByText(/did you mean 'hazelnut'\?/);
     const cut = await problem.evaluate((el) => {
       const style = getComputedStyle(el);
-      return { ellipsis: style.textOverflow === 'ellipsis', hidden: el.scrollWidth > el.clientWidth + 1 };
+      const box = el.getBoundingClientRect();
+      // In view without scrolling sideways: inside the window, not only inside its own cell.
+      return {
+        ellipsis: style.textOverflow === 'ellipsis',
+        hidden: el.scrollWidth > el.clientWidth + 1,
+        inView: box.right <= window.innerWidth,
+      };
     });
-    expect(cut).toEqual({ ellipsis: false, hidden: false });
+    expect(cut).toEqual({ ellipsis: false, hidden: false, inView: true });
     await screenshot(page, 'import-preview-768');
     await page.setViewportSize({ width: 1280, height: 900 });
 

@@ -19,7 +19,7 @@ function Problems({ problems }: { problems: readonly string[] }) {
   }
   // Problems wrap at any width and are never cut short: each is the whole sentence the import gave.
   return (
-    <Box whiteSpace="normal" overflowWrap="anywhere" minW="16rem">
+    <Box whiteSpace="normal" overflowWrap="anywhere" minW="12rem">
       <Text as="span" fontWeight="bold" color="fg.error">
         {problems.length === 1 ? 'Problem: ' : `${problems.length} problems: `}
       </Text>
@@ -67,12 +67,17 @@ const COLUMNS: DataTableColumn<ImportRow>[] = [
     header: 'Action',
     cell: (info) => (info.row.original.problems.length > 0 ? 'Not imported' : ACTION_WORDS[info.row.original.action]),
   }),
+  // One column for both, so that at tablet width a row's problems sit in view beside its name.
   column.display({
     id: 'records',
-    header: 'What it records',
-    cell: (info) => <ImportRowSummary ingredient={info.row.original.problems.length > 0 ? null : info.row.original.ingredient} />,
+    header: 'What it records, or its problems',
+    cell: (info) =>
+      info.row.original.problems.length > 0 ? (
+        <Problems problems={info.row.original.problems} />
+      ) : (
+        <ImportRowSummary ingredient={info.row.original.ingredient} />
+      ),
   }),
-  column.display({ id: 'problems', header: 'Problems', cell: (info) => <Problems problems={info.row.original.problems} /> }),
 ];
 
 /** Each spreadsheet row, what importing would do with it, and its problems in words. */
