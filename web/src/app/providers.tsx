@@ -1,6 +1,5 @@
 import { ChakraProvider } from '@chakra-ui/react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
-import { ThemeProvider } from 'next-themes';
 import { useState, type ReactNode } from 'react';
 import { createQueryClient } from '@/lib/query-client';
 import { system } from '@/lib/theme';
@@ -15,10 +14,8 @@ export function AppProviders({ children, queryClient }: AppProvidersProps) {
   const [client] = useState(() => queryClient ?? createQueryClient());
   return (
     <ChakraProvider value={system}>
-      {/* One paper-and-ink theme for now; next-themes keeps the class on <html> in step. */}
-      <ThemeProvider attribute="class" forcedTheme="light" disableTransitionOnChange>
-        <QueryClientProvider client={client}>{children}</QueryClientProvider>
-      </ThemeProvider>
+      {/* One paper-and-ink theme: index.html sets the light class on <html>. */}
+      <QueryClientProvider client={client}>{children}</QueryClientProvider>
     </ChakraProvider>
   );
 }

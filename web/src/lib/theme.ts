@@ -1,4 +1,34 @@
-import { createSystem, defaultConfig, defineConfig } from '@chakra-ui/react';
+import { createSystem, defaultBaseConfig, defineConfig } from '@chakra-ui/react';
+import {
+  alertSlotRecipe,
+  animationStyles,
+  breakpoints,
+  cssVarsPrefix,
+  cssVarsRoot,
+  globalCss,
+  keyframes,
+  layerStyles,
+  semanticTokens,
+  textStyles,
+  tokens,
+  badgeRecipe,
+  buttonRecipe,
+  codeRecipe,
+  collapsibleSlotRecipe,
+  dialogSlotRecipe,
+  drawerSlotRecipe,
+  fieldSlotRecipe,
+  headingRecipe,
+  iconRecipe,
+  inputRecipe,
+  linkRecipe,
+  listSlotRecipe,
+  nativeSelectSlotRecipe,
+  progressSlotRecipe,
+  spinnerRecipe,
+  tableSlotRecipe,
+  textareaRecipe,
+} from '@chakra-ui/react/theme';
 
 /**
  * Crumbproof's look: warm paper, dark ink and one accent, damson.
@@ -7,6 +37,54 @@ import { createSystem, defaultConfig, defineConfig } from '@chakra-ui/react';
  * damson on paper 10.3:1, paper on damson 11:1, error brick on paper 7.5:1); control borders are 3.9:1.
  */
 const fontStack = "'Atkinson Hyperlegible', ui-sans-serif, system-ui, sans-serif";
+
+/**
+ * The styles of the Chakra components the app uses, and no others: the whole default theme would
+ * add every component's styles to the first page's download. A component used without its
+ * recipe here renders unstyled; theme.test.ts fails when one is imported without it.
+ */
+export const RECIPES = {
+  badge: badgeRecipe,
+  button: buttonRecipe,
+  code: codeRecipe,
+  heading: headingRecipe,
+  icon: iconRecipe,
+  input: inputRecipe,
+  link: linkRecipe,
+  spinner: spinnerRecipe,
+  textarea: textareaRecipe,
+};
+
+export const SLOT_RECIPES = {
+  alert: alertSlotRecipe,
+  collapsible: collapsibleSlotRecipe,
+  dialog: dialogSlotRecipe,
+  drawer: drawerSlotRecipe,
+  field: fieldSlotRecipe,
+  list: listSlotRecipe,
+  nativeSelect: nativeSelectSlotRecipe,
+  progress: progressSlotRecipe,
+  table: tableSlotRecipe,
+};
+
+/** Chakra's own theme (tokens, text and layer styles, global styles) with only those recipes. */
+const chakraTheme = defineConfig({
+  preflight: true,
+  cssVarsPrefix,
+  cssVarsRoot,
+  globalCss,
+  theme: {
+    breakpoints,
+    keyframes,
+    tokens,
+    semanticTokens,
+    textStyles,
+    layerStyles,
+    animationStyles,
+    recipes: RECIPES,
+    slotRecipes: SLOT_RECIPES,
+  },
+});
 
 const config = defineConfig({
   globalCss: {
@@ -114,4 +192,4 @@ const config = defineConfig({
   },
 });
 
-export const system = createSystem(defaultConfig, config);
+export const system = createSystem(defaultBaseConfig, chakraTheme, config);

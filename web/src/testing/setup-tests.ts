@@ -2,14 +2,7 @@ import '@testing-library/jest-dom/vitest';
 import { cleanup, configure } from '@testing-library/react';
 import { afterEach } from 'vitest';
 
-// next-themes renders its no-flash <script> into the tree; React notes it once per render. Not a fault.
-const consoleError = console.error.bind(console);
-console.error = (...args: unknown[]) => {
-  if (typeof args[0] === 'string' && args[0].startsWith('Encountered a script tag')) return;
-  consoleError(...args);
-};
-
-// jsdom has no matchMedia; next-themes and Chakra's responsive styles ask for it.
+// jsdom has no matchMedia; Chakra's responsive styles ask for it.
 if (!window.matchMedia) {
   Object.defineProperty(window, 'matchMedia', {
     writable: true,

@@ -1,33 +1,9 @@
 import { Box } from '@chakra-ui/react';
-import { useEffect, useRef, type ReactNode } from 'react';
-import { Outlet, useLocation } from 'react-router-dom';
-import { AppHeader } from './app-header';
+import type { ReactNode } from 'react';
+import { Outlet } from 'react-router-dom';
+import { NavigationProgress } from '../routes/page-loading';
 import { CautionFooter } from './caution-footer';
 import { MAIN_ID, SkipLink } from './skip-link';
-
-/** The frame of every workbench page: header with navigation, one main landmark, the caution. */
-export function AppShell() {
-  useFocusMainOnNavigation();
-  return (
-    <ShellFrame header={<AppHeader />}>
-      <Outlet />
-    </ShellFrame>
-  );
-}
-
-/**
- * After moving to another page, put focus at the start of the new content so keyboard and
- * screen-reader users are not left on the link they followed. The first page load is left alone.
- */
-function useFocusMainOnNavigation() {
-  const { pathname } = useLocation();
-  const previous = useRef(pathname);
-  useEffect(() => {
-    if (previous.current === pathname) return;
-    previous.current = pathname;
-    document.getElementById(MAIN_ID)?.focus({ preventScroll: false });
-  }, [pathname]);
-}
 
 interface ShellFrameProps {
   header?: ReactNode;
@@ -40,6 +16,7 @@ export function ShellFrame({ header, children }: ShellFrameProps) {
     <Box minH="100dvh" display="flex" flexDirection="column" bg="bg.canvas" color="fg">
       <SkipLink />
       {header}
+      <NavigationProgress />
       <Box
         as="main"
         id={MAIN_ID}

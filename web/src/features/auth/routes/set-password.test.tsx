@@ -88,7 +88,9 @@ describe('Forgot your password?', () => {
     const { calls } = mockApi({ ...signedOut, 'POST /api/auth/password-reset': { status: 202, body: { message: answer } } });
     const { user } = renderApp('/sign-in');
     await user.click(await screen.findByRole('link', { name: 'Forgot your password?' }));
-    await user.type(await screen.findByLabelText('Email'), 'Someone@Crumbproof.test');
+    // The page's code loads on the way; the sign-in page stays until it has.
+    await screen.findByRole('heading', { name: 'Forgot your password?' });
+    await user.type(screen.getByLabelText('Email'), 'Someone@Crumbproof.test');
     await user.click(screen.getByRole('button', { name: 'Send me a link' }));
     expect(await screen.findByText(answer)).toBeInTheDocument();
     expect(calls.find((c) => c.path === '/api/auth/password-reset')?.body).toEqual({ email: 'someone@crumbproof.test' });

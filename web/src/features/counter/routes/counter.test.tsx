@@ -307,10 +307,12 @@ describe('the counter’s views', () => {
     expect(within(views).getByRole('link', { name: 'Look up' })).toHaveAttribute('aria-current', 'page');
     const questions = await within(views).findByRole('link', { name: 'Questions (1 open)' });
     await user.click(questions);
-    expect(router.state.location.pathname).toBe('/counter/questions');
-    expect(within(views).getByRole('link', { name: 'Questions (1 open)' })).toHaveAttribute('aria-current', 'page');
-    await user.click(within(views).getByRole('link', { name: 'On sale' }));
-    expect(router.state.location.pathname).toBe('/counter/on-sale');
+    // Each view is its own route, so the page is drawn again once its route has loaded.
+    await waitFor(() => expect(router.state.location.pathname).toBe('/counter/questions'));
+    const shown = () => screen.getByRole('navigation', { name: 'Counter views' });
+    await waitFor(() => expect(within(shown()).getByRole('link', { name: 'Questions (1 open)' })).toHaveAttribute('aria-current', 'page'));
+    await user.click(within(shown()).getByRole('link', { name: 'On sale' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/counter/on-sale'));
 
     const chart = screen.getByRole('link', { name: 'Print the allergen chart' });
     expect(chart).toHaveAttribute('href', '/labels?template=chart');

@@ -1,5 +1,5 @@
 import type { ReviewsDue } from '@crumbproof/shared';
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { mockApi, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
@@ -49,6 +49,6 @@ describe('Today', () => {
     const { router } = renderApp('/');
     const nav = await screen.findByRole('navigation', { name: /main/i });
     expect(within(nav).getByRole('link', { name: 'Today' })).toHaveAttribute('href', '/today');
-    expect(router.state.location.pathname).toBe('/ingredients');
+    await waitFor(() => expect(router.state.location.pathname).toBe('/ingredients'));
   });
 });
