@@ -69,6 +69,22 @@ export type KitchenWrittenListener = (written: KitchenWritten) => void;
 /** As KitchenWrittenListener, awaited before the write answers (the approvals' mail); it must not throw. */
 export type KitchenSavedListener = (written: KitchenWritten) => Promise<void>;
 
+/**
+ * A kitchen read once is shared by every request until it changes, so nobody may change it in
+ * place: frozen, a change throws instead of reaching another request.
+ */
+function freezeState(state: KitchenState): KitchenState {
+  deepFreeze(state.book);
+  deepFreeze(state.site);
+  return state;
+}
+
+function deepFreeze(value: unknown): void {
+  if (value === null || typeof value !== 'object' || Object.isFrozen(value)) return;
+  Object.freeze(value);
+  for (const v of Object.values(value)) deepFreeze(v);
+}
+
 const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
   const { id: _id, ...body } = item;
   return body;
@@ -83,6 +99,8 @@ export class BooksService {
   private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
   private readonly kitchenWrittenListeners: KitchenWrittenListener[] = [];
   private readonly kitchenSavedListeners: KitchenSavedListener[] = [];
+  /** The kitchen last read outside a write, under the site row's versions it was read at. */
+  private lastRead: { key: string; state: Promise<KitchenState> } | null = null;
 
   constructor(
     private readonly kitchen: KitchenService,
@@ -129,7 +147,22 @@ export class BooksService {
 
   /** The whole kitchen as it stands now: the recipe book with the current revision of every item. */
   async state(t?: Transaction): Promise<KitchenState> {
-    return this.read(await this.kitchen.current(t), t);
+    const site = await this.kitchen.current(t);
+    // Inside a write, always as the transaction sees it.
+    if (t) return this.read(site, t);
+    // Outside one, the copy read last serves while the site row's versions are those it was read
+    // at: every write raises one of them (SiteRepository.lock, .update) in its own transaction, on
+    // any API instance, so one small read of the site row tells whether the copy still stands.
+    // The items are read after the site row, so a copy is never older than its key.
+    const key = `${site.id}:${site.version}:${site.bookVersion}`;
+    if (this.lastRead?.key !== key) {
+      const state = this.read(site).then(freezeState);
+      this.lastRead = { key, state };
+      state.catch(() => {
+        if (this.lastRead?.state === state) this.lastRead = null;
+      });
+    }
+    return this.lastRead.state;
   }
 
   private async read(site: SiteRow, t?: Transaction): Promise<KitchenState> {

@@ -20,4 +20,8 @@ export class SiteModel extends Model {
 
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 1 })
   version: number;
+
+  /** Raised by every write under the kitchen's lock (migration 0013). */
+  @Column({ type: DataType.BIGINT, allowNull: false, defaultValue: 0 })
+  bookVersion: number;
 }

@@ -14,6 +14,11 @@ export interface SiteRow {
   measures: MeasureSystem | null;
   handles: Handling[];
   version: number;
+  /**
+   * Raised by every write under the kitchen's lock: with `version`, it names one state of the
+   * kitchen's items, specifications and approvals (see BooksService.state).
+   */
+  bookVersion: number;
 }
 
 export type SiteSettings = Pick<SiteRow, 'name' | 'address' | 'regime' | 'measures' | 'handles'>;
@@ -27,6 +32,7 @@ function toRow(m: SiteModel): SiteRow {
     measures: m.measures,
     handles: parseJson(m.handles),
     version: m.version,
+    bookVersion: Number(m.bookVersion),
   };
 }
 
@@ -40,9 +46,14 @@ export class SiteRepository {
     return row ? toRow(row) : null;
   }
 
-  /** Locks the kitchen's row until the transaction ends, so kitchen writes happen one at a time. */
+  /**
+   * Locks the kitchen's row until the transaction ends, so kitchen writes happen one at a time,
+   * and raises its book version: a write that commits changes the version every reader compares,
+   * and one that is rolled back takes its raise with it.
+   */
   async lock(t: Transaction): Promise<void> {
-    await this.sites.findOne({ order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
+    const first = await this.sites.findOne({ attributes: ['id'], order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
+    if (first) await this.sites.increment('bookVersion', { by: 1, where: { id: first.id }, transaction: t });
   }
 
   async create(settings: SiteSettings, t?: Transaction): Promise<SiteRow> {
