@@ -46,6 +46,12 @@ describe('a contact line without a weight, in Chromium', () => {
     // The line has no quantity box once it is a contact line, and says why.
     await page.locator(`[data-line="${n}"]`).getByText('No weight: brings its allergens only').waitFor();
     expect(await page.getByLabel(`Quantity for line ${n}`).count()).toBe(0);
+    // Its words are shown whole, beside the role and never under it.
+    const words = page.locator(`[data-line="${n}"]`).getByText('No weight: brings its allergens only');
+    const role = page.getByLabel(`Role for line ${n}`);
+    const [wordsBox, roleBox] = [await words.boundingBox(), await role.boundingBox()];
+    expect(await words.evaluate((el) => el.scrollWidth <= el.clientWidth + 1)).toBe(true);
+    expect(wordsBox!.x + wordsBox!.width).toBeLessThanOrEqual(roleBox!.x);
     const live = page.getByRole('region', { name: 'Live declaration' });
     await live.getByText(/From contact with Plain wheat flour/).waitFor();
     await screenshot(page, 'recipe-editor-contact-line-1280');
