@@ -27,11 +27,7 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
   let counter: string;
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    [manager, chef, counter] = [
-      await t.signIn('manager@example.com'),
-      await t.signIn('chef@example.com'),
-      await t.signIn('counter@example.com'),
-    ];
+    ({ manager, chef, counter } = await t.signInDemo());
     const { site } = (await req('GET', '/api/book', manager)).json<Book>();
     // A three-level tree: the spread in a base cream, the cream in a filling, the filling in a
     // slice; the tart takes the base cream directly; the bun uses none of it.
@@ -115,8 +111,7 @@ describe('approvals of products’ declarations (real MariaDB)', () => {
   });
   afterAll(() => t.close());
 
-  const req = (method: 'GET' | 'POST' | 'PUT', url: string, cookie: string, payload?: unknown) =>
-    t.app.inject({ method, url, headers: { cookie }, ...(payload !== undefined ? { payload: payload as object } : {}) });
+  const req: TestApp['req'] = (...args) => t.req(...args);
   const pending = async (cookie = manager) => {
     const res = await req('GET', '/api/approvals', cookie);
     expect(res.statusCode).toBe(200);

@@ -12,8 +12,6 @@ import { adminQuery, startTestApp, type TestApp } from './support/test-app';
  * none for a refused one, sign-ins and refused access, the manager's search, export and recall.
  */
 
-type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-
 interface AuditRow {
   id: string;
   actor_id: number | null;
@@ -41,13 +39,7 @@ let counter: string;
 /** A session of the chef's that the sign-out case ends. */
 let leaving: string;
 
-const send = (method: Method, url: string, cookie: string | undefined, payload?: unknown) =>
-  t.app.inject({
-    method,
-    url,
-    headers: cookie ? { cookie } : {},
-    ...(payload !== undefined ? { payload: payload as Record<string, unknown> } : {}),
-  });
+const send: TestApp['req'] = (...args) => t.req(...args);
 
 /** The revision an editor would load and name as the base of its save. */
 const baseOf = async (kind: 'ingredients' | 'recipes', code: string) =>
@@ -78,9 +70,7 @@ const ROLE_OF = { manager: 'manager', chef: 'pastry-chef', counter: 'front-of-ho
 
 beforeAll(async () => {
   t = await startTestApp({ seed: true });
-  manager = await t.signIn('manager@example.com');
-  chef = await t.signIn('chef@example.com');
-  counter = await t.signIn('counter@example.com');
+  ({ manager, chef, counter } = await t.signInDemo());
   leaving = await t.signIn('chef@example.com');
 });
 afterAll(() => t.close());

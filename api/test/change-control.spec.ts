@@ -1,10 +1,9 @@
 import type { ParsedMail } from 'mailparser';
 import type { ApprovalsView, AuditPage, Book, BookRecipe, CounterProductsView, LabelRun, ReviewsDue, StaleLabel } from '@crumbproof/shared';
-import type { Clock as ClockType } from '../src/common/clock';
-import type { MailSender as MailSenderType } from '../src/mail/mail-sender.service';
+import type { Clock } from '../src/common/clock';
 import { fixture, multipart } from './fixtures/forms';
 import { startFakeSmtp, type FakeSmtp } from './support/fake-smtp';
-import type { TestApp } from './support/test-app';
+import { startTestApp, type TestApp } from './support/test-app';
 
 /**
  * Change control as one kitchen lives it, on the real MariaDB with a mail server in this process:
@@ -18,8 +17,7 @@ import type { TestApp } from './support/test-app';
 const DAY = 24 * 60 * 60_000;
 let smtp: FakeSmtp;
 let t: TestApp;
-let clock: ClockType;
-let sender: MailSenderType;
+let clock: Clock;
 let manager: string;
 let chef: string;
 let counter: string;
@@ -28,24 +26,9 @@ let startedAt: string;
 
 beforeAll(async () => {
   smtp = await startFakeSmtp();
-  // The configuration is read when the app's modules load, so they load after these are set.
-  Object.assign(process.env, {
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(smtp.port),
-    MAIL_FROM: 'kitchen-mail@bakehouse.example',
-    MAIL_POLL_SECONDS: '3600',
-  });
-  const { startTestApp } = await import('./support/test-app');
-  const { Clock } = await import('../src/common/clock');
-  const { MailSender } = await import('../src/mail/mail-sender.service');
-  t = await startTestApp({ seed: true });
-  clock = t.app.get(Clock);
-  sender = t.app.get(MailSender);
-  [manager, chef, counter] = [
-    await t.signIn('manager@example.com'),
-    await t.signIn('chef@example.com'),
-    await t.signIn('counter@example.com'),
-  ];
+  t = await startTestApp({ seed: true, mail: smtp });
+  clock = t.clock;
+  ({ manager, chef, counter } = await t.signInDemo());
   startedAt = new Date().toISOString();
 });
 afterAll(async () => {
@@ -53,13 +36,11 @@ afterAll(async () => {
   await smtp?.close();
 });
 
-const req = (method: 'GET' | 'POST' | 'PUT', url: string, cookie: string, payload?: unknown) =>
-  t.app.inject({ method, url, headers: { cookie }, ...(payload === undefined ? {} : { payload: payload as object }) });
+const req: TestApp['req'] = (...args) => t.req(...args);
 
 /** Sends what is due now and waits until the sender is done, then the mails that reached the server. */
 async function delivered(match: (m: ParsedMail) => boolean): Promise<ParsedMail[]> {
-  sender.kick();
-  await sender.whenIdle();
+  await t.sendDueMail();
   return smtp.mails.filter(match);
 }
 const to = (m: ParsedMail) => (Array.isArray(m.to) ? m.to : m.to ? [m.to] : []).flatMap((a) => a.value.map((v) => v.address ?? '')).sort();

@@ -62,18 +62,13 @@ describe('the counter (real MariaDB)', () => {
   let port: number;
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    [manager, chef, counter] = [
-      await t.signIn('manager@example.com'),
-      await t.signIn('chef@example.com'),
-      await t.signIn('counter@example.com'),
-    ];
+    ({ manager, chef, counter } = await t.signInDemo());
     await t.app.listen(0, '127.0.0.1');
     port = (t.app.getHttpServer().address() as AddressInfo).port;
   });
   afterAll(() => t.close());
 
-  const req = (method: 'GET' | 'POST' | 'PUT' | 'PATCH', url: string, cookie: string, payload?: unknown) =>
-    t.app.inject({ method, url, headers: { cookie }, ...(payload !== undefined ? { payload: payload as object } : {}) });
+  const req: TestApp['req'] = (...args) => t.req(...args);
   const book = async () => (await req('GET', '/api/book', manager)).json<Book>();
   const counterTables = async () => {
     const all = await tableChecksums(t.sequelize);

@@ -13,14 +13,11 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
   let counter: string;
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    chef = await t.signIn('chef@example.com');
-    manager = await t.signIn('manager@example.com');
-    counter = await t.signIn('counter@example.com');
+    ({ manager, chef, counter } = await t.signInDemo());
   });
   afterAll(() => t.close());
 
-  const req = (method: 'GET' | 'POST' | 'PUT', url: string, cookie: string, payload?: unknown) =>
-    t.app.inject({ method, url, headers: { cookie }, ...(payload !== undefined ? { payload: payload as object } : {}) });
+  const req: TestApp['req'] = (...args) => t.req(...args);
   const count = async (table: string) =>
     Number((await t.sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM ${table}`, { type: QueryTypes.SELECT }))[0].n);
 

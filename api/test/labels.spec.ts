@@ -20,11 +20,7 @@ describe('label runs and the print log (real MariaDB)', () => {
   let counter: string;
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    [manager, chef, counter] = [
-      await t.signIn('manager@example.com'),
-      await t.signIn('chef@example.com'),
-      await t.signIn('counter@example.com'),
-    ];
+    ({ manager, chef, counter } = await t.signInDemo());
     const site = (await req('GET', '/api/book', manager)).json<Book>().site;
     // A product that claims to be vegan while it holds butter: its declaration has an error.
     const imported = await req('POST', '/api/book/import', manager, {
@@ -60,8 +56,7 @@ describe('label runs and the print log (real MariaDB)', () => {
   });
   afterAll(() => t.close());
 
-  const req = (method: 'GET' | 'POST' | 'PUT', url: string, cookie: string, payload?: unknown) =>
-    t.app.inject({ method, url, headers: { cookie }, ...(payload !== undefined ? { payload: payload as object } : {}) });
+  const req: TestApp['req'] = (...args) => t.req(...args);
   const print = async (cookie: string, body: Record<string, unknown>) => {
     const res = await req('POST', '/api/labels/runs', cookie, body);
     expect({ status: res.statusCode, body: res.statusCode === 201 ? 'printed' : res.json() }).toEqual({ status: 201, body: 'printed' });

@@ -1,10 +1,10 @@
 import type { ParsedMail } from 'mailparser';
 import { QueryTypes } from 'sequelize';
-import type { Clock as ClockType } from '../src/common/clock';
-import type { MailSender as MailSenderType } from '../src/mail/mail-sender.service';
-import type { MailService as MailServiceType } from '../src/mail/mail.service';
+import type { Clock } from '../src/common/clock';
+import { MailSender } from '../src/mail/mail-sender.service';
+import { MailService } from '../src/mail/mail.service';
 import { startFakeSmtp, type FakeSmtp } from './support/fake-smtp';
-import type { TestApp } from './support/test-app';
+import { startTestApp, type TestApp } from './support/test-app';
 
 /**
  * The kitchen's mail on the real MariaDB and a mail server in this process: the outbox is
@@ -15,28 +15,16 @@ import type { TestApp } from './support/test-app';
 let smtp: FakeSmtp;
 let t: TestApp;
 let manager: string;
-let clock: ClockType;
-let sender: MailSenderType;
-let mail: MailServiceType;
+let clock: Clock;
+let sender: MailSender;
+let mail: MailService;
 
 const KITCHEN = 'Wrenfield Lane Bakehouse';
 
 beforeAll(async () => {
   smtp = await startFakeSmtp();
-  // The configuration is read when the app's modules load, so they load after these are set.
-  Object.assign(process.env, {
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(smtp.port),
-    MAIL_FROM: 'kitchen-mail@bakehouse.example',
-    MAIL_POLL_SECONDS: '3600',
-    SIGN_IN_LIMIT: '8',
-  });
-  const { startTestApp } = await import('./support/test-app');
-  const { Clock } = await import('../src/common/clock');
-  const { MailSender } = await import('../src/mail/mail-sender.service');
-  const { MailService } = await import('../src/mail/mail.service');
-  t = await startTestApp({ seed: true });
-  clock = t.app.get(Clock);
+  t = await startTestApp({ seed: true, mail: smtp, settings: { SIGN_IN_LIMIT: '8' } });
+  clock = t.clock;
   sender = t.app.get(MailSender);
   mail = t.app.get(MailService);
   manager = await t.signIn('manager@example.com');
@@ -47,14 +35,8 @@ afterAll(async () => {
 });
 afterEach(() => clock.reset());
 
-const post = (url: string, payload: Record<string, unknown>, cookie?: string) =>
-  t.app.inject({ method: 'POST', url, payload, headers: cookie ? { cookie } : {} });
-
-/** Sends what is due now and waits until the sender is done. */
-async function sendDue() {
-  sender.kick();
-  await sender.whenIdle();
-}
+const post = (url: string, payload: Record<string, unknown>, cookie?: string) => t.req('POST', url, cookie, payload);
+const sendDue = () => t.sendDueMail();
 
 async function outboxRow(id: string) {
   const [row] = await t.sequelize.query<{

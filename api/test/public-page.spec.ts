@@ -40,11 +40,7 @@ describe('the public product page (real MariaDB)', () => {
 
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    [manager, chef, counter] = [
-      await t.signIn('manager@example.com'),
-      await t.signIn('chef@example.com'),
-      await t.signIn('counter@example.com'),
-    ];
+    ({ manager, chef, counter } = await t.signInDemo());
     view = (await t.app.inject({ method: 'GET', url: '/api/counter/products', headers: { cookie: counter } })).json();
     expect(view.products.length).toBeGreaterThan(1);
     product = await recipe(view.products[0].id);

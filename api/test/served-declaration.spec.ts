@@ -15,11 +15,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   let site: Book['site'];
   beforeAll(async () => {
     t = await startTestApp({ seed: true });
-    [chef, manager, counter] = [
-      await t.signIn('chef@example.com'),
-      await t.signIn('manager@example.com'),
-      await t.signIn('counter@example.com'),
-    ];
+    ({ manager, chef, counter } = await t.signInDemo());
     site = (await req('GET', '/api/book', chef)).json<Book>().site;
     // Biscuits made of a dough and a plant spread; the QUID names the spread.
     const imported = await req('POST', '/api/book/import', manager, {
@@ -54,8 +50,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   });
   afterAll(() => t.close());
 
-  const req = (method: 'GET' | 'POST' | 'PUT' | 'PATCH', url: string, cookie: string, payload?: unknown) =>
-    t.app.inject({ method, url, headers: { cookie }, ...(payload !== undefined ? { payload: payload as object } : {}) });
+  const req: TestApp['req'] = (...args) => t.req(...args);
   const served = async (code: string, query = '') => {
     const res = await req('GET', `/api/recipes/${code}/declaration${query}`, counter);
     expect(res.statusCode).toBe(200);

@@ -3,19 +3,9 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
+import { pickItem as pick } from './support/recipe-editor';
 
 const FIXTURES = join(new URL('../fixtures', import.meta.url).pathname);
-
-/** Types into a line's picker and chooses the suggestion with that exact name. */
-async function pick(page: Page, label: string, name: string) {
-  const box = page.getByLabel(label, { exact: true });
-  await box.click();
-  await box.fill(name);
-  await page
-    .getByRole('option', { name: new RegExp(`^${name.replace(/[()]/g, '\\$&')}`) })
-    .first()
-    .click();
-}
 
 async function axeViolations(page: Page) {
   const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();

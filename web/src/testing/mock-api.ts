@@ -99,3 +99,19 @@ export function signedInAs(role: Role, extra: ApiHandlers = {}): ApiHandlers {
 export const signedOut: ApiHandlers = {
   'GET /api/me': { status: 401, body: { statusCode: 401, code: 'unauthenticated', message: 'Sign in first.' } },
 };
+
+/** The API's refusal of a body whose fields need attention (400 validation), each message for its field. */
+export function fieldsRefused(fields: Record<string, string>): MockResponse {
+  return {
+    status: 400,
+    body: {
+      statusCode: 400,
+      code: 'validation',
+      message: 'Some fields need attention.',
+      fields: Object.entries(fields).map(([path, message]) => ({ path, message })),
+    },
+  };
+}
+
+/** The API's message for a password on the common-passwords list (`passwordSchema` plus zxcvbn-ts in the API). */
+export const COMMON_PASSWORD = 'This password is on a list of common passwords that are guessed first: choose another.';

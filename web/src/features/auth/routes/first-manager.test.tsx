@@ -1,6 +1,6 @@
 import { screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { mockApi, signedOut } from '@/testing/mock-api';
+import { COMMON_PASSWORD, fieldsRefused, mockApi, signedOut } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 describe('Set the first manager', () => {
@@ -33,15 +33,7 @@ describe('Set the first manager', () => {
   it('shows the API’s field message for a common password, in place', async () => {
     mockApi({
       ...signedOut,
-      'POST /api/auth/first-manager': {
-        status: 400,
-        body: {
-          statusCode: 400,
-          code: 'validation',
-          message: 'Some fields need attention.',
-          fields: [{ path: 'password', message: 'This password is on a list of common passwords that are guessed first: choose another.' }],
-        },
-      },
+      'POST /api/auth/first-manager': fieldsRefused({ password: COMMON_PASSWORD }),
     });
     const { user } = renderApp('/first-manager#token=one-time-token');
     await user.type(await screen.findByLabelText('Your name'), 'Ada Rowe');

@@ -1,6 +1,6 @@
 import { screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { mockApi, signedOut } from '@/testing/mock-api';
+import { COMMON_PASSWORD, fieldsRefused, mockApi, signedOut } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 const usable = {
@@ -45,15 +45,7 @@ describe('Choose your password', () => {
     mockApi({
       ...signedOut,
       'POST /api/auth/account-link': { body: { ...usable, purpose: 'password-reset' } },
-      'POST /api/auth/set-password': {
-        status: 400,
-        body: {
-          statusCode: 400,
-          code: 'validation',
-          message: 'Some fields need attention.',
-          fields: [{ path: 'password', message: 'This password is on a list of common passwords that are guessed first: choose another.' }],
-        },
-      },
+      'POST /api/auth/set-password': fieldsRefused({ password: COMMON_PASSWORD }),
     });
     const { user } = renderApp('/set-password#token=mailed-token');
     await user.type(await screen.findByLabelText('New password'), 'Sunshine2024!');

@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { mockApi, PEOPLE, signedInAs, signedOut } from '@/testing/mock-api';
+import { fieldsRefused, mockApi, PEOPLE, signedInAs, signedOut } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 /** The API before and after a successful sign-in: /api/me answers 401 until then. */
@@ -68,15 +68,7 @@ describe('Sign in', () => {
   it('shows a validation error from the API beside its field', async () => {
     mockApi({
       ...signedOut,
-      'POST /api/auth/sign-in': {
-        status: 400,
-        body: {
-          statusCode: 400,
-          code: 'validation',
-          message: 'Some fields need attention.',
-          fields: [{ path: 'password', message: 'Use at most 200 characters.' }],
-        },
-      },
+      'POST /api/auth/sign-in': fieldsRefused({ password: 'Use at most 200 characters.' }),
     });
     const { user } = renderApp('/sign-in');
 

@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { KITCHEN, mockApi, signedInAs } from '@/testing/mock-api';
+import { fieldsRefused, KITCHEN, mockApi, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 describe('Kitchen settings (manager)', () => {
@@ -39,15 +39,7 @@ describe('Kitchen settings (manager)', () => {
   it('places the API’s refusal beside the field it names, and says nothing was saved', async () => {
     mockApi(
       signedInAs('manager', {
-        'PATCH /api/kitchen': {
-          status: 400,
-          body: {
-            statusCode: 400,
-            code: 'validation',
-            message: 'Some fields need attention.',
-            fields: [{ path: 'name', message: 'Give the kitchen a name.' }],
-          },
-        },
+        'PATCH /api/kitchen': fieldsRefused({ name: 'Give the kitchen a name.' }),
       }),
     );
     const { user } = renderApp('/kitchen');

@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { LABEL_SETTINGS, mockApi, signedInAs } from '@/testing/mock-api';
+import { fieldsRefused, LABEL_SETTINGS, mockApi, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 const SETTINGS = LABEL_SETTINGS;
@@ -65,15 +65,7 @@ describe('Label settings on the kitchen page (manager)', () => {
     mockApi(
       signedInAs('manager', {
         'GET /api/labels/settings': { body: SETTINGS },
-        'PUT /api/labels/settings': {
-          status: 400,
-          body: {
-            statusCode: 400,
-            code: 'validation',
-            message: 'Some fields need attention.',
-            fields: [{ path: 'gs1CompanyPrefix', message: 'The SSCC serials already given out do not fit after this prefix.' }],
-          },
-        },
+        'PUT /api/labels/settings': fieldsRefused({ gs1CompanyPrefix: 'The SSCC serials already given out do not fit after this prefix.' }),
       }),
     );
     const { user } = renderApp('/kitchen');

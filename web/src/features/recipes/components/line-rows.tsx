@@ -144,7 +144,8 @@ export function LineRows({ control, register, lines, errors, apiErrors, lineWarn
                   </Table.Cell>
                   {contact ? (
                     <Table.Cell colSpan={2} pt="3">
-                      <Text id={`recipe-line-${n}-no-weight`} color="fg.muted" textStyle="sm" maxW="11rem">
+                      {/* Wrapped within the quantity and unit columns: the table's cells do not wrap by themselves. */}
+                      <Text id={`recipe-line-${n}-no-weight`} color="fg.muted" textStyle="sm" maxW="11rem" whiteSpace="normal">
                         No weight: brings its allergens only
                       </Text>
                     </Table.Cell>

@@ -105,6 +105,8 @@ describe('Recipe editor', () => {
     // A contact line takes no weight: no quantity box, and words in its place.
     expect(screen.queryByRole('spinbutton', { name: 'Quantity for line 3' })).not.toBeInTheDocument();
     expect(screen.getByText('No weight: brings its allergens only')).toBeInTheDocument();
+    // The words wrap within their columns: the table's cells would otherwise cut them short under the role.
+    expect(getComputedStyle(screen.getByText('No weight: brings its allergens only')).whiteSpace).toBe('normal');
     expect(screen.getByLabelText('Weight after baking (g)')).toHaveValue(900);
     expect(screen.getByLabelText('For sale')).toBeChecked();
     expect(screen.getByLabelText('Portion (g)')).toHaveValue(90);
