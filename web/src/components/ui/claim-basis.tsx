@@ -13,16 +13,20 @@ export function statementOnlyWords(leaf: StatementOnlyLeaf): string {
 
 const ingredients = (n: number) => `${n} ingredient${n === 1 ? '' : 's'}`;
 
-/** What a claim that holds stands on, in one sentence. */
+/** What a claim that holds stands on, in one sentence; the ingredients are named once, by `ClaimBasisLeaves`. */
 export function claimBasisWords(basis: ClaimBasis): string {
   const { checked, statementOnly } = basis;
   if (statementOnly.length === 0)
     return checked === 1
       ? 'The one ingredient is checked against a specification on file.'
       : `All ${ingredients(checked)} checked against a specification on file.`;
-  const names = new Intl.ListFormat('en-GB').format(statementOnly.map(statementOnlyWords));
   const have = statementOnly.length === 1 ? 'has' : 'have';
-  return `${statementOnly.length} of ${ingredients(checked)} ${have} no specification on file or one past its review date, so the claim rests on what the supplier states: ${names}.`;
+  return `${statementOnly.length} of ${ingredients(checked)} ${have} no specification on file or one past its review date, so the claim rests on what the supplier states (named below).`;
+}
+
+/** "Caster sugar (no specification), Butter (specification due for review on 2026-11-28) and …". */
+export function statementOnlyList(basis: ClaimBasis): string {
+  return new Intl.ListFormat('en-GB').format(basis.statementOnly.map(statementOnlyWords));
 }
 
 /**
@@ -64,6 +68,22 @@ export function ClaimBasisLine({ basis }: { basis: ClaimBasis }) {
         <ClaimBasisMark backed={backed} />
       </Box>
       <Text as="span">{claimBasisWords(basis)}</Text>
+    </HStack>
+  );
+}
+
+/**
+ * Once beneath the claims, when any holds on supplier statements: the ingredients it rests on and
+ * why each, so the same names are not repeated beside every claim.
+ */
+export function ClaimBasisLeaves({ basis }: { basis: ClaimBasis }) {
+  if (basis.statementOnly.length === 0) return null;
+  return (
+    <HStack as="p" gap="1.5" align="flex-start" textStyle="sm" m="0" data-testid="claim-basis-leaves">
+      <Box as="span" pt="0.2em">
+        <ClaimBasisMark backed={false} />
+      </Box>
+      <Text as="span">{`Resting on a supplier statement alone: ${statementOnlyList(basis)}.`}</Text>
     </HStack>
   );
 }

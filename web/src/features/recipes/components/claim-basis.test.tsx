@@ -26,7 +26,8 @@ describe('Claims that hold, with what they stand on', () => {
     expect(basis).toHaveTextContent('All 12 ingredients checked against a specification on file.');
     expect(basis.querySelector('[data-basis-mark="sheet"]')).toHaveAttribute('aria-hidden', 'true');
     expect(basis.querySelector('[data-basis-mark="bubble"]')).toBeNull();
-    expect(claims).not.toHaveTextContent(/supplier statements|\bsafe\b/i);
+    expect(within(claims).queryByTestId('claim-basis-leaves')).toBeNull();
+    expect(claims).not.toHaveTextContent(/supplier statement|\bsafe\b/i);
   });
 
   it('says a claim holds on supplier statements, naming each ingredient and why, with the speech-bubble mark', async () => {
@@ -42,7 +43,11 @@ describe('Claims that hold, with what they stand on', () => {
     const vegetarian = within(claims).getByText('Vegetarian: Holds on supplier statements').closest('li')!;
     const basis = within(vegetarian).getByTestId('claim-basis');
     expect(basis).toHaveTextContent(
-      '3 of 12 ingredients have no specification on file or one past its review date, so the claim rests on what the supplier states: Caster sugar (no specification), Butter (specification due for review on 2026-11-28) and Raspberry jam (no specification).',
+      '3 of 12 ingredients have no specification on file or one past its review date, so the claim rests on what the supplier states (named below).',
+    );
+    // The ingredients are named once, beneath every claim, with why each.
+    expect(within(claims).getByTestId('claim-basis-leaves')).toHaveTextContent(
+      'Resting on a supplier statement alone: Caster sugar (no specification), Butter (specification due for review on 2026-11-28) and Raspberry jam (no specification).',
     );
     expect(basis.querySelector('[data-basis-mark="bubble"]')).toHaveAttribute('aria-hidden', 'true');
     expect(basis.querySelector('[data-basis-mark="sheet"]')).toBeNull();

@@ -1,6 +1,6 @@
 import { Box, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { CLAIMS, EXEMPT_FORM_LABELS, SOURCE_LABELS, type Claim, type ClaimBasis, type Declaration } from '@crumbproof/shared';
-import { ClaimBasisLine, HOLDS_ON_STATEMENTS } from '@/components/ui/claim-basis';
+import { ClaimBasisLeaves, ClaimBasisLine, HOLDS_ON_STATEMENTS } from '@/components/ui/claim-basis';
 import { ClaimReasonList } from '@/components/ui/claim-reasons';
 import { ClaimStatusLine } from '@/components/ui/claim-status';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -168,6 +168,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted, cl
             </Box>
           ))}
         </SimpleGrid>
+        {claimBasis && CLAIMS.some((claim) => claims[claim]?.status === 'ok') ? <ClaimBasisLeaves basis={claimBasis} /> : null}
       </Panel>
 
       <Panel title="Ingredients as printed" level={level}>
