@@ -36,4 +36,38 @@ export interface ServedDeclaration extends ProductDeclaration {
   basis: DeclarationBasis;
   /** Present when an ingredient below the product has a specification overdue for review, as of the day it is served. */
   reviewWarnings?: SpecificationReviewWarning[];
+  /**
+   * What a claim that holds stands on, as of the day it is served (worked out then, never kept):
+   * absent only from a declaration kept before it was served this way (an approval's copy).
+   */
+  claimBasis?: ClaimBasis;
+}
+
+/**
+ * A leaf ingredient whose recorded allergen and dietary facts rest on the supplier's statement
+ * alone: no specification on file, or the newest one past its review-by date.
+ */
+export type StatementOnlyLeaf = { id: string; name: string } & (
+  | { why: 'no-specification' }
+  | {
+      why: 'review-overdue';
+      /** The newest specification's review-by date (YYYY-MM-DD), before the day served. */
+      reviewBy: string;
+    }
+);
+
+/**
+ * The basis of the product's claims: every claim is checked against the same leaves, so one basis
+ * stands behind each claim that holds (a claim that fails or is not verified says its own reasons).
+ */
+export interface ClaimBasis {
+  /** Distinct leaf ingredients below the product, contact lines included: what each claim was checked against. */
+  checked: number;
+  /** The leaves of those resting on a supplier statement only, in the order they are reached. */
+  statementOnly: StatementOnlyLeaf[];
+}
+
+/** POST /api/declarations/preview: the recipe as edited, declared, with the basis its claims would have today. */
+export interface PreviewDeclaration extends ProductDeclaration {
+  claimBasis: ClaimBasis;
 }

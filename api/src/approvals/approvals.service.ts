@@ -17,7 +17,7 @@ import { BooksService } from '../books/books.service';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
-import { DeclarationsService } from '../declarations/declarations.service';
+import { DeclarationsService, keptCopy } from '../declarations/declarations.service';
 import { SiteRepository } from '../kitchen/site.repository';
 import { closureItems } from '../rules/core/book-graph';
 import { causesFor, DECLARATION_WRITES } from './approval-causes';
@@ -134,7 +134,7 @@ export class ApprovalsService {
             regime: state.site.regime,
             declarationId: s.current.declarationId,
             inputHash: s.current.inputHash,
-            body: s.current.served,
+            body: keptCopy(s.current.served),
             approvedBy: user.id,
             approvedByName: user.name,
             approvedByRole: user.role,

@@ -6,6 +6,7 @@ import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
 import { AppError } from '../common/app-error';
 import { ApprovalStatus, counterView } from '../approvals/approval-status';
+import { DeclarationsService } from '../declarations/declarations.service';
 import { today } from '../ingredients/specifications/specification.dto';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { RulesService } from '../rules/rules.service';
@@ -20,6 +21,7 @@ export class CounterService {
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
     private readonly approvals: ApprovalStatus,
+    private readonly declarations: DeclarationsService,
     private readonly days: CounterDaysRepository,
     private readonly events: CounterEvents,
     private readonly rules: RulesService,
@@ -40,12 +42,20 @@ export class CounterService {
     const state = await this.books.state();
     const [statuses, day] = await Promise.all([this.approvals.of(state), this.days.find(state.site.id, date)]);
     const onSale = new Set(day?.products ?? []);
+    const views = statuses.map(counterView);
+    // An approved copy served in place of the current declaration gets its claims' basis as of today.
+    const copies = views.flatMap((v, i) => (v.declaration === statuses[i].current.served ? [] : [i]));
+    const checks = await this.declarations.servedChecks(
+      copies.map((i) => views[i].declaration.basis.items),
+      state.heads,
+    );
+    copies.forEach((i, n) => (views[i] = { ...views[i], declaration: { ...views[i].declaration, claimBasis: checks[n].claimBasis } }));
     return {
       computedAt,
       date,
       regime: state.site.regime,
       rules: this.rules.counterRules(state.site.regime),
-      products: statuses.map((s) => ({ id: s.product.id, name: s.product.name, onSale: onSale.has(s.product.id), ...counterView(s) })),
+      products: statuses.map((s, i) => ({ id: s.product.id, name: s.product.name, onSale: onSale.has(s.product.id), ...views[i] })),
     };
   }
 

@@ -3,8 +3,10 @@ import { Injectable, type OnModuleInit } from '@nestjs/common';
 import {
   bookRecipeSchema,
   type Book,
+  type ClaimBasis,
   type Declaration,
   type DeclarationBasisItem,
+  type PreviewDeclaration,
   type ProductDeclaration,
   type Regime,
   type ServedDeclaration,
@@ -16,7 +18,7 @@ import { KitchenService } from '../kitchen/kitchen.service';
 import { closureItems, closureOf } from '../rules/core/book-graph';
 import { canonicalJson } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
-import { SpecificationsService } from '../ingredients/specifications/specifications.service';
+import { SpecificationsService, claimBasisOf, overdueWarnings } from '../ingredients/specifications/specifications.service';
 import { DeclarationsRepository } from './declarations.repository';
 
 /** A served declaration with the kept row it comes from and the hash of its inputs. */
@@ -26,6 +28,21 @@ export interface KeptServed {
   inputHash: string;
   /** The product's row in the recipes table. */
   recipeRowId: number;
+}
+
+/**
+ * A served declaration as a record keeps it (an approval's copy, a print log's source): without
+ * the claims' basis, which only the day it is served can say.
+ */
+export function keptCopy(served: ServedDeclaration): ServedDeclaration {
+  const { claimBasis: _today, ...kept } = served;
+  return kept;
+}
+
+/** What DeclarationsService.servedChecks adds to a declaration as it is served. */
+export interface ServedChecks {
+  reviewWarnings?: ServedDeclaration['reviewWarnings'];
+  claimBasis: ClaimBasis;
 }
 
 /**
@@ -114,17 +131,37 @@ export class DeclarationsService implements OnModuleInit {
         served: { ...kept.body, basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version } },
       });
     }
-    // Worked out as the declaration is served, from today's date: a kept declaration never freezes it.
-    const below = new Map(
-      inputs.flatMap(({ items }) =>
-        items.filter((i) => i.kind === 'ingredient').map((i) => [i.id, { rowId: heads.get(i.id)!.rowId, id: i.id, name: i.name }] as const),
-      ),
+    const checks = await this.servedChecks(
+      out.map((k) => k.served.basis.items),
+      heads,
     );
-    const warnings = await this.specifications.overdueWarnings([...below.values()]);
-    if (warnings.size === 0) return out;
-    return out.map((kept, n) => {
-      const found = inputs[n].items.flatMap((i) => (i.kind === 'ingredient' && warnings.has(i.id) ? [warnings.get(i.id)!] : []));
-      return found.length > 0 ? { ...kept, served: { ...kept.served, reviewWarnings: found } } : kept;
+    return out.map((kept, n) => ({ ...kept, served: { ...kept.served, ...checks[n] } }));
+  }
+
+  /**
+   * What is worked out as declarations are served, from today's date, so a kept declaration never
+   * freezes it: the review warnings of ingredients whose newest specification is overdue, and the
+   * basis of the claims (ClaimBasis). Read from each declaration's items (its basis items), so an
+   * approved copy gets today's answer for the leaves it was computed from; one query for all.
+   */
+  async servedChecks(
+    itemsOf: readonly (readonly Omit<DeclarationBasisItem, 'revision'>[])[],
+    heads: KitchenState['heads'],
+  ): Promise<ServedChecks[]> {
+    const leavesOf = itemsOf.map((items) =>
+      items
+        .filter((i) => i.kind === 'ingredient')
+        .map((i) => {
+          const head = heads.get(i.id);
+          return { rowId: head?.kind === 'ingredient' ? head.rowId : null, id: i.id, name: i.name };
+        }),
+    );
+    const known = leavesOf.flat().flatMap((l) => (l.rowId === null ? [] : [{ ...l, rowId: l.rowId }]));
+    const standing = await this.specifications.standing(known);
+    const warnings = overdueWarnings(known, standing);
+    return leavesOf.map((leaves) => {
+      const found = leaves.flatMap((l) => (warnings.has(l.id) ? [warnings.get(l.id)!] : []));
+      return { ...(found.length > 0 ? { reviewWarnings: found } : {}), claimBasis: claimBasisOf(leaves, standing) };
     });
   }
 
@@ -133,14 +170,21 @@ export class DeclarationsService implements OnModuleInit {
     return (await this.kept.find(recipeRowId, regime, inputHash))?.body ?? null;
   }
 
-  /** Declares a recipe as edited but not saved: the live panel beside the editor. Nothing is stored. */
-  async preview(input: unknown, regime?: Regime): Promise<ProductDeclaration> {
+  /**
+   * Declares a recipe as edited but not saved: the live panel beside the editor, with the basis
+   * its claims would have today. Nothing is stored.
+   */
+  async preview(input: unknown, regime?: Regime): Promise<PreviewDeclaration> {
     const parsed = bookRecipeSchema.safeParse(input);
     if (!parsed.success) throw validationError(parsed.error);
-    const book = await this.books.exportBook();
+    const { book, heads } = await this.books.state();
     const merged: Book = { ...book, recipes: [...book.recipes.filter((r) => r.id !== parsed.data.id), parsed.data] };
     this.books.assertDeclarable(merged);
-    return this.rules.declare(closureOf(merged, parsed.data.id), parsed.data.id, regime ?? book.site.regime);
+    const declaration = this.rules.declare(closureOf(merged, parsed.data.id), parsed.data.id, regime ?? book.site.regime);
+    const names = new Map(merged.ingredients.map((i) => [i.id, i.name]));
+    const items = closureItems(merged, parsed.data.id).map(({ id, kind }) => ({ id, kind, name: names.get(id) ?? id }));
+    const [{ claimBasis }] = await this.servedChecks([items], heads);
+    return { ...declaration, claimBasis };
   }
 
   /** The first declaration kept for each revision of a recipe (by its row id), in the kitchen's regime. */

@@ -31,6 +31,7 @@ import type { LabelRunQuery } from './label-run-query';
 import { LabelRunsRepository, type LabelRunRow, type RunLine } from './label-runs.repository';
 import { LabelSettingsRepository } from './label-settings.repository';
 import { PublicPageService } from '../public-page/public-page.service';
+import { keptCopy } from '../declarations/declarations.service';
 
 /** What an item of a run was rendered from, kept with the run so that the same label can be printed again. */
 export interface PrintSource {
@@ -329,7 +330,7 @@ export class LabelsService {
     current.forEach((c, k) =>
       planned.push({
         ...c,
-        source: { declaration: statuses[k].current.served, sale: c.product.sale! },
+        source: { declaration: keptCopy(statuses[k].current.served), sale: c.product.sale! },
         inputHash: statuses[k].current.inputHash,
         approvalId: statuses[k].approval!.id,
       }),

@@ -14,7 +14,9 @@ import { IngredientsRepository } from '../ingredients.repository';
 import { Clock } from '../../common/clock';
 import { ACCEPTED_SPECIFICATION_TYPES, addDays, defaultReviewBy, specificationFieldsSchema, today } from './specification.dto';
 import type {
+  ClaimBasis,
   ReviewsDue,
+  StatementOnlyLeaf,
   SpecificationReview,
   SpecificationReviewWarning,
   SpecificationStatus,
@@ -195,27 +197,55 @@ export class SpecificationsService {
   }
 
   /**
-   * For the ingredients with these head ids, a warning for each whose newest specification is
-   * overdue for review today (computed as it is served, never kept).
+   * For the ingredients with these head ids, in one query: the newest specification's review-by
+   * date of each that has one, and today's date on the kitchen's calendar, to compare it with.
+   * Worked out as it is asked, never kept.
    */
-  async overdueWarnings(
-    ingredients: readonly { rowId: number; id: string; name: string }[],
-  ): Promise<Map<string, SpecificationReviewWarning>> {
-    const latest = newest(await this.repo.listFor(ingredients.map((i) => i.rowId)));
-    const day = this.today();
-    const warnings = new Map<string, SpecificationReviewWarning>();
-    for (const i of ingredients) {
-      const r = latest.get(i.rowId);
-      if (!r || r.reviewBy >= day) continue;
-      warnings.set(i.id, {
-        ingredient: i.id,
-        name: i.name,
-        reviewBy: r.reviewBy,
-        message: `The supplier specification of ${i.name} was due for review on ${r.reviewBy}; this declaration uses what it recorded. Check it against the supplier's current specification.`,
-      });
-    }
-    return warnings;
+  async standing(ingredients: readonly { rowId: number }[]): Promise<{ today: string; reviewBy: Map<number, string> }> {
+    const latest = newest(await this.repo.listFor([...new Set(ingredients.map((i) => i.rowId))]));
+    return { today: this.today(), reviewBy: new Map([...latest].map(([rowId, r]) => [rowId, r.reviewBy])) };
   }
+}
+
+/** What `standing` answers: today's date and each ingredient's newest review-by date (by head id). */
+export type SpecificationStanding = Awaited<ReturnType<SpecificationsService['standing']>>;
+
+/** A warning for each ingredient whose newest specification's review-by date is before today. */
+export function overdueWarnings(
+  ingredients: readonly { rowId: number; id: string; name: string }[],
+  { today: day, reviewBy }: SpecificationStanding,
+): Map<string, SpecificationReviewWarning> {
+  const warnings = new Map<string, SpecificationReviewWarning>();
+  for (const i of ingredients) {
+    const due = reviewBy.get(i.rowId);
+    if (due === undefined || due >= day) continue;
+    warnings.set(i.id, {
+      ingredient: i.id,
+      name: i.name,
+      reviewBy: due,
+      message: `The supplier specification of ${i.name} was due for review on ${due}; this declaration uses what it recorded. Check it against the supplier's current specification.`,
+    });
+  }
+  return warnings;
+}
+
+/**
+ * What a product's claims stand on, from its leaf ingredients (distinct, in the order reached):
+ * how many were checked, and which rest on a supplier statement alone because no specification is
+ * on file or the newest is past its review-by date today. A leaf that is no longer an ingredient
+ * of the kitchen (an approved declaration's copy) has no specification on file.
+ */
+export function claimBasisOf(
+  leaves: readonly { rowId: number | null; id: string; name: string }[],
+  { today: day, reviewBy }: SpecificationStanding,
+): ClaimBasis {
+  const distinct = [...new Map(leaves.map((l) => [l.id, l])).values()];
+  const statementOnly = distinct.flatMap((l): StatementOnlyLeaf[] => {
+    const due = l.rowId === null ? undefined : reviewBy.get(l.rowId);
+    if (due === undefined) return [{ id: l.id, name: l.name, why: 'no-specification' }];
+    return due < day ? [{ id: l.id, name: l.name, why: 'review-overdue', reviewBy: due }] : [];
+  });
+  return { checked: distinct.length, statementOnly };
 }
 
 /** How far ahead the reviews-due list and its daily mail look. */

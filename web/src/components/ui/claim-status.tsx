@@ -52,14 +52,16 @@ export function ClaimMark({ status }: { status: ClaimStatus }) {
 interface ClaimStatusLineProps {
   claim: Claim;
   status: ClaimStatus;
+  /** Said in place of the status words, e.g. "Holds on supplier statements". */
+  words?: string;
 }
 
 /** "Vegan: Fails", as one run of text with the mark before it. */
-export function ClaimStatusLine({ claim, status }: ClaimStatusLineProps) {
+export function ClaimStatusLine({ claim, status, words }: ClaimStatusLineProps) {
   return (
     <HStack as="span" display="inline-flex" gap="1.5" align="center">
       <ClaimMark status={status} />
-      <Text as="span" fontWeight="bold">{`${CLAIM_LABELS[claim]}: ${CLAIM_STATUS_WORDS[status]}`}</Text>
+      <Text as="span" fontWeight="bold">{`${CLAIM_LABELS[claim]}: ${words ?? CLAIM_STATUS_WORDS[status]}`}</Text>
     </HStack>
   );
 }

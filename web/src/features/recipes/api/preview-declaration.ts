@@ -1,4 +1,4 @@
-import type { BookRecipe, ProductDeclaration, Regime } from '@crumbproof/shared';
+import type { BookRecipe, PreviewDeclaration, Regime } from '@crumbproof/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { queryKeys } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
@@ -8,9 +8,9 @@ export async function previewDeclaration(
   recipe: BookRecipe,
   regime: Regime | undefined,
   { signal }: { signal?: AbortSignal } = {},
-): Promise<ProductDeclaration> {
+): Promise<PreviewDeclaration> {
   const query = regime ? `?regime=${regime}` : '';
-  return apiClient.post<ProductDeclaration>(`/declarations/preview${query}`, recipe, { signal });
+  return apiClient.post<PreviewDeclaration>(`/declarations/preview${query}`, recipe, { signal });
 }
 
 /**

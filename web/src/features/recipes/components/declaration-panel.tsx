@@ -1,5 +1,6 @@
 import { Box, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { CLAIMS, EXEMPT_FORM_LABELS, SOURCE_LABELS, type Claim, type Declaration } from '@crumbproof/shared';
+import { CLAIMS, EXEMPT_FORM_LABELS, SOURCE_LABELS, type Claim, type ClaimBasis, type Declaration } from '@crumbproof/shared';
+import { ClaimBasisLeaves, ClaimBasisLine, HOLDS_ON_STATEMENTS } from '@/components/ui/claim-basis';
 import { ClaimReasonList } from '@/components/ui/claim-reasons';
 import { ClaimStatusLine } from '@/components/ui/claim-status';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -24,6 +25,8 @@ interface DeclarationPanelProps {
    * sub-recipe.
    */
   wanted?: readonly Claim[];
+  /** What a claim that holds stands on, as of today (served with the declaration, never kept). */
+  claimBasis?: ClaimBasis;
 }
 
 /** The heading of the engine's claim results, worded apart from "Claims you want to make". */
@@ -49,7 +52,7 @@ function contactWords(paths: readonly string[][], lookup: ItemLookup): string {
 }
 
 /** A product's declaration as Crumbproof computed it, in the order a label reads. */
-export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted }: DeclarationPanelProps) {
+export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted, claimBasis }: DeclarationPanelProps) {
   const { contains, mayContain, unknown, exempt, claims, warnings, errors } = declaration;
   return (
     <Stack gap="4">
@@ -150,7 +153,12 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted }: 
         <SimpleGrid as="ul" listStyleType="none" m="0" p="0" minChildWidth="min(100%, 26rem)" columnGap="6" rowGap="3" alignItems="start">
           {CLAIMS.filter((claim) => claims[claim]).map((claim) => (
             <Box as="li" key={claim} data-claim={claim}>
-              <ClaimStatusLine claim={claim} status={claims[claim].status} />
+              <ClaimStatusLine
+                claim={claim}
+                status={claims[claim].status}
+                words={claims[claim].status === 'ok' && claimBasis && claimBasis.statementOnly.length > 0 ? HOLDS_ON_STATEMENTS : undefined}
+              />
+              {claims[claim].status === 'ok' && claimBasis ? <ClaimBasisLine basis={claimBasis} /> : null}
               {wanted ? (
                 <Text color="fg.muted" textStyle="sm" data-testid="claim-wanted">
                   {wanted.includes(claim) ? 'You want to make this claim.' : 'Not among the claims you want to make.'}
@@ -160,6 +168,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted }: 
             </Box>
           ))}
         </SimpleGrid>
+        {claimBasis && CLAIMS.some((claim) => claims[claim]?.status === 'ok') ? <ClaimBasisLeaves basis={claimBasis} /> : null}
       </Panel>
 
       <Panel title="Ingredients as printed" level={level}>

@@ -1,5 +1,5 @@
 import { Alert, Badge, Box, Heading, Stack, Text } from '@chakra-ui/react';
-import type { Claim, ProductDeclaration } from '@crumbproof/shared';
+import type { Claim, PreviewDeclaration } from '@crumbproof/shared';
 import { useId } from 'react';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import type { ItemLookup } from '@/components/ui/layer-path';
@@ -9,7 +9,7 @@ import { NutritionPanel } from './nutrition-panel';
 import { wantedClaimNotices } from './wanted-claims';
 
 interface LiveDeclarationProps {
-  declaration: ProductDeclaration | undefined;
+  declaration: PreviewDeclaration | undefined;
   /** The preview request is running (typing paused, answer not back yet). */
   computing: boolean;
   /** The form has changes that are not saved. */
@@ -82,7 +82,13 @@ export function LiveDeclaration({
         {declaration ? (
           <Box opacity={computing || error || incomplete ? 0.55 : 1} aria-busy={computing || undefined}>
             <Stack gap="4">
-              <DeclarationPanel declaration={declaration} lookup={lookup} level="h3" wanted={forSale ? wantedClaims : undefined} />
+              <DeclarationPanel
+                declaration={declaration}
+                lookup={lookup}
+                level="h3"
+                wanted={forSale ? wantedClaims : undefined}
+                claimBasis={declaration.claimBasis}
+              />
               <NutritionPanel nutrition={declaration.nutrition} level="h3" />
             </Stack>
           </Box>

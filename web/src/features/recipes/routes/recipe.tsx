@@ -99,7 +99,12 @@ export function RecipeRoute() {
           <Stack gap="4">
             <DeclarationBasisLine basis={declaration.data.basis} />
             <ReviewWarnings warnings={declaration.data.reviewWarnings} />
-            <DeclarationPanel declaration={declaration.data} lookup={lookup} wanted={data.sale ? data.sale.claims : undefined} />
+            <DeclarationPanel
+              declaration={declaration.data}
+              lookup={lookup}
+              wanted={data.sale ? data.sale.claims : undefined}
+              claimBasis={declaration.data.claimBasis}
+            />
             <NutritionPanel nutrition={declaration.data.nutrition} />
           </Stack>
         </LayerPathLinks>
