@@ -190,7 +190,11 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
   );
 
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)' }} gap="6" alignItems="start">
+    <Grid
+      templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 24rem)', xl: 'minmax(0, 1fr) minmax(0, 26rem)' }}
+      gap="6"
+      alignItems="start"
+    >
       {/* Narrow screens: the side panel would sit below the whole form, so a summary stays in view instead. */}
       <Box hideFrom="lg" position="sticky" top="0" zIndex="sticky" minW="0">
         <LiveDeclarationSummary
