@@ -1,3 +1,4 @@
+import AxeBuilder from '@axe-core/playwright';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
@@ -79,6 +80,8 @@ describe('the workbench at tablet width, in Chromium', () => {
     await page.keyboard.press('Escape');
     await drawer.waitFor({ state: 'hidden' });
     expect(await open.evaluate((button) => button === document.activeElement)).toBe(true);
+    const axe = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
+    expect(axe.violations.map((v) => `${v.id}: ${v.help} (${v.nodes.length})`)).toEqual([]);
   });
 
   it('shows the name, claims and errors of every recipe across the window', async () => {
