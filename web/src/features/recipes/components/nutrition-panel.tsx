@@ -104,7 +104,7 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
           alignItems="start"
           // Narrow columns (the editor's live panel) wrap names and headings instead of scrolling, with
           // a little less room between columns, so the US table's % Daily Value stays in view.
-          css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' }, '& th, & td': { paddingInline: '2.5' } }}
+          css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' }, '& th, & td': { paddingInline: '2' } }}
         >
           {label.eu ? (
             <DataTable

@@ -191,8 +191,9 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
 
   return (
     <Grid
-      templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 24rem)', xl: 'minmax(0, 1fr) minmax(0, 26rem)' }}
-      gap="6"
+      // From 1280 px the side panel takes 24rem, room for the US nutrition table's % Daily Value.
+      templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)', xl: 'minmax(0, 1fr) minmax(0, 24rem)' }}
+      gap={{ base: '6', xl: '4' }}
       alignItems="start"
     >
       {/* Narrow screens: the side panel would sit below the whole form, so a summary stays in view instead. */}
