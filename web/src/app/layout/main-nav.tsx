@@ -7,11 +7,11 @@ interface MainNavProps {
   role: Role;
 }
 
-/** The pages this role may open, and only those. Wraps onto two lines at tablet width. */
+/** The pages this role may open, and only those: one line at tablet width too (tighter padding below 1024 px), wrapping only on narrower screens. */
 export function MainNav({ role }: MainNavProps) {
   return (
     <Box as="nav" aria-label="Main" maxW="6xl" mx="auto" px={{ base: '2', md: '6' }}>
-      <List.Root as="ul" listStyle="none" flexDirection="row" flexWrap="wrap" gap="1">
+      <List.Root as="ul" listStyle="none" flexDirection="row" flexWrap="wrap" gap={{ base: '0', lg: '1' }}>
         {pagesFor(role).map((key) => (
           <List.Item key={key}>
             <Link
@@ -19,7 +19,7 @@ export function MainNav({ role }: MainNavProps) {
               display="inline-flex"
               alignItems="center"
               minH="11"
-              px="3"
+              px={{ base: '2', lg: '3' }}
               color="fg"
               textDecoration="none"
               borderBottomWidth="3px"

@@ -44,6 +44,22 @@ export interface DataTableColumnMeta {
   numeric?: boolean;
   /** Keep the column in view when the table scrolls sideways (the column that names the row). */
   sticky?: boolean;
+  /**
+   * A lesser column, left out below this breakpoint (md 768 px, lg 1024 px, xl 1280 px) so the
+   * columns that matter stay in view on a tablet; what it shows must be on the row's own page too.
+   * Only the table of tens of rows honours it (the long table has its Columns menu instead).
+   */
+  hideBelow?: 'md' | 'lg' | 'xl';
+  /** The widest the column's text may run before it wraps (a CSS length), e.g. a list of claims. */
+  maxW?: string;
+}
+
+/** The style props a column's meta gives each of its cells, header and body alike. */
+function fitProps(meta: DataTableColumnMeta) {
+  return {
+    ...(meta.hideBelow ? { hideBelow: meta.hideBelow } : {}),
+    ...(meta.maxW ? { maxW: meta.maxW, whiteSpace: 'normal', overflowWrap: 'anywhere' } : {}),
+  } as const;
 }
 
 /** A table's columns hold values of different types, so the value type is left open here, as TanStack Table's own column arrays do. */
@@ -97,6 +113,7 @@ export function TableHead<TData extends RowData>({ table, px, rowIndex = false }
                 textAlign={meta.numeric ? 'end' : 'start'}
                 aria-sort={sorted ? ARIA_SORT[sorted] : undefined}
                 px={px}
+                {...fitProps(meta)}
                 {...(meta.sticky ? { ...stickyCell, zIndex: 2 } : {})}
               >
                 {header.isPlaceholder ? null : header.column.getCanSort() ? (
@@ -230,6 +247,8 @@ export function DataTable<TData extends RowData>({
                         textAlign={meta.numeric ? 'end' : 'start'}
                         textStyle={meta.numeric ? 'quantity' : undefined}
                         verticalAlign="top"
+                        {...fitProps(meta)}
+                        {...(meta.sticky ? { ...stickyCell, bg: 'inherit' } : {})}
                       >
                         <FlexRender cell={cell} />
                       </Table.Cell>

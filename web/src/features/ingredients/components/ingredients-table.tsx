@@ -15,13 +15,13 @@ const column = dataTableColumns<LibraryRow>();
 /** The library's columns, in order, with the names the Columns menu shows. */
 export const LIBRARY_COLUMNS = [
   { id: 'name', label: 'Name', locked: true },
-  { id: 'supplier', label: 'Supplier' },
-  { id: 'supplierCode', label: 'Supplier code' },
-  { id: 'code', label: 'Code' },
   { id: 'contains', label: 'Contains' },
   { id: 'mayContain', label: 'May contain' },
   { id: 'vegan', label: 'Vegan' },
   { id: 'vegetarian', label: 'Vegetarian' },
+  { id: 'supplier', label: 'Supplier' },
+  { id: 'supplierCode', label: 'Supplier code' },
+  { id: 'code', label: 'Code' },
   { id: 'specification', label: 'Specification' },
   { id: 'revision', label: 'Revision' },
   { id: 'updated', label: 'Updated' },
@@ -97,31 +97,6 @@ const columns: DataTableColumn<LibraryRow>[] = [
       </Link>
     ),
   }),
-  column.accessor((row) => row.ingredient.supplier ?? '', {
-    id: 'supplier',
-    header: 'Supplier',
-    sortFn: 'text',
-    meta: meta({ width: 140 }),
-    cell: (info) => info.row.original.ingredient.supplier || <Muted>Not recorded</Muted>,
-  }),
-  column.accessor((row) => row.ingredient.supplierCode ?? '', {
-    id: 'supplierCode',
-    header: 'Supplier code',
-    sortFn: 'text',
-    meta: meta({ width: 130 }),
-    cell: (info) => info.row.original.ingredient.supplierCode || <Muted>Not recorded</Muted>,
-  }),
-  column.accessor((row) => row.ingredient.id, {
-    id: 'code',
-    header: 'Code',
-    sortFn: 'text',
-    meta: meta({ width: 130 }),
-    cell: (info) => (
-      <Text as="span" textStyle="sm">
-        {info.getValue()}
-      </Text>
-    ),
-  }),
   column.accessor((row) => (row.ingredient.contains === undefined ? undefined : row.ingredient.contains.map(describeEntry).join(', ')), {
     id: 'contains',
     header: 'Contains',
@@ -158,6 +133,31 @@ const columns: DataTableColumn<LibraryRow>[] = [
     sortFn: 'text',
     meta: meta({ width: 115 }),
     cell: (info) => <DietCell value={info.row.original.ingredient.vegetarian} />,
+  }),
+  column.accessor((row) => row.ingredient.supplier ?? '', {
+    id: 'supplier',
+    header: 'Supplier',
+    sortFn: 'text',
+    meta: meta({ width: 140 }),
+    cell: (info) => info.row.original.ingredient.supplier || <Muted>Not recorded</Muted>,
+  }),
+  column.accessor((row) => row.ingredient.supplierCode ?? '', {
+    id: 'supplierCode',
+    header: 'Supplier code',
+    sortFn: 'text',
+    meta: meta({ width: 130 }),
+    cell: (info) => info.row.original.ingredient.supplierCode || <Muted>Not recorded</Muted>,
+  }),
+  column.accessor((row) => row.ingredient.id, {
+    id: 'code',
+    header: 'Code',
+    sortFn: 'text',
+    meta: meta({ width: 130 }),
+    cell: (info) => (
+      <Text as="span" textStyle="sm">
+        {info.getValue()}
+      </Text>
+    ),
   }),
   column.accessor((row) => row.specification ?? '', {
     id: 'specification',

@@ -62,7 +62,7 @@ describe('Ingredient library', () => {
       within(table)
         .getAllByRole('columnheader')
         .map((header) => header.textContent?.replace(/[▲▼↕]/g, '')),
-    ).toEqual(['Name', 'Supplier', 'Code', 'Contains', 'May contain', 'Vegan', 'Vegetarian', 'Specification', 'Revision', 'Updated']);
+    ).toEqual(['Name', 'Contains', 'May contain', 'Vegan', 'Vegetarian', 'Supplier', 'Code', 'Specification', 'Revision', 'Updated']);
     const butter = within(table).getByRole('link', { name: 'Unsalted butter' }).closest('tr') as HTMLElement;
     expect(within(butter).getByText('milk').tagName).toBe('STRONG');
     const decorations = within(table).getByRole('link', { name: 'Chocolate decorations' }).closest('tr') as HTMLElement;

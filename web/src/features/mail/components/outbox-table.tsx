@@ -45,6 +45,7 @@ export function OutboxTable({ mails, maxAttempts, onRetry, retryingId }: OutboxT
       }),
       column.accessor('subject', {
         header: 'Mail',
+        meta: { maxW: '18rem' },
         cell: (info) => {
           const mail = info.row.original;
           return (
@@ -64,6 +65,10 @@ export function OutboxTable({ mails, maxAttempts, onRetry, retryingId }: OutboxT
           return (
             <>
               <StateBadge state={mail.state} />
+              {/* Below 1024 px the attempts fold in here, leaving room for the error and the send button. */}
+              <Text hideFrom="lg">
+                <Quantity>{`${mail.attempts} of ${maxAttempts} attempts`}</Quantity>
+              </Text>
               {mail.state === 'sent' ? (
                 <Text fontSize="sm">{format(mail.sentAt)}</Text>
               ) : mail.state === 'queued' && mail.attempts > 0 ? (
@@ -76,10 +81,11 @@ export function OutboxTable({ mails, maxAttempts, onRetry, retryingId }: OutboxT
       column.accessor('attempts', {
         header: 'Attempts',
         cell: (info) => <Quantity>{`${info.row.original.attempts} of ${maxAttempts}`}</Quantity>,
-        meta: { numeric: true },
+        meta: { numeric: true, hideBelow: 'lg' },
       }),
       column.accessor('lastError', {
         header: 'Last error',
+        meta: { maxW: '14rem' },
         cell: (info) => info.row.original.lastError ?? <Text color="fg.muted">None</Text>,
         enableSorting: false,
       }),

@@ -66,7 +66,7 @@ export function LineRows({ control, register, lines, errors, apiErrors, lineWarn
               <Table.ColumnHeader scope="col" w="6" textAlign="end">
                 #
               </Table.ColumnHeader>
-              <Table.ColumnHeader scope="col" minW="12rem">
+              <Table.ColumnHeader scope="col" minW="11rem">
                 Ingredient or recipe
               </Table.ColumnHeader>
               <Table.ColumnHeader scope="col" textAlign="end">

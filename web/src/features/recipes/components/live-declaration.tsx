@@ -24,7 +24,7 @@ interface LiveDeclarationProps {
   lookup: ItemLookup;
 }
 
-/** The declaration of the recipe as edited, beside the form, before anything is saved. */
+/** The declaration of the recipe as edited, before anything is saved: beside the form, or in the drawer its summary opens on narrow screens. */
 export function LiveDeclaration({
   declaration,
   computing,

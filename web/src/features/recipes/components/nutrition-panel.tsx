@@ -102,8 +102,9 @@ export function NutritionPanel({ nutrition, level = 'h2' }: NutritionPanelProps)
           minChildWidth="min(100%, 24rem)"
           gap="4"
           alignItems="start"
-          // Narrow columns (the editor's live panel) wrap names and headings instead of scrolling.
-          css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' } }}
+          // Narrow columns (the editor's live panel) wrap names and headings instead of scrolling, with
+          // a little less room between columns, so the US table's % Daily Value stays in view.
+          css={{ '& caption, & th, & td:first-of-type': { whiteSpace: 'normal' }, '& th, & td': { paddingInline: '2' } }}
         >
           {label.eu ? (
             <DataTable

@@ -25,6 +25,7 @@ import { editorResolver, numberOrUndefined, PRINT_DETAIL_FIELDS, toBookRecipe, t
 import { lineProblems } from './line-problems';
 import { LineRows } from './line-rows';
 import { LiveDeclaration } from './live-declaration';
+import { LiveDeclarationSummary } from './live-declaration-summary';
 import { PrintDetailsFields } from './print-details-fields';
 
 /** The id a new recipe is previewed under until it has one of its own. */
@@ -169,8 +170,44 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
       .map((use) => ({ id: use, name: lookup(use)?.name ?? use }));
   }, [watched.lines, lookup]);
 
+  const computing = preview.isFetching || previewKey !== settledKey;
+  const declarationError = previewError
+    ? previewError.message
+    : preview.isError
+      ? 'The declaration could not be computed. Try again in a moment.'
+      : null;
+  const liveDeclaration = (
+    <LiveDeclaration
+      declaration={preview.data}
+      computing={computing}
+      unsaved={creating || isDirty}
+      incomplete={incomplete}
+      error={declarationError}
+      wantedClaims={forSale ? wantedClaims : []}
+      forSale={forSale}
+      lookup={previewLookup}
+    />
+  );
+
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)' }} gap="6" alignItems="start">
+    <Grid
+      // From 1280 px the side panel takes 24rem, room for the US nutrition table's % Daily Value.
+      templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)', xl: 'minmax(0, 1fr) minmax(0, 24rem)' }}
+      gap={{ base: '6', xl: '4' }}
+      alignItems="start"
+    >
+      {/* Narrow screens: the side panel would sit below the whole form, so a summary stays in view instead. */}
+      <Box hideFrom="lg" position="sticky" top="0" zIndex="sticky" minW="0">
+        <LiveDeclarationSummary
+          declaration={preview.data}
+          computing={computing}
+          unsaved={creating || isDirty}
+          problem={declarationError ?? incomplete}
+          wantedClaims={forSale ? wantedClaims : []}
+        >
+          {liveDeclaration}
+        </LiveDeclarationSummary>
+      </Box>
       <form
         aria-label={creating ? 'New recipe' : `Edit ${initial.name}`}
         noValidate
@@ -316,19 +353,8 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
         </Stack>
       </form>
 
-      <Box position={{ lg: 'sticky' }} top={{ lg: '4' }} maxH={{ lg: 'calc(100dvh - 2rem)' }} overflowY={{ lg: 'auto' }} minW="0">
-        <LiveDeclaration
-          declaration={preview.data}
-          computing={preview.isFetching || previewKey !== settledKey}
-          unsaved={creating || isDirty}
-          incomplete={incomplete}
-          error={
-            previewError ? previewError.message : preview.isError ? 'The declaration could not be computed. Try again in a moment.' : null
-          }
-          wantedClaims={forSale ? wantedClaims : []}
-          forSale={forSale}
-          lookup={previewLookup}
-        />
+      <Box hideBelow="lg" position="sticky" top="4" maxH="calc(100dvh - 2rem)" overflowY="auto" minW="0">
+        {liveDeclaration}
       </Box>
     </Grid>
   );

@@ -27,6 +27,7 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
       column.accessor((row) => row.recipe.name, {
         id: 'name',
         header: 'Name',
+        meta: { sticky: true, maxW: '12rem' },
         cell: (info) => (
           <Link asChild color="accent.fg" fontWeight="bold">
             <RouterLink to={`/recipes/${encodeURIComponent(info.row.original.recipe.id)}`}>{info.getValue()}</RouterLink>
@@ -37,6 +38,7 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
       column.display({
         id: 'claims',
         header: 'What the recipe supports',
+        meta: { maxW: '14rem' },
         cell: (info) => {
           const { recipe, declaration } = info.row.original;
           if (!recipe.sale) return <Text color="fg.muted">Not declared alone</Text>;
@@ -48,6 +50,7 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
       column.display({
         id: 'errors',
         header: 'Errors',
+        meta: { maxW: '10rem' },
         cell: (info) => {
           const errors = info.row.original.declaration?.errors.length ?? 0;
           if (errors === 0) return info.row.original.declaration ? 'None' : '';
@@ -61,6 +64,8 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
       column.display({
         id: 'worked-out',
         header: 'Declaration worked out',
+        // On a tablet the product's own page says when its declaration was worked out, and from which revision.
+        meta: { hideBelow: 'xl', maxW: '14rem' },
         cell: (info) => {
           const { recipe, declaration } = info.row.original;
           if (!declaration) return '';
@@ -73,11 +78,11 @@ export function RecipesTable({ rows, declarationsReady, empty }: RecipesTablePro
           );
         },
       }),
-      column.accessor((row) => row.recipe.revision, { id: 'revision', header: 'Revision', meta: { numeric: true } }),
+      column.accessor((row) => row.recipe.revision, { id: 'revision', header: 'Revision', meta: { numeric: true, hideBelow: 'lg' } }),
       column.accessor((row) => row.recipe.updatedAt, {
         id: 'updated',
         header: 'Updated',
-        meta: { numeric: true },
+        meta: { numeric: true, hideBelow: 'lg' },
         cell: (info) => <Quantity>{formatDate(info.row.original.recipe.updatedAt)}</Quantity>,
       }),
     ],

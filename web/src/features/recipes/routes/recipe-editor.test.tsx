@@ -423,3 +423,56 @@ describe('Recipe editor', () => {
     expect(calls.some((call) => call.path === '/api/ingredients')).toBe(false);
   });
 });
+
+describe('Recipe editor on a narrow screen', () => {
+  it('keeps a summary of the live declaration, which follows an edited line and opens into the whole declaration', async () => {
+    editorApi({
+      // With a fourth line the kitchen's sesame precaution no longer reaches the recipe.
+      'POST /api/declarations/preview': ({ body }) =>
+        (body as BookRecipe).lines.length === 4
+          ? { body: declarationFor({ mayContain: [], precautions: [], warnings: [] }) }
+          : { body: declarationFor() },
+    });
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+    const summary = await screen.findByRole('region', { name: 'Live declaration summary' });
+    await waitFor(() => expect(within(summary).getByText('As saved')).toBeInTheDocument());
+    const term = (name: string) => within(summary).getByText(`${name}:`).nextElementSibling as HTMLElement;
+    expect(term('Contains')).toHaveTextContent('cereals containing gluten');
+    expect(term('Contains')).toHaveTextContent('milk');
+    expect(term('Contains')).toHaveTextContent('eggs');
+    expect(term('May contain')).toHaveTextContent('sesame');
+    expect(term('Not known')).toHaveTextContent('1 ingredient');
+    // The sponge wants the vegetarian claim: the summary says how it stands, with its mark.
+    expect(term('Claims you want')).toHaveTextContent('Vegetarian: Holds');
+    expect(term('Notices')).toHaveTextContent('1 warning');
+
+    await user.click(screen.getByRole('button', { name: 'Add line' }));
+    await user.type(screen.getByRole('combobox', { name: 'Ingredient or recipe for line 4' }), 'plant');
+    await user.click(await screen.findByRole('option', { name: /Plant spread/ }));
+    await user.type(screen.getByRole('spinbutton', { name: 'Quantity for line 4' }), '50');
+    await waitFor(() => expect(term('May contain')).toHaveTextContent('None recorded'));
+    expect(within(summary).getByText('Not saved yet')).toBeInTheDocument();
+    expect(term('Notices')).toHaveTextContent('0 warnings');
+
+    const open = within(summary).getByRole('button', { name: 'Open the full declaration' });
+    await user.click(open);
+    const drawer = await screen.findByRole('dialog', { name: 'The declaration as edited' });
+    const full = within(drawer).getByRole('region', { name: 'Live declaration' });
+    expect(within(full).getByText('Vegan: Fails')).toBeInTheDocument();
+    expect(within(full).getByText('No may-contain recorded.')).toBeInTheDocument();
+    expect(within(full).getByText('Not saved yet')).toBeInTheDocument();
+
+    await user.keyboard('{Escape}');
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+    expect(open).toHaveFocus();
+  });
+
+  it('says when the summary is not up to date because the form is incomplete', async () => {
+    editorApi();
+    const { user } = renderApp('/recipes/victoria-sponge/edit');
+    const summary = await screen.findByRole('region', { name: 'Live declaration summary' });
+    await user.click(screen.getByRole('button', { name: 'Add line' }));
+    expect(await within(summary).findByText('Line 4: choose an ingredient or recipe to see the declaration.')).toBeInTheDocument();
+    expect(within(summary).getByText('Not up to date')).toBeInTheDocument();
+  });
+});

@@ -54,7 +54,7 @@ function EditRecipe() {
     );
   }
   return (
-    <Page title={`Edit ${recipe.data.name}`} lead="The declaration beside the form follows every change; nothing is saved until you save.">
+    <Page title={`Edit ${recipe.data.name}`} lead="The live declaration follows every change; nothing is saved until you save.">
       {problem ? <ErrorAlert title="The list of ingredients and recipes could not be loaded">{problem.message}</ErrorAlert> : null}
       <RecipeEditorForm
         // Kept while the recipe is read again: the form holds the revision it was loaded from, and a
@@ -73,7 +73,7 @@ function NewRecipe() {
   const { options, lookup, problem } = useLineChoices(null);
   const openSaved = useOpenSaved();
   return (
-    <Page title="New recipe" lead="Build it line by line; the declaration beside the form follows every change.">
+    <Page title="New recipe" lead="Build it line by line; the live declaration follows every change.">
       {problem ? <ErrorAlert title="The list of ingredients and recipes could not be loaded">{problem.message}</ErrorAlert> : null}
       <RecipeEditorForm initial={null} options={options} lookup={lookup} onSaved={openSaved} />
     </Page>

@@ -34,19 +34,29 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
     () => [
       column.accessor('name', {
         header: 'Name',
+        meta: { sticky: true, maxW: '16rem' },
         cell: (info) => (
-          <Text as="span" fontWeight="bold">
-            {info.getValue()}
-            {info.row.original.id === currentUserId ? (
-              <Text as="span" fontWeight="normal" color="fg.muted">
-                {' '}
-                (you)
-              </Text>
-            ) : null}
-          </Text>
+          <Stack gap="1">
+            <Text as="span" fontWeight="bold">
+              {info.getValue()}
+              {info.row.original.id === currentUserId ? (
+                <Text as="span" fontWeight="normal" color="fg.muted">
+                  {' '}
+                  (you)
+                </Text>
+              ) : null}
+            </Text>
+            {/* Below 1024 px the email and the date of creation fold in under the name, leaving room for the access. */}
+            <Text as="span" hideFrom="lg">
+              {info.row.original.email}
+            </Text>
+            <Text as="span" hideFrom="lg" color="fg.muted">
+              <Quantity>{`Created ${formatDate(info.row.original.createdAt)}`}</Quantity>
+            </Text>
+          </Stack>
         ),
       }),
-      column.accessor('email', { header: 'Email' }),
+      column.accessor('email', { header: 'Email', meta: { hideBelow: 'lg', maxW: '16rem' } }),
       column.accessor('role', {
         header: 'Role',
         cell: (info) => {
@@ -65,10 +75,11 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
       }),
       column.accessor('active', {
         header: 'Active',
+        meta: { maxW: '12rem' },
         cell: (info) =>
           info.getValue() && info.row.original.invitationPending ? (
             <Stack align="flex-start" gap="2">
-              <Badge variant="outline" size="lg" borderStyle="dashed">
+              <Badge variant="outline" size="lg" borderStyle="dashed" whiteSpace="normal" h="auto" py="1">
                 Invited, no password yet
               </Badge>
               <Button
@@ -93,6 +104,7 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
       }),
       column.accessor('createdAt', {
         header: 'Created',
+        meta: { hideBelow: 'lg' },
         cell: (info) => <Quantity>{formatDate(info.row.original.createdAt)}</Quantity>,
       }),
       column.display({
