@@ -14,6 +14,7 @@ import {
 } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { AuditService, type AuditEntry } from '../audit/audit.service';
+import { deepFreeze } from '../common/deep-freeze';
 import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
 import { validationError } from '../common/zod.pipe';
@@ -77,12 +78,6 @@ function freezeState(state: KitchenState): KitchenState {
   deepFreeze(state.book);
   deepFreeze(state.site);
   return state;
-}
-
-function deepFreeze(value: unknown): void {
-  if (value === null || typeof value !== 'object' || Object.isFrozen(value)) return;
-  Object.freeze(value);
-  for (const v of Object.values(value)) deepFreeze(v);
 }
 
 const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {

@@ -12,6 +12,7 @@ import {
   type ServedDeclaration,
 } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
+import { deepFreeze } from '../common/deep-freeze';
 import { validationError } from '../common/zod.pipe';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
@@ -59,6 +60,9 @@ export class DeclarationsService implements OnModuleInit {
     private readonly specifications: SpecificationsService,
   ) {}
 
+  /** What was found or kept for each product of a kitchen state, by regime and code (see keptForProducts). */
+  private readonly keptOf = new WeakMap<KitchenState, Map<string, KeptServed>>();
+
   /** Every recipe revision saved keeps the declaration it was saved with, for the revision history. */
   onModuleInit() {
     this.books.onRecipesWritten(async (ids) => {
@@ -91,9 +95,15 @@ export class DeclarationsService implements OnModuleInit {
    * what a print run records it printed.
    */
   async keptForProducts(codes: readonly string[], regime?: Regime, state?: KitchenState): Promise<KeptServed[]> {
-    const { site, book, heads } = state ?? (await this.books.state());
+    const kitchen = state ?? (await this.books.state());
+    const { site, book, heads } = kitchen;
     const useRegime = regime ?? book.site.regime;
-    const inputs = codes.map((code) => {
+    // The kitchen read last is shared by every request until it changes (BooksService.state), and
+    // what was found or kept for it stands as long: a product served again costs no query here.
+    let memo = this.keptOf.get(kitchen);
+    if (!memo) this.keptOf.set(kitchen, (memo = new Map<string, KeptServed>()));
+    const missing = [...new Set(codes)].filter((code) => !memo.has(`${useRegime} ${code}`));
+    const inputs = missing.map((code) => {
       const head = heads.get(code);
       if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
       const slice = closureOf(book, code);
@@ -113,7 +123,6 @@ export class DeclarationsService implements OnModuleInit {
       useRegime,
       inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })),
     );
-    const out: KeptServed[] = [];
     for (const { code, head, slice, items, inputHash } of inputs) {
       const kept =
         found.get(`${head.rowId} ${inputHash}`) ??
@@ -124,13 +133,20 @@ export class DeclarationsService implements OnModuleInit {
           inputHash,
           body: this.rules.declare(slice, code, useRegime),
         }));
-      out.push({
-        declarationId: kept.id,
-        inputHash,
-        recipeRowId: head.rowId,
-        served: { ...kept.body, basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version } },
-      });
+      memo.set(
+        `${useRegime} ${code}`,
+        deepFreeze({
+          declarationId: kept.id,
+          inputHash,
+          recipeRowId: head.rowId,
+          served: {
+            ...kept.body,
+            basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
+          },
+        }),
+      );
     }
+    const out = codes.map((code) => memo.get(`${useRegime} ${code}`)!);
     const checks = await this.servedChecks(
       out.map((k) => k.served.basis.items),
       heads,
