@@ -58,6 +58,8 @@ describe('a contact line without a weight, in Chromium', () => {
 
     await page.getByRole('button', { name: 'Save recipe' }).click();
     await page.waitForURL(/\/recipes\/lemon-shortbread$/);
+    // The product page's code loads after the address changes: wait for the page itself.
+    await page.getByRole('link', { name: 'Edit recipe' }).waitFor();
     expect(await page.getByText(NUMBER_WANTED).count()).toBe(0);
 
     const saved = await page.evaluate(async () => (await fetch('/api/recipes/lemon-shortbread')).json());
@@ -107,6 +109,8 @@ describe('a contact line without a weight, in Chromium', () => {
     await page.getByLabel('Portion (g)').fill('60');
     await page.getByRole('button', { name: 'Save recipe' }).click();
     await page.waitForURL(/\/recipes\/griddle-scones$/);
+    // The product page's code loads after the address changes: wait for the page itself.
+    await page.getByRole('link', { name: 'Edit recipe' }).waitFor();
     expect(await page.getByText(NUMBER_WANTED).count()).toBe(0);
 
     const saved = await page.evaluate(async () => (await fetch('/api/recipes/griddle-scones')).json());

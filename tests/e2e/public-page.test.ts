@@ -28,6 +28,8 @@ describe('the public product page, in Chromium', () => {
     await box.setChecked(published);
     await page.getByRole('button', { name: 'Save recipe' }).click();
     await page.waitForURL(`${BASE_URL}/recipes/${PRODUCT}`);
+    // The product page's code loads after the address changes: wait for the page itself.
+    await page.getByRole('link', { name: 'Edit recipe' }).waitFor();
   }
 
   async function setPage(on: boolean) {

@@ -81,7 +81,9 @@ describe('Spreadsheet import', () => {
     expect(rows[2]).toHaveTextContent('praline');
     expect(screen.getByText(/1 new, 1 revised, 0 unchanged, 1 row with problems \(not imported\)/)).toBeInTheDocument();
 
-    expect(screen.getByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' })).toBeDisabled();
+    // All or nothing: the button says nothing will be imported, and the note what the other rows would import.
+    expect(screen.getByRole('button', { name: 'Nothing is imported while 1 row has a problem' })).toBeDisabled();
+    expect(screen.getByText(/the other rows would import 2 ingredients: 1 new, 1 revised\./)).toBeInTheDocument();
     expect(screen.getByText(/The ingredient id used in recipes/)).toBeInTheDocument();
     expect(screen.getByText(/Correct the rows with problems/)).toBeInTheDocument();
 
@@ -175,7 +177,7 @@ describe('Spreadsheet import', () => {
     await user.upload(screen.getByLabelText(/^Spreadsheet \(CSV or XLSX\)/), CSV);
     await user.click(screen.getByRole('button', { name: 'Check the file' }));
     expect(await screen.findByText("There is no 'name' column; add one to row 1.")).toBeInTheDocument();
-    expect(screen.getByRole('button', { name: 'Import 2 ingredients: 1 new, 1 revised' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Nothing is imported while the file has problems' })).toBeDisabled();
   });
 
   it('lists every column the import reads with its meaning, and the templates, before the first upload', async () => {

@@ -33,11 +33,22 @@ function describeSummary(summary: ImportCounts): string {
   ].join(', ');
 }
 
-/** What the import button does: "Import 12 ingredients: 3 new, 9 revised". */
-function importButtonWords(summary: ImportCounts): string {
-  const count = summary.create + summary.update;
-  if (count === 0) return 'Nothing to import';
-  return `Import ${plural(count, 'ingredient', 'ingredients')}: ${summary.create} new, ${summary.update} revised`;
+/** What the import would do once nothing blocks it: "12 ingredients: 3 new, 9 revised". */
+function importWhat(summary: ImportCounts): string {
+  return `${plural(summary.create + summary.update, 'ingredient', 'ingredients')}: ${summary.create} new, ${summary.update} revised`;
+}
+
+/**
+ * What the import button does: "Import 12 ingredients: 3 new, 9 revised". The import is all or
+ * nothing, so while a row has a problem the button says that nothing will be imported.
+ */
+function importButtonWords(summary: ImportCounts, blocked: boolean): string {
+  if (blocked)
+    return summary.withProblems > 0
+      ? `Nothing is imported while ${plural(summary.withProblems, 'row has a problem', 'rows have problems')}`
+      : 'Nothing is imported while the file has problems';
+  if (summary.create + summary.update === 0) return 'Nothing to import';
+  return `Import ${importWhat(summary)}`;
 }
 
 const TEMPLATE_URL = '/api/ingredients/import/template';
@@ -321,11 +332,13 @@ export function ImportIngredientsRoute() {
               loadingText="Importing…"
               onClick={handleImport}
             >
-              {importButtonWords(preview.summary)}
+              {importButtonWords(preview.summary, blocked)}
             </Button>
             <Text color="fg.muted">
               {blocked
-                ? 'Correct the rows with problems in the spreadsheet, then check the file again.'
+                ? preview.summary.withProblems > 0
+                  ? `The import is all or nothing. Correct the rows with problems in the spreadsheet, then check the file again: the other rows would import ${importWhat(preview.summary)}.`
+                  : 'The import is all or nothing. Correct the problems of the file named above, then check it again.'
                 : count === 0
                   ? 'Every row matches what is already saved: there is nothing to import.'
                   : null}
