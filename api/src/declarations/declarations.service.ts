@@ -19,7 +19,12 @@ import { KitchenService } from '../kitchen/kitchen.service';
 import { closureItems, closureOf } from '../rules/core/book-graph';
 import { canonicalJson } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
-import { SpecificationsService, claimBasisOf, overdueWarnings } from '../ingredients/specifications/specifications.service';
+import {
+  SpecificationsService,
+  claimBasisOf,
+  overdueWarnings,
+  type SpecificationStanding,
+} from '../ingredients/specifications/specifications.service';
 import { DeclarationsRepository } from './declarations.repository';
 
 /** A served declaration with the kept row it comes from and the hash of its inputs. */
@@ -62,6 +67,8 @@ export class DeclarationsService implements OnModuleInit {
 
   /** What was found or kept for each product of a kitchen state, by regime and code (see keptForProducts). */
   private readonly keptOf = new WeakMap<KitchenState, Map<string, KeptServed>>();
+  /** The review-by dates of each kitchen state's ingredients (see standingOf). */
+  private readonly reviewByOf = new WeakMap<KitchenState['heads'], Promise<Map<number, string>>>();
 
   /** Every recipe revision saved keeps the declaration it was saved with, for the revision history. */
   onModuleInit() {
@@ -173,12 +180,29 @@ export class DeclarationsService implements OnModuleInit {
         }),
     );
     const known = leavesOf.flat().flatMap((l) => (l.rowId === null ? [] : [{ ...l, rowId: l.rowId }]));
-    const standing = await this.specifications.standing(known);
+    const standing = await this.standingOf(heads);
     const warnings = overdueWarnings(known, standing);
     return leavesOf.map((leaves) => {
       const found = leaves.flatMap((l) => (warnings.has(l.id) ? [warnings.get(l.id)!] : []));
       return { ...(found.length > 0 ? { reviewWarnings: found } : {}), claimBasis: claimBasisOf(leaves, standing) };
     });
+  }
+
+  /**
+   * Today's date and the newest review-by date of every ingredient of a kitchen state, read in one
+   * query the first time the state is served and kept with it: a new specification is written
+   * under the kitchen's lock, so it comes with a new state. Today is taken at every call, so a
+   * review date passing at midnight shows at once.
+   */
+  private async standingOf(heads: KitchenState['heads']): Promise<SpecificationStanding> {
+    let reviewBy = this.reviewByOf.get(heads);
+    if (!reviewBy) {
+      const ingredients = [...heads.values()].flatMap((h) => (h.kind === 'ingredient' ? [{ rowId: h.rowId }] : []));
+      reviewBy = this.specifications.standing(ingredients).then((s) => s.reviewBy);
+      this.reviewByOf.set(heads, reviewBy);
+      reviewBy.catch(() => this.reviewByOf.delete(heads));
+    }
+    return { today: this.specifications.today(), reviewBy: await reviewBy };
   }
 
   /** The declaration kept for a recipe (by its row id) under a regime and input hash, or null when there is none. */

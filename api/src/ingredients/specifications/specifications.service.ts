@@ -41,7 +41,7 @@ export class SpecificationsService {
   ) {}
 
   /** The kitchen's date now (the server's calendar, as `today()` counts it). */
-  private today(): string {
+  today(): string {
     return today(this.clock.now());
   }
 
