@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { REGIMES, bookPlace, bookSchema, formatIssue, type Regime } from '@crumbproof/shared';
 import { BookProblemsError, UnknownProductError, checkBook, declareProduct, declareProducts } from '../rules/core';
 import { loadReferenceData } from '../rules/reference-data';
+import { indentedJsonPieces } from './json-lines';
 
 /**
  * npm run declare -- BOOK.json [--regime EU|UK|US|CA|ANZ] [--product ID]
@@ -72,7 +73,7 @@ function main(): void {
     const out = args.product
       ? { declarations: [declareProduct(book, args.product, refs, { regime: args.regime })] }
       : declareProducts(book, refs, { regime: args.regime });
-    process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
+    for (const piece of indentedJsonPieces('declarations', out.declarations)) process.stdout.write(piece);
   } catch (e) {
     if (e instanceof BookProblemsError)
       fail(

@@ -13,7 +13,7 @@ import {
   type SourceEntry,
   type UnknownAllergens,
 } from '@crumbproof/shared';
-import { scanComposition } from './composition-scan';
+import { scanCompositionShared } from './composition-scan';
 import type { AllergenGroup, Exemption, Lexicon, RegimeRules } from './reference-schema';
 import type { TreeNode } from './tree';
 
@@ -50,7 +50,7 @@ export function leafFacts(leaves: TreeNode[], lexicon: Lexicon): LeafFacts[] {
     if (!ingredient) throw new Error(`${node.name} is not an ingredient.`);
     let scan = scans.get(ingredient.id);
     if (!scan) {
-      scan = scanComposition(ingredient.composition ?? '', lexicon);
+      scan = scanCompositionShared(ingredient.composition ?? '', lexicon);
       scans.set(ingredient.id, scan);
     }
     const contains: SourceUse[] = (ingredient.contains ?? []).map((e) => ({ ...normalise(e), origin: 'supplier' }));
@@ -91,8 +91,19 @@ const pathKey = (p: string[]) => p.join('\u0000');
 const pushUnique = <T>(list: T[], item: T) => {
   if (!list.includes(item)) list.push(item);
 };
-const pushPath = (list: string[][], path: string[]) => {
-  if (!list.some((p) => pathKey(p) === pathKey(path))) list.push(path);
+/** The keys of the paths already in each via list, so a path is found in it without joining every other. */
+const pathKeys = new WeakMap<string[][], Set<string>>();
+/** Adds a path to a via list unless the same path is in it already: each distinct path once. */
+export const pushPath = (list: string[][], path: string[]) => {
+  let keys = pathKeys.get(list);
+  if (!keys) {
+    keys = new Set(list.map(pathKey));
+    pathKeys.set(list, keys);
+  }
+  const key = pathKey(path);
+  if (keys.has(key)) return;
+  keys.add(key);
+  list.push(path);
 };
 
 export function containsFor(all: LeafFacts[], rules: RegimeRules, sulphitesDeclared: boolean): ContainedAllergen[] {

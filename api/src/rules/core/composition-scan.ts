@@ -8,9 +8,27 @@ const LETTER = '[\\p{L}\\p{N}]';
 
 /** Whole-word occurrences of a phrase (an optional plural s/es allowed). */
 function occurrences(text: string, phrase: string, plural: boolean): Array<{ start: number; end: number }> {
-  const re = new RegExp(`(?<!${LETTER})${escape(phrase)}${plural ? '(?:e?s)?' : ''}(?!${LETTER})`, 'gu');
+  const key = `${plural ? 's' : '-'}${phrase}`;
+  let re = WORD_PATTERNS.get(key);
+  if (!re) {
+    re = new RegExp(`(?<!${LETTER})${escape(phrase)}${plural ? '(?:e?s)?' : ''}(?!${LETTER})`, 'gu');
+    WORD_PATTERNS.set(key, re);
+  }
+  // A phrase that is not in the text at all cannot match: skip the pattern (most terms, most texts).
+  if (!text.includes(phrase)) return [];
   return [...text.matchAll(re)].map((m) => ({ start: m.index, end: m.index + m[0].length }));
 }
+
+/** The compiled whole-word pattern of each phrase (matchAll works on a copy, so sharing one is sound). */
+const WORD_PATTERNS = new Map<string, RegExp>();
+
+/**
+ * Each lexicon's scans by composition text: a scan depends on nothing else, so every product of a
+ * book shares its ingredients' scans. Bounded (emptied when full) so a long-running server that
+ * scans many texts does not keep them all.
+ */
+const SCANS = new WeakMap<Lexicon, Map<string, CompositionTerms>>();
+const MAX_SCANS = 20_000;
 
 /**
  * Precautionary and "made in a factory" clauses, up to the next full stop or semicolon, are not
@@ -44,6 +62,22 @@ function find(text: string, term: string, except: string[] | undefined, lexicon:
     .filter(({ start, end }) => !excepted.some((x) => x.start <= start && end <= x.end))
     .filter(({ start, end }) => !negated(text, start, end, lexicon))
     .map(({ start, end }) => ({ term, matched: text.slice(start, end), start, end }));
+}
+
+/** scanComposition, remembered per lexicon and text. The result is shared: read it, never change it. */
+export function scanCompositionShared(composition: string, lexicon: Lexicon): CompositionTerms {
+  let scans = SCANS.get(lexicon);
+  if (!scans) {
+    scans = new Map();
+    SCANS.set(lexicon, scans);
+  }
+  let scan = scans.get(composition);
+  if (!scan) {
+    scan = scanComposition(composition, lexicon);
+    if (scans.size >= MAX_SCANS) scans.clear();
+    scans.set(composition, scan);
+  }
+  return scan;
 }
 
 /**

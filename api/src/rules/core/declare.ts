@@ -18,10 +18,12 @@ import {
   leafFacts,
   mayContainFor,
   precautionsFor,
+  pushPath,
   unknownFor,
   type LeafFacts,
 } from './allergens';
 import { checkBook } from './book-check';
+import { recipesAbove } from './book-graph';
 import { claimsFor } from './claims';
 import { BookProblemsError, UnknownProductError } from './errors';
 import { ingredientList } from './ingredient-list';
@@ -53,6 +55,34 @@ export function declareAll(book: Book, refs: ReferenceData, opts: DeclareOptions
   return { declarations: book.recipes.filter((r) => r.sale).map((r) => declareChecked(book, r.id, refs, regime)) };
 }
 
+/**
+ * After one item (an ingredient or a sub-recipe) changed in `book`, the declarations of `previous`
+ * (declared from the book before the change, under the same regime) with only the products that
+ * use the item, at any depth, declared again; the others are kept as they were. The result equals
+ * declareAll on the changed book, for a change that adds or removes no product.
+ */
+export function redeclareAfterChange(
+  book: Book,
+  previous: DeclarationSet,
+  changedId: string,
+  refs: ReferenceData,
+  opts: DeclareOptions = {},
+): DeclarationSet {
+  const problems = checkBook(book);
+  if (problems.length > 0) throw new BookProblemsError(problems);
+  const regime = opts.regime ?? book.site.regime;
+  const above = recipesAbove(book, changedId);
+  const kept = new Map(previous.declarations.map((d) => [d.product, d]));
+  return {
+    declarations: book.recipes
+      .filter((r) => r.sale)
+      .map((r) => {
+        const old = kept.get(r.id);
+        return old && old.regime === regime && !above.has(r.id) && r.id !== changedId ? old : declareChecked(book, r.id, refs, regime);
+      }),
+  };
+}
+
 const NOT_VEGAN = new Set(['milk', 'egg', 'fish', 'crustacean', 'mollusc']);
 const NOT_VEGETARIAN = new Set(['fish', 'crustacean', 'mollusc']);
 
@@ -69,7 +99,7 @@ function vagueFor(all: LeafFacts[]): VagueMention[] {
       const term = hit.matched.toLowerCase();
       const same = out.find((v) => v.ingredient === f.ingredient.id && v.term === term && v.precautionary === hit.precautionary);
       if (same) {
-        if (!same.via.some((p) => p.join('\u0000') === f.node.path.join('\u0000'))) same.via.push(f.node.path);
+        pushPath(same.via, f.node.path);
         continue;
       }
       out.push({
@@ -176,19 +206,29 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
   const mayContain = mayContainFor(precautions, rules, contains);
   const claims = claimsFor(facts, book.site, rules, tree.finishedG);
 
+  // The groups each node declares: a leaf's own, a sub-recipe's the union of its children's (each node worked out once).
+  const codesAt = new Map<TreeNode, Set<string>>();
+  const codesOf = (node: TreeNode): Set<string> => {
+    let codes = codesAt.get(node);
+    if (codes) return codes;
+    codes = new Set<string>();
+    if (node.kind === 'ingredient') {
+      const f = byNode.get(node);
+      if (f) for (const use of declaredUses(f, rules, sulphites.declared)) groupsOf(use.source, rules).forEach((g) => codes.add(g.code));
+    } else for (const child of node.children) codesOf(child).forEach((c) => codes.add(c));
+    codesAt.set(node, codes);
+    return codes;
+  };
   const groupsAt = (node: TreeNode): string[] => {
-    const codes = new Set<string>();
-    for (const leaf of node.kind === 'ingredient' ? [node] : leavesOf(node.children)) {
-      const f = byNode.get(leaf);
-      if (!f) continue;
-      for (const use of declaredUses(f, rules, sulphites.declared)) groupsOf(use.source, rules).forEach((g) => codes.add(g.code));
-    }
+    const codes = codesOf(node);
     return rules.groups.map((g) => g.code).filter((c) => codes.has(c));
   };
   const list = ingredientList(tree, rules, groupsAt);
 
+  const firstFacts = new Map<string, LeafFacts>();
+  for (const f of facts) if (!firstFacts.has(f.ingredient.id)) firstFacts.set(f.ingredient.id, f);
   const marksOf = (ingredientId: string): Mark[] => {
-    const f = facts.find((x) => x.ingredient.id === ingredientId);
+    const f = firstFacts.get(ingredientId);
     if (!f) return [];
     const emphasis = rules.statement.marksInList;
     const marks: Mark[] = [];

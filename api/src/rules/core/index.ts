@@ -3,7 +3,7 @@
  * No framework, no database, no I/O (reference data is passed in).
  */
 export { checkBook } from './book-check';
-export { declare, declareAll, type DeclareOptions } from './declare';
+export { declare, declareAll, redeclareAfterChange, type DeclareOptions } from './declare';
 export { BookProblemsError, UnknownProductError } from './errors';
 export { scanComposition } from './composition-scan';
 export { buildTree, leavesOf, type ProductTree, type TreeNode } from './tree';

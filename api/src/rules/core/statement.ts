@@ -21,6 +21,17 @@ function merge(segments: TextSegment[]): TextSegment[] {
   return out;
 }
 
+/** The whole-word, any-case pattern of each mark's word, compiled once (no g flag: exec keeps no state). */
+const WORD_PATTERNS = new Map<string, RegExp>();
+function wordPattern(word: string): RegExp {
+  let re = WORD_PATTERNS.get(word);
+  if (!re) {
+    re = new RegExp(`(?<![\\p{L}\\p{N}])${escape(word)}(?![\\p{L}\\p{N}])`, 'iu');
+    WORD_PATTERNS.set(word, re);
+  }
+  return re;
+}
+
 /**
  * An ingredient's name with its allergen names: where the name already names the allergen
  * ("Plain wheat flour") that word is emphasised; otherwise the name follows in brackets
@@ -32,7 +43,7 @@ export function renderName(name: string, marks: Mark[]): TextSegment[] {
   for (const mark of marks) {
     let hit: { start: number; end: number } | undefined;
     for (const word of mark.match) {
-      const m = new RegExp(`(?<![\\p{L}\\p{N}])${escape(word)}(?![\\p{L}\\p{N}])`, 'iu').exec(name);
+      const m = wordPattern(word).exec(name);
       if (m && !ranges.some((r) => r.start < m.index + m[0].length && m.index < r.end)) {
         hit = { start: m.index, end: m.index + m[0].length };
         break;
