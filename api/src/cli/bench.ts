@@ -1,7 +1,9 @@
 import { availableParallelism } from 'node:os';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { signInBundleKb } from '../bench/bundle';
 import { cliPeakRssMb } from '../bench/cli-memory';
+import { measureLabels } from '../bench/labels';
 import { measureRollup } from '../bench/rollup';
 import type { KitchenSize } from '../rules/core/testing/synthetic-kitchen';
 import { loadReferenceData } from '../rules/reference-data';
@@ -30,10 +32,26 @@ say(`incremental ms (median of ${rollup.incrementalProducts} changes)`, rollup.i
 const memory = quick ? null : cliPeakRssMb('large');
 if (memory) say('declare CLI peak RSS MB (large book)', memory.peakRssMb ?? `not measured (exit ${memory.exitCode}: ${memory.error})`);
 
-const results = {
-  cores,
-  rollup: { fullMs: rollup.fullMs, floorMs: rollup.floorMs, ratio: rollup.ratio, bySize: rollup.bySize },
-  incrementalMs: rollup.incrementalMs,
-  ...(memory ? { cliPeakRssMb: memory.peakRssMb } : {}),
-};
-writeFileSync(join(root, 'bench-results.json'), `${JSON.stringify(results, null, 2)}\n`);
+async function main(): Promise<void> {
+  const labels = await measureLabels(refs);
+  say(`labels: ${labels.labels} case labels with GS1-128 into one PDF, ms`, labels.ms);
+  say('labels: a text-only document of as many pages, ms', labels.textOnlyMs);
+  say('labels ratio', labels.ratio);
+  const bundleKb = signInBundleKb();
+  say('sign-in page gzipped JavaScript KB', bundleKb ?? 'not measured (build the web app first: npm run build)');
+
+  const results = {
+    cores,
+    rollup: { fullMs: rollup.fullMs, floorMs: rollup.floorMs, ratio: rollup.ratio, bySize: rollup.bySize },
+    incrementalMs: rollup.incrementalMs,
+    ...(memory ? { cliPeakRssMb: memory.peakRssMb } : {}),
+    labels: { ms: labels.ms, textOnlyMs: labels.textOnlyMs, ratio: labels.ratio },
+    ...(bundleKb === null ? {} : { bundleKb }),
+  };
+  writeFileSync(join(root, 'bench-results.json'), `${JSON.stringify(results, null, 2)}\n`);
+}
+
+main().catch((e: unknown) => {
+  process.stderr.write(`bench: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+  process.exitCode = 1;
+});
