@@ -2,7 +2,7 @@ import { Box, Button, Field, Grid, Input, Stack, Text } from '@chakra-ui/react';
 import { COUNTER_CAUTION, COUNTER_VERDICTS, type CounterProductsView } from '@crumbproof/shared';
 import { useId, useMemo, useState } from 'react';
 import { ErrorAlert } from '@/components/ui/error-alert';
-import { avoidLabels as labelsOf, isEmptyAsk, listed, lookUp, type CounterAsk, type LookupRow } from '../utils/lookup';
+import { avoidLabels as labelsOf, isEmptyAsk, listed, timedLookUp, type CounterAsk, type LookupRow } from '../utils/lookup';
 import { AvoidPicker } from './avoid-picker';
 import { ProductCard } from './product-card';
 import { ResultsList } from './results-list';
@@ -36,13 +36,14 @@ interface LookUpViewProps {
 }
 
 /** "Look up": pick what the customer avoids and wants, type a name, read each product's verdict and open its card. */
+
 export function LookUpView({ view, ask, onAskChange }: LookUpViewProps) {
   const [search, setSearch] = useState('');
   const [openId, setOpenId] = useState<string | null>(null);
   // Below desk width the choices fold away so the results are in view; at desk width they stay beside them.
   const [choicesOpen, setChoicesOpen] = useState(true);
   const choicesId = useId();
-  const result = useMemo(() => lookUp(view.products, view.rules, ask, search), [view, ask, search]);
+  const result = useMemo(() => timedLookUp(view.products, view.rules, ask, search), [view, ask, search]);
   const labels = useMemo(() => labelsOf(ask, view.rules), [ask, view.rules]);
   const rows = [...result.onSale, ...result.rest];
   // The card follows the data: a pushed change shows in it at once; a product gone from sale closes it.
