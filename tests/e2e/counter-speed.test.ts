@@ -28,7 +28,7 @@ describe('the counter with 500 products, in Chromium', () => {
       const response = await route.fetch();
       const feed = (await response.json()) as Feed;
       const products = Array.from({ length: PRODUCTS }, (_, i) => {
-        const p = feed.products[i % feed.products.length];
+        const p = feed.products[i % feed.products.length]!;
         const id = `${p.id}-${i}`;
         const name = `${p.name} no. ${i}`;
         return { ...p, id, name, declaration: { ...p.declaration, product: id, name } };
@@ -49,7 +49,7 @@ describe('the counter with 500 products, in Chromium', () => {
       );
     }
     expect(took.every((ms) => Number.isFinite(ms))).toBe(true);
-    const median = [...took].sort((a, b) => a - b)[Math.floor(took.length / 2)];
+    const median = [...took].sort((a, b) => a - b)[Math.floor(took.length / 2)] ?? Number.NaN;
     console.log(
       `counter lookup of ${PRODUCTS} products in Chromium: median ${median.toFixed(2)} ms, each ${took.map((t) => t.toFixed(1)).join(', ')} ms`,
     );
