@@ -11,6 +11,7 @@ import { AuthService } from './auth.service';
 import { FirstManagerLinksRepository } from './first-manager-links.repository';
 import { FirstManagerService } from './first-manager.service';
 import { JwtStrategy } from './jwt.strategy';
+import { sessionKey } from './session-key';
 import { SessionTokens } from './session-tokens';
 import { SessionsModule } from './sessions.module';
 
@@ -23,7 +24,7 @@ import { SessionsModule } from './sessions.module';
     JwtModule.registerAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService<AppConfig, true>) => ({
-        secret: config.get('JWT_SECRET', { infer: true }),
+        secret: sessionKey(config.get('JWT_SECRET', { infer: true })),
         signOptions: { expiresIn: config.get('SESSION_MINUTES', { infer: true }) * 60, algorithm: 'HS256' },
         verifyOptions: { algorithms: ['HS256'] },
       }),

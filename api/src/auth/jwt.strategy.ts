@@ -9,6 +9,7 @@ import { UsersRepository } from '../users/users.repository';
 import type { SessionModel } from './session.model';
 import { SessionsRepository } from './sessions.repository';
 import { readSessionCookie } from './session-cookie';
+import { sessionKey } from './session-key';
 import type { SessionClaims } from './session-tokens';
 
 /** The signed-in user with the session and token they came with (for renewal). */
@@ -27,7 +28,8 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromExtractors([(req: FastifyRequest) => readSessionCookie(req)]),
-      secretOrKey: config.get('JWT_SECRET', { infer: true }),
+      // passport-jwt hands the key to jsonwebtoken, which takes a KeyObject (its types say string or Buffer only).
+      secretOrKey: sessionKey(config.get('JWT_SECRET', { infer: true })) as unknown as Buffer,
       algorithms: ['HS256'],
       ignoreExpiration: false,
       passReqToCallback: false,
