@@ -13,7 +13,7 @@ import { AppModule } from './app.module';
 import { refuseCrossSiteRequests } from './auth/cross-site';
 import { registerSecurityHeaders } from './auth/security-headers';
 import { ApiExceptionFilter } from './common/exception.filter';
-import { MAX_UPLOAD_BYTES } from './common/limits';
+import { MAX_JSON_BODY_BYTES, MAX_UPLOAD_BYTES, type BodyLimitConfig } from './common/limits';
 import { environmentConfig, sessionCookieSecure, type AppConfig } from './config/config';
 
 const LOG_LEVELS: Record<AppConfig['LOG_LEVEL'], LogLevel[] | false> = {
@@ -37,7 +37,7 @@ export function registeredRoutes(app: NestFastifyApplication): readonly RouteRec
 
 /** Builds the API (and, when a web build is given, serves the web app beside it). */
 export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } = {}): Promise<NestFastifyApplication> {
-  const adapter = new FastifyAdapter({ bodyLimit: 2 * 1024 * 1024, trustProxy: false });
+  const adapter = new FastifyAdapter({ bodyLimit: MAX_JSON_BODY_BYTES, trustProxy: false });
   const app = await NestFactory.create<NestFastifyApplication>(AppModule, adapter, {
     abortOnError: false,
     logger: LOG_LEVELS[options.logLevel ?? environmentConfig().LOG_LEVEL],
@@ -46,6 +46,8 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
   const routes: RouteRecord[] = [];
   ROUTES.set(app, routes);
   fastify.addHook('onRoute', (route) => {
+    const ownLimit = (route.config as BodyLimitConfig | undefined)?.bodyLimit;
+    if (ownLimit !== undefined) route.bodyLimit = ownLimit;
     for (const method of [route.method].flat()) if (method !== 'HEAD') routes.push({ method, url: route.url });
   });
   const config = app.get<ConfigService<AppConfig, true>>(ConfigService);

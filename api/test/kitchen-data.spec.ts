@@ -137,6 +137,34 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(again.json().recipes).toEqual({ created: [], revised: [], unchanged: 1 });
   });
 
+  it('imports a book of several megabytes and over a thousand new ingredients, then finds nothing to do when it comes again', async () => {
+    const exported = (await req('GET', '/api/book', chef)).json<Book>();
+    const template = exported.ingredients[0];
+    const extra = Array.from({ length: 1100 }, (_, i) => ({
+      ...template,
+      id: `bulk-flour-${i}`,
+      name: `Stone-ground flour, lot ${i}`,
+      composition: `Wheat flour from lot ${i}. `.padEnd(3000, '.'),
+    }));
+    const book = { ...exported, ingredients: [...exported.ingredients, ...extra] };
+    expect(JSON.stringify(book).length).toBeGreaterThan(3 * 1024 * 1024); // above the 2 MB of any other request
+    const res = await req('POST', '/api/book/import', manager, book);
+    expect(res.statusCode).toBe(200);
+    expect(res.json().ingredients.created).toHaveLength(1100);
+    expect(res.json().ingredients.unchanged).toBe(exported.ingredients.length);
+    const back = (await req('GET', '/api/book', chef)).json<Book>();
+    expect(back.ingredients.find((i) => i.id === 'bulk-flour-1099')).toEqual(extra[1099]);
+    const again = await req('POST', '/api/book/import', manager, book);
+    expect(again.json().ingredients).toEqual({ created: [], revised: [], unchanged: exported.ingredients.length + 1100 });
+    const changed = await req('POST', '/api/book/import', manager, {
+      ...book,
+      ingredients: book.ingredients.map((i) => (i.id === 'bulk-flour-7' ? { ...i, name: 'Stone-ground flour, lot 7 (new mill)' } : i)),
+    });
+    expect(changed.json().ingredients.revised).toEqual(['bulk-flour-7']);
+    const history = (await req('GET', '/api/ingredients/bulk-flour-7/revisions', chef)).json<{ revision: number }[]>();
+    expect(history.map((r) => r.revision).sort()).toEqual([1, 2]);
+  });
+
   it("carries the kitchen's address in the book, and a book without one keeps the kitchen's", async () => {
     const exported = (await req('GET', '/api/book', chef)).json<Book>();
     expect(exported.site.address).toBe('14 Tannery Row, Wexcombe (an invented address)');

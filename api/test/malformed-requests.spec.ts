@@ -703,11 +703,11 @@ const CORPUS: MalformedRequest[] = [
     ] as const
   ).map(([what, body, names]) => ({ what, method: 'POST' as const, url: '/api/book/import', send: () => json(body), status: 400, names })),
   {
-    what: 'a book over 2 MB',
+    what: 'a book over 32 MB',
     method: 'POST',
     url: '/api/book/import',
     send: () =>
-      json(book({ ingredients: Array.from({ length: 3000 }, (_, i) => ingredient({ id: `corpus-${i}`, composition: 'x'.repeat(800) })) })),
+      json(book({ ingredients: Array.from({ length: 9000 }, (_, i) => ingredient({ id: `corpus-${i}`, composition: 'x'.repeat(3900) })) })),
     status: 413,
     names: /too large/,
   },

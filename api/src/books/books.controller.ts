@@ -1,6 +1,8 @@
 import { Body, Controller, Get, HttpCode, Post } from '@nestjs/common';
+import { RouteConfig } from '@nestjs/platform-fastify';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import { bookSchema } from '@crumbproof/shared';
+import { MAX_BOOK_BYTES, type BodyLimitConfig } from '../common/limits';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody } from '../common/zod.pipe';
@@ -21,6 +23,7 @@ export class BooksController {
   @Post('import')
   @HttpCode(200)
   @Roles(['manager'])
+  @RouteConfig({ bodyLimit: MAX_BOOK_BYTES } satisfies BodyLimitConfig)
   @ApiOperation({ summary: 'Import a recipe book, merging by id; all or nothing' })
   @ApiZodBody(bookSchema)
   import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
