@@ -22,6 +22,9 @@ export interface NewDeclaration {
   body: ProductDeclaration;
 }
 
+/** Declarations kept per statement by addMany (a product's body is a few kilobytes). */
+const ADD_CHUNK = 200;
+
 /** The only place that reads and writes the declarations table. */
 @Injectable()
 export class DeclarationsRepository {
@@ -59,6 +62,33 @@ export class DeclarationsRepository {
       if (!kept) throw e;
       return kept;
     }
+  }
+
+  /**
+   * Keeps many declarations in a few statements, by `${recipeId} ${inputHash}`. One kept at the
+   * same moment elsewhere stands (its inputs are the same, so it declares the same) and is the one
+   * given back.
+   */
+  async addMany(values: readonly NewDeclaration[]): Promise<Map<string, KeptDeclaration>> {
+    const out = new Map<string, KeptDeclaration>();
+    for (let from = 0; from < values.length; from += ADD_CHUNK) {
+      const chunk = values.slice(from, from + ADD_CHUNK);
+      await this.declarations.bulkCreate(
+        chunk.map((v) => ({ ...v })),
+        { ignoreDuplicates: true },
+      );
+      const rows = await this.declarations.findAll({
+        where: { regime: chunk[0].regime, inputHash: { [Op.in]: [...new Set(chunk.map((v) => v.inputHash))] } },
+        attributes: ['id', 'recipeId', 'inputHash', 'createdAt'],
+      });
+      const bodies = new Map(chunk.map((v) => [`${v.recipeId} ${v.inputHash}`, v.body]));
+      for (const row of rows) {
+        const key = `${row.recipeId} ${row.inputHash}`;
+        const body = bodies.get(key);
+        if (body && !out.has(key)) out.set(key, { id: row.id as number, body, computedAt: row.createdAt });
+      }
+    }
+    return out;
   }
 
   /** The first declaration kept for each revision of a recipe under a regime. */

@@ -51,6 +51,9 @@ export interface ServedChecks {
   claimBasis: ClaimBasis;
 }
 
+/** Recipes declared and kept per step of `record` (each step one lookup and a few inserts). */
+const RECORD_CHUNK = 500;
+
 /**
  * Declarations of products, kept per recipe revision and regime and reused until anything they
  * depend on changes (an ingredient, a sub-recipe, the site's handling, the reference data).
@@ -130,16 +133,21 @@ export class DeclarationsService implements OnModuleInit {
       useRegime,
       inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })),
     );
-    for (const { code, head, slice, items, inputHash } of inputs) {
-      const kept =
-        found.get(`${head.rowId} ${inputHash}`) ??
-        (await this.kept.add({
+    const added = await this.kept.addMany(
+      inputs
+        .filter(({ head, inputHash }) => !found.has(`${head.rowId} ${inputHash}`))
+        .map(({ code, head, slice, inputHash }) => ({
           recipeId: head.rowId,
           recipeRevision: head.revision,
           regime: useRegime,
           inputHash,
           body: this.rules.declare(slice, code, useRegime),
-        }));
+        })),
+    );
+    for (const { code, head, items, inputHash } of inputs) {
+      const key = `${head.rowId} ${inputHash}`;
+      const kept = found.get(key) ?? added.get(key);
+      if (!kept) throw new Error(`The declaration of ${code} was not kept`);
       memo.set(
         `${useRegime} ${code}`,
         deepFreeze({
@@ -237,7 +245,8 @@ export class DeclarationsService implements OnModuleInit {
   async record(ids?: readonly string[]): Promise<number> {
     const state = await this.books.state();
     const todo = ids ?? state.book.recipes.map((r) => r.id);
-    for (const id of todo) await this.forProduct(id, undefined, state);
+    for (let from = 0; from < todo.length; from += RECORD_CHUNK)
+      await this.keptForProducts(todo.slice(from, from + RECORD_CHUNK), undefined, state);
     return todo.length;
   }
 

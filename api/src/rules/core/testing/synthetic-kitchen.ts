@@ -1,3 +1,4 @@
+import { toGrams } from '../quantities';
 import { bookSchema, type AllergenSource, type Book, type BookInput, type Unit } from '@crumbproof/shared';
 
 /**
@@ -120,6 +121,7 @@ export function syntheticKitchen(size: KitchenSize | KitchenShape = 'standard', 
     measured.push(isWater ? 'liquid' : how);
   }
   if (ingredients[0]) ingredients[0].gPerMl = 1;
+  const byId = new Map(ingredients.map((i) => [i.id, i]));
 
   const ingredientLine = (index: number): LineInput => {
     const use = ingredients[index].id;
@@ -148,7 +150,7 @@ export function syntheticKitchen(size: KitchenSize | KitchenShape = 'standard', 
       const id = `s${level}-${n}-${pick(STAGES)}`;
       const lines = subLines(level);
       const r: RecipeInput = { id, name: `${word()} ${id.split('-')[2]} ${level}.${n}`, lines };
-      if (rnd() < 0.4) r.finishedWeightG = Math.max(1, Math.round(mixGuess(lines) * (0.8 + rnd() * 0.15)));
+      if (rnd() < 0.4) r.finishedWeightG = Math.max(1, Math.floor(mixOf(lines, byId) * (0.8 + rnd() * 0.15)));
       recipes.push(r);
       ids.push(id);
     }
@@ -192,12 +194,12 @@ export function syntheticKitchen(size: KitchenSize | KitchenShape = 'standard', 
       used.add(key);
       lines.push(line);
     }
-    const mix = mixGuess(lines);
+    const mix = mixOf(lines, byId);
     recipes.push({
       id: `p${n}-${pick(GOODS)}`,
       name: `${word()} ${pick(GOODS)} ${n}`.replace(/^./, (c) => c.toUpperCase()),
       lines,
-      finishedWeightG: Math.max(1, Math.round(mix * (0.85 + rnd() * 0.1))),
+      finishedWeightG: Math.max(1, Math.floor(mix * (0.85 + rnd() * 0.1))),
       sale: { portionG: between(40, 120) },
     });
   }
@@ -218,14 +220,19 @@ export function syntheticKitchen(size: KitchenSize | KitchenShape = 'standard', 
   });
 }
 
-/** Roughly the mix of some lines, to invent a plausible finished weight. */
-function mixGuess(lines: LineInput[]): number {
+/**
+ * The mix weight of some lines, as the rules engine weighs them (toGrams with the book's metric
+ * measures; a sub-recipe line is in g or kg), so that an invented finished weight is never more
+ * than what goes into the recipe.
+ */
+function mixOf(lines: LineInput[], ingredients: ReadonlyMap<string, IngredientInput>): number {
   return lines.reduce((sum, l) => {
     if (l.role === 'contact' || l.qty === undefined) return sum;
-    if (l.unit === 'kg' || l.unit === 'l') return sum + l.qty * 1000;
-    if (l.unit === 'each') return sum + l.qty * 30;
-    if (l.unit === 'tsp') return sum + l.qty * 5;
-    return sum + l.qty;
+    const ingredient = ingredients.get(l.use);
+    if (!ingredient) return sum + (l.unit === 'kg' ? l.qty * 1000 : l.qty);
+    const weighed = toGrams(l.qty, l.unit ?? 'g', ingredient, 'metric');
+    if (!weighed.ok) throw new Error(`The synthetic line of ${l.use} cannot be weighed: it needs ${weighed.needs}.`);
+    return sum + weighed.grams;
   }, 0);
 }
 
