@@ -80,7 +80,8 @@ export function leafFacts(leaves: TreeNode[], lexicon: Lexicon, known = new Map<
       facts = ingredientFacts(ingredient, lexicon);
       known.set(ingredient.id, facts);
     }
-    return { node, ...facts };
+    const { known: isKnown, contains, mayContain, scan } = facts;
+    return { node, ingredient, known: isKnown, contains, mayContain, scan };
   });
 }
 

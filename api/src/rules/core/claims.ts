@@ -93,18 +93,21 @@ function perLeaf(all: LeafFacts[], said: IngredientSaid[], pick: (s: IngredientS
 /** fails wins over unverified, which wins over ok. */
 function settle(found: Found[]): ClaimResult {
   const status: ClaimStatus = found.some((f) => f.status === 'fails') ? 'fails' : found.length > 0 ? 'unverified' : 'ok';
-  // The same message by the same path is said once.
-  const seen = new Map<string, Set<string>>();
+  // The same message by the same path is said once: by path, its one message or the set of them.
+  const seen = new Map<string, string | Set<string>>();
   const reasons: ClaimReason[] = [];
   const keep = (f: Found) => {
     const key = f.key ?? pathKey(f.reason.path);
-    let messages = seen.get(key);
-    if (!messages) {
-      messages = new Set();
-      seen.set(key, messages);
+    const message = f.reason.message;
+    const said = seen.get(key);
+    if (said === undefined) seen.set(key, message);
+    else if (typeof said === 'string') {
+      if (said === message) return;
+      seen.set(key, new Set([said, message]));
+    } else {
+      if (said.has(message)) return;
+      said.add(message);
     }
-    if (messages.has(f.reason.message)) return;
-    messages.add(f.reason.message);
     reasons.push(f.reason);
   };
   for (const f of found) if (f.status === 'fails') keep(f);

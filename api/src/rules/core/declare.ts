@@ -206,10 +206,11 @@ interface Run {
   facts: Map<string, IngredientFacts>;
   claims: ClaimMemo;
   /**
-   * By regime and whether the product declares sulphites (`UK|true`), then ingredient id: the
-   * groups the ingredient declares, and its name as the list prints it.
+   * By regime and whether the product declares sulphites (`UK|true`), then id: the groups an
+   * ingredient or sub-recipe declares (a set, and in the regime's order), and an ingredient's
+   * name as the list prints it.
    */
-  marked: Map<string, { codes: Map<string, Set<string>>; names: Map<string, TextSegment[]> }>;
+  marked: Map<string, { codes: Map<string, Set<string>>; groups: Map<string, string[]>; names: Map<string, TextSegment[]> }>;
 }
 
 function startRun(book: Book): Run {
@@ -231,35 +232,31 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
   const markedKey = `${regime}|${String(sulphites.declared)}`;
   let marked = run.marked.get(markedKey);
   if (!marked) {
-    marked = { codes: new Map(), names: new Map() };
+    marked = { codes: new Map(), groups: new Map(), names: new Map() };
     run.marked.set(markedKey, marked);
   }
-  const leafCodes = marked.codes;
-  // The groups each node declares: a leaf's own, a sub-recipe's the union of its children's (each node worked out once).
-  const codesAt = new Map<TreeNode, Set<string>>();
+  // The groups each item declares: an ingredient's own, a sub-recipe's the union of its lines'. They
+  // are the same wherever the item is used, so each is worked out once for the run (ids are unique).
+  const { codes: codesById, groups: groupsById } = marked;
   const codesOf = (node: TreeNode): Set<string> => {
-    let codes = codesAt.get(node);
+    let codes = codesById.get(node.id);
     if (codes) return codes;
+    codes = new Set<string>();
     if (node.kind === 'ingredient') {
       const f = byNode.get(node);
-      codes = f ? leafCodes.get(f.ingredient.id) : undefined;
-      if (!codes) {
-        const own = new Set<string>();
-        if (f) for (const use of declaredUses(f, rules, sulphites.declared)) groupsOf(use.source, rules).forEach((g) => own.add(g.code));
-        if (f) leafCodes.set(f.ingredient.id, own);
-        codes = own;
-      }
-    } else {
-      const union = new Set<string>();
-      for (const child of node.children) codesOf(child).forEach((c) => union.add(c));
-      codes = union;
-    }
-    codesAt.set(node, codes);
+      if (f) for (const use of declaredUses(f, rules, sulphites.declared)) groupsOf(use.source, rules).forEach((g) => codes.add(g.code));
+    } else for (const child of node.children) codesOf(child).forEach((c) => codes.add(c));
+    codesById.set(node.id, codes);
     return codes;
   };
   const groupsAt = (node: TreeNode): string[] => {
-    const codes = codesOf(node);
-    return rules.groups.map((g) => g.code).filter((c) => codes.has(c));
+    let groups = groupsById.get(node.id);
+    if (!groups) {
+      const codes = codesOf(node);
+      groups = rules.groups.map((g) => g.code).filter((c) => codes.has(c));
+      groupsById.set(node.id, groups);
+    }
+    return [...groups];
   };
   const list = ingredientList(tree, rules, groupsAt);
 
