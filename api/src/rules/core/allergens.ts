@@ -15,7 +15,7 @@ import {
 } from '@crumbproof/shared';
 import { scanCompositionShared } from './composition-scan';
 import type { AllergenGroup, Exemption, Lexicon, RegimeRules } from './reference-schema';
-import type { TreeNode } from './tree';
+import { pathKey, type TreeNode } from './tree';
 
 export interface SourceUse {
   source: AllergenSource;
@@ -42,38 +42,63 @@ export function normalise(entry: SourceEntry): Omit<SourceUse, 'origin'> {
   return typeof entry === 'string' ? { source: entry } : { ...entry };
 }
 
-/** Supplier statement, composition scan and stated sulphite content of each leaf. */
-export function leafFacts(leaves: TreeNode[], lexicon: Lexicon): LeafFacts[] {
-  const scans = new Map<string, CompositionTerms>();
+/** What an ingredient brings wherever it is used: a leaf's facts without its place in the tree. */
+export type IngredientFacts = Omit<LeafFacts, 'node'>;
+
+/** Supplier statement, composition scan and stated sulphite content of one ingredient. */
+export function ingredientFacts(ingredient: BookIngredient, lexicon: Lexicon): IngredientFacts {
+  const scan = scanCompositionShared(ingredient.composition ?? '', lexicon);
+  const contains: SourceUse[] = (ingredient.contains ?? []).map((e) => ({ ...normalise(e), origin: 'supplier' }));
+  for (const hit of scan.allergens) {
+    if (!contains.some((c) => c.source === hit.source)) {
+      contains.push({ source: hit.source, ...(hit.species ? { species: hit.species } : {}), origin: 'composition', term: hit.matched });
+    }
+  }
+  if ((ingredient.sulphiteMgPerKg ?? 0) > 0 && !contains.some((c) => c.source === 'sulphites')) {
+    contains.push({ source: 'sulphites', origin: 'sulphite-content' });
+  }
+  const mayContain: SourceUse[] = ingredient.mayContain.map((e) => ({ ...normalise(e), origin: 'supplier' as const }));
+  for (const hit of scan.precautionary) {
+    if (!mayContain.some((m) => m.source === hit.source) && !contains.some((c) => c.source === hit.source)) {
+      mayContain.push({ source: hit.source, origin: 'composition', term: hit.matched });
+    }
+  }
+  return { ingredient, known: ingredient.contains !== undefined, contains, mayContain, scan };
+}
+
+/**
+ * Supplier statement, composition scan and stated sulphite content of each leaf. `known` keeps
+ * each ingredient's facts once worked out (by id, for one book and lexicon), shared by every leaf
+ * that uses it; they are never changed after.
+ */
+export function leafFacts(leaves: TreeNode[], lexicon: Lexicon, known = new Map<string, IngredientFacts>()): LeafFacts[] {
   return leaves.map((node) => {
     const ingredient = node.ingredient;
     if (!ingredient) throw new Error(`${node.name} is not an ingredient.`);
-    let scan = scans.get(ingredient.id);
-    if (!scan) {
-      scan = scanCompositionShared(ingredient.composition ?? '', lexicon);
-      scans.set(ingredient.id, scan);
+    let facts = known.get(ingredient.id);
+    if (!facts) {
+      facts = ingredientFacts(ingredient, lexicon);
+      known.set(ingredient.id, facts);
     }
-    const contains: SourceUse[] = (ingredient.contains ?? []).map((e) => ({ ...normalise(e), origin: 'supplier' }));
-    for (const hit of scan.allergens) {
-      if (!contains.some((c) => c.source === hit.source)) {
-        contains.push({ source: hit.source, ...(hit.species ? { species: hit.species } : {}), origin: 'composition', term: hit.matched });
-      }
-    }
-    if ((ingredient.sulphiteMgPerKg ?? 0) > 0 && !contains.some((c) => c.source === 'sulphites')) {
-      contains.push({ source: 'sulphites', origin: 'sulphite-content' });
-    }
-    const mayContain: SourceUse[] = ingredient.mayContain.map((e) => ({ ...normalise(e), origin: 'supplier' as const }));
-    for (const hit of scan.precautionary) {
-      if (!mayContain.some((m) => m.source === hit.source) && !contains.some((c) => c.source === hit.source)) {
-        mayContain.push({ source: hit.source, origin: 'composition', term: hit.matched });
-      }
-    }
-    return { node, ingredient, known: ingredient.contains !== undefined, contains, mayContain, scan };
+    const { known: isKnown, contains, mayContain, scan } = facts;
+    return { node, ingredient, known: isKnown, contains, mayContain, scan };
   });
 }
 
-export function groupsOf(source: AllergenSource, rules: RegimeRules): AllergenGroup[] {
-  return rules.groups.filter((g) => g.members.includes(source));
+const groupsBySource = new WeakMap<RegimeRules, Map<AllergenSource, AllergenGroup[]>>();
+/** The regime's groups a source counts under, in the regime's order (worked out once per regime and source; never change it). */
+export function groupsOf(source: AllergenSource, rules: RegimeRules): readonly AllergenGroup[] {
+  let bySource = groupsBySource.get(rules);
+  if (!bySource) {
+    bySource = new Map();
+    groupsBySource.set(rules, bySource);
+  }
+  let groups = bySource.get(source);
+  if (!groups) {
+    groups = rules.groups.filter((g) => g.members.includes(source));
+    bySource.set(source, groups);
+  }
+  return groups;
 }
 
 /** The exemption that keeps this use out of the declaration under this regime, if any. */
@@ -87,20 +112,18 @@ export function declaredUses(facts: LeafFacts, rules: RegimeRules, sulphitesDecl
   return facts.contains.filter((u) => !exemptionOf(u, rules) && (u.source !== 'sulphites' || sulphitesDeclared));
 }
 
-const pathKey = (p: string[]) => p.join('\u0000');
 const pushUnique = <T>(list: T[], item: T) => {
   if (!list.includes(item)) list.push(item);
 };
 /** The keys of the paths already in each via list, so a path is found in it without joining every other. */
 const pathKeys = new WeakMap<string[][], Set<string>>();
 /** Adds a path to a via list unless the same path is in it already: each distinct path once. */
-export const pushPath = (list: string[][], path: string[]) => {
+export const pushPath = (list: string[][], path: string[], key = pathKey(path)) => {
   let keys = pathKeys.get(list);
   if (!keys) {
     keys = new Set(list.map(pathKey));
     pathKeys.set(list, keys);
   }
-  const key = pathKey(path);
   if (keys.has(key)) return;
   keys.add(key);
   list.push(path);
@@ -117,10 +140,10 @@ export function containsFor(all: LeafFacts[], rules: RegimeRules, sulphitesDecla
           entry.species ??= [];
           pushUnique(entry.species, use.species);
         }
-        pushPath(entry.via, facts.node.path);
+        pushPath(entry.via, facts.node.path, facts.node.key);
         // Still in the food, so declared here (Regulation (EU) No 1169/2011 Art. 9(1)(c) and 21),
         // and said to come through contact.
-        if (facts.node.role === 'contact') pushPath((entry.contactVia ??= []), facts.node.path);
+        if (facts.node.role === 'contact') pushPath((entry.contactVia ??= []), facts.node.path, facts.node.key);
         found.set(group.code, entry);
       }
     }
@@ -144,7 +167,7 @@ export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
       const ex = exemptionOf(use, rules);
       if (!ex || !use.form) continue;
       const same = out.find((o) => o.ingredient === facts.ingredient.id && o.source === use.source && o.form === use.form);
-      if (same) pushPath(same.via, facts.node.path);
+      if (same) pushPath(same.via, facts.node.path, facts.node.key);
       else
         out.push({
           ingredient: facts.ingredient.id,
@@ -161,10 +184,15 @@ export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
 
 export function unknownFor(all: LeafFacts[]): UnknownAllergens[] {
   const out: UnknownAllergens[] = [];
+  const byIngredient = new Map<string, UnknownAllergens>();
   for (const facts of all.filter((f) => !f.known)) {
-    const same = out.find((o) => o.ingredient === facts.ingredient.id);
-    if (same) pushPath(same.via, facts.node.path);
-    else out.push({ ingredient: facts.ingredient.id, name: facts.ingredient.name, via: [facts.node.path] });
+    const same = byIngredient.get(facts.ingredient.id);
+    if (same) pushPath(same.via, facts.node.path, facts.node.key);
+    else {
+      const entry = { ingredient: facts.ingredient.id, name: facts.ingredient.name, via: [facts.node.path] };
+      byIngredient.set(entry.ingredient, entry);
+      out.push(entry);
+    }
   }
   return out;
 }
@@ -184,18 +212,20 @@ export const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
  */
 export function precautionsFor(all: LeafFacts[], site: Site, rules: RegimeRules): PrecautionStatement[] {
   const out: PrecautionStatement[] = [];
+  const statements = new Map<string, PrecautionStatement>();
   for (const facts of all) {
     for (const use of facts.mayContain) {
       if (exemptionOf(use, rules)) continue;
       const allergens = groupsOf(use.source, rules).map((g) => g.code);
       if (allergens.length === 0) continue;
       const origin = use.origin === 'composition' ? 'composition' : 'supplier';
-      const same = out.find((o) => o.origin === origin && o.ingredient === facts.ingredient.id && o.source === use.source);
+      const statementKey = `${origin}|${facts.ingredient.id}|${use.source}`;
+      const same = statements.get(statementKey);
       if (same) {
-        pushPath(same.via, facts.node.path);
+        pushPath(same.via, facts.node.path, facts.node.key);
         continue;
       }
-      out.push({
+      const statement: PrecautionStatement = {
         source: use.source,
         allergens,
         origin,
@@ -204,7 +234,9 @@ export function precautionsFor(all: LeafFacts[], site: Site, rules: RegimeRules)
         controls: null,
         via: [facts.node.path],
         message: `${precautionWho(facts, use)}: may contain ${SOURCE_LABELS[use.source]}`,
-      });
+      };
+      statements.set(statementKey, statement);
+      out.push(statement);
     }
   }
   for (const handled of site.handles) {

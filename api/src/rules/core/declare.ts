@@ -7,6 +7,7 @@ import {
   type DeclarationNotice,
   type DeclarationSet,
   type Regime,
+  type TextSegment,
   type VagueHit,
   type VagueMention,
 } from '@crumbproof/shared';
@@ -20,11 +21,12 @@ import {
   precautionsFor,
   pushPath,
   unknownFor,
+  type IngredientFacts,
   type LeafFacts,
 } from './allergens';
 import { checkBook } from './book-check';
 import { recipesAbove } from './book-graph';
-import { claimsFor } from './claims';
+import { claimsFor, type ClaimMemo } from './claims';
 import { BookProblemsError, UnknownProductError } from './errors';
 import { ingredientList } from './ingredient-list';
 import { quidFor } from './quid';
@@ -32,7 +34,7 @@ import type { ReferenceData, RegimeRules } from './reference-schema';
 import { mayContainText, renderList, type Mark } from './statement';
 import { lineWeightWarnings, portionWarnings, type WeighedLineFact } from './sanity';
 import { sulphitesFor } from './sulphites';
-import { buildTree, leavesOf, lineGrams, measuresOf, type ProductTree, type TreeNode } from './tree';
+import { buildTree, indexBook, leavesOf, lineGrams, type BookIndex, type ProductTree, type TreeNode } from './tree';
 
 export interface DeclareOptions {
   /** Defaults to the book's site regime. */
@@ -52,7 +54,8 @@ export function declareAll(book: Book, refs: ReferenceData, opts: DeclareOptions
   const problems = checkBook(book);
   if (problems.length > 0) throw new BookProblemsError(problems);
   const regime = opts.regime ?? book.site.regime;
-  return { declarations: book.recipes.filter((r) => r.sale).map((r) => declareChecked(book, r.id, refs, regime)) };
+  const run = startRun(book);
+  return { declarations: book.recipes.filter((r) => r.sale).map((r) => declareChecked(book, r.id, refs, regime, run)) };
 }
 
 /**
@@ -73,12 +76,13 @@ export function redeclareAfterChange(
   const regime = opts.regime ?? book.site.regime;
   const above = recipesAbove(book, changedId);
   const kept = new Map(previous.declarations.map((d) => [d.product, d]));
+  const run = startRun(book);
   return {
     declarations: book.recipes
       .filter((r) => r.sale)
       .map((r) => {
         const old = kept.get(r.id);
-        return old && old.regime === regime && !above.has(r.id) && r.id !== changedId ? old : declareChecked(book, r.id, refs, regime);
+        return old && old.regime === regime && !above.has(r.id) && r.id !== changedId ? old : declareChecked(book, r.id, refs, regime, run);
       }),
   };
 }
@@ -175,53 +179,84 @@ function ingredientWarnings(all: LeafFacts[], rules: RegimeRules): DeclarationNo
 }
 
 /** The product's own weighed lines, one by one as listed (not merged), contact lines left out. */
-function weighedLines(book: Book, tree: ProductTree): WeighedLineFact[] {
-  const measures = measuresOf(book);
-  return tree.recipe.lines.flatMap((line, index) => {
+function weighedLines(index: BookIndex, tree: ProductTree): WeighedLineFact[] {
+  return tree.recipe.lines.flatMap((line, n) => {
     if (!isWeighed(line)) return [];
-    const ingredient = book.ingredients.find((i) => i.id === line.use);
-    const name = ingredient?.name ?? book.recipes.find((r) => r.id === line.use)?.name ?? line.use;
-    const w = lineGrams(line, ingredient, measures);
-    return w.ok ? [{ line: index + 1, name, grams: w.grams }] : [];
+    const ingredient = index.ingredients.get(line.use);
+    const name = ingredient?.name ?? index.recipes.get(line.use)?.name ?? line.use;
+    const w = lineGrams(line, ingredient, index.measures);
+    return w.ok ? [{ line: n + 1, name, grams: w.grams }] : [];
   });
 }
 
 /** Quantities out of proportion: a line heavier than the finished product, a portion heavier than it. */
-function quantityWarnings(book: Book, tree: ProductTree): DeclarationNotice[] {
+function quantityWarnings(index: BookIndex, tree: ProductTree): DeclarationNotice[] {
   return [
-    ...lineWeightWarnings(tree.recipe.name, tree.recipe.finishedWeightG, weighedLines(book, tree)),
+    ...lineWeightWarnings(tree.recipe.name, tree.recipe.finishedWeightG, weighedLines(index, tree)),
     ...portionWarnings(tree.recipe.name, tree.recipe.sale?.portionG, tree.finishedG),
   ];
 }
 
-function declareChecked(book: Book, productId: string, refs: ReferenceData, regime: Regime): Declaration {
+/**
+ * What declaring several products of one book shares: the book's index (weighed lines) and each
+ * ingredient's facts, worked out once. Declaring one product alone starts a run of its own.
+ */
+interface Run {
+  index: BookIndex;
+  facts: Map<string, IngredientFacts>;
+  claims: ClaimMemo;
+  /**
+   * By regime and whether the product declares sulphites (`UK|true`), then id: the groups an
+   * ingredient or sub-recipe declares (a set, and in the regime's order), and an ingredient's
+   * name as the list prints it.
+   */
+  marked: Map<string, { codes: Map<string, Set<string>>; groups: Map<string, string[]>; names: Map<string, TextSegment[]> }>;
+}
+
+function startRun(book: Book): Run {
+  return { index: indexBook(book), facts: new Map(), claims: new WeakMap(), marked: new Map() };
+}
+
+function declareChecked(book: Book, productId: string, refs: ReferenceData, regime: Regime, run = startRun(book)): Declaration {
   const rules = refs.regimes[regime];
-  const tree = buildTree(book, productId);
-  const facts = leafFacts(leavesOf(tree.children), refs.lexicon);
+  const tree = buildTree(book, productId, run.index);
+  const facts = leafFacts(leavesOf(tree.children), refs.lexicon, run.facts);
   const byNode = new Map<TreeNode, LeafFacts>(facts.map((f) => [f.node, f]));
 
   const sulphites = sulphitesFor(facts, tree.finishedG, rules);
   const contains = containsFor(facts, rules, sulphites.declared);
   const precautions = precautionsFor(facts, book.site, rules);
   const mayContain = mayContainFor(precautions, rules, contains);
-  const claims = claimsFor(facts, book.site, rules, tree.finishedG);
+  const claims = claimsFor(facts, book.site, rules, tree.finishedG, run.claims);
 
-  // The groups each node declares: a leaf's own, a sub-recipe's the union of its children's (each node worked out once).
-  const codesAt = new Map<TreeNode, Set<string>>();
+  const markedKey = `${regime}|${String(sulphites.declared)}`;
+  let marked = run.marked.get(markedKey);
+  if (!marked) {
+    marked = { codes: new Map(), groups: new Map(), names: new Map() };
+    run.marked.set(markedKey, marked);
+  }
+  // The groups each item declares: an ingredient's own, a sub-recipe's the union of its lines'. They
+  // are the same wherever the item is used, so each is worked out once for the run (ids are unique).
+  const { codes: codesById, groups: groupsById } = marked;
   const codesOf = (node: TreeNode): Set<string> => {
-    let codes = codesAt.get(node);
+    let codes = codesById.get(node.id);
     if (codes) return codes;
     codes = new Set<string>();
     if (node.kind === 'ingredient') {
       const f = byNode.get(node);
       if (f) for (const use of declaredUses(f, rules, sulphites.declared)) groupsOf(use.source, rules).forEach((g) => codes.add(g.code));
     } else for (const child of node.children) codesOf(child).forEach((c) => codes.add(c));
-    codesAt.set(node, codes);
+    codesById.set(node.id, codes);
     return codes;
   };
   const groupsAt = (node: TreeNode): string[] => {
-    const codes = codesOf(node);
-    return rules.groups.map((g) => g.code).filter((c) => codes.has(c));
+    let groups = groupsById.get(node.id);
+    if (!groups) {
+      const codes = codesOf(node);
+      groups = rules.groups.map((g) => g.code).filter((c) => codes.has(c));
+      groupsById.set(node.id, groups);
+    }
+    return [...groups];
   };
   const list = ingredientList(tree, rules, groupsAt);
 
@@ -248,11 +283,11 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
     }
     return marks;
   };
-  const rendered = renderList(list.entries, contains, rules, marksOf);
+  const rendered = renderList(list.entries, contains, rules, marksOf, marked.names);
   const quid = quidFor(tree, tree.recipe.sale?.quid ?? []);
 
   const warnings: DeclarationNotice[] = [...ingredientWarnings(facts, rules), ...sulphites.warnings, ...list.warnings];
-  warnings.push(...quantityWarnings(book, tree));
+  warnings.push(...quantityWarnings(run.index, tree));
   const exempt = exemptUses(facts, rules);
   for (const e of exempt) {
     warnings.push({

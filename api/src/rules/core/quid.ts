@@ -2,8 +2,13 @@ import type { DeclarationNotice, QuidEntry } from '@crumbproof/shared';
 import { compare, round } from './compare';
 import type { ProductTree, TreeNode } from './tree';
 
-function all(nodes: TreeNode[]): TreeNode[] {
-  return nodes.flatMap((n) => [n, ...all(n.children)]);
+/** Every node of the tree, depth first, each before its children. */
+function all(nodes: TreeNode[], out: TreeNode[] = []): TreeNode[] {
+  for (const n of nodes) {
+    out.push(n);
+    all(n.children, out);
+  }
+  return out;
 }
 
 /** Whole numbers from 1 % up, one decimal below (rounding is common practice, not fixed by the Regulation; from memory). */
@@ -22,7 +27,7 @@ const lowerFirst = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
  * "prepared with X g of Y per 100 g" instead.
  */
 export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; errors: DeclarationNotice[] } {
-  const nodes = all(tree.children).filter((n) => n.role !== 'contact');
+  const nodes = ids.length === 0 ? [] : all(tree.children).filter((n) => n.role !== 'contact');
   const errors: DeclarationNotice[] = [];
   const found = ids.flatMap((id) => {
     const uses = nodes.filter((n) => n.id === id);

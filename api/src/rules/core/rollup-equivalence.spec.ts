@@ -1,4 +1,4 @@
-import { bookSchema, type Book } from '@crumbproof/shared';
+import { bookSchema, type Book, type Regime } from '@crumbproof/shared';
 import demo from '../../database/seeders/demo-book.json';
 import { loadReferenceData } from '../reference-data';
 import { scanComposition, scanCompositionShared } from './composition-scan';
@@ -50,6 +50,25 @@ describe.each<[string, Book]>([
       const text = i.composition ?? '';
       expect(scanCompositionShared(text, refs.lexicon)).toEqual(scanComposition(text, refs.lexicon));
     }
+  });
+});
+
+describe.each<[string, Book, Regime[]]>([
+  ['the small synthetic kitchen', small, ['US', 'ANZ']],
+  ['the demo kitchen', demoBook, ['EU', 'UK', 'US', 'CA', 'ANZ']],
+])('declaring every product of %s under another regime', (_name, book, regimes) => {
+  it.each(regimes)('under %s gives exactly what declaring each product alone gives, every field', (regime) => {
+    const all = declareAll(book, refs, { regime }).declarations;
+    const alone = book.recipes.filter((r) => r.sale).map((r) => declare(book, r.id, refs, { regime }));
+    expect(all).toHaveLength(alone.length);
+    all.forEach((d, n) => expect(d).toEqual(alone[n]));
+  });
+
+  it('gives each regime its own declarations, one regime after another', () => {
+    const first = declareAll(book, refs, { regime: regimes[0] }).declarations;
+    const again = declareAll(book, refs).declarations;
+    expect(again).toEqual(book.recipes.filter((r) => r.sale).map((r) => declare(book, r.id, refs)));
+    expect(first.every((d) => d.regime === regimes[0])).toBe(true);
   });
 });
 

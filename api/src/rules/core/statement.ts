@@ -71,15 +71,29 @@ export function renderName(name: string, marks: Mark[]): TextSegment[] {
   return merge(segments);
 }
 
-function renderEntries(entries: DeclaredIngredient[], marksOf: (ingredientId: string) => Mark[]): TextSegment[] {
-  const out: TextSegment[] = [];
+function renderEntries(
+  entries: DeclaredIngredient[],
+  marksOf: (ingredientId: string) => Mark[],
+  names: Map<string, TextSegment[]>,
+  out: TextSegment[] = [],
+): TextSegment[] {
   entries.forEach((e, i) => {
     if (i > 0) out.push({ text: ', ', emphasis: false });
     if (e.kind === 'recipe') {
       out.push({ text: e.name, emphasis: false });
-      if (e.children.length > 0)
-        out.push({ text: ' (', emphasis: false }, ...renderEntries(e.children, marksOf), { text: ')', emphasis: false });
-    } else out.push(...renderName(e.name, marksOf(e.id)));
+      if (e.children.length > 0) {
+        out.push({ text: ' (', emphasis: false });
+        renderEntries(e.children, marksOf, names, out);
+        out.push({ text: ')', emphasis: false });
+      }
+      return;
+    }
+    let name = names.get(e.id);
+    if (!name) {
+      name = renderName(e.name, marksOf(e.id));
+      names.set(e.id, name);
+    }
+    out.push(...name);
   });
   return out;
 }
@@ -118,19 +132,19 @@ export interface RenderedList {
  * The list in the regime's own form. EU/UK: allergens emphasised within the list and no
  * "Contains" statement (Commission Notice 2017/C 428/01 §3.5). US and Canada: the list,
  * then a "Contains:" statement right after it. ANZ: names in bold in the list and a bold
- * "Contains" summary.
+ * "Contains" summary. `names` keeps each ingredient's name as rendered, by id, for lists of
+ * one book under the same marks (regime, sulphites declared or not); it is never changed after.
  */
 export function renderList(
   entries: DeclaredIngredient[],
   contains: ContainedAllergen[],
   rules: RegimeRules,
   marksOf: (ingredientId: string) => Mark[],
+  rendered = new Map<string, TextSegment[]>(),
 ): RenderedList {
-  const segments: TextSegment[] = [
-    { text: rules.statement.heading, emphasis: false },
-    ...renderEntries(entries, marksOf),
-    { text: '.', emphasis: false },
-  ];
+  const segments: TextSegment[] = [{ text: rules.statement.heading, emphasis: false }];
+  renderEntries(entries, marksOf, rendered, segments);
+  segments.push({ text: '.', emphasis: false });
   const style = rules.statement.contains;
   const names = containsNames(contains, rules);
   if (style && names.length > 0) {

@@ -30,6 +30,8 @@ export interface TreeNode {
   share: number;
   /** Ids from the product down to this node. */
   path: string[];
+  /** The path as one string, the same for the same ids: tells paths apart without comparing arrays. */
+  key: string;
   ingredient?: BookIngredient;
   recipe?: BookRecipe;
   children: TreeNode[];
@@ -54,40 +56,78 @@ export function lineGrams(line: WeighedLine, ingredient: BookIngredient | undefi
   return { ok: true, grams: line.unit === 'kg' ? line.qty * 1000 : line.qty };
 }
 
-export function buildTree(book: Book, productId: string): ProductTree {
-  const ingredients = new Map(book.ingredients.map((i) => [i.id, i]));
-  const recipes = new Map(book.recipes.map((r) => [r.id, r]));
-  const measures = measuresOf(book);
-  const product = recipes.get(productId);
+/**
+ * The book looked up by id, with each recipe's lines weighed and merged once: built once for a
+ * whole book's declarations and shared by every product's tree.
+ */
+export interface BookIndex {
+  ingredients: Map<string, BookIngredient>;
+  recipes: Map<string, BookRecipe>;
+  measures: MeasureSystem;
+  weighed: Map<string, Weighed[]>;
+  mixes: Map<string, number>;
+}
+
+export function indexBook(book: Book): BookIndex {
+  return {
+    ingredients: new Map(book.ingredients.map((i) => [i.id, i])),
+    recipes: new Map(book.recipes.map((r) => [r.id, r])),
+    measures: measuresOf(book),
+    weighed: new Map(),
+    mixes: new Map(),
+  };
+}
+
+/** A recipe's lines in grams, lines of the same id and role merged (worked out once per index). */
+function weighedLinesOf(index: BookIndex, recipe: BookRecipe): Weighed[] {
+  const done = index.weighed.get(recipe.id);
+  if (done) return done;
+  const lines = mergeWeighed(
+    recipe.lines.map((line) => {
+      const ingredient = index.ingredients.get(line.use);
+      const recipeUsed = index.recipes.get(line.use);
+      let grams = 0;
+      if (isWeighed(line)) {
+        const w = lineGrams(line, ingredient, index.measures);
+        if (!w.ok)
+          throw new Error(`${recipe.name} uses ${ingredient?.name ?? line.use} in a unit that cannot be weighed; check the book first.`);
+        grams = w.grams;
+      }
+      return { line, ingredient, recipe: recipeUsed, grams };
+    }),
+  );
+  index.weighed.set(recipe.id, lines);
+  return lines;
+}
+
+/** The sum of a recipe's merged line weights (contact lines weigh 0). */
+export function mixOfRecipe(index: BookIndex, recipe: BookRecipe): number {
+  let mix = index.mixes.get(recipe.id);
+  if (mix === undefined) {
+    mix = weighedLinesOf(index, recipe).reduce((sum, l) => sum + l.grams, 0);
+    index.mixes.set(recipe.id, mix);
+  }
+  return mix;
+}
+
+/** Joins a path's ids into its key (ids are lower-case letters, digits and hyphens, so never hold it). */
+export const PATH_SEPARATOR = '\u0000';
+export const pathKey = (path: string[]): string => path.join(PATH_SEPARATOR);
+
+export function buildTree(book: Book, productId: string, index: BookIndex = indexBook(book)): ProductTree {
+  const product = index.recipes.get(productId);
   if (!product) throw new Error(`There is no recipe '${productId}' in this book.`);
 
-  const weigh = (recipe: BookRecipe) =>
-    mergeWeighed(
-      recipe.lines.map((line) => {
-        const ingredient = ingredients.get(line.use);
-        const recipeUsed = recipes.get(line.use);
-        let grams = 0;
-        if (isWeighed(line)) {
-          const w = lineGrams(line, ingredient, measures);
-          if (!w.ok)
-            throw new Error(`${recipe.name} uses ${ingredient?.name ?? line.use} in a unit that cannot be weighed; check the book first.`);
-          grams = w.grams;
-        }
-        return { line, ingredient, recipe: recipeUsed, grams };
-      }),
-    );
-
-  const mixOf = (recipe: BookRecipe) => weigh(recipe).reduce((sum, l) => sum + l.grams, 0);
-
-  const expand = (recipe: BookRecipe, path: string[], factor: number, share: number, contact: boolean): TreeNode[] => {
-    const lines = weigh(recipe);
-    const mix = lines.reduce((sum, l) => sum + l.grams, 0);
+  const expand = (recipe: BookRecipe, path: string[], key: string, factor: number, share: number, contact: boolean): TreeNode[] => {
+    const lines = weighedLinesOf(index, recipe);
+    const mix = mixOfRecipe(index, recipe);
     return lines.map(({ line, ingredient, recipe: sub, grams }) => {
       const role: LineRole = contact || line.role === 'contact' ? 'contact' : 'ingredient';
       const usedG = role === 'contact' ? 0 : grams;
       const massG = usedG * factor;
       const nodeShare = mix > 0 ? (share * usedG) / mix : 0;
       const nodePath = [...path, line.use];
+      const nodeKey = `${key}${PATH_SEPARATOR}${line.use}`;
       if (ingredient) {
         return {
           kind: 'ingredient',
@@ -98,13 +138,14 @@ export function buildTree(book: Book, productId: string): ProductTree {
           massG,
           share: nodeShare,
           path: nodePath,
+          key: nodeKey,
           ingredient,
           children: [],
         };
       }
       if (!sub) throw new Error(`${recipe.name} uses '${line.use}', which is not in this book; check the book first.`);
       if (path.includes(sub.id)) throw new Error(`${sub.name} contains itself; check the book first.`);
-      const batch = sub.finishedWeightG ?? mixOf(sub);
+      const batch = sub.finishedWeightG ?? mixOfRecipe(index, sub);
       const childFactor = batch > 0 ? massG / batch : 0;
       return {
         kind: 'recipe',
@@ -115,18 +156,19 @@ export function buildTree(book: Book, productId: string): ProductTree {
         massG,
         share: nodeShare,
         path: nodePath,
+        key: nodeKey,
         recipe: sub,
-        children: expand(sub, nodePath, childFactor, nodeShare, role === 'contact'),
+        children: expand(sub, nodePath, nodeKey, childFactor, nodeShare, role === 'contact'),
       };
     });
   };
 
-  const mixG = mixOf(product);
+  const mixG = mixOfRecipe(index, product);
   return {
     recipe: product,
     mixG,
     finishedG: product.finishedWeightG ?? mixG,
-    children: expand(product, [product.id], 1, 1, false),
+    children: expand(product, [product.id], product.id, 1, 1, false),
   };
 }
 
@@ -150,6 +192,10 @@ function mergeWeighed(lines: Weighed[]): Weighed[] {
 }
 
 /** Every ingredient node (leaf) of the tree, depth first in line order. */
-export function leavesOf(nodes: TreeNode[]): TreeNode[] {
-  return nodes.flatMap((n) => (n.kind === 'ingredient' ? [n] : leavesOf(n.children)));
+export function leavesOf(nodes: TreeNode[], out: TreeNode[] = []): TreeNode[] {
+  for (const n of nodes) {
+    if (n.kind === 'ingredient') out.push(n);
+    else leavesOf(n.children, out);
+  }
+  return out;
 }
