@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Book, ProductDeclaration } from '@crumbproof/shared';
+import type { Book, ProductDeclaration, ServedDeclaration } from '@crumbproof/shared';
 import { QueryTypes } from 'sequelize';
 import { startTestApp, type TestApp } from './support/test-app';
 
@@ -163,6 +163,32 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(changed.json().ingredients.revised).toEqual(['bulk-flour-7']);
     const history = (await req('GET', '/api/ingredients/bulk-flour-7/revisions', chef)).json<{ revision: number }[]>();
     expect(history.map((r) => r.revision).sort()).toEqual([1, 2]);
+  });
+
+  it('keeps a declaration for each of hundreds of new recipes at import, timed as the database clock says', async () => {
+    const { site } = (await req('GET', '/api/book', chef)).json<Book>();
+    const recipes = Array.from({ length: 520 }, (_, i) => ({
+      id: `tray-bake-${i}`,
+      name: `Tray bake ${i}`,
+      lines: [
+        { use: 'plain-flour', qty: 100, unit: 'g' as const },
+        { use: 'butter', qty: 20 + (i % 50), unit: 'g' as const },
+      ],
+      sale: { portionG: 60 },
+    }));
+    const before = await count('declarations');
+    const started = Date.now();
+    const res = await req('POST', '/api/book/import', manager, { crumbproofBook: 1, site, ingredients: [], recipes });
+    expect(res.statusCode).toBe(200);
+    expect(res.json().recipes.created).toHaveLength(520);
+    expect(await count('declarations')).toBeGreaterThanOrEqual(before + 520);
+    const stored = await count('declarations');
+    const last = (await req('GET', '/api/recipes/tray-bake-519/declaration', counter)).json<ProductDeclaration>();
+    expect(await count('declarations')).toBe(stored); // served from what the import kept
+    expect(last.contains.map((c) => c.allergen)).toEqual(['gluten', 'milk']);
+    const at = Date.parse((last as ServedDeclaration).basis.computedAt);
+    expect(at).toBeGreaterThanOrEqual(started - 1000);
+    expect(at).toBeLessThanOrEqual(Date.now() + 1000);
   });
 
   it("carries the kitchen's address in the book, and a book without one keeps the kitchen's", async () => {

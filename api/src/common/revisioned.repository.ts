@@ -2,6 +2,7 @@ import { Op, type ModelStatic, type Transaction, type WhereOptions } from 'seque
 import type { Model } from 'sequelize-typescript';
 import { AppError } from './app-error';
 import { parseJson } from './json-column';
+import { jsonBytes, statementChunks } from './statement-chunks';
 
 export interface RevisionedRow {
   id: number;
@@ -37,7 +38,7 @@ export interface Current<B> {
   updatedAt: Date;
 }
 
-/** Items written per statement by writeMany: well under max_allowed_packet with every body. */
+/** Items written per statement by writeMany, at most (and within STATEMENT_BODY_BYTES). */
 const WRITE_CHUNK = 500;
 
 /**
@@ -181,8 +182,7 @@ export class RevisionedRepository<B extends { name: string }> {
     t: Transaction,
   ): Promise<Map<string, number>> {
     const written = new Map<string, number>();
-    for (let from = 0; from < items.length; from += WRITE_CHUNK) {
-      const chunk = items.slice(from, from + WRITE_CHUNK);
+    for (const chunk of statementChunks(items, (i) => jsonBytes(i.body), WRITE_CHUNK)) {
       const matched = (
         await this.heads.findAll({ where: { siteId, code: chunk.map((i) => i.code) }, transaction: t, lock: t.LOCK.UPDATE })
       ).map(headRow);

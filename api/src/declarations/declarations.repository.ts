@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Declaration, ProductDeclaration, Regime } from '@crumbproof/shared';
-import { Op, UniqueConstraintError } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import { parseJson } from '../common/json-column';
+import { statementChunks } from '../common/statement-chunks';
 import { DeclarationModel } from './declaration.model';
 
 /** A declaration as kept: what it declares and when it was computed. */
@@ -22,7 +23,7 @@ export interface NewDeclaration {
   body: ProductDeclaration;
 }
 
-/** Declarations kept per statement by addMany (a product's body is a few kilobytes). */
+/** Declarations kept per statement by addMany, at most (and within STATEMENT_BODY_BYTES). */
 const ADD_CHUNK = 200;
 
 /** The only place that reads and writes the declarations table. */
@@ -71,18 +72,24 @@ export class DeclarationsRepository {
    */
   async addMany(values: readonly NewDeclaration[]): Promise<Map<string, KeptDeclaration>> {
     const out = new Map<string, KeptDeclaration>();
-    for (let from = 0; from < values.length; from += ADD_CHUNK) {
-      const chunk = values.slice(from, from + ADD_CHUNK);
-      await this.declarations.bulkCreate(
-        chunk.map((v) => ({ ...v })),
-        { ignoreDuplicates: true },
+    // Each body is made JSON once and sent as a bound parameter, which the driver writes as it is,
+    // where an ORM insert would escape every character of megabytes of JSON in script.
+    const rows = values.map((v) => ({ ...v, json: JSON.stringify(v.body) }));
+    const sequelize = this.declarations.sequelize;
+    if (!sequelize) throw new Error('The declarations table is not connected');
+    for (const chunk of statementChunks(rows, (r) => Buffer.byteLength(r.json, 'utf8'), ADD_CHUNK)) {
+      const now = new Date();
+      const tuples = chunk.map((_, n) => `(${[1, 2, 3, 4, 5, 6].map((k) => `$${n * 6 + k}`).join(', ')})`);
+      await sequelize.query(
+        `INSERT IGNORE INTO declarations (recipe_id, recipe_revision, regime, input_hash, body, created_at) VALUES ${tuples.join(', ')}`,
+        { bind: chunk.flatMap((r) => [r.recipeId, r.recipeRevision, r.regime, r.inputHash, r.json, now]), type: QueryTypes.INSERT },
       );
-      const rows = await this.declarations.findAll({
+      const kept = await this.declarations.findAll({
         where: { regime: chunk[0].regime, inputHash: { [Op.in]: [...new Set(chunk.map((v) => v.inputHash))] } },
         attributes: ['id', 'recipeId', 'inputHash', 'createdAt'],
       });
       const bodies = new Map(chunk.map((v) => [`${v.recipeId} ${v.inputHash}`, v.body]));
-      for (const row of rows) {
+      for (const row of kept) {
         const key = `${row.recipeId} ${row.inputHash}`;
         const body = bodies.get(key);
         if (body && !out.has(key)) out.set(key, { id: row.id as number, body, computedAt: row.createdAt });
