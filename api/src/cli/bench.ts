@@ -6,6 +6,7 @@ import { signInBundleKb } from '../bench/bundle';
 import { cliPeakRssMb } from '../bench/cli-memory';
 import { measureLabels } from '../bench/labels';
 import { measureRollup } from '../bench/rollup';
+import { benchEnvironment } from '../config/config';
 import type { KitchenSize } from '../rules/core/testing/synthetic-kitchen';
 import { loadReferenceData } from '../rules/reference-data';
 
@@ -42,9 +43,9 @@ async function main(): Promise<void> {
   say('labels ratio', labels.ratio);
   const bundleKb = signInBundleKb();
   say('sign-in page gzipped JavaScript KB', bundleKb ?? 'not measured (build the web app first: npm run build)');
-  const counterMs = process.env.BENCH_COUNTER_MS ? Number(process.env.BENCH_COUNTER_MS) : null;
+  const { apiUrl, apiPid, counterMs } = benchEnvironment();
   say('counter: 500 products classified in Chromium, median ms', counterMs ?? 'not measured (npm run bench without --quick)');
-  const api = process.env.BENCH_API_URL ? await measureApi(process.env.BENCH_API_URL, Number(process.env.BENCH_API_PID) || null) : null;
+  const api = apiUrl ? await measureApi(apiUrl, apiPid) : null;
   if (api) sayApi(api);
 
   const results = {

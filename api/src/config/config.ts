@@ -169,3 +169,15 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   }
   return result.data;
 }
+
+/** What `npm run bench` hands its measuring process (api/scripts/bench.mjs): the app it started and the counter's timing. */
+export interface BenchEnvironment {
+  apiUrl: string | null;
+  apiPid: number | null;
+  counterMs: number | null;
+}
+
+export function benchEnvironment(env: Record<string, string | undefined> = process.env): BenchEnvironment {
+  const number = (value: string | undefined) => (value && Number.isFinite(Number(value)) ? Number(value) : null);
+  return { apiUrl: env.BENCH_API_URL || null, apiPid: number(env.BENCH_API_PID), counterMs: number(env.BENCH_COUNTER_MS) };
+}
