@@ -7,15 +7,13 @@
 // the server has finished the requests still unanswered at the deadline, and counted in the
 // database; it prints the figures with the machine's core count.
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { availableParallelism, cpus, tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { ensureMariadbInstalled, freePort, instance } from './lib/mariadb.mjs';
-import { DB_USERS, dbEnv, ensureNodeModules, ROOT, run, startChild, step, waitForHttp } from './lib/workspace.mjs';
+import { availableParallelism, cpus } from 'node:os';
+import { ensureMariadbInstalled } from './lib/mariadb.mjs';
+import { startThrowawayApp } from './lib/throwaway-app.mjs';
+import { ensureNodeModules, ROOT, run, step } from './lib/workspace.mjs';
 
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 60);
 const CONNECTIONS = Number(process.env.LOAD_CONNECTIONS ?? 100);
-const DATABASE = 'crumbproof_load';
 const DEMO_PASSWORD = 'crumbproof-demo';
 
 ensureNodeModules();
@@ -24,40 +22,16 @@ step('Building shared and api…');
 run('npm', ['run', 'build', '-w', 'shared']);
 run('npm', ['run', 'build', '-w', 'api']);
 
-const scratch = mkdtempSync(join(tmpdir(), 'crumbproof-load-'));
-const db = instance({ dir: join(scratch, 'mariadb'), port: await freePort() });
-/** @type {import('node:child_process').ChildProcess | null} */
-let server = null;
-const cleanup = async () => {
-  if (server && server.exitCode === null) server.kill('SIGTERM');
-  await db.stop();
-  rmSync(scratch, { recursive: true, force: true });
-};
-process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
-
 /** @type {string[]} */
 let failures = [];
 let createdWrites = 0;
+/** @type {import('./lib/throwaway-app.mjs').ThrowawayApp | null} */
+let app = null;
 try {
-  step(`Starting a throwaway MariaDB on 127.0.0.1:${db.port} and the built app over the demo kitchen…`);
-  await db.start();
-  db.createDatabase({ database: DATABASE, ...DB_USERS });
-  const appPort = await freePort();
-  const env = {
-    ...dbEnv({ port: db.port, database: DATABASE }),
-    NODE_ENV: 'production',
-    HOST: '127.0.0.1',
-    PORT: String(appPort),
-    JWT_SECRET: 'load-test-secret-for-this-machine-only-0123456789abcdef',
-    DEMO_KITCHEN: 'true',
-    LOG_LEVEL: 'error',
-  };
-  run('node', ['api/dist/cli/db.js', 'setup'], { env });
-  server = startChild('node', ['api/dist/main.js'], env);
-  const url = `http://127.0.0.1:${appPort}`;
-  await waitForHttp(`${url}/api/health`, 60_000, server);
+  app = await startThrowawayApp({ name: 'load' });
+  const { url, env, db } = app;
   failures = await load(url);
-  const rows = countIngredients(env);
+  const rows = countIngredients(env, db.port);
   if (rows.error !== undefined) failures.push(rows.error);
   else if (rows.count !== createdWrites)
     failures.push(`The database holds ${rows.count} of the load's ingredients, the API lists ${createdWrites}.`);
@@ -65,7 +39,7 @@ try {
 } catch (e) {
   failures.push(e instanceof Error ? e.message : String(e));
 } finally {
-  await cleanup();
+  await app?.stop();
 }
 if (failures.length > 0) {
   process.stderr.write(`\nThe load test failed:\n${failures.map((f) => `- ${f}`).join('\n')}\n`);
@@ -203,20 +177,21 @@ async function ingredientIds(url, cookie) {
 /**
  * The ingredients' rows in the database, counted by the mariadb client as the owner.
  * @param {Record<string, string>} env
+ * @param {number} port
  * @returns {{ count: number; error?: undefined } | { error: string; count?: undefined }}
  */
-function countIngredients(env) {
+function countIngredients(env, port) {
   const client = spawnSync(
     'mariadb',
     [
       '--no-defaults',
       `--host=127.0.0.1`,
-      `--port=${db.port}`,
+      `--port=${port}`,
       `--user=${env.DB_OWNER_USER}`,
       `--password=${env.DB_OWNER_PASSWORD}`,
       '--batch',
       '--skip-column-names',
-      DATABASE,
+      env.DB_NAME,
       '-e',
       "SELECT COUNT(*) FROM ingredients WHERE code LIKE 'load-flour-%'",
     ],
