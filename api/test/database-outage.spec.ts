@@ -72,7 +72,9 @@ describe('the database stops and comes back (a MariaDB of its own)', () => {
   afterAll(async () => {
     process.off('unhandledRejection', onUnhandled);
     try {
+      // Without its database (a failure while it was away) the app is closed alone: its data goes with the folder.
       if (db.runningPid()) await t?.close();
+      else await t?.app.close();
     } finally {
       await db?.stop();
       rmSync(dir, { recursive: true, force: true });
