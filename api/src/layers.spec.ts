@@ -19,9 +19,14 @@ function valueImports(text: string): string[] {
   return [...text.matchAll(/^import\s+(?!type\s)[^'"]*?from\s+['"]([^'"]+)['"]/gm)].map((m) => m[1]);
 }
 
-/** The database's own files: schema changes, the connection, the models and the repositories that use them. */
+/**
+ * The database's own files: schema changes, the connection, the models and the repositories that
+ * use them, the transactions, and what tells a database that cannot be reached from other errors.
+ */
 const DATABASE_SIDE = (rel: string) =>
-  /\.repository\.ts$|\.model\.ts$/.test(rel) || rel.startsWith('database/') || rel === 'common/transaction.ts' || rel === 'cli/db.ts';
+  /\.repository\.ts$|\.model\.ts$/.test(rel) ||
+  rel.startsWith('database/') ||
+  ['common/transaction.ts', 'common/database-unavailable.ts', 'cli/db.ts'].includes(rel);
 
 describe('the API’s layers', () => {
   it('has @InjectModel only in repositories', () => {

@@ -89,6 +89,8 @@ export const ERROR_CODES = [
   /** A label print of a product whose current declaration a manager has not approved. */
   'approval-needed',
   'internal',
+  /** The API cannot reach its database just now (stopped, restarting, unreachable): nothing could be read or saved. */
+  'database-unavailable',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 

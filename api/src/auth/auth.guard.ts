@@ -5,6 +5,7 @@ import type { FastifyReply } from 'fastify';
 import type { SessionUser } from './jwt.strategy';
 import { SessionTokens } from './session-tokens';
 import { AppError } from '../common/app-error';
+import { isDatabaseUnavailable } from '../common/database-unavailable';
 import { IS_PUBLIC, Roles } from '../common/roles.decorator';
 import type { AuthUser } from '../common/current-user.decorator';
 
@@ -35,6 +36,8 @@ export class SessionGuard extends AuthGuard('jwt') implements CanActivate {
   }
 
   handleRequest<T>(err: unknown, user: T): T {
+    // A session that cannot be read is no session refused: the person is told the database is away, not to sign in again.
+    if (isDatabaseUnavailable(err)) throw err;
     if (err || !user) throw new AppError('unauthenticated', 'Sign in to continue.');
     return user;
   }

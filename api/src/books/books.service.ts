@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Injectable, Logger } from '@nestjs/common';
 import {
   bookPlace,
   bookSchema,
@@ -56,7 +56,7 @@ export interface KitchenState {
  */
 export type WriteCheck = (state: KitchenState, t: Transaction) => Promise<void>;
 
-/** Told, after a write has been saved, the ids of the recipes it wrote. */
+/** Told, after a write has been saved, the ids of the recipes it wrote; a failure is logged, the write stays saved. */
 export type RecipesWrittenListener = (ids: readonly string[]) => Promise<void>;
 
 /** What a saved write changed: the ids of the ingredients and recipes written, and whether the kitchen's settings changed. */
@@ -91,6 +91,7 @@ const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
  */
 @Injectable()
 export class BooksService {
+  private readonly logger = new Logger(BooksService.name);
   private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
   private readonly kitchenWrittenListeners: KitchenWrittenListener[] = [];
   private readonly kitchenSavedListeners: KitchenSavedListener[] = [];
@@ -135,9 +136,21 @@ export class BooksService {
     for (const listener of this.kitchenSavedListeners) await listener(written);
   }
 
+  /**
+   * After the write is committed: what a listener does is kept beside it (a declaration is worked
+   * out again whenever one is missing), so its failure is logged and the write still answers saved.
+   */
   private async recipesWritten(ids: readonly string[]): Promise<void> {
     if (ids.length === 0) return;
-    for (const listener of this.recipesWrittenListeners) await listener(ids);
+    for (const listener of this.recipesWrittenListeners) {
+      try {
+        await listener(ids);
+      } catch (e) {
+        this.logger.warn(
+          `The declarations of ${ids.join(', ')} were not kept after their save: ${e instanceof Error ? e.message : String(e)}`,
+        );
+      }
+    }
   }
 
   /** The whole kitchen as it stands now: the recipe book with the current revision of every item. */

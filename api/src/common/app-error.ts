@@ -46,6 +46,8 @@ export function httpStatusOf(code: ErrorCode): number {
       return 422;
     case 'internal':
       return 500;
+    case 'database-unavailable':
+      return 503;
     default: {
       const never: never = code;
       return never;

@@ -1,10 +1,14 @@
 import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Inject, Logger, NotFoundException, Optional } from '@nestjs/common';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { ApiErrorBody, ErrorCode } from '@crumbproof/shared';
+import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from './database-unavailable';
 import { AppError, httpStatusOf } from './app-error';
 import { isRefusedAccess, REFUSAL_LISTENER, type RefusalListener } from './refusals';
 
-/** Turns every error into an ApiErrorBody; unknown errors become a logged 500 with a plain message. */
+/**
+ * Turns every error into an ApiErrorBody; a database that cannot be reached is a 503
+ * (database-unavailable) in words, and other unknown errors become a logged 500 with a plain message.
+ */
 @Catch()
 export class ApiExceptionFilter implements ExceptionFilter {
   private readonly logger = new Logger('Errors');
@@ -79,6 +83,11 @@ export class ApiExceptionFilter implements ExceptionFilter {
       // Errors raised by Fastify itself (malformed JSON, body too large, wrong content type).
       const message = fastifyStatus === 413 ? 'The upload is too large.' : 'The request could not be read: send valid JSON.';
       return { statusCode: fastifyStatus, code: fastifyStatus === 413 ? 'too-large' : 'validation', message };
+    }
+    if (isDatabaseUnavailable(exception)) {
+      // One line, no stack: every request says the same while the database is away.
+      this.logger.warn(`The database cannot be reached: ${exception instanceof Error ? exception.message : String(exception)}`);
+      return { statusCode: 503, code: 'database-unavailable', message: DATABASE_UNAVAILABLE_MESSAGE };
     }
     this.logger.error(exception instanceof Error ? (exception.stack ?? exception.message) : String(exception));
     return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server. It has been logged; try again.' };

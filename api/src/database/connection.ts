@@ -23,6 +23,9 @@ export function connectionOptions(config: DatabaseSettings, as: 'runtime' | 'own
     define: { charset: 'utf8mb4', collate: 'utf8mb4_unicode_ci', underscored: true },
     timezone: '+00:00',
     dialectOptions: { connectTimeout: 5000 },
-    pool: { max: 10, min: 0, idle: 10000 },
+    // A connection the server dropped (stopped, restarted) is found invalid and replaced at its next
+    // use, so service comes back as soon as the database does; a request waits at most 10 s for a
+    // connection, then answers database-unavailable (common/database-unavailable.ts).
+    pool: { max: 10, min: 0, idle: 10000, acquire: 10000 },
   };
 }

@@ -73,6 +73,12 @@ describe('apiClient', () => {
     expect(error).toMatchObject({ status: 400, code: 'recipe-cycle', fields: [], problems });
   });
 
+  it('shows the server’s own words when its database cannot be reached (503)', async () => {
+    const message = 'Crumbproof cannot reach its database just now, so this could not be done. Try again in a moment.';
+    answer(503, { statusCode: 503, code: 'database-unavailable', message });
+    await expect(apiClient.get('/ingredients')).rejects.toMatchObject({ status: 503, code: 'database-unavailable', message });
+  });
+
   it('explains an error answer that has no body', async () => {
     answer(502);
     await expect(apiClient.get('/me')).rejects.toMatchObject({ status: 502, code: 'internal' });
