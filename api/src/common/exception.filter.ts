@@ -6,6 +6,15 @@ import { AppError, httpStatusOf } from './app-error';
 import { isRefusedAccess, REFUSAL_LISTENER, type RefusalListener } from './refusals';
 
 /**
+ * An error for the log: its message and its stack. A statement's error from Sequelize carries the
+ * stack of where the query was made, which does not hold the message.
+ */
+function described(error: Error): string {
+  const stack = error.stack ?? '';
+  return stack.includes(error.message) ? stack : `${error.name}: ${error.message}\n${stack}`;
+}
+
+/**
  * Turns every error into an ApiErrorBody; a database that cannot be reached is a 503
  * (database-unavailable) in words, and other unknown errors become a logged 500 with a plain message.
  */
@@ -89,7 +98,7 @@ export class ApiExceptionFilter implements ExceptionFilter {
       this.logger.warn(`The database cannot be reached: ${exception instanceof Error ? exception.message : String(exception)}`);
       return { statusCode: 503, code: 'database-unavailable', message: DATABASE_UNAVAILABLE_MESSAGE };
     }
-    this.logger.error(exception instanceof Error ? (exception.stack ?? exception.message) : String(exception));
+    this.logger.error(exception instanceof Error ? described(exception) : String(exception));
     return { statusCode: 500, code: 'internal', message: 'Something went wrong on the server. It has been logged; try again.' };
   }
 }
