@@ -13,5 +13,6 @@ module.exports = {
     '^@crumbproof/shared/labels$': '<rootDir>/../shared/src/labels/index.ts',
   },
   setupFiles: ['<rootDir>/test/support/env.ts'],
+  setupFilesAfterEnv: ['<rootDir>/test/support/after-env.ts'],
   testTimeout: 30000,
 };

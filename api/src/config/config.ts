@@ -74,6 +74,23 @@ export const configSchema = z.object({
   MAIL_FROM: unsetIfEmpty(z.email({ error: 'MAIL_FROM must be an email address such as crumbproof@bakery.example.' }).optional()),
   /** How often the sender looks for mail that is due (it is also woken as soon as a mail is queued). */
   MAIL_POLL_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /**
+   * Where uploaded files (supplier specifications, label runs' PDFs) are kept: `local`, a folder
+   * (STORAGE_DIR), or `s3`, a bucket of an S3-compatible object storage (the S3_ settings).
+   */
+  STORAGE: z.enum(['local', 's3']).default('local'),
+  /** The folder of STORAGE=local, relative to where the API starts (npm start passes `.data/uploads` at the root). */
+  STORAGE_DIR: z.string().min(1).default('.data/uploads'),
+  /** The service's address (https://s3.eu-west-2.amazonaws.com, http://127.0.0.1:9000); unset: AWS's own for S3_REGION. */
+  S3_ENDPOINT: unsetIfEmpty(z.url({ protocol: /^https?$/, error: 'S3_ENDPOINT must be an http or https address.' }).optional()),
+  /** The bucket, which must exist: Crumbproof creates none. */
+  S3_BUCKET: unsetIfEmpty(z.string().min(3).max(63).optional()),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  /** Both or neither; neither: the SDK's own chain (AWS_* variables, instance roles). */
+  S3_ACCESS_KEY_ID: unsetIfEmpty(z.string().min(1).optional()),
+  S3_SECRET_ACCESS_KEY: unsetIfEmpty(z.string().min(1).optional()),
+  /** true: bucket in the path (http://host/bucket/key), as most S3-compatible services and fakes want. */
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('false'),
   WEB_DIST: z.string().optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).default('info'),
 });
@@ -157,6 +174,20 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
       }
       if (c.SMTP_PASSWORD && !c.SMTP_USER) {
         ctx.addIssue({ code: 'custom', path: ['SMTP_USER'], message: 'Set SMTP_USER with SMTP_PASSWORD (or leave both unset).' });
+      }
+      if (c.STORAGE === 's3' && !c.S3_BUCKET) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['S3_BUCKET'],
+          message: 'Set S3_BUCKET, the bucket uploaded files are kept in, with STORAGE=s3.',
+        });
+      }
+      if (!c.S3_ACCESS_KEY_ID !== !c.S3_SECRET_ACCESS_KEY) {
+        ctx.addIssue({
+          code: 'custom',
+          path: [c.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID'],
+          message: 'Set S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY together (or leave both unset).',
+        });
       }
       if (c.SESSION_MAX_HOURS * 60 < c.SESSION_MINUTES) {
         ctx.addIssue({ code: 'custom', path: ['SESSION_MAX_HOURS'], message: 'SESSION_MAX_HOURS must be at least SESSION_MINUTES.' });

@@ -1,15 +1,18 @@
 import { Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
+import type { FileStore } from '../storage/file-store';
 
 export interface MigrationContext {
   sequelize: Sequelize;
+  /** Where uploaded files are kept (STORAGE), for the migrations that move bytes there (0014). */
+  files?: FileStore;
 }
 
 /**
  * Versioned schema changes. Names drop their extension so that the TypeScript sources (tests)
  * and the compiled JavaScript (dist) are the same migration.
  */
-export function migrator(sequelize: Sequelize, log: (m: string) => void = () => {}) {
+export function migrator(sequelize: Sequelize, log: (m: string) => void = () => {}, files?: FileStore) {
   return new Umzug<MigrationContext>({
     migrations: {
       glob: ['migrations/*.{js,ts}', { cwd: __dirname, ignore: ['**/*.d.ts', '**/*.spec.ts'] }],
@@ -26,12 +29,12 @@ export function migrator(sequelize: Sequelize, log: (m: string) => void = () => 
         };
       },
     },
-    context: { sequelize },
+    context: { sequelize, files },
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
     logger: { info: (m) => log(typeof m === 'string' ? m : JSON.stringify(m)), warn: () => {}, error: () => {}, debug: () => {} },
   });
 }
 
-export async function migrateUp(sequelize: Sequelize, log?: (m: string) => void) {
-  return migrator(sequelize, log).up();
+export async function migrateUp(sequelize: Sequelize, log?: (m: string) => void, files?: FileStore) {
+  return migrator(sequelize, log, files).up();
 }

@@ -3,6 +3,7 @@ import type { AppConfig } from '../config/config';
 import { connectionOptions } from './connection';
 import { migrateUp } from './migrator';
 import { grantRuntime, type GrantOutcome } from './runtime-grants';
+import { closeFileStore, fileStoreFrom } from '../storage/file-store.factory';
 
 /**
  * Migrates as the owner (DB_OWNER_USER), then grants the runtime user (DB_USER) its privileges
@@ -11,11 +12,13 @@ import { grantRuntime, type GrantOutcome } from './runtime-grants';
  */
 export async function setUpSchema(config: AppConfig, log?: (m: string) => void): Promise<{ applied: string[]; grants: GrantOutcome }> {
   const owner = new Sequelize(connectionOptions(config, 'owner'));
+  const files = fileStoreFrom(config);
   try {
-    const applied = (await migrateUp(owner, log)).map((m) => m.name);
+    const applied = (await migrateUp(owner, log, files)).map((m) => m.name);
     const grants = await grantRuntime(owner, config.DB_USER);
     return { applied, grants };
   } finally {
+    closeFileStore(files);
     await owner.close();
   }
 }

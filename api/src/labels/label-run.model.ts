@@ -35,8 +35,9 @@ export class LabelRunModel extends Model {
   @Column({ type: DataType.STRING(300), allowNull: true })
   overrideReason: string | null;
 
-  @Column({ type: DataType.BLOB('long'), allowNull: false })
-  pdf: Buffer;
+  /** The PDF's key in the app's FileStore (its SHA-256; migration 0014 moved the bytes there). */
+  @Column({ type: DataType.CHAR(64), allowNull: false })
+  storageKey: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false })
   sizeBytes: number;

@@ -35,7 +35,9 @@ export interface NewLabelRun<Item, Source> {
   /** What each item was rendered from, in the same order. */
   sources: Source[];
   overrideReason: string | null;
-  pdf: Buffer;
+  /** The PDF's key in the FileStore, put there before this row's transaction commits. */
+  storageKey: string;
+  sizeBytes: number;
   sha256: string;
 }
 
@@ -97,7 +99,7 @@ export class LabelRunsRepository {
   /** Logs a run with its PDF and one searchable row per item; returns the run's id. */
   async add<Item, Source>(run: NewLabelRun<Item, Source>, t: Transaction): Promise<number> {
     const { lines, printedAt, ...values } = run;
-    const created = await this.runs.create({ ...values, createdAt: printedAt, sizeBytes: run.pdf.length }, { transaction: t });
+    const created = await this.runs.create({ ...values, createdAt: printedAt }, { transaction: t });
     await this.lines.bulkCreate(
       lines.map((l, position) => ({ ...l, runId: created.id, siteId: run.siteId, position, productionDate: run.productionDate })),
       { transaction: t },
@@ -218,9 +220,9 @@ export class LabelRunsRepository {
     });
   }
 
-  async findPdf(siteId: number, id: number): Promise<{ pdf: Buffer; sha256: string } | null> {
-    const row = await this.runs.findOne({ where: { id, siteId }, attributes: ['id', 'pdf', 'sha256'] });
-    return row ? { pdf: row.pdf, sha256: row.sha256 } : null;
+  async findPdf(siteId: number, id: number): Promise<{ storageKey: string; sha256: string } | null> {
+    const row = await this.runs.findOne({ where: { id, siteId }, attributes: ['id', 'storageKey', 'sha256'] });
+    return row ? { storageKey: row.storageKey, sha256: row.sha256 } : null;
   }
 }
 

@@ -8,6 +8,7 @@ import { DeclarationsModule } from '../declarations/declarations.module';
 import { KitchenModule } from '../kitchen/kitchen.module';
 import { PublicPageModule } from '../public-page/public-page.module';
 import { RulesModule } from '../rules/rules.module';
+import { StorageModule } from '../storage/storage.module';
 import { LabelBatchModel } from './label-batch.model';
 import { LabelCountersRepository } from './label-counters.repository';
 import { LabelPrinter } from './label-printer';
@@ -37,6 +38,7 @@ import { StaleLabelsService } from './stale-labels.service';
     KitchenModule,
     PublicPageModule,
     RulesModule,
+    StorageModule,
     SequelizeModule.forFeature([
       LabelSettingsModel,
       LabelRunModel,

@@ -1,5 +1,4 @@
-import { createHash } from 'node:crypto';
-import { Injectable, StreamableFile } from '@nestjs/common';
+import { Inject, Injectable, StreamableFile } from '@nestjs/common';
 import {
   batchProblem,
   expandBatchPattern,
@@ -32,6 +31,8 @@ import { LabelRunsRepository, type LabelRunRow, type RunLine } from './label-run
 import { LabelSettingsRepository } from './label-settings.repository';
 import { PublicPageService } from '../public-page/public-page.service';
 import { keptCopy } from '../declarations/declarations.service';
+import { FILE_STORE, type FileStore } from '../storage/file-store';
+import { keepFile, readStoredFile } from '../storage/stored-file-errors';
 
 /** What an item of a run was rendered from, kept with the run so that the same label can be printed again. */
 export interface PrintSource {
@@ -75,6 +76,7 @@ export class LabelsService {
     private readonly publicPages: PublicPageService,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
+    @Inject(FILE_STORE) private readonly files: FileStore,
   ) {}
 
   templates() {
@@ -116,9 +118,10 @@ export class LabelsService {
     const n = /^[1-9]\d{0,8}$/.test(id) ? Number(id) : NaN;
     const found = Number.isNaN(n) ? null : await this.runsRepo.findPdf(site.id, n);
     if (!found) throw new AppError('not-found', `There is no print run ${id}.`);
-    return new StreamableFile(found.pdf, {
+    const pdf = await readStoredFile(this.files, found.storageKey, found.sha256, `the PDF of print run ${id}`);
+    return new StreamableFile(pdf, {
       type: 'application/pdf',
-      length: found.pdf.length,
+      length: pdf.length,
       disposition: `attachment; filename="labels-run-${n}.pdf"`,
     });
   }
@@ -216,7 +219,8 @@ export class LabelsService {
         printedAt,
       });
       if (!rendered.ok) throw refused('label-refused', rendered.problems, 'The labels cannot be printed.');
-      const sha256 = createHash('sha256').update(rendered.pdf).digest('hex');
+      // Kept before the run's row commits; on a rollback the object is named by no row, and harmless.
+      const sha256 = await keepFile(this.files, rendered.pdf);
       const runId = await this.runsRepo.add(
         {
           siteId: state.site.id,
@@ -230,7 +234,8 @@ export class LabelsService {
           lines,
           sources: planned.map((p) => p.source),
           overrideReason: request.override?.reason ?? null,
-          pdf: rendered.pdf,
+          storageKey: sha256,
+          sizeBytes: rendered.pdf.length,
           sha256,
         },
         t,

@@ -1,6 +1,9 @@
 // Runs before each test file: every file gets its own database on the test MariaDB, so files
 // can run in parallel. npm test provides DB_PORT and the users; the other values have test defaults.
 import { randomBytes } from 'node:crypto';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 
 process.env.DB_HOST ??= '127.0.0.1';
 process.env.DB_PORT ??= '3307';
@@ -18,6 +21,12 @@ process.env.NODE_ENV = 'test';
 // sees its window roll over halfway.
 process.env.SIGN_IN_WINDOW_SECONDS ??= '86400';
 delete process.env.WEB_DIST;
+// Uploaded files in a folder of this test file's own (removed after it by test/support/after-env.ts),
+// never in a bucket set in the shell; a test of object storage sets its own fake server's settings.
+process.env.STORAGE = 'local';
+process.env.STORAGE_DIR = mkdtempSync(join(tmpdir(), 'crumbproof-test-uploads-'));
+for (const name of ['S3_ENDPOINT', 'S3_BUCKET', 'S3_REGION', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY', 'S3_FORCE_PATH_STYLE'])
+  delete process.env[name];
 // No mail server unless a test starts its own (test/support/fake-smtp.ts): mail stays in the outbox
 // and nothing a test queues can leave the machine through a server set in the shell.
 for (const name of ['SMTP_HOST', 'SMTP_PORT', 'SMTP_SECURE', 'SMTP_USER', 'SMTP_PASSWORD', 'MAIL_FROM', 'MAIL_POLL_SECONDS'])

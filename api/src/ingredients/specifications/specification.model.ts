@@ -29,8 +29,9 @@ export class SpecificationModel extends Model {
   @Column({ type: DataType.CHAR(64), allowNull: false })
   sha256: string;
 
-  @Column({ type: DataType.BLOB('long'), allowNull: false })
-  content: Buffer;
+  /** The file's key in the app's FileStore (its SHA-256; migration 0014 moved the bytes there). */
+  @Column({ type: DataType.CHAR(64), allowNull: false })
+  storageKey: string;
 
   /** YYYY-MM-DD: when the kitchen must check the specification again. */
   @Column({ type: DataType.DATEONLY, allowNull: false })

@@ -9,7 +9,8 @@ export interface NewSpecification {
   mediaType: string;
   sizeBytes: number;
   sha256: string;
-  content: Buffer;
+  /** The file's key in the FileStore, put there before this row's transaction commits. */
+  storageKey: string;
   reviewBy: string;
   note: string;
   uploadedBy: number | null;
@@ -102,8 +103,8 @@ export class SpecificationsRepository {
     return rows.map(toRow);
   }
 
-  async findFile(id: number): Promise<{ filename: string; mediaType: string; content: Buffer } | null> {
-    const row = await this.specs.findByPk(id, { attributes: ['id', 'filename', 'mediaType', 'content'] });
-    return row ? { filename: row.filename, mediaType: row.mediaType, content: row.content } : null;
+  async findFile(id: number): Promise<{ filename: string; mediaType: string; storageKey: string; sha256: string } | null> {
+    const row = await this.specs.findByPk(id, { attributes: ['id', 'filename', 'mediaType', 'storageKey', 'sha256'] });
+    return row ? { filename: row.filename, mediaType: row.mediaType, storageKey: row.storageKey, sha256: row.sha256 } : null;
   }
 }

@@ -1,5 +1,4 @@
-import { createHash } from 'node:crypto';
-import { Injectable, StreamableFile } from '@nestjs/common';
+import { Inject, Injectable, StreamableFile } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { AppError } from '../../common/app-error';
 import { AuditService } from '../../audit/audit.service';
@@ -24,6 +23,8 @@ import type {
 } from '@crumbproof/shared';
 import { describeType, detectType, safeFilename, withExtension, type Upload } from '../../common/multipart-upload';
 import { SpecificationsRepository, type SpecificationRow } from './specifications.repository';
+import { FILE_STORE, type FileStore } from '../../storage/file-store';
+import { keepFile, readStoredFile } from '../../storage/stored-file-errors';
 
 /** Supplier specifications of ingredients: versioned uploads with a date to check them again. */
 @Injectable()
@@ -38,6 +39,7 @@ export class SpecificationsService {
     private readonly config: ConfigService<AppConfig, true>,
     private readonly audit: AuditService,
     private readonly clock: Clock,
+    @Inject(FILE_STORE) private readonly files: FileStore,
   ) {}
 
   /** The kitchen's date now (the server's calendar, as `today()` counts it). */
@@ -85,14 +87,16 @@ export class SpecificationsService {
       await this.ingredients.lockHead(ingredient.id, t);
       const stored = await this.repo.storedBytes(kitchen.id, t);
       if (stored + bytes.length > quota * MB) throw overQuota(quota, stored, bytes.length);
+      // Kept before the row commits; on a rollback the object is named by no row, and harmless.
+      const storageKey = await keepFile(this.files, bytes);
       const added = await this.repo.add(
         {
           ingredientId: ingredient.id,
           filename: withExtension(filename, ACCEPTED_SPECIFICATION_TYPES[type.mime], 'specification'),
           mediaType: type.mime,
           sizeBytes: bytes.length,
-          sha256: createHash('sha256').update(bytes).digest('hex'),
-          content: bytes,
+          sha256: storageKey,
+          storageKey,
           reviewBy,
           note: parsed.data.note ?? '',
           uploadedBy: userId,
@@ -138,9 +142,10 @@ export class SpecificationsService {
     const n = /^\d{1,9}$/.test(id) ? Number(id) : NaN;
     const found = Number.isNaN(n) ? null : await this.repo.findFile(n);
     if (!found) throw new AppError('not-found', `There is no specification ${id}.`);
-    return new StreamableFile(found.content, {
+    const content = await readStoredFile(this.files, found.storageKey, found.sha256, `specification ${id}`);
+    return new StreamableFile(content, {
       type: found.mediaType,
-      length: found.content.length,
+      length: content.length,
       disposition: contentDisposition(
         withExtension(safeFilename(found.filename), ACCEPTED_SPECIFICATION_TYPES[found.mediaType] ?? 'bin', 'specification'),
       ),
