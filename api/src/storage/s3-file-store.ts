@@ -55,19 +55,19 @@ export class S3FileStore implements FileStore {
   }
 
   private failed(what: string, err: unknown): FileStoreError {
-    const why = err instanceof Error ? `${err.name}: ${err.message}` : String(err);
+    const why = err instanceof Error ? err.message.replace(/^AWS SDK error wrapper for /, '') : String(err);
     return new FileStoreError(`Could not ${what} in ${this.where}: ${why}`, false, { cause: err });
   }
 
   async put(bytes: Buffer): Promise<string> {
     const key = contentKey(bytes);
-    if (await this.has(key)) return key;
     try {
+      if (await this.has(key)) return key;
       await this.client.send(
         new PutObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key), Body: bytes, ContentLength: bytes.length }),
       );
     } catch (err) {
-      throw this.failed(`keep the file ${key}`, err);
+      throw this.failed(`keep the file ${key}`, err instanceof FileStoreError && err.cause ? err.cause : err);
     }
     return key;
   }

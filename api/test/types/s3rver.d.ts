@@ -1,0 +1,16 @@
+/** The parts of s3rver (it ships no types) that the object storage tests use. */
+declare module 's3rver' {
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    silent?: boolean;
+    directory: string;
+    resetOnClose?: boolean;
+    configureBuckets?: { name: string }[];
+  }
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<{ address: string; port: number }>;
+    close(): Promise<void>;
+  }
+}

@@ -1,0 +1,139 @@
+import { createHash } from 'node:crypto';
+import { readdirSync } from 'node:fs';
+import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { labelRunSchema, type SpecificationView } from '@crumbproof/shared';
+import { QueryTypes } from 'sequelize';
+import { StoredFiles } from '../src/storage/stored-files';
+import { fixture, multipart } from './fixtures/forms';
+import { startFakeS3, type FakeS3 } from './support/fake-s3';
+import { startTestApp, type TestApp } from './support/test-app';
+
+const sha256 = (b: Buffer | Uint8Array) => createHash('sha256').update(b).digest('hex');
+
+/**
+ * STORAGE=s3 against a fake S3-compatible server started here (s3rver on loopback): a supplier
+ * specification and a label run's PDF go into the bucket, by their SHA-256, and come back the
+ * same; the local folder stays empty; an object changed in the bucket is refused, not served; and
+ * an upload while the service is down is refused with nothing saved.
+ */
+describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)', () => {
+  let s3: FakeS3;
+  let t: TestApp;
+  let client: S3Client;
+  let chef: string;
+  const pdf = fixture('almond-paste-spec.pdf');
+
+  beforeAll(async () => {
+    s3 = await startFakeS3();
+    t = await startTestApp({ seed: true, settings: s3.settings });
+    ({ chef } = await t.signInDemo());
+    client = new S3Client({
+      endpoint: s3.endpoint,
+      region: 'us-east-1',
+      forcePathStyle: true,
+      credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+    });
+  });
+  afterAll(async () => {
+    client?.destroy();
+    await t?.close();
+    await s3?.close();
+  });
+
+  const object = async (key: string) => {
+    const out = await client.send(new GetObjectCommand({ Bucket: s3.bucket, Key: `sha256/${key}` }));
+    return Buffer.from(await out.Body!.transformToByteArray());
+  };
+  const upload = async (code: string) => {
+    const form = await multipart({ note: 'Kept in the bucket' }, { name: `${code}.pdf`, bytes: pdf, type: 'application/pdf' });
+    return t.app.inject({
+      method: 'POST',
+      url: `/api/ingredients/${code}/specifications`,
+      payload: form.payload,
+      headers: { ...form.headers, cookie: chef },
+    });
+  };
+  const count = async (table: string) =>
+    Number((await t.sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM \`${table}\``, { type: QueryTypes.SELECT, plain: true }))!.n);
+
+  it('keeps a specification in the bucket under its SHA-256 and downloads the same bytes', async () => {
+    const res = await upload('ground-almonds');
+    expect(res.statusCode).toBe(201);
+    const spec = res.json<SpecificationView>();
+    expect(spec.sha256).toBe(sha256(pdf));
+    expect(sha256(await object(spec.sha256))).toBe(spec.sha256);
+    const [row] = await t.sequelize.query<{ storage_key: string; sha256: string }>(
+      'SELECT storage_key, sha256 FROM specifications WHERE id = ?',
+      { replacements: [spec.id], type: QueryTypes.SELECT },
+    );
+    expect(row).toEqual({ storage_key: spec.sha256, sha256: spec.sha256 });
+
+    const file = await t.req('GET', spec.fileUrl, chef);
+    expect(file.statusCode).toBe(200);
+    expect(file.rawPayload.equals(pdf)).toBe(true);
+    // Nothing went to the local folder.
+    expect(readdirSync(process.env.STORAGE_DIR!)).toEqual([]);
+  });
+
+  it('keeps a label run’s PDF in the bucket and downloads it from the print log', async () => {
+    const res = await t.req('POST', '/api/labels/runs', chef, {
+      template: 'product',
+      items: [{ product: 'vegan-brownie', quantity: 2 }],
+      productionDate: '2026-12-02',
+    });
+    expect(res.statusCode).toBe(201);
+    const run = labelRunSchema.parse(res.json());
+    const kept = await object(run.sha256);
+    expect(sha256(kept)).toBe(run.sha256);
+    const download = await t.req('GET', `/api/labels/runs/${run.id}/pdf`, chef);
+    expect(download.statusCode).toBe(200);
+    expect(download.rawPayload.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(download.rawPayload.equals(kept)).toBe(true);
+  });
+
+  it('keeps the same bytes once for two rows, and never deletes an object a row still names', async () => {
+    const first = (await upload('ground-almonds')).json<SpecificationView>();
+    const again = (await upload('icing-sugar')).json<SpecificationView>();
+    expect(again.sha256).toBe(first.sha256);
+    const files = t.app.get(StoredFiles);
+    expect(await files.deleteUnreferenced(first.sha256)).toBe(false);
+    expect((await object(first.sha256)).equals(pdf)).toBe(true);
+    // An object no row names (a rolled-back upload's) may go.
+    const orphan = Buffer.from('%PDF-1.4 an upload whose transaction rolled back');
+    await client.send(new PutObjectCommand({ Bucket: s3.bucket, Key: `sha256/${sha256(orphan)}`, Body: orphan }));
+    expect(await files.deleteUnreferenced(sha256(orphan))).toBe(true);
+    await expect(object(sha256(orphan))).rejects.toMatchObject({ name: 'NoSuchKey' });
+  });
+
+  it('refuses to serve an object whose bytes were changed in the bucket', async () => {
+    const spec = (await upload('butter')).json<SpecificationView>();
+    await client.send(new PutObjectCommand({ Bucket: s3.bucket, Key: `sha256/${spec.sha256}`, Body: Buffer.from('not the file') }));
+    const file = await t.req('GET', spec.fileUrl, chef);
+    expect(file.statusCode).toBe(500);
+    expect(file.json().message).toMatch(new RegExp(`stored file ${spec.sha256} in the bucket crumbproof-uploads .* is damaged`));
+    await client.send(new PutObjectCommand({ Bucket: s3.bucket, Key: `sha256/${spec.sha256}`, Body: pdf }));
+    expect((await t.req('GET', spec.fileUrl, chef)).rawPayload.equals(pdf)).toBe(true);
+  });
+
+  it('refuses an upload while the object storage cannot be reached, saving nothing', async () => {
+    const before = { specifications: await count('specifications'), audit: await count('audit_events') };
+    await s3.down();
+    try {
+      const other = Buffer.concat([pdf, Buffer.from('\n% another copy\n')]);
+      const form = await multipart({}, { name: 'sugar.pdf', bytes: other, type: 'application/pdf' });
+      const res = await t.app.inject({
+        method: 'POST',
+        url: '/api/ingredients/caster-sugar/specifications',
+        payload: form.payload,
+        headers: { ...form.headers, cookie: chef },
+      });
+      expect(res.statusCode).toBe(500);
+      expect(res.json().message).toMatch(
+        /^Nothing was saved: the file could not be kept\. Could not keep the file [0-9a-f]{64} in the bucket/,
+      );
+    } finally {
+      await s3.up();
+    }
+    expect({ specifications: await count('specifications'), audit: await count('audit_events') }).toEqual(before);
+  });
+});
