@@ -1,6 +1,5 @@
 import { createHash } from 'node:crypto';
 import { readdirSync } from 'node:fs';
-import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { labelRunSchema, type SpecificationView } from '@crumbproof/shared';
 import { QueryTypes } from 'sequelize';
 import { StoredFiles } from '../src/storage/stored-files';
@@ -19,7 +18,6 @@ const sha256 = (b: Buffer | Uint8Array) => createHash('sha256').update(b).digest
 describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)', () => {
   let s3: FakeS3;
   let t: TestApp;
-  let client: S3Client;
   let chef: string;
   const pdf = fixture('almond-paste-spec.pdf');
 
@@ -27,23 +25,13 @@ describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)
     s3 = await startFakeS3();
     t = await startTestApp({ seed: true, settings: s3.settings });
     ({ chef } = await t.signInDemo());
-    client = new S3Client({
-      endpoint: s3.endpoint,
-      region: 'us-east-1',
-      forcePathStyle: true,
-      credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
-    });
   });
   afterAll(async () => {
-    client?.destroy();
     await t?.close();
     await s3?.close();
   });
 
-  const object = async (key: string) => {
-    const out = await client.send(new GetObjectCommand({ Bucket: s3.bucket, Key: `sha256/${key}` }));
-    return Buffer.from(await out.Body!.transformToByteArray());
-  };
+  const object = (key: string) => s3.object(key);
   const upload = async (code: string) => {
     const form = await multipart({ note: 'Kept in the bucket' }, { name: `${code}.pdf`, bytes: pdf, type: 'application/pdf' });
     return t.app.inject({
@@ -100,18 +88,18 @@ describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)
     expect((await object(first.sha256)).equals(pdf)).toBe(true);
     // An object no row names (a rolled-back upload's) may go.
     const orphan = Buffer.from('%PDF-1.4 an upload whose transaction rolled back');
-    await client.send(new PutObjectCommand({ Bucket: s3.bucket, Key: `sha256/${sha256(orphan)}`, Body: orphan }));
+    await s3.overwrite(sha256(orphan), orphan);
     expect(await files.deleteUnreferenced(sha256(orphan))).toBe(true);
     await expect(object(sha256(orphan))).rejects.toMatchObject({ name: 'NoSuchKey' });
   });
 
   it('refuses to serve an object whose bytes were changed in the bucket', async () => {
     const spec = (await upload('butter')).json<SpecificationView>();
-    await client.send(new PutObjectCommand({ Bucket: s3.bucket, Key: `sha256/${spec.sha256}`, Body: Buffer.from('not the file') }));
+    await s3.overwrite(spec.sha256, Buffer.from('not the file'));
     const file = await t.req('GET', spec.fileUrl, chef);
     expect(file.statusCode).toBe(500);
     expect(file.json().message).toMatch(new RegExp(`stored file ${spec.sha256} in the bucket crumbproof-uploads .* is damaged`));
-    await client.send(new PutObjectCommand({ Bucket: s3.bucket, Key: `sha256/${spec.sha256}`, Body: pdf }));
+    await s3.overwrite(spec.sha256, pdf);
     expect((await t.req('GET', spec.fileUrl, chef)).rawPayload.equals(pdf)).toBe(true);
   });
 

@@ -79,7 +79,7 @@ export const configSchema = z.object({
    * (STORAGE_DIR), or `s3`, a bucket of an S3-compatible object storage (the S3_ settings).
    */
   STORAGE: z.enum(['local', 's3']).default('local'),
-  /** The folder of STORAGE=local, relative to where the API starts (npm start passes `.data/uploads` at the root). */
+  /** The folder of STORAGE=local, relative to where the API starts (npm start and npm run dev start it at the root). */
   STORAGE_DIR: z.string().min(1).default('.data/uploads'),
   /** The service's address (https://s3.eu-west-2.amazonaws.com, http://127.0.0.1:9000); unset: AWS's own for S3_REGION. */
   S3_ENDPOINT: unsetIfEmpty(z.url({ protocol: /^https?$/, error: 'S3_ENDPOINT must be an http or https address.' }).optional()),

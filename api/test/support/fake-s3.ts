@@ -1,6 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import S3rver from 's3rver';
 
 /** A fake S3-compatible service (s3rver) on loopback, with one bucket, its objects in a folder of its own. */
@@ -9,6 +10,12 @@ export interface FakeS3 {
   bucket: string;
   /** The app's settings for it, as `.env.example` names them. */
   settings: Record<string, string>;
+  /** A client of its own, to read and change objects behind the app's back. */
+  client: S3Client;
+  /** The bytes of the object `sha256/<key>`, read straight from the bucket. */
+  object(key: string): Promise<Buffer>;
+  /** Writes other bytes under `sha256/<key>`. */
+  overwrite(key: string, bytes: Buffer): Promise<void>;
   /** Stops it (down) and starts it again on the same port (up), keeping its objects. */
   down(): Promise<void>;
   up(): Promise<void>;
@@ -22,9 +29,23 @@ export async function startFakeS3(bucket = 'crumbproof-uploads'): Promise<FakeS3
   const { port } = await server.run();
   let running = true;
   const endpoint = `http://127.0.0.1:${port}`;
+  const client = new S3Client({
+    endpoint,
+    region: 'us-east-1',
+    forcePathStyle: true,
+    credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+  });
   return {
     endpoint,
     bucket,
+    client,
+    async object(key) {
+      const out = await client.send(new GetObjectCommand({ Bucket: bucket, Key: `sha256/${key}` }));
+      return Buffer.from(await out.Body!.transformToByteArray());
+    },
+    async overwrite(key, bytes) {
+      await client.send(new PutObjectCommand({ Bucket: bucket, Key: `sha256/${key}`, Body: bytes }));
+    },
     settings: {
       STORAGE: 's3',
       S3_ENDPOINT: endpoint,
@@ -45,6 +66,7 @@ export async function startFakeS3(bucket = 'crumbproof-uploads'): Promise<FakeS3
       running = true;
     },
     async close() {
+      client.destroy();
       if (running) await server.close();
       running = false;
       rmSync(directory, { recursive: true, force: true });
