@@ -96,6 +96,15 @@ describe('migration 0014: uploaded files move from the database to the file stor
     expect((await store.get(sha256(pdfBytes))).equals(pdfBytes)).toBe(true);
   });
 
+  it('refuses, changing nothing, to undo without the file store the bytes are to come back from', async () => {
+    await expect(migrator(sequelize).down()).rejects.toThrow(
+      '3 uploaded file(s) are to come back from the file store, and no file store was given.',
+    );
+    expect(await columns('specifications')).toContain('storage_key');
+    expect(await columns('specifications')).not.toContain('content');
+    expect(await columns('label_runs')).not.toContain('pdf');
+  });
+
   it('brings the bytes back into the rows when undone', async () => {
     await migrator(sequelize, undefined, store).down();
     const [run] = await sequelize.query<{ pdf: Buffer }>('SELECT pdf FROM label_runs WHERE id = 1', { type: QueryTypes.SELECT });

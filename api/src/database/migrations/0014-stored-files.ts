@@ -71,14 +71,19 @@ export async function up({ sequelize, files }: MigrationContext) {
 
 /** Brings the bytes back into the rows from the store (which keeps its objects). */
 export async function down({ sequelize, files }: MigrationContext) {
+  const named = [];
   for (const t of TABLES) {
-    await sequelize.query(`ALTER TABLE \`${t.table}\` ADD COLUMN \`${t.bytes}\` LONGBLOB NULL AFTER sha256`);
     const rows = await sequelize.query<{ id: number; storage_key: string }>(`SELECT id, storage_key FROM \`${t.table}\``, {
       type: QueryTypes.SELECT,
     });
-    if (rows.length > 0 && !files)
-      throw new Error(`The ${t.what} files are to come back from the file store, and no file store was given.`);
-    for (const row of rows) {
+    named.push({ ...t, rows });
+  }
+  // Refused before any table changes.
+  const total = named.reduce((n, t) => n + t.rows.length, 0);
+  if (total > 0 && !files) throw new Error(`${total} uploaded file(s) are to come back from the file store, and no file store was given.`);
+  for (const t of named) {
+    await sequelize.query(`ALTER TABLE \`${t.table}\` ADD COLUMN \`${t.bytes}\` LONGBLOB NULL AFTER sha256`);
+    for (const row of t.rows) {
       const bytes = await files!.get(row.storage_key);
       await sequelize.query(`UPDATE \`${t.table}\` SET \`${t.bytes}\` = ? WHERE id = ?`, { replacements: [bytes, row.id] });
     }
