@@ -6,7 +6,7 @@ import { IngredientsRepository } from '../src/ingredients/ingredients.repository
 import { KitchenService } from '../src/kitchen/kitchen.service';
 import { multipart } from './fixtures/forms';
 import { tableChecksums } from './fixtures/table-checksums';
-import { adminQuery, startTestApp, type TestApp } from './support/test-app';
+import { adminQuery, emptyOwnerDatabase, startTestApp, type TestApp } from './support/test-app';
 
 /**
  * An id names one ingredient or recipe, compared exactly everywhere: by the rules engine, by the
@@ -220,16 +220,7 @@ describe('migration 0005: code columns compare byte for byte, and existing codes
   let sequelize: Sequelize;
 
   beforeAll(async () => {
-    await adminQuery(`CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-    sequelize = new Sequelize({
-      dialect: 'mariadb',
-      host: process.env.DB_HOST,
-      port: Number(process.env.DB_PORT),
-      username: process.env.DB_OWNER_USER,
-      password: process.env.DB_OWNER_PASSWORD,
-      database,
-      logging: false,
-    });
+    sequelize = await emptyOwnerDatabase(database);
     await migrator(sequelize).up({ to: '0004-sessions' });
   });
   afterAll(async () => {

@@ -6,7 +6,7 @@ import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { migrator } from '../src/database/migrator';
 import { LocalFileStore } from '../src/storage/local-file-store';
-import { adminQuery } from './support/test-app';
+import { adminQuery, emptyOwnerDatabase } from './support/test-app';
 
 const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 
@@ -24,16 +24,7 @@ describe('migration 0014: uploaded files move from the database to the file stor
   const pdfBytes = Buffer.from('%PDF-1.4 twelve product labels');
 
   beforeAll(async () => {
-    await adminQuery(`CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-    sequelize = new Sequelize({
-      dialect: 'mariadb',
-      host: process.env.DB_HOST,
-      port: Number(process.env.DB_PORT),
-      username: process.env.DB_OWNER_USER,
-      password: process.env.DB_OWNER_PASSWORD,
-      database,
-      logging: false,
-    });
+    sequelize = await emptyOwnerDatabase(database);
     await migrator(sequelize).up({ to: '0013-book-version' });
     await sequelize.query(
       "INSERT INTO sites (name, address, regime, handles, created_at, updated_at) VALUES ('Migration kitchen', '', 'UK', '[]', NOW(3), NOW(3))",

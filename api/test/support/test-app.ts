@@ -34,6 +34,12 @@ export async function createTestDatabase(database: string, create = true) {
   await setUpSchema({ ...environmentConfig(), DB_NAME: database });
 }
 
+/** Creates an empty database and connects to it as the owner, for a spec that migrates it step by step. */
+export async function emptyOwnerDatabase(database: string): Promise<Sequelize> {
+  await adminQuery(`CREATE DATABASE \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  return new Sequelize({ ...connectionOptions({ ...environmentConfig(), DB_NAME: database }, 'owner'), models: [] });
+}
+
 /** Takes back the runtime user's table grants (MariaDB keeps them after a DROP DATABASE), then drops the database. */
 export async function dropTestDatabase(database: string) {
   const config = environmentConfig();
