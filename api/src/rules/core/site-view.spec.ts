@@ -102,6 +102,8 @@ describe('siteView: one site of a book of several, as the book the engine declar
     expect(declareSite(siteView(parsed(), 'cafe'), refs).declarations.map((d) => d.product)).toEqual(['honey-cake']);
     expect(declareSite(siteView(parsed(), 'bakery'), refs).declarations.map((d) => d.product)).toEqual(['honey-cake', 'mustard-loaf']);
     expect(siteView(parsed(), 'cafe').book.recipes.find((r) => r.id === 'mustard-loaf')).not.toHaveProperty('sale');
+    expect(siteView(parsed(), 'cafe').notSold).toEqual(['mustard-loaf']);
+    expect(siteView(parsed(), 'bakery').notSold).toEqual([]);
   });
 
   it('refuses a site the book does not have, naming the ones it has', () => {
@@ -117,7 +119,7 @@ describe('siteView: one site of a book of several, as the book the engine declar
       const raw: unknown = JSON.parse(readFileSync(join(ROOT, file), 'utf8'));
       const view = siteView(bookFileSchema.parse(raw));
       const book = bookSchema.parse(raw);
-      expect(view).toEqual({ site: null, book, standIns: [] });
+      expect(view).toEqual({ site: null, book, standIns: [], notSold: [] });
       expect(declareSite(view, refs)).toEqual(declareProducts(book, refs));
       expect(() => siteView(bookFileSchema.parse(raw), 'bakery')).toThrow(
         "This book holds one kitchen, given as site without an id, so it has no site 'bakery'.",

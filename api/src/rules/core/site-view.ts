@@ -23,6 +23,8 @@ export interface SiteView {
   book: Book;
   /** Every recipe line made with the site's own ingredient in place of the shared one, in book order. */
   standIns: StandIn[];
+  /** The recipes for sale in the book that this site does not sell (its sells leaves them out). */
+  notSold: string[];
 }
 
 /** The book's sites by id and name, first the default; none for a book of one kitchen given as site. */
@@ -41,7 +43,7 @@ export function sitesOf(file: BookFile): Array<{ id: string; name: string }> {
 export function siteView(file: BookFile, siteId?: string): SiteView {
   if (file.site) {
     if (siteId !== undefined) throw new UnknownSiteError(siteId, []);
-    return { site: null, book: oneSiteBook(file.site, file), standIns: [] };
+    return { site: null, book: oneSiteBook(file.site, file), standIns: [], notSold: [] };
   }
   const sites = file.sites ?? [];
   const site = siteId === undefined ? sites[0] : sites.find((s) => s.id === siteId);
@@ -62,8 +64,9 @@ export function siteView(file: BookFile, siteId?: string): SiteView {
     const sale = sold ? followQuid(recipe.sale!, byReplaced) : undefined;
     return lines.some((l, i) => l !== recipe.lines[i]) || sale !== recipe.sale ? withSale({ ...recipe, lines }, sale) : recipe;
   });
+  const notSold = file.recipes.filter((r) => r.sale && sells && !sells.has(r.id)).map((r) => r.id);
   const ingredients = file.ingredients.filter((i) => i.onlyAt === undefined || i.onlyAt === site.id);
-  return { site: { id: site.id, name: site.name }, book: oneSiteBook(siteFields(site), { ingredients, recipes }), standIns };
+  return { site: { id: site.id, name: site.name }, book: oneSiteBook(siteFields(site), { ingredients, recipes }), standIns, notSold };
 }
 
 /** The stand-ins below a product of the view (its own recipe and every sub-recipe it reaches), in the order of its walk. */
