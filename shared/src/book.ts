@@ -473,7 +473,7 @@ function siteIssues(book: Omit<BookFile, 'crumbproofBook'>): SiteIssue[] {
   if (book.site && book.sites)
     return [{ path: ['sites'], message: 'Give the kitchen either as site (one kitchen) or as sites (several), not both.' }];
   if (!book.site && !book.sites)
-    return [{ path: [], message: 'Give the kitchen as site (one kitchen), or the kitchens as sites (several, each with its id).' }];
+    return [{ path: ['site'], message: 'Give the kitchen as site (one kitchen), or the kitchens as sites (several, each with its id).' }];
   const issues: SiteIssue[] = [];
   const sites = book.sites ?? [];
   const siteById = new Map<string, BookSite>();

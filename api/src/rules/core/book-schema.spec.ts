@@ -139,7 +139,7 @@ describe('bookFileSchema: a book of several sites', () => {
     JSON.parse(readFileSync(join(ROOT, 'tests/fixtures/two-kitchens.book.json'), 'utf8')) as {
       sites: Array<Record<string, unknown> & { substitutions?: Array<Record<string, unknown>>; sells?: string[] }>;
       ingredients: Array<Record<string, unknown>>;
-      recipes: Array<{ id: string; lines: Array<Record<string, unknown>>; sale?: Record<string, unknown> }>;
+      recipes: Array<{ id: string; name: string; lines: Array<Record<string, unknown>>; sale?: Record<string, unknown> }>;
       site?: unknown;
     };
   type TwoKitchens = ReturnType<typeof twoKitchens>;
@@ -165,7 +165,7 @@ describe('bookFileSchema: a book of several sites', () => {
     {
       title: 'neither site nor sites',
       edit: (b: TwoKitchens) => delete (b as Partial<TwoKitchens>).sites,
-      message: '(book): Give the kitchen as site (one kitchen), or the kitchens as sites (several, each with its id).',
+      message: 'site: Give the kitchen as site (one kitchen), or the kitchens as sites (several, each with its id).',
     },
     {
       title: 'no sites at all',
