@@ -440,7 +440,7 @@ export type BookFileIngredient = z.infer<typeof bookFileIngredientSchema>;
 
 /**
  * The recipe book file (import, export, backup, and the commands' input): one kitchen as `site`,
- * as today, or several as `sites` (exactly one of the two). Ingredients and recipes belong to the
+ * or several as `sites` (exactly one of the two). Ingredients and recipes belong to the
  * book and are shared by its sites. Every reference between sites, substitutions, sold recipes
  * and site-own ingredients is checked here, each refusal naming where it is.
  */
