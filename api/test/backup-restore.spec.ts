@@ -284,6 +284,25 @@ describe('backups that restore (MariaDB instances of their own)', () => {
       expect({ what, tables: tablesThere(), uploads: filesUnder(uploads) }).toEqual({ what, tables: 0, uploads: [] });
     }
 
+    // An archive that checks out but whose dump MariaDB refuses partway: the tables it loaded go again.
+    const refusedDump = await repacked('refused-dump.tar.gz', (f) => {
+      const dump = Buffer.concat([readFileSync(join(f, 'database.sql')), Buffer.from('\nINSERT INTO `no_such_table` VALUES (1);\n')]);
+      writeFileSync(join(f, 'database.sql'), dump);
+      const m = JSON.parse(readFileSync(join(f, 'manifest.json'), 'utf8')) as Manifest;
+      m.database.dump = { ...m.database.dump, sha256: sha256(dump), size: dump.length };
+      writeFileSync(join(f, 'manifest.json'), JSON.stringify(m));
+    });
+    const stopped = await restore(settings(), refusedDump).then(
+      () => 'restored',
+      (err: Error) => err.message,
+    );
+    expect(stopped).toMatch(
+      /^The dump could not be loaded: mariadb could not load the dump into the database \S+ at 127\.0\.0\.1:\d+ \(exit 1\): .*no_such_table.*\nThe restore stopped; every table it had loaded was dropped again, so the database is empty as it was\.$/s,
+    );
+    expect(tablesThere()).toBe(0);
+    rmSync(uploads, { recursive: true });
+    mkdirSync(uploads);
+
     // The command says it in the same words on stderr and exits 1.
     const refused = command('restore', [cases[0][1]]);
     expect(refused.status).toBe(1);

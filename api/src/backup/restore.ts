@@ -46,7 +46,7 @@ export interface RestoreResult {
  * 1. the whole archive is read and checked against its manifest (readArchive) into a folder of
  *    its own, and a bad, cut-short or foreign one is refused;
  * 2. its migrations must all be this version's;
- * 3. the database must hold no table (or not exist yet: it is then created);
+ * 3. the database must hold no table (or not exist yet: it is then created, empty);
  * 4. every file is put into the store and read back, checked against its SHA-256 (the store keeps
  *    bytes under their SHA-256, so a file already there is left as it is);
  * 5. the dump is loaded; should the load fail, every table is dropped again, leaving the database
@@ -78,6 +78,8 @@ export async function restore(settings: SchemaSettings, file: string, reporter: 
       `${basename(file)} is whole: made ${manifest.createdAt}, migration ${manifest.database.migration}, ${manifest.database.tables.length} tables and ${manifest.files.length} stored file${manifest.files.length === 1 ? '' : 's'}.`,
     );
 
+    if (!target.exists) await createDatabaseIfMissing(settings);
+
     reporter.step(`Putting ${manifest.files.length} file${manifest.files.length === 1 ? '' : 's'} into ${store.where}…`);
     const filesMeter = reporter.meter('Put into the store', manifest.files.length, 'files');
     for (const f of manifest.files) {
@@ -97,7 +99,6 @@ export async function restore(settings: SchemaSettings, file: string, reporter: 
     filesMeter.done();
 
     reporter.step(`Loading the dump into ${databaseInWords(settings)}…`);
-    if (!target.exists) await createDatabaseIfMissing(settings);
     const loadMeter = reporter.meter('Loaded', manifest.database.dump.size, 'bytes');
     try {
       await loadDump(settings, join(work, DUMP), (n) => loadMeter.add(n));

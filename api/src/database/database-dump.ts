@@ -35,6 +35,9 @@ async function asOwner<T>(db: DatabaseSettings, fn: (conn: Connection) => Promis
   }
   try {
     return await fn(conn);
+  } catch (err) {
+    if (err instanceof BackupError) throw err;
+    throw new BackupError(`${databaseInWords(db, true)} refused a statement of the owner ${owner.user}: ${why(err)}.`, { cause: err });
   } finally {
     await conn.end().catch(() => undefined);
   }
