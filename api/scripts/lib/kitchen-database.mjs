@@ -3,7 +3,7 @@
 // as it runs, or started for the command and stopped after it. Node built-ins only.
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { aptInstall, chooseDatabasePort, ensureMariadbInstalled, instance } from './mariadb.mjs';
 import { runCliStatus } from './tsx-cli.mjs';
 import { DB_USERS, dbEnv, ensureNodeModules, ROOT } from './workspace.mjs';
@@ -34,6 +34,14 @@ function ensureClient() {
 export async function onKitchenDatabase(command, run) {
   ensureClient();
   if (NAMED.some((name) => process.env[name])) return run({});
+  // Arguments the command will refuse (or a restore's archive that is not there) need no database.
+  const argv = process.argv.slice(2);
+  const cwd = process.env.INIT_CWD ?? process.cwd();
+  const argsHold =
+    command === 'restore'
+      ? argv.length === 1 && !argv[0].startsWith('--') && existsSync(resolve(cwd, argv[0]))
+      : argv.length === 0 || (argv.length === 2 && argv[0] === '--out');
+  if (!argsHold) return run({});
   const dir = join(ROOT, '.data', 'mariadb');
   const hasData = existsSync(join(dir, 'data', 'mysql'));
   if (!hasData && command === 'backup') {
