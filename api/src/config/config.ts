@@ -152,10 +152,8 @@ export function environmentConfig(): AppConfig {
   return parseConfig(process.env);
 }
 
-type Issues = z.RefinementCtx;
-
 /** STORAGE=s3 needs its bucket, and the S3 keys go together. */
-function storageIssues(c: Pick<AppConfig, 'STORAGE' | 'S3_BUCKET' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY'>, ctx: Issues) {
+function storageIssues(c: Pick<AppConfig, 'STORAGE' | 'S3_BUCKET' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY'>, ctx: z.RefinementCtx) {
   if (c.STORAGE === 's3' && !c.S3_BUCKET) {
     ctx.addIssue({
       code: 'custom',
