@@ -2,8 +2,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { ApiErrorBody } from '@crumbproof/shared';
-import { freePort, instance } from '../scripts/lib/mariadb.mjs';
+import { freePort, type instance } from '../scripts/lib/mariadb.mjs';
 import { DATABASE_UNAVAILABLE_MESSAGE } from '../src/common/database-unavailable';
+import { startOwnMariadb } from './support/own-mariadb';
 import { startTestApp, type TestApp } from './support/test-app';
 
 const UNAVAILABLE: ApiErrorBody = { statusCode: 503, code: 'database-unavailable', message: DATABASE_UNAVAILABLE_MESSAGE };
@@ -56,15 +57,7 @@ describe('the database stops and comes back (a MariaDB of its own)', () => {
   beforeAll(async () => {
     process.on('unhandledRejection', onUnhandled);
     const port = await freePort();
-    db = instance({ dir, port });
-    await db.start();
-    db.createDatabase({
-      database: 'crumbproof_test',
-      user: process.env.DB_OWNER_USER!,
-      password: process.env.DB_OWNER_PASSWORD!,
-      runtimeUser: process.env.DB_USER!,
-      runtimePassword: process.env.DB_PASSWORD!,
-    });
+    db = await startOwnMariadb(dir, port);
     t = await startTestApp({ seed: true, settings: { DB_HOST: '127.0.0.1', DB_PORT: String(port) } });
     manager = await t.signIn('manager@example.com');
   }, 120_000);

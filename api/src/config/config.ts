@@ -152,6 +152,33 @@ export function environmentConfig(): AppConfig {
   return parseConfig(process.env);
 }
 
+/** STORAGE=s3 needs its bucket, and the S3 keys go together. */
+function storageIssues(c: Pick<AppConfig, 'STORAGE' | 'S3_BUCKET' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY'>, ctx: z.RefinementCtx) {
+  if (c.STORAGE === 's3' && !c.S3_BUCKET) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['S3_BUCKET'],
+      message: 'Set S3_BUCKET, the bucket uploaded files are kept in, with STORAGE=s3.',
+    });
+  }
+  if (!c.S3_ACCESS_KEY_ID !== !c.S3_SECRET_ACCESS_KEY) {
+    ctx.addIssue({
+      code: 'custom',
+      path: [c.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID'],
+      message: 'Set S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY together (or leave both unset).',
+    });
+  }
+}
+
+/** The parsed settings, or every problem a line, naming the setting. */
+function parsed<T>(result: z.ZodSafeParseResult<T>, notValid: string): T {
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`${notValid}:\n${lines.join('\n')}`);
+  }
+  return result.data;
+}
+
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
   const result = configSchema
     .superRefine((c, ctx) => {
@@ -175,30 +202,49 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
       if (c.SMTP_PASSWORD && !c.SMTP_USER) {
         ctx.addIssue({ code: 'custom', path: ['SMTP_USER'], message: 'Set SMTP_USER with SMTP_PASSWORD (or leave both unset).' });
       }
-      if (c.STORAGE === 's3' && !c.S3_BUCKET) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['S3_BUCKET'],
-          message: 'Set S3_BUCKET, the bucket uploaded files are kept in, with STORAGE=s3.',
-        });
-      }
-      if (!c.S3_ACCESS_KEY_ID !== !c.S3_SECRET_ACCESS_KEY) {
-        ctx.addIssue({
-          code: 'custom',
-          path: [c.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID'],
-          message: 'Set S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY together (or leave both unset).',
-        });
-      }
+      storageIssues(c, ctx);
       if (c.SESSION_MAX_HOURS * 60 < c.SESSION_MINUTES) {
         ctx.addIssue({ code: 'custom', path: ['SESSION_MAX_HOURS'], message: 'SESSION_MAX_HOURS must be at least SESSION_MINUTES.' });
       }
     })
     .safeParse(env);
-  if (!result.success) {
-    const lines = result.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
-    throw new Error(`The API's configuration is not valid:\n${lines.join('\n')}`);
-  }
-  return result.data;
+  return parsed(result, "The API's configuration is not valid");
+}
+
+/**
+ * What `npm run backup` and `npm run restore` read: the database (its owner dumps and loads it)
+ * and the store of uploaded files, as the API names them, and the folder archives go to
+ * (BACKUP_DIR, relative to the repository's root; `backups` when unset). No secret of the API's
+ * own is needed.
+ */
+export const backupSettingsSchema = configSchema
+  .pick({
+    DB_HOST: true,
+    DB_PORT: true,
+    DB_NAME: true,
+    DB_USER: true,
+    DB_PASSWORD: true,
+    DB_OWNER_USER: true,
+    DB_OWNER_PASSWORD: true,
+    STORAGE: true,
+    STORAGE_DIR: true,
+    S3_ENDPOINT: true,
+    S3_BUCKET: true,
+    S3_REGION: true,
+    S3_ACCESS_KEY_ID: true,
+    S3_SECRET_ACCESS_KEY: true,
+    S3_FORCE_PATH_STYLE: true,
+  })
+  .extend({ BACKUP_DIR: unsetIfEmpty(z.string().min(1).default('backups')) });
+export type BackupSettings = z.infer<typeof backupSettingsSchema>;
+
+export function parseBackupSettings(env: Record<string, string | undefined>): BackupSettings {
+  return parsed(backupSettingsSchema.superRefine(storageIssues).safeParse(env), 'The backup settings are not valid');
+}
+
+/** The backup and restore commands' settings, from this process's environment. */
+export function environmentBackupSettings(): BackupSettings {
+  return parseBackupSettings(process.env);
 }
 
 /** What `npm run bench` hands its measuring process (api/scripts/bench.mjs): the app it started and the counter's timing. */

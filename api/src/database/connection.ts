@@ -1,7 +1,8 @@
 import type { Options } from 'sequelize';
 import { databaseOwner, type AppConfig } from '../config/config';
 
-type DatabaseSettings = Pick<
+/** The settings that name the database and its two users. */
+export type DatabaseSettings = Pick<
   AppConfig,
   'DB_HOST' | 'DB_PORT' | 'DB_NAME' | 'DB_USER' | 'DB_PASSWORD' | 'DB_OWNER_USER' | 'DB_OWNER_PASSWORD'
 >;

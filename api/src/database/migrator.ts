@@ -1,3 +1,5 @@
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
 import { Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import type { FileStore } from '../storage/file-store';
@@ -37,4 +39,12 @@ export function migrator(sequelize: Sequelize, log: (m: string) => void = () => 
 
 export async function migrateUp(sequelize: Sequelize, log?: (m: string) => void, files?: FileStore) {
   return migrator(sequelize, log, files).up();
+}
+
+/** The name of every migration this version of Crumbproof has, in order (a restore refuses a dump from beyond them). */
+export function knownMigrations(): string[] {
+  return readdirSync(join(__dirname, 'migrations'))
+    .filter((f) => /\.(js|ts)$/.test(f) && !/\.(d|spec)\.ts$/.test(f))
+    .map((f) => f.replace(/\.(js|ts)$/, ''))
+    .sort();
 }

@@ -3,7 +3,8 @@ import type { FileStore } from './file-store';
 import { LocalFileStore } from './local-file-store';
 import { S3FileStore } from './s3-file-store';
 
-type StorageSettings = Pick<
+/** The settings that name the store. */
+export type StorageSettings = Pick<
   AppConfig,
   | 'STORAGE'
   | 'STORAGE_DIR'

@@ -86,6 +86,8 @@ export interface TestAppOptions {
   mail?: FakeSmtp;
   /** Further settings of the app's environment (SIGN_IN_LIMIT, …), as `.env.example` names them. */
   settings?: Record<string, string>;
+  /** Serve the database that is there already (a restored one, say): none is created, and `db setup`'s migrations and grants run over it. */
+  existing?: boolean;
 }
 
 /** What a test app's mail server settings are, as the app's environment holds them. */
@@ -103,7 +105,7 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
   const db = process.env.DB_NAME!;
   const settings = { ...(opts.mail ? mailSettings(opts.mail) : {}), ...opts.settings };
   Object.assign(process.env, settings);
-  await createTestDatabase(db);
+  await createTestDatabase(db, !opts.existing);
   const { createApp } = await import('../../src/app.factory');
   const { Clock: ClockClass } = await import('../../src/common/clock');
   const { MailSender } = await import('../../src/mail/mail-sender.service');
