@@ -34,7 +34,7 @@ export class DeclarationChanges implements OnModuleInit {
     // New settings reach every product: no ids are named.
     this.kitchen.onUpdated((t) => this.channel.publish({ type: 'declarations-changed' }, t));
     // An approval changes what the counter serves of the products approved.
-    this.approvals.onApproved((products, t) => this.channel.publish({ type: 'declarations-changed', products: [...products] }, t));
+    this.approvals.onApproved((products, t) => this.tell([...products], t));
   }
 
   private async published(written: KitchenWritten, after: Book, t: Transaction): Promise<void> {
@@ -47,6 +47,11 @@ export class DeclarationChanges implements OnModuleInit {
         this.logger.warn(`Could not tell which products a write touched: ${String(e)}`);
       }
     }
+    await this.tell(products, t);
+  }
+
+  /** Names the products (none to name, no event), or, for null or a great many, tells that any may have changed. */
+  private async tell(products: string[] | null, t: Transaction): Promise<void> {
     if (products === null || products.length > PRODUCTS_NAMED_AT_MOST) await this.channel.publish({ type: 'declarations-changed' }, t);
     else if (products.length > 0) await this.channel.publish({ type: 'declarations-changed', products }, t);
   }

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
+import { retryingConflicts } from '../common/conflict-retry';
 
 /**
  * The only place that reads and writes public_page_hits (migration 0015): the public page's
@@ -13,9 +14,12 @@ export class PublicPageHitsRepository {
 
   /** Counts one request of the address in the window and answers the window's count with it. */
   async count(address: string, windowStart: Date): Promise<number> {
-    await this.sequelize.query(
-      'INSERT INTO public_page_hits (address, window_start, hits) VALUES (?, ?, 1) ON DUPLICATE KEY UPDATE hits = hits + 1',
-      { replacements: [address, windowStart] },
+    // Two instances over different Galera nodes counting one address at once: one loses with 1213 and counts again.
+    await retryingConflicts(() =>
+      this.sequelize.query(
+        'INSERT INTO public_page_hits (address, window_start, hits) VALUES (?, ?, 1) ON DUPLICATE KEY UPDATE hits = hits + 1',
+        { replacements: [address, windowStart] },
+      ),
     );
     const row = await this.sequelize.query<{ hits: number }>('SELECT hits FROM public_page_hits WHERE address = ? AND window_start = ?', {
       replacements: [address, windowStart],
