@@ -1,9 +1,11 @@
 import type { CounterEvent } from '@crumbproof/shared';
+import { Logger } from '@nestjs/common';
 import type { NestFastifyApplication } from '@nestjs/platform-fastify';
 import { QueryTypes } from 'sequelize';
 import { createApp } from '../src/app.factory';
 import { CounterChannel, POLL_MS, SETTLE_MS } from '../src/counter/counter-channel';
 import { CounterEvents } from '../src/counter/counter-events';
+import { CounterEventsRepository } from '../src/counter/counter-events.repository';
 import { startTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -106,6 +108,54 @@ describe('the counter’s events shared through the database (real MariaDB, two 
     await publishOnA(day(21));
     await until(() => heardOnB.length > fromB);
     expect(since(heardOnB, fromB)).toEqual([day(21)]);
+  });
+
+  it('loses nothing when a read of the events fails: the next one reads from where it stopped', async () => {
+    const fromB = heardOnB.length;
+    const repo = b.get(CounterEventsRepository);
+    const real = repo.since.bind(repo);
+    let failed = 0;
+    const reads = jest.spyOn(repo, 'since').mockImplementation((...args) => {
+      if (failed < 3) {
+        failed++;
+        return Promise.reject(new Error('connect ECONNREFUSED 127.0.0.1:3306'));
+      }
+      return real(...args);
+    });
+    const warned = jest.spyOn(Logger.prototype, 'warn').mockImplementation(() => undefined);
+    try {
+      await publishOnA(day(12));
+      await publishOnA(day(13));
+      await until(() => heardOnB.length - fromB >= 2);
+      expect(failed).toBe(3);
+      await twoPolls();
+      expect(since(heardOnB, fromB)).toEqual([day(12), day(13)]);
+      // Said once in the log, not at every failed read.
+      expect(warned.mock.calls.filter(([m]) => String(m).startsWith('Could not read the counter’s events'))).toHaveLength(1);
+    } finally {
+      reads.mockRestore();
+      warned.mockRestore();
+    }
+  });
+
+  it('stops looking for missing ids once the ones above them were read SETTLE_MS ago, so each read stays small', async () => {
+    await publishOnA(day(14));
+    await until(() => heardOnB.at(-1)?.type === 'display-changed' && (heardOnB.at(-1) as { date: string }).date === day(14).date);
+    const repo = b.get(CounterEventsRepository);
+    const reads = jest.spyOn(repo, 'since');
+    const now = Date.now();
+    const later = jest.spyOn(Date, 'now').mockImplementation(() => now + SETTLE_MS + 1000);
+    try {
+      await twoPolls();
+      const [{ newest }] = await a.sequelize.query<{ newest: number }>('SELECT MAX(id) AS newest FROM counter_events', {
+        type: QueryTypes.SELECT,
+      });
+      const [after, heard] = reads.mock.calls.at(-1)!;
+      expect({ after, heard }).toEqual({ after: Number(newest), heard: [] });
+    } finally {
+      later.mockRestore();
+      reads.mockRestore();
+    }
   });
 
   it('gives a stream opened later only what is written after it opened', async () => {
