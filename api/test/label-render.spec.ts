@@ -539,6 +539,65 @@ describe('npm run label', () => {
     expect(readdirSync(work)).not.toContain(`refused-${args[0].slice(2)}.pdf`);
   });
 
+  describe('at one site of a book of several (--site)', () => {
+    const sites = join(work, 'sites.json');
+    beforeAll(() => {
+      const { site, ...rest } = JSON.parse(readFileSync(book, 'utf8')) as Book;
+      const harbour = { id: 'harbour', name: 'Harbour Kiosk', address: '9 Quay Street, Bristol BS1 5TT', regime: 'UK', handles: [] };
+      writeFileSync(
+        sites,
+        JSON.stringify({
+          ...rest,
+          sites: [
+            { id: 'lane', ...site },
+            { ...harbour, sells: ['lemon-shortbread'] },
+          ],
+        }),
+      );
+    });
+    const labelAt = (...args: string[]) =>
+      spawnSync(process.execPath, [join(ROOT, 'api/scripts/label.mjs'), sites, ...args], {
+        encoding: 'utf8',
+        cwd: work,
+        env: { ...process.env, INIT_CWD: work },
+      });
+    const printed = (site: string[]) => {
+      const out = join(work, `site-${site.join('-') || 'default'}.pdf`);
+      const res = labelAt(...site, '--product', 'lemon-shortbread', '--template', 'product', '--out', out, '--date', '2026-12-02');
+      expect(res.stderr).toBe('');
+      expect(res.status).toBe(0);
+      return textRuns(out)
+        .map((r) => r.str)
+        .join(' ')
+        .replace(/\s+/g, ' ');
+    };
+
+    it("prints with the site's name and address (Regulation (EU) No 1169/2011 Article 9(1)(h)), the first site by default", () => {
+      const harbour = printed(['--site', 'harbour']);
+      expect(harbour).toContain('Harbour Kiosk');
+      expect(harbour).toContain('9 Quay Street, Bristol BS1 5TT');
+      const lane = printed([]);
+      expect(lane).toContain(demo.site.name);
+      expect(lane).not.toContain('Harbour Kiosk');
+    });
+
+    it('refuses a site the book does not have, naming the ones it has, and a product the site does not sell', () => {
+      const unknown = labelAt('--site', 'pier', '--product', 'lemon-shortbread', '--template', 'ticket', '--out', join(work, 'pier.pdf'));
+      expect(unknown.status).toBe(1);
+      expect(unknown.stderr.trim()).toBe(
+        `--site: There is no site 'pier' in this book; its sites are lane (${demo.site.name}), harbour (Harbour Kiosk).`,
+      );
+      const other = demo.recipes.find((r) => r.sale && r.id !== 'lemon-shortbread')!;
+      const unsold = labelAt('--site', 'harbour', '--product', other.id, '--template', 'ticket', '--out', join(work, 'unsold.pdf'));
+      expect(unsold.status).toBe(1);
+      expect(unsold.stderr.trim()).toBe(
+        `--product: ${other.name} is not sold at Harbour Kiosk (the site's sells leaves it out), so it has no labels there.`,
+      );
+      expect(readdirSync(work)).not.toContain('pier.pdf');
+      expect(readdirSync(work)).not.toContain('unsold.pdf');
+    });
+  });
+
   it('refuses a product whose declaration has an error', () => {
     const b = structuredClone(demo);
     b.recipes.find((x) => x.id === 'lemon-shortbread')!.sale!.claims = ['vegan'];

@@ -68,6 +68,14 @@ const book = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
   recipes: [],
   ...over,
 });
+/** One site of a book given as sites. */
+const corpusSite = (over: Record<string, unknown> = {}): Record<string, unknown> => ({
+  id: 'corpus-shop',
+  name: 'Corpus shop',
+  regime: 'UK',
+  handles: [],
+  ...over,
+});
 const user = (over: Record<string, unknown> = {}) => ({
   email: 'corpus@example.com',
   name: 'Corpus Person',
@@ -699,6 +707,37 @@ const CORPUS: MalformedRequest[] = [
         'a handled allergen that does not exist',
         book({ site: { name: 'Wrenfield', regime: 'UK', handles: [{ allergen: 'gluten', controls: 'segregated' }] } }),
         /^site\.handles\.0\.allergen: Unknown allergen source 'gluten'/m,
+      ],
+      ['a book with both site and sites', book({ sites: [corpusSite()] }), /^sites: Give the kitchen either as site .* not both/m],
+      [
+        'a book of two sites, which the kitchen of one site cannot hold',
+        book({ site: undefined, sites: [corpusSite(), corpusSite({ id: 'corpus-cafe' })] }),
+        /^sites: This book has 2 sites \(corpus-shop, corpus-cafe\), and Crumbproof here holds one kitchen/m,
+      ],
+      [
+        'a site id that looks like SQL',
+        book({ site: undefined, sites: [corpusSite({ id: "shop' OR 1=1" })] }),
+        /^sites\.0 \(shop' OR 1=1\)\.id: Use lower-case letters/m,
+      ],
+      [
+        'two sites with one id',
+        book({ site: undefined, sites: [corpusSite(), corpusSite()] }),
+        /^sites\.1 \(corpus-shop\)\.id: The site id 'corpus-shop' is used by two sites/m,
+      ],
+      [
+        'a substitution of an ingredient the book does not have',
+        book({ site: undefined, sites: [corpusSite({ substitutions: [{ replaces: 'no-such-ingredient', with: 'corpus-cream' }] })] }),
+        /^sites\.0 \(corpus-shop\)\.substitutions\.0\.replaces: 'no-such-ingredient' is not an ingredient of this book/m,
+      ],
+      [
+        'an ingredient kept at a site the book does not have',
+        book({ site: undefined, sites: [corpusSite()], ingredients: [ingredient({ onlyAt: 'corpus-cafe' })] }),
+        /^ingredients\.0 \(corpus-cream\)\.onlyAt: 'corpus-cafe' is not a site of this book; its sites are corpus-shop\./m,
+      ],
+      [
+        'a site selling a recipe the book does not have',
+        book({ site: undefined, sites: [corpusSite({ sells: ['no-such-recipe'] })] }),
+        /^sites\.0 \(corpus-shop\)\.sells\.0: 'no-such-recipe' is not a recipe of this book/m,
       ],
     ] as const
   ).map(([what, body, names]) => ({ what, method: 'POST' as const, url: '/api/book/import', send: () => json(body), status: 400, names })),

@@ -388,6 +388,11 @@ export const siteSchema = z.strictObject({
 });
 export type Site = z.infer<typeof siteSchema>;
 
+/**
+ * The one-site book the rules engine declares, the API holds and exports: a kitchen (`site`),
+ * its ingredients and its recipes. A book of several sites reads through `bookFileSchema`, and
+ * each site's view of it is a book of this shape (`siteView` in the rules core).
+ */
 export const bookSchema = z.strictObject({
   crumbproofBook: z.literal(1, { error: 'This is not a Crumbproof recipe book of a known version: crumbproofBook must be 1.' }),
   site: siteSchema,
@@ -396,3 +401,169 @@ export const bookSchema = z.strictObject({
 });
 export type Book = z.infer<typeof bookSchema>;
 export type BookInput = z.input<typeof bookSchema>;
+
+/** A site's id, written as an ingredient's or recipe's is (lower-case letters, digits and hyphens). */
+export const siteIdSchema = itemId("Give the site an id, e.g. 'high-street'.");
+
+/**
+ * A site's own ingredient standing in for one of the book's shared ingredients, in that site only:
+ * every recipe line of the shared one is made with the site's own there.
+ */
+export const substitutionSchema = z.strictObject({
+  /** The shared ingredient replaced (it has no onlyAt). */
+  replaces: id,
+  /** The site's own ingredient used instead (its onlyAt is this site). */
+  with: id,
+  /** Why, in a line: "Flour from the mill down the road". */
+  note: oneLine(
+    z.string().trim().min(1, 'Write the note, or leave it out.').max(300, 'Keep the note to 300 characters or fewer.'),
+  ).optional(),
+});
+export type Substitution = z.infer<typeof substitutionSchema>;
+
+/** One kitchen of a book of several: the site's fields with its id, its substitutions and what it sells. */
+export const bookSiteSchema = z.strictObject({
+  id: siteIdSchema,
+  ...siteSchema.shape,
+  substitutions: z.array(substitutionSchema).optional(),
+  /** The recipes for sale at this site (each has sale details). Left out: every recipe for sale in the book. */
+  sells: z.array(id).optional(),
+});
+export type BookSite = z.infer<typeof bookSiteSchema>;
+
+/** An ingredient of the book file: shared by every site, or a site's own (`onlyAt`, its id). */
+export const bookFileIngredientSchema = bookIngredientSchema.extend({
+  /** The site that keeps this ingredient; it stands in for a shared one there by a substitution on the site, never elsewhere. */
+  onlyAt: siteIdSchema.optional(),
+});
+export type BookFileIngredient = z.infer<typeof bookFileIngredientSchema>;
+
+/**
+ * The recipe book file (import, export, backup, and the commands' input): one kitchen as `site`,
+ * or several as `sites` (exactly one of the two). Ingredients and recipes belong to the
+ * book and are shared by its sites. Every reference between sites, substitutions, sold recipes
+ * and site-own ingredients is checked here, each refusal naming where it is.
+ */
+export const bookFileSchema = z
+  .strictObject({
+    crumbproofBook: bookSchema.shape.crumbproofBook,
+    site: siteSchema.optional(),
+    sites: z.array(bookSiteSchema).min(1, 'Give at least one site, or give the one kitchen as site.').optional(),
+    ingredients: z.array(bookFileIngredientSchema),
+    recipes: z.array(bookRecipeSchema),
+  })
+  // Only over a book whose every part is valid: the references are read from it.
+  .superRefine(
+    (book, ctx) => {
+      for (const issue of siteIssues(book)) ctx.addIssue({ code: 'custom', input: undefined, ...issue });
+    },
+    { when: (payload) => payload.issues.length === 0 },
+  )
+  .meta({ oneOf: [{ required: ['site'] }, { required: ['sites'] }] });
+export type BookFile = z.infer<typeof bookFileSchema>;
+export type BookFileInput = z.input<typeof bookFileSchema>;
+
+interface SiteIssue {
+  path: (string | number)[];
+  message: string;
+}
+
+/** What the book's sites, site-own ingredients, substitutions and sold recipes name that does not hold. */
+function siteIssues(book: Omit<BookFile, 'crumbproofBook'>): SiteIssue[] {
+  if (book.site && book.sites)
+    return [{ path: ['sites'], message: 'Give the kitchen either as site (one kitchen) or as sites (several), not both.' }];
+  if (!book.site && !book.sites)
+    return [{ path: ['site'], message: 'Give the kitchen as site (one kitchen), or the kitchens as sites (several, each with its id).' }];
+  const issues: SiteIssue[] = [];
+  const sites = book.sites ?? [];
+  const siteById = new Map<string, BookSite>();
+  sites.forEach((site, i) => {
+    if (siteById.has(site.id))
+      issues.push({ path: ['sites', i, 'id'], message: `The site id '${site.id}' is used by two sites; give each site its own id.` });
+    else siteById.set(site.id, site);
+  });
+  // Every other reference names a site by its id, so it is read only once each id is one site's.
+  if (issues.length > 0) return issues;
+  const known = sites.map((s) => s.id).join(', ');
+  const ingredients = new Map(book.ingredients.map((x) => [x.id, x]));
+  const recipes = new Map(book.recipes.map((r) => [r.id, r]));
+  const siteName = (siteId: string) => siteById.get(siteId)?.name ?? siteId;
+  const ownedBy = (ingredient: BookFileIngredient) =>
+    `${ingredient.name} is kept only at ${siteName(ingredient.onlyAt!)} (onlyAt '${ingredient.onlyAt}')`;
+
+  book.ingredients.forEach((ingredient, i) => {
+    if (ingredient.onlyAt === undefined) return;
+    if (book.site)
+      issues.push({
+        path: ['ingredients', i, 'onlyAt'],
+        message: `onlyAt names a site, and this book's one kitchen (site) has no id: give the book its kitchens as sites, each with its id, or leave onlyAt out.`,
+      });
+    else if (!siteById.has(ingredient.onlyAt))
+      issues.push({
+        path: ['ingredients', i, 'onlyAt'],
+        message: `'${ingredient.onlyAt}' is not a site of this book; its sites are ${known}.`,
+      });
+  });
+
+  // Recipes are shared by every site, so they name shared ingredients only; a site's own comes in by its substitution.
+  const sharedOnly = (use: string) => {
+    const ingredient = ingredients.get(use);
+    return ingredient?.onlyAt !== undefined && siteById.has(ingredient.onlyAt)
+      ? `${ownedBy(ingredient)}, and the book's recipes are shared by every site: name the shared ingredient here, and record a substitution on ${siteName(ingredient.onlyAt)} replacing it with '${use}'.`
+      : undefined;
+  };
+  book.recipes.forEach((recipe, r) => {
+    recipe.lines.forEach((line, l) => {
+      const message = sharedOnly(line.use);
+      if (message) issues.push({ path: ['recipes', r, 'lines', l, 'use'], message: `Line ${l + 1} of ${recipe.name}: ${message}` });
+    });
+    recipe.sale?.quid?.forEach((named, q) => {
+      const message = sharedOnly(named);
+      if (message) issues.push({ path: ['recipes', r, 'sale', 'quid', q], message: `The QUID of ${recipe.name}: ${message}` });
+    });
+  });
+
+  sites.forEach((site, s) => {
+    const replaced = new Map<string, number>();
+    site.substitutions?.forEach((sub, n) => {
+      const at = (field: 'replaces' | 'with', message: string) => issues.push({ path: ['sites', s, 'substitutions', n, field], message });
+      const notAnIngredient = (use: string) =>
+        recipes.has(use)
+          ? `'${use}' is a recipe; a substitution puts one ingredient in the place of another.`
+          : `'${use}' is not an ingredient of this book.`;
+      const shared = ingredients.get(sub.replaces);
+      if (!shared) at('replaces', notAnIngredient(sub.replaces));
+      else if (shared.onlyAt !== undefined)
+        at('replaces', `${ownedBy(shared)}: a substitution replaces one of the book's shared ingredients.`);
+      else if (replaced.has(sub.replaces))
+        at(
+          'replaces',
+          `${shared.name} is already replaced by substitution ${replaced.get(sub.replaces)! + 1} of this site; replace each ingredient once.`,
+        );
+      else replaced.set(sub.replaces, n);
+
+      const own = ingredients.get(sub.with);
+      if (!own) at('with', notAnIngredient(sub.with));
+      else if (own.onlyAt === undefined)
+        at(
+          'with',
+          `${own.name} is a shared ingredient: what stands in at a site is that site's own ingredient (give it onlyAt '${site.id}' if only this site keeps it).`,
+        );
+      else if (own.onlyAt !== site.id && siteById.has(own.onlyAt))
+        at('with', `${ownedBy(own)}, not at ${site.name}: a site stands in only its own ingredients.`);
+    });
+
+    const listed = new Set<string>();
+    site.sells?.forEach((sold, n) => {
+      const at = (message: string) => issues.push({ path: ['sites', s, 'sells', n], message });
+      const recipe = recipes.get(sold);
+      if (!recipe)
+        at(ingredients.has(sold) ? `'${sold}' is an ingredient; a site sells recipes.` : `'${sold}' is not a recipe of this book.`);
+      else if (!recipe.sale)
+        at(`${recipe.name} is not for sale in this book (it has no sale details): give it sale details, or leave it out of sells.`);
+      else if (listed.has(sold)) at(`${recipe.name} is listed twice; list each recipe once.`);
+      listed.add(sold);
+    });
+  });
+  return issues;
+}

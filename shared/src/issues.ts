@@ -21,14 +21,15 @@ const dotted = (path: readonly PropertyKey[]) => path.map(String).join('.');
 export const bodyPlace: IssuePlace = (path) => (path.length > 0 ? dotted(path) : '(body)');
 
 /**
- * A path in a recipe book, naming each listed item by its id when the book as sent has one:
- * ['ingredients', 3, 'contains'] → "ingredients.3 (butter).contains".
+ * A path in a recipe book, naming each listed item or site by its id when the book as sent has one:
+ * ['ingredients', 3, 'contains'] → "ingredients.3 (butter).contains", ['sites', 1, 'sells', 0] →
+ * "sites.1 (cafe).sells.0".
  */
 export function bookPlace(book: unknown): IssuePlace {
   return (path) => {
     if (path.length === 0) return '(book)';
     const [list, index, ...rest] = path;
-    if ((list === 'ingredients' || list === 'recipes') && typeof index === 'number') {
+    if ((list === 'ingredients' || list === 'recipes' || list === 'sites') && typeof index === 'number') {
       const items = book && typeof book === 'object' ? (book as Record<string, unknown>)[list] : undefined;
       const item = Array.isArray(items) ? (items[index] as unknown) : undefined;
       const id = item && typeof item === 'object' ? (item as Record<string, unknown>).id : undefined;

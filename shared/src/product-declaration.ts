@@ -8,6 +8,28 @@ export interface ProductDeclaration extends Declaration {
   nutrition: NutritionDeclaration;
 }
 
+/** A recipe line made at a site with the site's own ingredient in place of the book's shared one (the site's substitution). */
+export interface StandIn {
+  /** The recipe whose line it is. */
+  recipe: string;
+  /** The line's 1-based position in that recipe. */
+  line: number;
+  /** The shared ingredient the line names in the book. */
+  replaces: string;
+  replacesName: string;
+  /** The site's own ingredient the line is made with there. */
+  with: string;
+  withName: string;
+  note?: string;
+}
+
+/** A product's declaration at one site of a book of several: the site it answers for, and every stand-in below it. */
+export interface SiteProductDeclaration extends ProductDeclaration {
+  site: { id: string; name: string };
+  /** Every line in the product's recipes, at any depth, made with a site's own ingredient in place of a shared one. */
+  standIns: StandIn[];
+}
+
 /** One recorded item a served declaration was computed from, at the revision it was read. */
 export interface DeclarationBasisItem {
   id: string;

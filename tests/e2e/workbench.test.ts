@@ -256,6 +256,22 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     }
     await s.page.setViewportSize({ width: 1280, height: 900 });
   });
+
+  it('fits the line table without scrolling it sideways at every width from a small laptop to 1280 px', async () => {
+    await s.page.goto(`${BASE_URL}/recipes/vanilla-cream-cup/edit`);
+    await s.page.getByRole('heading', { level: 1 }).waitFor();
+    for (const width of [1024, 1100, 1200, 1279, 1280]) {
+      await s.page.setViewportSize({ width, height: 900 });
+      const lines = s.page.getByRole('region', { name: 'Recipe lines' });
+      await lines.waitFor();
+      const hidden = await lines.evaluate((el) => el.scrollWidth - el.clientWidth);
+      expect(hidden, `the line table scrolls sideways at ${width} px`).toBeLessThanOrEqual(0);
+      // The live declaration is beside the form from 1280 px, and folded into the summary below that.
+      const beside = await s.page.getByRole('heading', { name: 'Live declaration', level: 2 }).isVisible();
+      expect(beside, `live declaration beside the form at ${width} px`).toBe(width >= 1280);
+    }
+    await screenshot(s.page, 'recipe-editor-1280');
+  });
 });
 
 describe('front of house', () => {

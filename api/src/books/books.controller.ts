@@ -1,7 +1,7 @@
 import { Body, Controller, Get, HttpCode, Post } from '@nestjs/common';
 import { RouteConfig } from '@nestjs/platform-fastify';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { bookSchema } from '@crumbproof/shared';
+import { bookFileSchema } from '@crumbproof/shared';
 import { MAX_BOOK_BYTES, type BodyLimitConfig } from '../common/limits';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
@@ -24,8 +24,8 @@ export class BooksController {
   @HttpCode(200)
   @Roles(['manager'])
   @RouteConfig({ bodyLimit: MAX_BOOK_BYTES } satisfies BodyLimitConfig)
-  @ApiOperation({ summary: 'Import a recipe book, merging by id; all or nothing' })
-  @ApiZodBody(bookSchema)
+  @ApiOperation({ summary: 'Import a recipe book of one kitchen (site, or sites with one site), merging by id; all or nothing' })
+  @ApiZodBody(bookFileSchema)
   import(@CurrentUser() user: AuthUser, @Body() body: unknown) {
     return this.books.importBook(body, { authorId: user.id, note: 'Imported from a recipe book' });
   }

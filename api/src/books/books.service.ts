@@ -1,8 +1,9 @@
 import { Injectable, Logger } from '@nestjs/common';
 import {
+  bookFileSchema,
   bookPlace,
-  bookSchema,
   type Book,
+  type BookFile,
   type BookIngredient,
   type BookProblem,
   type BookRecipe,
@@ -25,6 +26,7 @@ import { RecipesRepository } from '../recipes/recipes.repository';
 import { UsersRepository } from '../users/users.repository';
 import { atThresholdPrecision, compare } from '../rules/core/compare';
 import { sameData } from '../rules/core/same-data';
+import { siteView } from '../rules/core/site-view';
 import { buildTree } from '../rules/core/tree';
 import { RulesService } from '../rules/rules.service';
 
@@ -209,12 +211,24 @@ export class BooksService {
     return (await this.state(t)).book;
   }
 
-  /** Parses a book against the published schema; every problem names where it is. */
+  /**
+   * Parses a book against the published schema; every problem names where it is. The kitchen
+   * holds one site: a book of one site given as sites reads as the same book given as site, and a
+   * book of several sites is refused, as is what the kitchen cannot keep of a site yet (its
+   * substitutions, a sells list that leaves a recipe for sale out).
+   */
   parse(input: unknown): Book {
-    const result = bookSchema.safeParse(input);
+    const result = bookFileSchema.safeParse(input);
     if (!result.success)
       throw validationError(result.error, { place: bookPlace(input), code: 'book-invalid', lead: 'The recipe book is not valid.' });
-    return result.data;
+    const refused = oneKitchenProblems(result.data);
+    if (refused.length > 0)
+      throw new AppError(
+        'book-invalid',
+        `The recipe book is not valid. ${refused.map((f) => `${f.path}: ${f.message}`).join(' ')}`,
+        refused,
+      );
+    return siteView(result.data).book;
   }
 
   /** Refuses a book the rules engine cannot declare (cycles, unknown ids, unweighable lines). */
@@ -607,4 +621,36 @@ export function bookRefused(problems: BookProblem[]): AppError {
   const rest = problems.length - shown.length;
   const more = rest > 0 ? ` And ${rest} more problem${rest > 1 ? 's' : ''}.` : '';
   return new AppError(problems[0].code, `${shown.join(' ')}${more}`, undefined, problems);
+}
+
+/**
+ * What a book holds that this kitchen, one site, cannot keep: several sites, a site's
+ * substitutions, and a sells list leaving out a recipe for sale (the kitchen sells every one).
+ */
+function oneKitchenProblems(file: BookFile): FieldError[] {
+  const sites = file.sites ?? [];
+  if (sites.length > 1)
+    return [
+      {
+        path: 'sites',
+        message: `This book has ${sites.length} sites (${sites.map((s) => s.id).join(', ')}), and Crumbproof here holds one kitchen: import a book of one site, given as site or as sites with that site alone.`,
+      },
+    ];
+  const [site] = sites;
+  if (!site) return [];
+  const place = `sites.0 (${site.id})`;
+  const fields: FieldError[] = [];
+  if (site.substitutions && site.substitutions.length > 0)
+    fields.push({
+      path: `${place}.substitutions`,
+      message: `The kitchen keeps no substitutions yet, so its recipes would not say which ingredient stands in for which: name the ingredient the kitchen uses in its recipes' lines, or leave the substitutions out.`,
+    });
+  const sells = new Set(site.sells ?? file.recipes.map((r) => r.id));
+  const unsold = file.recipes.filter((r) => r.sale && !sells.has(r.id));
+  if (unsold.length > 0)
+    fields.push({
+      path: `${place}.sells`,
+      message: `The kitchen sells every recipe with sale details, and sells leaves out ${unsold.map((r) => r.name).join(', ')}: list them too, or leave sells out.`,
+    });
+  return fields;
 }

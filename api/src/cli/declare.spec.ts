@@ -1,9 +1,9 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-/** The command line as a user runs it: npm run declare -- BOOK.json [--regime R] [--product ID]. */
+/** The command line as a user runs it: npm run declare -- BOOK.json [--site ID] [--regime R] [--product ID]. */
 const ROOT = join(__dirname, '..', '..', '..');
 // npm sets INIT_CWD to where the user ran it; paths in the arguments are read from there.
 const run = (...args: string[]) =>
@@ -13,6 +13,19 @@ const run = (...args: string[]) =>
     env: { ...process.env, INIT_CWD: ROOT },
   });
 const SHORTBREAD = 'tests/fixtures/shortbread.book.json';
+/** Two sites: the bench (EU, sesame on shared equipment) and the corner shop (US, sesame kept apart, its own flour, sells shortbread). */
+const TWO_KITCHENS = 'tests/fixtures/two-kitchens.book.json';
+
+interface SiteOut {
+  declarations: Array<{
+    product: string;
+    regime: string;
+    site: { id: string; name: string };
+    mayContainText: string | null;
+    ingredientsText: string;
+    standIns: Array<{ recipe: string; line: number; replaces: string; with: string }>;
+  }>;
+}
 
 function tempBook(book: unknown): string {
   const file = join(mkdtempSync(join(tmpdir(), 'book-')), 'book.json');
@@ -99,7 +112,56 @@ describe('npm run declare', () => {
     ]);
   });
 
-  it.each([['--regime', 'XX'], ['--colour'], []])('exits 2 on wrong arguments %p', (...args) => {
+  it('declares a book of several sites for its first site by default, each declaration naming the site and what stood in', () => {
+    const r = run(TWO_KITCHENS);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout) as SiteOut;
+    expect(out.declarations.map((d) => [d.product, d.regime, d.site.id])).toEqual([
+      ['shortbread', 'EU', 'bench'],
+      ['sesame-snap', 'EU', 'bench'],
+    ]);
+    // The bench handles sesame on shared equipment (Regulation (EU) No 1169/2011 Article 36(3)(a)).
+    expect(out.declarations[0].mayContainText).toBe('May contain: sesame seeds.');
+    expect(out.declarations[0].standIns).toEqual([]);
+    expect(out.declarations[0].ingredientsText).toContain('Plain wheat flour');
+  });
+
+  it('declares at the site given: its regime, its handling, its substitution and only what it sells', () => {
+    const r = run(TWO_KITCHENS, '--site', 'corner');
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout) as SiteOut;
+    expect(out.declarations.map((d) => [d.product, d.regime, d.site.name])).toEqual([['shortbread', 'US', 'Corner Shop']]);
+    const [shortbread] = out.declarations;
+    // FD&C Act 403(w): the list, then "Contains:"; sesame kept apart gives no may-contain, the shop's own flour's supplier one does.
+    expect(shortbread.ingredientsText).toBe('Ingredients: Stone-ground wheat flour, Butter. Contains: milk, wheat.');
+    expect(shortbread.mayContainText).toBe('May contain: soybeans.');
+    expect(shortbread.standIns).toMatchObject([{ recipe: 'shortbread', line: 1, replaces: 'flour', with: 'corner-flour' }]);
+  });
+
+  it.each([
+    [TWO_KITCHENS, "--site: There is no site 'harbour' in this book; its sites are bench (Test bench), corner (Corner Shop)."],
+    [SHORTBREAD, "--site: This book holds one kitchen, given as site without an id, so it has no site 'harbour'."],
+  ])('refuses a site %s does not have, naming the ones it has', (book, message) => {
+    const r = run(book, '--site', 'harbour');
+    expect(r.status).toBe(1);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim()).toBe(message);
+  });
+
+  it("says at which site a book's problem is found", () => {
+    const book = JSON.parse(readFileSync(join(ROOT, TWO_KITCHENS), 'utf8')) as {
+      recipes: Array<{ lines: Array<Record<string, unknown>> }>;
+    };
+    book.recipes[0].lines[0] = { use: 'flour', qty: 2, unit: 'cup' };
+    const r = run(tempBook(book), '--site', 'corner');
+    expect(r.status).toBe(1);
+    expect(r.stderr.trim()).toBe(
+      "unweighable-line: At Corner Shop (corner): Line 1 of Shortbread uses 'corner-flour' in 'cup', but Stone-ground wheat flour has no weight per millilitre. Add its density in grams per millilitre, or write the line in grams.",
+    );
+  });
+
+  it.each([['--regime', 'XX'], ['--colour'], ['--site'], []])('exits 2 on wrong arguments %p', (...args) => {
     const r = run(...(args.length ? [SHORTBREAD, ...args] : []));
     expect(r.status).toBe(2);
     expect(r.stderr).toContain('Usage: npm run declare');

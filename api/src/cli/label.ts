@@ -3,30 +3,30 @@ import { join, resolve } from 'node:path';
 import {
   DEFAULT_BATCH_PATTERN,
   batchProblem,
-  bookPlace,
-  bookSchema,
   expandBatchPattern,
-  formatIssue,
   isCalendarDate,
   verifyGs1Key,
-  type Book,
   type Declaration,
 } from '@crumbproof/shared';
 import { checkTemplate, renderLabelDocument, type LabelInput } from '@crumbproof/shared/labels';
 import { labelFonts, renderPdf } from '../labels/pdf-node';
-import { BookProblemsError, UnknownProductError, checkBook, declareProduct } from '../rules/core';
+import { BookProblemsError, UnknownProductError, declareProduct } from '../rules/core';
 import { loadReferenceData } from '../rules/reference-data';
+import { fail, problemLines, readSiteView } from './read-book';
 
 /**
- * npm run label -- BOOK.json --product ID --template NAME --out FILE.pdf [--date YYYY-MM-DD]
- *   [--batch CODE] [--count N] [--gtin GTIN]
+ * npm run label -- BOOK.json --product ID --template NAME --out FILE.pdf [--site ID]
+ *   [--date YYYY-MM-DD] [--batch CODE] [--count N] [--gtin GTIN]
  * Renders labels of one product from a recipe book (the chart: of every product for sale, or of
- * the one given) with the same renderer as the app, without a database. A refused print (a book
+ * the one given) with the same renderer as the app, without a database. A book of several sites
+ * prints for the site given (the first by default): its regime, its name and address, its
+ * substitutions, and only what it sells. A refused print (a book
  * that fails its checks, a declaration error, a bad value, text that does not fit) exits 1 with
  * one reason a line on stderr, naming the field; wrong arguments exit 2. Nothing is written then.
  */
 interface Args {
   file: string;
+  site?: string;
   product?: string;
   template: string;
   out: string;
@@ -37,11 +37,11 @@ interface Args {
 }
 
 const USAGE =
-  'Usage: npm run label -- BOOK.json --product ID --template NAME --out FILE.pdf [--date YYYY-MM-DD] [--batch CODE] [--count N] [--gtin GTIN]';
+  'Usage: npm run label -- BOOK.json --product ID --template NAME --out FILE.pdf [--site ID] [--date YYYY-MM-DD] [--batch CODE] [--count N] [--gtin GTIN]';
 
 const TEMPLATES_DIR = resolve(__dirname, '..', '..', '..', 'label-templates');
 
-const VALUE_OPTIONS = ['--product', '--template', '--out', '--date', '--batch', '--count', '--gtin'] as const;
+const VALUE_OPTIONS = ['--site', '--product', '--template', '--out', '--date', '--batch', '--count', '--gtin'] as const;
 type ValueOption = (typeof VALUE_OPTIONS)[number];
 
 function parseArgs(argv: string[]): Args | string {
@@ -65,6 +65,7 @@ function parseArgs(argv: string[]): Args | string {
   if (!values['--product'] && values['--template'] !== 'chart') return 'Give the product to print with --product.';
   return {
     file,
+    site: values['--site'],
     product: values['--product'],
     template: values['--template'],
     out: values['--out'],
@@ -73,11 +74,6 @@ function parseArgs(argv: string[]): Args | string {
     count: values['--count'],
     gtin: values['--gtin'],
   };
-}
-
-function fail(lines: string[], code: number): never {
-  for (const l of lines) process.stderr.write(`${l}\n`);
-  process.exit(code);
 }
 
 /** Every bad value among the options, each naming its option. */
@@ -100,28 +96,6 @@ function valueProblems(args: Args): string[] {
   if (!/^[a-z0-9][a-z0-9-]*$/.test(args.template))
     problems.push(`--template: '${args.template}' is not a template name (product, ticket, case, chart).`);
   return problems;
-}
-
-function readBook(file: string): Book {
-  let raw: unknown;
-  try {
-    raw = JSON.parse(readFileSync(file, 'utf8'));
-  } catch (e) {
-    fail([`book-invalid: cannot read ${file} as JSON: ${e instanceof Error ? e.message : String(e)}`], 1);
-  }
-  const parsed = bookSchema.safeParse(raw);
-  if (!parsed.success)
-    fail(
-      parsed.error.issues.map((issue) => `book-invalid: ${formatIssue(issue, bookPlace(raw))}`),
-      1,
-    );
-  const problems = checkBook(parsed.data);
-  if (problems.length > 0)
-    fail(
-      problems.map((p) => `${p.code}: ${p.message}`),
-      1,
-    );
-  return parsed.data;
 }
 
 function readTemplate(name: string) {
@@ -156,7 +130,8 @@ async function main(): Promise<void> {
   if (problems.length > 0) fail(problems, 1);
 
   const template = readTemplate(args.template);
-  const book = readBook(args.file);
+  const view = readSiteView(args.file, args.site);
+  const book = view.book;
   const refs = loadReferenceData();
   const regime = book.site.regime;
   const productionDate = args.date ?? new Date().toISOString().slice(0, 10);
@@ -168,15 +143,16 @@ async function main(): Promise<void> {
     try {
       declaration = declareProduct(book, id, refs, { regime });
     } catch (e) {
-      if (e instanceof BookProblemsError)
-        fail(
-          e.problems.map((p) => `${p.code}: ${p.message}`),
-          1,
-        );
+      if (e instanceof BookProblemsError) fail(problemLines(e.problems, view), 1);
       if (e instanceof UnknownProductError) fail([`--product: ${e.message}`], 1);
       throw e;
     }
     const sale = book.recipes.find((r) => r.id === id)?.sale;
+    if (!sale && view.site && view.notSold.includes(id))
+      fail(
+        [`--product: ${declaration.name} is not sold at ${view.site.name} (the site's sells leaves it out), so it has no labels there.`],
+        1,
+      );
     if (!sale) fail([`--product: ${declaration.name} is not for sale in this book (it has no sale details), so it has no labels.`], 1);
     labels.push({
       declaration,

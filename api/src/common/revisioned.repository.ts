@@ -210,22 +210,23 @@ export class RevisionedRepository<B extends { name: string }> {
         for (const row of created) byCode.set(row.code, row);
       }
       const revisions: object[] = [];
+      const revised: object[] = [];
       for (const item of chunk) {
         const head = byCode.get(item.code);
         if (!head) throw new Error(`${item.code} was not written`);
         const isNew = fresh.has(item);
         const revision = isNew ? 1 : head.currentRevision + 1;
         revisions.push({ [this.foreignKey]: head.id, revision, body: item.body, ...meta });
-        if (!isNew) {
-          await this.heads.update(
-            { currentRevision: revision, name: item.body.name, archived: false },
-            {
-              where: { id: head.id },
-              transaction: t,
-            },
-          );
-        }
+        if (!isNew)
+          revised.push({ id: head.id, siteId, code: head.code, name: item.body.name, currentRevision: revision, archived: false });
         written.set(item.code, revision);
+      }
+      // Every revised head in one statement: INSERT … ON DUPLICATE KEY UPDATE on the rows just locked.
+      if (revised.length > 0) {
+        await this.heads.bulkCreate(revised as never[], {
+          updateOnDuplicate: ['currentRevision', 'name', 'archived', 'updatedAt'] as never[],
+          transaction: t,
+        });
       }
       await this.revisions.bulkCreate(revisions as never[], { transaction: t });
     }

@@ -30,6 +30,60 @@ function claimOf(
   return declare(b, 'p', refs);
 }
 
+describe('a claim that fails through a contact line says so in its reason', () => {
+  // A plant-based batter cooked on a griddle greased with butter: the butter is in the food
+  // (Regulation (EU) No 1169/2011 Article 9(1)(c) declares what is used and still present), so the
+  // vegan claim fails; the reason names the contact line, as the contains list does.
+  const griddled = book(
+    [
+      ing('flour', { name: 'Plain wheat flour', contains: ['wheat'] }),
+      ing('oat-drink', { name: 'Oat drink', contains: ['oats'] }),
+      ing('butter', { name: 'Unsalted butter', contains: ['milk'], vegan: false }),
+    ],
+    [
+      recipe('batter', [
+        ['flour', 200],
+        ['oat-drink', 300],
+      ]),
+      recipe('pancakes', [['batter', 500], { use: 'butter', role: 'contact' }], {
+        name: 'Griddle pancakes',
+        sale: { portionG: 100, claims: ['vegan', 'dairy-free'] },
+      }),
+      recipe('floured', [['oat-drink', 100], { use: 'batter', role: 'contact' }], { name: 'Floured', sale: { portionG: 50 } }),
+    ],
+  );
+
+  it('vegan and dairy-free fail on the butter greasing the griddle, each reason naming the contact line', () => {
+    const d = declare(griddled, 'pancakes', refs);
+    expect(d.claims.vegan.status).toBe('fails');
+    expect(d.claims.vegan.reasons.map((r) => [r.path, r.message])).toEqual([
+      [['pancakes', 'butter'], 'Unsalted butter is recorded as not vegan (through a contact line: greasing or dusting).'],
+      [['pancakes', 'butter'], 'Unsalted butter contains milk (through a contact line: greasing or dusting).'],
+    ]);
+    expect(d.claims['dairy-free'].reasons.map((r) => r.message)).toEqual([
+      'Unsalted butter contains milk (through a contact line: greasing or dusting).',
+    ]);
+    expect(d.errors.map((e) => e.message).join(' ')).toContain('(through a contact line: greasing or dusting)');
+  });
+
+  it('a weighed line says nothing of contact, and a leaf under a sub-recipe used as a contact line says it too', () => {
+    const weighed = declare(griddled, 'batter', refs);
+    expect(weighed.claims['gluten-free'].reasons.map((r) => r.message)).toEqual([
+      'Plain wheat flour contains wheat with no measured gluten figure.',
+      'Oat drink contains oats with no measured gluten figure.',
+    ]);
+    const dusted = declare(griddled, 'floured', refs);
+    expect(dusted.claims['gluten-free'].reasons.map((r) => [r.path, r.message])).toEqual(
+      expect.arrayContaining([
+        [
+          ['floured', 'batter', 'flour'],
+          'Plain wheat flour contains wheat with no measured gluten figure (through a contact line: greasing or dusting).',
+        ],
+      ]),
+    );
+  });
+});
+
 describe('vegan and vegetarian', () => {
   it.each([
     // Common practice: vegan and vegetarian follow the recorded status and animal sources.

@@ -84,8 +84,7 @@ function perLeaf(all: LeafFacts[], said: IngredientSaid[], pick: (s: IngredientS
     const own = pick(said[n]);
     if (own.length === 0) continue;
     const f = all[n];
-    for (const x of own)
-      found.push({ status: x.status, reason: { leaf: f.ingredient.id, path: f.node.path, message: x.message }, key: f.node.key });
+    for (const x of own) found.push({ status: x.status, reason: reason(f, x.message), key: f.node.key });
   }
   return found;
 }
@@ -115,7 +114,15 @@ function settle(found: Found[]): ClaimResult {
   return { status, reasons };
 }
 
-const reason = (facts: LeafFacts, message: string): ClaimReason => ({ leaf: facts.ingredient.id, path: facts.node.path, message });
+/** Said of a leaf that reaches the food through a contact line (a greased griddle, a floured tin), so the reason says how. */
+const THROUGH_CONTACT = ' (through a contact line: greasing or dusting)';
+
+/** A leaf's reason at its path; one under a contact line says so, as the contains list does. */
+function reason(facts: LeafFacts, message: string): ClaimReason {
+  const said =
+    facts.node.role === 'contact' && !message.includes('through a contact line') ? message.replace(/\.$/, `${THROUGH_CONTACT}.`) : message;
+  return { leaf: facts.ingredient.id, path: facts.node.path, message: said };
+}
 
 /** Vegan and vegetarian are about ingredients: recorded status, animal sources and animal-derived terms. */
 function dietarySaid(claim: DietClaim, f: LeafFacts): Said[] {

@@ -20,3 +20,18 @@ export class UnknownProductError extends Error {
     this.name = 'UnknownProductError';
   }
 }
+
+/** Thrown when the site asked for is not one of the book's: the message names the ones it has. */
+export class UnknownSiteError extends Error {
+  constructor(
+    readonly siteId: string,
+    readonly known: ReadonlyArray<{ id: string; name: string }>,
+  ) {
+    super(
+      known.length === 0
+        ? `This book holds one kitchen, given as site without an id, so it has no site '${siteId}'.`
+        : `There is no site '${siteId}' in this book; its sites are ${known.map((s) => `${s.id} (${s.name})`).join(', ')}.`,
+    );
+    this.name = 'UnknownSiteError';
+  }
+}

@@ -42,10 +42,13 @@ interface SelectInputProps extends React.ComponentProps<typeof NativeSelect.Fiel
   disabled?: boolean;
 }
 
-/** A native select: the most dependable choice for keyboards, touch and screen readers. */
-export const SelectInput = forwardRef<HTMLSelectElement, SelectInputProps>(function SelectInput({ options, disabled, ...props }, ref) {
+/**
+ * A native select: the most dependable choice for keyboards, touch and screen readers. A width
+ * (`w`) sizes the whole control, so its indicator stays inside the box however wide the space is.
+ */
+export const SelectInput = forwardRef<HTMLSelectElement, SelectInputProps>(function SelectInput({ options, disabled, w, ...props }, ref) {
   return (
-    <NativeSelect.Root size="lg" disabled={disabled}>
+    <NativeSelect.Root size="lg" disabled={disabled} w={w}>
       <NativeSelect.Field ref={ref} bg="bg.panel" borderColor="border" {...props}>
         {options.map((option) => (
           <option key={option.value} value={option.value}>

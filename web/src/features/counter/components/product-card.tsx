@@ -1,5 +1,6 @@
 import { Box, Button, CloseButton, Collapsible, Dialog, Heading, Portal, Stack, Text } from '@chakra-ui/react';
 import {
+  CLAIMS,
   COUNTER_CAUTION,
   readAloud,
   SOURCE_LABELS,
@@ -10,6 +11,7 @@ import {
 } from '@crumbproof/shared';
 import { motion, useReducedMotion } from 'framer-motion';
 import { useMemo, useState } from 'react';
+import { ClaimBasisMark, claimBasisWords, statementOnlyList } from '@/components/ui/claim-basis';
 import { buildItemLookup } from '@/components/ui/item-lookup';
 import { LayerPath, LayerPathLinks } from '@/components/ui/layer-path';
 import { formatDateTime } from '@/lib/format';
@@ -92,6 +94,30 @@ function EarlierQuestions({ product, rules }: { product: string; rules: CounterR
 }
 
 const noLinks = () => false;
+
+/**
+ * What the claims that hold stand on: how many ingredients they were checked against, and which
+ * rest on a supplier statement alone, so the counter can say so before a customer relies on them.
+ */
+function ClaimsStandOn({ declaration }: { declaration: ServedDeclaration }) {
+  const basis = declaration.claimBasis;
+  if (!basis || !CLAIMS.some((claim) => declaration.claims[claim]?.status === 'ok')) return null;
+  const backed = basis.statementOnly.length === 0;
+  return (
+    <Stack gap="1" data-testid="counter-claim-basis">
+      <Heading as="h3" fontSize="xl">
+        What the claims stand on
+      </Heading>
+      <Box display="flex" gap="2" alignItems="flex-start" fontSize="lg">
+        <Box as="span" pt="0.2em">
+          <ClaimBasisMark backed={backed} />
+        </Box>
+        <Text as="span">{claimBasisWords(basis)}</Text>
+      </Box>
+      {backed ? null : <Text fontSize="lg">{`Resting on a supplier statement alone: ${statementOnlyList(basis)}.`}</Text>}
+    </Stack>
+  );
+}
 
 /**
  * Where each avoided allergen it contains comes from, as layer paths (product on top, the
@@ -207,6 +233,8 @@ export function ProductCard({ row, rules, avoid, avoidLabels, onClose }: Product
                           </Stack>
                           <ReadOutButton sentences={said.sentences} />
                         </Stack>
+
+                        <ClaimsStandOn declaration={declaration} />
 
                         <Button minH="12" fontSize="xl" alignSelf="flex-start" onClick={() => setAsking(true)}>
                           Ask the kitchen

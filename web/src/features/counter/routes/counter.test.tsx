@@ -124,6 +124,38 @@ describe('the counter’s look up', () => {
     await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
   });
 
+  it('says what a claim that holds stands on, naming the ingredients resting on a supplier statement alone', async () => {
+    const view = demoCounterView();
+    const brownie = view.products.find((p) => p.id === 'vegan-brownie')!;
+    expect(brownie.declaration.claims.vegan.status).toBe('ok');
+    brownie.declaration = {
+      ...brownie.declaration,
+      claimBasis: { checked: 7, statementOnly: [{ id: 'caster-sugar', name: 'Caster sugar', why: 'no-specification' }] },
+    };
+    const cake = view.products.find((p) => p.id === 'strawberry-layer-cake')!;
+    cake.declaration = { ...cake.declaration, claimBasis: { checked: 12, statementOnly: [] } };
+    counterApi('front-of-house', [view]);
+    const { user } = renderApp('/counter');
+    await user.click(await screen.findByRole('button', { name: 'Eggs' }));
+    await user.click(row(BROWNIE));
+    const card = await screen.findByRole('dialog', { name: BROWNIE });
+    const basis = within(card).getByTestId('counter-claim-basis');
+    expect(basis).toHaveTextContent(
+      '1 of 7 ingredients has no specification on file or one past its review date, so the claim rests on what the supplier states',
+    );
+    expect(basis).toHaveTextContent('Resting on a supplier statement alone: Caster sugar (no specification).');
+    expect(basis.querySelector('[data-basis-mark]')).toHaveAttribute('data-basis-mark', 'bubble');
+    await user.click(within(card).getByRole('button', { name: 'Close the card' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+
+    // Every ingredient with a current specification: the sheet mark, and no names to list.
+    await user.click(row(CAKE));
+    const cakeBasis = within(await screen.findByRole('dialog', { name: CAKE })).getByTestId('counter-claim-basis');
+    expect(cakeBasis).toHaveTextContent('All 12 ingredients checked against a specification on file.');
+    expect(cakeBasis).not.toHaveTextContent('Resting on a supplier statement alone');
+    expect(cakeBasis.querySelector('[data-basis-mark]')).toHaveAttribute('data-basis-mark', 'sheet');
+  });
+
   it('asks the kitchen for the allergens picked, says when it was sent, and shows the answer when it comes', async () => {
     let asked: CounterQuestionView[] = [];
     const { calls } = counterApi('front-of-house', [demoCounterView()], {

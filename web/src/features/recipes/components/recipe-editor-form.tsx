@@ -191,13 +191,14 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
 
   return (
     <Grid
-      // From 1280 px the side panel takes 24rem, room for the US nutrition table's % Daily Value.
-      templateColumns={{ base: 'minmax(0, 1fr)', lg: 'minmax(0, 1fr) minmax(0, 22rem)', xl: 'minmax(0, 1fr) minmax(0, 24rem)' }}
+      // From 1280 px the side panel takes 24rem, room for the US nutrition table's % Daily Value;
+      // narrower, the line table needs the whole width, so the panel folds into the sticky summary.
+      templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 1fr) minmax(0, 24rem)' }}
       gap={{ base: '6', xl: '4' }}
       alignItems="start"
     >
       {/* Narrow screens: the side panel would sit below the whole form, so a summary stays in view instead. */}
-      <Box hideFrom="lg" position="sticky" top="0" zIndex="sticky" minW="0">
+      <Box hideFrom="xl" position="sticky" top="0" zIndex="sticky" minW="0">
         <LiveDeclarationSummary
           declaration={preview.data}
           computing={computing}
@@ -353,7 +354,7 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
         </Stack>
       </form>
 
-      <Box hideBelow="lg" position="sticky" top="4" maxH="calc(100dvh - 2rem)" overflowY="auto" minW="0">
+      <Box hideBelow="xl" position="sticky" top="4" maxH="calc(100dvh - 2rem)" overflowY="auto" minW="0">
         {liveDeclaration}
       </Box>
     </Grid>
