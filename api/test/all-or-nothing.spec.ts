@@ -1,6 +1,7 @@
 import type { ApiErrorBody, ApprovalsView, Book, BookIngredient, CounterEvent, ImportPreview } from '@crumbproof/shared';
 import { QueryTypes } from 'sequelize';
 import { DATABASE_UNAVAILABLE_MESSAGE } from '../src/common/database-unavailable';
+import { CounterChannel, POLL_MS } from '../src/counter/counter-channel';
 import { CounterEvents } from '../src/counter/counter-events';
 import { multipart } from './fixtures/forms';
 import { tableChecksums } from './fixtures/table-checksums';
@@ -10,7 +11,8 @@ import { startTestApp, type TestApp } from './support/test-app';
 /**
  * The kitchen's compound writes (a recipe book import, a spreadsheet import, a swap, approvals)
  * are all or nothing: a fault half-way, after some of their rows were sent, answers an error in
- * words and leaves no trace: no table changed, no audit event, no mail queued, no counter event,
+ * words and leaves no trace: no table changed, no audit event, no mail queued, no counter event
+ * (written in the write's own transaction, heard by every instance's open streams),
  * and the kitchen's book version where it was (so no reader keeps a copy of a state that never was).
  */
 describe('a fault half-way through a write leaves no trace (real MariaDB)', () => {
@@ -22,7 +24,7 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
     t = await startTestApp({ seed: true });
     ({ manager, chef } = await t.signInDemo());
     // As an open counter does: every write that changes a declaration publishes an event here.
-    t.app.get(CounterEvents).subscribe((e) => events.push(e));
+    await t.app.get(CounterEvents).subscribe((e) => events.push(e));
   });
   afterAll(() => t.close());
 
@@ -32,14 +34,16 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
 
   /** Everything a write could leave behind. */
   async function trace() {
-    // Counter events are published after a write's commit, once its products are worked out.
-    await new Promise((r) => setTimeout(r, 150));
+    // Counter events are written in the write's transaction, and heard here at the next read of them.
+    await new Promise((r) => setTimeout(r, POLL_MS + 100));
+    await t.app.get(CounterChannel).idle();
     return {
       tables: await tableChecksums(t.sequelize),
       auditEvents: await count('SELECT COUNT(*) AS n FROM audit_events'),
       mails: await count('SELECT COUNT(*) AS n FROM mail_outbox'),
       bookVersion: await count('SELECT book_version AS n FROM sites ORDER BY id LIMIT 1'),
       counterEvents: events.length,
+      counterEventRows: await count('SELECT COUNT(*) AS n FROM counter_events'),
       book: (await json('GET', '/api/book', manager)).json<Book>(),
     };
   }
@@ -91,6 +95,7 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
     expect(after.auditEvents).toBe(before.auditEvents + 1);
     expect(after.bookVersion).toBeGreaterThan(before.bookVersion);
     expect(after.counterEvents).toBeGreaterThan(before.counterEvents);
+    expect(after.counterEventRows).toBe(before.counterEventRows + after.counterEvents - before.counterEvents);
     expect(after.tables).not.toEqual(before.tables);
     return after;
   }
@@ -140,6 +145,8 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
     await faulted(send, { table: 'ingredient_revisions', nth: 2, kind: 'refused' });
     await faulted(send, { table: 'recipe_revisions', nth: 2, kind: 'connection-lost' });
     await faulted(send, { table: 'audit_events', nth: 1, kind: 'refused' });
+    // The counter's event is the write's last row: the whole import goes with it.
+    await faulted(send, { table: 'counter_events', nth: 1, kind: 'refused' });
     const after = await succeeds(send, 200);
     expect(after.book.recipes.map((r) => r.id)).toEqual(expect.arrayContaining(['rose-glaze', 'rose-oat-bar']));
   });
@@ -159,6 +166,7 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
     await faulted(send, { table: 'ingredient_revisions', nth: 3, kind: 'refused' });
     await faulted(send, { table: 'ingredients', nth: 2, kind: 'connection-lost' });
     await faulted(send, { table: 'audit_events', nth: 1, kind: 'connection-lost' });
+    await faulted(send, { table: 'counter_events', nth: 1, kind: 'connection-lost' });
     const after = await succeeds(send, 200);
     expect(after.book.ingredients.map((i) => i.id)).toEqual(expect.arrayContaining(['lavender-sugar', 'hemp-seeds', 'barley-malt']));
   });
@@ -169,6 +177,7 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
     const send = () => json('POST', '/api/swaps/apply', chef, { from: 'butter', to: 'plant-spread' });
     await faulted(send, { table: 'recipe_revisions', nth: 2, kind: 'refused' });
     await faulted(send, { table: 'recipe_revisions', nth: uses.length, kind: 'connection-lost' });
+    await faulted(send, { table: 'counter_events', nth: 1, kind: 'refused' });
     const after = await succeeds(send, 200);
     expect(after.book.recipes.filter((r) => r.lines.some((l) => l.use === 'butter'))).toEqual([]);
   });
@@ -191,6 +200,7 @@ describe('a fault half-way through a write leaves no trace (real MariaDB)', () =
     await faulted(send, { table: 'product_approvals', nth: 2, kind: 'refused' });
     await faulted(send, { table: 'mail_outbox', nth: 1, kind: 'refused' });
     await faulted(send, { table: 'audit_events', nth: 1, kind: 'connection-lost' });
+    await faulted(send, { table: 'counter_events', nth: 1, kind: 'refused' });
     const mails = await count('SELECT COUNT(*) AS n FROM mail_outbox');
     await succeeds(send, 201);
     expect(await count('SELECT COUNT(*) AS n FROM mail_outbox')).toBe(mails + 1);

@@ -1,7 +1,9 @@
+import { QueryTypes } from 'sequelize';
 import { readAloud, type Book, type CounterProductsView, type RecipeView, type ServedDeclaration } from '@crumbproof/shared';
 import { escapeHtml } from '../src/public-page/public-page-html';
 import { pdfText } from './fixtures/pdf-text';
-import { PAGES_PER_MINUTE } from '../src/public-page/public-page-rate';
+import type { Clock } from '../src/common/clock';
+import { PAGES_PER_MINUTE, WINDOW_MS } from '../src/public-page/public-page-rate';
 import { startTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -170,7 +172,17 @@ describe('the public product page (real MariaDB)', () => {
     expect((await settings({ enabled: true, baseUrl: 'https://menu.example.com' })).statusCode).toBe(200);
   });
 
+  /** Moves the clocks to just after the start of a minute (the windows start on the minute), so a run of pages falls in one window. */
+  const startOfMinute = (...clocks: Clock[]) => {
+    const ahead = WINDOW_MS - (Date.now() % WINDOW_MS) + 50;
+    for (const clock of clocks) {
+      clock.reset();
+      clock.advance(ahead);
+    }
+  };
+
   it(`lets one address read ${PAGES_PER_MINUTE} pages a minute, then says in words to wait`, async () => {
+    startOfMinute(t.clock);
     const address = '198.51.100.7';
     const statuses: number[] = [];
     for (let i = 0; i < PAGES_PER_MINUTE; i++) statuses.push((await page(`/p/${i % 2 ? product.id : 'no-such-cake'}`, address)).statusCode);
@@ -180,5 +192,48 @@ describe('the public product page (real MariaDB)', () => {
     expect(refused.body).toContain('Wait a minute and try again');
     // Another address reads on.
     expect((await page(`/p/${product.id}`, '198.51.100.8')).statusCode).toBe(200);
+    // The next minute, the address reads again.
+    t.clock.advance(WINDOW_MS);
+    expect((await page(`/p/${product.id}`, address)).statusCode).toBe(200);
+    t.clock.reset();
+  });
+
+  it('counts an address’s pages across two API instances over one database, and prunes past minutes', async () => {
+    const { createApp } = await import('../src/app.factory');
+    const { Clock: ClockClass } = await import('../src/common/clock');
+    const b = await createApp({ logLevel: 'silent' });
+    try {
+      startOfMinute(t.clock, b.get(ClockClass));
+      const address = '198.51.100.20';
+      const statuses: number[] = [];
+      for (let i = 0; i < PAGES_PER_MINUTE; i++) {
+        const app = i % 2 ? b : t.app;
+        statuses.push((await app.inject({ method: 'GET', url: `/p/${product.id}`, remoteAddress: address })).statusCode);
+      }
+      expect(statuses.filter((s) => s !== 200)).toEqual([]);
+      // Half the pages went through each instance: both refuse the next one.
+      for (const app of [t.app, b]) {
+        const refused = await app.inject({ method: 'GET', url: `/p/${product.id}`, remoteAddress: address });
+        expect(refused.statusCode).toBe(429);
+        expect(refused.body).toContain('Wait a minute and try again');
+      }
+      const [{ hits }] = await t.sequelize.query<{ hits: number }>('SELECT hits FROM public_page_hits WHERE address = ?', {
+        replacements: [address],
+        type: QueryTypes.SELECT,
+      });
+      expect(Number(hits)).toBe(PAGES_PER_MINUTE + 2);
+      // Two minutes on, the first page of the new window prunes the windows before the last one.
+      t.clock.advance(2 * WINDOW_MS);
+      expect((await page(`/p/${product.id}`, address)).statusCode).toBe(200);
+      await new Promise((r) => setTimeout(r, 200));
+      const windows = await t.sequelize.query<{ window_start: Date }>('SELECT window_start FROM public_page_hits WHERE address = ?', {
+        replacements: [address],
+        type: QueryTypes.SELECT,
+      });
+      expect(windows).toHaveLength(1);
+    } finally {
+      t.clock.reset();
+      await b.close();
+    }
   });
 });

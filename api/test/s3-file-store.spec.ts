@@ -39,6 +39,7 @@ describe('S3FileStore (fake S3)', () => {
   it('says a missing object is missing, and refuses one whose bytes changed in the bucket', async () => {
     await expect(store.get(contentKey(Buffer.from('never put')))).rejects.toMatchObject({
       missing: true,
+      reason: 'missing',
       message: expect.stringMatching(/is not in the bucket crumbproof-uploads at http:\/\/127\.0\.0\.1:\d+/),
     });
     const other = Buffer.from('%PDF-1.4 a label run');
@@ -76,6 +77,7 @@ describe('S3FileStore (fake S3)', () => {
     try {
       await expect(store.get(key)).rejects.toMatchObject({
         missing: false,
+        reason: 'unavailable',
         message: expect.stringMatching(new RegExp(`^Could not read the stored file ${key} in the bucket crumbproof-uploads`)),
       });
     } finally {

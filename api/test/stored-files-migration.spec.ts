@@ -57,7 +57,7 @@ describe('migration 0014: uploaded files move from the database to the file stor
 
   it('refuses, changing nothing, a row whose bytes do not match the checksum kept with them', async () => {
     await sequelize.query("UPDATE label_runs SET sha256 = REPEAT('0', 64) WHERE id = 1");
-    await expect(migrator(sequelize, undefined, store).up()).rejects.toThrow(
+    await expect(migrator(sequelize, undefined, store).up({ to: '0014-stored-files' })).rejects.toThrow(
       new RegExp(
         `The label run 1's stored bytes have the SHA-256 ${sha256(pdfBytes)}, not the 0{64} recorded with them.*Nothing was changed`,
       ),
@@ -71,7 +71,7 @@ describe('migration 0014: uploaded files move from the database to the file stor
 
   it('puts every file in the store and keeps its key and checksum in the row', async () => {
     await sequelize.query('UPDATE label_runs SET sha256 = ? WHERE id = 1', { replacements: [sha256(pdfBytes)] });
-    await migrator(sequelize, undefined, store).up();
+    await migrator(sequelize, undefined, store).up({ to: '0014-stored-files' });
     expect(await columns('specifications')).not.toContain('content');
     expect(await columns('label_runs')).not.toContain('pdf');
     const rows = await sequelize.query<{ storage_key: string; sha256: string }>(
@@ -101,7 +101,7 @@ describe('migration 0014: uploaded files move from the database to the file stor
     const [run] = await sequelize.query<{ pdf: Buffer }>('SELECT pdf FROM label_runs WHERE id = 1', { type: QueryTypes.SELECT });
     expect(Buffer.from(run.pdf).equals(pdfBytes)).toBe(true);
     expect(await columns('specifications')).not.toContain('storage_key');
-    await migrator(sequelize, undefined, store).up();
+    await migrator(sequelize, undefined, store).up({ to: '0014-stored-files' });
     expect(await columns('specifications')).toContain('storage_key');
   });
 });

@@ -12,8 +12,9 @@ const sha256 = (b: Buffer | Uint8Array) => createHash('sha256').update(b).digest
 /**
  * STORAGE=s3 against a fake S3-compatible server started here (s3rver on loopback): a supplier
  * specification and a label run's PDF go into the bucket, by their SHA-256, and come back the
- * same; the local folder stays empty; an object changed in the bucket is refused, not served; and
- * an upload while the service is down is refused with nothing saved.
+ * same; the local folder stays empty; an object changed in the bucket is refused, not served, and
+ * one missing from it is said to be missing; and while the service is down an upload is refused
+ * with nothing saved and a file read answers 503 storage-unavailable, both in words.
  */
 describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)', () => {
   let s3: FakeS3;
@@ -32,8 +33,9 @@ describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)
   });
 
   const object = (key: string) => s3.object(key);
-  const upload = async (code: string) => {
-    const form = await multipart({ note: 'Kept in the bucket' }, { name: `${code}.pdf`, bytes: pdf, type: 'application/pdf' });
+  /** Uploads a specification of the ingredient: the fixture's PDF, or other bytes. */
+  const upload = async (code: string, bytes = pdf) => {
+    const form = await multipart({ note: 'Kept in the bucket' }, { name: `${code}.pdf`, bytes, type: 'application/pdf' });
     return t.app.inject({
       method: 'POST',
       url: `/api/ingredients/${code}/specifications`,
@@ -98,7 +100,12 @@ describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)
     await s3.overwrite(spec.sha256, Buffer.from('not the file'));
     const file = await t.req('GET', spec.fileUrl, chef);
     expect(file.statusCode).toBe(500);
-    expect(file.json().message).toMatch(new RegExp(`stored file ${spec.sha256} in the bucket crumbproof-uploads .* is damaged`));
+    expect(file.json()).toMatchObject({ statusCode: 500, code: 'stored-file-damaged' });
+    expect(file.json().message).toMatch(
+      new RegExp(
+        `^The file of specification ${spec.id} \\(${spec.filename}\\) is not served: The stored file ${spec.sha256} in the bucket crumbproof-uploads .* is damaged`,
+      ),
+    );
     await s3.overwrite(spec.sha256, pdf);
     expect((await t.req('GET', spec.fileUrl, chef)).rawPayload.equals(pdf)).toBe(true);
   });
@@ -107,21 +114,68 @@ describe('uploaded files in S3-compatible object storage (real MariaDB, fake S3)
     const before = { specifications: await count('specifications'), audit: await count('audit_events') };
     await s3.down();
     try {
-      const other = Buffer.concat([pdf, Buffer.from('\n% another copy\n')]);
-      const form = await multipart({}, { name: 'sugar.pdf', bytes: other, type: 'application/pdf' });
-      const res = await t.app.inject({
-        method: 'POST',
-        url: '/api/ingredients/caster-sugar/specifications',
-        payload: form.payload,
-        headers: { ...form.headers, cookie: chef },
-      });
-      expect(res.statusCode).toBe(500);
+      const res = await upload('caster-sugar', Buffer.concat([pdf, Buffer.from('\n% another copy\n')]));
+      expect(res.statusCode).toBe(503);
+      expect(res.json()).toMatchObject({ statusCode: 503, code: 'storage-unavailable' });
       expect(res.json().message).toMatch(
-        /^Nothing was saved: the file could not be kept\. Could not keep the file [0-9a-f]{64} in the bucket/,
+        /^Nothing was saved: the file could not be kept\. Could not keep the file [0-9a-f]{64} in the bucket crumbproof-uploads at .*Crumbproof cannot reach its file store just now\. Try again in a moment/,
       );
     } finally {
       await s3.up();
     }
     expect({ specifications: await count('specifications'), audit: await count('audit_events') }).toEqual(before);
+  });
+
+  it('answers 503 storage-unavailable in words for a file read while the object storage cannot be reached, and serves it again after', async () => {
+    const spec = (await upload('ground-almonds')).json<SpecificationView>();
+    const run = await t.req('POST', '/api/labels/runs', chef, {
+      template: 'product',
+      items: [{ product: 'vegan-brownie', quantity: 1 }],
+      productionDate: '2026-12-03',
+    });
+    expect(run.statusCode).toBe(201);
+    const runId = labelRunSchema.parse(run.json()).id;
+    await s3.down();
+    try {
+      const file = await t.req('GET', spec.fileUrl, chef);
+      expect(file.statusCode).toBe(503);
+      expect(file.json()).toMatchObject({ statusCode: 503, code: 'storage-unavailable' });
+      expect(file.json().message).toMatch(
+        new RegExp(
+          `^The file of specification ${spec.id} \\(${spec.filename}\\) cannot be read just now\\. Could not read the stored file ${spec.sha256} in the bucket crumbproof-uploads at .*Crumbproof cannot reach its file store just now`,
+        ),
+      );
+      const printed = await t.req('GET', `/api/labels/runs/${runId}/pdf`, chef);
+      expect(printed.statusCode).toBe(503);
+      expect(printed.json()).toMatchObject({ code: 'storage-unavailable' });
+      expect(printed.json().message).toMatch(new RegExp(`^The file of the PDF of print run ${runId} cannot be read just now\\.`));
+      // Nothing internal: no stack, no SDK's class names.
+      expect(file.body).not.toMatch(/\bat [\w.]+ \(|S3ServiceException|stack/);
+    } finally {
+      await s3.up();
+    }
+    expect((await t.req('GET', spec.fileUrl, chef)).rawPayload.equals(pdf)).toBe(true);
+    expect((await t.req('GET', `/api/labels/runs/${runId}/pdf`, chef)).statusCode).toBe(200);
+  });
+
+  it('says in words, apart from an outage, that a stored file is missing from the bucket, naming it', async () => {
+    const own = Buffer.concat([pdf, Buffer.from('\n% a copy to lose\n')]);
+    const res = await upload('butter', own);
+    expect(res.statusCode).toBe(201);
+    const spec = res.json<SpecificationView>();
+    await s3.remove(spec.sha256);
+    const file = await t.req('GET', spec.fileUrl, chef);
+    expect(file.statusCode).toBe(500);
+    expect(file.json()).toEqual({
+      statusCode: 500,
+      code: 'stored-file-missing',
+      message: expect.stringMatching(
+        new RegExp(
+          `^The file of specification ${spec.id} \\(${spec.filename}\\) is missing from the file store: The stored file ${spec.sha256} is not in the bucket crumbproof-uploads at .*\\. Restore it from a backup\\.$`,
+        ),
+      ),
+    });
+    await s3.overwrite(spec.sha256, own);
+    expect((await t.req('GET', spec.fileUrl, chef)).rawPayload.equals(own)).toBe(true);
   });
 });

@@ -91,6 +91,12 @@ export const ERROR_CODES = [
   'internal',
   /** The API cannot reach its database just now (stopped, restarting, unreachable): nothing could be read or saved. */
   'database-unavailable',
+  /** The store of uploaded files (the folder, or the S3-compatible bucket) cannot be reached or used just now: no file was read or kept. */
+  'storage-unavailable',
+  /** A row names a stored file that is not in the store (deleted or lost there): it must be restored from a backup. */
+  'stored-file-missing',
+  /** A stored file's bytes no longer match the checksum kept with it: it is never served, and must be restored from a backup. */
+  'stored-file-damaged',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 

@@ -134,6 +134,61 @@ describe('checked writes at once through both instances', () => {
   });
 });
 
+/** The counter's events stream of one instance, its text read as it arrives, until `close`. */
+async function openEvents(base: string, cookie: string) {
+  const controller = new AbortController();
+  const res = await fetch(`${base}/api/counter/events`, { headers: { cookie, accept: 'text/event-stream' }, signal: controller.signal });
+  expect(res.status).toBe(200);
+  const reader = res.body!.getReader();
+  const decoder = new TextDecoder();
+  let text = '';
+  const reading = (async () => {
+    try {
+      for (;;) {
+        const { done, value } = await reader.read();
+        if (done) return;
+        text += decoder.decode(value, { stream: true });
+      }
+    } catch {
+      /* closed */
+    }
+  })();
+  const until = async (wanted: string, ms: number) => {
+    const end = Date.now() + ms;
+    while (!text.includes(wanted) && Date.now() < end) await new Promise((r) => setTimeout(r, 25));
+    return text.includes(wanted);
+  };
+  return {
+    until,
+    close: async () => {
+      controller.abort();
+      await reading;
+    },
+  };
+}
+
+describe('the counter’s live events', () => {
+  it('reach a stream open on one instance from a write through the other, within seconds', async () => {
+    for (const [writeVia, writeCookie, listenOn, listenCookie, date] of [
+      [A, onA, B, onB, '2026-11-23'],
+      [B, onB, A, onA, '2026-11-24'],
+    ] as const) {
+      const stream = await openEvents(listenOn, listenCookie);
+      try {
+        expect(await stream.until(': connected', 5000)).toBe(true);
+        const started = Date.now();
+        const marked = await call(writeVia, 'PUT', '/api/counter/today', writeCookie, { date, products: [] });
+        expect(marked.status).toBe(200);
+        const event = `event: display-changed\ndata: ${JSON.stringify({ type: 'display-changed', date })}`;
+        expect(await stream.until(event, 5000)).toBe(true);
+        console.log(`cluster: a counter event written through one instance reached the other's stream in ${Date.now() - started} ms`);
+      } finally {
+        await stream.close();
+      }
+    }
+  });
+});
+
 describe('a database node killed while writes run', () => {
   const acknowledged: string[] = [];
   const failed: { via: string; status: number | string }[] = [];

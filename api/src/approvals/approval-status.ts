@@ -1,4 +1,4 @@
-import { Injectable, Logger } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { declaredChange, type BookRecipe, type CounterApproval, type DeclaredChange, type ServedDeclaration } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import type { KitchenState } from '../books/books.service';
@@ -20,8 +20,8 @@ export interface ProductStatus {
   state: 'approved' | 'pending' | 'never-approved';
 }
 
-/** Told, after approvals are saved, which products were approved. */
-export type ApprovedListener = (products: readonly string[]) => void;
+/** Told, inside the approvals' transaction, the products whose declarations were approved. */
+export type ApprovedListener = (products: readonly string[], t: Transaction) => Promise<void>;
 
 /**
  * Whether each product waits for a manager's approval, worked out from the current book every time
@@ -32,7 +32,6 @@ export type ApprovedListener = (products: readonly string[]) => void;
  */
 @Injectable()
 export class ApprovalStatus {
-  private readonly logger = new Logger(ApprovalStatus.name);
   private readonly approvedListeners: ApprovedListener[] = [];
 
   constructor(
@@ -66,15 +65,12 @@ export class ApprovalStatus {
     this.approvedListeners.push(listener);
   }
 
-  /** Tells every listener, after the approvals' transaction is committed; a listener's failure is logged, never thrown. */
-  approved(products: readonly string[]): void {
-    for (const listener of this.approvedListeners) {
-      try {
-        listener(products);
-      } catch (e) {
-        this.logger.warn(`A listener of approvals failed: ${String(e)}`);
-      }
-    }
+  /**
+   * Tells every listener, inside the approvals' transaction: what a listener writes with `t` (the
+   * counter's events) is kept with the approvals or not at all, and a listener that throws rolls them back.
+   */
+  async approved(products: readonly string[], t: Transaction): Promise<void> {
+    for (const listener of this.approvedListeners) await listener(products, t);
   }
 }
 

@@ -184,9 +184,12 @@ export class ApprovalsService {
         out.map((o) => statuses.get(o.product)!),
         t,
       );
+      await this.status.approved(
+        out.map((o) => o.product),
+        t,
+      );
       return out;
     });
-    this.status.approved(given.map((g) => g.product));
     return { approved: given };
   }
 

@@ -67,9 +67,13 @@ export interface KitchenWritten {
   recipes: readonly string[];
   site: boolean;
 }
-/** Told after every saved write; it must not throw (the write is already saved). */
-export type KitchenWrittenListener = (written: KitchenWritten) => void;
-/** As KitchenWrittenListener, awaited before the write answers (the approvals' mail); it must not throw. */
+/**
+ * Told inside every write's own transaction, after its rows and before its commit, with the book as
+ * it is after the write: what a listener writes with `t` (the counter's events) is kept with the
+ * write or not at all, and a listener that throws rolls the write back.
+ */
+export type KitchenWritingListener = (written: KitchenWritten, after: Book, t: Transaction) => Promise<void>;
+/** Told after every saved write has committed, awaited before the write answers (the approvals' mail); it must not throw. */
 export type KitchenSavedListener = (written: KitchenWritten) => Promise<void>;
 
 /**
@@ -81,6 +85,8 @@ function freezeState(state: KitchenState): KitchenState {
   deepFreeze(state.site);
   return state;
 }
+
+const changedAnything = (written: KitchenWritten) => written.ingredients.length > 0 || written.recipes.length > 0 || written.site;
 
 const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
   const { id: _id, ...body } = item;
@@ -95,7 +101,7 @@ const bodyOf = <T extends { id: string }>(item: T): Omit<T, 'id'> => {
 export class BooksService {
   private readonly logger = new Logger(BooksService.name);
   private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
-  private readonly kitchenWrittenListeners: KitchenWrittenListener[] = [];
+  private readonly kitchenWritingListeners: KitchenWritingListener[] = [];
   private readonly kitchenSavedListeners: KitchenSavedListener[] = [];
   /** The kitchen last read outside a write, under the site row's versions it was read at. */
   private lastRead: { key: string; state: Promise<KitchenState> } | null = null;
@@ -119,9 +125,9 @@ export class BooksService {
     this.recipesWrittenListeners.push(listener);
   }
 
-  /** After every saved write (the editors, swaps, the spreadsheet import, book import), each listener is told what it changed: the counter's events. */
-  onKitchenWritten(listener: KitchenWrittenListener): void {
-    this.kitchenWrittenListeners.push(listener);
+  /** Inside every write (the editors, swaps, the spreadsheet import, book import), each listener is told what it changes: the counter's events. */
+  onKitchenWriting(listener: KitchenWritingListener): void {
+    this.kitchenWritingListeners.push(listener);
   }
 
   /**
@@ -133,9 +139,13 @@ export class BooksService {
   }
 
   private async kitchenWritten(written: KitchenWritten): Promise<void> {
-    if (written.ingredients.length === 0 && written.recipes.length === 0 && !written.site) return;
-    for (const listener of this.kitchenWrittenListeners) listener(written);
+    if (!changedAnything(written)) return;
     for (const listener of this.kitchenSavedListeners) await listener(written);
+  }
+
+  private async kitchenWriting(written: KitchenWritten, after: Book, t: Transaction): Promise<void> {
+    if (!changedAnything(written)) return;
+    for (const listener of this.kitchenWritingListeners) await listener(written, after, t);
   }
 
   /**
@@ -337,6 +347,15 @@ export class BooksService {
         },
         t,
       );
+      await this.kitchenWriting(
+        {
+          ingredients: [...summary.ingredients.created, ...summary.ingredients.revised],
+          recipes: [...summary.recipes.created, ...summary.recipes.revised],
+          site: siteState !== 'unchanged',
+        },
+        merged,
+        t,
+      );
       return summary;
     });
     await this.recipesWritten([...imported.recipes.created, ...imported.recipes.revised]);
@@ -401,6 +420,11 @@ export class BooksService {
         written.push({ id: rec.id, revision: await this.recipes.write(site.id, rec.id, bodyOf(rec), meta, t) });
       }
       await this.audit.record(itemsWritten(book, changes, written, meta.note, audit), t);
+      await this.kitchenWriting(
+        { ingredients: (changes.ingredients ?? []).map((i) => i.id), recipes: (changes.recipes ?? []).map((r) => r.id), site: false },
+        merged,
+        t,
+      );
       return written;
     });
     await this.recipesWritten((changes.recipes ?? []).map((r) => r.id));

@@ -45,8 +45,11 @@ export function httpStatusOf(code: ErrorCode): number {
     case 'label-refused':
       return 422;
     case 'internal':
+    case 'stored-file-missing':
+    case 'stored-file-damaged':
       return 500;
     case 'database-unavailable':
+    case 'storage-unavailable':
       return 503;
     default: {
       const never: never = code;

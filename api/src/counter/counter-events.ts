@@ -3,20 +3,48 @@ import type { CounterEvent } from '@crumbproof/shared';
 
 export type CounterEventListener = (event: CounterEvent) => void;
 
+/** What a source of events is told: the first listener came (it answers once it delivers), or the last one went. */
+export interface CounterEventSource {
+  started(): Promise<void>;
+  stopped(): void;
+}
+
 /**
- * The counter's events within this process: every open events stream subscribes, and the
- * kitchen's writes publish. One instance of the API is enough for one kitchen today; several
- * instances behind a load balancer will need a shared channel (the database, or a message broker)
- * so that a write on one reaches the streams open on the others.
+ * The counter's events within this instance: every open events stream subscribes, and the
+ * source (CounterChannel, which reads the events every instance writes to the database) delivers
+ * to them. The source runs only while a stream is open.
  */
 @Injectable()
 export class CounterEvents {
   private readonly listeners = new Set<CounterEventListener>();
+  private source: CounterEventSource | null = null;
+  private ready: Promise<void> | null = null;
 
-  /** Listens until the returned function is called. */
-  subscribe(listener: CounterEventListener): () => void {
+  /** The one source of this instance's events. */
+  feedFrom(source: CounterEventSource): void {
+    this.source = source;
+  }
+
+  /**
+   * Listens until the returned function is called; answers once the source delivers every event
+   * written from now on. Refused, listening to nothing, when the source cannot start (the database
+   * cannot be reached).
+   */
+  async subscribe(listener: CounterEventListener): Promise<() => void> {
     this.listeners.add(listener);
-    return () => this.listeners.delete(listener);
+    const unsubscribe = () => {
+      if (!this.listeners.delete(listener) || this.listeners.size > 0) return;
+      this.ready = null;
+      this.source?.stopped();
+    };
+    try {
+      await (this.ready ??= this.source ? this.source.started() : Promise.resolve());
+    } catch (err) {
+      if (this.ready) this.ready = null;
+      unsubscribe();
+      throw err;
+    }
+    return unsubscribe;
   }
 
   /** Whether any stream is open: with none, there is no one to tell. */
@@ -24,7 +52,8 @@ export class CounterEvents {
     return this.listeners.size > 0;
   }
 
-  publish(event: CounterEvent): void {
+  /** Hands an event to every open stream of this instance. */
+  deliver(event: CounterEvent): void {
     for (const listener of this.listeners) listener(event);
   }
 }

@@ -14,7 +14,7 @@ import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { RulesService } from '../rules/rules.service';
-import { CounterEvents } from './counter-events';
+import { CounterChannel } from './counter-channel';
 import { CounterQuestionsRepository, type CounterQuestionRow } from './counter-questions.repository';
 import { notForSale } from './product-for-sale';
 
@@ -26,7 +26,7 @@ export class CounterQuestionsService {
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
     private readonly rules: RulesService,
-    private readonly events: CounterEvents,
+    private readonly channel: CounterChannel,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
   ) {}
@@ -68,9 +68,9 @@ export class CounterQuestionsService {
         },
         t,
       );
+      await this.channel.publish({ type: 'question-asked', question: added.id, product: added.productCode }, t);
       return added;
     });
-    this.events.publish({ type: 'question-asked', question: row.id, product: row.productCode });
     return view(row);
   }
 
@@ -103,9 +103,9 @@ export class CounterQuestionsService {
         },
         t,
       );
+      await this.channel.publish({ type: 'question-answered', question: answered.id, product: answered.productCode }, t);
       return answered;
     });
-    this.events.publish({ type: 'question-answered', question: row.id, product: row.productCode });
     return view(row);
   }
 }

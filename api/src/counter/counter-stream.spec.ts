@@ -45,7 +45,7 @@ describe('an events stream of the counter (server-sent events, WHATWG HTML Livin
     // The headers set on the reply before (here, a security header) go out with the stream.
     expect(raw.headers['x-content-type-options']).toBe('nosniff');
 
-    events.publish({ type: 'declarations-changed', products: ['vegan-brownie'] });
+    events.deliver({ type: 'declarations-changed', products: ['vegan-brownie'] });
     expect(raw.text).toContain('event: declarations-changed\ndata: {"type":"declarations-changed","products":["vegan-brownie"]}\n\n');
 
     const before = raw.text.length;
@@ -60,7 +60,7 @@ describe('an events stream of the counter (server-sent events, WHATWG HTML Livin
     raw.emit('close');
     const closed = raw.text.length;
     jest.advanceTimersByTime(HEARTBEAT_MS * 3);
-    events.publish({ type: 'display-changed', date: '2026-12-02' });
+    events.deliver({ type: 'display-changed', date: '2026-12-02' });
     expect(raw.text.length).toBe(closed);
     expect(events.listening).toBe(false);
   });
@@ -82,6 +82,37 @@ describe('an events stream of the counter (server-sent events, WHATWG HTML Livin
     const raw = new Written();
     await expect(new CounterStream(events, none).open(reply(raw))).rejects.toThrow('No kitchen');
     expect([raw.status, raw.text, events.listening]).toEqual([0, '', false]);
+  });
+
+  it('opens no stream, and listens to nothing, when its events cannot be read (the database away)', async () => {
+    const events = new CounterEvents();
+    let stopped = 0;
+    events.feedFrom({ started: () => Promise.reject(new Error('connect ECONNREFUSED')), stopped: () => stopped++ });
+    const raw = new Written();
+    await expect(new CounterStream(events, kitchen).open(reply(raw))).rejects.toThrow('ECONNREFUSED');
+    expect([raw.status, raw.text, events.listening, stopped]).toEqual([0, '', false, 1]);
+  });
+
+  it('starts its source with the first stream and stops it with the last', async () => {
+    const events = new CounterEvents();
+    const told: string[] = [];
+    events.feedFrom({
+      started: () => {
+        told.push('started');
+        return Promise.resolve();
+      },
+      stopped: () => told.push('stopped'),
+    });
+    const stream = new CounterStream(events, kitchen);
+    const [a, b] = [new Written(), new Written()];
+    await stream.open(reply(a));
+    await stream.open(reply(b));
+    a.emit('close');
+    expect(told).toEqual(['started']);
+    b.emit('close');
+    expect(told).toEqual(['started', 'stopped']);
+    await stream.open(reply(new Written()));
+    expect(told).toEqual(['started', 'stopped', 'started']);
   });
 
   it('writes an event as one block of the text/event-stream format', () => {

@@ -14,7 +14,7 @@ export function eventText(event: CounterEvent): string {
   return `event: ${event.type}\ndata: ${JSON.stringify(event)}\n\n`;
 }
 
-/** Open server-sent event streams of the counter, each fed from CounterEvents until its client goes. */
+/** Open server-sent event streams of the counter, each fed from CounterEvents (every instance's events, CounterChannel) until its client goes. */
 @Injectable()
 export class CounterStream implements OnModuleDestroy {
   private readonly streams = new Set<() => void>();
@@ -27,8 +27,14 @@ export class CounterStream implements OnModuleDestroy {
   /** Opens a stream on the request's connection; refused, as any route is, when there is no kitchen yet. */
   async open(reply: FastifyReply): Promise<void> {
     await this.kitchen.current();
-    reply.hijack();
+    // Listening first, so the stream hears every event written once it says it is connected (one
+    // written before then is seen by the read the client starts once connected).
     const raw = reply.raw;
+    let connected = false;
+    const unsubscribe = await this.events.subscribe((event) => {
+      if (connected) raw.write(eventText(event));
+    });
+    reply.hijack();
     // The headers hooks set on the reply (security headers, a renewed session cookie) go out too.
     for (const [name, value] of Object.entries(reply.getHeaders())) if (value !== undefined) raw.setHeader(name, value);
     raw.writeHead(200, {
@@ -38,7 +44,7 @@ export class CounterStream implements OnModuleDestroy {
       'x-accel-buffering': 'no',
     });
     raw.write(`retry: ${RETRY_MS}\n: connected\n\n`);
-    const unsubscribe = this.events.subscribe((event) => raw.write(eventText(event)));
+    connected = true;
     const heartbeat = setInterval(() => raw.write(': heartbeat\n\n'), HEARTBEAT_MS);
     const close = () => {
       clearInterval(heartbeat);
@@ -50,6 +56,8 @@ export class CounterStream implements OnModuleDestroy {
     // The response closes when the client goes (the request's own close comes once its body is read).
     raw.on('close', close);
     raw.on('error', close);
+    // A client gone before the stream was set up.
+    if (raw.destroyed) close();
   }
 
   /** Ends every open stream, so the server can close (an open stream is never idle). */

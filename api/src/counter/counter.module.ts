@@ -9,7 +9,9 @@ import { KitchenModule } from '../kitchen/kitchen.module';
 import { RulesModule } from '../rules/rules.module';
 import { CounterDayModel } from './counter-day.model';
 import { CounterDaysRepository } from './counter-days.repository';
+import { CounterChannel } from './counter-channel';
 import { CounterEvents } from './counter-events';
+import { CounterEventsRepository } from './counter-events.repository';
 import { CounterQuestionModel } from './counter-question.model';
 import { CounterQuestionsRepository } from './counter-questions.repository';
 import { CounterQuestionsService } from './counter-questions.service';
@@ -38,6 +40,8 @@ import { DeclarationChanges } from './declaration-changes';
     CounterService,
     CounterQuestionsService,
     CounterEvents,
+    CounterChannel,
+    CounterEventsRepository,
     CounterStream,
     DeclarationChanges,
     CounterDaysRepository,

@@ -11,7 +11,7 @@ import { today } from '../ingredients/specifications/specification.dto';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { RulesService } from '../rules/rules.service';
 import { CounterDaysRepository } from './counter-days.repository';
-import { CounterEvents } from './counter-events';
+import { CounterChannel } from './counter-channel';
 import { notForSale } from './product-for-sale';
 
 /** The counter's products with their declarations, and the products on sale each day. */
@@ -23,7 +23,7 @@ export class CounterService {
     private readonly approvals: ApprovalStatus,
     private readonly declarations: DeclarationsService,
     private readonly days: CounterDaysRepository,
-    private readonly events: CounterEvents,
+    private readonly channel: CounterChannel,
     private readonly rules: RulesService,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
@@ -85,9 +85,9 @@ export class CounterService {
         },
         t,
       );
+      await this.channel.publish({ type: 'display-changed', date: body.date }, t);
       return saved;
     });
-    this.events.publish({ type: 'display-changed', date: body.date });
     return { date: body.date, products: row.products, setBy: row.setByName, setAt: row.setAt.toISOString() };
   }
 }

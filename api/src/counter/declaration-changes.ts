@@ -1,15 +1,21 @@
 import { Injectable, Logger, type OnModuleInit } from '@nestjs/common';
+import type { Book } from '@crumbproof/shared';
+import type { Transaction } from 'sequelize';
 import { ApprovalStatus } from '../approvals/approval-status';
 import { BooksService, type KitchenWritten } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
-import { recipesAbove } from '../rules/core/book-graph';
-import { CounterEvents } from './counter-events';
+import { recipesAboveAny } from '../rules/core/book-graph';
+import { CounterChannel } from './counter-channel';
+
+/** A write touching more products than this tells the counter that any may have changed, rather than naming each. */
+export const PRODUCTS_NAMED_AT_MOST = 200;
 
 /**
- * Publishes `declarations-changed` after every saved write that can change a declaration. Every
- * such write passes BooksService (ingredients created, edited or imported from a spreadsheet,
- * recipes saved, swaps applied, book import) or KitchenService.update (the kitchen's regime and
- * allergen handling), and after approvals (ApprovalStatus), which change what the counter serves. A supplier specification is kept beside its ingredient and changes no
+ * Publishes `declarations-changed`, inside the write's own transaction, for every write that can
+ * change a declaration. Every such write passes BooksService (ingredients created, edited or
+ * imported from a spreadsheet, recipes saved, swaps applied, book import) or KitchenService.update
+ * (the kitchen's regime and allergen handling), and approvals (ApprovalStatus), which change what
+ * the counter serves. A supplier specification is kept beside its ingredient and changes no
  * declaration (nothing of it is an input of one), so it publishes nothing.
  */
 @Injectable()
@@ -19,45 +25,44 @@ export class DeclarationChanges implements OnModuleInit {
   constructor(
     private readonly books: BooksService,
     private readonly kitchen: KitchenService,
-    private readonly events: CounterEvents,
+    private readonly channel: CounterChannel,
     private readonly approvals: ApprovalStatus,
   ) {}
 
   onModuleInit() {
-    this.books.onKitchenWritten((written) => {
-      void this.published(written);
-    });
+    this.books.onKitchenWriting((written, after, t) => this.published(written, after, t));
     // New settings reach every product: no ids are named.
-    this.kitchen.onUpdated(() => this.events.publish({ type: 'declarations-changed' }));
+    this.kitchen.onUpdated((t) => this.channel.publish({ type: 'declarations-changed' }, t));
     // An approval changes what the counter serves of the products approved.
-    this.approvals.onApproved((products) => this.events.publish({ type: 'declarations-changed', products: [...products] }));
+    this.approvals.onApproved((products, t) => this.tell([...products], t));
   }
 
-  private async published(written: KitchenWritten): Promise<void> {
-    if (!this.events.listening) return;
-    if (written.site) {
-      this.events.publish({ type: 'declarations-changed' });
-      return;
+  private async published(written: KitchenWritten, after: Book, t: Transaction): Promise<void> {
+    let products: string[] | null = null;
+    if (!written.site) {
+      try {
+        products = productsTouched(written, after);
+      } catch (e) {
+        // When the products cannot be told, the counter is told that any may have changed.
+        this.logger.warn(`Could not tell which products a write touched: ${String(e)}`);
+      }
     }
-    try {
-      const products = await this.productsTouched(written);
-      if (products.length > 0) this.events.publish({ type: 'declarations-changed', products });
-    } catch (e) {
-      // The write is saved: when the products cannot be told, the counter is told that any may have changed.
-      this.logger.warn(`Could not tell which products a write touched: ${String(e)}`);
-      this.events.publish({ type: 'declarations-changed' });
-    }
+    await this.tell(products, t);
   }
 
-  /**
-   * The products for sale made with any item written, and every recipe written (one just taken off
-   * sale leaves the counter), in the book's order.
-   */
-  private async productsTouched(written: KitchenWritten): Promise<string[]> {
-    const { book } = await this.books.state();
-    const above = new Set<string>();
-    for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(book, id)) above.add(r);
-    const saved = new Set(written.recipes);
-    return book.recipes.filter((r) => saved.has(r.id) || (r.sale && above.has(r.id))).map((r) => r.id);
+  /** Names the products (none to name, no event), or, for null or a great many, tells that any may have changed. */
+  private async tell(products: string[] | null, t: Transaction): Promise<void> {
+    if (products === null || products.length > PRODUCTS_NAMED_AT_MOST) await this.channel.publish({ type: 'declarations-changed' }, t);
+    else if (products.length > 0) await this.channel.publish({ type: 'declarations-changed', products }, t);
   }
+}
+
+/**
+ * The products for sale made with any item written, and every recipe written (one just taken off
+ * sale leaves the counter), in the book's order.
+ */
+function productsTouched(written: KitchenWritten, book: Book): string[] {
+  const above = recipesAboveAny(book, [...written.ingredients, ...written.recipes]);
+  const saved = new Set(written.recipes);
+  return book.recipes.filter((r) => saved.has(r.id) || (r.sale && above.has(r.id))).map((r) => r.id);
 }

@@ -8,7 +8,7 @@ import { SiteRepository, type SiteRow } from './site.repository';
 
 @Injectable()
 export class KitchenService {
-  private readonly updatedListeners: (() => void)[] = [];
+  private readonly updatedListeners: ((t: Transaction) => Promise<void>)[] = [];
 
   constructor(
     private readonly sites: SiteRepository,
@@ -16,8 +16,11 @@ export class KitchenService {
     private readonly audit: AuditService,
   ) {}
 
-  /** Told after every saved change of the kitchen's settings (the counter's events); a listener must not throw. */
-  onUpdated(listener: () => void): void {
+  /**
+   * Told inside every change of the kitchen's settings, in its transaction (the counter's events):
+   * what a listener writes with `t` is kept with the change or not at all.
+   */
+  onUpdated(listener: (t: Transaction) => Promise<void>): void {
     this.updatedListeners.push(listener);
   }
 
@@ -44,9 +47,9 @@ export class KitchenService {
         { action: 'kitchen.updated', record: { kind: 'kitchen', id: site.id }, summary: `Changed the kitchen’s ${fields}.`, before, after },
         t,
       );
+      for (const listener of this.updatedListeners) await listener(t);
       return after;
     });
-    for (const listener of this.updatedListeners) listener();
     return updated;
   }
 

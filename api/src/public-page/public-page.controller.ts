@@ -72,6 +72,6 @@ export class PublicPageController {
   @Public()
   @ApiExcludeEndpoint()
   async page(@Param('code') code: string, @Req() request: FastifyRequest, @Res() reply: FastifyReply) {
-    return send(reply, this.rate.take(request.ip) ? await this.pages.page(code) : tooManyPage());
+    return send(reply, (await this.rate.take(request.ip)) ? await this.pages.page(code) : tooManyPage());
   }
 }

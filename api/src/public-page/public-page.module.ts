@@ -8,6 +8,7 @@ import { KitchenModule } from '../kitchen/kitchen.module';
 import { RulesModule } from '../rules/rules.module';
 import { PublicPageSettingsModel } from './public-page-settings.model';
 import { PublicPageSettingsRepository } from './public-page-settings.repository';
+import { PublicPageHitsRepository } from './public-page-hits.repository';
 import { PublicPageRate } from './public-page-rate';
 import { PublicPageController, PublicPageSettingsController } from './public-page.controller';
 import { PublicPageService } from './public-page.service';
@@ -27,7 +28,7 @@ import { PublicPageService } from './public-page.service';
     SequelizeModule.forFeature([PublicPageSettingsModel]),
   ],
   controllers: [PublicPageSettingsController, PublicPageController],
-  providers: [PublicPageService, PublicPageSettingsRepository, PublicPageRate, TransactionRunner],
+  providers: [PublicPageService, PublicPageSettingsRepository, PublicPageHitsRepository, PublicPageRate, TransactionRunner],
   exports: [PublicPageService],
 })
 export class PublicPageModule {}

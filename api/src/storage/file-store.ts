@@ -39,7 +39,7 @@ export function contentKey(bytes: Buffer): string {
 
 /** Refuses anything but a content address, so a key can never name a path or object outside the store. */
 export function checkKey(key: string): string {
-  if (!KEY.test(key)) throw new FileStoreError(`'${key.slice(0, 80)}' is not a stored file's key (64 hex digits of SHA-256).`);
+  if (!KEY.test(key)) throw new FileStoreError(`'${key.slice(0, 80)}' is not a stored file's key (64 hex digits of SHA-256).`, 'bad-key');
   return key;
 }
 
@@ -49,19 +49,31 @@ export function verified(key: string, bytes: Buffer, where: string): Buffer {
   if (actual !== key) {
     throw new FileStoreError(
       `The stored file ${key} in ${where} is damaged: its bytes have the SHA-256 ${actual}. Restore it from a backup (npm run restore).`,
+      'damaged',
     );
   }
   return bytes;
 }
 
-/** A refusal of the store, in words: a bad key, a missing or damaged object, a store that cannot be reached. */
+/**
+ * Why the store refused: a key that is no content address, an object that is not there, one whose
+ * bytes no longer match its key, or a store that cannot be reached or used (the service down, the
+ * bucket or folder not there, access refused, a full disk).
+ */
+export type FileStoreFailure = 'bad-key' | 'missing' | 'damaged' | 'unavailable';
+
+/** A refusal of the store, in words, with its reason. */
 export class FileStoreError extends Error {
+  /** Whether the object is not in the store (the store itself answered). */
+  readonly missing: boolean;
+
   constructor(
     message: string,
-    readonly missing = false,
+    readonly reason: FileStoreFailure,
     options?: ErrorOptions,
   ) {
     super(message, options);
     this.name = 'FileStoreError';
+    this.missing = reason === 'missing';
   }
 }

@@ -25,12 +25,36 @@ describe('LocalFileStore', () => {
   });
 
   it('says a missing object is missing, and refuses one whose bytes changed', async () => {
-    await expect(store.get(contentKey(Buffer.from('never put')))).rejects.toMatchObject({ missing: true, message: /is not in the folder/ });
+    await expect(store.get(contentKey(Buffer.from('never put')))).rejects.toMatchObject({
+      missing: true,
+      reason: 'missing',
+      message: /is not in the folder/,
+    });
     await store.put(bytes);
     writeFileSync(join(dir, key.slice(0, 2), key.slice(2, 4), key), 'changed');
-    await expect(store.get(key)).rejects.toThrow(
-      new RegExp(`The stored file ${key} in the folder .* is damaged: its bytes have the SHA-256 ${contentKey(Buffer.from('changed'))}`),
-    );
+    await expect(store.get(key)).rejects.toMatchObject({
+      reason: 'damaged',
+      message: expect.stringMatching(
+        new RegExp(`The stored file ${key} in the folder .* is damaged: its bytes have the SHA-256 ${contentKey(Buffer.from('changed'))}`),
+      ),
+    });
+  });
+
+  it('says the store cannot be used, not that a file is missing, when its folder is not there or cannot be written', async () => {
+    await store.put(bytes);
+    rmSync(dir, { recursive: true, force: true });
+    await expect(store.get(key)).rejects.toMatchObject({
+      reason: 'unavailable',
+      message: expect.stringMatching(/^Could not read the stored file [0-9a-f]{64}: the folder .* is not there \(is it mounted\?\)\.$/),
+    });
+    // A file where the folder should be: nothing can be kept under it, nor looked for.
+    writeFileSync(dir, 'not a folder');
+    await expect(store.put(bytes)).rejects.toMatchObject({
+      reason: 'unavailable',
+      message: expect.stringMatching(new RegExp(`^Could not look for the stored file ${key} in the folder `)),
+    });
+    await expect(store.get(key)).rejects.toMatchObject({ reason: 'unavailable' });
+    rmSync(dir, { force: true });
   });
 
   it.each(['../../etc/passwd', 'ABC', `${key}/x`, key.toUpperCase()])('refuses the key %s, which is no content address', async (bad) => {

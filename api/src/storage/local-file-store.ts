@@ -25,18 +25,23 @@ export class LocalFileStore implements FileStore {
     return join(this.root, key.slice(0, 2), key.slice(2, 4), key);
   }
 
+  /** The store cannot be used: its folder is not there (not mounted), or cannot be read or written. */
+  private unavailable(what: string, err: unknown): FileStoreError {
+    return new FileStoreError(`Could not ${what} in ${this.where}: ${(err as Error).message}`, 'unavailable', { cause: err });
+  }
+
   async put(bytes: Buffer): Promise<string> {
     const key = contentKey(bytes);
     const target = this.path(key);
     if (await this.has(key)) return key;
-    await mkdir(dirname(target), { recursive: true });
     const partial = `${target}.${randomBytes(6).toString('hex')}.partial`;
     try {
+      await mkdir(dirname(target), { recursive: true });
       await writeFile(partial, bytes, { flag: 'wx' });
       await rename(partial, target);
     } catch (err) {
-      await rm(partial, { force: true });
-      throw new FileStoreError(`Could not keep a file in ${this.where}: ${(err as Error).message}`, false, { cause: err });
+      await rm(partial, { force: true }).catch(() => undefined);
+      throw this.unavailable(`keep the file ${key}`, err);
     }
     return key;
   }
@@ -47,19 +52,31 @@ export class LocalFileStore implements FileStore {
     try {
       bytes = await readFile(path);
     } catch (err) {
-      if ((err as NodeJS.ErrnoException).code === 'ENOENT')
-        throw new FileStoreError(`The stored file ${key} is not in ${this.where}.`, true);
-      throw new FileStoreError(`Could not read the stored file ${key} in ${this.where}: ${(err as Error).message}`, false, { cause: err });
+      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw this.unavailable(`read the stored file ${key}`, err);
+      // With the folder itself gone (not mounted), every file would read as missing: the store is away, not the file.
+      if (!(await this.rootIsThere())) {
+        throw new FileStoreError(`Could not read the stored file ${key}: ${this.where} is not there (is it mounted?).`, 'unavailable');
+      }
+      throw new FileStoreError(`The stored file ${key} is not in ${this.where}.`, 'missing');
     }
     return verified(key, bytes, this.where);
   }
 
   async has(key: string): Promise<boolean> {
+    const path = this.path(key);
     try {
-      return (await stat(this.path(key))).isFile();
+      return (await stat(path)).isFile();
     } catch (err) {
       if ((err as NodeJS.ErrnoException).code === 'ENOENT') return false;
-      throw err;
+      throw this.unavailable(`look for the stored file ${key}`, err);
+    }
+  }
+
+  private async rootIsThere(): Promise<boolean> {
+    try {
+      return (await stat(this.root)).isDirectory();
+    } catch {
+      return false;
     }
   }
 

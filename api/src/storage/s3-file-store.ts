@@ -56,7 +56,7 @@ export class S3FileStore implements FileStore {
 
   private failed(what: string, err: unknown): FileStoreError {
     const why = err instanceof Error ? err.message.replace(/^AWS SDK error wrapper for /, '') : String(err);
-    return new FileStoreError(`Could not ${what} in ${this.where}: ${why}`, false, { cause: err });
+    return new FileStoreError(`Could not ${what} in ${this.where}: ${why}`, 'unavailable', { cause: err });
   }
 
   async put(bytes: Buffer): Promise<string> {
@@ -78,7 +78,7 @@ export class S3FileStore implements FileStore {
       const out = await this.client.send(new GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
       bytes = Buffer.from(await out.Body!.transformToByteArray());
     } catch (err) {
-      if (isMissing(err)) throw new FileStoreError(`The stored file ${key} is not in ${this.where}.`, true);
+      if (isMissing(err)) throw new FileStoreError(`The stored file ${key} is not in ${this.where}.`, 'missing');
       throw this.failed(`read the stored file ${key}`, err);
     }
     return verified(key, bytes, this.where);

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import S3rver from 's3rver';
 
 /** A fake S3-compatible service (s3rver) on loopback, with one bucket, its objects in a folder of its own. */
@@ -16,6 +16,8 @@ export interface FakeS3 {
   object(key: string): Promise<Buffer>;
   /** Writes other bytes under `sha256/<key>`. */
   overwrite(key: string, bytes: Buffer): Promise<void>;
+  /** Deletes the object `sha256/<key>` behind the app's back. */
+  remove(key: string): Promise<void>;
   /** Stops it (down) and starts it again on the same port (up), keeping its objects. */
   down(): Promise<void>;
   up(): Promise<void>;
@@ -45,6 +47,9 @@ export async function startFakeS3(bucket = 'crumbproof-uploads'): Promise<FakeS3
     },
     async overwrite(key, bytes) {
       await client.send(new PutObjectCommand({ Bucket: bucket, Key: `sha256/${key}`, Body: bytes }));
+    },
+    async remove(key) {
+      await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: `sha256/${key}` }));
     },
     settings: {
       STORAGE: 's3',

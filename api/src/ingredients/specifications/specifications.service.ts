@@ -142,7 +142,7 @@ export class SpecificationsService {
     const n = /^\d{1,9}$/.test(id) ? Number(id) : NaN;
     const found = Number.isNaN(n) ? null : await this.repo.findFile(n);
     if (!found) throw new AppError('not-found', `There is no specification ${id}.`);
-    const content = await readStoredFile(this.files, found.storageKey, found.sha256, `specification ${id}`);
+    const content = await readStoredFile(this.files, found.storageKey, found.sha256, `specification ${id} (${found.filename})`);
     return new StreamableFile(content, {
       type: found.mediaType,
       length: content.length,

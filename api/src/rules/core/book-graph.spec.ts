@@ -1,4 +1,4 @@
-import { closureItems, closureOf, recipesAbove, usedIn } from './book-graph';
+import { closureItems, closureOf, recipesAbove, recipesAboveAny, usedIn } from './book-graph';
 import { book, ing, recipe } from './testing/book-builder';
 
 const ids = (refs: { id: string }[]) => refs.map((r) => r.id);
@@ -295,6 +295,16 @@ describe('usedIn: every recipe above an item, with each path', () => {
     const stacked = book([ing('flour'), ing('salt')], recipes);
     expect(usedIn(stacked, 'salt')).toEqual([{ id: 'seasoned', name: 'Seasoned', forSale: false, paths: [['seasoned', 'salt']] }]);
     expect(recipesAbove(stacked, 'level-0').size).toBe(3 * levels + 1);
+  });
+
+  it('finds the recipes above any of several items in one walk: the union of each one’s', () => {
+    const recipes = stackedDiamonds(5, 'flour');
+    recipes.push(recipe('salted', [['salt', 1]]), recipe('plain', [['water', 100]]));
+    const kitchen = book([ing('flour'), ing('salt'), ing('water')], recipes);
+    const each = new Set([...recipesAbove(kitchen, 'level-2'), ...recipesAbove(kitchen, 'salt')]);
+    expect(recipesAboveAny(kitchen, ['level-2', 'salt'])).toEqual(each);
+    expect(each.has('salted') && !each.has('plain') && !each.has('level-1')).toBe(true);
+    expect(recipesAboveAny(kitchen, [])).toEqual(new Set());
   });
 
   it('counts every path through stacked diamonds: two ways through each of ten levels is 2^10 paths', () => {
