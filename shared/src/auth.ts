@@ -57,11 +57,33 @@ export type SignInRequest = z.infer<typeof signInSchema>;
 
 export const roleSchema = z.enum(ROLES);
 
+/** The header (or, where a header cannot be sent, the `kitchen` query parameter) naming the kitchen a request is for. */
+export const KITCHEN_HEADER = 'x-crumbproof-kitchen';
+
+/** A kitchen a person works in, with their role there. */
+export const kitchenRoleSchema = z.object({
+  /** The kitchen's number, sent back in KITCHEN_HEADER. */
+  id: z.number().int(),
+  /** Its id in the recipe book (null for the one kitchen of a book given as site). */
+  code: z.string().nullable(),
+  name: z.string(),
+  role: roleSchema,
+});
+export type KitchenRole = z.infer<typeof kitchenRoleSchema>;
+
 export const meSchema = z.object({
   id: z.number().int(),
   email: z.string(),
   name: z.string(),
+  /** The person's role at `kitchen`; before any kitchen is set up, the role they were created with. */
   role: roleSchema,
+  /**
+   * The kitchen this answer is for: the one the request named, or the person's only one; null
+   * when they work in several and named none (the app asks them to choose), or before any is set up.
+   */
+  kitchen: z.number().int().nullable(),
+  /** Every kitchen the person has a role in, in the order they were set up. */
+  kitchens: z.array(kitchenRoleSchema),
 });
 export type Me = z.infer<typeof meSchema>;
 
