@@ -14,7 +14,14 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
   it('signs in with the right password and sets an httpOnly, SameSite session cookie', async () => {
     const res = await post('/api/auth/sign-in', { email: 'Manager@Example.com ', password: 'crumbproof-demo' });
     expect(res.statusCode).toBe(200);
-    expect(res.json()).toEqual({ id: expect.any(Number), email: 'manager@example.com', name: expect.any(String), role: 'manager' });
+    expect(res.json()).toEqual({
+      id: expect.any(Number),
+      email: 'manager@example.com',
+      name: expect.any(String),
+      role: 'manager',
+      kitchen: expect.any(Number),
+      kitchens: [{ id: expect.any(Number), code: null, name: 'Wrenfield Lane Bakehouse', role: 'manager' }],
+    });
     const cookie = res.cookies.find((c) => c.name === 'cp_session')!;
     expect(cookie).toMatchObject({ httpOnly: true, sameSite: 'Strict', path: '/' });
     expect(res.body).not.toMatch(/password|hash/i);
@@ -92,7 +99,7 @@ describe('sign-in, sessions and roles (real MariaDB)', () => {
       headers: { cookie: `cp_session=${await jwt.signAsync({ sub: id, sid })}` },
     });
     expect(fresh.cookies.find((c) => c.name === 'cp_session')).toBeUndefined();
-    expect(fresh.json()).toEqual({ id, email: 'chef@example.com', name: 'Tobiah Quill', role: 'pastry-chef' });
+    expect(fresh.json()).toMatchObject({ id, email: 'chef@example.com', name: 'Tobiah Quill', role: 'pastry-chef' });
   });
 
   it('refuses an expired session', async () => {

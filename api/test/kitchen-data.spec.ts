@@ -2,7 +2,6 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Book, ProductDeclaration, ServedDeclaration } from '@crumbproof/shared';
 import { QueryTypes } from 'sequelize';
-import { tableChecksums } from './fixtures/table-checksums';
 import { startTestApp, type TestApp } from './support/test-app';
 
 const fixture = (name: string): unknown => JSON.parse(readFileSync(join(__dirname, '..', '..', 'tests', 'fixtures', name), 'utf8'));
@@ -352,67 +351,6 @@ describe('recipe book, declarations and the checked write path (real MariaDB)', 
     expect(res.statusCode).toBe(200);
     const d = (await req('GET', '/api/recipes/lemon-shortbread/declaration', counter)).json<ProductDeclaration>();
     expect(d.errors.map((e) => e.code)).toContain('quid-not-in-product');
-  });
-
-  describe('a book given as sites: the kitchen holds one site', () => {
-    it('refuses a book of several sites, naming them, and changes nothing', async () => {
-      const before = await tableChecksums(t.sequelize);
-      const res = await req('POST', '/api/book/import', manager, fixture('two-kitchens.book.json'));
-      expect(res.statusCode).toBe(400);
-      expect(res.json().code).toBe('book-invalid');
-      expect(res.json().fields).toEqual([
-        {
-          path: 'sites',
-          message:
-            'This book has 2 sites (bench, corner), and Crumbproof here holds one kitchen: import a book of one site, given as site or as sites with that site alone.',
-        },
-      ]);
-      expect(res.json().message).toMatch(/^The recipe book is not valid\. sites: This book has 2 sites/);
-      expect(await tableChecksums(t.sequelize)).toEqual(before);
-    });
-
-    it('refuses what the kitchen cannot keep of a site yet, its substitutions and a sells list leaving a recipe out, and changes nothing', async () => {
-      const { sites, ...rest } = fixture('two-kitchens.book.json') as { sites: Array<Record<string, unknown>> };
-      const before = await tableChecksums(t.sequelize);
-      const res = await req('POST', '/api/book/import', manager, { ...rest, sites: [sites[1]] });
-      expect(res.statusCode).toBe(400);
-      expect(res.json().code).toBe('book-invalid');
-      expect(res.json().fields).toEqual([
-        { path: 'sites.0 (corner).substitutions', message: expect.stringMatching(/^The kitchen keeps no substitutions yet/) },
-        {
-          path: 'sites.0 (corner).sells',
-          message: 'The kitchen sells every recipe with sale details, and sells leaves out Sesame snap: list them too, or leave sells out.',
-        },
-      ]);
-      expect(await tableChecksums(t.sequelize)).toEqual(before);
-    });
-
-    it('imports a book of one site given as sites as the same book given as site, and exports it as site', async () => {
-      const exported = (await req('GET', '/api/book', chef)).json<Book>();
-      const { site, ...rest } = exported;
-      const same = await req('POST', '/api/book/import', manager, { ...rest, sites: [{ id: 'lane', ...site }] });
-      expect(same.statusCode).toBe(200);
-      expect(same.json()).toMatchObject({
-        site: 'unchanged',
-        ingredients: { created: [], revised: [] },
-        recipes: { created: [], revised: [] },
-      });
-      expect((await req('GET', '/api/book', chef)).json()).toEqual(exported);
-
-      // The site's own ingredient is the kitchen's: it is kept as any other, and exported without onlyAt.
-      const local = { id: 'lane-honey', name: 'Honey from the lane', contains: [], vegan: false, vegetarian: true };
-      const own = await req('POST', '/api/book/import', manager, {
-        ...rest,
-        ingredients: [{ ...local, onlyAt: 'lane' }],
-        recipes: [],
-        sites: [{ id: 'lane', ...site }],
-      });
-      expect(own.statusCode).toBe(200);
-      expect(own.json().ingredients.created).toEqual(['lane-honey']);
-      const after = (await req('GET', '/api/book', chef)).json<Book>();
-      expect(after.site).toEqual(exported.site);
-      expect(after.ingredients.find((i) => i.id === 'lane-honey')).toEqual({ ...local, mayContain: [] });
-    });
   });
 
   it('front-of-house cannot write', async () => {

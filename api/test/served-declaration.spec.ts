@@ -156,6 +156,7 @@ describe('a served declaration and its basis (real MariaDB)', () => {
     expect(res.statusCode).toBe(200);
     expect(res.json()).toEqual({
       site: 'unchanged',
+      kitchens: { site: 'unchanged' },
       ingredients: { created: [], revised: [], unchanged: book.ingredients.length },
       recipes: { created: [], revised: [], unchanged: book.recipes.length },
     });

@@ -105,8 +105,19 @@ export const updateUserSchema = z
   .refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
 export type UpdateUserRequest = z.infer<typeof updateUserSchema>;
 
-/** invitationPending: true for a user who was invited and has not chosen a password yet (they cannot sign in). */
-export const userSchema = meSchema.extend({ active: z.boolean(), invitationPending: z.boolean(), createdAt: z.string() });
+/**
+ * A person as the users list shows them at one kitchen: `role` is their role there. invitationPending:
+ * true for a user who was invited and has not chosen a password yet (they cannot sign in).
+ */
+export const userSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  active: z.boolean(),
+  invitationPending: z.boolean(),
+  createdAt: z.string(),
+});
 export type User = z.infer<typeof userSchema>;
 
 /** Sets the first manager of a kitchen's own installation, with the one-time link printed at its first start. */

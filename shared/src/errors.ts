@@ -74,6 +74,8 @@ export const ERROR_CODES = [
   'unauthenticated',
   'bad-credentials',
   'forbidden',
+  /** The person works in several kitchens and the request named none (KITCHEN_HEADER): the app asks them to choose. */
+  'kitchen-required',
   'not-found',
   'conflict',
   'stale-base',

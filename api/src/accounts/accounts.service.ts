@@ -19,6 +19,8 @@ import type { AuthUser } from '../common/current-user.decorator';
 import { Clock } from '../common/clock';
 import { TransactionRunner } from '../common/transaction';
 import { appAddress, type AppConfig } from '../config/config';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
+import { KitchenService } from '../kitchen/kitchen.service';
 import { SiteRepository } from '../kitchen/site.repository';
 import { MailService } from '../mail/mail.service';
 import { invitationMail, passwordResetMail } from '../mail/templates/account-links';
@@ -73,6 +75,8 @@ export class AccountsService {
     private readonly audit: AuditService,
     private readonly config: ConfigService<AppConfig, true>,
     private readonly clock: Clock,
+    private readonly kitchen: KitchenService,
+    private readonly kitchenRoles: KitchenRolesRepository,
   ) {}
 
   /** Adds a user with no password and queues their invitation, in one transaction. */
@@ -84,6 +88,9 @@ export class AccountsService {
     }
     return this.tx.run(async (t) => {
       const row = await this.users.create({ email: req.email, name: req.name, role: req.role, passwordHash: null }, t);
+      // Invited to the kitchen the manager invites them at, in the role given.
+      const site = await this.kitchen.find(t);
+      if (site) await this.kitchenRoles.set(row.id, site.id, req.role, t);
       const user = toUser(row);
       const expiresAt = await this.sendLink(row, 'invitation', actor.name, t);
       await this.audit.record(

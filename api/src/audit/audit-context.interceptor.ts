@@ -5,8 +5,8 @@ import type { AuthUser } from '../common/current-user.decorator';
 import { runInRequest } from '../common/request-context';
 
 /**
- * After the guards, holds who is asking (the session's user, or nobody on a public route) and the
- * client's address for the whole handling of the request, so every write's audit event names them.
+ * After the guards, holds who is asking (the session's user, or nobody on a public route), the
+ * kitchen the request is for and the client's address for the whole handling of the request, so every write's audit event names them.
  */
 @Injectable()
 export class AuditContextInterceptor implements NestInterceptor {
@@ -14,7 +14,11 @@ export class AuditContextInterceptor implements NestInterceptor {
     if (context.getType() !== 'http') return next.handle();
     const request = context.switchToHttp().getRequest<FastifyRequest & { user?: AuthUser }>();
     const user = request.user;
-    const store = { actor: user ? { id: user.id, name: user.name, role: user.role } : null, address: request.ip ?? null };
+    const store = {
+      actor: user ? { id: user.id, name: user.name, role: user.role } : null,
+      address: request.ip ?? null,
+      kitchenId: user?.kitchenId ?? null,
+    };
     return new Observable((subscriber) => runInRequest(store, () => next.handle().subscribe(subscriber)));
   }
 }

@@ -3,10 +3,11 @@ import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import { firstManagerSchema, signInSchema, ROLES, type FirstManagerRequest, type Me, type SignInRequest } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
-import { Public, Roles } from '../common/roles.decorator';
+import { AnyKitchen, Public, Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { AuthService } from './auth.service';
 import { FirstManagerService } from './first-manager.service';
+import { meOf } from './me';
 import { readSessionCookie } from './session-cookie';
 import { SessionTokens } from './session-tokens';
 
@@ -56,8 +57,11 @@ export class AuthController {
 
   @Get('me')
   @Roles(ROLES)
-  @ApiOperation({ summary: 'The signed-in user' })
+  @AnyKitchen()
+  @ApiOperation({
+    summary: 'The signed-in user: their kitchens with their role at each, and the kitchen the request named (or their only one)',
+  })
   me(@CurrentUser() user: AuthUser): Me {
-    return { id: user.id, email: user.email, name: user.name, role: user.role };
+    return meOf(user, user.kitchens ?? [], user.kitchenId ?? null);
   }
 }

@@ -5,6 +5,7 @@ import { PassportModule } from '@nestjs/passport';
 import { AuditStoreModule } from '../audit/audit-store.module';
 import { TransactionRunner } from '../common/transaction';
 import type { AppConfig } from '../config/config';
+import { KitchenModule } from '../kitchen/kitchen.module';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
@@ -19,6 +20,7 @@ import { SessionsModule } from './sessions.module';
   imports: [
     AuditStoreModule,
     UsersModule,
+    KitchenModule,
     SessionsModule,
     PassportModule,
     JwtModule.registerAsync({

@@ -5,8 +5,10 @@ import type { Me, SignInRequest } from '@crumbproof/shared';
 import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
 import { isDemoKitchen, type AppConfig } from '../config/config';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
 import { checkPassword, DUMMY_HASH } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
+import { meOf } from './me';
 import { SessionTokens } from './session-tokens';
 import { SignInLimits } from './sign-in-limits.repository';
 
@@ -20,6 +22,7 @@ export class AuthService {
     private readonly tokens: SessionTokens,
     private readonly config: ConfigService<AppConfig, true>,
     private readonly audit: AuditService,
+    private readonly kitchenRoles: KitchenRolesRepository,
   ) {}
 
   /**
@@ -61,7 +64,7 @@ export class AuthService {
       record: { kind: 'user', id: row.id },
       summary: `${row.name} signed in.`,
     });
-    return { id: row.id, email: row.email, name: row.name, role: row.role };
+    return meOf(row, await this.kitchenRoles.ofUser(row.id));
   }
 
   /** Records a sign-out of the user whose session the cookie named (nothing when it named none). */

@@ -7,9 +7,12 @@ import { AppError } from '../common/app-error';
 import { isDemoKitchen, type AppConfig } from '../config/config';
 import { AuditService } from '../audit/audit.service';
 import { TransactionRunner } from '../common/transaction';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
+import { SiteRepository } from '../kitchen/site.repository';
 import { hashPassword, refuseCommonPassword } from '../users/password';
 import { UsersRepository } from '../users/users.repository';
 import { FirstManagerLinksRepository } from './first-manager-links.repository';
+import { meOf } from './me';
 
 /** How long a printed link works. A restart prints a new one while the kitchen has no manager. */
 export const FIRST_MANAGER_LINK_MINUTES = 60;
@@ -31,6 +34,8 @@ export class FirstManagerService {
     private readonly users: UsersRepository,
     private readonly config: ConfigService<AppConfig, true>,
     private readonly audit: AuditService,
+    private readonly sites: SiteRepository,
+    private readonly kitchenRoles: KitchenRolesRepository,
   ) {}
 
   private get demo() {
@@ -82,8 +87,10 @@ export class FirstManagerService {
         },
         t,
       );
+      // A kitchen already set up (an installation restored without a manager who can sign in) is the first manager's.
+      for (const site of await this.sites.all(t)) await this.kitchenRoles.set(row.id, site.id, 'manager', t);
       this.logger.log(`The first manager, ${req.email}, was set with the one-time link.`);
-      return { id: row.id, email: row.email, name: row.name, role: row.role };
+      return meOf(row, await this.kitchenRoles.ofUser(row.id, t));
     });
   }
 }

@@ -9,6 +9,8 @@ import {
   type BookRecipe,
   type FieldError,
   type OtherSave,
+  type Site,
+  type Substitution,
   type StaleBase,
   diffIngredient,
   diffRecipe,
@@ -20,18 +22,22 @@ import { AppError } from '../common/app-error';
 import { TransactionRunner } from '../common/transaction';
 import { validationError } from '../common/zod.pipe';
 import { IngredientsRepository } from '../ingredients/ingredients.repository';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { SiteRepository, type SiteRow } from '../kitchen/site.repository';
 import { RecipesRepository } from '../recipes/recipes.repository';
 import { UsersRepository } from '../users/users.repository';
 import { atThresholdPrecision, compare } from '../rules/core/compare';
 import { sameData } from '../rules/core/same-data';
-import { siteView } from '../rules/core/site-view';
+import { siteView, type SiteView } from '../rules/core/site-view';
 import { buildTree } from '../rules/core/tree';
 import { RulesService } from '../rules/rules.service';
 
 export interface ImportSummary {
+  /** The book's first kitchen: created, updated or left as it was. */
   site: 'created' | 'updated' | 'unchanged';
+  /** Every kitchen of the book by its id in the book (a book given as site: its one kitchen, under 'site'). */
+  kitchens: Record<string, 'created' | 'updated' | 'unchanged'>;
   ingredients: { created: string[]; revised: string[]; unchanged: number };
   recipes: { created: string[]; revised: string[]; unchanged: number };
 }
@@ -44,10 +50,20 @@ export interface ItemHead {
   revision: number;
 }
 
-/** The kitchen as it stands: its site row, its recipe book, and the current revision of every item. */
+/**
+ * A kitchen as it stands: its site row and its view of the recipe book (the one-site book the
+ * engine declares, with the kitchen's substitutions made), the whole book with every kitchen, and
+ * the current revision of every item.
+ */
 export interface KitchenState {
   site: SiteRow;
   book: Book;
+  /** What stood in for what at this kitchen, and the recipes for sale it does not sell. */
+  view: SiteView;
+  /** The whole recipe book: every kitchen, the shared ingredients and each kitchen's own, every recipe. */
+  file: BookFile;
+  /** Every kitchen, the book's owner first. */
+  sites: SiteRow[];
   /** Every ingredient and recipe by its id in the book. */
   heads: Map<string, ItemHead>;
 }
@@ -68,11 +84,11 @@ export interface KitchenWritten {
   site: boolean;
 }
 /**
- * Told inside every write's own transaction, after its rows and before its commit, with the book as
- * it is after the write: what a listener writes with `t` (the counter's events) is kept with the
+ * Told inside every write's own transaction, after its rows and before its commit, with every
+ * kitchen's view of the book as it is after the write: what a listener writes with `t` (the counter's events) is kept with the
  * write or not at all, and a listener that throws rolls the write back.
  */
-export type KitchenWritingListener = (written: KitchenWritten, after: Book, t: Transaction) => Promise<void>;
+export type KitchenWritingListener = (written: KitchenWritten, after: readonly Book[], t: Transaction) => Promise<void>;
 /** Told after every saved write has committed, awaited before the write answers (the approvals' mail); it must not throw. */
 export type KitchenSavedListener = (written: KitchenWritten) => Promise<void>;
 
@@ -83,6 +99,9 @@ export type KitchenSavedListener = (written: KitchenWritten) => Promise<void>;
 function freezeState(state: KitchenState): KitchenState {
   deepFreeze(state.book);
   deepFreeze(state.site);
+  deepFreeze(state.view);
+  deepFreeze(state.file);
+  deepFreeze(state.sites);
   return state;
 }
 
@@ -103,8 +122,8 @@ export class BooksService {
   private readonly recipesWrittenListeners: RecipesWrittenListener[] = [];
   private readonly kitchenWritingListeners: KitchenWritingListener[] = [];
   private readonly kitchenSavedListeners: KitchenSavedListener[] = [];
-  /** The kitchen last read outside a write, under the site row's versions it was read at. */
-  private lastRead: { key: string; state: Promise<KitchenState> } | null = null;
+  /** Each kitchen last read outside a write, by site id, under the site rows' versions it was read at. */
+  private readonly lastRead = new Map<number, { key: string; state: Promise<KitchenState> }>();
 
   constructor(
     private readonly kitchen: KitchenService,
@@ -115,6 +134,7 @@ export class BooksService {
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
     private readonly users: UsersRepository,
+    private readonly kitchenRoles: KitchenRolesRepository,
   ) {}
 
   /**
@@ -143,7 +163,7 @@ export class BooksService {
     for (const listener of this.kitchenSavedListeners) await listener(written);
   }
 
-  private async kitchenWriting(written: KitchenWritten, after: Book, t: Transaction): Promise<void> {
+  private async kitchenWriting(written: KitchenWritten, after: readonly Book[], t: Transaction): Promise<void> {
     if (!changedAnything(written)) return;
     for (const listener of this.kitchenWritingListeners) await listener(written, after, t);
   }
@@ -165,70 +185,85 @@ export class BooksService {
     }
   }
 
-  /** The whole kitchen as it stands now: the recipe book with the current revision of every item. */
+  /**
+   * The request's kitchen as it stands now (KitchenService.current): its view of the recipe book
+   * with the current revision of every item, and the whole book.
+   */
   async state(t?: Transaction): Promise<KitchenState> {
-    const site = await this.kitchen.current(t);
-    // Inside a write, always as the transaction sees it.
-    if (t) return this.read(site, t);
-    // Outside one, the copy read last serves while the site row's versions are those it was read
-    // at: every write raises one of them (SiteRepository.lock, .update) in its own transaction, on
-    // any API instance, so one small read of the site row tells whether the copy still stands.
-    // The items are read after the site row, so a copy is never older than its key.
-    const key = `${site.id}:${site.version}:${site.bookVersion}`;
-    if (this.lastRead?.key !== key) {
-      const state = this.read(site).then(freezeState);
-      this.lastRead = { key, state };
-      state.catch(() => {
-        if (this.lastRead?.state === state) this.lastRead = null;
-      });
-    }
-    return this.lastRead.state;
+    return this.stateAt(await this.kitchen.current(t), t);
   }
 
-  private async read(site: SiteRow, t?: Transaction): Promise<KitchenState> {
-    const [ings, recs] = await Promise.all([this.ingredients.listCurrent(site.id, t), this.recipes.listCurrent(site.id, t)]);
+  /** One kitchen as it stands now, as state gives the request's. */
+  async stateAt(kitchen: SiteRow, t?: Transaction): Promise<KitchenState> {
+    const sites = await this.sites.all(t);
+    const site = sites.find((s) => s.id === kitchen.id);
+    if (!site) throw new AppError('not-found', `The kitchen ${kitchen.name} is no longer set up.`);
+    // Inside a write, always as the transaction sees it.
+    if (t) return this.read(site, sites, t);
+    // Outside one, the copy read last serves while the site rows' versions are those it was read
+    // at: every write raises one of them (SiteRepository.lock on the owner, .update on a kitchen)
+    // in its own transaction, on any API instance, so one small read of the site rows tells whether
+    // the copy still stands. The items are read after the site rows, so a copy is never older than its key.
+    const key = sites.map((s) => `${s.id}:${s.version}:${s.bookVersion}`).join(' ');
+    const last = this.lastRead.get(site.id);
+    if (last?.key === key) return last.state;
+    const state = this.read(site, sites).then(freezeState);
+    this.lastRead.set(site.id, { key, state });
+    state.catch(() => {
+      if (this.lastRead.get(site.id)?.state === state) this.lastRead.delete(site.id);
+    });
+    return state;
+  }
+
+  /** Every kitchen as it stands now, the owner first (what a change to shared items is shown against). */
+  async everyKitchen(): Promise<KitchenState[]> {
+    const sites = await this.sites.all();
+    return Promise.all(sites.map((s) => this.stateAt(s)));
+  }
+
+  private async read(site: SiteRow, sites: SiteRow[], t?: Transaction): Promise<KitchenState> {
+    const owner = sites[0];
+    const [ings, recs] = await Promise.all([this.ingredients.listCurrent(owner.id, t), this.recipes.listCurrent(owner.id, t)]);
     const heads = new Map<string, ItemHead>([
       ...ings.map((i) => [i.code, { kind: 'ingredient', rowId: i.id, revision: i.revision }] as const),
       ...recs.map((r) => [r.code, { kind: 'recipe', rowId: r.id, revision: r.revision }] as const),
     ]);
-    const book: Book = {
-      crumbproofBook: 1,
-      site: {
-        name: site.name,
-        ...(site.address ? { address: site.address } : {}),
-        regime: site.regime,
-        ...(site.measures ? { measures: site.measures } : {}),
-        handles: site.handles,
-      },
+    const file = bookFileOf(sites, {
       ingredients: ings.map((i) => ({ id: i.code, ...i.body })),
       recipes: recs.map((r) => ({ id: r.code, ...r.body })),
-    };
-    return { site, book, heads };
+    });
+    const view = viewAt(file, site);
+    return { site, book: view.book, view, file, sites, heads };
   }
 
-  /** The whole kitchen as it stands now, in the recipe book format. */
-  async exportBook(t?: Transaction): Promise<Book> {
-    return (await this.state(t)).book;
+  /** The whole recipe book as it stands now: every kitchen, in the recipe book format. */
+  async exportBook(t?: Transaction): Promise<BookFile> {
+    return (await this.state(t)).file;
   }
 
   /**
-   * Parses a book against the published schema; every problem names where it is. The kitchen
-   * holds one site: a book of one site given as sites reads as the same book given as site, and a
-   * book of several sites is refused, as is what the kitchen cannot keep of a site yet (its
-   * substitutions, a sells list that leaves a recipe for sale out).
+   * Parses a book against the published schema; every problem names where it is. A book of
+   * several kitchens is kept as it is (BookFile); its kitchens' views are what the engine declares.
    */
-  parse(input: unknown): Book {
+  parse(input: unknown): BookFile {
     const result = bookFileSchema.safeParse(input);
     if (!result.success)
       throw validationError(result.error, { place: bookPlace(input), code: 'book-invalid', lead: 'The recipe book is not valid.' });
-    const refused = oneKitchenProblems(result.data);
-    if (refused.length > 0)
-      throw new AppError(
-        'book-invalid',
-        `The recipe book is not valid. ${refused.map((f) => `${f.path}: ${f.message}`).join(' ')}`,
-        refused,
-      );
-    return siteView(result.data).book;
+    return result.data;
+  }
+
+  /**
+   * Refuses a whole book (every kitchen) that cannot be declared: a book of several kitchens is
+   * checked against the schema's cross-references (what each kitchen's own ingredients and
+   * substitutions name), then every kitchen's view against the engine.
+   */
+  assertFileDeclarable(file: BookFile): void {
+    if (file.sites) {
+      const checked = bookFileSchema.safeParse(file);
+      if (!checked.success)
+        throw validationError(checked.error, { place: bookPlace(file), code: 'book-invalid', lead: 'The recipe book would not be valid.' });
+      for (const s of file.sites) this.assertDeclarable(siteView(file, s.id).book);
+    } else this.assertDeclarable(siteView(file).book);
   }
 
   /** Refuses a book the rules engine cannot declare (cycles, unknown ids, unweighable lines). */
@@ -266,44 +301,61 @@ export class BooksService {
     if (problems.length > 0) throw bookRefused(problems);
   }
 
-  /** Imports a book into the kitchen, merging by id; all or nothing. */
+  /**
+   * Imports a book into the installation, merging by id; all or nothing. Ingredients and recipes
+   * are merged into the shared book; each kitchen of the book is matched by its id (a book given
+   * as site: the one kitchen of an installation of one), created when it is new, its settings
+   * taken from the book. Kitchens the book does not name are kept as they are. The installation's
+   * first kitchen is everyone's already there; a later one is the importing manager's.
+   */
   async importBook(input: unknown, meta: { authorId: number | null; note: string; address?: string }): Promise<ImportSummary> {
-    const book = this.parse(input);
-    this.assertDistinctIds(book.site, book);
+    const file = this.parse(input);
+    const incoming = kitchensOf(file);
+    this.assertDistinctIds(incoming[0].site, file);
     const imported = await this.tx.run(async (t) => {
       await this.sites.lock(t);
-      const site = await this.kitchen.find(t);
-      const current = site ? (await this.read(site, t)).book : null;
-      const merged: Book = {
-        ...book,
-        ingredients: mergeById(current?.ingredients ?? [], book.ingredients),
-        recipes: mergeById(current?.recipes ?? [], book.recipes),
-      };
-      this.assertDeclarable(merged);
-      this.assertBakeLoss(merged, book.recipes, (r) => `recipes.${book.recipes.indexOf(r)} (${r.id}).finishedWeightG`);
-
-      let siteRow = site;
-      let siteState: ImportSummary['site'] = 'unchanged';
-      const siteFields = {
-        name: book.site.name,
-        regime: book.site.regime,
-        measures: book.site.measures ?? null,
-        handles: book.site.handles,
-        ...(book.site.address !== undefined ? { address: book.site.address } : {}),
-      };
-      // A book without an address keeps the kitchen's own.
-      const kept = current?.site.address;
-      const wanted = book.site.address === undefined && kept ? { ...book.site, address: kept } : book.site;
-      if (!siteRow) {
-        siteRow = await this.sites.create({ ...siteFields, address: book.site.address ?? meta.address ?? '' }, t);
-        siteState = 'created';
-      } else if (!sameData(current?.site, wanted)) {
-        siteRow = await this.sites.update(siteRow.id, siteFields, t);
-        siteState = 'updated';
+      const rows = await this.sites.all(t);
+      const current = rows.length > 0 ? (await this.read(rows[0], rows, t)).file : null;
+      const matched = matchKitchens(incoming, rows);
+      const kitchenState: ImportSummary['kitchens'] = {};
+      // The kitchens after the import, in the installation's order, new ones after.
+      const after: SiteRow[] = [...rows];
+      for (const { key, site, row } of matched) {
+        const fields = {
+          name: site.name,
+          regime: site.regime,
+          measures: site.measures ?? null,
+          handles: site.handles,
+          code: site.code,
+          substitutions: site.substitutions,
+          sells: site.sells,
+          // A book without an address keeps the kitchen's own.
+          ...(site.address !== undefined ? { address: site.address } : {}),
+        };
+        if (!row) {
+          const created = await this.sites.create({ ...fields, address: site.address ?? meta.address ?? '' }, t);
+          after.push(created);
+          if (rows.length === 0 && after.length === 1) await this.kitchenRoles.grantEveryone(created.id, t);
+          else if (meta.authorId !== null) await this.kitchenRoles.set(meta.authorId, created.id, 'manager', t);
+          kitchenState[key] = 'created';
+        } else if (!sameKitchen(row, fields)) {
+          after[after.indexOf(row)] = await this.sites.update(row.id, fields, t);
+          kitchenState[key] = 'updated';
+        } else kitchenState[key] = 'unchanged';
       }
+      const owner = after[0];
+      const merged = bookFileOf(after, {
+        ingredients: mergeById(current?.ingredients ?? [], file.ingredients),
+        recipes: mergeById(current?.recipes ?? [], file.recipes),
+      });
+      this.assertFileDeclarable(merged);
+      const ownView = viewAt(merged, owner).book;
+      this.assertBakeLoss(ownView, file.recipes, (r) => `recipes.${file.recipes.indexOf(r)} (${r.id}).finishedWeightG`);
+      const siteState = kitchenState[matched[0].key];
 
       const summary: ImportSummary = {
         site: siteState,
+        kitchens: kitchenState,
         ingredients: { created: [], revised: [], unchanged: 0 },
         recipes: { created: [], revised: [], unchanged: 0 },
       };
@@ -320,16 +372,16 @@ export class BooksService {
           return true;
         });
       };
-      const ingredients = changed(book.ingredients, current?.ingredients ?? [], summary.ingredients);
+      const ingredients = changed(file.ingredients, current?.ingredients ?? [], summary.ingredients);
       await this.ingredients.writeMany(
-        siteRow.id,
+        owner.id,
         ingredients.map((i) => ({ code: i.id, body: bodyOf(i) })),
         meta,
         t,
       );
-      const recipes = changed(book.recipes, current?.recipes ?? [], summary.recipes);
+      const recipes = changed(file.recipes, current?.recipes ?? [], summary.recipes);
       await this.recipes.writeMany(
-        siteRow.id,
+        owner.id,
         recipes.map((r) => ({ code: r.id, body: bodyOf(r) })),
         meta,
         t,
@@ -338,9 +390,9 @@ export class BooksService {
       await this.audit.record(
         {
           action: 'book.imported',
-          record: { kind: 'kitchen', id: siteRow.id },
+          record: { kind: 'kitchen', id: owner.id },
           summary:
-            `Imported the recipe book${meta.note ? ` (${meta.note})` : ''}: kitchen ${siteState}; ` +
+            `Imported the recipe book${meta.note ? ` (${meta.note})` : ''}: ${kitchensInWords(matched, kitchenState)}; ` +
             `${count(summary.ingredients.created.length, 'ingredient')} added, ${summary.ingredients.revised.length} revised; ` +
             `${count(summary.recipes.created.length, 'recipe')} added, ${summary.recipes.revised.length} revised.`,
           after: summary,
@@ -351,9 +403,9 @@ export class BooksService {
         {
           ingredients: [...summary.ingredients.created, ...summary.ingredients.revised],
           recipes: [...summary.recipes.created, ...summary.recipes.revised],
-          site: siteState !== 'unchanged',
+          site: Object.values(kitchenState).some((k) => k !== 'unchanged'),
         },
-        merged,
+        everyView(merged),
         t,
       );
       return summary;
@@ -362,7 +414,7 @@ export class BooksService {
     await this.kitchenWritten({
       ingredients: [...imported.ingredients.created, ...imported.ingredients.revised],
       recipes: [...imported.recipes.created, ...imported.recipes.revised],
-      site: imported.site !== 'unchanged',
+      site: Object.values(imported.kitchens).some((k) => k !== 'unchanged'),
     });
     return imported;
   }
@@ -383,13 +435,14 @@ export class BooksService {
     const written = await this.tx.run(async (t) => {
       await this.sites.lock(t);
       const state = await this.state(t);
-      const { site, book } = state;
+      const { site, book, file } = state;
       if (check) await check(state, t);
       this.assertDistinctIds(book.site, changes);
-      const all = new Set([...book.ingredients, ...book.recipes].map((x) => x.id));
+      // Ids are the whole book's, every kitchen's own ingredients too.
+      const all = new Set([...file.ingredients, ...file.recipes].map((x) => x.id));
       for (const [kind, items, own] of [
-        ['ingredient', changes.ingredients ?? [], book.ingredients],
-        ['recipe', changes.recipes ?? [], book.recipes],
+        ['ingredient', changes.ingredients ?? [], file.ingredients],
+        ['recipe', changes.recipes ?? [], file.recipes],
       ] as const) {
         for (const item of items) {
           const exists = own.some((x) => x.id === item.id);
@@ -404,25 +457,30 @@ export class BooksService {
           }
         }
       }
-      const merged: Book = {
-        ...book,
-        ingredients: mergeById(book.ingredients, changes.ingredients ?? []),
-        recipes: mergeById(book.recipes, changes.recipes ?? []),
+      // A kitchen's own ingredient stays its own: an editor's save does not carry onlyAt, the book keeps it.
+      const keptOwn = new Map(file.ingredients.flatMap((i) => (i.onlyAt !== undefined ? [[i.id, i.onlyAt] as const] : [])));
+      const ingredients = (changes.ingredients ?? []).map((i) => (keptOwn.has(i.id) ? { ...i, onlyAt: keptOwn.get(i.id)! } : i));
+      const mergedFile: BookFile = {
+        ...file,
+        ingredients: mergeById(file.ingredients, ingredients),
+        recipes: mergeById(file.recipes, changes.recipes ?? []),
       };
-      this.assertDeclarable(merged);
+      this.assertFileDeclarable(mergedFile);
+      const merged = viewAt(mergedFile, site).book;
       const recipes = changes.recipes ?? [];
       this.assertBakeLoss(merged, recipes, (r) => (recipes.length === 1 ? 'finishedWeightG' : `recipes.${r.id}.finishedWeightG`));
+      const owner = state.sites[0];
       const written: { id: string; revision: number }[] = [];
-      for (const ing of changes.ingredients ?? []) {
-        written.push({ id: ing.id, revision: await this.ingredients.write(site.id, ing.id, bodyOf(ing), meta, t) });
+      for (const ing of ingredients) {
+        written.push({ id: ing.id, revision: await this.ingredients.write(owner.id, ing.id, bodyOf(ing), meta, t) });
       }
       for (const rec of changes.recipes ?? []) {
-        written.push({ id: rec.id, revision: await this.recipes.write(site.id, rec.id, bodyOf(rec), meta, t) });
+        written.push({ id: rec.id, revision: await this.recipes.write(owner.id, rec.id, bodyOf(rec), meta, t) });
       }
-      await this.audit.record(itemsWritten(book, changes, written, meta.note, audit), t);
+      await this.audit.record(itemsWritten(file, changes, written, meta.note, audit), t);
       await this.kitchenWriting(
         { ingredients: (changes.ingredients ?? []).map((i) => i.id), recipes: (changes.recipes ?? []).map((r) => r.id), site: false },
-        merged,
+        everyView(mergedFile),
         t,
       );
       return written;
@@ -521,7 +579,7 @@ export class BooksService {
     t: Transaction,
   ): Promise<StaleBase> {
     const head = state.heads.get(id)!;
-    const names = new Map([...state.book.ingredients, ...state.book.recipes].map((x) => [x.id, x.name]));
+    const names = new Map([...state.file.ingredients, ...state.file.recipes].map((x) => [x.id, x.name]));
     const revisions =
       kind === 'ingredient'
         ? await this.ingredients.revisionsFrom(head.rowId, base, t)
@@ -564,7 +622,7 @@ export function savedAtWords(iso: string): string {
  * as its body, several by kind and id.
  */
 function itemsWritten(
-  book: Book,
+  book: Pick<BookFile, 'ingredients' | 'recipes'>,
   changes: { ingredients?: BookIngredient[]; recipes?: BookRecipe[] },
   written: { id: string; revision: number }[],
   note: string,
@@ -623,34 +681,83 @@ export function bookRefused(problems: BookProblem[]): AppError {
   return new AppError(problems[0].code, `${shown.join(' ')}${more}`, undefined, problems);
 }
 
+/** A kitchen of a book being imported: its key in the summary, and its fields as a site row keeps them. */
+interface IncomingKitchen {
+  key: string;
+  site: Site & { code: string | null; substitutions: Substitution[]; sells: string[] | null };
+}
+
+/** The kitchens a book gives: its one kitchen (a book given as site, under the key 'site'), or each of its sites. */
+function kitchensOf(file: BookFile): IncomingKitchen[] {
+  if (file.site) return [{ key: 'site', site: { ...file.site, code: null, substitutions: [], sells: null } }];
+  return (file.sites ?? []).map(({ id, substitutions, sells, ...site }) => ({
+    key: id,
+    site: { ...site, code: id, substitutions: substitutions ?? [], sells: sells ?? null },
+  }));
+}
+
 /**
- * What a book holds that this kitchen, one site, cannot keep: several sites, a site's
- * substitutions, and a sells list leaving out a recipe for sale (the kitchen sells every one).
+ * Each kitchen of the book with the installation's row it updates (none: a new one). A kitchen is
+ * matched by its id in the book; the book's first kitchen also takes the installation's one
+ * kitchen when that has no id yet (a kitchen set up from a book given as site). A book given as
+ * site reaches the one kitchen of an installation of one, and is refused by one of several.
  */
-function oneKitchenProblems(file: BookFile): FieldError[] {
-  const sites = file.sites ?? [];
-  if (sites.length > 1)
-    return [
-      {
-        path: 'sites',
-        message: `This book has ${sites.length} sites (${sites.map((s) => s.id).join(', ')}), and Crumbproof here holds one kitchen: import a book of one site, given as site or as sites with that site alone.`,
-      },
-    ];
-  const [site] = sites;
-  if (!site) return [];
-  const place = `sites.0 (${site.id})`;
-  const fields: FieldError[] = [];
-  if (site.substitutions && site.substitutions.length > 0)
-    fields.push({
-      path: `${place}.substitutions`,
-      message: `The kitchen keeps no substitutions yet, so its recipes would not say which ingredient stands in for which: name the ingredient the kitchen uses in its recipes' lines, or leave the substitutions out.`,
-    });
-  const sells = new Set(site.sells ?? file.recipes.map((r) => r.id));
-  const unsold = file.recipes.filter((r) => r.sale && !sells.has(r.id));
-  if (unsold.length > 0)
-    fields.push({
-      path: `${place}.sells`,
-      message: `The kitchen sells every recipe with sale details, and sells leaves out ${unsold.map((r) => r.name).join(', ')}: list them too, or leave sells out.`,
-    });
-  return fields;
+function matchKitchens(incoming: IncomingKitchen[], rows: SiteRow[]): Array<IncomingKitchen & { row: SiteRow | null }> {
+  const byCode = new Map(rows.flatMap((r) => (r.code !== null ? [[r.code, r] as const] : [])));
+  if (incoming[0].site.code === null && rows.length > 1)
+    throw new AppError(
+      'book-invalid',
+      `This installation has ${rows.length} kitchens (${rows.map((r) => r.code ?? r.name).join(', ')}), and this book gives one kitchen as site, without an id: give the book its kitchens as sites, each with its id.`,
+      [{ path: 'site', message: 'Give the kitchens as sites, each with its id.' }],
+    );
+  return incoming.map((k, i) => {
+    if (k.site.code === null) return { ...k, row: rows[0] ?? null };
+    const row = byCode.get(k.site.code) ?? (i === 0 && rows.length === 1 && rows[0].code === null ? rows[0] : null);
+    return { ...k, row };
+  });
+}
+
+/** Whether a kitchen's row already holds every field the book gives it. */
+function sameKitchen(row: SiteRow, fields: Partial<SiteRow>): boolean {
+  return (Object.keys(fields) as (keyof SiteRow)[]).every((k) => sameData(row[k] ?? null, fields[k] ?? null));
+}
+
+function kitchensInWords(matched: IncomingKitchen[], state: ImportSummary['kitchens']): string {
+  if (matched.length === 1) return `kitchen ${state[matched[0].key]}`;
+  return matched.map((k) => `${k.site.name} ${state[k.key]}`).join(', ');
+}
+
+/**
+ * The whole book as the installation keeps it: a book given as site for an installation of one
+ * kitchen without an id (as it was set up), or every kitchen as sites.
+ */
+export function bookFileOf(sites: readonly SiteRow[], items: Pick<BookFile, 'ingredients' | 'recipes'>): BookFile {
+  const fields = (s: SiteRow): Site => ({
+    name: s.name,
+    ...(s.address ? { address: s.address } : {}),
+    regime: s.regime,
+    ...(s.measures ? { measures: s.measures } : {}),
+    handles: s.handles,
+  });
+  if (sites.length === 1 && sites[0].code === null) return { crumbproofBook: 1, site: fields(sites[0]), ...items };
+  return {
+    crumbproofBook: 1,
+    sites: sites.map((s) => ({
+      id: s.code ?? `kitchen-${s.id}`,
+      ...fields(s),
+      ...(s.substitutions.length > 0 ? { substitutions: s.substitutions } : {}),
+      ...(s.sells !== null ? { sells: s.sells } : {}),
+    })),
+    ...items,
+  };
+}
+
+/** One kitchen's view of the whole book (see siteView). */
+export function viewAt(file: BookFile, site: SiteRow): SiteView {
+  return file.sites ? siteView(file, site.code ?? `kitchen-${site.id}`) : siteView(file);
+}
+
+/** Every kitchen's view of the whole book: what a write is told it changed. */
+function everyView(file: BookFile): Book[] {
+  return file.sites ? file.sites.map((s) => siteView(file, s.id).book) : [siteView(file).book];
 }

@@ -25,6 +25,7 @@ export function httpStatusOf(code: ErrorCode): number {
     case 'unknown-reference':
     case 'unweighable-line':
     case 'duplicate-id':
+    case 'kitchen-required':
       return 400;
     case 'unauthenticated':
     case 'bad-credentials':

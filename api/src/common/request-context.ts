@@ -5,6 +5,8 @@ import type { Role } from '@crumbproof/shared';
 export interface RequestContext {
   actor: { id: number; name: string; role: Role } | null;
   address: string | null;
+  /** The kitchen the request is for (see RolesGuard); null on a public route or before any kitchen is set up. */
+  kitchenId: number | null;
 }
 
 const storage = new AsyncLocalStorage<RequestContext>();

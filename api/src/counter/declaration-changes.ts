@@ -37,7 +37,7 @@ export class DeclarationChanges implements OnModuleInit {
     this.approvals.onApproved((products, t) => this.tell([...products], t));
   }
 
-  private async published(written: KitchenWritten, after: Book, t: Transaction): Promise<void> {
+  private async published(written: KitchenWritten, after: readonly Book[], t: Transaction): Promise<void> {
     let products: string[] | null = null;
     if (!written.site) {
       try {
@@ -58,11 +58,19 @@ export class DeclarationChanges implements OnModuleInit {
 }
 
 /**
- * The products for sale made with any item written, and every recipe written (one just taken off
- * sale leaves the counter), in the book's order.
+ * The products for sale at any kitchen made with any item written there (a kitchen's own
+ * ingredient reaches its products through its substitution), and every recipe written (one just
+ * taken off sale leaves the counter), in the book's order.
  */
-function productsTouched(written: KitchenWritten, book: Book): string[] {
-  const above = recipesAboveAny(book, [...written.ingredients, ...written.recipes]);
+function productsTouched(written: KitchenWritten, views: readonly Book[]): string[] {
   const saved = new Set(written.recipes);
-  return book.recipes.filter((r) => saved.has(r.id) || (r.sale && above.has(r.id))).map((r) => r.id);
+  const touched = new Set<string>();
+  for (const book of views) {
+    const above = recipesAboveAny(book, [
+      ...written.ingredients.filter((id) => book.ingredients.some((i) => i.id === id)),
+      ...written.recipes,
+    ]);
+    for (const r of book.recipes) if (saved.has(r.id) || (r.sale && above.has(r.id))) touched.add(r.id);
+  }
+  return views[0]?.recipes.filter((r) => touched.has(r.id)).map((r) => r.id) ?? [];
 }

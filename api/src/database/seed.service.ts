@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { ApprovalsService } from '../approvals/approvals.service';
 import { BooksService } from '../books/books.service';
 import { isDemoKitchen, type AppConfig } from '../config/config';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { LabelSettingsRepository } from '../labels/label-settings.repository';
 import { hashPassword } from '../users/password';
@@ -26,6 +27,7 @@ export class SeedService {
     private readonly labelSettings: LabelSettingsRepository,
     private readonly approvals: ApprovalsService,
     private readonly config: ConfigService<AppConfig, true>,
+    private readonly kitchenRoles: KitchenRolesRepository,
   ) {}
 
   async seedDemo(): Promise<'seeded' | 'kept'> {
@@ -42,7 +44,12 @@ export class SeedService {
     await this.books.importBook(demoBook, { authorId: null, note: 'Demo kitchen', address: DEMO_SITE_ADDRESS });
     await this.labelSettings.save((await this.kitchen.current()).id, DEMO_LABEL_SETTINGS);
     const created = [];
-    for (const u of DEMO_USERS) created.push(await this.users.create({ ...u, passwordHash: hash, demoPassword: true }));
+    const kitchens = await this.kitchen.all();
+    for (const u of DEMO_USERS) {
+      const user = await this.users.create({ ...u, passwordHash: hash, demoPassword: true });
+      for (const k of kitchens) await this.kitchenRoles.set(user.id, k.id, u.role);
+      created.push(user);
+    }
     // The demo starts approved: its manager approves every product's declaration as seeded.
     const manager = created.find((u) => u.role === 'manager')!;
     await this.approvals.approveAll({ id: manager.id, name: manager.name, role: manager.role }, 'Demo kitchen as seeded');

@@ -83,7 +83,7 @@ export class DeclarationsService implements OnModuleInit {
   /**
    * A product's declaration with where it comes from, from the store when nothing it depends on
    * has changed. It is kept under a hash of everything it is computed from: the product's closure
-   * (each item's body and current revision), the kitchen's settings and their version, the regime
+   * (each item's body and current revision, as the kitchen makes it), the kitchen and its settings' version, the regime
    * and the reference data; so `computedAt` is when it was computed for exactly these inputs.
    * Callers that declare many products pass the kitchen they already read.
    */
@@ -125,7 +125,9 @@ export class DeclarationsService implements OnModuleInit {
         revision: heads.get(id)!.revision,
       }));
       const inputHash = createHash('sha256')
-        .update(canonicalJson({ slice, items, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion }))
+        .update(
+          canonicalJson({ slice, items, siteId: site.id, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion }),
+        )
         .digest('hex');
       return { code, head, slice, items, inputHash };
     });

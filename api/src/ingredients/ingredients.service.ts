@@ -35,7 +35,7 @@ export class IngredientsService {
   ) {}
 
   private async siteId() {
-    return (await this.kitchen.current()).id;
+    return (await this.kitchen.owner()).id;
   }
 
   async list(query: IngredientQuery = {}): Promise<Page<IngredientView>> {
@@ -76,7 +76,7 @@ export class IngredientsService {
 
   /** Every recipe and product that uses the ingredient at any depth, with each path. */
   async usedIn(code: string) {
-    const book = await this.books.exportBook();
+    const { book } = await this.books.state();
     if (!book.ingredients.some((i) => i.id === code)) throw new AppError('not-found', `There is no ingredient '${code}'.`);
     return usedIn(book, code);
   }

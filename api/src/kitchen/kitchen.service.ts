@@ -3,6 +3,7 @@ import type { KitchenUpdate, KitchenView } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
 import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
+import { currentRequest } from '../common/request-context';
 import { TransactionRunner } from '../common/transaction';
 import { SiteRepository, type SiteRow } from './site.repository';
 
@@ -24,16 +25,36 @@ export class KitchenService {
     this.updatedListeners.push(listener);
   }
 
-  /** The kitchen this installation serves (one site per installation for now), or null before one is set up. */
-  find(t?: Transaction): Promise<SiteRow | null> {
-    return this.sites.first(t);
+  /**
+   * The kitchen the request is for (RolesGuard sets it from the request and the person's roles);
+   * outside a request, or on a route for no kitchen in particular, the book's owner. Null before
+   * any kitchen is set up.
+   */
+  async find(t?: Transaction): Promise<SiteRow | null> {
+    const kitchenId = currentRequest()?.kitchenId;
+    if (kitchenId === undefined || kitchenId === null) return this.sites.first(t);
+    const site = await this.sites.byId(kitchenId, t);
+    if (!site) throw new AppError('not-found', 'That kitchen is no longer set up. Choose one of your kitchens.');
+    return site;
   }
 
-  /** The kitchen this installation serves; refused, saying how to set one up, when there is none yet. */
+  /** The kitchen the request is for (see find); refused, saying how to set one up, when there is none yet. */
   async current(t?: Transaction): Promise<SiteRow> {
+    const site = await this.find(t);
+    if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
+    return site;
+  }
+
+  /** The kitchen that owns the recipe book (the first set up): every ingredient and recipe row is keyed by it. */
+  async owner(t?: Transaction): Promise<SiteRow> {
     const site = await this.sites.first(t);
     if (!site) throw new AppError('not-found', 'No kitchen is set up yet. Import a recipe book first.');
     return site;
+  }
+
+  /** Every kitchen of the installation, the owner first. */
+  all(t?: Transaction): Promise<SiteRow[]> {
+    return this.sites.all(t);
   }
 
   /** Changes the kitchen's regime, measures or allergen handling; every declaration follows. */

@@ -26,7 +26,7 @@ export class RecipesService {
   ) {}
 
   private async siteId() {
-    return (await this.kitchen.current()).id;
+    return (await this.kitchen.owner()).id;
   }
 
   async list(): Promise<RecipeView[]> {
@@ -72,7 +72,7 @@ export class RecipesService {
 
   /** Every recipe that uses this one at any depth. */
   async usedIn(code: string) {
-    const book = await this.books.exportBook();
+    const { book } = await this.books.state();
     if (!book.recipes.some((r) => r.id === code)) throw new AppError('not-found', `There is no recipe '${code}'.`);
     return usedIn(book, code);
   }

@@ -24,7 +24,7 @@ export class SwapsService {
   }
 
   async preview(req: SwapRequest): Promise<SwapPreview> {
-    const before = await this.books.exportBook();
+    const { book: before } = await this.books.state();
     const { from, to, changed, after, products } = this.plan(before, req);
     this.books.assertDeclarable(after);
     const declared = products.map((id) => {

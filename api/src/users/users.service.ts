@@ -6,6 +6,8 @@ import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
+import { KitchenService } from '../kitchen/kitchen.service';
 import { hashPassword, refuseCommonPassword } from './password';
 import { toUser, UsersRepository } from './users.repository';
 
@@ -17,6 +19,8 @@ export class UsersService {
     private readonly limits: SignInLimits,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
+    private readonly kitchen: KitchenService,
+    private readonly kitchenRoles: KitchenRolesRepository,
   ) {}
 
   async list(): Promise<User[]> {
@@ -33,6 +37,9 @@ export class UsersService {
     const passwordHash = await hashPassword(req.password);
     return this.tx.run(async (t) => {
       const user = toUser(await this.repo.create({ email: req.email, name: req.name, role: req.role, passwordHash }, t));
+      // The person works at the kitchen they were added at, in the role given; before any kitchen, they get it at the first.
+      const site = await this.kitchen.find(t);
+      if (site) await this.kitchenRoles.set(user.id, site.id, req.role, t);
       await this.audit.record(
         {
           action: 'user.created',
@@ -77,6 +84,9 @@ export class UsersService {
         },
         t,
       );
+      // A role is the person's role at the kitchen the manager changes it at.
+      const site = req.role !== undefined ? await this.kitchen.find(t) : null;
+      if (site && req.role !== undefined) await this.kitchenRoles.set(id, site.id, req.role, t);
       const after = toUser(updated!);
       const changed = [
         ...(['name', 'role', 'active'] as const).filter((k) => req[k] !== undefined && req[k] !== before[k]),

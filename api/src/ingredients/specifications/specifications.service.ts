@@ -48,7 +48,7 @@ export class SpecificationsService {
   }
 
   private async ingredient(code: string): Promise<Head> {
-    const found = await this.ingredients.findHead((await this.kitchen.current()).id, code);
+    const found = await this.ingredients.findHead((await this.kitchen.owner()).id, code);
     if (!found) throw new AppError('not-found', `There is no ingredient '${code}'.`);
     return found;
   }
@@ -80,7 +80,7 @@ export class SpecificationsService {
     }
     const reviewBy = parsed.data.reviewBy || defaultReviewBy(this.today());
     const quota = this.config.get('KITCHEN_FILE_QUOTA_MB', { infer: true });
-    const kitchen = await this.kitchen.current();
+    const kitchen = await this.kitchen.owner();
     const row = await this.tx.run(async (t) => {
       // The kitchen first (as every kitchen write does), so two uploads cannot together pass its quota.
       await this.sites.lock(t);
@@ -154,7 +154,7 @@ export class SpecificationsService {
 
   /** For every ingredient: its newest specification, and whether it is missing, overdue or current. */
   async status(): Promise<SpecificationStatus[]> {
-    const ingredients = await this.ingredients.listHeads((await this.kitchen.current()).id);
+    const ingredients = await this.ingredients.listHeads((await this.kitchen.owner()).id);
     const rows = await this.repo.listFor(ingredients.map((i) => i.id));
     const latest = newest(rows);
     const now = this.today();
@@ -175,7 +175,7 @@ export class SpecificationsService {
    */
   async reviewsDue(now = this.clock.now(), withinDays = REVIEW_WINDOW_DAYS): Promise<ReviewsDue> {
     const day = today(now);
-    const ingredients = await this.ingredients.listHeads((await this.kitchen.current()).id);
+    const ingredients = await this.ingredients.listHeads((await this.kitchen.owner()).id);
     const latest = newest(await this.repo.listFor(ingredients.map((i) => i.id)));
     const horizon = addDays(day, withinDays);
     const reviews: SpecificationReview[] = ingredients.flatMap((i) => {
