@@ -8,6 +8,8 @@ export interface SettingsApp {
   database: string;
   /** What main.ts does at start: a new one-time first-manager link's token, or null when the kitchen has its manager. */
   issueFirstManagerLink(): Promise<string | null>;
+  /** What `db setup` does after migrating: seeds the demo (the chain of two kitchens) into an empty database, and nothing into one with a kitchen. */
+  seedDemo(): Promise<'seeded' | 'kept'>;
   /** Closes the app; drops its database unless it is to be opened again. */
   close(opts?: { keepDatabase?: boolean }): Promise<void>;
 }
@@ -29,19 +31,20 @@ export async function startAppWith(
   }
   try {
     await createTestDatabase(opts.database, opts.create !== false);
-    let built!: { app: NestFastifyApplication; sequelize: Sequelize; issueFirstManagerLink(): Promise<string | null> };
+    let built!: Pick<SettingsApp, 'app' | 'sequelize' | 'issueFirstManagerLink' | 'seedDemo'>;
     await jest.isolateModulesAsync(async () => {
       const { createApp } = await import('../../src/app.factory');
-      const { SeedService } = await import('../../src/database/seed.service');
+      const { DEMO_ONE_KITCHEN, SeedService } = await import('../../src/database/seed.service');
       const { Sequelize: IsolatedSequelize } = await import('sequelize-typescript');
       const { FirstManagerService } = await import('../../src/auth/first-manager.service');
       const app = await createApp({ logLevel: 'silent' });
       const sequelize = app.get(IsolatedSequelize);
-      if (opts.seed) await app.get(SeedService).seedDemo();
+      if (opts.seed) await app.get(SeedService).seedKitchen(DEMO_ONE_KITCHEN);
       built = {
         app,
         sequelize,
         issueFirstManagerLink: async () => (await app.get(FirstManagerService).issue())?.token ?? null,
+        seedDemo: () => app.get(SeedService).seedDemo(),
       };
     });
     return {

@@ -6,7 +6,7 @@ import { environmentConfig } from '../../src/config/config';
 import { connectionOptions } from '../../src/database/connection';
 import { revokeRuntime } from '../../src/database/runtime-grants';
 import { setUpSchema } from '../../src/database/schema-setup';
-import { SeedService } from '../../src/database/seed.service';
+import { DEMO_ONE_KITCHEN, SeedService, type SeedKitchen } from '../../src/database/seed.service';
 import { DEMO_PASSWORD } from '../../src/database/seeders/demo-users';
 import type { FakeSmtp } from './fake-smtp';
 
@@ -80,8 +80,11 @@ export interface TestApp {
 }
 
 export interface TestAppOptions {
-  /** Seed the demo kitchen (Wrenfield Lane Bakehouse, its products and its three accounts). */
-  seed?: boolean;
+  /**
+   * Seed the one-kitchen demo (Wrenfield Lane Bakehouse, its products and its three accounts), or
+   * the book and people given (DEMO_CHAIN: the app's demo of two kitchens).
+   */
+  seed?: boolean | SeedKitchen;
   /** Send the app's mail to this server (test/support/fake-smtp.ts), polled hourly so a test sends what is due itself. */
   mail?: FakeSmtp;
   /** Further settings of the app's environment (SIGN_IN_LIMIT, …), as `.env.example` names them. */
@@ -121,7 +124,7 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
     );
   }
   const sequelize = app.get(Sequelize);
-  if (opts.seed) await app.get(SeedService).seedDemo();
+  if (opts.seed) await app.get(SeedService).seedKitchen(opts.seed === true ? DEMO_ONE_KITCHEN : opts.seed);
   const sender = app.get(MailSender);
   const signIn = async (email: string, password = DEMO_PASSWORD) => {
     const res = await app.inject({ method: 'POST', url: '/api/auth/sign-in', payload: { email, password } });
