@@ -55,6 +55,7 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
   app.setGlobalPrefix('api', {
     exclude: [
       { path: 'p/:code', method: RequestMethod.GET },
+      { path: 'p/:kitchen/:code', method: RequestMethod.GET },
       { path: 'p/fonts/:file', method: RequestMethod.GET },
     ],
   });

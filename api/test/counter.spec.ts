@@ -1,7 +1,7 @@
-import { request, type IncomingMessage } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Book, BookIngredient, CounterDayView, CounterProductsView, CounterQuestionView } from '@crumbproof/shared';
 import { tableChecksums } from './fixtures/table-checksums';
+import { openStream } from './support/event-stream';
 import { startTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -9,50 +9,6 @@ import { startTestApp, type TestApp } from './support/test-app';
  * declaration its own route serves, the events stream read by a real HTTP client on a listening
  * port, the products on sale by day, and questions asked of the kitchen and answered.
  */
-
-/** An open events stream: every event as it arrives, with its raw text. */
-interface Stream {
-  response: IncomingMessage;
-  text: () => string;
-  /** The next event of a type that arrives after `since` (an offset in the text), or null after `ms`. */
-  next: (type: string, since: number, ms: number) => Promise<{ data: Record<string, unknown>; afterMs: number } | null>;
-  close: () => void;
-}
-
-function openStream(port: number, cookie: string): Promise<Stream> {
-  return new Promise((resolve, reject) => {
-    const req = request(
-      { host: '127.0.0.1', port, path: '/api/counter/events', headers: { cookie, accept: 'text/event-stream' } },
-      (response) => {
-        let text = '';
-        response.setEncoding('utf8');
-        response.on('data', (chunk: string) => (text += chunk));
-        resolve({
-          response,
-          text: () => text,
-          next: (type, since, ms) =>
-            new Promise((done) => {
-              const started = Date.now();
-              const look = () => {
-                const block = text
-                  .slice(since)
-                  .split('\n\n')
-                  .find((b) => b.startsWith(`event: ${type}\n`));
-                if (block)
-                  done({ data: JSON.parse(/^data: (.*)$/m.exec(block)![1]) as Record<string, unknown>, afterMs: Date.now() - started });
-                else if (Date.now() - started > ms) done(null);
-                else setTimeout(look, 10);
-              };
-              look();
-            }),
-          close: () => req.destroy(),
-        });
-      },
-    );
-    req.on('error', reject);
-    req.end();
-  });
-}
 
 describe('the counter (real MariaDB)', () => {
   let t: TestApp;

@@ -52,7 +52,7 @@ describe('the public product page (real MariaDB)', () => {
 
   it('is off in a new kitchen: the settings say so and a published product has no page', async () => {
     const got = await t.app.inject({ method: 'GET', url: '/api/public-page/settings', headers: { cookie: manager } });
-    expect(got.json()).toEqual({ enabled: false, baseUrl: null, updatedAt: null });
+    expect(got.json()).toEqual({ enabled: false, baseUrl: null, updatedAt: null, kitchen: null });
     await publish(product, true);
     const res = await page(`/p/${product.id}`);
     expect(res.statusCode).toBe(404);

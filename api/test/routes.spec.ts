@@ -91,6 +91,7 @@ const EXPECTED: Record<string, [anonymous: number, frontOfHouse: number, pastryC
   'PUT /api/public-page/settings': [401, 403, 403, 400],
   // The public product page: no sign-in, and the same page in words for every address that is no published product.
   'GET /p/:code': [404, 404, 404, 404],
+  'GET /p/:kitchen/:code': [404, 404, 404, 404],
   'GET /p/fonts/:file': [404, 404, 404, 404],
   // The OpenAPI document and its viewer are public: they describe the routes, not the kitchen.
   'GET /api/docs': [200, 200, 200, 200],

@@ -52,12 +52,18 @@ export type PublicPageSettings = z.infer<typeof publicPageSettingsSchema>;
 /** The settings as the API serves them, with when they were last saved (null: never, so off). */
 export interface PublicPageSettingsView extends PublicPageSettings {
   updatedAt: string | null;
+  /**
+   * The kitchen's part of its pages' addresses where the installation has several kitchens (its id
+   * in the recipe book: `/p/<kitchen>/<product>`); null where it has one (`/p/<product>`).
+   */
+  kitchen: string | null;
 }
 
-/** The path of a product's public page under the base address. */
-export const publicPagePath = (productId: string) => `/p/${encodeURIComponent(productId)}`;
+/** The path of a product's public page under the base address; with several kitchens, the kitchen's too. */
+export const publicPagePath = (productId: string, kitchen: string | null = null) =>
+  kitchen === null ? `/p/${encodeURIComponent(productId)}` : `/p/${encodeURIComponent(kitchen)}/${encodeURIComponent(productId)}`;
 
 /** The whole address of a product's public page, as its QR code carries it. */
-export function publicPageUrl(baseUrl: string, productId: string): string {
-  return `${baseUrl.replace(/\/+$/, '')}${publicPagePath(productId)}`;
+export function publicPageUrl(baseUrl: string, productId: string, kitchen: string | null = null): string {
+  return `${baseUrl.replace(/\/+$/, '')}${publicPagePath(productId, kitchen)}`;
 }

@@ -52,9 +52,13 @@ export class CounterChannel implements OnModuleInit, OnModuleDestroy {
     this.stop();
   }
 
-  /** Writes the event in the write's transaction; once it commits, this instance's streams hear it at once. */
-  async publish(event: CounterEvent, t: Transaction): Promise<void> {
-    await this.repo.add(event, t);
+  /**
+   * Writes the event in the write's transaction, for the counters of one kitchen (a question, the
+   * day's display, an approval or settings there) or, with no kitchen, of every kitchen (a change to
+   * the shared recipe book); once it commits, this instance's streams hear it at once.
+   */
+  async publish(event: CounterEvent, t: Transaction, kitchen: number | null = null): Promise<void> {
+    await this.repo.add(event, kitchen, t);
     t.afterCommit(() => {
       this.poll();
       this.pruneNowAndThen();
@@ -128,7 +132,7 @@ export class CounterChannel implements OnModuleInit, OnModuleDestroy {
     const now = Date.now();
     for (const row of rows) {
       this.heard.set(row.id, now);
-      this.events.deliver(row.event);
+      this.events.deliver(row.event, row.kitchen);
     }
     // Ids heard SETTLE_MS ago move the cursor up: a missing id below them is no longer waited for.
     let settled = from;

@@ -6,9 +6,17 @@ import { Sequelize } from 'sequelize-typescript';
 export interface CounterEventRow {
   id: number;
   event: CounterEvent;
+  /** The kitchen whose counters it is for; null: every kitchen's (a change to the shared recipe book). */
+  kitchen: number | null;
 }
 
-const parsed = (body: unknown): CounterEvent => (typeof body === 'string' ? JSON.parse(body) : body) as CounterEvent;
+/** A row's body: the event, with the kitchen it is for when it is for one. */
+type EventBody = CounterEvent & { kitchen?: number };
+
+function parsed(body: unknown): Omit<CounterEventRow, 'id'> {
+  const { kitchen, ...event } = (typeof body === 'string' ? JSON.parse(body) : body) as EventBody;
+  return { event, kitchen: typeof kitchen === 'number' ? kitchen : null };
+}
 
 /**
  * The only place that reads and writes counter_events (migration 0015): the counter's events as
@@ -19,9 +27,10 @@ const parsed = (body: unknown): CounterEvent => (typeof body === 'string' ? JSON
 export class CounterEventsRepository {
   constructor(private readonly sequelize: Sequelize) {}
 
-  /** Adds the event inside the write's own transaction: kept with the write, or not at all. */
-  async add(event: CounterEvent, t: Transaction): Promise<void> {
-    await this.sequelize.query('INSERT INTO counter_events (body) VALUES (?)', { replacements: [JSON.stringify(event)], transaction: t });
+  /** Adds the event for one kitchen's counters (null: every kitchen's) inside the write's own transaction: kept with the write, or not at all. */
+  async add(event: CounterEvent, kitchen: number | null, t: Transaction): Promise<void> {
+    const body: EventBody = kitchen === null ? event : { ...event, kitchen };
+    await this.sequelize.query('INSERT INTO counter_events (body) VALUES (?)', { replacements: [JSON.stringify(body)], transaction: t });
   }
 
   /**
@@ -45,7 +54,7 @@ export class CounterEventsRepository {
       `SELECT id, body FROM counter_events WHERE id > ?${heard.length > 0 ? ' AND id NOT IN (?)' : ''} ORDER BY id LIMIT ?`,
       { replacements: heard.length > 0 ? [after, heard, limit] : [after, limit], type: QueryTypes.SELECT },
     );
-    return rows.map((r) => ({ id: Number(r.id), event: parsed(r.body) }));
+    return rows.map((r) => ({ id: Number(r.id), ...parsed(r.body) }));
   }
 
   /** Removes the events added more than `olderThanMs` ago. */

@@ -1,7 +1,8 @@
 import { Injectable } from '@nestjs/common';
 import type { CounterEvent } from '@crumbproof/shared';
 
-export type CounterEventListener = (event: CounterEvent) => void;
+/** Hears each event with the kitchen it is for (null: every kitchen). */
+export type CounterEventListener = (event: CounterEvent, kitchen: number | null) => void;
 
 /** What a source of events is told: the first listener came (it answers once it delivers), or the last one went. */
 export interface CounterEventSource {
@@ -52,8 +53,8 @@ export class CounterEvents {
     return this.listeners.size > 0;
   }
 
-  /** Hands an event to every open stream of this instance. */
-  deliver(event: CounterEvent): void {
-    for (const listener of this.listeners) listener(event);
+  /** Hands an event, for one kitchen's counters or (null) every kitchen's, to every open stream of this instance. */
+  deliver(event: CounterEvent, kitchen: number | null = null): void {
+    for (const listener of this.listeners) listener(event, kitchen);
   }
 }

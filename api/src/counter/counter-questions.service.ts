@@ -68,7 +68,7 @@ export class CounterQuestionsService {
         },
         t,
       );
-      await this.channel.publish({ type: 'question-asked', question: added.id, product: added.productCode }, t);
+      await this.channel.publish({ type: 'question-asked', question: added.id, product: added.productCode }, t, site.id);
       return added;
     });
     return view(row);
@@ -103,7 +103,7 @@ export class CounterQuestionsService {
         },
         t,
       );
-      await this.channel.publish({ type: 'question-answered', question: answered.id, product: answered.productCode }, t);
+      await this.channel.publish({ type: 'question-answered', question: answered.id, product: answered.productCode }, t, site.id);
       return answered;
     });
     return view(row);

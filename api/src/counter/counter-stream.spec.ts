@@ -65,6 +65,20 @@ describe('an events stream of the counter (server-sent events, WHATWG HTML Livin
     expect(events.listening).toBe(false);
   });
 
+  it('writes the events of its own kitchen’s counters and those for every kitchen, never another kitchen’s', async () => {
+    const events = new CounterEvents();
+    const raw = new Written();
+    await new CounterStream(events, kitchen).open(reply(raw));
+    events.deliver({ type: 'question-asked', question: 3, product: 'strawberry-tart' }, 2);
+    events.deliver({ type: 'display-changed', date: '2026-12-02' }, 2);
+    expect(raw.text).not.toContain('event:');
+    events.deliver({ type: 'question-asked', question: 4, product: 'vegan-brownie' }, 1);
+    events.deliver({ type: 'declarations-changed', products: ['vegan-brownie'] }, null);
+    expect(raw.text.match(/^event: .*$/gm)).toEqual(['event: question-asked', 'event: declarations-changed']);
+    expect(raw.text).toContain('"question":4');
+    raw.emit('close');
+  });
+
   it('ends every open stream when the API shuts down, so the server can close', async () => {
     const events = new CounterEvents();
     const stream = new CounterStream(events, kitchen);

@@ -24,15 +24,19 @@ export class CounterStream implements OnModuleDestroy {
     private readonly kitchen: KitchenService,
   ) {}
 
-  /** Opens a stream on the request's connection; refused, as any route is, when there is no kitchen yet. */
+  /**
+   * Opens a stream on the request's connection for the request's kitchen (named by the header or,
+   * as an EventSource sends no header, `?kitchen=`): it hears the events of that kitchen's counters
+   * and those for every kitchen. Refused, as any route is, when there is no kitchen yet.
+   */
   async open(reply: FastifyReply): Promise<void> {
-    await this.kitchen.current();
+    const site = await this.kitchen.current();
     // Listening first, so the stream hears every event written once it says it is connected (one
     // written before then is seen by the read the client starts once connected).
     const raw = reply.raw;
     let connected = false;
-    const unsubscribe = await this.events.subscribe((event) => {
-      if (connected) raw.write(eventText(event));
+    const unsubscribe = await this.events.subscribe((event, kitchen) => {
+      if (connected && (kitchen === null || kitchen === site.id)) raw.write(eventText(event));
     });
     reply.hijack();
     // The headers hooks set on the reply (security headers, a renewed session cookie) go out too.

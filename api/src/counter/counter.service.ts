@@ -85,7 +85,7 @@ export class CounterService {
         },
         t,
       );
-      await this.channel.publish({ type: 'display-changed', date: body.date }, t);
+      await this.channel.publish({ type: 'display-changed', date: body.date }, t, state.site.id);
       return saved;
     });
     return { date: body.date, products: row.products, setBy: row.setByName, setAt: row.setAt.toISOString() };

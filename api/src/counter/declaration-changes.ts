@@ -31,10 +31,10 @@ export class DeclarationChanges implements OnModuleInit {
 
   onModuleInit() {
     this.books.onKitchenWriting((written, after, t) => this.published(written, after, t));
-    // New settings reach every product: no ids are named.
-    this.kitchen.onUpdated((t) => this.channel.publish({ type: 'declarations-changed' }, t));
-    // An approval changes what the counter serves of the products approved.
-    this.approvals.onApproved((products, t) => this.tell([...products], t));
+    // A kitchen's new settings reach every product of its counters: no ids are named.
+    this.kitchen.onUpdated((t, site) => this.channel.publish({ type: 'declarations-changed' }, t, site.id));
+    // An approval, given at the request's kitchen, changes what that kitchen's counters serve of the products approved.
+    this.approvals.onApproved(async (products, t) => this.tell([...products], t, (await this.kitchen.find(t))?.id ?? null));
   }
 
   private async published(written: KitchenWritten, after: readonly Book[], t: Transaction): Promise<void> {
@@ -50,10 +50,14 @@ export class DeclarationChanges implements OnModuleInit {
     await this.tell(products, t);
   }
 
-  /** Names the products (none to name, no event), or, for null or a great many, tells that any may have changed. */
-  private async tell(products: string[] | null, t: Transaction): Promise<void> {
-    if (products === null || products.length > PRODUCTS_NAMED_AT_MOST) await this.channel.publish({ type: 'declarations-changed' }, t);
-    else if (products.length > 0) await this.channel.publish({ type: 'declarations-changed', products }, t);
+  /**
+   * Names the products (none to name, no event), or, for null or a great many, tells that any may
+   * have changed; to one kitchen's counters, or (null) to every kitchen's.
+   */
+  private async tell(products: string[] | null, t: Transaction, kitchen: number | null = null): Promise<void> {
+    if (products === null || products.length > PRODUCTS_NAMED_AT_MOST)
+      await this.channel.publish({ type: 'declarations-changed' }, t, kitchen);
+    else if (products.length > 0) await this.channel.publish({ type: 'declarations-changed', products }, t, kitchen);
   }
 }
 

@@ -28,6 +28,17 @@ export class KitchenRolesRepository {
     );
   }
 
+  /** The addresses of the active people holding one of `roles` at the kitchen, in order (one query). */
+  async activeEmailsAt(siteId: number, roles: readonly Role[], t?: Transaction): Promise<string[]> {
+    if (roles.length === 0) return [];
+    const rows = await this.roles.sequelize!.query<{ email: string }>(
+      `SELECT u.email AS email FROM kitchen_roles r JOIN users u ON u.id = r.user_id
+        WHERE r.site_id = :siteId AND r.role IN (:roles) AND u.active = 1 ORDER BY u.email`,
+      { replacements: { siteId, roles: [...roles] }, type: QueryTypes.SELECT, transaction: t },
+    );
+    return rows.map((r) => r.email);
+  }
+
   /** Each person's role at one kitchen, by user id. */
   async atKitchen(siteId: number, t?: Transaction): Promise<Map<number, Role>> {
     const rows = await this.roles.findAll({ where: { siteId }, transaction: t });

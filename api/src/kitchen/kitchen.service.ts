@@ -9,7 +9,7 @@ import { SiteRepository, type SiteRow } from './site.repository';
 
 @Injectable()
 export class KitchenService {
-  private readonly updatedListeners: ((t: Transaction) => Promise<void>)[] = [];
+  private readonly updatedListeners: ((t: Transaction, site: SiteRow) => Promise<void>)[] = [];
 
   constructor(
     private readonly sites: SiteRepository,
@@ -18,10 +18,10 @@ export class KitchenService {
   ) {}
 
   /**
-   * Told inside every change of the kitchen's settings, in its transaction (the counter's events):
-   * what a listener writes with `t` is kept with the change or not at all.
+   * Told inside every change of a kitchen's settings, in its transaction, with the kitchen changed
+   * (the counter's events): what a listener writes with `t` is kept with the change or not at all.
    */
-  onUpdated(listener: (t: Transaction) => Promise<void>): void {
+  onUpdated(listener: (t: Transaction, site: SiteRow) => Promise<void>): void {
     this.updatedListeners.push(listener);
   }
 
@@ -68,7 +68,7 @@ export class KitchenService {
         { action: 'kitchen.updated', record: { kind: 'kitchen', id: site.id }, summary: `Changed the kitchen’s ${fields}.`, before, after },
         t,
       );
-      for (const listener of this.updatedListeners) await listener(t);
+      for (const listener of this.updatedListeners) await listener(t, site);
       return after;
     });
     return updated;

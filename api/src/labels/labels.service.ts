@@ -163,7 +163,7 @@ export class LabelsService {
 
     // A published product's ticket carries a QR code to its public page (when the kitchen has the page on).
     const publicUrls = await this.publicPages.ticketUrls(
-      state.site.id,
+      state.site,
       planned.map((p) => ({ id: p.product.id, sale: p.source.sale })),
     );
     const printedAt = new Date();

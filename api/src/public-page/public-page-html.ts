@@ -141,6 +141,22 @@ export function notFoundPage(): PublicPage {
   };
 }
 
+/**
+ * An address that names a product but not its kitchen, at an installation of several kitchens:
+ * which kitchen's page it is cannot be told, so none is shown.
+ */
+export function whichKitchenPage(): PublicPage {
+  return {
+    status: 404,
+    html: document(
+      'Which kitchen’s product?',
+      `<h1>Which kitchen’s product?</h1>
+<p>This address names a product but not the kitchen it is made at, and several kitchens publish their products here, each with its own recipes and handling. Scan the code on your ticket again: it names the kitchen.</p>
+<p>Ask at the counter: the staff can tell you what each product contains.</p>`,
+    ),
+  };
+}
+
 /** Too many pages asked for from one address in a short time. */
 export function tooManyPage(): PublicPage {
   return {

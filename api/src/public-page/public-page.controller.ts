@@ -68,10 +68,24 @@ export class PublicPageController {
     return reply.header('Cache-Control', 'public, max-age=31536000, immutable').type('font/woff2').send(font);
   }
 
+  /** A product's page at an installation of one kitchen (with several, a page in words asking which kitchen's). */
   @Get(':code')
   @Public()
   @ApiExcludeEndpoint()
   async page(@Param('code') code: string, @Req() request: FastifyRequest, @Res() reply: FastifyReply) {
     return send(reply, (await this.rate.take(request.ip)) ? await this.pages.page(code) : tooManyPage());
+  }
+
+  /** A product's page at one kitchen, named by its id in the recipe book. */
+  @Get(':kitchen/:code')
+  @Public()
+  @ApiExcludeEndpoint()
+  async kitchenPage(
+    @Param('kitchen') kitchen: string,
+    @Param('code') code: string,
+    @Req() request: FastifyRequest,
+    @Res() reply: FastifyReply,
+  ) {
+    return send(reply, (await this.rate.take(request.ip)) ? await this.pages.page(code, kitchen) : tooManyPage());
   }
 }

@@ -90,7 +90,7 @@ export function signedInAs(role: Role, extra: ApiHandlers = {}): ApiHandlers {
     'GET /api/me': { body: PEOPLE[role] },
     'GET /api/kitchen': { body: KITCHEN },
     'GET /api/labels/settings': { body: LABEL_SETTINGS },
-    'GET /api/public-page/settings': { body: { enabled: false, baseUrl: null, updatedAt: null } },
+    'GET /api/public-page/settings': { body: { enabled: false, baseUrl: null, updatedAt: null, kitchen: null } },
     'POST /api/auth/sign-out': { status: 204 },
     ...extra,
   };

@@ -3,20 +3,22 @@ import { Cron } from '@nestjs/schedule';
 import { AuditService } from '../../audit/audit.service';
 import { Clock } from '../../common/clock';
 import { TransactionRunner } from '../../common/transaction';
+import { KitchenRolesRepository } from '../../kitchen/kitchen-roles.repository';
 import { KitchenService } from '../../kitchen/kitchen.service';
-import { SiteRepository } from '../../kitchen/site.repository';
+import { SiteRepository, type SiteRow } from '../../kitchen/site.repository';
 import { MailService } from '../../mail/mail.service';
 import { reviewsDueMail } from '../../mail/templates/reviews-due';
 import { SpecificationReviewRunsRepository, type ReviewRun } from './specification-review-runs.repository';
 import { SpecificationsService } from './specifications.service';
 
-/** Who is told each day of the specifications to review. */
+/** Who is told each day of the specifications to review: the kitchen's own pastry chefs and managers. */
 const TOLD = ['pastry-chef', 'manager'] as const;
 
 /**
- * Once a day, looks for supplier specifications overdue for review and due within 30 days
- * (counted on the kitchen's calendar), records what it found, and mails the list to the pastry
- * chefs and managers; a day already looked at is left as it is, so the mail goes once a day.
+ * Once a day, for every kitchen, looks for supplier specifications overdue for review and due
+ * within 30 days (counted on the kitchen's calendar; the specifications are the shared book's),
+ * records what it found for that kitchen, and mails the list to that kitchen's pastry chefs and
+ * managers; a kitchen's day already looked at is left as it is, so each kitchen's mail goes once a day.
  */
 @Injectable()
 export class SpecificationReviewsJob {
@@ -27,6 +29,7 @@ export class SpecificationReviewsJob {
     private readonly runs: SpecificationReviewRunsRepository,
     private readonly kitchen: KitchenService,
     private readonly sites: SiteRepository,
+    private readonly kitchenRoles: KitchenRolesRepository,
     private readonly mail: MailService,
     private readonly audit: AuditService,
     private readonly tx: TransactionRunner,
@@ -44,18 +47,25 @@ export class SpecificationReviewsJob {
   }
 
   /**
-   * The review of the day at `now`: the day's record, made now (`created`) or found from an
-   * earlier run that day. Null when there is no kitchen yet.
+   * The review of the day at `now` at every kitchen, the book's owner first: each kitchen's record
+   * of the day, made now (`created`) or found from an earlier run that day. None when there is no
+   * kitchen yet.
    */
-  async run(now = this.clock.now()): Promise<{ run: ReviewRun; created: boolean } | null> {
-    const site = await this.kitchen.find();
-    if (!site) return null;
+  async run(now = this.clock.now()): Promise<{ site: SiteRow; run: ReviewRun; created: boolean }[]> {
+    const kitchens = await this.kitchen.all();
+    if (kitchens.length === 0) return [];
     const found = await this.specifications.reviewsDue(now);
+    const done = [];
+    for (const site of kitchens) done.push({ site, ...(await this.runAt(site, found)) });
+    return done;
+  }
+
+  private runAt(site: SiteRow, found: Awaited<ReturnType<SpecificationsService['reviewsDue']>>) {
     return this.tx.run(async (t) => {
       await this.sites.lock(t);
       const earlier = await this.runs.findLocked(site.id, found.today, t);
       if (earlier) return { run: earlier, created: false };
-      const to = found.overdue.length + found.dueSoon.length > 0 ? await this.mail.addressesOf(TOLD, t) : [];
+      const to = found.overdue.length + found.dueSoon.length > 0 ? await this.kitchenRoles.activeEmailsAt(site.id, TOLD, t) : [];
       const mailId =
         to.length > 0 ? await this.mail.enqueue({ kind: 'reviews-due', to, ...reviewsDueMail({ kitchen: site.name, ...found }) }, t) : null;
       const run = await this.runs.add(site.id, { day: found.today, overdue: found.overdue, dueSoon: found.dueSoon, mailId }, t);

@@ -26,7 +26,7 @@ export function PublicPageForm({ settings }: { settings: PublicPageSettingsView 
   });
   const [enabled, baseUrl = ''] = useWatch({ control, name: ['enabled', 'baseUrl'] });
   const parsedUrl = publicBaseUrlSchema.safeParse(baseUrl);
-  const example = parsedUrl.success ? `${parsedUrl.data}${publicPagePath('lemon-tart')}` : null;
+  const example = parsedUrl.success ? `${parsedUrl.data}${publicPagePath('lemon-tart', settings.kitchen)}` : null;
 
   function handleSave(values: FormValues) {
     setSaved(null);

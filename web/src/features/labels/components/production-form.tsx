@@ -29,13 +29,13 @@ import { LabelPreview, RefusalList, type PreviewState } from './label-preview';
  */
 function usePublicBase() {
   const queryClient = useQueryClient();
-  return async (template: TemplateOption): Promise<{ base: string | null; readable: boolean }> => {
+  return async (template: TemplateOption): Promise<{ base: string | null; kitchen: string | null; readable: boolean }> => {
     const hasQr = template.blocks.some(
       (b) => b.type === 'qr' || (b.type === 'row' && b.columns.some((c) => c.blocks.some((x) => x.type === 'qr'))),
     );
-    if (!hasQr) return { base: null, readable: true };
+    if (!hasQr) return { base: null, kitchen: null, readable: true };
     const page = await queryClient.fetchQuery(getPublicPageSettingsQueryOptions()).catch(() => null);
-    return { base: page?.enabled ? page.baseUrl : null, readable: page !== null };
+    return { base: page?.enabled ? page.baseUrl : null, kitchen: page?.kitchen ?? null, readable: page !== null };
   };
 }
 
@@ -111,7 +111,7 @@ export function ProductionForm({ products, templates, settings, kitchen, draft, 
       return;
     }
     const publicBase = await publicBaseFor(template);
-    const plan = previewPlan(request, products, settings, publicBase.base);
+    const plan = previewPlan(request, products, settings, publicBase.base, publicBase.kitchen);
     if (!publicBase.readable)
       plan.notes.push('QR codes to the public product page are not shown: its settings could not be read. The print carries them.');
     if (plan.blocked) {

@@ -79,13 +79,15 @@ export interface PreviewPlan {
  * the preview shows the first of the day, and the print takes the next free number. Shipment
  * labels show SSCCs from serial 0; the print takes the next serials of the kitchen's counter.
  * `publicBase` is the public product page's address while the page is on: a published product's
- * label then carries its page's address, as the print does.
+ * label then carries its page's address, as the print does (with `publicKitchen`, the kitchen's
+ * part of it where the installation has several).
  */
 export function previewPlan(
   request: LabelRunRequest,
   products: readonly RecipeView[],
   settings: LabelSettings,
   publicBase: string | null = null,
+  publicKitchen: string | null = null,
 ): PreviewPlan {
   const byId = new Map(products.map((p) => [p.id, p]));
   const notes: string[] = [];
@@ -116,7 +118,9 @@ export function previewPlan(
         productionDate: request.productionDate,
         quantity: item.quantity,
         revision: item.revision ?? product.revision,
-        ...(publicBase !== null && product.sale?.published === true ? { publicUrl: publicPageUrl(publicBase, product.id) } : {}),
+        ...(publicBase !== null && product.sale?.published === true
+          ? { publicUrl: publicPageUrl(publicBase, product.id, publicKitchen) }
+          : {}),
         ...(request.shipment && settings.gs1CompanyPrefix !== null
           ? {
               sscc: Array.from({ length: item.quantity }, (_, n) => sscc(settings.ssccExtension, settings.gs1CompanyPrefix!, n)),
