@@ -16,7 +16,7 @@ interface Answer {
 async function call(base: string, method: string, path: string, cookie: string, payload?: unknown): Promise<Answer> {
   const res = await fetch(`${base}${path}`, {
     method,
-    headers: { cookie, ...(payload === undefined ? {} : { 'content-type': 'application/json' }) },
+    headers: { cookie, ...kitchen, ...(payload === undefined ? {} : { 'content-type': 'application/json' }) },
     body: payload === undefined ? undefined : JSON.stringify(payload),
     signal: AbortSignal.timeout(30_000),
   });
@@ -30,6 +30,9 @@ async function call(base: string, method: string, path: string, cookie: string, 
   return { status: res.status, body };
 }
 
+/** The demo manager works in both its kitchens: every request names the first (the bakehouse), set at sign-in. */
+let kitchen: Record<string, string> = {};
+
 /** The demo manager's session on one instance (every instance reads sessions from the database). */
 async function signIn(base: string): Promise<string> {
   const res = await fetch(`${base}/api/auth/sign-in`, {
@@ -38,10 +41,13 @@ async function signIn(base: string): Promise<string> {
     body: JSON.stringify({ email: 'manager@example.com', password: 'crumbproof-demo' }),
   });
   expect(res.status).toBe(200);
-  return res.headers
+  const cookie = res.headers
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
+  const me = (await (await fetch(`${base}/api/me`, { headers: { cookie } })).json()) as { kitchens: { id: number }[] };
+  kitchen = { 'x-crumbproof-kitchen': String(me.kitchens[0].id) };
+  return cookie;
 }
 
 let onA = '';
@@ -137,7 +143,10 @@ describe('checked writes at once through both instances', () => {
 /** The counter's events stream of one instance, its text read as it arrives, until `close`. */
 async function openEvents(base: string, cookie: string) {
   const controller = new AbortController();
-  const res = await fetch(`${base}/api/counter/events`, { headers: { cookie, accept: 'text/event-stream' }, signal: controller.signal });
+  const res = await fetch(`${base}/api/counter/events`, {
+    headers: { cookie, ...kitchen, accept: 'text/event-stream' },
+    signal: controller.signal,
+  });
   expect(res.status).toBe(200);
   const reader = res.body!.getReader();
   const decoder = new TextDecoder();

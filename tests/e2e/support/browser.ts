@@ -42,12 +42,32 @@ export async function openBrowser(width = 1280, height = 900): Promise<Session> 
   };
 }
 
-export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+/** The demo's kitchens (api/src/database/seeders/demo-chain-book.json), as the app names them. */
+export const BAKEHOUSE = 'Wrenfield Lane Bakehouse';
+export const CAFE = 'Saltmarsh Yard Café';
+/** The kitchen and role HTTP header (shared KITCHEN_HEADER). */
+const KITCHEN_HEADER = 'x-crumbproof-kitchen';
+
+/**
+ * Signs in; a person of several kitchens then chooses `kitchen` on "Which kitchen are you working
+ * in?" (Wrenfield Lane Bakehouse unless told, the kitchen of the tests written for one). The
+ * test's own requests through `page.request` name that kitchen too, as the app's do.
+ */
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD, kitchen = BAKEHOUSE) {
   await page.goto(`${BASE_URL}/sign-in`);
   await page.getByLabel('Email').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('navigation', { name: 'Main' }).waitFor();
+  const shell = page.getByRole('navigation', { name: 'Main' });
+  const choice = page.getByRole('heading', { name: 'Which kitchen are you working in?' });
+  await shell.or(choice).first().waitFor();
+  if (!(await choice.isVisible())) return;
+  await page.getByRole('button', { name: kitchen }).click();
+  await shell.waitFor();
+  const me = (await (await page.request.get(`${BASE_URL}/api/me`)).json()) as { kitchens: { id: number; name: string }[] };
+  const chosen = me.kitchens.find((k) => k.name === kitchen);
+  if (!chosen) throw new Error(`${email} has no role at ${kitchen}.`);
+  await page.context().setExtraHTTPHeaders({ [KITCHEN_HEADER]: String(chosen.id) });
 }
 
 export async function screenshot(page: Page, name: string) {
