@@ -94,6 +94,13 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
     // Annex II point 1), the US wheat (Food Allergen Labeling and Consumer Protection Act of 2004, section 201(qq)).
     expect(bench.contains.map((c) => c.allergen).sort()).toEqual(['gluten', 'milk']);
     expect(corner.contains.map((c) => c.allergen).sort()).toEqual(['milk', 'wheat']);
+    // Each says which kitchen it answers for, and what stood in for what there.
+    expect(bench.basis.kitchen).toEqual({ id: kitchen.bench, name: 'Test bench' });
+    expect(corner.basis.kitchen).toEqual({ id: kitchen.corner, name: 'Corner Shop' });
+    expect(bench.basis.standIns).toBeUndefined();
+    expect(corner.basis.standIns).toEqual([
+      expect.objectContaining({ recipe: 'shortbread', replaces: 'flour', with: 'corner-flour', note: 'Milled next door' }),
+    ]);
     // Each is kept apart: two stored declarations of the one recipe revision.
     const [{ n }] = await t.sequelize.query<{ n: number }>(
       "SELECT COUNT(DISTINCT d.input_hash) AS n FROM declarations d JOIN recipes r ON r.id = d.recipe_id WHERE r.code = 'shortbread'",

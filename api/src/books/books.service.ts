@@ -191,7 +191,8 @@ export class BooksService {
    * with the current revision of every item, and the whole book.
    */
   async state(t?: Transaction): Promise<KitchenState> {
-    return this.stateAt(await this.kitchen.current(t), t);
+    const sites = await this.sites.all(t);
+    return this.stateOf(this.kitchen.pick(sites), sites, t);
   }
 
   /** One kitchen as it stands now, as state gives the request's. */
@@ -199,6 +200,10 @@ export class BooksService {
     const sites = await this.sites.all(t);
     const site = sites.find((s) => s.id === kitchen.id);
     if (!site) throw new AppError('not-found', `The kitchen ${kitchen.name} is no longer set up.`);
+    return this.stateOf(site, sites, t);
+  }
+
+  private async stateOf(site: SiteRow, sites: SiteRow[], t?: Transaction): Promise<KitchenState> {
     // Inside a write, always as the transaction sees it.
     if (t) return this.read(site, sites, t);
     // Outside one, the copy read last serves while the site rows' versions are those it was read
