@@ -1,7 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
+import { BASE_URL, openBrowser, screenshot, sellAtBakehouse, signIn, type Session } from './support/browser';
 
 const GLAZE = 'approval-glaze';
 const BUN = 'approval-glazed-bun';
@@ -52,6 +52,7 @@ describe('a change that adds egg waits for the manager’s approval before its l
       },
     });
     expect(bun.status(), await bun.text()).toBe(201);
+    await sellAtBakehouse(BUN);
     // Its first approval, as the manager gives it.
     const list = (await (await manager.page.request.get(`${BASE_URL}/api/approvals`)).json()) as {
       pending: { product: string; inputHash: string }[];

@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, openBrowser, screenshot, signIn, type Session } from './support/browser';
+import { BASE_URL, openBrowser, screenshot, sellAtBakehouse, signIn, type Session } from './support/browser';
 import { pickItem as pick } from './support/recipe-editor';
 
 const FIXTURES = join(new URL('../fixtures', import.meta.url).pathname);
@@ -100,6 +100,8 @@ describe('the pastry chef’s workbench, in Chromium', () => {
 
   it('runs a swap check that turns the product vegan, applies it and sees the new revision', async () => {
     const page = s.page;
+    // The swap check names the products on sale that it reaches: the new cup is put on sale at the bakehouse.
+    await sellAtBakehouse('vanilla-cream-cup');
     await page.goto(`${BASE_URL}/recipes/swap`);
     await page.getByRole('heading', { name: 'Swap check', level: 1 }).waitFor();
     await pick(page, 'Replace', 'Double cream');
@@ -117,6 +119,8 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await page.goto(`${BASE_URL}/recipes/swap`);
     await pick(page, 'Replace', 'Double cream');
     await pick(page, 'With', 'Oat cream alternative');
+    // Applied to the cup's filling alone, so the demo's own products stay as they are for the other tests.
+    await page.getByLabel('Where', { exact: true }).selectOption({ label: 'Vanilla cream filling' });
     await page.getByRole('button', { name: 'Check the swap' }).click();
     await page.getByRole('region', { name: 'Swap result' }).getByRole('heading', { name: 'Vanilla cream cup' }).waitFor();
     await page.getByRole('button', { name: 'Apply swap' }).click();
@@ -184,21 +188,21 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await screenshot(page, 'import-preview-1280');
     await page.getByRole('button', { name: 'Import 3 ingredients: 3 new, 0 revised' }).click();
     await page.getByText(/Imported 3 ingredients: 3 added, 0 updated/).waitFor();
-    await page.goto(`${BASE_URL}/ingredients/oat-drink`);
-    await page.getByRole('heading', { name: 'Oat drink', level: 1 }).waitFor();
+    await page.goto(`${BASE_URL}/ingredients/hillfold-oat-drink`);
+    await page.getByRole('heading', { name: 'Hillfold oat drink', level: 1 }).waitFor();
   });
 
   it('refuses a save from a revision someone else has replaced, shows who changed what, and saves over it only when asked', async () => {
     const page = s.page;
-    await page.goto(`${BASE_URL}/ingredients/oat-drink`);
-    await page.getByRole('heading', { name: 'Oat drink', level: 1 }).waitFor();
+    await page.goto(`${BASE_URL}/ingredients/hillfold-oat-drink`);
+    await page.getByRole('heading', { name: 'Hillfold oat drink', level: 1 }).waitFor();
     // The manager saves the oat drink from another browser while the chef has it open.
     const other = await openBrowser();
     try {
       await signIn(other.page, 'manager@example.com');
       const status = await other.page.evaluate(async () => {
-        const { revision, updatedAt: _u, ...body } = await (await fetch('/api/ingredients/oat-drink')).json();
-        const res = await fetch('/api/ingredients/oat-drink', {
+        const { revision, updatedAt: _u, ...body } = await (await fetch('/api/ingredients/hillfold-oat-drink')).json();
+        const res = await fetch('/api/ingredients/hillfold-oat-drink', {
           method: 'PUT',
           headers: { 'Content-Type': 'application/json' },
           body: JSON.stringify({ ...body, supplierCode: 'HF-OAT-2', baseRevision: revision }),
@@ -217,7 +221,7 @@ describe('the pastry chef’s workbench, in Chromium', () => {
     await screenshot(page, 'stale-save-1280');
     await panel.getByRole('button', { name: 'Save my values over theirs' }).click();
     await page.getByText('Saved. This is revision 3.').waitFor();
-    const saved = await page.evaluate(async () => (await fetch('/api/ingredients/oat-drink')).json());
+    const saved = await page.evaluate(async () => (await fetch('/api/ingredients/hillfold-oat-drink')).json());
     expect(saved).toMatchObject({ revision: 3, supplier: 'Hillfold Dairy-free' });
   });
 
