@@ -10,13 +10,14 @@ import { reviewsDueMail } from '../../mail/templates/reviews-due';
 import { SpecificationReviewRunsRepository, type ReviewRun } from './specification-review-runs.repository';
 import { SpecificationsService } from './specifications.service';
 
-/** Who is told each day of the specifications to review. */
+/** Who is told each day of the specifications to review: these roles at any kitchen. */
 const TOLD = ['pastry-chef', 'manager'] as const;
 
 /**
  * Once a day, looks for supplier specifications overdue for review and due within 30 days
  * (counted on the kitchen's calendar), records what it found, and mails the list to the pastry
- * chefs and managers; a day already looked at is left as it is, so the mail goes once a day.
+ * chefs and managers of every kitchen (the library is shared); a day already looked at is left as
+ * it is, so the mail goes once a day.
  */
 @Injectable()
 export class SpecificationReviewsJob {
@@ -55,7 +56,9 @@ export class SpecificationReviewsJob {
       await this.sites.lock(t);
       const earlier = await this.runs.findLocked(site.id, found.today, t);
       if (earlier) return { run: earlier, created: false };
-      const to = found.overdue.length + found.dueSoon.length > 0 ? await this.mail.addressesOf(TOLD, t) : [];
+      // The ingredient library is every kitchen's: the pastry chefs and managers of each are told.
+      const kitchens = (await this.sites.all(t)).map((s) => s.id);
+      const to = found.overdue.length + found.dueSoon.length > 0 ? await this.mail.addressesOf(TOLD, kitchens, t) : [];
       const mailId =
         to.length > 0 ? await this.mail.enqueue({ kind: 'reviews-due', to, ...reviewsDueMail({ kitchen: site.name, ...found }) }, t) : null;
       const run = await this.runs.add(site.id, { day: found.today, overdue: found.overdue, dueSoon: found.dueSoon, mailId }, t);
