@@ -382,6 +382,16 @@ const CASES: WriteCase[] = [
     refused: () => send('PATCH', '/api/users/999999', manager, { name: 'Nobody' }),
   },
   {
+    // The new person leaves this kitchen; their account stays.
+    route: 'DELETE /api/users/:id/kitchen',
+    call: () => send('DELETE', `/api/users/${newUserId}/kitchen`, manager),
+    status: 200,
+    actor: 'manager',
+    action: 'user.taken-off-kitchen',
+    record: ['user', /^\d+$/],
+    refused: () => send('DELETE', '/api/users/999999/kitchen', manager),
+  },
+  {
     route: 'POST /api/ingredients/:code/specifications',
     call: () =>
       sendForm('/api/ingredients/butter/specifications', chef, { reviewBy }, { name: 'spec.pdf', bytes: fixture('almond-paste-spec.pdf') }),

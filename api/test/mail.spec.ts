@@ -94,9 +94,34 @@ describe('the outbox', () => {
     await expect(mail.enqueue({ kind: 'note', to: ['not an address'], subject: 'x', text: 'x', html: 'x' })).rejects.toThrow();
   });
 
-  it('finds the addresses of active users by role', async () => {
-    expect(await mail.addressesOf(['manager', 'pastry-chef'])).toEqual(['chef@example.com', 'manager@example.com']);
-    expect(await mail.addressesOf([])).toEqual([]);
+  it('finds the addresses of the active people with a role at the kitchens named', async () => {
+    const one = <T extends object>(sql: string, replacements: unknown[] = []) =>
+      t.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT }).then((rows) => rows[0]);
+    const { id: bakehouse } = await one<{ id: number }>('SELECT id FROM sites ORDER BY id LIMIT 1');
+    expect(await mail.addressesOf(['manager', 'pastry-chef'], bakehouse)).toEqual(['chef@example.com', 'manager@example.com']);
+    expect(await mail.addressesOf([], bakehouse)).toEqual([]);
+    // A second kitchen where the pastry chef is the manager and nobody else works.
+    await t.sequelize.query(
+      `INSERT INTO sites (code, name, address, regime, measures, handles, created_at, updated_at)
+       SELECT 'mail-corner', 'Corner Shop', '', regime, measures, handles, NOW(), NOW() FROM sites WHERE id = ?`,
+      { replacements: [bakehouse] },
+    );
+    const { id: corner } = await one<{ id: number }>("SELECT id FROM sites WHERE code = 'mail-corner'");
+    const { id: chef } = await one<{ id: number }>("SELECT id FROM users WHERE email = 'chef@example.com'");
+    await t.sequelize.query("INSERT INTO kitchen_roles (user_id, site_id, role) VALUES (?, ?, 'manager')", {
+      replacements: [chef, corner],
+    });
+    try {
+      expect(await mail.addressesOf(['manager'], corner)).toEqual(['chef@example.com']);
+      expect(await mail.addressesOf(['manager'], bakehouse)).toEqual(['manager@example.com']);
+      expect(await mail.addressesOf(['front-of-house'], corner)).toEqual([]);
+      expect(await mail.addressesOf(['manager'], [bakehouse, corner])).toEqual(['chef@example.com', 'manager@example.com']);
+      await t.sequelize.query('UPDATE users SET active = FALSE WHERE id = ?', { replacements: [chef] });
+      expect(await mail.addressesOf(['manager'], corner)).toEqual([]);
+    } finally {
+      await t.sequelize.query('UPDATE users SET active = TRUE WHERE id = ?', { replacements: [chef] });
+      await t.sequelize.query('DELETE FROM sites WHERE id = ?', { replacements: [corner] });
+    }
   });
 
   it('tries again after 1, 5, 15 and 60 minutes while the server is down, keeps it as not sent after the 5th, and sends it when the manager sends it again', async () => {

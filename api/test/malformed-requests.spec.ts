@@ -784,7 +784,12 @@ const CORPUS: MalformedRequest[] = [
       ],
       ['an email that is not one', user({ email: 'not-an-email' }), 400, /^email: Enter an email address/m],
       ['an email that looks like SQL', user({ email: "' OR 1=1 --" }), 400, /^email: Enter an email address/m],
-      ['an email that exists', user({ email: 'chef@example.com' }), 409, /A user with that email already exists/],
+      [
+        'an email already at this kitchen',
+        user({ email: 'chef@example.com' }),
+        409,
+        /^Tobiah Quill \(chef@example.com\) already works at Wrenfield Lane Bakehouse, as pastry chef\./,
+      ],
       ['a name with a lone surrogate', user({ name: 'Corpus \ud83c' }), 400, /^name: This text has a broken character/m],
       ['a name of 121 characters', user({ name: 'n'.repeat(121) }), 400, /^name: Keep this to 120 characters/m],
       ['an unknown role', user({ role: 'admin' }), 400, /^role: /m],
@@ -827,10 +832,10 @@ const CORPUS: MalformedRequest[] = [
         /^email: Use an email address of at most 254 characters/m,
       ],
       [
-        'an email that exists',
+        'an email already at this kitchen',
         { email: 'chef@example.com', name: 'Corpus', role: 'pastry-chef' },
         409,
-        /A user with that email already exists/,
+        /^Tobiah Quill \(chef@example.com\) already works at Wrenfield Lane Bakehouse, as pastry chef\./,
       ],
       ['no name', { email: 'corpus-invite@example.com', role: 'pastry-chef' }, 400, /^name: /m],
       [
@@ -869,6 +874,16 @@ const CORPUS: MalformedRequest[] = [
       ['a user who has chosen a password', '/api/users/2/invitation', 409, /has chosen a password already/],
     ] as const
   ).map(([what, url, status, names]) => ({ what, method: 'POST' as const, url, send: () => json({}), status, names })),
+
+  // Taking someone off this kitchen: DELETE /api/users/:id/kitchen
+  ...(
+    [
+      ['a user that does not exist', '/api/users/999999/kitchen', 404, /There is no user 999999 at this kitchen/],
+      ['a user id that is not a number', '/api/users/abc/kitchen', 400, /numeric/],
+      ['a user id that looks like SQL', `/api/users/${encodeURIComponent('2 OR 1=1')}/kitchen`, 400, /numeric/],
+      ['the manager themselves', '/api/users/1/kitchen', 409, /You cannot take yourself off/],
+    ] as const
+  ).map(([what, url, status, names]) => ({ what, method: 'DELETE' as const, url, send: nothing, status, names })),
 
   // Forgot your password, and the mailed links
   ...(

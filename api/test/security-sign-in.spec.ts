@@ -7,6 +7,7 @@ import { parseConfig } from '../src/config/config';
 import { checkPassword, commonPasswordProblem } from '../src/users/password';
 import { startAppWith } from './support/app-with-settings';
 import { startTestApp, type TestApp } from './support/test-app';
+import { TWO_KITCHENS_BOOK } from './support/two-kitchens';
 
 const DEMO = 'crumbproof-demo';
 /** 72 bytes, the most bcrypt reads. */
@@ -261,6 +262,37 @@ describe('demo mode and a kitchen’s own installation', () => {
       expect(typeof (await own.issueFirstManagerLink())).toBe('string');
     } finally {
       await own.close();
+    }
+  }, 120_000);
+
+  it('offers the link while one kitchen has no manager who can sign in, and makes its manager that kitchen’s only', async () => {
+    const s = await startAppWith({ DEMO_KITCHEN: 'false' }, { database: `${base}_d` });
+    try {
+      const password = 'two-kitchens-owner-4';
+      await s.sequelize.query(
+        "INSERT INTO users (email, name, role, password_hash, active, created_at, updated_at) VALUES ('owner@example.com', 'Owner', 'manager', ?, TRUE, NOW(), NOW())",
+        { replacements: [bcrypt.hashSync(password, 4)] },
+      );
+      const signIn = await s.app.inject({ method: 'POST', url: '/api/auth/sign-in', payload: { email: 'owner@example.com', password } });
+      const cookie = `cp_session=${signIn.cookies.find((c) => c.name === 'cp_session')!.value}`;
+      const imported = await s.app.inject({ method: 'POST', url: '/api/book/import', payload: TWO_KITCHENS_BOOK, headers: { cookie } });
+      expect(imported.statusCode).toBe(200);
+      // The importing manager manages both kitchens: no link.
+      expect(await s.issueFirstManagerLink()).toBeNull();
+      // Corner Shop left without a manager (as a restored installation may be): a link is printed.
+      await s.sequelize.query("UPDATE kitchen_roles SET role = 'pastry-chef' WHERE site_id = (SELECT id FROM sites WHERE code = 'corner')");
+      const token = (await s.issueFirstManagerLink())!;
+      expect(typeof token).toBe('string');
+      const set = await s.app.inject({
+        method: 'POST',
+        url: '/api/auth/first-manager',
+        payload: { token, email: 'corner@example.com', name: 'Corner Manager', password: 'corner-shop-keys-31' },
+      });
+      expect(set.statusCode).toBe(201);
+      expect(set.json().kitchens).toEqual([{ id: expect.any(Number), code: 'corner', name: 'Corner Shop', role: 'manager' }]);
+      expect(await s.issueFirstManagerLink()).toBeNull();
+    } finally {
+      await s.close();
     }
   }, 120_000);
 });

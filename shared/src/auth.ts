@@ -117,8 +117,36 @@ export const userSchema = z.object({
   active: z.boolean(),
   invitationPending: z.boolean(),
   createdAt: z.string(),
+  /**
+   * How many other kitchens the person works in. Their password and whether their account is
+   * active are the account's, for every kitchen: only a manager at each of them may change those.
+   */
+  elsewhere: z.number().int().min(0).optional(),
 });
 export type User = z.infer<typeof userSchema>;
+
+/**
+ * The answer to adding someone (POST /api/users, POST /api/users/invitations): `created`, a new
+ * account; `added`, an account that already works at another kitchen, given the role at this one
+ * (it keeps its name and password, and no invitation is sent). `message` says which, in words.
+ */
+export const userAddedSchema = userSchema.extend({
+  outcome: z.enum(['created', 'added']),
+  message: z.string(),
+});
+export type UserAdded = z.infer<typeof userAddedSchema>;
+
+/**
+ * The answer to taking someone off the request's kitchen (DELETE /api/users/:id/kitchen): their
+ * account stays, with their roles at other kitchens; `elsewhere` counts those.
+ */
+export const takenOffKitchenSchema = z.object({
+  id: z.number().int(),
+  kitchen: z.number().int(),
+  elsewhere: z.number().int().min(0),
+  message: z.string(),
+});
+export type TakenOffKitchen = z.infer<typeof takenOffKitchenSchema>;
 
 /** Sets the first manager of a kitchen's own installation, with the one-time link printed at its first start. */
 export const firstManagerSchema = z.strictObject({

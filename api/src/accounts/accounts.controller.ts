@@ -13,6 +13,7 @@ import {
   type PasswordResetRequest,
   type SetPasswordRequest,
   type User,
+  type UserAdded,
 } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Public, Roles } from '../common/roles.decorator';
@@ -27,16 +28,22 @@ export class AccountsController {
   @Post('users/invitations')
   @Roles(['manager'])
   @HttpCode(201)
-  @ApiOperation({ summary: 'Invite a user by name, email and role: they get a mail with a link to choose their password (manager)' })
+  @ApiOperation({
+    summary:
+      'Invite a person by name, email and role at the request’s kitchen: they get a mail with a link to choose their password, or, with an account of another kitchen already, the role here and no mail (manager)',
+  })
   @ApiZodBody(inviteUserSchema)
-  invite(@CurrentUser() actor: AuthUser, @Body(new ZodPipe(inviteUserSchema)) body: InviteUserRequest): Promise<User> {
+  invite(@CurrentUser() actor: AuthUser, @Body(new ZodPipe(inviteUserSchema)) body: InviteUserRequest): Promise<UserAdded> {
     return this.accounts.invite(actor, body);
   }
 
   @Post('users/:id/invitation')
   @Roles(['manager'])
   @HttpCode(200)
-  @ApiOperation({ summary: 'Send an invitation again to a user who has not chosen a password; the earlier link stops working (manager)' })
+  @ApiOperation({
+    summary:
+      'Send an invitation again to a person of the request’s kitchen who has not chosen a password; the earlier link stops working (manager)',
+  })
   resend(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<User> {
     return this.accounts.resendInvitation(actor, id);
   }

@@ -8,8 +8,10 @@ import type {
   InviteUserRequest,
   PasswordResetAnswer,
   PasswordResetRequest,
+  Role,
   SetPasswordRequest,
   User,
+  UserAdded,
 } from '@crumbproof/shared';
 import { AuditService } from '../audit/audit.service';
 import { SessionsRepository } from '../auth/sessions.repository';
@@ -27,6 +29,7 @@ import { invitationMail, passwordResetMail } from '../mail/templates/account-lin
 import { hashPassword, refuseCommonPassword } from '../users/password';
 import type { UserModel } from '../users/user.model';
 import { toUser, UsersRepository } from '../users/users.repository';
+import { UsersService } from '../users/users.service';
 import { AccountLinksRepository, type AccountLinkRow } from './account-links.repository';
 
 /** How long a mailed link works. */
@@ -77,40 +80,49 @@ export class AccountsService {
     private readonly clock: Clock,
     private readonly kitchen: KitchenService,
     private readonly kitchenRoles: KitchenRolesRepository,
+    private readonly people: UsersService,
   ) {}
 
-  /** Adds a user with no password and queues their invitation, in one transaction. */
-  async invite(actor: AuthUser, req: InviteUserRequest): Promise<User> {
-    if (await this.users.findByEmail(req.email)) {
-      throw new AppError('conflict', 'A user with that email already exists.', [
-        { path: 'email', message: 'A user with that email already exists.' },
-      ]);
-    }
+  /**
+   * Adds a user with no password at the request's kitchen and queues their invitation, in one
+   * transaction. An address that already has an account is given the role at this kitchen
+   * instead, with no invitation (UsersService.addExisting).
+   */
+  async invite(actor: AuthUser, req: InviteUserRequest): Promise<UserAdded> {
+    const existing = await this.users.findByEmail(req.email);
+    if (existing) return this.people.addExisting(existing, req.role);
     return this.tx.run(async (t) => {
       const row = await this.users.create({ email: req.email, name: req.name, role: req.role, passwordHash: null }, t);
       // Invited to the kitchen the manager invites them at, in the role given.
       const site = await this.kitchen.find(t);
       if (site) await this.kitchenRoles.set(row.id, site.id, req.role, t);
-      const user = toUser(row);
+      const user = toUser(row, { role: req.role, elsewhere: 0 });
       const expiresAt = await this.sendLink(row, 'invitation', actor.name, t);
       await this.audit.record(
         {
           action: 'user.invited',
           record: { kind: 'user', id: user.id },
-          summary: `Invited ${user.name} (${user.email}) as ${user.role}; the invitation link works until ${expiresAt.toISOString()}.`,
+          summary: `Invited ${user.name} (${user.email}) as ${user.role}${site ? ` at ${site.name}` : ''}; the invitation link works until ${expiresAt.toISOString()}.`,
           before: null,
           after: user,
         },
         t,
       );
-      return user;
+      return {
+        ...user,
+        outcome: 'created',
+        message: `${user.name} was invited: a link to choose a password is on its way to ${user.email}.`,
+      };
     });
   }
 
-  /** A new invitation for a user who has not chosen a password yet; the earlier link stops working. */
+  /** A new invitation for a person of the request's kitchen who has not chosen a password yet; the earlier link stops working. */
   async resendInvitation(actor: AuthUser, id: number): Promise<User> {
     return this.tx.run(async (t) => {
       const row = await this.users.findById(id, t);
+      const site = await this.kitchen.find(t);
+      const role = row && site ? await this.kitchenRoles.roleAt(row.id, site.id, t) : null;
+      if (site && !role) throw new AppError('not-found', `There is no user ${id} at this kitchen (${site.name}).`);
       if (!row) throw new AppError('not-found', `There is no user ${id}.`);
       if (!row.active) throw new AppError('conflict', `${row.name} is deactivated: make them active first.`);
       if (row.passwordHash !== null) {
@@ -119,7 +131,7 @@ export class AccountsService {
           `${row.name} has chosen a password already. If they have forgotten it, they can use “Forgot your password?” on the sign-in page.`,
         );
       }
-      const expiresAt = await this.sendLink(row, 'invitation', actor.name, t);
+      const expiresAt = await this.sendLink(row, 'invitation', actor.name, t, role ?? row.role);
       await this.audit.record(
         {
           action: 'invitation.resent',
@@ -128,7 +140,7 @@ export class AccountsService {
         },
         t,
       );
-      return toUser(row);
+      return toUser(row, role ? { role, elsewhere: (await this.kitchenRoles.ofUser(row.id, t)).length - 1 } : undefined);
     });
   }
 
@@ -243,20 +255,21 @@ export class AccountsService {
     return 'usable';
   }
 
-  /** A new link of this purpose for the user (earlier ones void) and its mail, queued in `t`. */
-  private async sendLink(user: UserModel, purpose: AccountLinkPurpose, invitedBy: string | null, t: Transaction) {
+  /** A new link of this purpose for the user (earlier ones void) and its mail, queued in `t`; an invitation names their role at the kitchen. */
+  private async sendLink(user: UserModel, purpose: AccountLinkPurpose, invitedBy: string | null, t: Transaction, role: Role = user.role) {
     const token = randomBytes(32).toString('base64url');
     const now = this.clock.now();
     const expiresAt = new Date(now.getTime() + LINK_MINUTES[purpose] * 60_000);
     await this.links.replace(user.id, purpose, sha256(token), expiresAt, now, t);
-    const kitchen = (await this.sites.first(t))?.name ?? 'your kitchen';
+    // An invitation names the kitchen it is to; a reset, asked for outside any kitchen, the book's owner.
+    const kitchen = (await (purpose === 'invitation' ? this.kitchen.find(t) : this.sites.first(t)))?.name ?? 'your kitchen';
     const url = `${appAddress(this.config)}/set-password#token=${token}`;
     const body =
       purpose === 'invitation'
         ? invitationMail({
             kitchen,
             name: user.name,
-            role: user.role,
+            role,
             invitedBy: invitedBy ?? 'A manager',
             url,
             validMinutes: LINK_MINUTES[purpose],

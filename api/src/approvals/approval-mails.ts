@@ -2,9 +2,10 @@ import { Injectable, Logger, type OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { ROLES, addedName, addsAllergen, declaredChangeInWords, declarationInWords } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
-import { BooksService, type KitchenWritten } from '../books/books.service';
+import { BooksService, type KitchenState, type KitchenWritten } from '../books/books.service';
 import { currentRequest } from '../common/request-context';
 import { appAddress, type AppConfig } from '../config/config';
+import type { SiteRow } from '../kitchen/site.repository';
 import { MailService } from '../mail/mail.service';
 import { renderMail, type RenderedMail } from '../mail/templates/layout';
 import { recipesAbove } from '../rules/core/book-graph';
@@ -33,7 +34,7 @@ export function approvalNeededMail(m: { kitchen: string; by: string; products: M
   });
 }
 
-/** To every active user, front of house too: an approved change adds an allergen to products. */
+/** To everyone active at the kitchen, front of house too: an approved change adds an allergen to products. */
 export function allergenApprovedMail(m: {
   kitchen: string;
   by: string;
@@ -57,9 +58,9 @@ export function allergenApprovedMail(m: {
 }
 
 /**
- * The approvals' mail: "approval needed" to the managers after a write (BooksService's listener)
- * that leaves products waiting, and "an approved change adds an allergen" to every active user
- * with the approval, in its transaction.
+ * The approvals' mail: "approval needed" to the managers of each kitchen where a write
+ * (BooksService's listener) leaves products waiting, and "an approved change adds an allergen" to
+ * everyone active at the kitchen of the approval, in its transaction.
  */
 @Injectable()
 export class ApprovalMails implements OnModuleInit {
@@ -80,39 +81,53 @@ export class ApprovalMails implements OnModuleInit {
     });
   }
 
-  /** After a write is saved: one mail to the managers listing every product it reaches that now waits. */
+  /**
+   * After a write is saved: the items are shared by every kitchen, so each kitchen where the
+   * write leaves products waiting gets one mail, to its own managers, listing them.
+   */
   private async approvalNeeded(written: KitchenWritten, by: string): Promise<void> {
     try {
-      const state = await this.books.state();
-      const touched = new Set<string>(written.recipes);
-      for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(state.book, id)) touched.add(r);
-      const codes = state.book.recipes.filter((r) => r.sale && touched.has(r.id)).map((r) => r.id);
-      if (codes.length === 0) return;
-      const waiting = (await this.status.of(state, codes)).filter((s) => s.state !== 'approved');
-      if (waiting.length === 0) return;
-      const to = await this.mail.addressesOf(['manager']);
-      if (to.length === 0) return;
-      const body = approvalNeededMail({
-        kitchen: state.site.name,
-        by,
-        products: waiting.map(mailed),
-        url: `${appAddress(this.config)}/approvals`,
-      });
-      await this.mail.enqueue({ kind: 'approval-needed', to, ...body });
+      for (const state of await this.books.everyKitchen()) await this.approvalNeededAt(state, written, by);
     } catch (e) {
       // The write is saved; the Approvals page lists what waits whatever the mail.
       this.logger.warn(`Could not queue the approval-needed mail: ${String(e)}`);
     }
   }
 
-  /** With an approval, in its transaction: every active user is told of the products whose approved change adds an allergen. */
-  async allergenApproved(kitchen: string, by: string, approved: readonly ProductStatus[], t: Transaction): Promise<void> {
+  private async approvalNeededAt(state: KitchenState, written: KitchenWritten, by: string): Promise<void> {
+    const touched = new Set<string>(written.recipes);
+    for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(state.book, id)) touched.add(r);
+    const codes = state.book.recipes.filter((r) => r.sale && touched.has(r.id)).map((r) => r.id);
+    if (codes.length === 0) return;
+    const waiting = (await this.status.of(state, codes)).filter((s) => s.state !== 'approved');
+    if (waiting.length === 0) return;
+    const to = await this.mail.addressesOf(['manager'], state.site.id);
+    if (to.length === 0) return;
+    const body = approvalNeededMail({
+      kitchen: state.site.name,
+      by,
+      products: waiting.map(mailed),
+      url: `${appAddress(this.config)}/approvals`,
+    });
+    await this.mail.enqueue({ kind: 'approval-needed', to, ...body });
+  }
+
+  /**
+   * With an approval, in its transaction: everyone active at the kitchen it was given at is told
+   * of the products whose approved change adds an allergen.
+   */
+  async allergenApproved(
+    kitchen: Pick<SiteRow, 'id' | 'name'>,
+    by: string,
+    approved: readonly ProductStatus[],
+    t: Transaction,
+  ): Promise<void> {
     const adding = approved.filter((s) => s.change && s.change.added.length > 0);
     if (adding.length === 0) return;
-    const to = await this.mail.addressesOf(ROLES, t);
+    const to = await this.mail.addressesOf(ROLES, kitchen.id, t);
     if (to.length === 0) return;
     const body = allergenApprovedMail({
-      kitchen,
+      kitchen: kitchen.name,
       by,
       products: adding.map((s) => ({
         name: s.product.name,

@@ -179,7 +179,7 @@ export class ApprovalsService {
         t,
       );
       await this.mails.allergenApproved(
-        state.site.name,
+        state.site,
         user.name,
         out.map((o) => statuses.get(o.product)!),
         t,

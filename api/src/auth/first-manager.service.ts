@@ -42,9 +42,19 @@ export class FirstManagerService {
     return isDemoKitchen(this.config);
   }
 
-  /** Whether the kitchen still needs its first manager: not the demo, and no active manager who can sign in. */
+  /**
+   * Whether a first manager is still needed: not the demo, and no active manager who can sign in
+   * (before any kitchen is set up), or a kitchen with none (nobody could manage its people).
+   */
   async needed(transaction?: Transaction): Promise<boolean> {
-    return !this.demo && (await this.users.countManagersWhoCanSignIn(transaction)) === 0;
+    return !this.demo && (await this.kitchensWanting(transaction)) !== null;
+  }
+
+  /** The kitchens without a manager who can sign in ([] before any kitchen is set up and no such manager); null when none wants one. */
+  private async kitchensWanting(t?: Transaction): Promise<number[] | null> {
+    if ((await this.sites.first(t)) === null) return (await this.users.countManagersWhoCanSignIn(t)) === 0 ? [] : null;
+    const wanting = await this.kitchenRoles.kitchensWithoutManagerWhoCanSignIn(t);
+    return wanting.length > 0 ? wanting : null;
   }
 
   /** A new one-time link token, voiding earlier ones; null when the kitchen has its manager. */
@@ -67,7 +77,8 @@ export class FirstManagerService {
           'This link has been used, has expired or was replaced by a newer one. Restart Crumbproof to print a new link.',
         );
       }
-      if (!(await this.needed(t))) {
+      const wanting = this.demo ? null : await this.kitchensWanting(t);
+      if (wanting === null) {
         throw new AppError('conflict', 'This kitchen already has a manager who can sign in: sign in, or ask them to add you.');
       }
       if (await this.users.findByEmail(req.email, t)) {
@@ -87,8 +98,8 @@ export class FirstManagerService {
         },
         t,
       );
-      // A kitchen already set up (an installation restored without a manager who can sign in) is the first manager's.
-      for (const site of await this.sites.all(t)) await this.kitchenRoles.set(row.id, site.id, 'manager', t);
+      // The kitchens already set up with no manager who can sign in (an installation restored so) are the first manager's.
+      for (const siteId of wanting) await this.kitchenRoles.set(row.id, siteId, 'manager', t);
       this.logger.log(`The first manager, ${req.email}, was set with the one-time link.`);
       return meOf(row, await this.kitchenRoles.ofUser(row.id, t));
     });

@@ -23,17 +23,6 @@ export class KitchenRolesRepository {
     );
   }
 
-  /** The addresses of the active people holding one of `roles` at the kitchen, in order (one query). */
-  async activeEmailsAt(siteId: number, roles: readonly Role[], t?: Transaction): Promise<string[]> {
-    if (roles.length === 0) return [];
-    const rows = await this.roles.sequelize!.query<{ email: string }>(
-      `SELECT u.email AS email FROM kitchen_roles r JOIN users u ON u.id = r.user_id
-        WHERE r.site_id = :siteId AND r.role IN (:roles) AND u.active = 1 ORDER BY u.email`,
-      { replacements: { siteId, roles: [...roles] }, type: QueryTypes.SELECT, transaction: t },
-    );
-    return rows.map((r) => r.email);
-  }
-
   /** Each person's role at one kitchen, by user id. */
   async atKitchen(siteId: number, t?: Transaction): Promise<Map<number, Role>> {
     const rows = await this.roles.findAll({ where: { siteId }, transaction: t });
@@ -51,6 +40,53 @@ export class KitchenRolesRepository {
 
   async remove(userId: number, siteId: number, t?: Transaction): Promise<void> {
     await this.roles.destroy({ where: { userId, siteId }, transaction: t });
+  }
+
+  /** How many kitchens besides `siteId` each of the people works in, by user id (none: left out). */
+  async elsewhere(userIds: readonly number[], siteId: number, t?: Transaction): Promise<Map<number, number>> {
+    if (userIds.length === 0) return new Map();
+    const rows = await this.roles.sequelize!.query<{ userId: number; n: number | bigint }>(
+      `SELECT user_id AS userId, COUNT(*) AS n FROM kitchen_roles
+        WHERE user_id IN (:userIds) AND site_id <> :siteId GROUP BY user_id`,
+      { replacements: { userIds: [...userIds], siteId }, type: QueryTypes.SELECT, transaction: t },
+    );
+    return new Map(rows.map((r) => [r.userId, Number(r.n)]));
+  }
+
+  /** The active managers of one kitchen (the people of a deactivated account do not count). */
+  async countActiveManagersAt(siteId: number, t?: Transaction): Promise<number> {
+    const [row] = await this.roles.sequelize!.query<{ n: number | bigint }>(
+      `SELECT COUNT(*) AS n FROM kitchen_roles r JOIN users u ON u.id = r.user_id
+        WHERE r.site_id = :siteId AND r.role = 'manager' AND u.active = 1`,
+      { replacements: { siteId }, type: QueryTypes.SELECT, transaction: t },
+    );
+    return Number(row.n);
+  }
+
+  /**
+   * The kitchens with no active manager whose password is their own (not the demo kitchen's
+   * published one): nobody can sign in to manage them.
+   */
+  async kitchensWithoutManagerWhoCanSignIn(t?: Transaction): Promise<number[]> {
+    const rows = await this.roles.sequelize!.query<{ id: number }>(
+      `SELECT s.id AS id FROM sites s
+        WHERE NOT EXISTS (SELECT 1 FROM kitchen_roles r JOIN users u ON u.id = r.user_id
+                           WHERE r.site_id = s.id AND r.role = 'manager' AND u.active = 1 AND u.demo_password = 0)
+        ORDER BY s.id`,
+      { type: QueryTypes.SELECT, transaction: t },
+    );
+    return rows.map((r) => r.id);
+  }
+
+  /** The addresses of the active people with one of `roles` at any of the kitchens, each once, by address. */
+  async activeEmailsWithRolesAt(siteIds: readonly number[], roles: readonly Role[], t?: Transaction): Promise<string[]> {
+    if (siteIds.length === 0 || roles.length === 0) return [];
+    const rows = await this.roles.sequelize!.query<{ email: string }>(
+      `SELECT DISTINCT u.email AS email FROM kitchen_roles r JOIN users u ON u.id = r.user_id
+        WHERE r.site_id IN (:siteIds) AND r.role IN (:roles) AND u.active = 1 ORDER BY u.email`,
+      { replacements: { siteIds: [...siteIds], roles: [...roles] }, type: QueryTypes.SELECT, transaction: t },
+    );
+    return rows.map((r) => r.email);
   }
 
   /** A new kitchen's first people: every active person already on the installation, with the role they were created with. */

@@ -3,7 +3,6 @@ import { SequelizeModule } from '@nestjs/sequelize';
 import { AuditStoreModule } from '../audit/audit-store.module';
 import { TransactionRunner } from '../common/transaction';
 import { KitchenModule } from '../kitchen/kitchen.module';
-import { UsersModule } from '../users/users.module';
 import { MailController } from './mail.controller';
 import { MailOutboxModel } from './mail-outbox.model';
 import { MailOutboxRepository } from './mail-outbox.repository';
@@ -16,7 +15,7 @@ import { MailService } from './mail.service';
  * transaction, with a body from a template in mail/templates/.
  */
 @Module({
-  imports: [SequelizeModule.forFeature([MailOutboxModel]), AuditStoreModule, KitchenModule, UsersModule],
+  imports: [SequelizeModule.forFeature([MailOutboxModel]), AuditStoreModule, KitchenModule],
   controllers: [MailController],
   providers: [MailService, MailSender, MailOutboxRepository, TransactionRunner],
   exports: [MailService],

@@ -5,7 +5,7 @@ import { AuditService } from '../audit/audit.service';
 import { AppError } from '../common/app-error';
 import { Clock } from '../common/clock';
 import { TransactionRunner } from '../common/transaction';
-import { UsersRepository } from '../users/users.repository';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
 import { MailOutboxRepository } from './mail-outbox.repository';
 import { MAX_ATTEMPTS, MailSender } from './mail-sender.service';
 
@@ -32,7 +32,7 @@ export class MailService {
   constructor(
     private readonly outbox: MailOutboxRepository,
     private readonly sender: MailSender,
-    private readonly users: UsersRepository,
+    private readonly kitchenRoles: KitchenRolesRepository,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
     private readonly clock: Clock,
@@ -55,9 +55,12 @@ export class MailService {
     return this.add(mail, secret, t);
   }
 
-  /** The addresses of the active users who have one of `roles` (whom to tell of a change), in one order. */
-  async addressesOf(roles: readonly Role[], t?: Transaction): Promise<string[]> {
-    return this.users.activeEmailsWithRoles(roles, t);
+  /**
+   * The addresses of the active people who have one of `roles` at the kitchen (or any of the
+   * kitchens) named: whom to tell of a change there, each once, in one order.
+   */
+  async addressesOf(roles: readonly Role[], at: number | readonly number[], t?: Transaction): Promise<string[]> {
+    return this.kitchenRoles.activeEmailsWithRolesAt(typeof at === 'number' ? [at] : at, roles, t);
   }
 
   /** The newest mails of the outbox (GET /api/mail/outbox). */

@@ -32,6 +32,12 @@ export class UsersRepository {
     return this.users.findAll({ order: [['name', 'ASC']] });
   }
 
+  /** The users with these ids, by name. */
+  listByIds(ids: readonly number[]) {
+    if (ids.length === 0) return Promise.resolve([]);
+    return this.users.findAll({ where: { id: { [Op.in]: [...ids] } }, order: [['name', 'ASC']] });
+  }
+
   /** Refuses an email already on another account (the column is unique) as a conflict. */
   async create(user: NewUser, transaction?: Transaction) {
     try {
@@ -52,40 +58,37 @@ export class UsersRepository {
     return row.update(changes, { transaction });
   }
 
-  /** The addresses of active users with one of the roles, by address. */
-  async activeEmailsWithRoles(roles: readonly Role[], transaction?: Transaction): Promise<string[]> {
-    if (roles.length === 0) return [];
-    const rows = await this.users.findAll({
-      where: { role: { [Op.in]: [...roles] }, active: true },
-      attributes: ['email'],
-      order: [['email', 'ASC']],
-      transaction,
-    });
-    return rows.map((r) => r.email);
-  }
-
   count() {
     return this.users.count();
   }
 
+  /** Active users created as managers: who manages an installation before any kitchen is set up. */
   countActiveManagers(transaction?: Transaction) {
     return this.users.count({ where: { role: 'manager', active: true }, transaction });
   }
 
-  /** Active managers whose password is their own (not the demo kitchen's published one). */
+  /**
+   * Active users created as managers whose password is their own (not the demo kitchen's
+   * published one): who can manage an installation before any kitchen is set up.
+   */
   countManagersWhoCanSignIn(transaction?: Transaction) {
     return this.users.count({ where: { role: 'manager', active: true, demoPassword: false }, transaction });
   }
 }
 
-export function toUser(row: UserModel): User {
+/**
+ * A user as the users list shows them: `role` is their role at the kitchen they are shown at
+ * (before any kitchen, the role they were created with), `elsewhere` how many other kitchens they work in.
+ */
+export function toUser(row: UserModel, at?: { role: Role; elsewhere: number }): User {
   return {
     id: row.id,
     email: row.email,
     name: row.name,
-    role: row.role,
+    role: at?.role ?? row.role,
     active: row.active,
     invitationPending: row.passwordHash === null,
     createdAt: row.createdAt.toISOString(),
+    elsewhere: at?.elsewhere ?? 0,
   };
 }

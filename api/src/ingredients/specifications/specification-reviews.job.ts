@@ -3,7 +3,6 @@ import { Cron } from '@nestjs/schedule';
 import { AuditService } from '../../audit/audit.service';
 import { Clock } from '../../common/clock';
 import { TransactionRunner } from '../../common/transaction';
-import { KitchenRolesRepository } from '../../kitchen/kitchen-roles.repository';
 import { KitchenService } from '../../kitchen/kitchen.service';
 import { SiteRepository, type SiteRow } from '../../kitchen/site.repository';
 import { MailService } from '../../mail/mail.service';
@@ -29,7 +28,6 @@ export class SpecificationReviewsJob {
     private readonly runs: SpecificationReviewRunsRepository,
     private readonly kitchen: KitchenService,
     private readonly sites: SiteRepository,
-    private readonly kitchenRoles: KitchenRolesRepository,
     private readonly mail: MailService,
     private readonly audit: AuditService,
     private readonly tx: TransactionRunner,
@@ -65,7 +63,7 @@ export class SpecificationReviewsJob {
       await this.sites.lock(t);
       const earlier = await this.runs.findLocked(site.id, found.today, t);
       if (earlier) return { run: earlier, created: false };
-      const to = found.overdue.length + found.dueSoon.length > 0 ? await this.kitchenRoles.activeEmailsAt(site.id, TOLD, t) : [];
+      const to = found.overdue.length + found.dueSoon.length > 0 ? await this.mail.addressesOf(TOLD, site.id, t) : [];
       const mailId =
         to.length > 0 ? await this.mail.enqueue({ kind: 'reviews-due', to, ...reviewsDueMail({ kitchen: site.name, ...found }) }, t) : null;
       const run = await this.runs.add(site.id, { day: found.today, overdue: found.overdue, dueSoon: found.dueSoon, mailId }, t);
