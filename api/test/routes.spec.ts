@@ -240,6 +240,7 @@ const AT_B: Record<string, [frontOfHouse: number, pastryChef: number, manager: n
   'GET /api/public-page/settings': [403, 200, 200],
   'PUT /api/public-page/settings': [403, 403, 400],
   'GET /p/:code': [404, 404, 404],
+  'GET /p/:kitchen/:code': [404, 404, 404],
   'GET /p/fonts/:file': [404, 404, 404],
   'GET /api/docs': [200, 200, 200],
   'GET /api/docs/': [200, 200, 200],
