@@ -46,7 +46,9 @@ async function signIn(base: string): Promise<string> {
     .map((c) => c.split(';')[0])
     .join('; ');
   const me = (await (await fetch(`${base}/api/me`, { headers: { cookie } })).json()) as { kitchens: { id: number }[] };
-  kitchen = { 'x-crumbproof-kitchen': String(me.kitchens[0].id) };
+  const [first] = me.kitchens;
+  if (!first) throw new Error('The demo manager works in no kitchen.');
+  kitchen = { 'x-crumbproof-kitchen': String(first.id) };
   return cookie;
 }
 
