@@ -76,6 +76,10 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
       message: 'You work in 2 kitchens (Test bench, Corner Shop): choose the one this is for.',
     });
     expect((await call('GET', '/api/me', manager, kitchen.corner)).json<Me>()).toMatchObject({ kitchen: kitchen.corner, role: 'manager' });
+    // Where a header cannot be sent, the query names the kitchen, beside a route's own query.
+    const byQuery = await call('GET', `/api/ingredients?q=flour&kitchen=${kitchen.corner}`, manager);
+    expect(byQuery.statusCode).toBe(200);
+    expect(byQuery.json<Array<{ id: string }>>().map((i) => i.id)).toContain('corner-flour');
   });
 
   it('declares one recipe differently at each kitchen, by its handling, its regime and its own flour', async () => {
