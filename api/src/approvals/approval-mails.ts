@@ -5,6 +5,8 @@ import type { Transaction } from 'sequelize';
 import { BooksService, type KitchenWritten } from '../books/books.service';
 import { currentRequest } from '../common/request-context';
 import { appAddress, type AppConfig } from '../config/config';
+import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
+import type { SiteRow } from '../kitchen/site.repository';
 import { MailService } from '../mail/mail.service';
 import { renderMail, type RenderedMail } from '../mail/templates/layout';
 import { recipesAbove } from '../rules/core/book-graph';
@@ -17,16 +19,26 @@ interface MailedProduct {
   addsAllergen: boolean;
 }
 
-/** To the managers: a write sent products to approval (one mail per write, every product in it). */
-export function approvalNeededMail(m: { kitchen: string; by: string; products: MailedProduct[]; url: string }): RenderedMail {
+/**
+ * To a kitchen's managers: a write sent products to approval there (one mail per write and
+ * kitchen, every product in it). `several`: the installation has several kitchens, so the mail names this one.
+ */
+export function approvalNeededMail(m: {
+  kitchen: string;
+  several?: boolean;
+  by: string;
+  products: MailedProduct[];
+  url: string;
+}): RenderedMail {
   const one = m.products.length === 1;
+  const at = m.several ? ` at ${m.kitchen}` : '';
   return renderMail({
     kitchen: m.kitchen,
     aboutAllergens: true,
-    subject: one ? `${m.products[0].name} waits for your approval` : `${m.products.length} products wait for your approval`,
+    subject: one ? `${m.products[0].name} waits for your approval${at}` : `${m.products.length} products wait for your approval${at}`,
     greeting: 'Hello,',
     paragraphs: [
-      `${m.by} saved a change that reaches ${one ? 'this product' : 'these products'}: ${one ? 'its labels print' : 'their labels print'} again only once a manager approves ${one ? 'its' : 'each'} declaration as it is now.`,
+      `${m.by} saved a change that reaches ${one ? 'this product' : 'these products'}${at}: ${one ? 'its labels print' : 'their labels print'}${m.several ? ' there' : ''} again only once a manager${at} approves ${one ? 'its' : 'each'} declaration as it is now.`,
       ...m.products.map((p) => `${p.name}${p.addsAllergen ? ' (adds an allergen)' : ''}: ${p.words.join(' ')}`),
     ],
     action: { label: 'Open Approvals', url: m.url },
@@ -57,9 +69,9 @@ export function allergenApprovedMail(m: {
 }
 
 /**
- * The approvals' mail: "approval needed" to the managers after a write (BooksService's listener)
- * that leaves products waiting, and "an approved change adds an allergen" to every active user
- * with the approval, in its transaction.
+ * The approvals' mail, per kitchen: "approval needed" to each kitchen's managers after a write
+ * (BooksService's listener) that leaves products waiting there, and "an approved change adds an
+ * allergen" to everyone who works at the kitchen of the approval, in its transaction.
  */
 @Injectable()
 export class ApprovalMails implements OnModuleInit {
@@ -69,6 +81,7 @@ export class ApprovalMails implements OnModuleInit {
     private readonly books: BooksService,
     private readonly status: ApprovalStatus,
     private readonly mail: MailService,
+    private readonly kitchenRoles: KitchenRolesRepository,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
@@ -80,39 +93,48 @@ export class ApprovalMails implements OnModuleInit {
     });
   }
 
-  /** After a write is saved: one mail to the managers listing every product it reaches that now waits. */
+  /**
+   * After a write is saved: at every kitchen, one mail to its managers listing every product the
+   * write reaches there (as the kitchen makes it: its own ingredients stand in) that now waits.
+   */
   private async approvalNeeded(written: KitchenWritten, by: string): Promise<void> {
     try {
-      const state = await this.books.state();
-      const touched = new Set<string>(written.recipes);
-      for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(state.book, id)) touched.add(r);
-      const codes = state.book.recipes.filter((r) => r.sale && touched.has(r.id)).map((r) => r.id);
-      if (codes.length === 0) return;
-      const waiting = (await this.status.of(state, codes)).filter((s) => s.state !== 'approved');
-      if (waiting.length === 0) return;
-      const to = await this.mail.addressesOf(['manager']);
-      if (to.length === 0) return;
-      const body = approvalNeededMail({
-        kitchen: state.site.name,
-        by,
-        products: waiting.map(mailed),
-        url: `${appAddress(this.config)}/approvals`,
-      });
-      await this.mail.enqueue({ kind: 'approval-needed', to, ...body });
+      const kitchens = await this.books.everyKitchen();
+      for (const state of kitchens) {
+        const touched = new Set<string>(written.recipes);
+        for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(state.book, id)) touched.add(r);
+        const codes = state.book.recipes.filter((r) => r.sale && touched.has(r.id)).map((r) => r.id);
+        if (codes.length === 0) continue;
+        const waiting = (await this.status.of(state, codes)).filter((s) => s.state !== 'approved');
+        if (waiting.length === 0) continue;
+        const to = await this.kitchenRoles.activeEmailsAt(state.site.id, ['manager']);
+        if (to.length === 0) continue;
+        const body = approvalNeededMail({
+          kitchen: state.site.name,
+          several: kitchens.length > 1,
+          by,
+          products: waiting.map(mailed),
+          url: `${appAddress(this.config)}/approvals`,
+        });
+        await this.mail.enqueue({ kind: 'approval-needed', to, ...body });
+      }
     } catch (e) {
       // The write is saved; the Approvals page lists what waits whatever the mail.
       this.logger.warn(`Could not queue the approval-needed mail: ${String(e)}`);
     }
   }
 
-  /** With an approval, in its transaction: every active user is told of the products whose approved change adds an allergen. */
-  async allergenApproved(kitchen: string, by: string, approved: readonly ProductStatus[], t: Transaction): Promise<void> {
+  /**
+   * With an approval at a kitchen, in its transaction: everyone active who works there is told of
+   * the products whose approved change adds an allergen.
+   */
+  async allergenApproved(kitchen: SiteRow, by: string, approved: readonly ProductStatus[], t: Transaction): Promise<void> {
     const adding = approved.filter((s) => s.change && s.change.added.length > 0);
     if (adding.length === 0) return;
-    const to = await this.mail.addressesOf(ROLES, t);
+    const to = await this.kitchenRoles.activeEmailsAt(kitchen.id, ROLES, t);
     if (to.length === 0) return;
     const body = allergenApprovedMail({
-      kitchen,
+      kitchen: kitchen.name,
       by,
       products: adding.map((s) => ({
         name: s.product.name,

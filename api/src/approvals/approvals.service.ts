@@ -49,7 +49,10 @@ export class ApprovalsService {
     private readonly mails: ApprovalMails,
   ) {}
 
-  /** Every product for sale whose current declaration is not its approved one, with the change in words and what caused it. */
+  /**
+   * Every product for sale at the request's kitchen whose current declaration there is not the
+   * one approved there, with the change in words and what caused it.
+   */
   async list(): Promise<ApprovalsView> {
     const state = await this.books.state();
     const all = await this.status.of(state);
@@ -85,14 +88,21 @@ export class ApprovalsService {
         change: s.change,
         words: declaredChangeInWords(s.change),
         addsAllergen: addsAllergen(s.change),
-        causes: causesFor(events, s.approval.approvedAt, closure, state.book),
+        causes: causesFor(events, s.approval.approvedAt, closure, state.book, state.site),
       };
     });
-    return { regime: state.site.regime, pending, approvedCount: all.length - waiting.length };
+    return {
+      kitchen: { id: state.site.id, code: state.site.code, name: state.site.name },
+      kitchens: state.sites.length,
+      regime: state.site.regime,
+      pending,
+      approvedCount: all.length - waiting.length,
+    };
   }
 
   /**
-   * Approves each product at the declaration the manager saw (its inputHash). Refused as a whole,
+   * Approves each product at the request's kitchen, at the declaration the manager saw there (its
+   * inputHash); another kitchen's declaration of it waits for its own approval. Refused as a whole,
    * naming each product, when one is not for sale, is approved already, or its declaration has
    * changed since in anything a customer or a label depends on; nothing is saved then.
    */
@@ -179,7 +189,7 @@ export class ApprovalsService {
         t,
       );
       await this.mails.allergenApproved(
-        state.site.name,
+        state.site,
         user.name,
         out.map((o) => statuses.get(o.product)!),
         t,

@@ -34,6 +34,18 @@ export class KitchenRolesRepository {
     return new Map(rows.map((r) => [r.userId, r.role]));
   }
 
+  /** The addresses of the active people with one of these roles at the kitchen, in order (one query). */
+  async activeEmailsAt(siteId: number, roles: readonly Role[], t?: Transaction): Promise<string[]> {
+    if (roles.length === 0) return [];
+    const rows = await this.roles.sequelize!.query<{ email: string }>(
+      `SELECT u.email AS email
+         FROM kitchen_roles r JOIN users u ON u.id = r.user_id
+        WHERE r.site_id = :siteId AND r.role IN (:roles) AND u.active = 1 ORDER BY u.email`,
+      { replacements: { siteId, roles: [...roles] }, type: QueryTypes.SELECT, transaction: t },
+    );
+    return rows.map((r) => r.email);
+  }
+
   async roleAt(userId: number, siteId: number, t?: Transaction): Promise<Role | null> {
     return (await this.roles.findOne({ where: { userId, siteId }, transaction: t }))?.role ?? null;
   }
