@@ -54,7 +54,7 @@ describe('swap check across kitchens (real MariaDB)', () => {
     expect(me.kitchens.map((k) => k.code)).toEqual(['bench']);
   });
 
-  it('lists a shared-ingredient swap’s products at every kitchen, each with its own before and after', async () => {
+  it('a shared-ingredient change lists products in every site it touches, each with its own before and after', async () => {
     const res = await post(manager, 'bench', '/api/swaps/preview', { from: 'butter', to: 'plant-spread' });
     expect(res.statusCode).toBe(200);
     const preview = res.json<SwapPreview>();

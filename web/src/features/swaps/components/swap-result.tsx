@@ -84,7 +84,7 @@ function KitchenGroup({ kitchen, products, lookup, to }: KitchenGroupProps) {
   return (
     <Box as="section" aria-labelledby={headingId} borderTopWidth="2px" borderColor="border.muted" pt="3" minW="0">
       <Stack direction="row" justify="space-between" align="baseline" gap="3" wrap="wrap">
-        <Heading as="h3" id={headingId} size="md">
+        <Heading as="h3" id={headingId} size="lg">
           {kitchen.name}
         </Heading>
         <Text color="fg.muted">
