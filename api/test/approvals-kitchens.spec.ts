@@ -1,8 +1,5 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
-import bcrypt from 'bcryptjs';
-import { KITCHEN_HEADER, type ApprovalsView, type KitchenRole } from '@crumbproof/shared';
-import { startTestApp, type TestApp } from './support/test-app';
+import type { ApprovalsView } from '@crumbproof/shared';
+import { startChainApp, type ChainApp } from './support/chain-kitchens';
 
 /**
  * Change control over several kitchens sharing one recipe book (tests/fixtures/chain-kitchens.book.json),
@@ -11,50 +8,32 @@ import { startTestApp, type TestApp } from './support/test-app';
  * at one kitchen approves nothing at another, and labels print only where the product is approved.
  * The steps run in order and build on each other.
  */
-const PASSWORD = 'chain-approvals-pass-31';
-const CHAIN = JSON.parse(readFileSync(join(__dirname, '..', '..', 'tests', 'fixtures', 'chain-kitchens.book.json'), 'utf8')) as object;
-type Method = 'GET' | 'POST' | 'PUT' | 'PATCH';
-
-let t: TestApp;
+let chain: ChainApp;
 /** The approval-needed mails queued before the change to the shared ingredient (the import's). */
 let mailedBefore = 0;
-let manager: string;
-let chef: string;
-/** The kitchens' numbers by their id in the book. */
-const kitchen: Record<string, number> = {};
 
 beforeAll(async () => {
-  t = await startTestApp();
-  const hash = bcrypt.hashSync(PASSWORD, 4);
-  for (const [email, name, role] of [
-    ['manager@chain.example', 'Mira Manager', 'manager'],
-    ['chef@chain.example', 'Cas Chef', 'pastry-chef'],
-  ])
-    await t.sequelize.query(
-      'INSERT INTO users (email, name, role, password_hash, active, created_at, updated_at) VALUES (?, ?, ?, ?, TRUE, NOW(), NOW())',
-      { replacements: [email, name, role, hash] },
-    );
-  manager = await t.signIn('manager@chain.example', PASSWORD);
-  chef = await t.signIn('chef@chain.example', PASSWORD);
-  expect((await t.req('POST', '/api/book/import', manager, CHAIN)).statusCode).toBe(200);
-  const me = await t.req('GET', '/api/me', manager);
-  for (const k of me.json<{ kitchens: KitchenRole[] }>().kitchens) kitchen[k.code!] = k.id;
+  chain = await startChainApp();
 });
-afterAll(() => t?.close());
+afterAll(() => chain?.t.close());
 
-const at = (where: string, method: Method, url: string, cookie: string, payload?: object) =>
-  t.app.inject({ method, url, headers: { cookie, [KITCHEN_HEADER]: String(kitchen[where]) }, ...(payload ? { payload } : {}) });
-const approvals = async (where: string) => (await at(where, 'GET', '/api/approvals', manager)).json<ApprovalsView>();
+const at: ChainApp['at'] = (...args) => chain.at(...args);
+const approvals = async (where: string) => (await at(where, 'GET', '/api/approvals', chain.manager)).json<ApprovalsView>();
 const pendingAt = async (where: string) => (await approvals(where)).pending.map((p) => p.product).sort();
 const approve = (where: string, products: { product: string; inputHash: string }[]) =>
-  at(where, 'POST', '/api/approvals', manager, { products: products.map(({ product, inputHash }) => ({ product, inputHash })) });
+  at(where, 'POST', '/api/approvals', chain.manager, { products: products.map(({ product, inputHash }) => ({ product, inputHash })) });
 const print = (where: string, product: string) =>
-  at(where, 'POST', '/api/labels/runs', manager, { template: 'ticket', items: [{ product, quantity: 2 }], productionDate: '2026-12-03' });
-const declared = async (where: string, product: string) => (await at(where, 'GET', `/api/recipes/${product}/declaration`, manager)).json();
+  at(where, 'POST', '/api/labels/runs', chain.manager, {
+    template: 'ticket',
+    items: [{ product, quantity: 2 }],
+    productionDate: '2026-12-03',
+  });
+const declared = async (where: string, product: string) =>
+  (await at(where, 'GET', `/api/recipes/${product}/declaration`, chain.manager)).json();
 const labels = (groups: { label: string }[]) => groups.map((g) => g.label.toLowerCase()).join(', ');
 const outbox = async () =>
   (
-    await t.sequelize.query<{ kind: string; recipients: unknown; subject: string; text: string }>(
+    await chain.t.sequelize.query<{ kind: string; recipients: unknown; subject: string; text: string }>(
       "SELECT kind, recipients, subject, text FROM mail_outbox WHERE kind = 'approval-needed' ORDER BY id",
       { type: 'SELECT' as never },
     )
@@ -65,7 +44,7 @@ it('starts every kitchen with its products never approved, and approves each kit
   expect(await pendingAt('corner')).toEqual(['shortbread']);
   expect(await pendingAt('market')).toEqual(['shortbread']);
   const bench = await approvals('bench');
-  expect(bench.kitchen).toEqual({ id: kitchen.bench, code: 'bench', name: 'Test bench' });
+  expect(bench.kitchen).toEqual({ id: chain.kitchen.bench, code: 'bench', name: 'Test bench' });
   expect(bench.kitchens).toBe(3);
   // Approving at the bench approves nothing at the corner shop.
   expect((await approve('bench', bench.pending)).statusCode).toBe(201);
@@ -77,8 +56,12 @@ it('starts every kitchen with its products never approved, and approves each kit
 
 it('sends a change to a shared ingredient to approval at every kitchen it changes, each against its own', async () => {
   mailedBefore = (await outbox()).length;
-  const { updatedAt: _updatedAt, revision, ...butter } = (await at('bench', 'GET', '/api/ingredients/butter', chef)).json();
-  const saved = await at('bench', 'PUT', '/api/ingredients/butter', chef, { ...butter, mayContain: ['almond'], baseRevision: revision });
+  const { updatedAt: _updatedAt, revision, ...butter } = (await at('bench', 'GET', '/api/ingredients/butter', chain.chef)).json();
+  const saved = await at('bench', 'PUT', '/api/ingredients/butter', chain.chef, {
+    ...butter,
+    mayContain: ['almond'],
+    baseRevision: revision,
+  });
   expect(saved.statusCode).toBe(200);
 
   expect(await pendingAt('bench')).toEqual(['sesame-snap', 'shortbread']);
@@ -134,7 +117,7 @@ it('approves at one kitchen only, refuses another kitchen’s declaration, and p
 });
 
 it('counts a change of one kitchen’s settings as a cause at that kitchen only', async () => {
-  const changed = await at('corner', 'PATCH', '/api/kitchen', manager, {
+  const changed = await at('corner', 'PATCH', '/api/kitchen', chain.manager, {
     handles: [
       { allergen: 'sesame', controls: 'segregated' },
       { allergen: 'walnut', controls: 'shared-equipment' },

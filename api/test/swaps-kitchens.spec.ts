@@ -1,49 +1,28 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
-import bcrypt from 'bcryptjs';
-import { KITCHEN_HEADER, type KitchenRole, type SwapPreview, type SwapProduct } from '@crumbproof/shared';
-import { startTestApp, type TestApp } from './support/test-app';
+import type { KitchenRole, SwapPreview, SwapProduct } from '@crumbproof/shared';
+import { startChainApp, type ChainApp } from './support/chain-kitchens';
+import type { TestApp } from './support/test-app';
 
 /**
  * The swap check over several kitchens sharing one recipe book (tests/fixtures/chain-kitchens.book.json):
  * a swap of a shared ingredient lists every product it reaches at every kitchen, each declared as
  * that kitchen makes it, and is applied once for all of them.
  */
-const PASSWORD = 'chain-swaps-pass-27';
-const CHAIN = JSON.parse(readFileSync(join(__dirname, '..', '..', 'tests', 'fixtures', 'chain-kitchens.book.json'), 'utf8')) as object;
-
 describe('swap check across kitchens (real MariaDB)', () => {
+  let chain: ChainApp;
   let t: TestApp;
   let manager: string;
   let chef: string;
   /** The kitchens' numbers by their id in the book. */
-  const kitchen: Record<string, number> = {};
+  let kitchen: Record<string, number>;
 
   beforeAll(async () => {
-    t = await startTestApp();
-    const hash = bcrypt.hashSync(PASSWORD, 4);
-    for (const [email, role] of [
-      ['manager@chain.example', 'manager'],
-      ['chef@chain.example', 'pastry-chef'],
-    ])
-      await t.sequelize.query(
-        'INSERT INTO users (email, name, role, password_hash, active, created_at, updated_at) VALUES (?, ?, ?, ?, TRUE, NOW(), NOW())',
-        { replacements: [email, role === 'manager' ? 'Mira Manager' : 'Cas Chef', role, hash] },
-      );
-    manager = await t.signIn('manager@chain.example', PASSWORD);
-    chef = await t.signIn('chef@chain.example', PASSWORD);
-    const imported = await t.req('POST', '/api/book/import', manager, CHAIN);
-    expect(imported.statusCode).toBe(200);
-    expect(imported.json().kitchens).toEqual({ bench: 'created', corner: 'created', market: 'created' });
-    const me = await t.app.inject({ method: 'GET', url: '/api/me', headers: { cookie: manager } });
-    for (const k of me.json<{ kitchens: KitchenRole[] }>().kitchens) kitchen[k.code!] = k.id;
+    chain = await startChainApp();
+    ({ t, manager, chef, kitchen } = chain);
   });
   afterAll(() => t?.close());
 
-  const post = (cookie: string, at: string, url: string, payload: object) =>
-    t.app.inject({ method: 'POST', url, payload, headers: { cookie, [KITCHEN_HEADER]: String(kitchen[at]) } });
-  const get = (cookie: string, at: string, url: string) =>
-    t.app.inject({ method: 'GET', url, headers: { cookie, [KITCHEN_HEADER]: String(kitchen[at]) } });
+  const post = (cookie: string, at: string, url: string, payload: object) => chain.at(at, 'POST', url, cookie, payload);
+  const get = (cookie: string, at: string, url: string) => chain.at(at, 'GET', url, cookie);
   const entry = (p: SwapPreview, at: string, product: string): SwapProduct | undefined =>
     p.products.find((x) => x.kitchen.code === at && x.product === product);
   const names = (groups: { label: string }[]) => groups.map((g) => g.label);
