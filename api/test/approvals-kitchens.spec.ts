@@ -46,6 +46,12 @@ it('starts every kitchen with its products never approved, and approves each kit
   const bench = await approvals('bench');
   expect(bench.kitchen).toEqual({ id: chain.kitchen.bench, code: 'bench', name: 'Test bench' });
   expect(bench.kitchens).toBe(3);
+  // The manager works at all three: what waits at the others is counted; the chef works at the bench only.
+  expect(bench.elsewhere).toEqual([
+    { kitchen: { id: chain.kitchen.corner, code: 'corner', name: 'Corner Shop' }, waiting: 1 },
+    { kitchen: { id: chain.kitchen.market, code: 'market', name: 'Market Stall' }, waiting: 1 },
+  ]);
+  expect((await at('bench', 'GET', '/api/approvals', chain.chef)).json<ApprovalsView>().elsewhere).toEqual([]);
   // Approving at the bench approves nothing at the corner shop.
   expect((await approve('bench', bench.pending)).statusCode).toBe(201);
   expect(await pendingAt('bench')).toEqual([]);
@@ -66,6 +72,7 @@ it('sends a change to a shared ingredient to approval at every kitchen it change
 
   expect(await pendingAt('bench')).toEqual(['sesame-snap', 'shortbread']);
   expect(await pendingAt('corner')).toEqual(['shortbread']);
+  expect((await approvals('bench')).elsewhere.map((e) => [e.kitchen.code, e.waiting])).toEqual([['corner', 1]]);
   // The market stall makes its shortbread with its own farm butter: the shared butter's change does not reach it.
   expect(await pendingAt('market')).toEqual([]);
   expect(labels((await declared('market', 'shortbread')).mayContain)).not.toMatch(/almond|nut/);

@@ -91,6 +91,11 @@ export interface ApprovalsView {
   kitchen: { id: number; code: string | null; name: string };
   /** How many kitchens share the recipe book; each approves its own declarations. */
   kitchens: number;
+  /**
+   * The person's other kitchens (where they are a manager or pastry chef) with how many products
+   * wait for approval there, in the order the kitchens were set up; those with none are left out.
+   */
+  elsewhere: { kitchen: { id: number; code: string | null; name: string }; waiting: number }[];
   regime: string;
   pending: PendingApproval[];
   /** Products for sale whose current declaration is their approved one. */

@@ -72,6 +72,13 @@ export function ApprovalsRoute() {
                 } sharing the recipe book approve their own.`}
               </Text>
             ) : null}
+            {approvals.data.elsewhere.length > 0 ? (
+              <Text>
+                {`Also waiting at your other kitchens: ${approvals.data.elsewhere
+                  .map((e) => `${e.waiting} ${e.waiting === 1 ? 'product' : 'products'} at ${e.kitchen.name}`)
+                  .join(', ')}. Choose the kitchen to see and approve them.`}
+              </Text>
+            ) : null}
             {!isManager ? <Text color="fg.muted">Only a manager approves; you can read what waits.</Text> : null}
             {error ? (
               <ErrorAlert title="Nothing was approved">
