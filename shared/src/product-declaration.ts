@@ -51,6 +51,10 @@ export interface DeclarationBasis {
   items: DeclarationBasisItem[];
   /** The kitchen settings' version (regime, measures, handling). */
   siteVersion: number;
+  /** The kitchen it answers for; absent from a copy kept before kitchens were named. */
+  kitchen?: { id: number; name: string };
+  /** Every line below the product made at this kitchen with its own ingredient in place of the shared one; absent when none is. */
+  standIns?: StandIn[];
 }
 
 /** A product's declaration as the API serves it from the store: the declaration and its basis. */

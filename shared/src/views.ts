@@ -1,5 +1,12 @@
 import { z } from 'zod';
-import { bookIngredientSchema, bookRecipeSchema, itemId, type BookIngredient, type BookRecipe } from './book';
+import {
+  bookFileIngredientSchema,
+  bookRecipeSchema,
+  itemId,
+  type BookFileIngredient,
+  type BookIngredient,
+  type BookRecipe,
+} from './book';
 import type { Declaration } from './declaration';
 import type { DeclarationDiff } from './declaration-diff';
 import type { Regime } from './allergens';
@@ -22,16 +29,19 @@ export const baseRevisionSchema = z
     description: 'The revision the editor loaded and changed. A later revision saved by someone else refuses the save (409 stale-base).',
   });
 
-/** PUT /api/ingredients/:code: the ingredient, and the revision the editor started from. */
-export const ingredientSaveSchema = bookIngredientSchema.extend({ baseRevision: baseRevisionSchema });
+/**
+ * PUT /api/ingredients/:code: the ingredient, and the revision the editor started from. A
+ * kitchen's own ingredient comes back with the onlyAt it was read with; a save cannot move it.
+ */
+export const ingredientSaveSchema = bookFileIngredientSchema.extend({ baseRevision: baseRevisionSchema });
 export type IngredientSave = z.infer<typeof ingredientSaveSchema>;
 
 /** PUT /api/recipes/:code: the recipe, and the revision the editor started from. */
 export const recipeSaveSchema = bookRecipeSchema.extend({ baseRevision: baseRevisionSchema });
 export type RecipeSave = z.infer<typeof recipeSaveSchema>;
 
-/** An ingredient as listed: its current revision's body with the revision number. */
-export type IngredientView = BookIngredient & { revision: number; updatedAt: string };
+/** An ingredient as listed: its current revision's body (onlyAt: a kitchen's own) with the revision number. */
+export type IngredientView = BookFileIngredient & { revision: number; updatedAt: string };
 /** A recipe or product as listed: its current revision's body with the revision number. */
 export type RecipeView = BookRecipe & { revision: number; updatedAt: string };
 

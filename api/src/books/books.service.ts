@@ -4,6 +4,7 @@ import {
   bookPlace,
   type Book,
   type BookFile,
+  type BookFileIngredient,
   type BookIngredient,
   type BookProblem,
   type BookRecipe,
@@ -190,7 +191,8 @@ export class BooksService {
    * with the current revision of every item, and the whole book.
    */
   async state(t?: Transaction): Promise<KitchenState> {
-    return this.stateAt(await this.kitchen.current(t), t);
+    const sites = await this.sites.all(t);
+    return this.stateOf(this.kitchen.pick(sites), sites, t);
   }
 
   /** One kitchen as it stands now, as state gives the request's. */
@@ -198,6 +200,10 @@ export class BooksService {
     const sites = await this.sites.all(t);
     const site = sites.find((s) => s.id === kitchen.id);
     if (!site) throw new AppError('not-found', `The kitchen ${kitchen.name} is no longer set up.`);
+    return this.stateOf(site, sites, t);
+  }
+
+  private async stateOf(site: SiteRow, sites: SiteRow[], t?: Transaction): Promise<KitchenState> {
     // Inside a write, always as the transaction sees it.
     if (t) return this.read(site, sites, t);
     // Outside one, the copy read last serves while the site rows' versions are those it was read
@@ -424,7 +430,7 @@ export class BooksService {
    * the changes can still be declared. All or nothing: when it cannot, nothing is saved.
    */
   async writeItems(
-    changes: { ingredients?: BookIngredient[]; recipes?: BookRecipe[] },
+    changes: { ingredients?: BookFileIngredient[]; recipes?: BookRecipe[] },
     meta: { authorId: number | null; note: string },
     expect: 'new' | 'existing' | 'any',
     /** The write's one audit event (a swap, an import); left out, an editor's save of its one item. */
@@ -457,9 +463,7 @@ export class BooksService {
           }
         }
       }
-      // A kitchen's own ingredient stays its own: an editor's save does not carry onlyAt, the book keeps it.
-      const keptOwn = new Map(file.ingredients.flatMap((i) => (i.onlyAt !== undefined ? [[i.id, i.onlyAt] as const] : [])));
-      const ingredients = (changes.ingredients ?? []).map((i) => (keptOwn.has(i.id) ? { ...i, onlyAt: keptOwn.get(i.id)! } : i));
+      const ingredients = keepOwnership(file, changes.ingredients ?? []);
       const mergedFile: BookFile = {
         ...file,
         ingredients: mergeById(file.ingredients, ingredients),
@@ -679,6 +683,27 @@ export function bookRefused(problems: BookProblem[]): AppError {
   const rest = problems.length - shown.length;
   const more = rest > 0 ? ` And ${rest} more problem${rest > 1 ? 's' : ''}.` : '';
   return new AppError(problems[0].code, `${shown.join(' ')}${more}`, undefined, problems);
+}
+
+/**
+ * A kitchen's own ingredient stays its own, and a shared one shared: a save that leaves onlyAt out
+ * keeps what the book has, and one that names another kitchen (or a new item naming one, which
+ * would stand in nowhere without a substitution) is refused. Moving an ingredient between kitchens
+ * is a change of the recipe book, with its substitutions.
+ */
+function keepOwnership(file: BookFile, incoming: readonly BookFileIngredient[]): BookFileIngredient[] {
+  const current = new Map(file.ingredients.map((i) => [i.id, i]));
+  return incoming.map((item) => {
+    const was = current.get(item.id);
+    if (item.onlyAt === undefined) return was?.onlyAt !== undefined ? { ...item, onlyAt: was.onlyAt } : item;
+    if (was && was.onlyAt === item.onlyAt) return item;
+    const where = was?.onlyAt !== undefined ? `is kept at the kitchen '${was.onlyAt}'` : was ? 'is shared by every kitchen' : 'is new';
+    throw new AppError(
+      'validation',
+      `${item.name} ${where}, and a save cannot make it the kitchen '${item.onlyAt}'s own: change that in the recipe book, with the kitchen's substitution, and import it.`,
+      [{ path: 'onlyAt', message: 'A save cannot change which kitchen keeps an ingredient.' }],
+    );
+  });
 }
 
 /** A kitchen of a book being imported: its key in the summary, and its fields as a site row keeps them. */

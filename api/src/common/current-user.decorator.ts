@@ -1,6 +1,13 @@
 import { createParamDecorator, ExecutionContext } from '@nestjs/common';
 import type { Role } from '@crumbproof/shared';
-import type { KitchenRoleRow } from '../kitchen/kitchen-roles.repository';
+
+/** A kitchen a person works in, with their role there (kitchen_roles, read by KitchenRolesRepository). */
+export interface KitchenRoleRow {
+  siteId: number;
+  code: string | null;
+  name: string;
+  role: Role;
+}
 
 export interface AuthUser {
   id: number;

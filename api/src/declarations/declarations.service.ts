@@ -10,6 +10,7 @@ import {
   type ProductDeclaration,
   type Regime,
   type ServedDeclaration,
+  type StandIn,
 } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { deepFreeze } from '../common/deep-freeze';
@@ -17,6 +18,7 @@ import { validationError } from '../common/zod.pipe';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
 import { closureItems, closureOf } from '../rules/core/book-graph';
+import { standInsOf, type SiteView } from '../rules/core/site-view';
 import { canonicalJson } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
 import {
@@ -106,7 +108,7 @@ export class DeclarationsService implements OnModuleInit {
    */
   async keptForProducts(codes: readonly string[], regime?: Regime, state?: KitchenState): Promise<KeptServed[]> {
     const kitchen = state ?? (await this.books.state());
-    const { site, book, heads } = kitchen;
+    const { site, book, heads, view } = kitchen;
     const useRegime = regime ?? book.site.regime;
     // The kitchen read last is shared by every request until it changes (BooksService.state), and
     // what was found or kept for it stands as long: a product served again costs no query here.
@@ -158,7 +160,14 @@ export class DeclarationsService implements OnModuleInit {
           recipeRowId: head.rowId,
           served: {
             ...kept.body,
-            basis: { computedAt: kept.computedAt.toISOString(), regime: useRegime, items, siteVersion: site.version },
+            basis: {
+              computedAt: kept.computedAt.toISOString(),
+              regime: useRegime,
+              items,
+              siteVersion: site.version,
+              kitchen: { id: site.id, name: site.name },
+              ...standInsAt(view, code),
+            },
           },
         }),
       );
@@ -261,4 +270,11 @@ export class DeclarationsService implements OnModuleInit {
       state,
     );
   }
+}
+
+/** The lines below a product made at the view's kitchen with its own ingredient, as a basis names them (none: nothing). */
+function standInsAt(view: SiteView, code: string): { standIns?: StandIn[] } {
+  if (view.standIns.length === 0) return {};
+  const found = standInsOf(view, code);
+  return found.length > 0 ? { standIns: found } : {};
 }

@@ -2,15 +2,10 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Role } from '@crumbproof/shared';
 import { QueryTypes, type Transaction } from 'sequelize';
+import type { KitchenRoleRow } from '../common/current-user.decorator';
 import { KitchenRoleModel } from './kitchen-role.model';
 
-/** A kitchen a person works in, with their role there. */
-export interface KitchenRoleRow {
-  siteId: number;
-  code: string | null;
-  name: string;
-  role: Role;
-}
+export type { KitchenRoleRow } from '../common/current-user.decorator';
 
 /** The only place that reads and writes kitchen_roles: who works where, and as what. */
 @Injectable()
