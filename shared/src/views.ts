@@ -1,12 +1,5 @@
 import { z } from 'zod';
-import {
-  bookFileIngredientSchema,
-  bookRecipeSchema,
-  itemId,
-  type BookFileIngredient,
-  type BookIngredient,
-  type BookRecipe,
-} from './book';
+import { bookFileIngredientSchema, bookRecipeSchema, itemId, type BookFileIngredient, type BookIngredient, type BookRecipe } from './book';
 import type { Declaration } from './declaration';
 import type { DeclarationDiff } from './declaration-diff';
 import type { Regime } from './allergens';
