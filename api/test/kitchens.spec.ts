@@ -76,6 +76,10 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
       message: 'You work in 2 kitchens (Test bench, Corner Shop): choose the one this is for.',
     });
     expect((await call('GET', '/api/me', manager, kitchen.corner)).json<Me>()).toMatchObject({ kitchen: kitchen.corner, role: 'manager' });
+    // Where a header cannot be sent, the query names the kitchen, beside a route's own query.
+    const byQuery = await call('GET', `/api/ingredients?q=flour&kitchen=${kitchen.corner}`, manager);
+    expect(byQuery.statusCode).toBe(200);
+    expect(byQuery.json<Array<{ id: string }>>().map((i) => i.id)).toContain('corner-flour');
   });
 
   it('declares one recipe differently at each kitchen, by its handling, its regime and its own flour', async () => {
@@ -192,5 +196,21 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
     expect(asSite.statusCode).toBe(400);
     expect(asSite.json().message).toMatch(/This installation has 2 kitchens \(bench, corner\)/);
     expect(await tableChecksums(t.sequelize)).toEqual(before);
+  });
+
+  it("gives each kitchen's managers its own audit trail, with the changes to the shared book made anywhere", async () => {
+    const renamed = await call('PATCH', '/api/kitchen', manager, kitchen.corner, { name: 'Corner Shop on the Square' });
+    expect(renamed.statusCode).toBe(200);
+    const trail = async (at: number, action: string) =>
+      (await call('GET', `/api/audit?action=${action}`, manager, at)).json<{ items: Array<{ id: string; summary: string }> }>().items;
+    const atCorner = await trail(kitchen.corner, 'kitchen.updated');
+    expect(atCorner).toHaveLength(1);
+    expect(await trail(kitchen.bench, 'kitchen.updated')).toEqual([]);
+    // The corner's event is not the bench's to read, even by its number.
+    expect((await call('GET', `/api/audit/${atCorner[0].id}`, manager, kitchen.bench)).statusCode).toBe(404);
+    expect((await call('GET', `/api/audit/${atCorner[0].id}`, manager, kitchen.corner)).statusCode).toBe(200);
+    // The corner flour was saved at the bench: a change to the shared book, on both kitchens' trails.
+    for (const at of [kitchen.bench, kitchen.corner])
+      expect((await trail(at, 'ingredient.saved')).map((e) => e.summary)).toEqual([expect.stringMatching(/corner-flour/)]);
   });
 });

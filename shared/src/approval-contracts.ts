@@ -85,8 +85,17 @@ export interface PendingApproval {
   causes: ApprovalCause[];
 }
 
-/** GET /api/approvals. */
+/** GET /api/approvals: what waits at the request's kitchen (an approval there approves its declarations only). */
 export interface ApprovalsView {
+  /** The kitchen whose declarations these are. */
+  kitchen: { id: number; code: string | null; name: string };
+  /** How many kitchens share the recipe book; each approves its own declarations. */
+  kitchens: number;
+  /**
+   * The person's other kitchens (where they are a manager or pastry chef) with how many products
+   * wait for approval there, in the order the kitchens were set up; those with none are left out.
+   */
+  elsewhere: { kitchen: { id: number; code: string | null; name: string }; waiting: number }[];
   regime: string;
   pending: PendingApproval[];
   /** Products for sale whose current declaration is their approved one. */

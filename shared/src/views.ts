@@ -1,14 +1,9 @@
 import { z } from 'zod';
-import {
-  bookFileIngredientSchema,
-  bookRecipeSchema,
-  itemId,
-  type BookFileIngredient,
-  type BookIngredient,
-  type BookRecipe,
-} from './book';
+import { bookFileIngredientSchema, bookRecipeSchema, itemId, type BookFileIngredient, type BookIngredient, type BookRecipe } from './book';
 import type { Declaration } from './declaration';
 import type { DeclarationDiff } from './declaration-diff';
+import type { Regime } from './allergens';
+import type { StandIn } from './product-declaration';
 
 /**
  * What the API sends for the kitchen's items, revisions and the swap check: one definition for
@@ -79,12 +74,26 @@ export const swapRequestSchema = z.strictObject({
 });
 export type SwapRequest = z.infer<typeof swapRequestSchema>;
 
+/** A kitchen of the installation as the swap check names it. */
+export interface SwapKitchen {
+  /** The kitchen's number, as the kitchen header names it. */
+  id: number;
+  /** Its id in the recipe book (null for the one kitchen of a book given as site). */
+  code: string | null;
+  name: string;
+  regime: Regime;
+}
+
+/** A product the swap reaches at one kitchen, declared as that kitchen makes it (its regime, handling and substitutions). */
 export interface SwapProduct {
+  kitchen: SwapKitchen;
   product: string;
   name: string;
   before: Declaration;
   after: Declaration;
   diff: DeclarationDiff;
+  /** The lines of the product made at this kitchen with its own ingredient in place of a shared one, before and after the swap. */
+  standIns: { before: StandIn[]; after: StandIn[] };
 }
 
 export interface SwapPreview {
@@ -92,7 +101,12 @@ export interface SwapPreview {
   to: { id: string; name: string };
   /** The recipes whose lines change (new revisions when applied); `lines` is how many lines of each. */
   recipes: { id: string; name: string; lines: number }[];
-  /** Every product affected at any depth. */
+  /**
+   * Every kitchen of the installation, the request's first and then in the order they were set up,
+   * with how many of its products the swap reaches (none: it does not sell them, or makes them the same either way).
+   */
+  kitchens: (SwapKitchen & { products: number })[];
+  /** Every product affected at any depth at every kitchen, by kitchen in the order of `kitchens`, then by name. */
   products: SwapProduct[];
 }
 

@@ -23,28 +23,51 @@ const keysOf = (v: unknown, kind: 'ingredients' | 'recipes'): string[] => {
   return Object.keys(part);
 };
 
-/** The ingredients and recipes a write of the trail wrote, and whether it changed the kitchen's settings. */
-export function touchedBy(e: AuditEventFull): Touched {
-  if (e.action === 'kitchen.updated') return { kitchen: true, ids: new Set() };
+/** A kitchen as the trail names it: its number (a settings change's record) and its id in the book (an import's summary). */
+export interface CauseKitchen {
+  id: number;
+  code: string | null;
+}
+
+/**
+ * The ingredients and recipes a write of the trail wrote, and whether it changed this kitchen's
+ * settings: a change of another kitchen's settings, or an import that left this kitchen as it was,
+ * changes nothing here. The recipe book is shared, so every item written counts at every kitchen.
+ */
+export function touchedBy(e: AuditEventFull, kitchen: CauseKitchen): Touched {
+  if (e.action === 'kitchen.updated') return { kitchen: e.recordId === String(kitchen.id), ids: new Set() };
   const ids = new Set<string>();
   if ((e.recordKind === 'ingredient' || e.recordKind === 'recipe') && e.recordId) ids.add(e.recordId);
   for (const v of [e.before, e.after])
     for (const kind of ['ingredients', 'recipes'] as const) for (const id of keysOf(v, kind)) ids.add(id);
-  const site = e.action === 'book.imported' && (e.after as { site?: string } | null)?.site;
+  let site: string | undefined;
+  if (e.action === 'book.imported') {
+    // An import names each kitchen by its id in the book; a book given as site names its one
+    // kitchen 'site' (the installation had one kitchen then, so any approval here came after it),
+    // and one from before there were several kitchens names it only as site.
+    const summary = e.after as { site?: string; kitchens?: Record<string, string> } | null;
+    site = summary?.kitchens ? (summary.kitchens[kitchen.code ?? 'site'] ?? summary.kitchens.site) : summary?.site;
+  }
   return { kitchen: site === 'updated' || site === 'created', ids };
 }
 
 /**
- * The writes after an approval that reach a product: those that wrote an item it is made of now
- * or was made of when approved, or the kitchen's settings. Oldest first.
+ * The writes after an approval at a kitchen that reach a product there: those that wrote an item
+ * it is made of at that kitchen now or was made of when approved, or that kitchen's settings. Oldest first.
  */
-export function causesFor(events: AuditEventFull[], since: Date, closure: ReadonlySet<string>, book: Book): ApprovalCause[] {
+export function causesFor(
+  events: AuditEventFull[],
+  since: Date,
+  closure: ReadonlySet<string>,
+  book: Book,
+  kitchen: CauseKitchen,
+): ApprovalCause[] {
   const names = new Map([...book.ingredients, ...book.recipes].map((x) => [x.id, x.name]));
   const kindOf = (id: string): 'ingredient' | 'recipe' => (book.ingredients.some((i) => i.id === id) ? 'ingredient' : 'recipe');
   const out: ApprovalCause[] = [];
   for (const e of events) {
     if (e.at <= since) continue;
-    const touched = touchedBy(e);
+    const touched = touchedBy(e, kitchen);
     const hit = [...touched.ids].filter((id) => closure.has(id));
     if (!touched.kitchen && hit.length === 0) continue;
     out.push({

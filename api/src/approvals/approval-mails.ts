@@ -18,16 +18,26 @@ interface MailedProduct {
   addsAllergen: boolean;
 }
 
-/** To the managers: a write sent products to approval (one mail per write, every product in it). */
-export function approvalNeededMail(m: { kitchen: string; by: string; products: MailedProduct[]; url: string }): RenderedMail {
+/**
+ * To a kitchen's managers: a write sent products to approval there (one mail per write and
+ * kitchen, every product in it). `several`: the installation has several kitchens, so the mail names this one.
+ */
+export function approvalNeededMail(m: {
+  kitchen: string;
+  several?: boolean;
+  by: string;
+  products: MailedProduct[];
+  url: string;
+}): RenderedMail {
   const one = m.products.length === 1;
+  const at = m.several ? ` at ${m.kitchen}` : '';
   return renderMail({
     kitchen: m.kitchen,
     aboutAllergens: true,
-    subject: one ? `${m.products[0].name} waits for your approval` : `${m.products.length} products wait for your approval`,
+    subject: one ? `${m.products[0].name} waits for your approval${at}` : `${m.products.length} products wait for your approval${at}`,
     greeting: 'Hello,',
     paragraphs: [
-      `${m.by} saved a change that reaches ${one ? 'this product' : 'these products'}: ${one ? 'its labels print' : 'their labels print'} again only once a manager approves ${one ? 'its' : 'each'} declaration as it is now.`,
+      `${m.by} saved a change that reaches ${one ? 'this product' : 'these products'}${at}: ${one ? 'its labels print' : 'their labels print'}${m.several ? ' there' : ''} again only once a manager${at} approves ${one ? 'its' : 'each'} declaration as it is now.`,
       ...m.products.map((p) => `${p.name}${p.addsAllergen ? ' (adds an allergen)' : ''}: ${p.words.join(' ')}`),
     ],
     action: { label: 'Open Approvals', url: m.url },
@@ -87,14 +97,15 @@ export class ApprovalMails implements OnModuleInit {
    */
   private async approvalNeeded(written: KitchenWritten, by: string): Promise<void> {
     try {
-      for (const state of await this.books.everyKitchen()) await this.approvalNeededAt(state, written, by);
+      const kitchens = await this.books.everyKitchen();
+      for (const state of kitchens) await this.approvalNeededAt(state, written, by, kitchens.length > 1);
     } catch (e) {
       // The write is saved; the Approvals page lists what waits whatever the mail.
       this.logger.warn(`Could not queue the approval-needed mail: ${String(e)}`);
     }
   }
 
-  private async approvalNeededAt(state: KitchenState, written: KitchenWritten, by: string): Promise<void> {
+  private async approvalNeededAt(state: KitchenState, written: KitchenWritten, by: string, several: boolean): Promise<void> {
     const touched = new Set<string>(written.recipes);
     for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(state.book, id)) touched.add(r);
     const codes = state.book.recipes.filter((r) => r.sale && touched.has(r.id)).map((r) => r.id);
@@ -105,6 +116,7 @@ export class ApprovalMails implements OnModuleInit {
     if (to.length === 0) return;
     const body = approvalNeededMail({
       kitchen: state.site.name,
+      several,
       by,
       products: waiting.map(mailed),
       url: `${appAddress(this.config)}/approvals`,

@@ -18,8 +18,8 @@ export class ApprovalsController {
     summary:
       'Products whose current declaration is not their approved one (manager, pastry chef): the change in words, what caused it and whether it adds an allergen',
   })
-  list() {
-    return this.approvals.list();
+  list(@CurrentUser() user: AuthUser) {
+    return this.approvals.list(user);
   }
 
   @Post()

@@ -10,14 +10,16 @@ import {
   type ApprovalsView,
   type FieldError,
   type PendingApproval,
+  KITCHEN_WRITERS,
 } from '@crumbproof/shared';
 import { AuditRepository } from '../audit/audit.repository';
 import { AuditService } from '../audit/audit.service';
-import { BooksService } from '../books/books.service';
+import { BooksService, type KitchenState } from '../books/books.service';
 import { AppError } from '../common/app-error';
 import type { AuthUser } from '../common/current-user.decorator';
 import { TransactionRunner } from '../common/transaction';
 import { DeclarationsService, keptCopy } from '../declarations/declarations.service';
+import type { KitchenRoleRow } from '../kitchen/kitchen-roles.repository';
 import { SiteRepository } from '../kitchen/site.repository';
 import { closureItems } from '../rules/core/book-graph';
 import { causesFor, DECLARATION_WRITES } from './approval-causes';
@@ -49,8 +51,11 @@ export class ApprovalsService {
     private readonly mails: ApprovalMails,
   ) {}
 
-  /** Every product for sale whose current declaration is not its approved one, with the change in words and what caused it. */
-  async list(): Promise<ApprovalsView> {
+  /**
+   * Every product for sale at the request's kitchen whose current declaration there is not the
+   * one approved there, with the change in words and what caused it.
+   */
+  async list(user?: Pick<AuthUser, 'kitchens'>): Promise<ApprovalsView> {
     const state = await this.books.state();
     const all = await this.status.of(state);
     const waiting = all.filter((s) => s.state !== 'approved');
@@ -85,14 +90,22 @@ export class ApprovalsService {
         change: s.change,
         words: declaredChangeInWords(s.change),
         addsAllergen: addsAllergen(s.change),
-        causes: causesFor(events, s.approval.approvedAt, closure, state.book),
+        causes: causesFor(events, s.approval.approvedAt, closure, state.book, state.site),
       };
     });
-    return { regime: state.site.regime, pending, approvedCount: all.length - waiting.length };
+    return {
+      kitchen: { id: state.site.id, code: state.site.code, name: state.site.name },
+      kitchens: state.sites.length,
+      elsewhere: await this.waitingElsewhere(state, user?.kitchens ?? []),
+      regime: state.site.regime,
+      pending,
+      approvedCount: all.length - waiting.length,
+    };
   }
 
   /**
-   * Approves each product at the declaration the manager saw (its inputHash). Refused as a whole,
+   * Approves each product at the request's kitchen, at the declaration the manager saw there (its
+   * inputHash); another kitchen's declaration of it waits for its own approval. Refused as a whole,
    * naming each product, when one is not for sale, is approved already, or its declaration has
    * changed since in anything a customer or a label depends on; nothing is saved then.
    */
@@ -191,6 +204,19 @@ export class ApprovalsService {
       return out;
     });
     return { approved: given };
+  }
+
+  /** How many products wait for approval at each of the person's other kitchens where they may read approvals. */
+  private async waitingElsewhere(state: KitchenState, kitchens: readonly KitchenRoleRow[]): Promise<ApprovalsView['elsewhere']> {
+    const out: ApprovalsView['elsewhere'] = [];
+    for (const site of state.sites) {
+      if (site.id === state.site.id) continue;
+      const role = kitchens.find((k) => k.siteId === site.id)?.role;
+      if (!role || !KITCHEN_WRITERS.includes(role)) continue;
+      const waiting = (await this.status.of(await this.books.stateAt(site))).filter((s) => s.state !== 'approved').length;
+      if (waiting > 0) out.push({ kitchen: { id: site.id, code: site.code, name: site.name }, waiting });
+    }
+    return out;
   }
 
   /** Approves every product waiting, at its current declaration (the demo seed starts the demo kitchen approved). */

@@ -38,4 +38,8 @@ export class AuditEventModel extends Model {
 
   @Column({ type: DataType.STRING(64), allowNull: true })
   address: string | null;
+
+  /** The kitchen the event was recorded at; null: none in particular (migration 0017). */
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  siteId: number | null;
 }

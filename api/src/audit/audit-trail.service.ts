@@ -12,6 +12,7 @@ import {
   type Role,
 } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
+import { currentRequest } from '../common/request-context';
 import { AuditRepository, type AuditEventFull, type AuditEventRecord, type AuditSearch } from './audit.repository';
 
 /** The start of a calendar day in the kitchen's time (the server's, as the rest of the kitchen's days). */
@@ -20,8 +21,10 @@ function dayStart(day: string, plusDays = 0): Date {
   return new Date(y, m - 1, d + plusDays);
 }
 
+/** The manager reads the trail of the kitchen the request is for (RolesGuard). */
 function search(q: AuditQuery): AuditSearch {
   return {
+    siteId: currentRequest()?.kitchenId ?? null,
     actorId: q.user,
     action: q.action,
     recordId: q.record,
@@ -93,7 +96,7 @@ export class AuditTrailService {
   }
 
   async event(id: string): Promise<AuditEventDetail> {
-    const found = /^[1-9]\d{0,17}$/.test(id) ? await this.repo.find(id) : null;
+    const found = /^[1-9]\d{0,17}$/.test(id) ? await this.repo.find(id, currentRequest()?.kitchenId ?? null) : null;
     if (!found) throw new AppError('not-found', `There is no audit event ${id}.`);
     return { ...row(found), before: found.before, after: found.after };
   }

@@ -16,6 +16,8 @@ export interface NewAuditEvent {
   before: unknown;
   after: unknown;
   address: string | null;
+  /** The kitchen it was recorded at (the request's); null: none in particular. */
+  siteId: number | null;
 }
 
 export interface AuditEventRecord extends Omit<NewAuditEvent, 'before' | 'after'> {
@@ -28,7 +30,27 @@ export interface AuditEventFull extends AuditEventRecord {
   after: unknown;
 }
 
+/**
+ * Changes to the recipe book every kitchen shares: each kitchen's managers read these wherever
+ * they were made, as a change at one kitchen can change what every kitchen declares.
+ */
+export const SHARED_BOOK_ACTIONS = [
+  'ingredient.saved',
+  'recipe.saved',
+  'recipe.archived',
+  'book.imported',
+  'ingredients.imported',
+  'swap.applied',
+  'specification.uploaded',
+  'specifications.reviewed',
+] as const;
+
 export interface AuditSearch {
+  /**
+   * The kitchen whose trail is read: its own events, those at no kitchen in particular, and the
+   * changes to the shared book made anywhere (SHARED_BOOK_ACTIONS).
+   */
+  siteId: number | null;
   actorId?: number;
   action?: string;
   recordId?: string;
@@ -49,6 +71,7 @@ const LIST = [
   'recordId',
   'summary',
   'address',
+  'siteId',
   [literal('(`before` IS NOT NULL OR `after` IS NOT NULL)'), 'hasChange'],
 ] as const;
 
@@ -63,6 +86,9 @@ export class AuditRepository {
 
   private where(q: AuditSearch): WhereOptions {
     return {
+      ...(q.siteId !== null
+        ? { [Op.or]: [{ siteId: q.siteId }, { siteId: null }, { action: { [Op.in]: [...SHARED_BOOK_ACTIONS] } }] }
+        : {}),
       ...(q.actorId !== undefined ? { actorId: q.actorId } : {}),
       ...(q.action !== undefined ? { action: q.action } : {}),
       ...(q.recordId !== undefined ? { recordId: q.recordId } : {}),
@@ -70,7 +96,7 @@ export class AuditRepository {
     };
   }
 
-  private order(q: AuditSearch): [string, string][] {
+  private order(q: Pick<AuditSearch, 'order'>): [string, string][] {
     const dir = q.order === 'newest' ? 'DESC' : 'ASC';
     return [
       ['at', dir],
@@ -118,8 +144,12 @@ export class AuditRepository {
     return rows.map(toFull);
   }
 
-  async find(id: string): Promise<AuditEventFull | null> {
-    const row = await this.events.findOne({ where: { id }, attributes: [...LIST, 'before', 'after'] as never });
+  /** One event, when it is on the kitchen's trail (see AuditSearch.siteId). */
+  async find(id: string, siteId: number | null): Promise<AuditEventFull | null> {
+    const row = await this.events.findOne({
+      where: { [Op.and]: [{ id }, this.where({ siteId, order: 'newest' })] },
+      attributes: [...LIST, 'before', 'after'] as never,
+    });
     return row ? toFull(row) : null;
   }
 }
@@ -136,6 +166,7 @@ function toRecord(m: AuditEventModel): AuditEventRecord {
     recordId: m.recordId,
     summary: m.summary,
     address: m.address,
+    siteId: m.siteId ?? null,
     hasChange: Boolean(Number(m.getDataValue('hasChange' as never))),
   };
 }

@@ -49,6 +49,7 @@ export class AuditService {
         before: entry.before ?? null,
         after: entry.after ?? null,
         address: entry.address !== undefined ? entry.address : (request?.address ?? null),
+        siteId: request?.kitchenId ?? null,
       },
       t,
     );

@@ -53,9 +53,11 @@ export class SessionGuard extends AuthGuard('jwt') implements CanActivate {
 export function kitchenNamed(request: FastifyRequest): string | undefined {
   const header = request.headers[KITCHEN_HEADER];
   const fromHeader = Array.isArray(header) ? header[0] : header;
-  if (fromHeader !== undefined && fromHeader !== '') return fromHeader.trim();
   const query = (request.query ?? {}) as Record<string, unknown>;
-  return typeof query.kitchen === 'string' && query.kitchen !== '' ? query.kitchen.trim() : undefined;
+  const fromQuery = typeof query.kitchen === 'string' && query.kitchen !== '' ? query.kitchen.trim() : undefined;
+  // Taken off the query, so a route's own query schema never sees it as a field of its own.
+  if ('kitchen' in query) delete query.kitchen;
+  return fromHeader !== undefined && fromHeader !== '' ? fromHeader.trim() : fromQuery;
 }
 
 /**

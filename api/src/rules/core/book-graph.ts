@@ -47,12 +47,12 @@ export function closureOf(book: Book, productId: string): Book {
 }
 
 /** The ids of every recipe that uses the item at any depth, through its lines. */
-export function recipesAbove(book: Book, itemId: string): Set<string> {
+export function recipesAbove(book: Pick<Book, 'recipes'>, itemId: string): Set<string> {
   return recipesAboveAny(book, [itemId]);
 }
 
 /** The ids of every recipe that uses any of the items at any depth: one walk of the book however many items. */
-export function recipesAboveAny(book: Book, itemIds: Iterable<string>): Set<string> {
+export function recipesAboveAny(book: Pick<Book, 'recipes'>, itemIds: Iterable<string>): Set<string> {
   const usersOf = new Map<string, Set<string>>();
   for (const r of book.recipes) {
     for (const line of r.lines) {

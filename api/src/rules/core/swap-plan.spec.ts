@@ -1,6 +1,9 @@
-import type { SwapRequest } from '@crumbproof/shared';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { bookFileSchema, type Book, type BookFile, type SwapRequest } from '@crumbproof/shared';
 import { checkBook } from './book-check';
-import { planSwap, type SwapPlan } from './swap-plan';
+import { siteView } from './site-view';
+import { planSwap, swapAtSite, type SwapPlan } from './swap-plan';
 import { book, ing, recipe } from './testing/book-builder';
 
 // A bakery bench: butter is in the sable dough, in the croissant and greases the loaf tin.
@@ -32,7 +35,7 @@ const bench = book(
   ],
 );
 
-const planned = (req: SwapRequest): SwapPlan => {
+const planned = (req: SwapRequest): SwapPlan<Book> => {
   const result = planSwap(bench, req);
   if (!result.ok) throw new Error(`Refused: ${result.refusal.message}`);
   return result.plan;
@@ -152,5 +155,85 @@ describe('planSwap: the swap check before anything is saved', () => {
     },
   ])('refuses, saying "$refusal.message"', ({ req, refusal }) => {
     expect(planSwap(bench, req)).toEqual({ ok: false, refusal });
+  });
+});
+
+// A chain of three kitchens over one book (tests/fixtures/chain-kitchens.book.json): the bench sells
+// everything; the corner shop sells shortbread, made with its own flour; the market stall sells
+// shortbread, made with its farm butter wherever the book says butter or cultured butter.
+const chain: BookFile = bookFileSchema.parse(
+  JSON.parse(readFileSync(join(__dirname, '..', '..', '..', '..', 'tests', 'fixtures', 'chain-kitchens.book.json'), 'utf8')),
+);
+
+/** What a swap of the whole book reaches at each kitchen, by the kitchen's id in the book. */
+function atEachKitchen(req: SwapRequest) {
+  const result = planSwap(chain, req);
+  if (!result.ok) throw new Error(`Refused: ${result.refusal.message}`);
+  const plan = result.plan;
+  return {
+    plan,
+    sites: Object.fromEntries(
+      chain.sites!.map((s) => [s.id, swapAtSite(plan, siteView(chain, s.id), siteView(plan.after, s.id))] as const),
+    ),
+  };
+}
+
+describe('swapAtSite: what a swap of the shared book reaches at each kitchen', () => {
+  it('changes the shared recipes once, and lists each product at every kitchen that sells it', () => {
+    const { plan, sites } = atEachKitchen({ from: 'butter', to: 'plant-spread' });
+    expect(plan.changed.map((r) => r.id)).toEqual(['shortbread', 'sesame-snap']);
+    expect(plan.after.sites).toBe(chain.sites);
+    expect(sites.bench.map((p) => p.product)).toEqual(['shortbread', 'sesame-snap']);
+    // The corner shop and the market stall sell shortbread only.
+    expect(sites.corner.map((p) => p.product)).toEqual(['shortbread']);
+    expect(sites.market.map((p) => p.product)).toEqual(['shortbread']);
+  });
+
+  it('says which lines a kitchen made with its own ingredient before and after', () => {
+    const { sites } = atEachKitchen({ from: 'butter', to: 'plant-spread' });
+    // The corner shop's flour stands in before and after; the market's farm butter stood in for butter, which the swap takes out.
+    expect(sites.corner[0].standIns.before.map((s) => [s.replaces, s.with])).toEqual([['flour', 'corner-flour']]);
+    expect(sites.corner[0].standIns.after.map((s) => [s.replaces, s.with])).toEqual([['flour', 'corner-flour']]);
+    expect(sites.market[0].standIns.before.map((s) => [s.line, s.replaces, s.with])).toEqual([[2, 'butter', 'farm-butter']]);
+    expect(sites.market[0].standIns.after).toEqual([]);
+    expect(sites.bench[0].standIns).toEqual({ before: [], after: [] });
+  });
+
+  it('leaves out a kitchen whose own ingredient stands in for both the replaced ingredient and its replacement', () => {
+    const { sites } = atEachKitchen({ from: 'butter', to: 'cultured-butter' });
+    expect(sites.bench.map((p) => p.product)).toEqual(['shortbread', 'sesame-snap']);
+    expect(sites.corner.map((p) => p.product)).toEqual(['shortbread']);
+    // The market stall makes shortbread with its farm butter either way: nothing changes there.
+    expect(sites.market).toEqual([]);
+  });
+
+  it('lists nothing at a kitchen that sells none of the products reached', () => {
+    const { sites } = atEachKitchen({ from: 'sesame', to: 'sugar', recipe: 'sesame-snap' });
+    expect(sites.bench.map((p) => p.product)).toEqual(['sesame-snap']);
+    expect(sites.corner).toEqual([]);
+    expect(sites.market).toEqual([]);
+  });
+
+  it.each([
+    {
+      req: { from: 'corner-flour', to: 'flour' },
+      refusal: {
+        code: 'validation',
+        message:
+          "Stone-ground wheat flour is Corner Shop's own ingredient, standing in there for Plain wheat flour; the recipes name the shared ingredients, so there is no line of it to swap. Swap Plain wheat flour, or change Corner Shop's substitution.",
+        fields: [{ path: 'from', message: 'Kept only at Corner Shop.' }],
+      },
+    },
+    {
+      req: { from: 'butter', to: 'farm-butter' },
+      refusal: {
+        code: 'validation',
+        message:
+          'Farm butter is kept only at Market Stall, and the recipes are shared by every kitchen: choose a shared ingredient, or let Market Stall stand its own in by a substitution.',
+        fields: [{ path: 'to', message: 'Kept only at Market Stall.' }],
+      },
+    },
+  ])('refuses a kitchen’s own ingredient, saying "$refusal.message"', ({ req, refusal }) => {
+    expect(planSwap(chain, req)).toEqual({ ok: false, refusal });
   });
 });

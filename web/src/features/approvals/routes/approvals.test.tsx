@@ -38,7 +38,15 @@ const brownie: PendingApproval = {
     },
   ],
 };
-const view = (pending: PendingApproval[]): ApprovalsView => ({ regime: 'UK', pending, approvedCount: 4 });
+const KITCHEN = { id: 1, code: null, name: 'Larch Street Bakehouse' };
+const view = (pending: PendingApproval[], kitchens = 1): ApprovalsView => ({
+  kitchen: KITCHEN,
+  kitchens,
+  elsewhere: [],
+  regime: 'UK',
+  pending,
+  approvedCount: 4,
+});
 const stale: StaleLabel = {
   id: '7-0',
   run: 7,
@@ -120,6 +128,44 @@ describe('Approvals page', () => {
     expect(screen.queryByRole('button', { name: /^Approve/ })).not.toBeInTheDocument();
     expect(await screen.findByRole('heading', { name: stale.action })).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Mark handled' })).not.toBeInTheDocument();
+  });
+
+  it('names the kitchen whose declarations wait when several kitchens share the book, and says it approves them there only', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/approvals': {
+          body: {
+            ...view([brownie], 3),
+            kitchen: { id: 2, code: 'corner', name: 'Corner Shop' },
+            elsewhere: [
+              { kitchen: { id: 1, code: 'bench', name: 'Test bench' }, waiting: 2 },
+              { kitchen: { id: 3, code: 'market', name: 'Market Stall' }, waiting: 1 },
+            ],
+          },
+        },
+        'GET /api/labels/stale': { body: [] },
+      }),
+    );
+    renderApp('/approvals');
+    const waiting = await screen.findByRole('region', { name: 'Waiting for approval' });
+    expect(
+      await within(waiting).findByText(
+        'At Corner Shop: these are the declarations as this kitchen makes them, and an approval here approves them here only. The other 2 kitchens sharing the recipe book approve their own.',
+      ),
+    ).toBeInTheDocument();
+    expect(
+      within(waiting).getByText(
+        'Also waiting at your other kitchens: 2 products at Test bench, 1 product at Market Stall. Choose the kitchen to see and approve them.',
+      ),
+    ).toBeInTheDocument();
+  });
+
+  it('says nothing of kitchens in an installation of one', async () => {
+    mockApi(signedInAs('manager', { 'GET /api/approvals': { body: view([brownie]) }, 'GET /api/labels/stale': { body: [] } }));
+    renderApp('/approvals');
+    expect(await screen.findByRole('article', { name: 'Dark chocolate brownie (vegan)' })).toBeInTheDocument();
+    expect(screen.queryByText(/approves them here only/)).not.toBeInTheDocument();
+    expect(screen.queryByText(/Also waiting/)).not.toBeInTheDocument();
   });
 
   it('marks out-of-date labels handled with what was done (manager)', async () => {

@@ -17,7 +17,8 @@ import { StaleLabelsList } from '../components/stale-labels-list';
  * /approvals — products whose declaration changed since a manager approved it (or was never
  * approved), with the change in words and what caused it; the manager approves exactly what is
  * shown (each product's inputHash), the pastry chef reads. Below, printed labels and charts out
- * of date after an approved change, until the manager marks each handled.
+ * of date after an approved change, until the manager marks each handled. All of it is the
+ * request's kitchen's: each kitchen sharing the recipe book approves its own declarations.
  */
 export function ApprovalsRoute() {
   const me = useSignedInUser();
@@ -64,6 +65,20 @@ export function ApprovalsRoute() {
           <Loading size="sm">Reading what waits for approval…</Loading>
         ) : (
           <Stack gap="3">
+            {approvals.data.kitchens > 1 ? (
+              <Text>
+                {`At ${approvals.data.kitchen.name}: these are the declarations as this kitchen makes them, and an approval here approves them here only. The ${
+                  approvals.data.kitchens === 2 ? 'other kitchen' : `other ${approvals.data.kitchens - 1} kitchens`
+                } sharing the recipe book approve their own.`}
+              </Text>
+            ) : null}
+            {approvals.data.elsewhere.length > 0 ? (
+              <Text>
+                {`Also waiting at your other kitchens: ${approvals.data.elsewhere
+                  .map((e) => `${e.waiting} ${e.waiting === 1 ? 'product' : 'products'} at ${e.kitchen.name}`)
+                  .join(', ')}. Choose the kitchen to see and approve them.`}
+              </Text>
+            ) : null}
             {!isManager ? <Text color="fg.muted">Only a manager approves; you can read what waits.</Text> : null}
             {error ? (
               <ErrorAlert title="Nothing was approved">

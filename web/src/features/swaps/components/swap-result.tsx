@@ -1,6 +1,6 @@
-import { Box, Heading, Link, Text } from '@chakra-ui/react';
-import type { SwapPreview } from '@crumbproof/shared';
-import type { ReactNode } from 'react';
+import { Box, Heading, Link, Stack, Text } from '@chakra-ui/react';
+import { REGIME_LABELS, type StandIn, type SwapPreview, type SwapProduct } from '@crumbproof/shared';
+import { useId, type ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { DeclarationDiffView } from '@/components/ui/declaration-diff-view';
 import { hrefFor, type ItemLookup } from '@/components/ui/layer-path';
@@ -17,9 +17,99 @@ function plural(n: number, one: string, many: string) {
   return `${n} ${n === 1 ? one : many}`;
 }
 
-/** For every product the swap reaches: what its declaration would gain, lose and keep. */
+const sameLine = (a: StandIn, b: StandIn) => a.recipe === b.recipe && a.line === b.line;
+
+/** What the kitchen makes with its own ingredients in this product, and which of those the swap ends, in sentences. */
+function standInWords({ standIns }: SwapProduct, lookup: ItemLookup, to: string): string[] {
+  const recipeName = (id: string) => lookup(id)?.name ?? id;
+  const ended = standIns.before.filter((s) => !standIns.after.some((a) => sameLine(a, s)));
+  return [
+    ...standIns.after.map((s) => `Made here with ${s.withName} in place of ${s.replacesName} (${recipeName(s.recipe)}, line ${s.line}).`),
+    ...ended.map(
+      (s) =>
+        `Was made here with ${s.withName} in place of ${s.replacesName} (${recipeName(s.recipe)}, line ${s.line}); after the swap that line uses ${to}, as the book says.`,
+    ),
+  ];
+}
+
+interface ProductListProps {
+  products: SwapProduct[];
+  lookup: ItemLookup;
+  to: string;
+  /** The heading level of each product: h3 alone, h4 under its kitchen's heading. */
+  level: 'h3' | 'h4';
+}
+
+function ProductList({ products, lookup, to, level }: ProductListProps) {
+  return (
+    <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="4">
+      {products.map((product) => (
+        <Box
+          as="li"
+          key={`${product.kitchen.id} ${product.product}`}
+          borderTopWidth="1px"
+          borderColor="border.subtle"
+          pt="4"
+          minW="0"
+          data-changed={product.diff.changed ? 'true' : 'false'}
+          _motionSafe={{ animation: 'fade-in 240ms ease-out' }}
+        >
+          <Heading as={level} size="md" mb="2">
+            <Link asChild color="accent.fg">
+              <RouterLink to={hrefFor(product.product, 'recipe')}>{product.name}</RouterLink>
+            </Link>
+          </Heading>
+          {standInWords(product, lookup, to).map((line) => (
+            <Text key={line} mb="2" color="fg.muted">
+              {line}
+            </Text>
+          ))}
+          <DeclarationDiffView diff={product.diff} lookup={lookup} claims="all" showReasons />
+        </Box>
+      ))}
+    </Box>
+  );
+}
+
+interface KitchenGroupProps {
+  kitchen: SwapPreview['kitchens'][number];
+  products: SwapProduct[];
+  lookup: ItemLookup;
+  to: string;
+}
+
+/** One kitchen's products, under its name, as that kitchen makes and declares them. */
+function KitchenGroup({ kitchen, products, lookup, to }: KitchenGroupProps) {
+  const headingId = useId();
+  return (
+    <Box as="section" aria-labelledby={headingId} borderTopWidth="2px" borderColor="border.muted" pt="3" minW="0">
+      <Stack direction="row" justify="space-between" align="baseline" gap="3" wrap="wrap">
+        <Heading as="h3" id={headingId} size="lg">
+          {kitchen.name}
+        </Heading>
+        <Text color="fg.muted">
+          {`${REGIME_LABELS[kitchen.regime]} rules · ${kitchen.products === 0 ? 'no product affected' : plural(kitchen.products, 'product affected', 'products affected')}`}
+        </Text>
+      </Stack>
+      {products.length === 0 ? (
+        <Text mt="2" color="fg.muted">
+          {`No product for sale at ${kitchen.name} changes: it does not sell these products, or makes them the same either way.`}
+        </Text>
+      ) : (
+        <ProductList products={products} lookup={lookup} to={to} level="h4" />
+      )}
+    </Box>
+  );
+}
+
+/**
+ * For every product the swap reaches: what its declaration would gain, lose and keep. In an
+ * installation of several kitchens, grouped by kitchen, each product as that kitchen declares it.
+ */
 export function SwapResult({ preview, lookup, children }: SwapResultProps) {
-  const { from, to, recipes, products } = preview;
+  const { from, to, recipes, products, kitchens } = preview;
+  const several = kitchens.length > 1;
+  const reached = kitchens.filter((kitchen) => kitchen.products > 0).length;
   return (
     <Panel title="Swap result">
       <Text>
@@ -33,29 +123,27 @@ export function SwapResult({ preview, lookup, children }: SwapResultProps) {
             {` (${plural(recipe.lines, 'line', 'lines')})`}
           </span>
         ))}
-        {`. ${plural(products.length, 'product is', 'products are')} affected.`}
+        {`. ${plural(products.length, 'product is', 'products are')} affected${
+          several ? ` at ${plural(reached, 'kitchen', 'kitchens')} of ${kitchens.length}` : ''
+        }.`}
       </Text>
+      {several ? (
+        <Text color="fg.muted">The recipes are shared by every kitchen: applying the swap changes them for all of them at once.</Text>
+      ) : null}
       {products.length === 0 ? <Text color="fg.muted">No product for sale uses these recipes, so no label changes.</Text> : null}
-      <Box as="ul" listStyleType="none" m="0" p="0" display="flex" flexDirection="column" gap="4">
-        {products.map((product) => (
-          <Box
-            as="li"
-            key={product.product}
-            borderTopWidth="1px"
-            borderColor="border.subtle"
-            pt="4"
-            data-changed={product.diff.changed ? 'true' : 'false'}
-            _motionSafe={{ animation: 'fade-in 240ms ease-out' }}
-          >
-            <Heading as="h3" size="md" mb="2">
-              <Link asChild color="accent.fg">
-                <RouterLink to={hrefFor(product.product, 'recipe')}>{product.name}</RouterLink>
-              </Link>
-            </Heading>
-            <DeclarationDiffView diff={product.diff} lookup={lookup} claims="all" showReasons />
-          </Box>
-        ))}
-      </Box>
+      {several ? (
+        kitchens.map((kitchen) => (
+          <KitchenGroup
+            key={kitchen.id}
+            kitchen={kitchen}
+            products={products.filter((product) => product.kitchen.id === kitchen.id)}
+            lookup={lookup}
+            to={to.name}
+          />
+        ))
+      ) : (
+        <ProductList products={products} lookup={lookup} to={to.name} level="h3" />
+      )}
       {children}
     </Panel>
   );

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { MIX_SHARE_KIND, QUID_KIND } from '@/components/ui/percent-kinds';
 import { mockApi, signedInAs, type ApiHandlers } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
-import { INGREDIENTS, PREVIEW, RECIPES } from '../testing/fixtures';
+import { INGREDIENTS, PREVIEW, PREVIEW_KITCHENS, RECIPES } from '../testing/fixtures';
 
 function swapApi(extra: ApiHandlers = {}) {
   return mockApi(
@@ -63,6 +63,75 @@ describe('Swap check', () => {
     expect(product).toHaveTextContent('Butter: 40.00% of the mix → not used');
     expect(product).toHaveTextContent('Plant spread: not used → 40.00% of the mix');
     expect(product).toHaveTextContent(MIX_SHARE_KIND);
+  });
+
+  it('groups the products by kitchen, each under its name with what that kitchen makes with its own ingredients', async () => {
+    swapApi({ 'POST /api/swaps/preview': { body: PREVIEW_KITCHENS } });
+    const { user } = renderApp('/recipes/swap');
+
+    await chooseSwap(user);
+    await user.click(screen.getByRole('button', { name: 'Check the swap' }));
+    const result = await screen.findByRole('region', { name: 'Swap result' });
+    expect(result).toHaveTextContent('2 products are affected at 2 kitchens of 3.');
+    expect(result).toHaveTextContent('applying the swap changes them for all of them at once');
+    // Every kitchen in the order given, each a region named by its kitchen.
+    const groups = within(result).getAllByRole('region');
+    expect(groups.map((group) => within(group).getByRole('heading', { level: 3 }).textContent)).toEqual([
+      'Test bench',
+      'Corner Shop',
+      'Market Stall',
+    ]);
+    const bench = within(result).getByRole('region', { name: 'Test bench' });
+    expect(bench).toHaveTextContent('United Kingdom rules · 1 product affected');
+    expect(within(bench).getByRole('heading', { level: 4, name: 'Shortbread' })).toBeInTheDocument();
+    expect(bench).not.toHaveTextContent('Stone-ground');
+
+    const corner = within(result).getByRole('region', { name: 'Corner Shop' });
+    expect(corner).toHaveTextContent('United States rules · 1 product affected');
+    const shortbread = within(corner).getByRole('heading', { level: 4, name: 'Shortbread' }).closest('li')!;
+    expect(shortbread).toHaveTextContent('Made here with Stone-ground wheat flour in place of Plain wheat flour (Shortbread, line 1).');
+    const printed = (node: HTMLElement) => [...node.querySelectorAll('dt, dd')].map((cell) => cell.textContent);
+    expect(printed(within(shortbread).getByTestId('ingredients-text-change'))).toEqual([
+      'Before',
+      'Stone-ground wheat flour, butter.',
+      'After',
+      'Stone-ground wheat flour, plant spread.',
+    ]);
+
+    const market = within(result).getByRole('region', { name: 'Market Stall' });
+    expect(market).toHaveTextContent('no product affected');
+    expect(market).toHaveTextContent('No product for sale at Market Stall changes');
+    expect(within(market).queryByRole('listitem')).not.toBeInTheDocument();
+  });
+
+  it('says when a swap ends a kitchen’s own ingredient standing in', async () => {
+    const [bench, corner] = PREVIEW_KITCHENS.products;
+    const standIn = corner!.standIns.before[0]!;
+    swapApi({
+      'POST /api/swaps/preview': {
+        body: {
+          ...PREVIEW_KITCHENS,
+          products: [
+            bench!,
+            {
+              ...corner!,
+              standIns: {
+                before: [{ ...standIn, line: 2, replaces: 'butter', replacesName: 'Butter', with: 'farm-butter', withName: 'Farm butter' }],
+                after: [],
+              },
+            },
+          ],
+        },
+      },
+    });
+    const { user } = renderApp('/recipes/swap');
+
+    await chooseSwap(user);
+    await user.click(screen.getByRole('button', { name: 'Check the swap' }));
+    const corner2 = within(await screen.findByRole('region', { name: 'Swap result' })).getByRole('region', { name: 'Corner Shop' });
+    expect(corner2).toHaveTextContent(
+      'Was made here with Farm butter in place of Butter (Shortbread, line 2); after the swap that line uses Plant spread, as the book says.',
+    );
   });
 
   it('applies the swap after a confirmation naming how many recipes get a new revision', async () => {

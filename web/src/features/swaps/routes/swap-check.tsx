@@ -171,10 +171,11 @@ function SwapCheck() {
               </Text>
               <Box as="ul" ps="5" m="0">
                 {applied.preview.products.map((product) => (
-                  <li key={product.product}>
+                  <li key={`${product.kitchen.id} ${product.product}`}>
                     <Link asChild color="accent.fg" fontWeight="bold">
                       <RouterLink to={hrefFor(product.product, 'recipe')}>{product.name}</RouterLink>
                     </Link>
+                    {applied.preview.kitchens.length > 1 ? ` at ${product.kitchen.name}` : null}
                   </li>
                 ))}
               </Box>

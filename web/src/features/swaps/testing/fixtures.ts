@@ -124,9 +124,67 @@ function shortbread(leaf: 'butter' | 'plant-spread'): Declaration {
 const before = shortbread('butter');
 const after = shortbread('plant-spread');
 
+const HOME = { id: 1, code: null, name: 'Wrenfield Lane Bakehouse', regime: 'UK' as const };
+const SHORTBREAD: SwapPreview['products'][number] = {
+  kitchen: HOME,
+  product: 'shortbread',
+  name: 'Shortbread',
+  before,
+  after,
+  diff: diffDeclarations(before, after),
+  standIns: { before: [], after: [] },
+};
+
 export const PREVIEW: SwapPreview = {
   from: { id: 'butter', name: 'Butter' },
   to: { id: 'plant-spread', name: 'Plant spread' },
   recipes: [{ id: 'shortbread', name: 'Shortbread', lines: 1 }],
-  products: [{ product: 'shortbread', name: 'Shortbread', before, after, diff: diffDeclarations(before, after) }],
+  kitchens: [{ ...HOME, products: 1 }],
+  products: [SHORTBREAD],
+};
+
+const BENCH = { id: 1, code: 'bench', name: 'Test bench', regime: 'UK' as const };
+const CORNER = { id: 2, code: 'corner', name: 'Corner Shop', regime: 'US' as const };
+const MARKET = { id: 3, code: 'market', name: 'Market Stall', regime: 'EU' as const };
+
+/** The corner shop makes its shortbread with its own flour, which may contain soy, and its market stall its own butter. */
+const FLOUR_STAND_IN = {
+  recipe: 'shortbread',
+  line: 1,
+  replaces: 'flour',
+  replacesName: 'Plain wheat flour',
+  with: 'corner-flour',
+  withName: 'Stone-ground wheat flour',
+};
+function atCorner(d: Declaration): Declaration {
+  return {
+    ...d,
+    regime: 'US',
+    mayContain: [...d.mayContain, { allergen: 'soy', label: 'soy', why: ['Supplier of Stone-ground wheat flour: may contain soy'] }],
+    ingredientsText: d.ingredientsText.replace('Wheat flour', 'Stone-ground wheat flour'),
+  };
+}
+const cornerBefore = atCorner(before);
+const cornerAfter = atCorner(after);
+
+/** One swap over three kitchens sharing the book: two reached, one not (it does not sell shortbread). */
+export const PREVIEW_KITCHENS: SwapPreview = {
+  ...PREVIEW,
+  kitchens: [
+    { ...BENCH, products: 1 },
+    { ...CORNER, products: 1 },
+    { ...MARKET, products: 0 },
+  ],
+  products: [
+    { ...SHORTBREAD, kitchen: BENCH },
+    {
+      kitchen: CORNER,
+      product: 'shortbread',
+      name: 'Shortbread',
+      before: cornerBefore,
+      after: cornerAfter,
+      diff: diffDeclarations(cornerBefore, cornerAfter),
+      standIns: { before: [FLOUR_STAND_IN], after: [FLOUR_STAND_IN] },
+    },
+  ],
 };
