@@ -1,5 +1,5 @@
 // npm start: installs what is missing, starts the private MariaDB under .data/, migrates,
-// seeds the demo kitchen into an empty database, builds the web app and serves it from the API.
+// seeds the demo kitchens into an empty database, builds the web app and serves it from the API.
 import { join } from 'node:path';
 import { startDevInbox } from './lib/dev-inbox.mjs';
 import { chooseDatabasePort, ensureMariadbInstalled, freePort, instance, isPortFree } from './lib/mariadb.mjs';
@@ -107,14 +107,17 @@ async function main() {
     await waitForHttp(`http://${HOST}:${PORT}/api/health`, 60_000, api);
     const intro = DEMO
       ? `
-  Demo mode: the demo kitchen, on this machine only. Its accounts share a published
-  password; for your kitchen's own installation run DEMO_KITCHEN=false npm start (or listen
-  beyond loopback): no demo accounts, and a one-time link sets the first manager's password.
+  Demo mode: two demo kitchens over one recipe book (Wrenfield Lane Bakehouse and Saltmarsh
+  Yard Café), on this machine only. Its accounts share a published password; for your kitchen's
+  own installation run DEMO_KITCHEN=false npm start (or listen beyond loopback): no demo
+  accounts, and a one-time link sets the first manager's password.
 
   Demo sign-ins (password for each: crumbproof-demo)
-    manager@example.com   Manager
-    chef@example.com      Pastry chef
-    counter@example.com   Front of house`
+    manager@example.com   Manager at both kitchens
+    chef@example.com      Pastry chef at both kitchens
+    counter@example.com   Front of house at Wrenfield Lane Bakehouse
+    cafe@example.com      Front of house at Saltmarsh Yard Café
+    quay@example.com      Manager at the café, front of house at the bakehouse`
       : `
   Your kitchen's own installation: no demo accounts. While no manager can sign in, each start
   prints a one-time link above that sets the first manager's password.${

@@ -1,6 +1,6 @@
 /**
  * Database set-up from the command line: `node api/dist/cli/db.js migrate|seed|setup`.
- * setup = migrate, then seed the demo kitchen into an empty database.
+ * setup = migrate, then seed the demo (two kitchens over one recipe book) into an empty database.
  */
 import 'reflect-metadata';
 import { Module } from '@nestjs/common';
@@ -38,7 +38,7 @@ async function main(command: string) {
   const ctx = await NestFactory.createApplicationContext(DbCliModule, { logger: ['error', 'warn'] });
   try {
     const result = await ctx.get(SeedService).seedDemo();
-    console.log(result === 'seeded' ? 'Seeded the demo kitchen.' : 'Kept the existing data.');
+    console.log(result === 'seeded' ? 'Seeded the demo kitchens.' : 'Kept the existing data.');
   } finally {
     await ctx.close();
   }
