@@ -21,7 +21,7 @@ describe('Users page', () => {
     const headers = within(table)
       .getAllByRole('columnheader')
       .map((header) => header.textContent);
-    expect(headers).toEqual(['Name', 'Email', 'Role', 'Active', 'Created', 'Access']);
+    expect(headers).toEqual(['Name', 'Email', 'Role at Larch Street Bakehouse', 'Active', 'Created', 'Access']);
     // One header row and one row per user.
     expect(within(table).getAllByRole('row')).toHaveLength(USERS.length + 1);
 
@@ -99,7 +99,15 @@ describe('Users page', () => {
         'GET /api/users': () => ({ body: users }),
         'POST /api/users/invitations': ({ body }) => {
           const input = body as { email: string; name: string; role: User['role'] };
-          const created: User = { id: 4, ...input, active: true, invitationPending: true, createdAt: '2026-12-01T10:00:00.000Z' };
+          const created: User = {
+            id: 4,
+            ...input,
+            kitchen: 1,
+            kitchens: [{ id: 1, code: null, name: 'Larch Street Bakehouse', role: input.role }],
+            active: true,
+            invitationPending: true,
+            createdAt: '2026-12-01T10:00:00.000Z',
+          };
           users = [...users, created];
           return { status: 201, body: created };
         },
@@ -112,7 +120,7 @@ describe('Users page', () => {
     expect(within(form).queryByLabelText('Password')).not.toBeInTheDocument();
     await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
     await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
-    await user.selectOptions(within(form).getByLabelText('Role'), 'Pastry chef');
+    await user.selectOptions(within(form).getByLabelText('Role at Larch Street Bakehouse'), 'Pastry chef');
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
     expect(await within(screen.getByRole('table')).findByText('Ines Moreau')).toBeInTheDocument();
