@@ -118,10 +118,15 @@ export const LABEL_SETTINGS: LabelSettings = {
   caseIndicator: 1,
 };
 
+/** A person as the users list shows them at Larch Street: their role there. */
+function listed({ id, email, name, role }: Me, active: boolean, createdAt: string): User {
+  return { id, email, name, role, active, invitationPending: false, createdAt };
+}
+
 export const USERS: User[] = [
-  { ...PEOPLE.manager, active: true, invitationPending: false, createdAt: '2026-03-02T09:00:00.000Z' },
-  { ...PEOPLE['pastry-chef'], active: true, invitationPending: false, createdAt: '2026-03-04T09:00:00.000Z' },
-  { ...PEOPLE['front-of-house'], active: false, invitationPending: false, createdAt: '2026-05-20T09:00:00.000Z' },
+  listed(PEOPLE.manager, true, '2026-03-02T09:00:00.000Z'),
+  listed(PEOPLE['pastry-chef'], true, '2026-03-04T09:00:00.000Z'),
+  listed(PEOPLE['front-of-house'], false, '2026-05-20T09:00:00.000Z'),
 ];
 
 /** The API as seen by a signed-in person of the given role. */

@@ -99,15 +99,7 @@ describe('Users page', () => {
         'GET /api/users': () => ({ body: users }),
         'POST /api/users/invitations': ({ body }) => {
           const input = body as { email: string; name: string; role: User['role'] };
-          const created: User = {
-            id: 4,
-            ...input,
-            kitchen: 1,
-            kitchens: [{ id: 1, code: null, name: 'Larch Street Bakehouse', role: input.role }],
-            active: true,
-            invitationPending: true,
-            createdAt: '2026-12-01T10:00:00.000Z',
-          };
+          const created: User = { id: 4, ...input, active: true, invitationPending: true, createdAt: '2026-12-01T10:00:00.000Z' };
           users = [...users, created];
           return { status: 201, body: created };
         },
