@@ -65,8 +65,8 @@ describe('mail to the people of each kitchen (real MariaDB)', () => {
     expect(saved.statusCode).toBe(200);
     const mails = await mailsAfter('approval-needed', mark, 2);
     expect(mails.map((m) => [m.recipients, m.subject])).toEqual([
-      [['manager.a@example.com', 'owner@example.com'], '2 products wait for your approval'],
-      [['manager.b@example.com', 'owner@example.com'], 'Shortbread waits for your approval'],
+      [['manager.a@example.com', 'owner@example.com'], '2 products wait for your approval at Test bench'],
+      [['manager.b@example.com', 'owner@example.com'], 'Shortbread waits for your approval at Corner Shop'],
     ]);
     expect(mails[0].text).toContain('Sesame snap (adds an allergen)');
     expect(mails[1].text).not.toContain('Sesame snap');

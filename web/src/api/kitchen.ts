@@ -1,6 +1,7 @@
 import { kitchenSchema, type KitchenView } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
+import { useWorkingKitchen } from '@/lib/signed-in-user';
 import { queryKeys } from './query-keys';
 
 /** The kitchen: name, address, declaring regime, household measures and allergen handling. */
@@ -18,4 +19,14 @@ export function getKitchenQueryOptions() {
 
 export function useKitchen() {
   return useQuery(getKitchenQueryOptions());
+}
+
+/**
+ * The name of the kitchen the app answers for: the signed-in person's chosen kitchen, or the
+ * kitchen's own settings on an installation whose kitchens are not set up yet.
+ */
+export function useKitchenName(): string | undefined {
+  const working = useWorkingKitchen();
+  const kitchen = useKitchen();
+  return working?.name ?? kitchen.data?.name;
 }

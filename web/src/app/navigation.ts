@@ -50,3 +50,9 @@ export function describeRoles(roles: readonly Role[]): string {
   if (labels.length <= 1) return labels.join('');
   return `${labels.slice(0, -1).join(', ')} and ${labels.at(-1)}`;
 }
+
+/** The page an address belongs to ("/recipes/brioche" is in Recipes), or null for one outside them. */
+export function pageAt(pathname: string): PageKey | null {
+  const keys = Object.keys(PAGES) as PageKey[];
+  return keys.find((key) => pathname === PAGES[key].path || pathname.startsWith(`${PAGES[key].path}/`)) ?? null;
+}

@@ -52,7 +52,8 @@ const PAGE_ROUTES: Record<PageKey, Pick<RouteObject, 'lazy'>> = {
   mail: gated('mail', () => import('@/features/mail/routes/mail').then((m) => m.MailRoute)),
 };
 
-const homeFor = (me: Me) => firstPathFor(me.role);
+/** Someone of several kitchens who has not named one yet lands on "/": it opens their first page at the kitchen they work in. */
+const homeFor = (me: Me) => (me.kitchen === null && me.kitchens.length > 1 ? '/' : firstPathFor(me.role));
 
 /** Every route of the web app, in one place. */
 export const routes: RouteObject[] = [

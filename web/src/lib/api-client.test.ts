@@ -1,5 +1,7 @@
-import { describe, expect, it, vi } from 'vitest';
+import { KITCHEN_HEADER } from '@crumbproof/shared';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ApiError, apiClient } from './api-client';
+import { forgetKitchen, storedKitchen, withKitchen, workIn } from './kitchen-choice';
 
 function answer(status: number, body?: unknown) {
   const fetchMock = vi.fn(() => Promise.resolve(new Response(body === undefined ? null : JSON.stringify(body), { status })));
@@ -94,5 +96,35 @@ describe('apiClient', () => {
       code: 'network',
       message: 'Crumbproof could not reach the server. Check the connection and try again.',
     });
+  });
+});
+
+describe('apiClient and the kitchen', () => {
+  afterEach(() => forgetKitchen());
+
+  it('names no kitchen before one is chosen', async () => {
+    const fetchMock = answer(200, {});
+    await apiClient.get('/me');
+    const init = (fetchMock.mock.calls[0] as unknown as [string, RequestInit])[1];
+    expect(init.headers).not.toHaveProperty(KITCHEN_HEADER);
+  });
+
+  it('names the chosen kitchen in the header of every request, and remembers it for the person', async () => {
+    const fetchMock = answer(200, {});
+    workIn(4, 2);
+    await apiClient.get('/counter/products');
+    await apiClient.post('/counter/questions', { product: 'brownie' });
+    for (const call of fetchMock.mock.calls as unknown as [string, RequestInit][]) {
+      expect(call[1].headers).toMatchObject({ [KITCHEN_HEADER]: '2' });
+    }
+    expect(storedKitchen(4)).toBe(2);
+    expect(storedKitchen(5)).toBeNull();
+  });
+
+  it('puts the kitchen in the address of what the browser opens itself', () => {
+    expect(withKitchen('/api/labels/runs/42/pdf')).toBe('/api/labels/runs/42/pdf');
+    workIn(4, 2);
+    expect(withKitchen('/api/labels/runs/42/pdf')).toBe('/api/labels/runs/42/pdf?kitchen=2');
+    expect(withKitchen('/api/audit/export.csv?from=2026-12-01')).toBe('/api/audit/export.csv?from=2026-12-01&kitchen=2');
   });
 });

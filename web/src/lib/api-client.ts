@@ -1,4 +1,5 @@
 import type { ApiErrorBody, BookProblem, ErrorCode, FieldError, StaleBase, StaleImportRow } from '@crumbproof/shared';
+import { kitchenHeaders } from './kitchen-choice';
 
 /** Codes the browser adds to the API's own: the request never arrived, or the answer was unreadable. */
 export type ClientErrorCode = ErrorCode | 'network' | 'bad-response';
@@ -74,7 +75,8 @@ async function readJson(response: Response): Promise<unknown> {
 }
 
 async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  // Every request names the kitchen it is for (the API refuses one the person has no role in).
+  const headers: Record<string, string> = { Accept: 'application/json', ...kitchenHeaders() };
   // FormData (file uploads) goes as multipart: the browser writes the Content-Type with its boundary.
   const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
   if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
@@ -111,7 +113,8 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
 }
 
 /**
- * The one way the web talks to the API: same origin, cookie credentials, JSON both ways.
+ * The one way the web talks to the API: same origin, cookie credentials, JSON both ways, and
+ * the chosen kitchen named in every request's header.
  * A FormData body is sent as multipart/form-data (file uploads); the answer is still JSON.
  */
 export const apiClient = {

@@ -1,4 +1,4 @@
-import type { Me } from '@crumbproof/shared';
+import type { KitchenRole, Me } from '@crumbproof/shared';
 import { createContext, useContext, type ReactNode } from 'react';
 
 const SignedInUserContext = createContext<Me | null>(null);
@@ -20,4 +20,10 @@ export function useSignedInUser(): Me {
   const me = useContext(SignedInUserContext);
   if (!me) throw new Error('useSignedInUser was used outside the signed-in part of the app.');
   return me;
+}
+
+/** The kitchen the app answers for, with the person's role there; null before any kitchen is set up. */
+export function useWorkingKitchen(): KitchenRole | null {
+  const me = useSignedInUser();
+  return me.kitchens.find((kitchen) => kitchen.id === me.kitchen) ?? null;
 }

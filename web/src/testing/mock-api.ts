@@ -1,4 +1,4 @@
-import type { KitchenView, LabelSettings, Me, Role, User } from '@crumbproof/shared';
+import { KITCHEN_HEADER, type KitchenRole, type KitchenView, type LabelSettings, type Me, type Role, type User } from '@crumbproof/shared';
 import { vi } from 'vitest';
 
 export interface MockResponse {
@@ -6,7 +6,8 @@ export interface MockResponse {
   body?: unknown;
 }
 
-type Handler = MockResponse | ((request: { body: unknown; url: string }) => MockResponse);
+/** A function handler may answer later (a promise), to hold a response while the test looks at the page. */
+type Handler = MockResponse | ((request: { body: unknown; url: string; kitchen: string | null }) => MockResponse | Promise<MockResponse>);
 
 /** Keys are "METHOD /api/path", e.g. "POST /api/auth/sign-in". */
 export type ApiHandlers = Record<string, Handler>;
@@ -16,6 +17,10 @@ export interface RecordedCall {
   path: string;
   body: unknown;
   credentials: RequestCredentials | undefined;
+  /** The kitchen the request named in its header, or null when it named none. */
+  kitchen: string | null;
+  /** The `kitchen` query parameter of the address, or null. */
+  kitchenParam: string | null;
 }
 
 /** The address a fetch was called with, whichever form it came in. */
@@ -32,33 +37,68 @@ export function mockApi(handlers: ApiHandlers) {
   const fetchMock = vi.fn((input: RequestInfo | URL, init?: RequestInit): Promise<Response> => {
     const url = requestUrl(input);
     const method = (init?.method ?? 'GET').toUpperCase();
-    const path = new URL(url, 'http://crumbproof.test').pathname;
+    const address = new URL(url, 'http://crumbproof.test');
+    const path = address.pathname;
     const body = typeof init?.body === 'string' ? (JSON.parse(init.body) as unknown) : undefined;
-    calls.push({ method, path, body, credentials: init?.credentials });
+    const kitchen = new Headers(init?.headers).get(KITCHEN_HEADER);
+    calls.push({ method, path, body, credentials: init?.credentials, kitchen, kitchenParam: address.searchParams.get('kitchen') });
 
     const handler = handlers[`${method} ${path}`];
-    const answer: MockResponse =
+    const answer: MockResponse | Promise<MockResponse> =
       handler === undefined
         ? { status: 404, body: { statusCode: 404, code: 'not-found', message: `No mock for ${method} ${path}.` } }
         : typeof handler === 'function'
-          ? handler({ body, url })
+          ? handler({ body, url, kitchen })
           : handler;
-    const status = answer.status ?? 200;
-    return Promise.resolve(
-      new Response(answer.body === undefined || status === 204 ? null : JSON.stringify(answer.body), {
+    return Promise.resolve(answer).then(({ status = 200, body: answered }) => {
+      return new Response(answered === undefined || status === 204 ? null : JSON.stringify(answered), {
         status,
         headers: { 'Content-Type': 'application/json' },
-      }),
-    );
+      });
+    });
   });
   vi.stubGlobal('fetch', fetchMock);
   return { calls, fetchMock };
 }
 
+/** The one kitchen of the people below, with their role there. */
+function atLarchStreet(role: Role): Pick<Me, 'role' | 'kitchen' | 'kitchens'> {
+  return { role, kitchen: 1, kitchens: [{ id: 1, code: null, name: 'Larch Street Bakehouse', role }] };
+}
+
 export const PEOPLE: Record<Role, Me> = {
-  manager: { id: 1, email: 'maren@crumbproof.test', name: 'Maren Okafor', role: 'manager' },
-  'pastry-chef': { id: 2, email: 'teodor@crumbproof.test', name: 'Teodor Lind', role: 'pastry-chef' },
-  'front-of-house': { id: 3, email: 'priya@crumbproof.test', name: 'Priya Sandhu', role: 'front-of-house' },
+  manager: { id: 1, email: 'maren@crumbproof.test', name: 'Maren Okafor', ...atLarchStreet('manager') },
+  'pastry-chef': { id: 2, email: 'teodor@crumbproof.test', name: 'Teodor Lind', ...atLarchStreet('pastry-chef') },
+  'front-of-house': { id: 3, email: 'priya@crumbproof.test', name: 'Priya Sandhu', ...atLarchStreet('front-of-house') },
+};
+
+/** Two kitchens of one recipe book, and someone who is manager of one and front of house in the other. */
+export const TWO_KITCHENS: KitchenRole[] = [
+  { id: 1, code: 'larch', name: 'Larch Street Bakehouse', role: 'manager' },
+  { id: 2, code: 'saltmarsh', name: 'Saltmarsh Yard Café', role: 'front-of-house' },
+];
+
+/** Ines as /me answers her: for the kitchen the request named, or for none when it named none. */
+export function inesAt(kitchen: string | null): Me {
+  const at = TWO_KITCHENS.find((k) => String(k.id) === kitchen);
+  return {
+    id: 4,
+    email: 'ines@crumbproof.test',
+    name: 'Ines Duarte',
+    role: at?.role ?? 'manager',
+    kitchen: at?.id ?? null,
+    kitchens: TWO_KITCHENS,
+  };
+}
+
+/** The second kitchen's settings: its own name and regime. */
+export const SALTMARSH: KitchenView = {
+  id: 2,
+  name: 'Saltmarsh Yard Café',
+  regime: 'EU',
+  address: '3 Saltmarsh Yard',
+  measures: null,
+  handles: [],
 };
 
 export const KITCHEN: KitchenView = {
@@ -78,10 +118,15 @@ export const LABEL_SETTINGS: LabelSettings = {
   caseIndicator: 1,
 };
 
+/** A person as the users list shows them at Larch Street: their role there. */
+function listed({ id, email, name, role }: Me, active: boolean, createdAt: string): User {
+  return { id, email, name, role, active, invitationPending: false, createdAt };
+}
+
 export const USERS: User[] = [
-  { ...PEOPLE.manager, active: true, invitationPending: false, createdAt: '2026-03-02T09:00:00.000Z' },
-  { ...PEOPLE['pastry-chef'], active: true, invitationPending: false, createdAt: '2026-03-04T09:00:00.000Z' },
-  { ...PEOPLE['front-of-house'], active: false, invitationPending: false, createdAt: '2026-05-20T09:00:00.000Z' },
+  listed(PEOPLE.manager, true, '2026-03-02T09:00:00.000Z'),
+  listed(PEOPLE['pastry-chef'], true, '2026-03-04T09:00:00.000Z'),
+  listed(PEOPLE['front-of-house'], false, '2026-05-20T09:00:00.000Z'),
 ];
 
 /** The API as seen by a signed-in person of the given role. */

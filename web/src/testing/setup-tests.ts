@@ -1,6 +1,7 @@
 import '@testing-library/jest-dom/vitest';
 import { cleanup, configure } from '@testing-library/react';
 import { afterEach } from 'vitest';
+import { forgetKitchen } from '@/lib/kitchen-choice';
 
 // jsdom has no matchMedia; Chakra's responsive styles ask for it.
 if (!window.matchMedia) {
@@ -40,4 +41,7 @@ configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => {
   cleanup();
+  // Every test starts in a browser where no kitchen was chosen.
+  forgetKitchen();
+  window.localStorage.clear();
 });

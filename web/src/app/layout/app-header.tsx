@@ -4,12 +4,11 @@ import { useNavigate } from 'react-router-dom';
 import { BrandMark } from '@/components/ui/brand-mark';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { useSignedInUser } from '@/lib/signed-in-user';
-import { useKitchen } from '@/api/kitchen';
+import { KitchenSwitcher } from './kitchen-switcher';
 import { MainNav } from './main-nav';
 
 export function AppHeader() {
   const me = useSignedInUser();
-  const kitchen = useKitchen();
   const navigate = useNavigate();
   const signOut = useSignOut({ onSignedOut: () => navigate('/sign-in', { replace: true, flushSync: true }) });
 
@@ -26,12 +25,7 @@ export function AppHeader() {
             <Text fontWeight="bold" fontSize="lg" lineHeight="short">
               Crumbproof
             </Text>
-            {/* The kitchen's name is a courtesy: if it cannot be fetched the header simply goes without. */}
-            {kitchen.data ? (
-              <Text color="fg.muted" fontSize="sm">
-                {kitchen.data.name}
-              </Text>
-            ) : null}
+            <KitchenSwitcher />
           </Stack>
         </HStack>
         <HStack gap="4" wrap="wrap">

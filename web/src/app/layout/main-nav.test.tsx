@@ -41,7 +41,7 @@ describe('Main navigation', () => {
     expect(screen.getAllByRole('heading', { level: 1 })).toHaveLength(1);
   });
 
-  it('keeps the page working when the kitchen cannot be fetched', async () => {
+  it('keeps the page working, and names the kitchen from who is signed in, when the kitchen cannot be fetched', async () => {
     mockApi(
       signedInAs('pastry-chef', {
         'GET /api/kitchen': { status: 500, body: { statusCode: 500, code: 'internal', message: 'Down.' } },
@@ -50,8 +50,22 @@ describe('Main navigation', () => {
     renderApp('/labels');
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Labels' })).toBeInTheDocument();
-    expect(within(screen.getByRole('banner')).getByText('Teodor Lind')).toBeInTheDocument();
-    expect(screen.queryByText('Larch Street Bakehouse')).not.toBeInTheDocument();
+    const banner = screen.getByRole('banner');
+    expect(within(banner).getByText('Teodor Lind')).toBeInTheDocument();
+    expect(within(banner).getByText('Larch Street Bakehouse')).toBeInTheDocument();
+  });
+
+  it('goes without the kitchen’s name on an installation with no kitchen set up whose settings cannot be read', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/me': { body: { ...PEOPLE.manager, kitchen: null, kitchens: [] } },
+        'GET /api/kitchen': { status: 500, body: { statusCode: 500, code: 'internal', message: 'Down.' } },
+      }),
+    );
+    renderApp('/audit');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Audit' })).toBeInTheDocument();
+    expect(within(screen.getByRole('banner')).queryByText(/Working in/)).not.toBeInTheDocument();
   });
 
   it('gives every page a skip link, a main landmark and the caution', async () => {

@@ -1,15 +1,24 @@
 import { useEffect, useRef } from 'react';
 import { Outlet, useLocation } from 'react-router-dom';
+import { useCurrentKitchen } from '@/lib/use-work-in';
 import { AppHeader } from './app-header';
 import { ShellFrame } from './app-shell';
 import { MAIN_ID } from './skip-link';
+import { RequireKitchen } from './require-kitchen';
 import { RequireSignIn } from './require-sign-in';
 
-/** Everything behind the sign-in: loaded after it (a lazy route), so the sign-in page stays light. */
+/**
+ * Everything behind the sign-in: loaded after it (a lazy route), so the sign-in page stays light.
+ * It starts afresh for each kitchen (keyed by it): nothing read or typed for one kitchen is
+ * shown in another.
+ */
 export function SignedInShell() {
+  const kitchen = useCurrentKitchen();
   return (
-    <RequireSignIn>
-      <AppShell />
+    <RequireSignIn key={kitchen ?? 'none'}>
+      <RequireKitchen>
+        <AppShell />
+      </RequireKitchen>
     </RequireSignIn>
   );
 }

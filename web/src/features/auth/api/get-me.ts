@@ -2,13 +2,25 @@ import { meSchema, type Me } from '@crumbproof/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { queryKeys } from '@/api/query-keys';
 import { apiClient, isApiError } from '@/lib/api-client';
+import { currentKitchen, forgetKitchen } from '@/lib/kitchen-choice';
 
-/** The signed-in person, or null when nobody is signed in (the API answers 401). */
+/**
+ * The signed-in person with their role at the chosen kitchen, or null when nobody is signed in
+ * (the API answers 401). Refused at the chosen kitchen (their role there was taken away), the
+ * app stops naming it and asks again, so they are offered the kitchens they still work in.
+ */
 export async function getMe({ signal }: { signal?: AbortSignal } = {}): Promise<Me | null> {
   try {
     return meSchema.parse(await apiClient.get<unknown>('/me', { signal }));
   } catch (error) {
-    if (isApiError(error) && error.status === 401) return null;
+    if (isApiError(error) && error.status === 401) {
+      forgetKitchen({ quietly: true });
+      return null;
+    }
+    if (isApiError(error) && error.status === 403 && currentKitchen() !== null) {
+      forgetKitchen({ quietly: true });
+      return getMe({ signal });
+    }
     throw error;
   }
 }

@@ -1,6 +1,7 @@
 import { mutationOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiClient } from '@/lib/api-client';
 import { mutationKeys, queryKeys } from '@/api/query-keys';
+import { forgetKitchen } from '@/lib/kitchen-choice';
 
 export async function signOut(): Promise<void> {
   await apiClient.post<void>('/auth/sign-out');
@@ -16,7 +17,8 @@ interface UseSignOutOptions {
 }
 
 /**
- * Signs out, leaves the signed-in pages, then forgets everything cached for that person.
+ * Signs out, leaves the signed-in pages, then forgets everything cached for that person and
+ * stops naming their kitchen (their choice stays kept for their next sign-in in this browser).
  * Clearing after leaving keeps the old pages from refetching on their way out.
  */
 export function useSignOut({ onSignedOut }: UseSignOutOptions) {
@@ -28,6 +30,7 @@ export function useSignOut({ onSignedOut }: UseSignOutOptions) {
       queryClient.setQueryData(queryKeys.me(), null);
       await onSignedOut();
       queryClient.clear();
+      forgetKitchen();
     },
   });
 }

@@ -9,7 +9,7 @@ describe('Set the first manager', () => {
       ...signedOut,
       'POST /api/auth/first-manager': {
         status: 201,
-        body: { id: 1, email: 'owner@crumbproof.test', name: 'Ada Rowe', role: 'manager' },
+        body: { id: 1, email: 'owner@crumbproof.test', name: 'Ada Rowe', role: 'manager', kitchen: null, kitchens: [] },
       },
     });
     const { user, router } = renderApp('/first-manager#token=one-time-token');

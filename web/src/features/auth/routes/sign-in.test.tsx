@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { fieldsRefused, mockApi, PEOPLE, signedInAs, signedOut } from '@/testing/mock-api';
+import { fieldsRefused, inesAt, mockApi, PEOPLE, signedInAs, signedOut } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 
 /** The API before and after a successful sign-in: /api/me answers 401 until then. */
@@ -94,6 +94,29 @@ describe('Sign in', () => {
     // The shared schema trims and lower-cases the email, exactly as the API will.
     expect(signIn?.body).toEqual({ email: 'priya@crumbproof.test', password: 'counter-pass-1' });
     expect(signIn?.credentials).toBe('include');
+  });
+
+  it('asks someone of two kitchens which one they work in, then opens their first page there', async () => {
+    let signedIn = false;
+    const { calls } = mockApi({
+      ...signedInAs('manager'),
+      'GET /api/me': ({ kitchen }) => (signedIn ? { body: inesAt(kitchen) } : signedOut['GET /api/me']) as never,
+      'POST /api/auth/sign-in': () => {
+        signedIn = true;
+        return { body: inesAt(null) };
+      },
+    });
+    const { user, router } = renderApp('/sign-in');
+
+    await user.type(await screen.findByLabelText('Email'), 'ines@crumbproof.test');
+    await user.type(screen.getByLabelText('Password'), 'two-kitchens-1');
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Which kitchen are you working in?' })).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: /Saltmarsh Yard Café/ }));
+    expect(await screen.findByRole('heading', { level: 1, name: 'Counter' })).toBeInTheDocument();
+    expect(router.state.location.pathname).toBe('/counter');
+    expect(calls.find((call) => call.path === '/api/auth/sign-in')?.kitchen).toBeNull();
   });
 
   it('returns to the page the person asked for', async () => {

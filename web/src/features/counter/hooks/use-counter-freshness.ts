@@ -2,6 +2,7 @@ import { COUNTER_EVENT_TYPES, type CounterEvent } from '@crumbproof/shared';
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useEffect, useReducer, useState } from 'react';
 import { queryKeys } from '@/api/query-keys';
+import { withKitchen } from '@/lib/kitchen-choice';
 import { freshnessReducer, INITIAL_FRESHNESS, needsCatchUp, type FreshnessState } from '../utils/freshness';
 
 export const COUNTER_EVENTS_URL = '/api/counter/events';
@@ -55,7 +56,8 @@ export function useCounterFreshness(): FreshnessState {
       dispatch({ type: 'lost', at: Date.now() });
       return;
     }
-    const source = new EventSource(COUNTER_EVENTS_URL, { withCredentials: true });
+    // A stream cannot carry the header: its address names the kitchen.
+    const source = new EventSource(withKitchen(COUNTER_EVENTS_URL), { withCredentials: true });
     let reopen: ReturnType<typeof setTimeout> | undefined;
     source.addEventListener('open', () => dispatch({ type: 'opened' }));
     source.addEventListener('error', () => {

@@ -40,6 +40,16 @@ const row = (name: string) => screen.getByRole('button', { name: new RegExp(`^${
 describe('the counter’s look up', () => {
   beforeEach(() => stubEventSource());
 
+  it('says in its header which kitchen’s counter it is, and listens to that kitchen’s events', async () => {
+    counterApi('front-of-house', [demoCounterView()]);
+    renderApp('/counter');
+
+    const heading = await screen.findByRole('heading', { name: 'Counter', level: 1 });
+    const header = heading.parentElement!;
+    expect(await within(header).findByText('Declared for Larch Street Bakehouse (UK rules)')).toBeInTheDocument();
+    expect(new URL(FakeEventSource.current().url, 'http://crumbproof.test').searchParams.get('kitchen')).toBe('1');
+  });
+
   it('classifies every product for the allergens picked, on sale today first, in words with a mark', async () => {
     counterApi('front-of-house', [demoCounterView()]);
     const { user } = renderApp('/counter');

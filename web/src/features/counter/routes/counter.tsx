@@ -3,6 +3,8 @@ import { KITCHEN_WRITERS } from '@crumbproof/shared';
 import { MotionConfig } from 'framer-motion';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router-dom';
+import { useKitchenName } from '@/api/kitchen';
+import { DeclaredFor } from '@/components/ui/declared-for';
 import { LoadFailed } from '@/components/ui/load-failed';
 import { Loading } from '@/components/ui/loading';
 import { Page } from '@/components/ui/page';
@@ -65,6 +67,7 @@ function ViewTabs({ current, openQuestions }: { current: string; openQuestions: 
 export function CounterRoute() {
   const { view: segment = '' } = useParams();
   const me = useSignedInUser();
+  const kitchenName = useKitchenName();
   const products = useCounterProducts();
   const freshness = useCounterFreshness();
   const openQuestions = useOpenQuestionCount();
@@ -82,7 +85,13 @@ export function CounterRoute() {
     <MotionConfig reducedMotion="user">
       <Page
         title="Counter"
-        lead="Answer a customer’s allergy question from the recorded recipes: pick what they avoid, then open the product."
+        lead={
+          <>
+            {/* Front of house working two counters sees at a glance which one this is. */}
+            <DeclaredFor as="span" display="block" kitchen={kitchenName} regime={products.data?.regime} fontSize="xl" mb="1" />
+            Answer a customer’s allergy question from the recorded recipes: pick what they avoid, then open the product.
+          </>
+        }
         actions={chart}
       >
         <Stack gap="4">

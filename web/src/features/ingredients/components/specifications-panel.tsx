@@ -5,6 +5,7 @@ import { FormField, TextInput } from '@/components/ui/form-field';
 import { Loading } from '@/components/ui/loading';
 import { Panel } from '@/components/ui/panel';
 import { isApiError } from '@/lib/api-client';
+import { withKitchen } from '@/lib/kitchen-choice';
 import { useSpecifications } from '../api/get-specifications';
 import { SPECIFICATION_MAX_BYTES, useUploadSpecification } from '../api/upload-specification';
 import { formatDate, formatDateTime } from '@/lib/format';
@@ -81,7 +82,7 @@ export function SpecificationsPanel({ code }: { code: string }) {
           <Text color="fg.error">The specifications could not be loaded: {specifications.error.message}</Text>
         ) : current ? (
           <Box>
-            <Link href={current.fileUrl} target="_blank" rel="noopener" color="accent.fg" fontWeight="bold">
+            <Link href={withKitchen(current.fileUrl)} target="_blank" rel="noopener" color="accent.fg" fontWeight="bold">
               Open the current specification
             </Link>
             <Text textStyle="sm" color={current.reviewOverdue ? 'fg' : 'fg.muted'} fontWeight={current.reviewOverdue ? 'bold' : 'normal'}>
@@ -144,7 +145,7 @@ export function SpecificationsPanel({ code }: { code: string }) {
             <Stack as="ol" aria-label="Specification versions, newest first" gap="2" listStyleType="none" m="0" p="0">
               {specifications.data.map((spec) => (
                 <Box as="li" key={spec.id} textStyle="sm">
-                  <Link href={spec.fileUrl} target="_blank" rel="noopener" color="accent.fg">
+                  <Link href={withKitchen(spec.fileUrl)} target="_blank" rel="noopener" color="accent.fg">
                     Version {spec.version}: {spec.filename}
                   </Link>
                   <Text color="fg.muted">

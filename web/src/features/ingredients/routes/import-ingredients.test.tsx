@@ -191,9 +191,9 @@ describe('Spreadsheet import', () => {
     expect(items[0]).toHaveTextContent(/^id \(required\): /);
     expect(screen.getByRole('link', { name: 'Template for Excel (.xlsx)' })).toHaveAttribute(
       'href',
-      '/api/ingredients/import/template.xlsx',
+      '/api/ingredients/import/template.xlsx?kitchen=1',
     );
-    expect(screen.getByRole('link', { name: 'Template as CSV' })).toHaveAttribute('href', '/api/ingredients/import/template.csv');
+    expect(screen.getByRole('link', { name: 'Template as CSV' })).toHaveAttribute('href', '/api/ingredients/import/template.csv?kitchen=1');
   });
 
   it('says for each row what it will record, with not known kept apart from none', async () => {

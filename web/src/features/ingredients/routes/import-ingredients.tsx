@@ -13,6 +13,7 @@ import { ErrorAlert } from '@/components/ui/error-alert';
 import { FormField, TextInput } from '@/components/ui/form-field';
 import { Page } from '@/components/ui/page';
 import { isApiError } from '@/lib/api-client';
+import { withKitchen } from '@/lib/kitchen-choice';
 import { formatDateTime } from '@/lib/format';
 import { useImportIngredients } from '../api/import-ingredients';
 import { usePreviewImport } from '../api/preview-import';
@@ -82,10 +83,10 @@ function ImportGuide() {
         saying what each column means.
       </Text>
       <HStack gap="4" flexWrap="wrap">
-        <Link href={`${TEMPLATE_URL}.xlsx`} download color="accent.fg" fontWeight="bold">
+        <Link href={withKitchen(`${TEMPLATE_URL}.xlsx`)} download color="accent.fg" fontWeight="bold">
           Template for Excel (.xlsx)
         </Link>
-        <Link href={`${TEMPLATE_URL}.csv`} download color="accent.fg" fontWeight="bold">
+        <Link href={withKitchen(`${TEMPLATE_URL}.csv`)} download color="accent.fg" fontWeight="bold">
           Template as CSV
         </Link>
       </HStack>

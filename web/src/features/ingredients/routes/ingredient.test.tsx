@@ -320,7 +320,8 @@ describe('Ingredient page', () => {
 
     const specs = screen.getByRole('region', { name: 'Specifications' });
     const open = await within(specs).findByRole('link', { name: 'Open the current specification' });
-    expect(open).toHaveAttribute('href', '/api/specifications/12/file');
+    // Opened in a new tab, where no header can be sent: the address names the kitchen.
+    expect(open).toHaveAttribute('href', '/api/specifications/12/file?kitchen=1');
     expect(open).toHaveAttribute('target', '_blank');
     const versions = within(specs).getByRole('list', { name: 'Specification versions, newest first' });
     expect(
@@ -483,7 +484,7 @@ describe('Ingredient page', () => {
     await waitFor(() =>
       expect(within(specsPanel).getByRole('link', { name: 'Open the current specification' })).toHaveAttribute(
         'href',
-        '/api/specifications/20/file',
+        '/api/specifications/20/file?kitchen=1',
       ),
     );
   });

@@ -3,6 +3,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import { z } from 'zod';
 import { queryKeys, type LabelRunSearch } from '@/api/query-keys';
 import { apiClient } from '@/lib/api-client';
+import { withKitchen } from '@/lib/kitchen-choice';
 
 const runsSchema = z.array(labelRunSchema);
 
@@ -26,5 +27,5 @@ export function useLabelRuns(search: LabelRunSearch) {
   return useQuery({ ...getLabelRunsQueryOptions(search), placeholderData: keepPreviousData });
 }
 
-/** Where a run's PDF is downloaded, exactly as printed. */
-export const runPdfUrl = (id: number): string => `/api/labels/runs/${id}/pdf`;
+/** Where a run's PDF is downloaded, exactly as printed (a link the browser opens itself, so it names the kitchen). */
+export const runPdfUrl = (id: number): string => withKitchen(`/api/labels/runs/${id}/pdf`);

@@ -120,10 +120,13 @@ describe('Labels page', () => {
       unitsPerCase: 8,
       shipment: true,
     });
-    expect(await screen.findByRole('link', { name: 'Download the PDF of run 42' })).toHaveAttribute('href', '/api/labels/runs/42/pdf');
+    expect(await screen.findByRole('link', { name: 'Download the PDF of run 42' })).toHaveAttribute(
+      'href',
+      '/api/labels/runs/42/pdf?kitchen=1',
+    );
     // The log was read again after the print, and shows the run with its PDF.
     const log = screen.getByRole('region', { name: 'Print log, newest first' });
-    expect(await within(log).findByRole('link', { name: 'PDF of run 42' })).toHaveAttribute('href', '/api/labels/runs/42/pdf');
+    expect(await within(log).findByRole('link', { name: 'PDF of run 42' })).toHaveAttribute('href', '/api/labels/runs/42/pdf?kitchen=1');
     expect(within(log).getByText(/batch 261202-LEMONT-1 · use by 5 Dec 2026/)).toBeInTheDocument();
     expect(calls.filter((c) => c.method === 'GET' && c.path === '/api/labels/runs').length).toBeGreaterThanOrEqual(2);
   });

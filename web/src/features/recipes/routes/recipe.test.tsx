@@ -148,6 +148,18 @@ describe('Product page: the declaration panel', () => {
     expect(urls).toContain('/api/recipes/victoria-sponge/declaration?regime=UK');
     expect(urls).toContain('/api/recipes/victoria-sponge/declaration?regime=US');
   });
+
+  it('says which kitchen the declaration answers for, and under which rules', async () => {
+    const { calls } = productApi('front-of-house');
+    const { user } = renderApp('/recipes/victoria-sponge');
+
+    expect(await screen.findByText('Declared for Larch Street Bakehouse (UK rules)')).toBeInTheDocument();
+    await user.selectOptions(await screen.findByRole('combobox', { name: 'Regime' }), 'US');
+    expect(await screen.findByText('Declared for Larch Street Bakehouse (US rules)')).toBeInTheDocument();
+    expect(calls.filter((call) => call.path === '/api/recipes/victoria-sponge/declaration').every((call) => call.kitchen === '1')).toBe(
+      true,
+    );
+  });
 });
 
 describe('Product page: nutrition', () => {

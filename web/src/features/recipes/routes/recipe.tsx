@@ -2,8 +2,10 @@ import { Link, Stack, Text } from '@chakra-ui/react';
 import { KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { Link as RouterLink, useLocation, useParams, useSearchParams } from 'react-router-dom';
+import { useKitchenName } from '@/api/kitchen';
 import { useRecipes } from '@/api/recipes';
 import { DeclarationBasisLine, ReviewWarnings } from '@/components/ui/declaration-basis';
+import { DeclaredFor } from '@/components/ui/declared-for';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { buildItemLookup } from '@/components/ui/item-lookup';
 import { LayerPathLinks } from '@/components/ui/layer-path';
@@ -36,6 +38,7 @@ export function RecipeRoute() {
   const [search, setSearch] = useSearchParams();
   const asked = search.get('regime');
   const kitchen = useKitchenRegime();
+  const kitchenName = useKitchenName();
   const regime: Regime | undefined = isRegime(asked) ? asked : kitchen.regime;
 
   const recipe = useRecipe(code);
@@ -97,6 +100,7 @@ export function RecipeRoute() {
         // Front of house cannot open ingredient pages: those bars and names are drawn without a link.
         <LayerPathLinks canOpen={(href) => writer || !href.startsWith('/ingredients/')}>
           <Stack gap="4">
+            <DeclaredFor kitchen={kitchenName} regime={declaration.data.regime} fontSize="lg" />
             <DeclarationBasisLine basis={declaration.data.basis} />
             <ReviewWarnings warnings={declaration.data.reviewWarnings} />
             <DeclarationPanel

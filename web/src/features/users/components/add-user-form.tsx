@@ -13,8 +13,13 @@ const FIELDS = ['name', 'email', 'role'] as const satisfies readonly (keyof Invi
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
+interface AddUserFormProps {
+  /** "Role at Saltmarsh Yard Café": the invited person gets their role at the kitchen the app works in. */
+  roleLabel: string;
+}
+
 /** Invites someone by name, email and role: they choose their own password from the mailed link. */
-export function AddUserForm() {
+export function AddUserForm({ roleLabel }: AddUserFormProps) {
   const inviteUser = useInviteUser();
   const headingId = useId();
   const [formError, setFormError] = useState<string | null>(null);
@@ -66,7 +71,7 @@ export function AddUserForm() {
             <FormField label="Email" error={errors.email?.message}>
               <TextInput type="email" autoComplete="off" inputMode="email" {...register('email')} />
             </FormField>
-            <FormField label="Role" error={errors.role?.message}>
+            <FormField label={roleLabel} error={errors.role?.message}>
               <SelectInput options={ROLE_OPTIONS} {...register('role')} />
             </FormField>
           </SimpleGrid>

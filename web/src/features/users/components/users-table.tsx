@@ -27,9 +27,11 @@ interface UsersTableProps {
   /** Sends a new invitation to someone who has not chosen a password yet. */
   onResend: (user: User) => void;
   resendingUserId: number | null;
+  /** "Role at Saltmarsh Yard Café": roles are per kitchen, and the list answers for the one the app works in. */
+  roleHeader: string;
 }
 
-export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onResend, resendingUserId }: UsersTableProps) {
+export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onResend, resendingUserId, roleHeader }: UsersTableProps) {
   const columns = useMemo<DataTableColumn<User>[]>(
     () => [
       column.accessor('name', {
@@ -58,7 +60,7 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
       }),
       column.accessor('email', { header: 'Email', meta: { hideBelow: 'lg', maxW: '16rem' } }),
       column.accessor('role', {
-        header: 'Role',
+        header: roleHeader,
         cell: (info) => {
           const user = info.row.original;
           return (
@@ -130,7 +132,7 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
         },
       }),
     ],
-    [currentUserId, onRequest, pendingUserId, onResend, resendingUserId],
+    [currentUserId, onRequest, pendingUserId, onResend, resendingUserId, roleHeader],
   );
 
   return (

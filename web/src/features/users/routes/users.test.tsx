@@ -21,7 +21,7 @@ describe('Users page', () => {
     const headers = within(table)
       .getAllByRole('columnheader')
       .map((header) => header.textContent);
-    expect(headers).toEqual(['Name', 'Email', 'Role', 'Active', 'Created', 'Access']);
+    expect(headers).toEqual(['Name', 'Email', 'Role at Larch Street Bakehouse', 'Active', 'Created', 'Access']);
     // One header row and one row per user.
     expect(within(table).getAllByRole('row')).toHaveLength(USERS.length + 1);
 
@@ -112,7 +112,7 @@ describe('Users page', () => {
     expect(within(form).queryByLabelText('Password')).not.toBeInTheDocument();
     await user.type(within(form).getByLabelText('Name'), 'Ines Moreau');
     await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
-    await user.selectOptions(within(form).getByLabelText('Role'), 'Pastry chef');
+    await user.selectOptions(within(form).getByLabelText('Role at Larch Street Bakehouse'), 'Pastry chef');
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
     expect(await within(screen.getByRole('table')).findByText('Ines Moreau')).toBeInTheDocument();

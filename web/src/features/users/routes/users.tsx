@@ -1,4 +1,5 @@
 import { Text } from '@chakra-ui/react';
+import { useKitchenName } from '@/api/kitchen';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { LoadFailed } from '@/components/ui/load-failed';
 import { Loading } from '@/components/ui/loading';
@@ -15,6 +16,9 @@ import { UsersTable } from '../components/users-table';
 export function UsersRoute() {
   const me = useSignedInUser();
   const users = useUsers();
+  const kitchen = useKitchenName();
+  // Roles are per kitchen: the list, and every change made here, are for the kitchen the app works in.
+  const roleLabel = kitchen ? `Role at ${kitchen}` : 'Role';
   const updateUser = useUpdateUser();
   const resend = useResendInvitation();
   const [resent, setResent] = useState<string | null>(null);
@@ -33,7 +37,7 @@ export function UsersRoute() {
   return (
     <Page
       title="Users"
-      lead="Who can sign in to this kitchen, and what each person may do. Invite someone by email: they choose their own password."
+      lead={`Who can sign in to ${kitchen ?? 'this kitchen'}, and what each person may do here. Invite someone by email: they choose their own password.`}
     >
       {updateUser.isError ? <ErrorAlert title="That change was not saved">{updateUser.error.message}</ErrorAlert> : null}
       {resend.isError ? <ErrorAlert title="The invitation was not sent again">{resend.error.message}</ErrorAlert> : null}
@@ -62,10 +66,11 @@ export function UsersRoute() {
             });
           }}
           resendingUserId={resend.isPending ? resend.variables : null}
+          roleHeader={roleLabel}
         />
       )}
       <ConfirmAccessChange change={asking} pending={updateUser.isPending} onConfirm={confirm} onCancel={() => setAsking(null)} />
-      <AddUserForm />
+      <AddUserForm roleLabel={roleLabel} />
     </Page>
   );
 }
