@@ -213,4 +213,21 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
     for (const at of [kitchen.bench, kitchen.corner])
       expect((await trail(at, 'ingredient.saved')).map((e) => e.summary)).toEqual([expect.stringMatching(/corner-flour/)]);
   });
+
+  it('puts a new product on sale at the kitchen it is created at, adding it to that kitchen’s list', async () => {
+    const { revision: _r, updatedAt: _at, ...shortbread } = (await call('GET', '/api/recipes/shortbread', manager, kitchen.corner)).json();
+    const created = await call('POST', '/api/recipes', manager, kitchen.corner, {
+      ...shortbread,
+      id: 'corner-rounds',
+      name: 'Corner rounds',
+    });
+    expect(created.statusCode).toBe(201);
+    const sold = async (at: number) =>
+      (await call('GET', '/api/declarations', manager, at)).json<ServedDeclaration[]>().map((d) => d.product);
+    expect(await sold(kitchen.corner)).toContain('corner-rounds');
+    // The bench sells every product for sale: it has no list of its own.
+    expect(await sold(kitchen.bench)).toContain('corner-rounds');
+    const exported = (await call('GET', '/api/book', manager, kitchen.corner)).json<BookFile>();
+    expect(exported.sites?.find((s) => s.id === 'corner')?.sells).toEqual(['shortbread', 'corner-rounds']);
+  });
 });

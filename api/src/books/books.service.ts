@@ -464,8 +464,14 @@ export class BooksService {
         }
       }
       const ingredients = keepOwnership(file, changes.ingredients ?? []);
+      // A new product for sale goes on sale at the kitchen it is created at, which a kitchen that
+      // sells only what its list names adds it to; the other kitchens' lists are theirs to change.
+      const created = (changes.recipes ?? []).filter((r) => r.sale && !state.heads.has(r.id)).map((r) => r.id);
+      const sellsAfter =
+        site.sells !== null && created.length > 0 ? [...site.sells, ...created.filter((id) => !site.sells!.includes(id))] : null;
       const mergedFile: BookFile = {
         ...file,
+        ...(sellsAfter && file.sites ? { sites: file.sites.map((s) => (s.id === site.code ? { ...s, sells: sellsAfter } : s)) } : {}),
         ingredients: mergeById(file.ingredients, ingredients),
         recipes: mergeById(file.recipes, changes.recipes ?? []),
       };
@@ -481,6 +487,7 @@ export class BooksService {
       for (const rec of changes.recipes ?? []) {
         written.push({ id: rec.id, revision: await this.recipes.write(owner.id, rec.id, bodyOf(rec), meta, t) });
       }
+      if (sellsAfter) await this.sites.update(site.id, { sells: sellsAfter }, t);
       await this.audit.record(itemsWritten(file, changes, written, meta.note, audit), t);
       await this.kitchenWriting(
         { ingredients: (changes.ingredients ?? []).map((i) => i.id), recipes: (changes.recipes ?? []).map((r) => r.id), site: false },
