@@ -403,7 +403,13 @@ export type Book = z.infer<typeof bookSchema>;
 export type BookInput = z.input<typeof bookSchema>;
 
 /** A site's id, written as an ingredient's or recipe's is (lower-case letters, digits and hyphens). */
-export const siteIdSchema = itemId("Give the site an id, e.g. 'high-street'.");
+/** Kept for the public page's own files (`/p/fonts/…`), so no kitchen's page address can reach them. */
+export const RESERVED_SITE_IDS = ['fonts'] as const;
+
+export const siteIdSchema = itemId("Give the site an id, e.g. 'high-street'.").refine(
+  (v) => !(RESERVED_SITE_IDS as readonly string[]).includes(v),
+  { error: (issue) => `'${String(issue.input)}' is kept for the public page's own files; give the site another id.` },
+);
 
 /**
  * A site's own ingredient standing in for one of the book's shared ingredients, in that site only:

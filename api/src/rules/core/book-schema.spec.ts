@@ -185,6 +185,11 @@ describe('bookFileSchema: a book of several sites', () => {
       message: "sites.1 (Corner Shop).id: Use lower-case letters, digits and hyphens, e.g. 'corner-shop'.",
     },
     {
+      title: 'a site id kept for the public page’s own files',
+      edit: (b: TwoKitchens) => (b.sites[0].id = 'fonts'),
+      message: "sites.0 (fonts).id: 'fonts' is kept for the public page's own files; give the site another id.",
+    },
+    {
       title: 'two sites with one id',
       edit: (b: TwoKitchens) => (b.sites[1].id = 'bench'),
       message: "sites.1 (bench).id: The site id 'bench' is used by two sites; give each site its own id.",
