@@ -17,9 +17,12 @@ export function recordScripts(page: Page): { take: () => Promise<LoadedScript[]>
   page.on('response', (response) => {
     const url = new URL(response.url());
     if (!response.ok() || !url.pathname.endsWith('.js') || seen.has(url.pathname)) return;
+    // A page that moves on at once (the kitchen choice restarting the app) leaves no body to read:
+    // the same file is asked for again, as the browser downloaded it.
+    const body = response.body().catch(() => page.request.get(url.href).then((again) => again.body()));
     seen.set(
       url.pathname,
-      response.body().then((body) => ({ file: url.pathname.split('/').pop()!, gzipBytes: gzipSync(body).length })),
+      body.then((bytes) => ({ file: url.pathname.split('/').pop()!, gzipBytes: gzipSync(bytes).length })),
     );
   });
   return {

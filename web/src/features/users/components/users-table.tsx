@@ -27,7 +27,7 @@ interface UsersTableProps {
   /** Sends a new invitation to someone who has not chosen a password yet. */
   onResend: (user: User) => void;
   resendingUserId: number | null;
-  /** "Role at Saltmarsh Yard Café": roles are per kitchen, and the list answers for the one the app works in. */
+  /** "Role here": roles are per kitchen, and the list (its lead names the kitchen) answers for the one the app works in; short, so the row keeps its Access column in view on a tablet. */
   roleHeader: string;
 }
 

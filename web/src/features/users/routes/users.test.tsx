@@ -21,7 +21,7 @@ describe('Users page', () => {
     const headers = within(table)
       .getAllByRole('columnheader')
       .map((header) => header.textContent);
-    expect(headers).toEqual(['Name', 'Email', 'Role at Larch Street Bakehouse', 'Active', 'Created', 'Access']);
+    expect(headers).toEqual(['Name', 'Email', 'Role here', 'Active', 'Created', 'Access']);
     // One header row and one row per user.
     expect(within(table).getAllByRole('row')).toHaveLength(USERS.length + 1);
 

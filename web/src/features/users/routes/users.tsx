@@ -66,7 +66,7 @@ export function UsersRoute() {
             });
           }}
           resendingUserId={resend.isPending ? resend.variables : null}
-          roleHeader={roleLabel}
+          roleHeader={kitchen ? 'Role here' : 'Role'}
         />
       )}
       <ConfirmAccessChange change={asking} pending={updateUser.isPending} onConfirm={confirm} onCancel={() => setAsking(null)} />
