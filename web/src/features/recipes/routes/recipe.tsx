@@ -5,7 +5,7 @@ import { Link as RouterLink, useLocation, useParams, useSearchParams } from 'rea
 import { useKitchenName } from '@/api/kitchen';
 import { useRecipes } from '@/api/recipes';
 import { DeclarationBasisLine, ReviewWarnings } from '@/components/ui/declaration-basis';
-import { DeclaredFor } from '@/components/ui/declared-for';
+import { DeclaredFor, StandIns } from '@/components/ui/declared-for';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { buildItemLookup } from '@/components/ui/item-lookup';
 import { LayerPathLinks } from '@/components/ui/layer-path';
@@ -101,6 +101,10 @@ export function RecipeRoute() {
         <LayerPathLinks canOpen={(href) => writer || !href.startsWith('/ingredients/')}>
           <Stack gap="4">
             <DeclaredFor kitchen={kitchenName} regime={declaration.data.regime} fontSize="lg" />
+            <StandIns
+              standIns={declaration.data.basis.standIns}
+              nameOf={(id) => declaration.data.basis.items.find((i) => i.id === id)?.name ?? id}
+            />
             <DeclarationBasisLine basis={declaration.data.basis} />
             <ReviewWarnings warnings={declaration.data.reviewWarnings} />
             <DeclarationPanel
