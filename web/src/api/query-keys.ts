@@ -120,6 +120,7 @@ export const mutationKeys = {
   resendInvitation: () => ['users', 'invitation'] as const,
   retryMail: () => ['mail', 'retry'] as const,
   updateUser: () => ['users', 'update'] as const,
+  takeOffKitchen: () => ['users', 'take-off-kitchen'] as const,
   updateKitchen: () => ['kitchen', 'update'] as const,
   createIngredient: () => ['ingredients', 'create'] as const,
   updateIngredient: () => ['ingredients', 'update'] as const,

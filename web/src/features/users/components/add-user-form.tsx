@@ -18,7 +18,10 @@ interface AddUserFormProps {
   roleLabel: string;
 }
 
-/** Invites someone by name, email and role: they choose their own password from the mailed link. */
+/**
+ * Invites someone by name, email and role: they choose their own password from the mailed link.
+ * Someone whose email already has an account at another kitchen is given the role here instead.
+ */
 export function AddUserForm({ roleLabel }: AddUserFormProps) {
   const inviteUser = useInviteUser();
   const headingId = useId();
@@ -41,8 +44,11 @@ export function AddUserForm({ roleLabel }: AddUserFormProps) {
     inviteUser.mutate(values, {
       onSuccess: (user) => {
         reset();
+        // The API says which it did: an account of another kitchen keeps its own password and gets no mail.
         setAdded(
-          `Invitation sent to ${user.email}: ${user.name} chooses a password from the link in it (it works for 72 hours), then signs in as ${ROLE_LABELS[user.role]}.`,
+          user.outcome === 'added'
+            ? user.message
+            : `${user.message} The link works for 72 hours; once they have chosen a password they sign in as ${ROLE_LABELS[user.role]}.`,
         );
       },
       onError: (error) => {
@@ -63,6 +69,10 @@ export function AddUserForm({ roleLabel }: AddUserFormProps) {
           <Heading as="h2" size="lg" id={headingId}>
             Invite a user
           </Heading>
+          <Text color="fg.muted">
+            They get a mail with a link to choose their password. Someone who already works at another kitchen keeps their own account: they
+            are added here in the role you choose, and no mail is sent.
+          </Text>
           {formError ? <ErrorAlert>{formError}</ErrorAlert> : null}
           <SimpleGrid columns={{ base: 1, md: 2 }} gap="5">
             <FormField label="Name" error={errors.name?.message}>

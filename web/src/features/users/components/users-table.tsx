@@ -4,7 +4,7 @@ import { useMemo } from 'react';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
 import { SelectInput } from '@/components/ui/form-field';
 import { Quantity } from '@/components/ui/quantity';
-import type { AccessChange } from './confirm-access-change';
+import { otherKitchens, type AccessChange } from './confirm-access-change';
 
 const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
@@ -21,9 +21,11 @@ interface UsersTableProps {
   users: User[];
   /** The signed-in manager: their own row cannot be demoted or deactivated from here. */
   currentUserId: number;
-  /** Asks for a change of role or access (confirmed before it is sent). */
+  /** Asks for a change of role or access, or to take someone off the kitchen (confirmed before it is sent). */
   onRequest: (change: AccessChange) => void;
+  /** The person whose change is being sent, if any (their row waits for it), and what kind of change it is. */
   pendingUserId: number | null;
+  pendingKind: AccessChange['kind'] | null;
   /** Sends a new invitation to someone who has not chosen a password yet. */
   onResend: (user: User) => void;
   resendingUserId: number | null;
@@ -31,7 +33,16 @@ interface UsersTableProps {
   roleHeader: string;
 }
 
-export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onResend, resendingUserId, roleHeader }: UsersTableProps) {
+export function UsersTable({
+  users,
+  currentUserId,
+  onRequest,
+  pendingUserId,
+  pendingKind,
+  onResend,
+  resendingUserId,
+  roleHeader,
+}: UsersTableProps) {
   const columns = useMemo<DataTableColumn<User>[]>(
     () => [
       column.accessor('name', {
@@ -48,6 +59,12 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
                 </Text>
               ) : null}
             </Text>
+            {/* Their password and active state are the account's at each of those kitchens too. */}
+            {(info.row.original.elsewhere ?? 0) > 0 ? (
+              <Text as="span" color="fg.muted">
+                <Quantity>{`Also works at ${otherKitchens(info.row.original.elsewhere ?? 0)}`}</Quantity>
+              </Text>
+            ) : null}
             {/* Below 1024 px the email and the date of creation fold in under the name, leaving room for the access. */}
             <Text as="span" hideFrom="lg">
               {info.row.original.email}
@@ -70,7 +87,7 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
               options={ROLE_OPTIONS}
               value={user.role}
               disabled={user.id === currentUserId || pendingUserId === user.id}
-              onChange={(event) => onRequest({ user, changes: { role: event.currentTarget.value as Role } })}
+              onChange={(event) => onRequest({ kind: 'update', user, changes: { role: event.currentTarget.value as Role } })}
             />
           );
         },
@@ -116,23 +133,35 @@ export function UsersTable({ users, currentUserId, onRequest, pendingUserId, onR
           const user = info.row.original;
           if (user.id === currentUserId) return <Text color="fg.muted">Your own account</Text>;
           const action = user.active ? 'Deactivate' : 'Reactivate';
+          const waiting = pendingUserId === user.id ? pendingKind : null;
           return (
-            <HStack>
+            <HStack gap="3" wrap="wrap">
               <Button
                 size="lg"
                 variant="outline"
                 aria-label={`${action} ${user.name}`}
-                loading={pendingUserId === user.id}
-                onClick={() => onRequest({ user, changes: { active: !user.active } })}
+                disabled={waiting !== null}
+                loading={waiting === 'update'}
+                onClick={() => onRequest({ kind: 'update', user, changes: { active: !user.active } })}
               >
                 {action}
+              </Button>
+              <Button
+                size="lg"
+                variant="outline"
+                aria-label={`Take ${user.name} off this kitchen`}
+                disabled={waiting !== null}
+                loading={waiting === 'take-off'}
+                onClick={() => onRequest({ kind: 'take-off', user })}
+              >
+                Take off this kitchen
               </Button>
             </HStack>
           );
         },
       }),
     ],
-    [currentUserId, onRequest, pendingUserId, onResend, resendingUserId, roleHeader],
+    [currentUserId, onRequest, pendingUserId, pendingKind, onResend, resendingUserId, roleHeader],
   );
 
   return (

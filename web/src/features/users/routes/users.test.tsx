@@ -101,7 +101,8 @@ describe('Users page', () => {
           const input = body as { email: string; name: string; role: User['role'] };
           const created: User = { id: 4, ...input, active: true, invitationPending: true, createdAt: '2026-12-01T10:00:00.000Z' };
           users = [...users, created];
-          return { status: 201, body: created };
+          const message = `${input.name} was invited: a link to choose a password is on its way to ${input.email}.`;
+          return { status: 201, body: { ...created, outcome: 'created', message } };
         },
         'POST /api/users/4/invitation': () => ({ body: users.find((u) => u.id === 4) }),
       }),
@@ -116,7 +117,12 @@ describe('Users page', () => {
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
     expect(await within(screen.getByRole('table')).findByText('Ines Moreau')).toBeInTheDocument();
-    expect(screen.getByText(/Invitation sent to ines@crumbproof.test/)).toBeInTheDocument();
+    // The API's words for a new account, and how long the mailed link works.
+    expect(
+      within(form).getByText(
+        'Ines Moreau was invited: a link to choose a password is on its way to ines@crumbproof.test. The link works for 72 hours; once they have chosen a password they sign in as Pastry chef.',
+      ),
+    ).toBeInTheDocument();
     expect(calls.find((call) => call.method === 'POST')?.body).toEqual({
       name: 'Ines Moreau',
       email: 'ines@crumbproof.test',
@@ -145,13 +151,20 @@ describe('Users page', () => {
     expect(calls.some((call) => call.method === 'POST')).toBe(false);
   });
 
-  it('puts the API’s duplicate-email answer under Email', async () => {
+  it('puts the API’s answer for someone already at this kitchen under Email', async () => {
+    const message =
+      'Teodor Lind (teodor@crumbproof.test) already works at Larch Street Bakehouse, as pastry chef. Change their role in the list instead.';
     mockApi(
       signedInAs('manager', {
         'GET /api/users': { body: USERS },
         'POST /api/users/invitations': {
           status: 409,
-          body: { statusCode: 409, code: 'conflict', message: 'A user with that email already exists.' },
+          body: {
+            statusCode: 409,
+            code: 'conflict',
+            message,
+            fields: [{ path: 'email', message: 'Already works at Larch Street Bakehouse.' }],
+          },
         },
       }),
     );
@@ -162,7 +175,187 @@ describe('Users page', () => {
     await user.type(within(form).getByLabelText('Email'), 'teodor@crumbproof.test');
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
-    expect(await within(form).findByText('A user with that email already exists.')).toBeInTheDocument();
+    expect(await within(form).findByText(message)).toBeInTheDocument();
     expect(within(form).getByLabelText('Email')).toHaveAttribute('aria-invalid', 'true');
+  });
+
+  it('says how many other kitchens someone also works at', async () => {
+    const users: User[] = [
+      { ...USERS[0]!, elsewhere: 0 },
+      { ...USERS[1]!, elsewhere: 2 },
+      { ...USERS[2]!, elsewhere: 1 },
+    ];
+    mockApi(signedInAs('manager', { 'GET /api/users': { body: users } }));
+    renderApp('/users');
+
+    await screen.findByRole('table');
+    expect(within(rowFor('Teodor Lind')).getByText('Also works at 2 other kitchens')).toBeInTheDocument();
+    expect(within(rowFor('Priya Sandhu')).getByText('Also works at 1 other kitchen')).toBeInTheDocument();
+    expect(within(rowFor('Maren Okafor')).queryByText(/Also works at/)).not.toBeInTheDocument();
+  });
+
+  it('adds someone who works at another kitchen in the role chosen, in the API’s words, and reads the list again', async () => {
+    let users: User[] = [...USERS];
+    const added: User = {
+      id: 4,
+      email: 'ines@crumbproof.test',
+      name: 'Ines Duarte',
+      role: 'pastry-chef',
+      active: true,
+      invitationPending: false,
+      createdAt: '2026-01-10T09:00:00.000Z',
+      elsewhere: 1,
+    };
+    const message =
+      'ines@crumbproof.test already has a Crumbproof account, as Ines Duarte: they now work at Larch Street Bakehouse too, as pastry chef, and sign in with their own password (no invitation or new password was sent).';
+    const { calls } = mockApi(
+      signedInAs('manager', {
+        'GET /api/users': () => ({ body: users }),
+        'POST /api/users/invitations': () => {
+          users = [...users, added];
+          return { status: 201, body: { ...added, outcome: 'added', message } };
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    const form = await screen.findByRole('form', { name: 'Invite a user' });
+    expect(within(form).getByText(/Someone who already works at another kitchen keeps their own account/)).toBeInTheDocument();
+    await user.type(within(form).getByLabelText('Name'), 'Ines');
+    await user.type(within(form).getByLabelText('Email'), 'ines@crumbproof.test');
+    await user.selectOptions(within(form).getByLabelText('Role at Larch Street Bakehouse'), 'Pastry chef');
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
+
+    // The API's words alone: no invitation was sent, so nothing is said of a link.
+    expect(await within(form).findByText(message)).toBeInTheDocument();
+    expect(within(form).queryByText(/72 hours/)).not.toBeInTheDocument();
+    // The list is read again and shows them by the name of their account, with their other kitchen.
+    const row = await waitFor(() => rowFor('Ines Duarte'));
+    expect(within(row).getByText('Also works at 1 other kitchen')).toBeInTheDocument();
+    expect(within(row).getByRole('combobox', { name: 'Role for Ines Duarte' })).toHaveValue('pastry-chef');
+    expect(within(row).queryByText('Invited, no password yet')).not.toBeInTheDocument();
+    expect(calls.filter((call) => call.method === 'GET' && call.path === '/api/users')).toHaveLength(2);
+  });
+
+  it('takes someone off this kitchen after saying what happens, and reads the list again', async () => {
+    let users: User[] = [{ ...USERS[0]!, elsewhere: 0 }, { ...USERS[1]!, elsewhere: 2 }, USERS[2]!];
+    const { calls } = mockApi(
+      signedInAs('manager', {
+        'GET /api/users': () => ({ body: users }),
+        'DELETE /api/users/2/kitchen': () => {
+          users = users.filter((u) => u.id !== 2);
+          return {
+            body: {
+              id: 2,
+              kitchen: 1,
+              elsewhere: 2,
+              message: 'Teodor Lind no longer works at Larch Street Bakehouse. Their account stays, for the 2 other kitchens they work at.',
+            },
+          };
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    // Not on the manager's own row.
+    await screen.findByRole('table');
+    expect(within(rowFor('Maren Okafor')).queryByRole('button', { name: /off this kitchen/ })).not.toBeInTheDocument();
+
+    await user.click(within(rowFor('Teodor Lind')).getByRole('button', { name: 'Take Teodor Lind off this kitchen' }));
+    const ask = await screen.findByRole('alertdialog', { name: 'Take Teodor Lind off Larch Street Bakehouse?' });
+    expect(ask).toHaveTextContent('their role here (Pastry chef) goes, and their sessions end now');
+    expect(ask).toHaveTextContent('Their account stays, with its name and password, and so do the 2 other kitchens they work at.');
+    // Nothing is sent until the manager confirms.
+    await user.click(within(ask).getByRole('button', { name: 'Keep them here' }));
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument());
+    expect(calls.some((call) => call.method === 'DELETE')).toBe(false);
+
+    await user.click(within(rowFor('Teodor Lind')).getByRole('button', { name: 'Take Teodor Lind off this kitchen' }));
+    const again = await screen.findByRole('alertdialog', { name: 'Take Teodor Lind off Larch Street Bakehouse?' });
+    await user.click(within(again).getByRole('button', { name: 'Take off this kitchen' }));
+
+    expect(
+      await screen.findByText(
+        'Teodor Lind no longer works at Larch Street Bakehouse. Their account stays, for the 2 other kitchens they work at.',
+      ),
+    ).toBeInTheDocument();
+    await waitFor(() => expect(within(screen.getByRole('table')).queryByText('Teodor Lind')).not.toBeInTheDocument());
+    const deletes = calls.filter((call) => call.method === 'DELETE');
+    expect(deletes.map((call) => [call.path, call.kitchen])).toEqual([['/api/users/2/kitchen', '1']]);
+    expect(calls.filter((call) => call.method === 'GET' && call.path === '/api/users')).toHaveLength(2);
+  });
+
+  it('says so when the person works at no other kitchen', async () => {
+    mockApi(signedInAs('manager', { 'GET /api/users': { body: USERS.map((u) => ({ ...u, elsewhere: 0 })) } }));
+    const { user } = renderApp('/users');
+
+    await user.click(await screen.findByRole('button', { name: 'Take Priya Sandhu off this kitchen' }));
+    const ask = await screen.findByRole('alertdialog', { name: 'Take Priya Sandhu off Larch Street Bakehouse?' });
+    expect(ask).toHaveTextContent('they work at no other kitchen: a manager can add them again by their email');
+  });
+
+  it('shows the API’s refusal in words, and reads the list again', async () => {
+    // Another manager took Priya off this kitchen since the list was read.
+    let users: User[] = [...USERS];
+    const refusal = 'There is no user 3 at this kitchen (Larch Street Bakehouse).';
+    const { calls } = mockApi(
+      signedInAs('manager', {
+        'GET /api/users': () => ({ body: users }),
+        'DELETE /api/users/3/kitchen': () => {
+          users = users.filter((u) => u.id !== 3);
+          return { status: 404, body: { statusCode: 404, code: 'not-found', message: refusal } };
+        },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    await user.click(await screen.findByRole('button', { name: 'Take Priya Sandhu off this kitchen' }));
+    const ask = await screen.findByRole('alertdialog', { name: 'Take Priya Sandhu off Larch Street Bakehouse?' });
+    await user.click(within(ask).getByRole('button', { name: 'Take off this kitchen' }));
+
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent('Nobody was taken off this kitchen');
+    expect(alert).toHaveTextContent(refusal);
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument());
+    // The list read again shows the kitchen as it is now.
+    await waitFor(() => expect(within(screen.getByRole('table')).queryByText('Priya Sandhu')).not.toBeInTheDocument());
+    expect(calls.filter((call) => call.method === 'GET' && call.path === '/api/users')).toHaveLength(2);
+
+    // Asking for another change clears the refusal.
+    await user.click(screen.getByRole('button', { name: 'Deactivate Teodor Lind' }));
+    expect(screen.queryByRole('alert')).not.toBeInTheDocument();
+  });
+
+  it('warns that deactivating someone of other kitchens is for all of them, and shows the API’s refusal naming them', async () => {
+    const refusal =
+      'You cannot deactivate Teodor Lind’s account: it is theirs at every kitchen they work in, and you are not a manager at Saltmarsh Yard Café. A manager of every kitchen they work in can; or take them off this kitchen instead.';
+    const { calls } = mockApi(
+      signedInAs('manager', {
+        'GET /api/users': { body: [USERS[0]!, { ...USERS[1]!, elsewhere: 1 }, USERS[2]!] },
+        'PATCH /api/users/2': { status: 403, body: { statusCode: 403, code: 'forbidden', message: refusal } },
+      }),
+    );
+    const { user } = renderApp('/users');
+
+    await user.click(await screen.findByRole('button', { name: 'Deactivate Teodor Lind' }));
+    const ask = await screen.findByRole('alertdialog', { name: 'Deactivate Teodor Lind?' });
+    expect(ask).toHaveTextContent('can no longer sign in, here or at the 1 other kitchen they work at');
+    expect(ask).toHaveTextContent('to stop them working here only, take them off this kitchen instead');
+    await user.click(within(ask).getByRole('button', { name: 'Deactivate Teodor Lind' }));
+
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent('That change was not saved');
+    expect(alert).toHaveTextContent(refusal);
+    expect(screen.getByRole('button', { name: 'Deactivate Teodor Lind' })).toBeInTheDocument();
+    expect(calls.filter((call) => call.method === 'PATCH').map((call) => call.body)).toEqual([{ active: false }]);
+  });
+
+  it('says a role change is for this kitchen only when the person works at others', async () => {
+    mockApi(signedInAs('manager', { 'GET /api/users': { body: [USERS[0]!, { ...USERS[1]!, elsewhere: 2 }, USERS[2]!] } }));
+    const { user } = renderApp('/users');
+
+    await user.selectOptions(await screen.findByRole('combobox', { name: 'Role for Teodor Lind' }), 'Manager');
+    const ask = await screen.findByRole('alertdialog', { name: 'Make Teodor Lind Manager?' });
+    expect(ask).toHaveTextContent('Their role at the 2 other kitchens they work at stays as it is.');
   });
 });
