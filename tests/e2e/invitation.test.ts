@@ -54,7 +54,7 @@ describe('a manager invites a user, who chooses a password from the mailed link 
     await form.getByLabel('Email').fill(email);
     await form.getByLabel('Role').selectOption({ label: 'Front of house' });
     await form.getByRole('button', { name: 'Send invitation' }).click();
-    await manager.page.getByText(`Invitation sent to ${email}`).waitFor();
+    await manager.page.getByText(`a link to choose a password is on its way to ${email}.`, { exact: false }).waitFor();
     const row = manager.page.getByRole('row').filter({ hasText: 'Oona Fairweather' });
     await row.getByText('Invited, no password yet').waitFor();
     await screenshot(manager.page, 'users-invited-1280');
