@@ -1,4 +1,4 @@
-import { Badge, Button, HStack, Stack, Text } from '@chakra-ui/react';
+import { Badge, Button, Stack, Text } from '@chakra-ui/react';
 import { ROLE_LABELS, ROLES, type Role, type User } from '@crumbproof/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns, type DataTableColumn } from '@/components/ui/data-table';
@@ -135,7 +135,8 @@ export function UsersTable({
           const action = user.active ? 'Deactivate' : 'Reactivate';
           const waiting = pendingUserId === user.id ? pendingKind : null;
           return (
-            <HStack gap="3" wrap="wrap">
+            // One above the other, so the column is one button wide and stays in view on a tablet.
+            <Stack gap="2" align="flex-start">
               <Button
                 size="lg"
                 variant="outline"
@@ -156,7 +157,7 @@ export function UsersTable({
               >
                 Take off this kitchen
               </Button>
-            </HStack>
+            </Stack>
           );
         },
       }),
