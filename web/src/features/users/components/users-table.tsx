@@ -155,7 +155,7 @@ export function UsersTable({
                 loading={waiting === 'take-off'}
                 onClick={() => onRequest({ kind: 'take-off', user })}
               >
-                Take off this kitchen
+                Take off
               </Button>
             </Stack>
           );
