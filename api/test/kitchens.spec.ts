@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import bcrypt from 'bcryptjs';
 import type { BookFile, Me, ServedDeclaration } from '@crumbproof/shared';
 import { QueryTypes } from 'sequelize';
 import { tableChecksums } from './fixtures/table-checksums';
 import { startTestApp, type TestApp } from './support/test-app';
+import { addPerson } from './support/two-kitchens';
 
 const fixture = (name: string): unknown => JSON.parse(readFileSync(join(__dirname, '..', '..', 'tests', 'fixtures', name), 'utf8'));
 const twoKitchens = fixture('two-kitchens.book.json') as BookFile;
@@ -33,31 +33,16 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
     expect(res.statusCode).toBe(200);
     return res.json<ServedDeclaration>();
   };
-  const addPerson = async (email: string, role: string) => {
-    await t.sequelize.query(
-      "INSERT INTO users (email, name, role, password_hash, active, created_at, updated_at) VALUES (?, 'Person', ?, ?, TRUE, NOW(), NOW())",
-      { replacements: [email, role, bcrypt.hashSync(PASSWORD, 4)] },
-    );
-    const [{ id }] = await t.sequelize.query<{ id: number }>('SELECT id FROM users WHERE email = ?', {
-      replacements: [email],
-      type: QueryTypes.SELECT,
-    });
-    return id;
-  };
-
   beforeAll(async () => {
     t = await startTestApp();
-    await addPerson('lead@example.com', 'manager');
+    await addPerson(t, 'lead@example.com', 'manager', PASSWORD);
     manager = await t.signIn('lead@example.com', PASSWORD);
     const imported = await call('POST', '/api/book/import', manager, undefined, twoKitchens);
     expect(imported.statusCode).toBe(200);
     expect(imported.json().kitchens).toEqual({ bench: 'created', corner: 'created' });
     const sites = await t.sequelize.query<{ id: number; code: string }>('SELECT id, code FROM sites', { type: QueryTypes.SELECT });
     for (const s of sites) kitchen[s.code as 'bench' | 'corner'] = s.id;
-    const counterId = await addPerson('bench-counter@example.com', 'front-of-house');
-    await t.sequelize.query("INSERT INTO kitchen_roles (user_id, site_id, role) VALUES (?, ?, 'front-of-house')", {
-      replacements: [counterId, kitchen.bench],
-    });
+    await addPerson(t, 'bench-counter@example.com', 'front-of-house', PASSWORD, 'bench');
     benchOnly = await t.signIn('bench-counter@example.com', PASSWORD);
   });
   afterAll(() => t.close());
