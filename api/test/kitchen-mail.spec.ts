@@ -79,4 +79,60 @@ describe('mail to the people of each kitchen (real MariaDB)', () => {
     expect(mail.recipients).toEqual(['counter.b@example.com', 'manager.b@example.com', 'owner@example.com']);
     expect(mail.subject).toBe('Shortbread now has an allergen it did not have');
   });
+
+  describe('each kitchen’s outbox', () => {
+    const outbox = async (email: string) => {
+      const res = await t.req('GET', '/api/mail/outbox', cookie[email]);
+      expect(res.statusCode).toBe(200);
+      return res.json<{ mails: { id: string; kind: string; subject: string; recipients: string[]; state: string }[] }>().mails;
+    };
+
+    it('lists the mail about its own kitchen, and none about the other', async () => {
+      const bench = await outbox('manager.a@example.com');
+      const corner = await outbox('manager.b@example.com');
+      expect(bench.map((m) => m.subject)).toContain('2 products wait for your approval at Test bench');
+      expect(bench.map((m) => m.subject)).not.toContain('Shortbread waits for your approval at Corner Shop');
+      expect(corner.map((m) => m.subject)).toContain('Shortbread waits for your approval at Corner Shop');
+      expect(corner.map((m) => m.subject)).toContain('Shortbread now has an allergen it did not have');
+      expect(corner.some((m) => m.subject.includes('Test bench'))).toBe(false);
+    });
+
+    it('shows a password link at the kitchens of the person it is to, and nowhere else', async () => {
+      const mark = await lastMailId();
+      const asked = await t.req('POST', '/api/auth/password-reset', undefined, { email: 'counter.a@example.com' });
+      expect(asked.statusCode).toBe(202);
+      const [reset] = await mailsAfter('password-reset', mark, 1);
+      expect(reset.recipients).toEqual(['counter.a@example.com']);
+      const resetAt = async (email: string) =>
+        (await outbox(email)).filter((m) => m.kind === 'password-reset' && m.recipients.includes('counter.a@example.com'));
+      expect(await resetAt('manager.a@example.com')).toHaveLength(1);
+      expect(await resetAt('manager.b@example.com')).toHaveLength(0);
+      // The owner works at both kitchens: at each, the outbox is that kitchen's.
+      const owner = cookie['owner@example.com'];
+      const me = (await t.req('GET', '/api/me', owner)).json<{ kitchens: { id: number; code: string | null }[] }>();
+      const at = (code: string) => String(me.kitchens.find((k) => k.code === code)!.id);
+      const ownersAt = async (code: string) =>
+        (await t.req('GET', `/api/mail/outbox?kitchen=${at(code)}`, owner)).json<{
+          mails: { subject: string; kind: string }[];
+        }>().mails;
+      expect((await ownersAt('bench')).some((m) => m.kind === 'password-reset')).toBe(true);
+      expect((await ownersAt('corner')).some((m) => m.kind === 'password-reset')).toBe(false);
+      expect((await ownersAt('corner')).some((m) => m.subject.includes('Test bench'))).toBe(false);
+    });
+
+    it('refuses to send again another kitchen’s mail, and changes nothing', async () => {
+      const [mail] = (await outbox('manager.a@example.com')).filter((m) => m.kind === 'approval-needed');
+      await t.sequelize.query("UPDATE mail_outbox SET state = 'failed', attempts = 5 WHERE id = ?", { replacements: [mail.id] });
+      const refused = await t.req('POST', `/api/mail/outbox/${mail.id}/retry`, cookie['manager.b@example.com'], {});
+      expect(refused.statusCode).toBe(404);
+      const [row] = await t.sequelize.query<{ state: string; attempts: number }>('SELECT state, attempts FROM mail_outbox WHERE id = ?', {
+        replacements: [mail.id],
+        type: QueryTypes.SELECT,
+      });
+      expect(row).toEqual({ state: 'failed', attempts: 5 });
+      const sent = await t.req('POST', `/api/mail/outbox/${mail.id}/retry`, cookie['manager.a@example.com'], {});
+      expect(sent.statusCode).toBe(200);
+      expect(sent.json<{ state: string }>().state).toBe('queued');
+    });
+  });
 });

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { BookFile, Me, ServedDeclaration } from '@crumbproof/shared';
+import type { BookFile, KitchenMakes, Me, ServedDeclaration } from '@crumbproof/shared';
 import { QueryTypes } from 'sequelize';
 import { tableChecksums } from './fixtures/table-checksums';
 import { startTestApp, type TestApp } from './support/test-app';
@@ -197,6 +197,54 @@ describe('several kitchens over one recipe book (real MariaDB)', () => {
     // The corner flour was saved at the bench: a change to the shared book, on both kitchens' trails.
     for (const at of [kitchen.bench, kitchen.corner])
       expect((await trail(at, 'ingredient.saved')).map((e) => e.summary)).toEqual([expect.stringMatching(/corner-flour/)]);
+  });
+
+  it('says what each kitchen makes differently: its own ingredient standing in, and what it sells', async () => {
+    const makes = async (at: number) => {
+      const res = await call('GET', '/api/book/kitchen', manager, at);
+      expect(res.statusCode).toBe(200);
+      return res.json<KitchenMakes>();
+    };
+    const flourLines = twoKitchens.recipes.flatMap((r) => r.lines).filter((l) => l.use === 'flour').length;
+    expect(flourLines).toBeGreaterThan(0);
+    const name = (id: string) => [...twoKitchens.ingredients, ...twoKitchens.recipes].find((i) => i.id === id)!.name;
+    expect(await makes(kitchen.corner)).toEqual({
+      code: 'corner',
+      name: 'Corner Shop',
+      substitutions: [
+        {
+          replaces: { id: 'flour', name: name('flour') },
+          with: expect.objectContaining({ id: 'corner-flour', name: name('corner-flour') }),
+          note: 'Milled next door',
+          lines: flourLines,
+        },
+      ],
+      sells: [{ id: 'shortbread', name: name('shortbread') }],
+      notSold: [{ id: 'sesame-snap', name: name('sesame-snap') }],
+    });
+    expect(await makes(kitchen.bench)).toEqual({ code: 'bench', name: 'Test bench', substitutions: [], sells: null, notSold: [] });
+    // Front of house reads the counter, not how the kitchen is set up.
+    expect((await call('GET', '/api/book/kitchen', benchOnly, kitchen.bench)).statusCode).toBe(403);
+  });
+
+  it('puts a sign-in on the trail of the kitchens its person works at, and an unknown address’s on every kitchen’s', async () => {
+    await t.signIn('bench-counter@example.com', PASSWORD);
+    const refused = async (email: string) =>
+      expect((await t.req('POST', '/api/auth/sign-in', undefined, { email, password: 'not-the-password-1' })).statusCode).toBe(401);
+    await refused('bench-counter@example.com');
+    await refused('nobody-here@example.com');
+    const [{ id: counterId }] = await t.sequelize.query<{ id: number }>("SELECT id FROM users WHERE email = 'bench-counter@example.com'", {
+      type: QueryTypes.SELECT,
+    });
+    const count = async (at: number, query: string) =>
+      (await call('GET', `/api/audit?${query}`, manager, at)).json<{ items: unknown[] }>().items.length;
+    const signedIn = `action=sign-in.succeeded&record=${counterId}`;
+    expect(await count(kitchen.bench, signedIn)).toBeGreaterThan(0);
+    expect(await count(kitchen.corner, signedIn)).toBe(0);
+    const failed = (email: string) => `action=sign-in.failed&record=${encodeURIComponent(email)}`;
+    expect(await count(kitchen.bench, failed('bench-counter@example.com'))).toBe(1);
+    expect(await count(kitchen.corner, failed('bench-counter@example.com'))).toBe(0);
+    for (const at of [kitchen.bench, kitchen.corner]) expect(await count(at, failed('nobody-here@example.com'))).toBe(1);
   });
 
   it('puts a new product on sale at the kitchen it is created at, adding it to that kitchen’s list', async () => {

@@ -63,7 +63,14 @@ describe('the outbox', () => {
     await expect(
       t.sequelize.transaction(async (tx) => {
         await mail.enqueue(
-          { kind: 'rolled-back', to: ['nobody-here@example.com'], subject: 'Never sent', text: 'Never sent.', html: '<p>Never sent.</p>' },
+          {
+            kind: 'rolled-back',
+            kitchenId: null,
+            to: ['nobody-here@example.com'],
+            subject: 'Never sent',
+            text: 'Never sent.',
+            html: '<p>Never sent.</p>',
+          },
           tx,
         );
         throw new Error('the write was refused');
@@ -79,7 +86,10 @@ describe('the outbox', () => {
 
   it('sends a committed mail from the kitchen’s name, with plain text and HTML', async () => {
     const id = await t.sequelize.transaction((tx) =>
-      mail.enqueue({ kind: 'note', to: ['chef@example.com'], subject: 'A note', text: 'Plain words.', html: '<p>HTML words.</p>' }, tx),
+      mail.enqueue(
+        { kind: 'note', kitchenId: null, to: ['chef@example.com'], subject: 'A note', text: 'Plain words.', html: '<p>HTML words.</p>' },
+        tx,
+      ),
     );
     const got = await smtp.waitFor((m) => m.subject === 'A note');
     expect(got.from?.value).toEqual([{ name: `${KITCHEN} via Crumbproof`, address: 'kitchen-mail@bakehouse.example' }]);
@@ -90,8 +100,10 @@ describe('the outbox', () => {
   });
 
   it('refuses a malformed mail and queues nothing', async () => {
-    await expect(mail.enqueue({ kind: 'note', to: [], subject: 'x', text: 'x', html: 'x' })).rejects.toThrow(/recipient/);
-    await expect(mail.enqueue({ kind: 'note', to: ['not an address'], subject: 'x', text: 'x', html: 'x' })).rejects.toThrow();
+    await expect(mail.enqueue({ kind: 'note', kitchenId: null, to: [], subject: 'x', text: 'x', html: 'x' })).rejects.toThrow(/recipient/);
+    await expect(
+      mail.enqueue({ kind: 'note', kitchenId: null, to: ['not an address'], subject: 'x', text: 'x', html: 'x' }),
+    ).rejects.toThrow();
   });
 
   it('finds the addresses of the active people with a role at the kitchens named', async () => {
@@ -129,6 +141,7 @@ describe('the outbox', () => {
     try {
       const id = await mail.enqueue({
         kind: 'note',
+        kitchenId: null,
         to: ['chef@example.com'],
         subject: 'Through an outage',
         text: 'Late.',
@@ -184,7 +197,14 @@ describe('the outbox', () => {
   it('keeps a mail the server refuses with its answer', async () => {
     smtp.refuse = true;
     try {
-      const id = await mail.enqueue({ kind: 'note', to: ['chef@example.com'], subject: 'Refused', text: 'No.', html: '<p>No.</p>' });
+      const id = await mail.enqueue({
+        kind: 'note',
+        kitchenId: null,
+        to: ['chef@example.com'],
+        subject: 'Refused',
+        text: 'No.',
+        html: '<p>No.</p>',
+      });
       await sender.whenIdle();
       expect(await outboxRow(id)).toMatchObject({ state: 'queued', attempts: 1 });
       expect((await outboxRow(id)).last_error).toMatch(/451/);

@@ -182,3 +182,22 @@ export interface SpecificationStatus {
   latest: { id: number; version: number; reviewBy: string; uploadedAt: string } | null;
   state: SpecificationState;
 }
+
+/** An item of the book by its id and name. */
+export interface NamedItem {
+  id: string;
+  name: string;
+}
+
+/** What one kitchen makes differently from the shared book (GET /api/book/kitchen): its own ingredients standing in, and what it sells. */
+export interface KitchenMakes {
+  /** The kitchen's id in the recipe book; null for an installation of one kitchen set up from a book without ids. */
+  code: string | null;
+  name: string;
+  /** Each substitution recorded on the kitchen, in its order: the shared ingredient, the kitchen's own in its place there, and how many recipe lines it replaces. */
+  substitutions: Array<{ replaces: NamedItem; with: NamedItem & { supplier?: string }; note?: string; lines: number }>;
+  /** Null: every product for sale in the book. Otherwise the products this kitchen sells, by name. */
+  sells: NamedItem[] | null;
+  /** The products for sale in the book that this kitchen does not sell. */
+  notSold: NamedItem[];
+}

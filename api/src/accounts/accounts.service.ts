@@ -262,7 +262,8 @@ export class AccountsService {
     const expiresAt = new Date(now.getTime() + LINK_MINUTES[purpose] * 60_000);
     await this.links.replace(user.id, purpose, sha256(token), expiresAt, now, t);
     // An invitation names the kitchen it is to; a reset, asked for outside any kitchen, the book's owner.
-    const kitchen = (await (purpose === 'invitation' ? this.kitchen.find(t) : this.sites.first(t)))?.name ?? 'your kitchen';
+    const site = await (purpose === 'invitation' ? this.kitchen.find(t) : this.sites.first(t));
+    const kitchen = site?.name ?? 'your kitchen';
     const url = `${appAddress(this.config)}/set-password#token=${token}`;
     const body =
       purpose === 'invitation'
@@ -275,7 +276,11 @@ export class AccountsService {
             validMinutes: LINK_MINUTES[purpose],
           })
         : passwordResetMail({ kitchen, name: user.name, url, validMinutes: LINK_MINUTES[purpose] });
-    await this.mail.enqueueWithSecret({ kind: purpose, to: [user.email], ...body }, token, t);
+    await this.mail.enqueueWithSecret(
+      { kind: purpose, kitchenId: purpose === 'invitation' ? (site?.id ?? null) : null, to: [user.email], ...body },
+      token,
+      t,
+    );
     return expiresAt;
   }
 }

@@ -121,7 +121,7 @@ export class ApprovalMails implements OnModuleInit {
       products: waiting.map(mailed),
       url: `${appAddress(this.config)}/approvals`,
     });
-    await this.mail.enqueue({ kind: 'approval-needed', to, ...body });
+    await this.mail.enqueue({ kind: 'approval-needed', kitchenId: state.site.id, to, ...body });
   }
 
   /**
@@ -147,7 +147,7 @@ export class ApprovalMails implements OnModuleInit {
       })),
       url: `${appAddress(this.config)}/counter`,
     });
-    await this.mail.enqueue({ kind: 'allergen-approved', to, ...body }, t);
+    await this.mail.enqueue({ kind: 'allergen-approved', kitchenId: kitchen.id, to, ...body }, t);
   }
 }
 

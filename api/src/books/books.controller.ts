@@ -1,7 +1,7 @@
 import { Body, Controller, Get, HttpCode, Post } from '@nestjs/common';
 import { RouteConfig } from '@nestjs/platform-fastify';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
-import { bookFileSchema } from '@crumbproof/shared';
+import { bookFileSchema, type KitchenMakes } from '@crumbproof/shared';
 import { MAX_BOOK_BYTES, type BodyLimitConfig } from '../common/limits';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { Roles } from '../common/roles.decorator';
@@ -18,6 +18,16 @@ export class BooksController {
   @ApiOperation({ summary: 'Export the whole kitchen as a recipe book (also the backup format)' })
   export() {
     return this.books.exportBook();
+  }
+
+  @Get('kitchen')
+  @Roles(['manager', 'pastry-chef'])
+  @ApiOperation({
+    summary:
+      'What the request’s kitchen makes differently from the shared book: its own ingredients standing in by substitution, and the products it sells',
+  })
+  kitchenMakes(): Promise<KitchenMakes> {
+    return this.books.kitchenMakes();
   }
 
   @Post('import')

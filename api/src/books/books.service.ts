@@ -9,6 +9,8 @@ import {
   type BookProblem,
   type BookRecipe,
   type FieldError,
+  type KitchenMakes,
+  type NamedItem,
   type OtherSave,
   type Site,
   type Substitution,
@@ -245,6 +247,32 @@ export class BooksService {
   /** The whole recipe book as it stands now: every kitchen, in the recipe book format. */
   async exportBook(t?: Transaction): Promise<BookFile> {
     return (await this.state(t)).file;
+  }
+
+  /** What the request's kitchen makes differently from the shared book: its substitutions, and what it sells (GET /api/book/kitchen). */
+  async kitchenMakes(): Promise<KitchenMakes> {
+    const state = await this.state();
+    const site = state.file.sites?.find((s) => s.id === state.view.site?.id);
+    const ingredients = new Map(state.file.ingredients.map((i) => [i.id, i]));
+    const recipes = new Map(state.file.recipes.map((r) => [r.id, r]));
+    const named = (id: string): NamedItem => ({ id, name: ingredients.get(id)?.name ?? recipes.get(id)?.name ?? id });
+    const lines = new Map<string, number>();
+    for (const s of state.view.standIns) lines.set(s.replaces, (lines.get(s.replaces) ?? 0) + 1);
+    return {
+      code: state.site.code,
+      name: state.site.name,
+      substitutions: (site?.substitutions ?? []).map((sub) => {
+        const own = ingredients.get(sub.with);
+        return {
+          replaces: named(sub.replaces),
+          with: { ...named(sub.with), ...(own?.supplier ? { supplier: own.supplier } : {}) },
+          ...(sub.note ? { note: sub.note } : {}),
+          lines: lines.get(sub.replaces) ?? 0,
+        };
+      }),
+      sells: site?.sells ? site.sells.map(named) : null,
+      notSold: state.view.notSold.map(named),
+    };
   }
 
   /**

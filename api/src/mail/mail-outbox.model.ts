@@ -9,6 +9,10 @@ export class MailOutboxModel extends Model {
   @Column({ type: DataType.STRING(40), allowNull: false })
   kind: string;
 
+  /** The kitchen the mail is about (migration 0018); null: none in particular. */
+  @Column({ type: DataType.INTEGER, allowNull: true, field: 'site_id' })
+  siteId: number | null;
+
   @Column({ type: DataType.JSON, allowNull: false })
   recipients: string[] | string;
 

@@ -1,12 +1,14 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { OutboxMail } from '@crumbproof/shared';
 import { parseJson } from '../common/json-column';
 import { MailOutboxModel } from './mail-outbox.model';
 
 export interface NewMail {
   kind: string;
+  /** The kitchen it is about; null: none in particular. */
+  siteId: number | null;
   recipients: string[];
   subject: string;
   text: string;
@@ -88,14 +90,15 @@ export class MailOutboxRepository {
     );
   }
 
-  /** The newest mails first. */
-  async page(limit: number, offset: number): Promise<{ mails: OutboxMail[]; total: number }> {
-    const { rows, count } = await this.mails.findAndCountAll({ order: [['id', 'DESC']], limit, offset });
+  /** The newest mails first of the kitchen's outbox (see `ofKitchen`). */
+  async page(siteId: number | null, limit: number, offset: number): Promise<{ mails: OutboxMail[]; total: number }> {
+    const { rows, count } = await this.mails.findAndCountAll({ where: ofKitchen(siteId), order: [['id', 'DESC']], limit, offset });
     return { mails: rows.map(toOutboxMail), total: count };
   }
 
-  async findForUpdate(id: string, transaction: Transaction): Promise<OutboxMail | null> {
-    const row = await this.mails.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  /** A mail of the kitchen's outbox, locked for the transaction; null when there is none (or it is another kitchen's). */
+  async findForUpdate(id: string, siteId: number | null, transaction: Transaction): Promise<OutboxMail | null> {
+    const row = await this.mails.findOne({ where: { [Op.and]: [{ id }, ofKitchen(siteId)] }, transaction, lock: transaction.LOCK.UPDATE });
     return row ? toOutboxMail(row) : null;
   }
 
@@ -103,6 +106,24 @@ export class MailOutboxRepository {
   async requeue(id: string, now: Date, transaction: Transaction) {
     await this.mails.update({ state: 'queued', attempts: 0, nextAttemptAt: now }, { where: { id, state: 'failed' }, transaction });
   }
+}
+
+/**
+ * A kitchen's outbox: the mails about it, and those about no kitchen in particular (a password
+ * reset) that are to someone with a role there, or to nobody with a role anywhere (a person since
+ * taken off every kitchen), so that no kitchen's managers read another kitchen's mail. Before any
+ * kitchen is set up (null), every mail.
+ */
+function ofKitchen(siteId: number | null): WhereOptions {
+  // No kitchen set up yet: no mail can be about one.
+  if (siteId === null) return {};
+  const id = Number(siteId);
+  if (!Number.isSafeInteger(id)) throw new Error(`A kitchen's id is a whole number: ${String(siteId)}.`);
+  const worksAt = (where: string) =>
+    `EXISTS (SELECT 1 FROM kitchen_roles kr JOIN users u ON u.id = kr.user_id WHERE ${where} JSON_CONTAINS(recipients, JSON_QUOTE(u.email)))`;
+  return {
+    [Op.or]: [{ siteId: id }, { [Op.and]: [{ siteId: null }, literal(`(${worksAt(`kr.site_id = ${id} AND`)} OR NOT ${worksAt('')})`)] }],
+  };
 }
 
 function toOutboxMail(row: MailOutboxModel): OutboxMail {

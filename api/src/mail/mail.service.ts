@@ -6,12 +6,15 @@ import { AppError } from '../common/app-error';
 import { Clock } from '../common/clock';
 import { TransactionRunner } from '../common/transaction';
 import { KitchenRolesRepository } from '../kitchen/kitchen-roles.repository';
+import { KitchenService } from '../kitchen/kitchen.service';
 import { MailOutboxRepository } from './mail-outbox.repository';
 import { MAX_ATTEMPTS, MailSender } from './mail-sender.service';
 
 /** A mail to queue: what kind it is (invitation, password-reset, approval-requested…), to whom, and its rendered body. */
 export interface OutgoingMail {
   kind: string;
+  /** The kitchen it is about (whose managers see it in their outbox); null: none in particular, as a password reset. */
+  kitchenId: number | null;
   to: string[];
   subject: string;
   text: string;
@@ -33,6 +36,7 @@ export class MailService {
     private readonly outbox: MailOutboxRepository,
     private readonly sender: MailSender,
     private readonly kitchenRoles: KitchenRolesRepository,
+    private readonly kitchen: KitchenService,
     private readonly tx: TransactionRunner,
     private readonly audit: AuditService,
     private readonly clock: Clock,
@@ -63,17 +67,20 @@ export class MailService {
     return this.kitchenRoles.activeEmailsWithRolesAt(typeof at === 'number' ? [at] : at, roles, t);
   }
 
-  /** The newest mails of the outbox (GET /api/mail/outbox). */
+  /** The newest mails of the request's kitchen's outbox (GET /api/mail/outbox). */
   async page(): Promise<OutboxPage> {
-    const { mails, total } = await this.outbox.page(OUTBOX_PAGE, 0);
+    // Before any kitchen is set up every mail is about none in particular: the whole outbox.
+    const site = await this.kitchen.find();
+    const { mails, total } = await this.outbox.page(site?.id ?? null, OUTBOX_PAGE, 0);
     return { mails, total, sending: this.sender.sending, maxAttempts: MAX_ATTEMPTS };
   }
 
   /** A mail that was not sent is queued again now, with its attempts from nought (the manager's Send again). */
   async retry(id: string): Promise<OutboxMail> {
     if (!/^\d{1,19}$/.test(id)) throw new AppError('not-found', `There is no mail ${id.slice(0, 40)}.`);
+    const site = await this.kitchen.find();
     const mail = await this.tx.run(async (t) => {
-      const before = await this.outbox.findForUpdate(id, t);
+      const before = await this.outbox.findForUpdate(id, site?.id ?? null, t);
       if (!before) throw new AppError('not-found', `There is no mail ${id}.`);
       if (before.state !== 'failed') {
         throw new AppError(
@@ -84,7 +91,7 @@ export class MailService {
         );
       }
       await this.outbox.requeue(id, this.clock.now(), t);
-      const after = (await this.outbox.findForUpdate(id, t))!;
+      const after = (await this.outbox.findForUpdate(id, site?.id ?? null, t))!;
       await this.audit.record(
         {
           action: 'mail.retried',
@@ -110,6 +117,7 @@ export class MailService {
     const id = await this.outbox.add(
       {
         kind: mail.kind,
+        siteId: mail.kitchenId,
         recipients,
         subject: mail.subject.replace(/\s+/g, ' ').trim().slice(0, 300),
         text: mail.text,

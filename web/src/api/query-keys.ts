@@ -32,6 +32,8 @@ export const queryKeys = {
     compositionScan: (request: CompositionScanRequest) => ['reference', 'composition-scan', request] as const,
   },
   kitchen: () => ['kitchen'] as const,
+  /** What the kitchen makes differently (its stand-ins, what it sells): under the kitchen's root, so a write refreshes it. */
+  kitchenMakes: () => ['kitchen', 'makes'] as const,
   ingredients: {
     all: () => ['ingredients'] as const,
     /** The whole library (no search), or the API's matches for a search. */

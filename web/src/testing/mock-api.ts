@@ -134,6 +134,7 @@ export function signedInAs(role: Role, extra: ApiHandlers = {}): ApiHandlers {
   return {
     'GET /api/me': { body: PEOPLE[role] },
     'GET /api/kitchen': { body: KITCHEN },
+    'GET /api/book/kitchen': { body: { code: null, name: KITCHEN.name, substitutions: [], sells: null, notSold: [] } },
     'GET /api/labels/settings': { body: LABEL_SETTINGS },
     'GET /api/public-page/settings': { body: { enabled: false, baseUrl: null, updatedAt: null, kitchen: null } },
     'POST /api/auth/sign-out': { status: 204 },

@@ -65,7 +65,9 @@ export class SpecificationReviewsJob {
       if (earlier) return { run: earlier, created: false };
       const to = found.overdue.length + found.dueSoon.length > 0 ? await this.mail.addressesOf(TOLD, site.id, t) : [];
       const mailId =
-        to.length > 0 ? await this.mail.enqueue({ kind: 'reviews-due', to, ...reviewsDueMail({ kitchen: site.name, ...found }) }, t) : null;
+        to.length > 0
+          ? await this.mail.enqueue({ kind: 'reviews-due', kitchenId: site.id, to, ...reviewsDueMail({ kitchen: site.name, ...found }) }, t)
+          : null;
       const run = await this.runs.add(site.id, { day: found.today, overdue: found.overdue, dueSoon: found.dueSoon, mailId }, t);
       await this.audit.record(
         {

@@ -1,10 +1,12 @@
 import type { CounterProductsView } from '@crumbproof/shared';
 import { screen, waitFor, within } from '@testing-library/react';
-import { beforeEach, describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { queryKeys } from '@/api/query-keys';
 import { demoCounterView } from '@/features/counter/testing/counter-view';
 import { FakeEventSource, stubEventSource } from '@/features/counter/testing/fake-event-source';
 import { inesAt, KITCHEN, mockApi, SALTMARSH, signedInAs, type ApiHandlers, type MockResponse } from '@/testing/mock-api';
+import { BUTTER } from '@/features/ingredients/testing/fixtures';
+import { LEAVE_QUESTION } from '@/lib/unsaved-changes';
 import { renderApp } from '@/testing/render-app';
 
 const STORED = 'crumbproof.kitchen.4';
@@ -184,5 +186,38 @@ describe('Switching kitchen', () => {
     expect(await screen.findByRole('heading', { level: 1, name: 'Counter' })).toBeInTheDocument();
     expect(router.state.location.pathname).toBe('/counter');
     await waitFor(() => expect(screen.queryByRole('heading', { name: 'Not available to your role' })).not.toBeInTheDocument());
+  });
+
+  it('asks before an editor’s unsaved changes are dropped, by another kitchen or another page, and keeps them when told to', async () => {
+    window.localStorage.setItem(STORED, '1');
+    const confirm = vi.spyOn(window, 'confirm').mockReturnValue(false);
+    try {
+      inesApi({
+        'GET /api/ingredients/butter': { body: BUTTER },
+        'GET /api/ingredients/butter/used-in': { body: [] },
+        'GET /api/ingredients/butter/specifications': { body: [] },
+        'GET /api/ingredients/butter/revisions': { body: [] },
+      });
+      const { user } = renderApp('/ingredients/butter');
+      const supplier = await screen.findByLabelText('Supplier');
+      await user.clear(supplier);
+      await user.type(supplier, 'Marram Dairy');
+
+      await user.selectOptions(screen.getByLabelText('Working in'), '2');
+      expect(confirm).toHaveBeenLastCalledWith(LEAVE_QUESTION);
+      expect(screen.getByLabelText('Working in')).toHaveValue('1');
+      expect(screen.getByLabelText('Supplier')).toHaveValue('Marram Dairy');
+
+      await user.click(within(screen.getByRole('navigation', { name: 'Main' })).getByRole('link', { name: 'Ingredients' }));
+      expect(confirm).toHaveBeenCalledTimes(2);
+      expect(screen.getByLabelText('Supplier')).toHaveValue('Marram Dairy');
+
+      confirm.mockReturnValue(true);
+      await user.selectOptions(screen.getByLabelText('Working in'), '2');
+      expect(await screen.findByText('Declared for Saltmarsh Yard Café (EU rules)')).toBeInTheDocument();
+      expect(confirm).toHaveBeenCalledTimes(3);
+    } finally {
+      confirm.mockRestore();
+    }
   });
 });

@@ -3,6 +3,7 @@ import { ROLE_LABELS } from '@crumbproof/shared';
 import { useLocation, useNavigate } from 'react-router-dom';
 import { useKitchenName } from '@/api/kitchen';
 import { useSignedInUser } from '@/lib/signed-in-user';
+import { confirmLeavingUnsaved } from '@/lib/unsaved-changes';
 import { useWorkIn } from '@/lib/use-work-in';
 import { canOpen, firstPathFor, pageAt } from '../navigation';
 
@@ -33,6 +34,8 @@ export function KitchenSwitcher() {
   function handleChange(id: number) {
     const kitchen = me.kitchens.find((k) => k.id === id);
     if (!kitchen || kitchen.id === me.kitchen) return;
+    // Every page is read again for the other kitchen: an editor's unsaved changes would be lost.
+    if (!confirmLeavingUnsaved()) return;
     const page = pageAt(pathname);
     const stays = page !== null && canOpen(kitchen.role, page);
     workIn(me, kitchen.id);

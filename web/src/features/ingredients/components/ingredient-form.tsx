@@ -1,4 +1,5 @@
 import { Box, Button, Heading, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
+import { hasEdits, useUnsavedChanges } from '@/lib/unsaved-changes';
 import {
   bookIngredientSchema,
   FIGURE_KEYS,
@@ -152,12 +153,13 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     getFieldState,
     getValues,
     reset,
-    formState: { errors },
+    formState: { errors, dirtyFields },
   } = useForm<IngredientFormValues, unknown, BookIngredient>({
     resolver: zodResolver(bookIngredientSchema),
     defaultValues: toFormValues(ingredient),
   });
 
+  const guard = useUnsavedChanges(hasEdits(dirtyFields));
   const composition = useWatch({ control, name: 'composition' }) ?? '';
   const contains = useWatch({ control, name: 'contains' });
   const nutrition = useWatch({ control, name: 'nutrition' });
@@ -202,6 +204,7 @@ export function IngredientForm({ ingredient, onSave, saving, onSaved }: Ingredie
     try {
       const result = await onSave(payload, baseRevision);
       setBase(result.revision);
+      guard.release();
       reset(toFormValues(result));
       setStatement(allergenStatementOf(result));
       setSaved(isNew ? `${result.name} was added.` : `Saved. This is revision ${result.revision}.`);

@@ -1,5 +1,6 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
+import { LEAVE_QUESTION } from '@/lib/unsaved-changes';
 import { mockApi, requestUrl, signedInAs, type ApiHandlers } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 import type { CompositionScan, IngredientView, NutrientReference, SpecificationView, StaleBase } from '@crumbproof/shared';
@@ -515,5 +516,50 @@ describe('Ingredient page', () => {
     await user.click(within(specsPanel).getByRole('button', { name: 'Upload specification' }));
     expect(await within(specsPanel).findByText(/has already passed/)).toBeInTheDocument();
     expect(fetchMock.mock.calls.some(([url, init]) => requestUrl(url).endsWith('/specifications') && init?.method === 'POST')).toBe(false);
+  });
+});
+
+describe('unsaved edits to an ingredient', () => {
+  it('asks before leaving them for another page, keeps them when told to, and lets a saved form go without asking', async () => {
+    const confirm = vi.spyOn(window, 'confirm').mockReturnValue(false);
+    try {
+      butterApi({
+        'PUT /api/ingredients/butter': ({ body }) => {
+          const { baseRevision: _base, ...saved } = body as Record<string, unknown>;
+          return { body: { ...saved, revision: 4, updatedAt: '2026-12-01T12:00:00.000Z' } };
+        },
+        'GET /api/ingredients': { body: [] },
+      });
+      const { user } = renderApp('/ingredients/butter');
+      const nav = () => within(screen.getByRole('navigation', { name: 'Main' }));
+
+      await screen.findByLabelText('Supplier');
+      await user.click(within(screen.getByRole('group', { name: 'Contains' })).getByLabelText('egg', { exact: true }));
+      await user.click(nav().getByRole('link', { name: 'Ingredients' }));
+      expect(confirm).toHaveBeenCalledExactlyOnceWith(LEAVE_QUESTION);
+      expect(within(screen.getByRole('group', { name: 'Contains' })).getByLabelText('egg', { exact: true })).toBeChecked();
+
+      await user.click(screen.getByRole('button', { name: 'Save ingredient' }));
+      await screen.findByText('Saved. This is revision 4.');
+      await user.click(nav().getByRole('link', { name: 'Ingredients' }));
+      expect(await screen.findByRole('heading', { level: 1, name: 'Ingredients' })).toBeInTheDocument();
+      expect(confirm).toHaveBeenCalledTimes(1);
+    } finally {
+      confirm.mockRestore();
+    }
+  });
+
+  it('does not ask when nothing was edited', async () => {
+    const confirm = vi.spyOn(window, 'confirm').mockReturnValue(false);
+    try {
+      butterApi({ 'GET /api/ingredients': { body: [] } });
+      const { user } = renderApp('/ingredients/butter');
+      await screen.findByLabelText('Supplier');
+      await user.click(within(screen.getByRole('navigation', { name: 'Main' })).getByRole('link', { name: 'Ingredients' }));
+      expect(await screen.findByRole('heading', { level: 1, name: 'Ingredients' })).toBeInTheDocument();
+      expect(confirm).not.toHaveBeenCalled();
+    } finally {
+      confirm.mockRestore();
+    }
   });
 });

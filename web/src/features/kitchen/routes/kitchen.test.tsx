@@ -82,4 +82,46 @@ describe('Kitchen settings (manager)', () => {
     expect(await screen.findByRole('heading', { level: 1, name: 'Not available to your role' })).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Save kitchen settings' })).not.toBeInTheDocument();
   });
+
+  it('says what the kitchen makes differently: its own ingredient in place of the book’s, and what it sells', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/book/kitchen': {
+          body: {
+            code: 'saltmarsh-yard',
+            name: 'Saltmarsh Yard Café',
+            substitutions: [
+              {
+                replaces: { id: 'plain-flour', name: 'Plain wheat flour' },
+                with: { id: 'marsh-mill-flour', name: 'Marsh Mill stoneground flour', supplier: 'Marsh Mill' },
+                note: 'Milled down the lane.',
+                lines: 3,
+              },
+            ],
+            sells: [{ id: 'griddle-pancakes', name: 'Griddle pancakes' }],
+            notSold: [{ id: 'layer-cake', name: 'Layer cake' }],
+          },
+        },
+      }),
+    );
+    renderApp('/kitchen');
+    const panel = await screen.findByRole('region', { name: 'Made differently here' });
+    expect(await within(panel).findByRole('list', { name: 'Stand-ins at this kitchen' })).toHaveTextContent(
+      'Marsh Mill stoneground flour (Marsh Mill) in place of Plain wheat flour, on 3 recipe lines. Milled down the lane.',
+    );
+    expect(within(panel).getByText('1 of the book’s 2 products for sale: Griddle pancakes.')).toBeInTheDocument();
+    expect(within(panel).getByText('Not sold here: Layer cake.')).toBeInTheDocument();
+  });
+
+  it('says when the kitchen makes everything as the book does', async () => {
+    mockApi(
+      signedInAs('manager', {
+        'GET /api/book/kitchen': { body: { code: null, name: KITCHEN.name, substitutions: [], sells: null, notSold: [] } },
+      }),
+    );
+    renderApp('/kitchen');
+    const panel = await screen.findByRole('region', { name: 'Made differently here' });
+    expect(await within(panel).findByText(/None: every recipe line here uses the book’s shared ingredient/)).toBeInTheDocument();
+    expect(within(panel).getByText('Every product for sale in the recipe book.')).toBeInTheDocument();
+  });
 });

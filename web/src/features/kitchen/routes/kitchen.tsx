@@ -4,7 +4,9 @@ import { Page } from '@/components/ui/page';
 import { Panel } from '@/components/ui/panel';
 import { useKitchen } from '@/api/kitchen';
 import { useLabelSettings } from '@/api/label-settings';
+import { useKitchenMakes } from '../api/get-kitchen-makes';
 import { KitchenForm } from '../components/kitchen-form';
+import { KitchenMakesView } from '../components/kitchen-makes';
 import { usePublicPageSettings } from '@/api/public-page-settings';
 import { LabelSettingsForm } from '../components/label-settings-form';
 import { PublicPageForm } from '../components/public-page-form';
@@ -14,6 +16,7 @@ export function KitchenRoute() {
   const kitchen = useKitchen();
   const labelSettings = useLabelSettings();
   const publicPage = usePublicPageSettings();
+  const makes = useKitchenMakes();
   return (
     <Page
       title="Kitchen"
@@ -26,6 +29,19 @@ export function KitchenRoute() {
       ) : (
         <KitchenForm kitchen={kitchen.data} />
       )}
+      <Panel title="Made differently here">
+        {makes.isPending ? (
+          <Loading size="sm">Loading what this kitchen makes differently…</Loading>
+        ) : makes.isError ? (
+          <LoadFailed
+            title="What this kitchen makes differently could not be loaded"
+            error={makes.error}
+            onRetry={() => void makes.refetch()}
+          />
+        ) : (
+          <KitchenMakesView makes={makes.data} />
+        )}
+      </Panel>
       <Panel title="Label settings">
         {labelSettings.isPending ? (
           <Loading size="sm">Loading the label settings…</Loading>

@@ -1,5 +1,6 @@
 import { Text } from '@chakra-ui/react';
 import { useState } from 'react';
+import { useKitchenName } from '@/api/kitchen';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { LoadFailed } from '@/components/ui/load-failed';
 import { Loading } from '@/components/ui/loading';
@@ -13,11 +14,13 @@ export function MailRoute() {
   const outbox = useOutbox();
   const retry = useRetryMail();
   const [said, setSaid] = useState<string | null>(null);
+  // The outbox is per kitchen: the mail about this kitchen, and password links to its people.
+  const kitchen = useKitchenName();
 
   return (
     <Page
       title="Mail"
-      lead="Every mail Crumbproof sends: invitations, password links and what other pages tell people. A mail the mail server does not take is tried again after 1, 5, 15 and 60 minutes; after the last attempt it waits here as not sent until you send it again."
+      lead={`Every mail Crumbproof sends about ${kitchen ?? 'this kitchen'}: invitations, password links to its people and what other pages tell them. A mail the mail server does not take is tried again after 1, 5, 15 and 60 minutes; after the last attempt it waits here as not sent until you send it again.`}
     >
       {retry.isError ? <ErrorAlert title="The mail was not sent again">{retry.error.message}</ErrorAlert> : null}
       <Text role="status">{said}</Text>

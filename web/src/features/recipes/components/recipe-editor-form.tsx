@@ -1,4 +1,5 @@
 import { Box, Button, Grid, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { hasEdits, useUnsavedChanges } from '@/lib/unsaved-changes';
 import {
   bookRecipeSchema,
   CLAIM_LABELS,
@@ -73,9 +74,10 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
     setError,
     setValue,
     reset,
-    formState: { errors, isDirty },
+    formState: { errors, isDirty, dirtyFields },
   } = useForm<EditorValues>({ resolver: editorResolver, defaultValues: defaults });
   const lines = useFieldArray({ control, name: 'lines' });
+  const guard = useUnsavedChanges(hasEdits(dirtyFields));
   const save = useSaveRecipe();
   const labelSettings = useLabelSettings();
   // A refused save stays on screen until the recipe changes: it is kept with the recipe it refused.
@@ -123,7 +125,10 @@ export function RecipeEditorForm({ initial, options, lookup, onSaved }: RecipeEd
     const setSaveMessage = (message: string) => setRefused({ recipeKey, message });
     const recipe = toBookRecipe(values);
     save.mutate(creating ? { recipe } : { recipe, code: initial.id, baseRevision }, {
-      onSuccess: (saved) => onSaved(saved),
+      onSuccess: (saved) => {
+        guard.release();
+        onSaved(saved);
+      },
       onError: (error) => {
         if (!isApiError(error)) {
           setSaveMessage('Nothing was saved. Try again in a moment.');
