@@ -68,8 +68,10 @@ export function ApprovalsRoute() {
             {approvals.data.kitchens > 1 ? (
               <Text>
                 {`At ${approvals.data.kitchen.name}: these are the declarations as this kitchen makes them, and an approval here approves them here only. The ${
-                  approvals.data.kitchens === 2 ? 'other kitchen' : `other ${approvals.data.kitchens - 1} kitchens`
-                } sharing the recipe book approve their own.`}
+                  approvals.data.kitchens === 2
+                    ? 'other kitchen sharing the recipe book approves its'
+                    : `other ${approvals.data.kitchens - 1} kitchens sharing the recipe book approve their`
+                } own.`}
               </Text>
             ) : null}
             {approvals.data.elsewhere.length > 0 ? (

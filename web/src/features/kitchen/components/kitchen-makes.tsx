@@ -22,7 +22,7 @@ export function KitchenMakesView({ makes }: { makes: KitchenMakes }) {
                 <Text as="span" fontWeight="bold">
                   {sub.with.name}
                 </Text>
-                {sub.with.supplier ? ` (${sub.with.supplier})` : ''}
+                {sub.with.supplier && !sub.with.name.includes(sub.with.supplier) ? ` (${sub.with.supplier})` : ''}
                 {` in place of ${sub.replaces.name}, on ${lines(sub.lines)}.`}
                 {sub.note ? (
                   <Text as="span" color="fg.muted">
