@@ -93,7 +93,7 @@ describe('Kitchen settings (manager)', () => {
             substitutions: [
               {
                 replaces: { id: 'plain-flour', name: 'Plain wheat flour' },
-                with: { id: 'marsh-mill-flour', name: 'Marsh Mill stoneground flour', supplier: 'Marsh Mill' },
+                with: { id: 'marsh-mill-flour', name: 'Stoneground wheat flour', supplier: 'Marsh Mill' },
                 note: 'Milled down the lane.',
                 lines: 3,
               },
@@ -107,7 +107,7 @@ describe('Kitchen settings (manager)', () => {
     renderApp('/kitchen');
     const panel = await screen.findByRole('region', { name: 'Made differently here' });
     expect(await within(panel).findByRole('list', { name: 'Stand-ins at this kitchen' })).toHaveTextContent(
-      'Marsh Mill stoneground flour (Marsh Mill) in place of Plain wheat flour, on 3 recipe lines. Milled down the lane.',
+      'Stoneground wheat flour (Marsh Mill) in place of Plain wheat flour, on 3 recipe lines. Milled down the lane.',
     );
     expect(within(panel).getByText('1 of the book’s 2 products for sale: Griddle pancakes.')).toBeInTheDocument();
     expect(within(panel).getByText('Not sold here: Layer cake.')).toBeInTheDocument();
