@@ -103,6 +103,16 @@ export class ChangeFeed implements OnApplicationBootstrap, OnModuleDestroy, Data
         queryTimeout: POLL_TIMEOUT_MS,
         bigIntAsNumber: false,
       });
+      // A connection the server drops between polls says so as an event, which left unheard would end
+      // the process: the copies stop being served, and the next poll connects again.
+      const dropped = this.connection;
+      dropped.on('error', () => {
+        if (this.connection === dropped) {
+          this.connection = null;
+          this.lost();
+        }
+        dropped.destroy();
+      });
     }
     const rows = await this.connection.query<{ access: bigint | number | string | null; sites: string | null }[]>(POLL_SQL);
     return rows[0];
