@@ -61,7 +61,7 @@ export async function createApp(options: { logLevel?: AppConfig['LOG_LEVEL'] } =
   });
   await app.register(fastifyCookie);
   await app.register(fastifyMultipart, { limits: { fileSize: MAX_UPLOAD_BYTES, files: 1 } });
-  await registerSecurityHeaders(fastify, { https: sessionCookieSecure(config) });
+  registerSecurityHeaders(fastify, { https: sessionCookieSecure(config) });
 
   const doc = SwaggerModule.createDocument(
     app,

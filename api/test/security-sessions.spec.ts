@@ -1,6 +1,8 @@
 import { JwtService } from '@nestjs/jwt';
 import { QueryTypes } from 'sequelize';
 import { createApp } from '../src/app.factory';
+import { CHANGE_STALE_MS } from '../src/database/change-feed';
+import { changedByHand } from './support/changed-by-hand';
 import { startTestApp, type TestApp } from './support/test-app';
 
 describe('sessions are kept by the server and end when they should', () => {
@@ -111,6 +113,7 @@ describe('sessions are kept by the server and end when they should', () => {
       'UPDATE sessions SET expires_at = NOW(3) + INTERVAL 5 MINUTE, idle_expires_at = NOW(3) + INTERVAL 2 MINUTE WHERE id = ?',
       { replacements: [sid] },
     );
+    await changedByHand(t);
     const renewed = await get('/api/me', await aged(cookie));
     expect(renewed.statusCode).toBe(200);
     const next = renewed.cookies.find((c) => c.name === 'cp_session')!;
@@ -123,6 +126,7 @@ describe('sessions are kept by the server and end when they should', () => {
     expect(again.cookies).toHaveLength(0);
 
     await t.sequelize.query('UPDATE sessions SET expires_at = NOW(3) - INTERVAL 1 SECOND WHERE id = ?', { replacements: [sid] });
+    await changedByHand(t);
     const late = await get('/api/me', cookie);
     expect(late.statusCode).toBe(401);
     expect(late.cookies).toHaveLength(0);
@@ -133,6 +137,7 @@ describe('sessions are kept by the server and end when they should', () => {
     await t.sequelize.query('UPDATE sessions SET idle_expires_at = NOW(3) - INTERVAL 1 SECOND WHERE id = ?', {
       replacements: [claimsOf(cookie).sid],
     });
+    await changedByHand(t);
     expect((await get('/api/me', cookie)).statusCode).toBe(401);
   });
 
@@ -151,6 +156,29 @@ describe('sessions are kept by the server and end when they should', () => {
       expect((await second.inject({ method: 'GET', url: '/api/me', headers: { cookie } })).statusCode).toBe(200);
       expect((await second.inject({ method: 'POST', url: '/api/auth/sign-out', headers: { cookie } })).statusCode).toBe(204);
       expect((await get('/api/me', cookie)).statusCode).toBe(401);
+    } finally {
+      await second.close();
+    }
+  });
+
+  it('refuses on every instance, within the staleness bound, a session one instance served a moment ago and another ended', async () => {
+    const second = await createApp({ logLevel: 'silent' });
+    try {
+      const cookie = await t.signIn('chef@example.com');
+      // Both instances have served the session, so both keep it.
+      expect((await get('/api/me', cookie)).statusCode).toBe(200);
+      expect((await second.inject({ method: 'GET', url: '/api/me', headers: { cookie } })).statusCode).toBe(200);
+      expect((await second.inject({ method: 'POST', url: '/api/auth/sign-out', headers: { cookie } })).statusCode).toBe(204);
+      const endedAt = Date.now();
+      // At once on the instance that ended it.
+      expect((await second.inject({ method: 'GET', url: '/api/me', headers: { cookie } })).statusCode).toBe(401);
+      // Within the bound on the other.
+      let status = (await get('/api/me', cookie)).statusCode;
+      while (status === 200 && Date.now() - endedAt < CHANGE_STALE_MS + 500) {
+        await new Promise((r) => setTimeout(r, 20));
+        status = (await get('/api/me', cookie)).statusCode;
+      }
+      expect({ status, withinBound: Date.now() - endedAt <= CHANGE_STALE_MS + 500 }).toEqual({ status: 401, withinBound: true });
     } finally {
       await second.close();
     }

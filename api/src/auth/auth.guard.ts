@@ -84,7 +84,7 @@ export class RolesGuard implements CanActivate {
     const user = request.user;
     if (!allowed || !user) throw new AppError('forbidden', 'Your role cannot do this.');
     const anyKitchen = this.reflector.getAllAndOverride<boolean>(ANY_KITCHEN, targets) ?? false;
-    const kitchens = await this.kitchenRoles.ofUser(user.id);
+    const kitchens = await this.kitchenRoles.ofUserAtRequest(user.id);
     const at = await this.kitchenOf(kitchenNamed(request), kitchens, anyKitchen);
     user.kitchens = kitchens;
     user.kitchenId = at?.siteId ?? null;

@@ -3,8 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { JwtService } from '@nestjs/jwt';
 import type { FastifyReply } from 'fastify';
 import { sessionCookieSecure, type AppConfig } from '../config/config';
-import type { SessionModel } from './session.model';
-import { SessionsRepository } from './sessions.repository';
+import { SessionsRepository, type LiveSession } from './sessions.repository';
 import { clearSessionCookie, setSessionCookie } from './session-cookie';
 
 /** What the session cookie's token says: whose it is and which session row it belongs to. */
@@ -43,7 +42,7 @@ export class SessionTokens {
   }
 
   /** Past half its idle life, a session's idle end moves on (never past its absolute end) and the cookie is renewed. */
-  async renewIfOld(reply: FastifyReply, claims: { sub: number; sid: string; iat?: number }, session: SessionModel, now = new Date()) {
+  async renewIfOld(reply: FastifyReply, claims: { sub: number; sid: string; iat?: number }, session: LiveSession, now = new Date()) {
     if (claims.iat === undefined) return;
     if (now.getTime() - claims.iat * 1000 < this.idleMs / 2) return;
     const idleExpiresAt = new Date(Math.min(now.getTime() + this.idleMs, session.expiresAt.getTime()));

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import autocannon from 'autocannon';
 import Fastify from 'fastify';
+import { KITCHEN_HEADER, type Me } from '@crumbproof/shared';
 import { syntheticKitchen } from '../rules/core/testing/synthetic-kitchen';
 
 /** One route under load (autocannon), against a bare Fastify route sending the same bytes in the same run. */
@@ -28,18 +29,25 @@ export interface ApiFigures extends LoadFigures {
 
 const CONNECTIONS = 100;
 
-/** Signs in a demo account and gives its session cookie. */
-async function signIn(base: string, email: string): Promise<string> {
+/**
+ * Signs in a demo account and gives the headers of its requests: its session cookie and its first
+ * kitchen (the demo manager works in two, and a request must name one).
+ */
+async function signIn(base: string, email: string): Promise<Record<string, string>> {
   const res = await fetch(`${base}/api/auth/sign-in`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', origin: base, 'sec-fetch-site': 'same-origin' },
     body: JSON.stringify({ email, password: 'crumbproof-demo' }),
   });
   if (!res.ok) throw new Error(`Signing in ${email} answered ${res.status}: ${await res.text()}`);
-  return res.headers
+  const cookie = res.headers
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
+  const me = await fetch(`${base}/api/me`, { headers: { cookie } });
+  if (!me.ok) throw new Error(`GET /api/me for ${email} answered ${me.status}: ${await me.text()}`);
+  const [kitchen] = ((await me.json()) as Me).kitchens;
+  return { cookie, ...(kitchen ? { [KITCHEN_HEADER]: String(kitchen.id) } : {}) };
 }
 
 function load(url: string, seconds: number, headers: Record<string, string> = {}): Promise<autocannon.Result> {
@@ -75,11 +83,11 @@ async function withPeakRss<T>(pid: number | null, work: () => Promise<T>): Promi
 }
 
 /** Loads a route of the app, then a bare Fastify route answering its bytes, `seconds` each. */
-async function routeAgainstBare(base: string, path: string, cookie: string, seconds: number): Promise<LoadFigures> {
-  const one = await fetch(`${base}${path}`, { headers: { cookie } });
+async function routeAgainstBare(base: string, path: string, headers: Record<string, string>, seconds: number): Promise<LoadFigures> {
+  const one = await fetch(`${base}${path}`, { headers });
   if (!one.ok) throw new Error(`GET ${path} answered ${one.status}: ${await one.text()}`);
   const body = Buffer.from(await one.arrayBuffer());
-  const routed = await load(`${base}${path}`, seconds, { cookie });
+  const routed = await load(`${base}${path}`, seconds, headers);
   const bare = Fastify();
   bare.get('/bare', (_req, reply) => reply.type('application/json; charset=utf-8').send(body));
   const address = await bare.listen({ host: '127.0.0.1', port: 0 });
@@ -118,7 +126,7 @@ export async function measureApi(base: string, pid: number | null, seconds = 10)
   const imported = await withPeakRss(pid, () =>
     fetch(`${base}/api/book/import`, {
       method: 'POST',
-      headers: { 'content-type': 'application/json', origin: base, 'sec-fetch-site': 'same-origin', cookie: manager },
+      headers: { 'content-type': 'application/json', origin: base, 'sec-fetch-site': 'same-origin', ...manager },
       body: book,
     }).then(async (res) => {
       await res.arrayBuffer();

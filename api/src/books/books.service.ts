@@ -193,25 +193,36 @@ export class BooksService {
    * with the current revision of every item, and the whole book.
    */
   async state(t?: Transaction): Promise<KitchenState> {
-    const sites = await this.sites.all(t);
+    const sites = await this.sitesNow(t);
     return this.stateOf(this.kitchen.pick(sites), sites, t);
+  }
+
+  /**
+   * Every kitchen's row: inside a write as its transaction sees them; outside one, this instance's
+   * copy while no kitchen write has been heard (SiteRepository.allAtRequest), so a warm read of the
+   * book costs no query. A write through this instance drops the copy when it commits; one through
+   * another instance is heard within CHANGE_STALE_MS (1 s; typically one poll, 200 ms).
+   */
+  private sitesNow(t?: Transaction): Promise<readonly SiteRow[]> {
+    return t ? this.sites.all(t) : this.sites.allAtRequest();
   }
 
   /** One kitchen as it stands now, as state gives the request's. */
   async stateAt(kitchen: SiteRow, t?: Transaction): Promise<KitchenState> {
-    const sites = await this.sites.all(t);
+    const sites = await this.sitesNow(t);
     const site = sites.find((s) => s.id === kitchen.id);
     if (!site) throw new AppError('not-found', `The kitchen ${kitchen.name} is no longer set up.`);
     return this.stateOf(site, sites, t);
   }
 
-  private async stateOf(site: SiteRow, sites: SiteRow[], t?: Transaction): Promise<KitchenState> {
+  private async stateOf(site: SiteRow, sites: readonly SiteRow[], t?: Transaction): Promise<KitchenState> {
     // Inside a write, always as the transaction sees it.
     if (t) return this.read(site, sites, t);
     // Outside one, the copy read last serves while the site rows' versions are those it was read
     // at: every write raises one of them (SiteRepository.lock on the owner, .update on a kitchen)
-    // in its own transaction, on any API instance, so one small read of the site rows tells whether
-    // the copy still stands. The items are read after the site rows, so a copy is never older than its key.
+    // in its own transaction, on any API instance, and the change feed polls them (sitesNow), so
+    // the copy's key says whether it still stands. The items are read after the site rows, so a
+    // copy is never older than its key.
     const key = sites.map((s) => `${s.id}:${s.version}:${s.bookVersion}`).join(' ');
     const last = this.lastRead.get(site.id);
     if (last?.key === key) return last.state;
@@ -225,11 +236,12 @@ export class BooksService {
 
   /** Every kitchen as it stands now, the owner first (what a change to shared items is shown against). */
   async everyKitchen(): Promise<KitchenState[]> {
-    const sites = await this.sites.all();
+    const sites = await this.sitesNow();
     return Promise.all(sites.map((s) => this.stateAt(s)));
   }
 
-  private async read(site: SiteRow, sites: SiteRow[], t?: Transaction): Promise<KitchenState> {
+  private async read(site: SiteRow, rows: readonly SiteRow[], t?: Transaction): Promise<KitchenState> {
+    const sites = [...rows];
     const owner = sites[0];
     const [ings, recs] = await Promise.all([this.ingredients.listCurrent(owner.id, t), this.recipes.listCurrent(owner.id, t)]);
     const heads = new Map<string, ItemHead>([

@@ -31,14 +31,21 @@ export function isRetriedConflict(err: unknown): boolean {
   return err instanceof Error && ENDED_BY_CONFLICT.test(err.message);
 }
 
-/** Runs `attempt` again, after a short random pause, while it fails with a conflict MariaDB says to retry. */
+/** The longest pause between two attempts. */
+const MAX_PAUSE_MS = 500;
+
+/**
+ * Runs `attempt` again, after a random pause that doubles with each attempt (up to MAX_PAUSE_MS:
+ * "exponential backoff with jitter"), while it fails with a conflict MariaDB says to retry. Many
+ * writers on one kitchen's lock at once spread out instead of meeting again at the next attempt.
+ */
 export async function retryingConflicts<T>(attempt: () => Promise<T>, attempts = ATTEMPTS): Promise<T> {
   for (let n = 1; ; n++) {
     try {
       return await attempt();
     } catch (err) {
       if (n >= attempts || !isRetriedConflict(err)) throw err;
-      await new Promise((r) => setTimeout(r, Math.random() * 25 * n));
+      await new Promise((r) => setTimeout(r, Math.random() * Math.min(MAX_PAUSE_MS, 25 * 2 ** (n - 1))));
     }
   }
 }

@@ -1,5 +1,14 @@
 import { BaseError, ConnectionError } from 'sequelize';
 
+/**
+ * Told when a request found the database away (ChangeFeed, under this token): what is kept in
+ * memory is then no longer served, since a change made meanwhile could not be heard.
+ */
+export interface DatabaseLostListener {
+  lost(): void;
+}
+export const DATABASE_LOST = Symbol('DATABASE_LOST');
+
 /** What every request answers while the database cannot be reached (503, database-unavailable). */
 export const DATABASE_UNAVAILABLE_MESSAGE =
   'Crumbproof cannot reach its database just now, so this could not be done. Try again in a moment; if it keeps happening, the database needs restarting.';

@@ -1,7 +1,7 @@
 import { ArgumentsHost, Catch, ExceptionFilter, HttpException, Inject, Logger, NotFoundException, Optional } from '@nestjs/common';
 import type { FastifyReply, FastifyRequest } from 'fastify';
 import type { ApiErrorBody, ErrorCode } from '@crumbproof/shared';
-import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from './database-unavailable';
+import { DATABASE_LOST, DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable, type DatabaseLostListener } from './database-unavailable';
 import { AppError, httpStatusOf } from './app-error';
 import { isRefusedAccess, REFUSAL_LISTENER, type RefusalListener } from './refusals';
 
@@ -24,7 +24,10 @@ export class ApiExceptionFilter implements ExceptionFilter {
   /** The web app's index.html when the API also serves the web build (see app.factory.ts). */
   static webFallbackHtml: string | null = null;
 
-  constructor(@Optional() @Inject(REFUSAL_LISTENER) private readonly refusals?: RefusalListener) {}
+  constructor(
+    @Optional() @Inject(REFUSAL_LISTENER) private readonly refusals?: RefusalListener,
+    @Optional() @Inject(DATABASE_LOST) private readonly databaseLost?: DatabaseLostListener,
+  ) {}
 
   catch(exception: unknown, host: ArgumentsHost) {
     const reply = host.switchToHttp().getResponse<FastifyReply>();
@@ -96,6 +99,8 @@ export class ApiExceptionFilter implements ExceptionFilter {
     if (isDatabaseUnavailable(exception)) {
       // One line, no stack: every request says the same while the database is away.
       this.logger.warn(`The database cannot be reached: ${exception instanceof Error ? exception.message : String(exception)}`);
+      // Nor can a revocation be heard: nothing is served from memory until the database answers again.
+      this.databaseLost?.lost();
       return { statusCode: 503, code: 'database-unavailable', message: DATABASE_UNAVAILABLE_MESSAGE };
     }
     this.logger.error(exception instanceof Error ? described(exception) : String(exception));

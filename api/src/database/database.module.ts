@@ -2,9 +2,13 @@ import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { SequelizeModule } from '@nestjs/sequelize';
 import type { AppConfig } from '../config/config';
+import { ChangeFeedModule } from './change-feed';
 import { connectionOptions } from './connection';
 
-/** The API's connection, as its runtime user (DB_USER); migrations run as the owner (schema-setup.ts). */
+/**
+ * The API's connection, as its runtime user (DB_USER); migrations run as the owner (schema-setup.ts).
+ * With it, the feed that tells every copy kept in memory when it no longer stands (ChangeFeed).
+ */
 @Module({
   imports: [
     SequelizeModule.forRootAsync({
@@ -24,6 +28,7 @@ import { connectionOptions } from './connection';
         synchronize: false,
       }),
     }),
+    ChangeFeedModule,
   ],
 })
 export class DatabaseModule {}

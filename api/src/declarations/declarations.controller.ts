@@ -1,7 +1,9 @@
-import { Body, Controller, Get, HttpCode, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Post, Query, Req, Res } from '@nestjs/common';
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
+import type { FastifyReply, FastifyRequest } from 'fastify';
 import { bookRecipeSchema, REGIMES, ROLES, KITCHEN_WRITERS, type Regime } from '@crumbproof/shared';
 import { Roles } from '../common/roles.decorator';
+import { sendPrepared } from '../common/prepared-json';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { DeclarationsService } from './declarations.service';
 import { regimeQuery } from './regime-query';
@@ -16,8 +18,9 @@ export class DeclarationsController {
   @Roles(ROLES)
   @ApiOperation({ summary: 'Declarations of every product for sale' })
   @ApiQuery({ name: 'regime', required: false, enum: REGIMES })
-  all(@Query('regime', new ZodPipe(regimeQuery)) regime?: Regime) {
-    return this.declarations.all(regime);
+  async all(@Req() request: FastifyRequest, @Res() reply: FastifyReply, @Query('regime', new ZodPipe(regimeQuery)) regime?: Regime) {
+    // Sent as serialised once for this state of the kitchen, with its entity tag (If-None-Match: 304).
+    return sendPrepared(request, reply, await this.declarations.preparedAll(regime));
   }
 
   @Post('preview')

@@ -14,6 +14,7 @@ import {
 } from '@crumbproof/shared';
 import { AppError } from '../common/app-error';
 import { deepFreeze } from '../common/deep-freeze';
+import { prepareJson, type PreparedJson } from '../common/prepared-json';
 import { validationError } from '../common/zod.pipe';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
@@ -72,6 +73,11 @@ export class DeclarationsService implements OnModuleInit {
 
   /** What was found or kept for each product of a kitchen state, by regime and code (see keptForProducts). */
   private readonly keptOf = new WeakMap<KitchenState, Map<string, KeptServed>>();
+  /**
+   * The answers of the declaration routes as sent, by regime and product (or every product for
+   * sale), for each kitchen state and the day they were served on (see prepared).
+   */
+  private readonly preparedOf = new WeakMap<KitchenState, Map<string, { today: string; answer: Promise<PreparedJson> }>>();
   /** The review-by dates of each kitchen state's ingredients (see standingOf). */
   private readonly reviewByOf = new WeakMap<KitchenState['heads'], Promise<Map<number, string>>>();
 
@@ -224,6 +230,38 @@ export class DeclarationsService implements OnModuleInit {
     return { today: this.specifications.today(), reviewBy: await reviewBy };
   }
 
+  /**
+   * A product's served declaration (forProduct) as the bytes GET /api/recipes/:code/declaration
+   * sends, with their entity tag: serialised once per kitchen state, regime and day, so a warm read
+   * is neither declared, hashed nor serialised again. The kitchen state is this instance's copy
+   * (BooksService.state), which any write that can change a declaration replaces.
+   */
+  async preparedFor(code: string, regime?: Regime): Promise<PreparedJson> {
+    const state = await this.books.state();
+    return this.prepared(state, `${regime ?? state.book.site.regime} ${code}`, () => this.forProduct(code, regime, state));
+  }
+
+  /** Every product for sale's served declaration (all) as GET /api/declarations sends it, kept as preparedFor keeps one. */
+  async preparedAll(regime?: Regime): Promise<PreparedJson> {
+    const state = await this.books.state();
+    return this.prepared(state, `${regime ?? state.book.site.regime} *`, () => this.allOf(state, regime));
+  }
+
+  private prepared(state: KitchenState, key: string, serve: () => Promise<unknown>): Promise<PreparedJson> {
+    const today = this.specifications.today();
+    let byKey = this.preparedOf.get(state);
+    if (!byKey) this.preparedOf.set(state, (byKey = new Map<string, { today: string; answer: Promise<PreparedJson> }>()));
+    const kept = byKey.get(key);
+    // What is served depends on the day too (review warnings, the claims' basis): a new day, a new answer.
+    if (kept?.today === today) return kept.answer;
+    const answer = serve().then(prepareJson);
+    byKey.set(key, { today, answer });
+    answer.catch(() => {
+      if (byKey.get(key)?.answer === answer) byKey.delete(key);
+    });
+    return answer;
+  }
+
   /** The declaration kept for a recipe (by its row id) under a regime and input hash, or null when there is none. */
   async keptByHash(recipeRowId: number, regime: Regime, inputHash: string): Promise<ProductDeclaration | null> {
     return (await this.kept.find(recipeRowId, regime, inputHash))?.body ?? null;
@@ -263,7 +301,10 @@ export class DeclarationsService implements OnModuleInit {
 
   /** Declarations of every product for sale, each with where it comes from. */
   async all(regime?: Regime): Promise<ServedDeclaration[]> {
-    const state = await this.books.state();
+    return this.allOf(await this.books.state(), regime);
+  }
+
+  private allOf(state: KitchenState, regime?: Regime): Promise<ServedDeclaration[]> {
     return this.forProducts(
       state.book.recipes.filter((x) => x.sale).map((r) => r.id),
       regime,

@@ -3,14 +3,35 @@ import { InjectModel } from '@nestjs/sequelize';
 import type { Role } from '@crumbproof/shared';
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { KitchenRoleRow } from '../common/current-user.decorator';
+import { ChangeFeed, KeptUntilChanged } from '../database/change-feed';
 import { KitchenRoleModel } from './kitchen-role.model';
 
 export type { KitchenRoleRow } from '../common/current-user.decorator';
 
-/** The only place that reads and writes kitchen_roles: who works where, and as what. */
+/**
+ * The only place that reads and writes kitchen_roles: who works where, and as what. Every change
+ * raises the access revision in its transaction (ChangeFeed.accessWrite), so a role changed or
+ * taken off applies at once on this instance and within CHANGE_STALE_MS (1 s) on every other.
+ */
 @Injectable()
 export class KitchenRolesRepository {
-  constructor(@InjectModel(KitchenRoleModel) private readonly roles: typeof KitchenRoleModel) {}
+  /** Each person's kitchens as the roles guard last read them (see ofUserAtRequest). */
+  private readonly kept: KeptUntilChanged<number, readonly KitchenRoleRow[]>;
+
+  constructor(
+    @InjectModel(KitchenRoleModel) private readonly roles: typeof KitchenRoleModel,
+    private readonly feed: ChangeFeed,
+  ) {
+    this.kept = new KeptUntilChanged(feed, 'access');
+  }
+
+  /**
+   * ofUser as every request's roles check reads it: this instance's copy while no change to roles,
+   * accounts, sessions or kitchens has been heard (ChangeFeed), else from the database.
+   */
+  ofUserAtRequest(userId: number): Promise<readonly KitchenRoleRow[]> {
+    return this.kept.get(userId, async () => Object.freeze((await this.ofUser(userId)).map((k) => Object.freeze(k))));
+  }
 
   /** Every kitchen the person has a role in, in the order the kitchens were set up (one query). */
   async ofUser(userId: number, t?: Transaction): Promise<KitchenRoleRow[]> {
@@ -35,11 +56,11 @@ export class KitchenRolesRepository {
 
   /** Gives the person `role` at the kitchen, replacing the one they had there. */
   async set(userId: number, siteId: number, role: Role, t?: Transaction): Promise<void> {
-    await this.roles.upsert({ userId, siteId, role }, { transaction: t });
+    await this.feed.accessWrite(t, (tx) => this.roles.upsert({ userId, siteId, role }, { transaction: tx }));
   }
 
   async remove(userId: number, siteId: number, t?: Transaction): Promise<void> {
-    await this.roles.destroy({ where: { userId, siteId }, transaction: t });
+    await this.feed.accessWrite(t, (tx) => this.roles.destroy({ where: { userId, siteId }, transaction: tx }));
   }
 
   /** How many kitchens besides `siteId` each of the people works in, by user id (none: left out). */
@@ -91,9 +112,11 @@ export class KitchenRolesRepository {
 
   /** A new kitchen's first people: every active person already on the installation, with the role they were created with. */
   async grantEveryone(siteId: number, t?: Transaction): Promise<void> {
-    await this.roles.sequelize!.query(
-      'INSERT IGNORE INTO kitchen_roles (user_id, site_id, role) SELECT id, :siteId, role FROM users WHERE active = 1',
-      { replacements: { siteId }, transaction: t },
+    await this.feed.accessWrite(t, (tx) =>
+      this.roles.sequelize!.query(
+        'INSERT IGNORE INTO kitchen_roles (user_id, site_id, role) SELECT id, :siteId, role FROM users WHERE active = 1',
+        { replacements: { siteId }, transaction: tx },
+      ),
     );
   }
 }

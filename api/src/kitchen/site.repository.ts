@@ -2,7 +2,9 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Handling, MeasureSystem, Regime, Substitution } from '@crumbproof/shared';
 import type { Transaction } from 'sequelize';
+import { deepFreeze } from '../common/deep-freeze';
 import { parseJson } from '../common/json-column';
+import { ChangeFeed, KeptUntilChanged } from '../database/change-feed';
 import { SiteModel } from './site.model';
 
 /** A kitchen as stored: its settings and their version (raised by every change to them). */
@@ -48,10 +50,20 @@ function toRow(m: SiteModel): SiteRow {
 /**
  * The only place that reads and writes the sites table: the installation's kitchens. The first one
  * set up owns the recipe book (ingredient and recipe rows are keyed by it) and holds its lock.
+ * Every write raises a version of the kitchen's row (lock, update) and tells the change feed, so
+ * this instance's copies of the book go at once and every other instance's within CHANGE_STALE_MS.
  */
 @Injectable()
 export class SiteRepository {
-  constructor(@InjectModel(SiteModel) private readonly sites: typeof SiteModel) {}
+  /** Every kitchen as the requests last read them (see allAtRequest). */
+  private readonly kept: KeptUntilChanged<'all', readonly SiteRow[]>;
+
+  constructor(
+    @InjectModel(SiteModel) private readonly sites: typeof SiteModel,
+    private readonly feed: ChangeFeed,
+  ) {
+    this.kept = new KeptUntilChanged(feed, 'book');
+  }
 
   /** The book's owner: the first kitchen set up, or null before any is. */
   async first(t?: Transaction): Promise<SiteRow | null> {
@@ -62,6 +74,14 @@ export class SiteRepository {
   /** Every kitchen, in the order they were set up (the owner first). */
   async all(t?: Transaction): Promise<SiteRow[]> {
     return (await this.sites.findAll({ order: [['id', 'ASC']], transaction: t })).map(toRow);
+  }
+
+  /**
+   * Every kitchen as all does, outside a write: this instance's copy (frozen, shared by every
+   * request) while no kitchen write has been heard (ChangeFeed polls every kitchen's versions), else read again.
+   */
+  allAtRequest(): Promise<readonly SiteRow[]> {
+    return this.kept.get('all', async () => deepFreeze(await this.all()));
   }
 
   async byId(id: number, t?: Transaction): Promise<SiteRow | null> {
@@ -77,10 +97,13 @@ export class SiteRepository {
   async lock(t: Transaction): Promise<void> {
     const first = await this.sites.findOne({ attributes: ['id'], order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
     if (first) await this.sites.increment('bookVersion', { by: 1, where: { id: first.id }, transaction: t });
+    this.feed.bookChanged(t);
   }
 
   async create(settings: SiteSettings, t?: Transaction): Promise<SiteRow> {
-    return toRow(await this.sites.create({ ...settings }, { transaction: t }));
+    const created = toRow(await this.sites.create({ ...settings }, { transaction: t }));
+    this.feed.bookChanged(t);
+    return created;
   }
 
   /** Changes the settings and raises the version, so every declaration computed from the old ones is recomputed. */
@@ -88,6 +111,7 @@ export class SiteRepository {
     const row = await this.sites.findByPk(id, { transaction: t, lock: t ? t.LOCK.UPDATE : undefined });
     if (!row) throw new Error(`There is no site ${id}.`);
     await row.update({ ...changes, version: row.version + 1 }, { transaction: t });
+    this.feed.bookChanged(t);
     return toRow(row);
   }
 }

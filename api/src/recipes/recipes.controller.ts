@@ -1,5 +1,6 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Put, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Put, Query, Req, Res } from '@nestjs/common';
 import { ApiOperation, ApiQuery, ApiTags } from '@nestjs/swagger';
+import type { FastifyReply, FastifyRequest } from 'fastify';
 import {
   bookRecipeSchema,
   recipeSaveSchema,
@@ -12,6 +13,7 @@ import {
 } from '@crumbproof/shared';
 import { CurrentUser, type AuthUser } from '../common/current-user.decorator';
 import { ItemCodePipe } from '../common/item-code.pipe';
+import { sendPrepared } from '../common/prepared-json';
 import { Roles } from '../common/roles.decorator';
 import { ApiZodBody, ZodPipe } from '../common/zod.pipe';
 import { regimeQuery } from '../declarations/regime-query';
@@ -41,8 +43,14 @@ export class RecipesController {
   @ApiTags('declarations')
   @ApiOperation({ summary: 'A product’s declaration for a regime (the kitchen’s by default)' })
   @ApiQuery({ name: 'regime', required: false, enum: REGIMES })
-  declaration(@Param('code') code: string, @Query('regime', new ZodPipe(regimeQuery)) regime?: Regime) {
-    return this.recipes.declaration(code, regime);
+  async declaration(
+    @Req() request: FastifyRequest,
+    @Res() reply: FastifyReply,
+    @Param('code') code: string,
+    @Query('regime', new ZodPipe(regimeQuery)) regime?: Regime,
+  ) {
+    // Sent as serialised once for this state of the kitchen, with its entity tag (If-None-Match: 304).
+    return sendPrepared(request, reply, await this.recipes.declaration(code, regime));
   }
 
   @Get(':code/revisions')

@@ -65,9 +65,12 @@ export class RecipesService {
     return views.reverse();
   }
 
-  /** A product's declaration for a regime (the kitchen's by default), from the store when nothing it depends on has changed. */
+  /**
+   * A product's declaration for a regime (the kitchen's by default), from the store when nothing it
+   * depends on has changed, as the bytes the route sends (DeclarationsService.preparedFor).
+   */
   declaration(code: string, regime?: Regime) {
-    return this.declarations.forProduct(code, regime);
+    return this.declarations.preparedFor(code, regime);
   }
 
   /** Every recipe that uses this one at any depth. */

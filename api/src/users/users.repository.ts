@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { AppError } from '../common/app-error';
+import { ChangeFeed, KeptUntilChanged } from '../database/change-feed';
 import type { Role, User } from '@crumbproof/shared';
 import { UserModel } from './user.model';
 
@@ -18,7 +19,15 @@ export interface NewUser {
 /** The only place that reads and writes the users table. */
 @Injectable()
 export class UsersRepository {
-  constructor(@InjectModel(UserModel) private readonly users: typeof UserModel) {}
+  /** Each account as a session check last read it (see forSession). */
+  private readonly kept: KeptUntilChanged<number, UserModel | null>;
+
+  constructor(
+    @InjectModel(UserModel) private readonly users: typeof UserModel,
+    private readonly feed: ChangeFeed,
+  ) {
+    this.kept = new KeptUntilChanged(feed, 'access');
+  }
 
   findByEmail(email: string, transaction?: Transaction) {
     return this.users.findOne({ where: { email }, transaction });
@@ -26,6 +35,15 @@ export class UsersRepository {
 
   findById(id: number, transaction?: Transaction) {
     return this.users.findByPk(id, { transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  }
+
+  /**
+   * The account a session belongs to, as the session check reads it at every request: from this
+   * instance's copy while no change to accounts, sessions or roles has been heard (ChangeFeed:
+   * at once on this instance, within CHANGE_STALE_MS from another), else from the database.
+   */
+  forSession(id: number): Promise<UserModel | null> {
+    return this.kept.get(id, () => this.users.findByPk(id));
   }
 
   list() {
@@ -53,9 +71,12 @@ export class UsersRepository {
     changes: Partial<Pick<UserModel, 'name' | 'role' | 'active' | 'passwordHash' | 'demoPassword'>>,
     transaction?: Transaction,
   ) {
-    const row = await this.users.findByPk(id, { transaction });
-    if (!row) return null;
-    return row.update(changes, { transaction });
+    // A change to an account (its role, its state, its password) is heard by every instance's session check.
+    return this.feed.accessWrite(transaction, async (t) => {
+      const row = await this.users.findByPk(id, { transaction: t });
+      if (!row) return null;
+      return row.update(changes, { transaction: t });
+    });
   }
 
   count() {
