@@ -1,10 +1,10 @@
 import type { DeclarationNotice, DeclaredIngredient } from '@crumbproof/shared';
 import { compare, round } from './compare';
 import type { RegimeRules } from './reference-schema';
-import type { ProductTree, TreeNode } from './tree';
+import type { LineNode, LineTree } from './tree';
 
 /** Added water is recognised by the ingredient's isWater flag, or by an id or name of 'water'. */
-export function isWater(node: TreeNode): boolean {
+export function isWater(node: LineNode): boolean {
   const i = node.ingredient;
   return !!i && (i.isWater === true || i.id.toLowerCase() === 'water' || i.name.trim().toLowerCase() === 'water');
 }
@@ -44,13 +44,13 @@ export interface IngredientList {
  *   lost), so that its water is not taken to have baked off.
  * Regimes without that derogation list added water by the weight used.
  */
-export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: (node: TreeNode) => string[]): IngredientList {
+export function ingredientList(tree: LineTree, rules: RegimeRules, groupsAt: (node: LineNode) => string[]): IngredientList {
   const warnings: DeclarationNotice[] = [];
   const omitUpTo = rules.addedWater.omitUpToPercent;
-  const mixOf = (nodes: TreeNode[]) => nodes.reduce((s, n) => s + n.usedG, 0);
+  const mixOf = (nodes: LineNode[]) => nodes.reduce((s, n) => s + n.usedG, 0);
 
   /** `bake`: finished weight / mix of the nearest recipe at or above this level that has a finished weight, and its name. */
-  const level = (nodes: TreeNode[], finishedG: number, bake: Bake, parentPercent: number, of: string): DeclaredIngredient[] => {
+  const level = (nodes: LineNode[], finishedG: number, bake: Bake, parentPercent: number, of: string): DeclaredIngredient[] => {
     const othersG = nodes.filter((n) => !isWater(n)).reduce((s, n) => s + n.usedG, 0);
     const entries: DeclaredIngredient[] = [];
     for (const node of nodes) {
