@@ -34,7 +34,6 @@ interface IngredientSaid {
   unknown: Said[];
 }
 
-
 function saidBy(f: IngredientFacts, rules: RegimeRules): IngredientSaid {
   const name = f.ingredient.name;
   const freeFrom = {} as Record<FreeFromClaim, Said[]>;
@@ -174,7 +173,10 @@ function glutenSaid(f: IngredientFacts, rules: RegimeRules, contact: boolean): S
     } else if (figure === undefined) {
       const noFigure = use.source === 'oats' && gf.oats === 'measured';
       const exempt = exemptionOf(use, rules) !== undefined;
-      found.push({ status: noFigure || exempt ? 'unverified' : 'fails', message: `${name} contains ${label} with no measured gluten figure.` });
+      found.push({
+        status: noFigure || exempt ? 'unverified' : 'fails',
+        message: `${name} contains ${label} with no measured gluten figure.`,
+      });
     } else if (contact && figure > 0) {
       found.push({
         status: 'fails',

@@ -20,17 +20,17 @@ import {
   type AllergenDigest,
   type IngredientFacts,
 } from './allergens';
-import { checkBook } from './book-check';
-import { recipesAbove } from './book-graph';
+import { changeIsClean, checkBook } from './book-check';
+import { recipesAboveAny, usersOf, type UsersIndex } from './book-graph';
 import { claimsFor, type ClaimMemo } from './claims';
 import { BookProblemsError, UnknownProductError } from './errors';
-import { ingredientList } from './ingredient-list';
+import { ingredientList, isWater } from './ingredient-list';
 import { quidFor } from './quid';
 import type { ReferenceData, RegimeRules } from './reference-schema';
 import { mayContainText, renderList, type Mark } from './statement';
 import { lineWeightWarnings, portionWarnings, type WeighedLineFact } from './sanity';
 import { sulphitesFor } from './sulphites';
-import { indexBook, lineGrams, rollDown, type BookIndex, type LineNode, type LineTree } from './tree';
+import { indexBook, lineGrams, rollDown, weighedLinesOf, type BookIndex, type LineNode, type LineTree } from './tree';
 
 export interface DeclareOptions {
   /** Defaults to the book's site regime. */
@@ -74,13 +74,25 @@ export function redeclareAfterChange(
   refs: ReferenceData,
   opts: DeclareOptions = {},
 ): DeclarationSet {
-  const problems = checkBook(book);
-  if (problems.length > 0) throw new BookProblemsError(problems);
   const regime = opts.regime ?? book.site.regime;
-  const above = recipesAbove(book, changedId);
-  const kept = new Map(previous.declarations.map((d) => [d.product, d]));
   const before = RUNS.get(previous);
-  const run = before ? runAfterChange(book, before, new Set([...above, changedId])) : startRun(book);
+  let run: Run;
+  let above: Set<string>;
+  if (before) {
+    // Who uses what changes only with a recipe's lines.
+    const users =
+      book.recipes.some((r, n) => r !== before.book.recipes[n]) || book.recipes.length !== before.book.recipes.length
+        ? usersOf(book)
+        : before.users();
+    above = recipesAboveAny(book, [changedId], users);
+    run = runAfterChange(book, before, new Set([...above, changedId]), users);
+    if (!changeIsClean(before.book, book, changedId, run.index, users)) assertClean(book);
+  } else {
+    assertClean(book);
+    run = startRun(book);
+    above = recipesAboveAny(book, [changedId], run.users());
+  }
+  const kept = new Map(previous.declarations.map((d) => [d.product, d]));
   const set = {
     declarations: book.recipes
       .filter((r) => r.sale)
@@ -91,6 +103,11 @@ export function redeclareAfterChange(
   };
   RUNS.set(set, run);
   return set;
+}
+
+function assertClean(book: Book): void {
+  const problems = checkBook(book);
+  if (problems.length > 0) throw new BookProblemsError(problems);
 }
 
 /** The warnings an ingredient gives wherever it is used under a regime (worked out once per ingredient and regime). */
@@ -172,7 +189,11 @@ function quantityWarnings(index: BookIndex, tree: LineTree): DeclarationNotice[]
  * one product alone starts a run of its own.
  */
 interface Run {
+  /** The book declared (checked by checkBook). */
+  book: Book;
   index: BookIndex;
+  /** Who uses each item in the book (worked out when first asked for). */
+  users: () => UsersIndex;
   /** By id; facts are never changed after, and one found for another object of the same id is worked out again. */
   facts: Map<string, IngredientFacts>;
   /** By regime, then facts (so shared with a run after a change, whose changed ingredient has new facts). */
@@ -191,10 +212,26 @@ interface Marked {
   codes: Map<string, Set<string>>;
   groups: Map<string, string[]>;
   names: Map<string, TextSegment[]>;
+  /** Sub-recipes as rendered, by id and role (RenderMemo). */
+  pieces: Map<string, TextSegment[]>;
 }
 
 function startRun(book: Book): Run {
-  return { index: indexBook(book), facts: new Map(), digests: new Map(), warnings: new Map(), claims: new Map(), marked: new Map() };
+  return {
+    book,
+    index: indexBook(book),
+    users: once(() => usersOf(book)),
+    facts: new Map(),
+    digests: new Map(),
+    warnings: new Map(),
+    claims: new Map(),
+    marked: new Map(),
+  };
+}
+
+function once<T>(make: () => T): () => T {
+  let made: { value: T } | undefined;
+  return () => (made ??= { value: make() }).value;
 }
 
 /**
@@ -203,7 +240,7 @@ function startRun(book: Book): Run {
  * depends on an item and everything below it is kept for every item but `stale` (the changed
  * item and the recipes above it). The run before is left as it was.
  */
-function runAfterChange(book: Book, before: Run, stale: ReadonlySet<string>): Run {
+function runAfterChange(book: Book, before: Run, stale: ReadonlySet<string>, users: UsersIndex): Run {
   const keep = <V>(m: Map<string, V>): Map<string, V> => {
     const out = new Map(m);
     for (const id of stale) out.delete(id);
@@ -213,9 +250,43 @@ function runAfterChange(book: Book, before: Run, stale: ReadonlySet<string>): Ru
   index.weighed = keep(before.index.weighed);
   index.mixes = keep(before.index.mixes);
   index.repeats = keep(before.index.repeats);
+  index.bakeDependent = keep(before.index.bakeDependent);
   const marked = new Map<string, Marked>();
-  for (const [key, m] of before.marked) marked.set(key, { codes: keep(m.codes), groups: keep(m.groups), names: keep(m.names) });
-  return { index, facts: before.facts, digests: before.digests, warnings: before.warnings, claims: before.claims, marked };
+  for (const [key, m] of before.marked) {
+    // A piece is kept by id and role: those of the stale items go.
+    const pieces = new Map([...m.pieces].filter(([k]) => !stale.has(k.slice(0, k.lastIndexOf('|')))));
+    marked.set(key, { codes: keep(m.codes), groups: keep(m.groups), names: keep(m.names), pieces });
+  }
+  return {
+    book,
+    index,
+    users: () => users,
+    facts: before.facts,
+    digests: before.digests,
+    warnings: before.warnings,
+    claims: before.claims,
+    marked,
+  };
+}
+
+/**
+ * Whether a sub-recipe's list depends on a bake loss from above it: it has no finished weight of
+ * its own, and added water is in its lines or in a sub-recipe below that depends on it too (where
+ * Annex VII A.1 places water by the level's finished weight, ingredient-list.ts).
+ */
+function bakeDependent(run: Run, recipeId: string): boolean {
+  let depends = run.index.bakeDependent.get(recipeId);
+  if (depends === undefined) {
+    const recipe = run.index.recipes.get(recipeId);
+    depends =
+      recipe !== undefined &&
+      recipe.finishedWeightG === undefined &&
+      weighedLinesOf(run.index, recipe).some((l) =>
+        l.ingredient ? isWater(l) : l.recipe !== undefined && bakeDependent(run, l.recipe.id),
+      );
+    run.index.bakeDependent.set(recipeId, depends);
+  }
+  return depends;
 }
 
 const NOT_VEGAN = new Set(['milk', 'egg', 'fish', 'crustacean', 'mollusc']);
@@ -266,7 +337,7 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
   const markedKey = `${regime}|${String(sulphites.declared)}`;
   let marked = run.marked.get(markedKey);
   if (!marked) {
-    marked = { codes: new Map(), groups: new Map(), names: new Map() };
+    marked = { codes: new Map(), groups: new Map(), names: new Map(), pieces: new Map() };
     run.marked.set(markedKey, marked);
   }
   // The groups each item declares: an ingredient's own, a sub-recipe's the union of its lines'. They
@@ -287,10 +358,11 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
     let groups = groupsById.get(node.id);
     if (!groups) {
       const codes = codesOf(node);
-      groups = rules.groups.map((g) => g.code).filter((c) => codes.has(c));
+      // One array for every entry of the item, in every declaration: never changed (ingredientList copies before adding).
+      groups = Object.freeze(rules.groups.map((g) => g.code).filter((c) => codes.has(c))) as string[];
       groupsById.set(node.id, groups);
     }
-    return [...groups];
+    return groups;
   };
   const list = ingredientList(tree, rules, groupsAt);
 
@@ -315,7 +387,13 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
     }
     return marks;
   };
-  const rendered = renderList(list.entries, contains, rules, marksOf, marked.names);
+  // A sub-recipe is rendered the same wherever it is used when the order below it does not depend
+  // on the product: under a contact line, without added water placed by the finished weight, or
+  // with no added water weighed by a bake loss from above it (ingredient-list.ts).
+  const omitsWater = rules.addedWater.omitUpToPercent !== null;
+  const keyOf = (e: { id: string; role: string }): string | null =>
+    e.role === 'contact' || !omitsWater || !bakeDependent(run, e.id) ? `${e.id}|${e.role}` : null;
+  const rendered = renderList(list.entries, contains, rules, marksOf, { names: marked.names, pieces: marked.pieces, keyOf });
   const quid = quidFor(tree, tree.recipe.sale?.quid ?? []);
 
   const warningsBy = ofRules(run.warnings, rules);

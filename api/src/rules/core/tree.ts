@@ -58,6 +58,8 @@ export interface BookIndex {
   mixes: Map<string, number>;
   /** By recipe id: whether two of its merged lines use the same id (once in the mix, once by contact). */
   repeats: Map<string, boolean>;
+  /** By recipe id: whether its ingredient list depends on a bake loss from above it (declare.ts). */
+  bakeDependent: Map<string, boolean>;
 }
 
 export function indexBook(book: Book): BookIndex {
@@ -68,6 +70,7 @@ export function indexBook(book: Book): BookIndex {
     weighed: new Map(),
     mixes: new Map(),
     repeats: new Map(),
+    bakeDependent: new Map(),
   };
 }
 
