@@ -12,10 +12,12 @@ import {
   type Site,
   type SourceEntry,
   type UnknownAllergens,
+  type VagueHit,
+  type VagueMention,
 } from '@crumbproof/shared';
 import { scanCompositionShared } from './composition-scan';
 import type { AllergenGroup, Exemption, Lexicon, RegimeRules } from './reference-schema';
-import { pathKey, type TreeNode } from './tree';
+import type { RolledLeaf } from './tree';
 
 export interface SourceUse {
   source: AllergenSource;
@@ -27,9 +29,12 @@ export interface SourceUse {
   term?: string;
 }
 
-/** What one leaf of the tree brings, before any regime is applied. */
-export interface LeafFacts {
-  node: TreeNode;
+export function normalise(entry: SourceEntry): Omit<SourceUse, 'origin'> {
+  return typeof entry === 'string' ? { source: entry } : { ...entry };
+}
+
+/** What an ingredient brings wherever it is used, before any regime is applied. */
+export interface IngredientFacts {
   ingredient: BookIngredient;
   /** False when the supplier gave no allergen statement (contains left out). */
   known: boolean;
@@ -38,12 +43,8 @@ export interface LeafFacts {
   scan: CompositionTerms;
 }
 
-export function normalise(entry: SourceEntry): Omit<SourceUse, 'origin'> {
-  return typeof entry === 'string' ? { source: entry } : { ...entry };
-}
-
-/** What an ingredient brings wherever it is used: a leaf's facts without its place in the tree. */
-export type IngredientFacts = Omit<LeafFacts, 'node'>;
+/** One leaf of a product: its ingredient's facts at its place (tree.ts rollDown). */
+export type Leaf = RolledLeaf<IngredientFacts>;
 
 /** Supplier statement, composition scan and stated sulphite content of one ingredient. */
 export function ingredientFacts(ingredient: BookIngredient, lexicon: Lexicon): IngredientFacts {
@@ -64,25 +65,6 @@ export function ingredientFacts(ingredient: BookIngredient, lexicon: Lexicon): I
     }
   }
   return { ingredient, known: ingredient.contains !== undefined, contains, mayContain, scan };
-}
-
-/**
- * Supplier statement, composition scan and stated sulphite content of each leaf. `known` keeps
- * each ingredient's facts once worked out (by id, for one book and lexicon), shared by every leaf
- * that uses it; they are never changed after.
- */
-export function leafFacts(leaves: TreeNode[], lexicon: Lexicon, known = new Map<string, IngredientFacts>()): LeafFacts[] {
-  return leaves.map((node) => {
-    const ingredient = node.ingredient;
-    if (!ingredient) throw new Error(`${node.name} is not an ingredient.`);
-    let facts = known.get(ingredient.id);
-    if (!facts) {
-      facts = ingredientFacts(ingredient, lexicon);
-      known.set(ingredient.id, facts);
-    }
-    const { known: isKnown, contains, mayContain, scan } = facts;
-    return { node, ingredient, known: isKnown, contains, mayContain, scan };
-  });
 }
 
 const groupsBySource = new WeakMap<RegimeRules, Map<AllergenSource, AllergenGroup[]>>();
@@ -108,47 +90,39 @@ export function exemptionOf(use: Pick<SourceUse, 'source' | 'form'>, rules: Regi
 }
 
 /** Sources this leaf declares under the regime (exempt forms left out; sulphites only when the product declares them). */
-export function declaredUses(facts: LeafFacts, rules: RegimeRules, sulphitesDeclared: boolean): SourceUse[] {
+export function declaredUses(facts: Pick<IngredientFacts, 'contains'>, rules: RegimeRules, sulphitesDeclared: boolean): SourceUse[] {
   return facts.contains.filter((u) => !exemptionOf(u, rules) && (u.source !== 'sulphites' || sulphitesDeclared));
 }
 
 const pushUnique = <T>(list: T[], item: T) => {
   if (!list.includes(item)) list.push(item);
 };
-/** The keys of the paths already in each via list, so a path is found in it without joining every other. */
-const pathKeys = new WeakMap<string[][], Set<string>>();
-/** Adds a path to a via list unless the same path is in it already: each distinct path once. */
-export const pushPath = (list: string[][], path: string[], key = pathKey(path)) => {
-  let keys = pathKeys.get(list);
-  if (!keys) {
-    keys = new Set(list.map(pathKey));
-    pathKeys.set(list, keys);
-  }
-  if (keys.has(key)) return;
-  keys.add(key);
-  list.push(path);
-};
 
-export function containsFor(all: LeafFacts[], rules: RegimeRules, sulphitesDeclared: boolean): ContainedAllergen[] {
-  const found = new Map<string, ContainedAllergen>();
-  for (const facts of all) {
-    for (const use of declaredUses(facts, rules, sulphitesDeclared)) {
-      for (const group of groupsOf(use.source, rules)) {
-        const entry = found.get(group.code) ?? { allergen: group.code, label: group.label, sources: [], via: [] };
-        pushUnique(entry.sources, use.source);
-        if (use.species) {
-          entry.species ??= [];
-          pushUnique(entry.species, use.species);
-        }
-        pushPath(entry.via, facts.node.path, facts.node.key);
-        // Still in the food, so declared here (Regulation (EU) No 1169/2011 Art. 9(1)(c) and 21),
-        // and said to come through contact.
-        if (facts.node.role === 'contact') pushPath((entry.contactVia ??= []), facts.node.path, facts.node.key);
-        found.set(group.code, entry);
-      }
-    }
+/**
+ * A via list that takes each distinct path once. Paths are told apart by identity: rollDown gives
+ * two leaves with the same ids one array, and only when the product has such leaves (`repeated`)
+ * can a path come again after another; one leaf adding itself twice (two sources of one group)
+ * is the path just added.
+ */
+export class PathList {
+  private last: string[] | undefined;
+  private readonly seen: Set<string[]> | undefined;
+  constructor(
+    readonly list: string[][],
+    repeated: boolean,
+  ) {
+    this.last = list[list.length - 1];
+    this.seen = repeated ? new Set(list) : undefined;
   }
-  return rules.groups.flatMap((g) => found.get(g.code) ?? []);
+  add(path: string[]): void {
+    if (path === this.last) return;
+    if (this.seen) {
+      if (this.seen.has(path)) return;
+      this.seen.add(path);
+    }
+    this.last = path;
+    this.list.push(path);
+  }
 }
 
 /**
@@ -160,113 +134,12 @@ export function citation(text: string): string {
   return text.replace(/\s*\[(read|memory|computed|inspected)\]/g, '').trim();
 }
 
-export function exemptUses(all: LeafFacts[], rules: RegimeRules): ExemptUse[] {
-  const out: ExemptUse[] = [];
-  for (const facts of all) {
-    for (const use of facts.contains) {
-      const ex = exemptionOf(use, rules);
-      if (!ex || !use.form) continue;
-      const same = out.find((o) => o.ingredient === facts.ingredient.id && o.source === use.source && o.form === use.form);
-      if (same) pushPath(same.via, facts.node.path, facts.node.key);
-      else
-        out.push({
-          ingredient: facts.ingredient.id,
-          name: facts.ingredient.name,
-          source: use.source,
-          form: use.form,
-          basis: citation(ex.basis),
-          via: [facts.node.path],
-        });
-    }
-  }
-  return out;
-}
-
-export function unknownFor(all: LeafFacts[]): UnknownAllergens[] {
-  const out: UnknownAllergens[] = [];
-  const byIngredient = new Map<string, UnknownAllergens>();
-  for (const facts of all.filter((f) => !f.known)) {
-    const same = byIngredient.get(facts.ingredient.id);
-    if (same) pushPath(same.via, facts.node.path, facts.node.key);
-    else {
-      const entry = { ingredient: facts.ingredient.id, name: facts.ingredient.name, via: [facts.node.path] };
-      byIngredient.set(entry.ingredient, entry);
-      out.push(entry);
-    }
-  }
-  return out;
-}
-
 /** Who made a precautionary statement: the supplier's list, or the composition text. */
-export function precautionWho(facts: LeafFacts, use: SourceUse): string {
+export function precautionWho(facts: Pick<IngredientFacts, 'ingredient'>, use: Pick<SourceUse, 'origin'>): string {
   return use.origin === 'composition' ? `Composition of ${facts.ingredient.name}` : `Supplier of ${facts.ingredient.name}`;
 }
 
 export const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
-
-/**
- * Every precautionary statement with the source it names: each leaf's supplier list and
- * composition clause (exempt forms left out), then the kitchen's shared handling ('segregated'
- * gives none). Kept whatever the product contains; a source no group of the regime holds is left
- * out, as the declaration says nothing of it.
- */
-export function precautionsFor(all: LeafFacts[], site: Site, rules: RegimeRules): PrecautionStatement[] {
-  const out: PrecautionStatement[] = [];
-  const statements = new Map<string, PrecautionStatement>();
-  for (const facts of all) {
-    for (const use of facts.mayContain) {
-      if (exemptionOf(use, rules)) continue;
-      const allergens = groupsOf(use.source, rules).map((g) => g.code);
-      if (allergens.length === 0) continue;
-      const origin = use.origin === 'composition' ? 'composition' : 'supplier';
-      const statementKey = `${origin}|${facts.ingredient.id}|${use.source}`;
-      const same = statements.get(statementKey);
-      if (same) {
-        pushPath(same.via, facts.node.path, facts.node.key);
-        continue;
-      }
-      const statement: PrecautionStatement = {
-        source: use.source,
-        allergens,
-        origin,
-        ingredient: facts.ingredient.id,
-        ingredientName: facts.ingredient.name,
-        controls: null,
-        via: [facts.node.path],
-        message: `${precautionWho(facts, use)}: may contain ${SOURCE_LABELS[use.source]}`,
-      };
-      statements.set(statementKey, statement);
-      out.push(statement);
-    }
-  }
-  for (const handled of site.handles) {
-    switch (handled.controls) {
-      case 'segregated':
-        break;
-      case 'shared-equipment':
-      case 'shared-area': {
-        const allergens = groupsOf(handled.allergen, rules).map((g) => g.code);
-        if (allergens.length === 0) break;
-        out.push({
-          source: handled.allergen,
-          allergens,
-          origin: 'kitchen',
-          ingredient: null,
-          ingredientName: null,
-          controls: handled.controls,
-          via: [],
-          message: `${capitalise(SOURCE_LABELS[handled.allergen])}: ${CONTROL_LABELS[handled.controls]}`,
-        });
-        break;
-      }
-      default: {
-        const never: never = handled.controls;
-        throw new Error(`Unknown control ${String(never)}`);
-      }
-    }
-  }
-  return out;
-}
 
 /**
  * The may-contain line's groups, from the precautionary statements: a group the product contains
@@ -287,4 +160,219 @@ export function mayContainFor(
     }
   }
   return rules.groups.flatMap((g) => found.get(g.code) ?? []);
+}
+
+/** The words of a vague composition term, as the warning and the vague list say them. */
+export function vagueMessage(ingredient: BookIngredient, hit: VagueHit): string {
+  const what = hit.precautionary ? `says it may contain '${hit.matched}' and so ${hit.message}` : `${hit.message} ('${hit.matched}')`;
+  return `The composition of ${ingredient.name} ${what}. Ask the supplier which.`;
+}
+
+/**
+ * What one ingredient gives each allergen list under one regime, wherever it is used: worked out
+ * once per ingredient and regime, and added at each leaf with the leaf's path.
+ */
+export interface AllergenDigest {
+  /** The groups of each declared use, with sulphites left out ([0]) or declared ([1]). */
+  contains: [ContainsPart[], ContainsPart[]];
+  precautions: PrecautionPart[];
+  exempt: ExemptPart[];
+  vague: VaguePart[];
+}
+interface ContainsPart {
+  group: AllergenGroup;
+  source: AllergenSource;
+  species?: string;
+}
+interface PrecautionPart {
+  /** One statement per origin, ingredient and source. */
+  key: string;
+  source: AllergenSource;
+  allergens: string[];
+  origin: 'supplier' | 'composition';
+  message: string;
+}
+interface ExemptPart {
+  key: string;
+  source: AllergenSource;
+  form: ExemptForm;
+  basis: string;
+}
+interface VaguePart {
+  /** One mention per ingredient, word and clause. */
+  key: string;
+  term: string;
+  precautionary: boolean;
+  mayMean: AllergenSource[];
+  message: string;
+}
+
+export function allergenDigest(facts: IngredientFacts, rules: RegimeRules): AllergenDigest {
+  const id = facts.ingredient.id;
+  const containsParts = (sulphitesDeclared: boolean): ContainsPart[] =>
+    declaredUses(facts, rules, sulphitesDeclared).flatMap((use) =>
+      groupsOf(use.source, rules).map((group) => ({ group, source: use.source, ...(use.species ? { species: use.species } : {}) })),
+    );
+  const precautions: PrecautionPart[] = [];
+  for (const use of facts.mayContain) {
+    if (exemptionOf(use, rules)) continue;
+    const allergens = groupsOf(use.source, rules).map((g) => g.code);
+    if (allergens.length === 0) continue;
+    const origin = use.origin === 'composition' ? 'composition' : 'supplier';
+    precautions.push({
+      key: `${origin}|${id}|${use.source}`,
+      source: use.source,
+      allergens,
+      origin,
+      message: `${precautionWho(facts, use)}: may contain ${SOURCE_LABELS[use.source]}`,
+    });
+  }
+  const exempt: ExemptPart[] = [];
+  for (const use of facts.contains) {
+    const ex = exemptionOf(use, rules);
+    if (!ex || !use.form) continue;
+    exempt.push({ key: `${use.source}|${use.form}`, source: use.source, form: use.form, basis: citation(ex.basis) });
+  }
+  const vague = facts.scan.vague.map((hit) => {
+    const term = hit.matched.toLowerCase();
+    return {
+      key: `${term}|${String(hit.precautionary)}`,
+      term,
+      precautionary: hit.precautionary,
+      mayMean: hit.mayMean,
+      message: vagueMessage(facts.ingredient, hit),
+    };
+  });
+  return { contains: [containsParts(false), containsParts(true)], precautions, exempt, vague };
+}
+
+export interface AllergenLists {
+  contains: ContainedAllergen[];
+  precautions: PrecautionStatement[];
+  vague: VagueMention[];
+  unknown: UnknownAllergens[];
+  exempt: ExemptUse[];
+}
+
+/**
+ * Contains, precautionary statements, vague mentions, unknowns and exempt forms of a product's
+ * leaves in one pass, each entry where its first leaf puts it with every distinct path to it.
+ * Contains: the declared uses (exempt forms left out; sulphites only when the product declares
+ * them), a path through a contact line also in contactVia: still in the food, so declared
+ * (Regulation (EU) No 1169/2011 Art. 9(1)(c) and 21). Precautions: every precautionary
+ * statement with the source it names, each leaf's supplier list and composition clause (exempt
+ * forms left out), then the kitchen's shared handling ('segregated' gives none); kept whatever
+ * the product contains; a source no group of the regime holds is left out, as the declaration
+ * says nothing of it.
+ */
+export function allergenLists(
+  leaves: readonly Leaf[],
+  repeated: boolean,
+  digestOf: (facts: IngredientFacts) => AllergenDigest,
+  site: Site,
+  rules: RegimeRules,
+  sulphitesDeclared: boolean,
+): AllergenLists {
+  const found = new Map<string, { entry: ContainedAllergen; via: PathList; contactVia?: PathList }>();
+  const statements = new Map<string, PathList>();
+  const precautions: PrecautionStatement[] = [];
+  const vagueKept = new Map<string, PathList>();
+  const vague: VagueMention[] = [];
+  const unknownKept = new Map<string, PathList>();
+  const unknown: UnknownAllergens[] = [];
+  const exemptKept = new Map<string, PathList>();
+  const exempt: ExemptUse[] = [];
+  const add = <T extends { via: string[][] }>(kept: Map<string, PathList>, out: T[], key: string, path: string[], make: () => T) => {
+    const same = kept.get(key);
+    if (same) same.add(path);
+    else {
+      const item = make();
+      out.push(item);
+      kept.set(key, new PathList(item.via, repeated));
+    }
+  };
+  const side = sulphitesDeclared ? 1 : 0;
+  for (const leaf of leaves) {
+    const facts = leaf.facts;
+    const i = facts.ingredient;
+    const path = leaf.path;
+    const digest = digestOf(facts);
+    for (const part of digest.contains[side]) {
+      let at = found.get(part.group.code);
+      if (!at) {
+        const entry: ContainedAllergen = { allergen: part.group.code, label: part.group.label, sources: [], via: [] };
+        at = { entry, via: new PathList(entry.via, repeated) };
+        found.set(part.group.code, at);
+      }
+      const entry = at.entry;
+      pushUnique(entry.sources, part.source);
+      if (part.species) {
+        entry.species ??= [];
+        pushUnique(entry.species, part.species);
+      }
+      at.via.add(path);
+      if (leaf.contact) (at.contactVia ??= new PathList((entry.contactVia ??= []), repeated)).add(path);
+    }
+    for (const part of digest.precautions) {
+      add(statements, precautions, part.key, path, () => ({
+        source: part.source,
+        allergens: [...part.allergens],
+        origin: part.origin,
+        ingredient: i.id,
+        ingredientName: i.name,
+        controls: null,
+        via: [path],
+        message: part.message,
+      }));
+    }
+    for (const part of digest.vague) {
+      add(vagueKept, vague, `${i.id}|${part.key}`, path, () => ({
+        ingredient: i.id,
+        name: i.name,
+        term: part.term,
+        precautionary: part.precautionary,
+        mayMean: [...part.mayMean],
+        via: [path],
+        message: part.message,
+      }));
+    }
+    if (!facts.known) add(unknownKept, unknown, i.id, path, () => ({ ingredient: i.id, name: i.name, via: [path] }));
+    for (const part of digest.exempt) {
+      add(exemptKept, exempt, `${i.id}|${part.key}`, path, () => ({
+        ingredient: i.id,
+        name: i.name,
+        source: part.source,
+        form: part.form,
+        basis: part.basis,
+        via: [path],
+      }));
+    }
+  }
+  for (const handled of site.handles) {
+    switch (handled.controls) {
+      case 'segregated':
+        break;
+      case 'shared-equipment':
+      case 'shared-area': {
+        const allergens = groupsOf(handled.allergen, rules).map((g) => g.code);
+        if (allergens.length === 0) break;
+        precautions.push({
+          source: handled.allergen,
+          allergens,
+          origin: 'kitchen',
+          ingredient: null,
+          ingredientName: null,
+          controls: handled.controls,
+          via: [],
+          message: `${capitalise(SOURCE_LABELS[handled.allergen])}: ${CONTROL_LABELS[handled.controls]}`,
+        });
+        break;
+      }
+      default: {
+        const never: never = handled.controls;
+        throw new Error(`Unknown control ${String(never)}`);
+      }
+    }
+  }
+  return { contains: rules.groups.flatMap((g) => found.get(g.code)?.entry ?? []), precautions, vague, unknown, exempt };
 }

@@ -1,4 +1,4 @@
-import type { Book, UsedIn } from '@crumbproof/shared';
+import type { Book, BookRecipe, UsedIn } from '@crumbproof/shared';
 
 /** An ingredient or a recipe of the book, by its id. */
 export interface BookItemRef {
@@ -51,20 +51,38 @@ export function recipesAbove(book: Pick<Book, 'recipes'>, itemId: string): Set<s
   return recipesAboveAny(book, [itemId]);
 }
 
-/** The ids of every recipe that uses any of the items at any depth: one walk of the book however many items. */
-export function recipesAboveAny(book: Pick<Book, 'recipes'>, itemIds: Iterable<string>): Set<string> {
-  const usersOf = new Map<string, Set<string>>();
-  for (const r of book.recipes) {
-    for (const line of r.lines) {
-      const users = usersOf.get(line.use) ?? new Set<string>();
-      users.add(r.id);
-      usersOf.set(line.use, users);
-    }
+/** By item id, the ids of the recipes whose lines use it. */
+export type UsersIndex = Map<string, Set<string>>;
+
+/** Who uses each item, from every recipe's lines. */
+export function usersOf(book: Pick<Book, 'recipes'>): UsersIndex {
+  const users: UsersIndex = new Map();
+  for (const r of book.recipes) addUses(users, r);
+  return users;
+}
+
+/** Adds a recipe's lines to a users index (removeUses takes them out again). */
+export function addUses(users: UsersIndex, recipe: Pick<BookRecipe, 'id' | 'lines'>): void {
+  for (const line of recipe.lines) {
+    let of = users.get(line.use);
+    if (!of) users.set(line.use, (of = new Set()));
+    of.add(recipe.id);
   }
+}
+
+export function removeUses(users: UsersIndex, recipe: Pick<BookRecipe, 'id' | 'lines'>): void {
+  for (const line of recipe.lines) users.get(line.use)?.delete(recipe.id);
+}
+
+/**
+ * The ids of every recipe that uses any of the items at any depth: one walk of the book however
+ * many items (`users`, when given, is the book's index of who uses what).
+ */
+export function recipesAboveAny(book: Pick<Book, 'recipes'>, itemIds: Iterable<string>, users: UsersIndex = usersOf(book)): Set<string> {
   const above = new Set<string>();
   const todo = [...itemIds];
   while (todo.length > 0) {
-    for (const user of usersOf.get(todo.pop()!) ?? []) {
+    for (const user of users.get(todo.pop()!) ?? []) {
       if (above.has(user)) continue;
       above.add(user);
       todo.push(user);

@@ -1,13 +1,23 @@
-import type { DeclarationNotice, DeclaredIngredient } from '@crumbproof/shared';
+import type { BookIngredient, DeclarationNotice, DeclaredIngredient } from '@crumbproof/shared';
 import { compare, round } from './compare';
 import type { RegimeRules } from './reference-schema';
-import type { ProductTree, TreeNode } from './tree';
+import type { LineNode, LineTree } from './tree';
 
-/** Added water is recognised by the ingredient's isWater flag, or by an id or name of 'water'. */
-export function isWater(node: TreeNode): boolean {
+const WATER = new WeakMap<BookIngredient, boolean>();
+/** Added water is recognised by the ingredient's isWater flag, or by an id or name of 'water' (worked out once per ingredient). */
+export function isWater(node: Pick<LineNode, 'ingredient'>): boolean {
   const i = node.ingredient;
-  return !!i && (i.isWater === true || i.id.toLowerCase() === 'water' || i.name.trim().toLowerCase() === 'water');
+  if (!i) return false;
+  let water = WATER.get(i);
+  if (water === undefined) {
+    water = i.isWater === true || i.id.toLowerCase() === 'water' || i.name.trim().toLowerCase() === 'water';
+    WATER.set(i, water);
+  }
+  return water;
 }
+
+/** The children of an entry with none, one array for all (never changed). */
+const NO_ENTRIES = Object.freeze([]) as unknown as DeclaredIngredient[];
 
 interface Bake {
   ratio: number;
@@ -44,13 +54,14 @@ export interface IngredientList {
  *   lost), so that its water is not taken to have baked off.
  * Regimes without that derogation list added water by the weight used.
  */
-export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: (node: TreeNode) => string[]): IngredientList {
+/** `groupsAt` gives a node's groups; the list never changes the array it gives. */
+export function ingredientList(tree: LineTree, rules: RegimeRules, groupsAt: (node: LineNode) => string[]): IngredientList {
   const warnings: DeclarationNotice[] = [];
   const omitUpTo = rules.addedWater.omitUpToPercent;
-  const mixOf = (nodes: TreeNode[]) => nodes.reduce((s, n) => s + n.usedG, 0);
+  const mixOf = (nodes: LineNode[]) => nodes.reduce((s, n) => s + n.usedG, 0);
 
   /** `bake`: finished weight / mix of the nearest recipe at or above this level that has a finished weight, and its name. */
-  const level = (nodes: TreeNode[], finishedG: number, bake: Bake, parentPercent: number, of: string): DeclaredIngredient[] => {
+  const level = (nodes: LineNode[], finishedG: number, bake: Bake, parentPercent: number, of: string): DeclaredIngredient[] => {
     const othersG = nodes.filter((n) => !isWater(n)).reduce((s, n) => s + n.usedG, 0);
     const entries: DeclaredIngredient[] = [];
     for (const node of nodes) {
@@ -70,7 +81,7 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
         orderWeightG = inFinished;
         percent = (parentPercent * shareOfFinished) / 100;
       }
-      let children: DeclaredIngredient[] = [];
+      let children = NO_ENTRIES;
       if (node.kind === 'recipe' && node.recipe) {
         const mix = mixOf(node.children);
         const own = node.recipe.finishedWeightG;
@@ -99,7 +110,9 @@ export function ingredientList(tree: ProductTree, rules: RegimeRules, groupsAt: 
         contact.push(e);
         continue;
       }
-      for (const a of e.allergens) if (!same.allergens.includes(a)) same.allergens.push(a);
+      // A new array: an entry's groups may be the item's own, shared by every entry of it (groupsAt).
+      const more = e.allergens.filter((a) => !same.allergens.includes(a));
+      if (more.length > 0) same.allergens = [...same.allergens, ...more];
     }
     // Array.prototype.sort is stable: equal weights keep their line order.
     return [...used.sort((a, b) => b.orderWeightG - a.orderWeightG), ...contact];

@@ -1,9 +1,9 @@
 import type { DeclarationNotice, QuidEntry } from '@crumbproof/shared';
 import { compare, round } from './compare';
-import type { ProductTree, TreeNode } from './tree';
+import type { LineNode, LineTree } from './tree';
 
 /** Every node of the tree, depth first, each before its children. */
-function all(nodes: TreeNode[], out: TreeNode[] = []): TreeNode[] {
+function all(nodes: LineNode[], out: LineNode[] = []): LineNode[] {
   for (const n of nodes) {
     out.push(n);
     all(n.children, out);
@@ -26,7 +26,7 @@ const lowerFirst = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
  * threshold precision, compare.ts: exactly 100 % does not exceed it), every entry is given as
  * "prepared with X g of Y per 100 g" instead.
  */
-export function quidFor(tree: ProductTree, ids: string[]): { quid: QuidEntry[]; errors: DeclarationNotice[] } {
+export function quidFor(tree: LineTree, ids: string[]): { quid: QuidEntry[]; errors: DeclarationNotice[] } {
   const nodes = ids.length === 0 ? [] : all(tree.children).filter((n) => n.role !== 'contact');
   const errors: DeclarationNotice[] = [];
   const found = ids.flatMap((id) => {

@@ -71,32 +71,70 @@ export function renderName(name: string, marks: Mark[]): TextSegment[] {
   return merge(segments);
 }
 
+/**
+ * Adds a segment to merged segments: an empty one is dropped, one of the same emphasis as the last
+ * joins it. Segments in `out` may be shared (a name or a sub-recipe as rendered before), so a join
+ * makes a new segment and never changes one.
+ */
+function append(out: TextSegment[], s: TextSegment): void {
+  if (!s.text) return;
+  const last = out[out.length - 1];
+  if (last && last.emphasis === s.emphasis) out[out.length - 1] = { text: last.text + s.text, emphasis: last.emphasis };
+  else out.push(s);
+}
+
+/**
+ * How a list is rendered for one book under the same marks: each ingredient's name by id, and
+ * each sub-recipe as rendered, under its key. `keyOf` gives a sub-recipe entry's key when its
+ * rendering is the same wherever it is used (the order of everything below it does not depend
+ * on the product), else null. What is kept is never changed after.
+ */
+export interface RenderMemo {
+  names: Map<string, TextSegment[]>;
+  pieces: Map<string, TextSegment[]>;
+  keyOf: (entry: DeclaredIngredient) => string | null;
+}
+
 function renderEntries(
   entries: DeclaredIngredient[],
   marksOf: (ingredientId: string) => Mark[],
-  names: Map<string, TextSegment[]>,
-  out: TextSegment[] = [],
-): TextSegment[] {
+  memo: RenderMemo,
+  out: TextSegment[],
+): void {
   entries.forEach((e, i) => {
-    if (i > 0) out.push({ text: ', ', emphasis: false });
+    if (i > 0) append(out, COMMA);
     if (e.kind === 'recipe') {
-      out.push({ text: e.name, emphasis: false });
-      if (e.children.length > 0) {
-        out.push({ text: ' (', emphasis: false });
-        renderEntries(e.children, marksOf, names, out);
-        out.push({ text: ')', emphasis: false });
+      const key = memo.keyOf(e);
+      let piece = key === null ? undefined : memo.pieces.get(key);
+      if (!piece) {
+        piece = [];
+        append(piece, { text: e.name, emphasis: false });
+        if (e.children.length > 0) {
+          append(piece, OPEN);
+          renderEntries(e.children, marksOf, memo, piece);
+          append(piece, CLOSE);
+        }
+        if (key !== null)
+          memo.pieces.set(
+            key,
+            piece.map((x) => Object.freeze(x)),
+          );
       }
+      for (const x of piece) append(out, x);
       return;
     }
-    let name = names.get(e.id);
+    let name = memo.names.get(e.id);
     if (!name) {
-      name = renderName(e.name, marksOf(e.id));
-      names.set(e.id, name);
+      name = renderName(e.name, marksOf(e.id)).map((x) => Object.freeze(x));
+      memo.names.set(e.id, name);
     }
-    out.push(...name);
+    for (const x of name) append(out, x);
   });
-  return out;
 }
+
+const COMMA: TextSegment = Object.freeze({ text: ', ', emphasis: false });
+const OPEN: TextSegment = Object.freeze({ text: ' (', emphasis: false });
+const CLOSE: TextSegment = Object.freeze({ text: ')', emphasis: false });
 
 /** Names for a "Contains" statement: each source (species where recorded) once, or the group labels. */
 export function containsNames(contains: ContainedAllergen[], rules: RegimeRules): string[] {
@@ -132,29 +170,30 @@ export interface RenderedList {
  * The list in the regime's own form. EU/UK: allergens emphasised within the list and no
  * "Contains" statement (Commission Notice 2017/C 428/01 §3.5). US and Canada: the list,
  * then a "Contains:" statement right after it. ANZ: names in bold in the list and a bold
- * "Contains" summary. `names` keeps each ingredient's name as rendered, by id, for lists of
- * one book under the same marks (regime, sulphites declared or not); it is never changed after.
+ * "Contains" summary. `memo` keeps names and sub-recipes as rendered (RenderMemo) for lists of
+ * one book under the same marks (regime, sulphites declared or not).
  */
 export function renderList(
   entries: DeclaredIngredient[],
   contains: ContainedAllergen[],
   rules: RegimeRules,
   marksOf: (ingredientId: string) => Mark[],
-  rendered = new Map<string, TextSegment[]>(),
+  memo: RenderMemo = { names: new Map(), pieces: new Map(), keyOf: () => null },
 ): RenderedList {
-  const segments: TextSegment[] = [{ text: rules.statement.heading, emphasis: false }];
-  renderEntries(entries, marksOf, rendered, segments);
-  segments.push({ text: '.', emphasis: false });
+  const segments: TextSegment[] = [];
+  append(segments, { text: rules.statement.heading, emphasis: false });
+  renderEntries(entries, marksOf, memo, segments);
+  append(segments, { text: '.', emphasis: false });
   const style = rules.statement.contains;
   const names = containsNames(contains, rules);
   if (style && names.length > 0) {
-    segments.push({ text: ' ', emphasis: false }, { text: `${style.prefix}${names.join(', ')}.`, emphasis: style.bold });
+    append(segments, { text: ' ', emphasis: false });
+    append(segments, { text: `${style.prefix}${names.join(', ')}.`, emphasis: style.bold });
   }
-  const merged = merge(segments);
   return {
-    segments: merged,
-    text: merged.map((s) => s.text).join(''),
-    markdown: merged.map((s) => (s.emphasis ? `**${s.text}**` : s.text)).join(''),
+    segments,
+    text: segments.map((s) => s.text).join(''),
+    markdown: segments.map((s) => (s.emphasis ? `**${s.text}**` : s.text)).join(''),
   };
 }
 

@@ -1,5 +1,5 @@
 import type { DeclarationNotice, SulphiteGap, SulphiteResult, SulphiteStatus } from '@crumbproof/shared';
-import type { LeafFacts } from './allergens';
+import type { Leaf } from './allergens';
 import { atThresholdPrecision, compare } from './compare';
 import type { RegimeRules } from './reference-schema';
 
@@ -27,21 +27,22 @@ export interface SulphiteOutcome extends SulphiteResult {
  *   'sulphites-not-known' warning naming each such ingredient;
  * - below the threshold only when every leaf is known and the total compares below.
  */
-export function sulphitesFor(all: LeafFacts[], finishedG: number, rules: RegimeRules): SulphiteOutcome {
+export function sulphitesFor(all: readonly Leaf[], finishedG: number, rules: RegimeRules): SulphiteOutcome {
   const warnings: DeclarationNotice[] = [];
   const missing: SulphiteGap[] = [];
-  const addMissing = (facts: LeafFacts, reason: SulphiteGap['reason']): boolean => {
+  const addMissing = (facts: Leaf['facts'], reason: SulphiteGap['reason']): boolean => {
     if (missing.some((m) => m.ingredient === facts.ingredient.id)) return false;
     missing.push({ ingredient: facts.ingredient.id, name: facts.ingredient.name, reason });
     return true;
   };
 
   let mg = 0;
-  for (const facts of all) {
+  for (const leaf of all) {
+    const facts = leaf.facts;
     const stated = facts.ingredient.sulphiteMgPerKg;
     const name = facts.ingredient.name;
     if (facts.contains.some((u) => u.source === 'sulphites')) {
-      if (stated === undefined || facts.node.role === 'contact') {
+      if (stated === undefined || leaf.contact) {
         const reason = stated === undefined ? 'content-not-stated' : 'contact-line';
         if (addMissing(facts, reason)) {
           warnings.push({
@@ -55,7 +56,7 @@ export function sulphitesFor(all: LeafFacts[], finishedG: number, rules: RegimeR
         }
         continue;
       }
-      mg += (facts.node.massG / 1000) * stated;
+      mg += (leaf.massG / 1000) * stated;
     } else if (!facts.known && stated === undefined) {
       addMissing(facts, 'no-allergen-statement');
     }

@@ -19,21 +19,11 @@ import { defaultMeasures, toGrams, type WeighResult } from './quantities';
  * - `share`: fraction of the product's mix. Top-level lines: usedG / product mix. A sub-recipe's
  *   lines split their parent's share in proportion to the sub-recipe's own mix.
  */
-export interface TreeNode {
-  kind: 'ingredient' | 'recipe';
-  id: string;
-  name: string;
-  /** 'contact' when this line or any line above it is a contact line. */
-  role: LineRole;
-  usedG: number;
-  massG: number;
-  share: number;
+export interface TreeNode extends Omit<LineNode, 'children'> {
   /** Ids from the product down to this node. */
   path: string[];
   /** The path as one string, the same for the same ids: tells paths apart without comparing arrays. */
   key: string;
-  ingredient?: BookIngredient;
-  recipe?: BookRecipe;
   children: TreeNode[];
 }
 
@@ -66,6 +56,10 @@ export interface BookIndex {
   measures: MeasureSystem;
   weighed: Map<string, Weighed[]>;
   mixes: Map<string, number>;
+  /** By recipe id: whether two of its merged lines use the same id (once in the mix, once by contact). */
+  repeats: Map<string, boolean>;
+  /** By recipe id: whether its ingredient list depends on a bake loss from above it (declare.ts). */
+  bakeDependent: Map<string, boolean>;
 }
 
 export function indexBook(book: Book): BookIndex {
@@ -75,11 +69,13 @@ export function indexBook(book: Book): BookIndex {
     measures: measuresOf(book),
     weighed: new Map(),
     mixes: new Map(),
+    repeats: new Map(),
+    bakeDependent: new Map(),
   };
 }
 
 /** A recipe's lines in grams, lines of the same id and role merged (worked out once per index). */
-function weighedLinesOf(index: BookIndex, recipe: BookRecipe): Weighed[] {
+export function weighedLinesOf(index: BookIndex, recipe: BookRecipe): Weighed[] {
   const done = index.weighed.get(recipe.id);
   if (done) return done;
   const lines = mergeWeighed(
@@ -119,47 +115,16 @@ export function buildTree(book: Book, productId: string, index: BookIndex = inde
   if (!product) throw new Error(`There is no recipe '${productId}' in this book.`);
 
   const expand = (recipe: BookRecipe, path: string[], key: string, factor: number, share: number, contact: boolean): TreeNode[] => {
-    const lines = weighedLinesOf(index, recipe);
     const mix = mixOfRecipe(index, recipe);
-    return lines.map(({ line, ingredient, recipe: sub, grams }) => {
-      const role: LineRole = contact || line.role === 'contact' ? 'contact' : 'ingredient';
-      const usedG = role === 'contact' ? 0 : grams;
-      const massG = usedG * factor;
-      const nodeShare = mix > 0 ? (share * usedG) / mix : 0;
-      const nodePath = [...path, line.use];
-      const nodeKey = `${key}${PATH_SEPARATOR}${line.use}`;
-      if (ingredient) {
-        return {
-          kind: 'ingredient',
-          id: ingredient.id,
-          name: ingredient.name,
-          role,
-          usedG,
-          massG,
-          share: nodeShare,
-          path: nodePath,
-          key: nodeKey,
-          ingredient,
-          children: [],
-        };
-      }
-      if (!sub) throw new Error(`${recipe.name} uses '${line.use}', which is not in this book; check the book first.`);
-      if (path.includes(sub.id)) throw new Error(`${sub.name} contains itself; check the book first.`);
-      const batch = sub.finishedWeightG ?? mixOfRecipe(index, sub);
-      const childFactor = batch > 0 ? massG / batch : 0;
-      return {
-        kind: 'recipe',
-        id: sub.id,
-        name: sub.name,
-        role,
-        usedG,
-        massG,
-        share: nodeShare,
-        path: nodePath,
-        key: nodeKey,
-        recipe: sub,
-        children: expand(sub, nodePath, nodeKey, childFactor, nodeShare, role === 'contact'),
-      };
+    return weighedLinesOf(index, recipe).map((weighed) => {
+      const node = placeLine(index, recipe, weighed, mix, factor, share, contact, path);
+      const nodePath = [...path, node.id];
+      const nodeKey = `${key}${PATH_SEPARATOR}${node.id}`;
+      const children =
+        node.kind === 'recipe' && node.recipe
+          ? expand(node.recipe, nodePath, nodeKey, factorBelow(index, node.recipe, node.massG), node.share, node.role === 'contact')
+          : [];
+      return { ...node, path: nodePath, key: nodeKey, children };
     });
   };
 
@@ -172,7 +137,52 @@ export function buildTree(book: Book, productId: string, index: BookIndex = inde
   };
 }
 
-interface Weighed {
+const NO_CHILDREN: LineNode[] = [];
+
+/**
+ * One merged line of `recipe` as a node at its place (`path` the ids down to the recipe): weighed,
+ * scaled by `factor` and given its share of the product; a sub-recipe's children are the caller's.
+ */
+function placeLine(
+  index: BookIndex,
+  recipe: BookRecipe,
+  weighed: Weighed,
+  mix: number,
+  factor: number,
+  share: number,
+  contact: boolean,
+  path: string[],
+): LineNode {
+  const { line, ingredient, recipe: sub, grams } = weighed;
+  const role: LineRole = contact || line.role === 'contact' ? 'contact' : 'ingredient';
+  const usedG = role === 'contact' ? 0 : grams;
+  const massG = usedG * factor;
+  const nodeShare = mix > 0 ? (share * usedG) / mix : 0;
+  if (ingredient) {
+    return {
+      kind: 'ingredient',
+      id: ingredient.id,
+      name: ingredient.name,
+      role,
+      usedG,
+      massG,
+      share: nodeShare,
+      ingredient,
+      children: NO_CHILDREN,
+    };
+  }
+  if (!sub) throw new Error(`${recipe.name} uses '${line.use}', which is not in this book; check the book first.`);
+  if (path.includes(sub.id)) throw new Error(`${sub.name} contains itself; check the book first.`);
+  return { kind: 'recipe', id: sub.id, name: sub.name, role, usedG, massG, share: nodeShare, recipe: sub, children: NO_CHILDREN };
+}
+
+/** The factor a sub-recipe's lines are scaled by when `massG` of it reaches the product: massG / its batch. */
+function factorBelow(index: BookIndex, sub: BookRecipe, massG: number): number {
+  const batch = sub.finishedWeightG ?? mixOfRecipe(index, sub);
+  return batch > 0 ? massG / batch : 0;
+}
+
+export interface Weighed {
   line: BookRecipe['lines'][number];
   ingredient?: BookIngredient;
   recipe?: BookRecipe;
@@ -198,4 +208,111 @@ export function leavesOf(nodes: TreeNode[], out: TreeNode[] = []): TreeNode[] {
     else leavesOf(n.children, out);
   }
   return out;
+}
+
+/**
+ * A node of a product as its declaration reads it (see TreeNode for its weights), without a path:
+ * only the leaves need one (RolledLeaf).
+ */
+export interface LineNode {
+  kind: 'ingredient' | 'recipe';
+  id: string;
+  name: string;
+  /** 'contact' when this line or any line above it is a contact line. */
+  role: LineRole;
+  usedG: number;
+  massG: number;
+  share: number;
+  ingredient?: BookIngredient;
+  recipe?: BookRecipe;
+  children: LineNode[];
+}
+
+/** A product's lines as its declaration reads them (a ProductTree is one too). */
+export interface LineTree {
+  recipe: BookRecipe;
+  mixG: number;
+  finishedG: number;
+  children: LineNode[];
+}
+
+/** One leaf of a product: the ingredient it uses, its path from the product, and what reaches the product. */
+export interface RolledLeaf<F> {
+  /** What the ingredient brings wherever it is used. */
+  facts: F;
+  /**
+   * Ids from the product down to the leaf. Two leaves with the same ids (a sub-recipe used once in
+   * the mix and once by contact in one recipe) share one array, so a path is told apart by identity.
+   */
+  path: string[];
+  /** The leaf or a line above it is a contact line. */
+  contact: boolean;
+  massG: number;
+}
+
+export interface RolledProduct<F> {
+  tree: LineTree;
+  /** Every leaf, depth first in line order (as leavesOf gives them). */
+  leaves: RolledLeaf<F>[];
+  /** Whether two leaves share a path (see RolledLeaf.path): only then can a path be met twice. */
+  repeated: boolean;
+}
+
+function repeatsUse(index: BookIndex, recipe: BookRecipe): boolean {
+  let repeats = index.repeats.get(recipe.id);
+  if (repeats === undefined) {
+    const uses = weighedLinesOf(index, recipe).map((l) => l.line.use);
+    repeats = new Set(uses).size < uses.length;
+    index.repeats.set(recipe.id, repeats);
+  }
+  return repeats;
+}
+
+/**
+ * A product's lines and leaves in one walk, weighed as buildTree weighs them (the same figures,
+ * worked out in the same order). `factsOf` gives an ingredient's facts (kept by the caller, once
+ * per ingredient). The book must have passed checkBook.
+ */
+export function rollDown<F>(index: BookIndex, product: BookRecipe, factsOf: (ingredient: BookIngredient) => F): RolledProduct<F> {
+  const leaves: RolledLeaf<F>[] = [];
+  let repeated = false;
+  /** `reuse`: the leaves of an earlier walk of the same item from the same place, whose paths this walk takes in turn. */
+  const expand = (
+    recipe: BookRecipe,
+    path: string[],
+    factor: number,
+    share: number,
+    contact: boolean,
+    reuse: { at: number } | null,
+  ): LineNode[] => {
+    const lines = weighedLinesOf(index, recipe);
+    const mix = mixOfRecipe(index, recipe);
+    const firstAt = reuse === null && repeatsUse(index, recipe) ? new Map<string, number>() : null;
+    const nodes: LineNode[] = new Array<LineNode>(lines.length);
+    for (let n = 0; n < lines.length; n++) {
+      const node = placeLine(index, recipe, lines[n], mix, factor, share, contact, path);
+      nodes[n] = node;
+      let from = reuse;
+      if (firstAt) {
+        const first = firstAt.get(node.id);
+        if (first === undefined) firstAt.set(node.id, leaves.length);
+        else {
+          from = { at: first };
+          repeated = true;
+        }
+      }
+      const inContact = node.role === 'contact';
+      if (node.ingredient) {
+        const leafPath = from ? leaves[from.at++].path : [...path, node.id];
+        leaves.push({ facts: factsOf(node.ingredient), path: leafPath, contact: inContact, massG: node.massG });
+      } else if (node.recipe) {
+        const factorOf = factorBelow(index, node.recipe, node.massG);
+        node.children = expand(node.recipe, [...path, node.id], factorOf, node.share, inContact, from);
+      }
+    }
+    return nodes;
+  };
+  const mixG = mixOfRecipe(index, product);
+  const children = expand(product, [product.id], 1, 1, false, null);
+  return { tree: { recipe: product, mixG, finishedG: product.finishedWeightG ?? mixG, children }, leaves, repeated };
 }
