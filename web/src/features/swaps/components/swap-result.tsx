@@ -1,5 +1,5 @@
 import { Box, Heading, Link, Stack, Text } from '@chakra-ui/react';
-import { REGIME_LABELS, type StandIn, type SwapPreview, type SwapProduct } from '@crumbproof/shared';
+import { declaredChange, declaredChangeInWords, REGIME_LABELS, type StandIn, type SwapPreview, type SwapProduct } from '@crumbproof/shared';
 import { useId, type ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { DeclarationDiffView } from '@/components/ui/declaration-diff-view';
@@ -15,6 +15,54 @@ interface SwapResultProps {
 
 function plural(n: number, one: string, many: string) {
   return `${n} ${n === 1 ? one : many}`;
+}
+
+/** The product's place on the page, for the summary's links. */
+const anchorOf = (product: SwapProduct) => `swap-${product.kitchen.id}-${product.product}`;
+
+/**
+ * What the swap changes in a product's declaration, in a line or two: the allergens, the claims,
+ * the percentages and what is not known; the new ingredient list is given in full below.
+ */
+function changeInWords(product: SwapProduct): string {
+  const change = declaredChange(product.before, product.after);
+  const words = declaredChangeInWords({ ...change, ingredientsText: null });
+  if (words.length > 0) return words.join(' ');
+  return change.ingredientsText ? 'Allergens and claims stay as they are; the ingredient list changes.' : 'Its declaration stays as it is.';
+}
+
+/** Every product reached, a line each, before the details: what a chef reads first for an ingredient used widely. */
+function SwapSummary({ preview }: { preview: SwapPreview }) {
+  const several = preview.kitchens.length > 1;
+  const groups = several
+    ? preview.kitchens.map((kitchen) => ({ kitchen, products: preview.products.filter((p) => p.kitchen.id === kitchen.id) }))
+    : [{ kitchen: null, products: preview.products }];
+  return (
+    <Box as="nav" aria-label="At a glance" bg="bg.subtle" rounded="md" p="3" minW="0">
+      <Heading as="h3" size="md" mb="2">
+        At a glance
+      </Heading>
+      <Stack gap="3">
+        {groups
+          .filter((group) => group.products.length > 0)
+          .map((group) => (
+            <Stack key={group.kitchen?.id ?? 'one'} gap="1">
+              {group.kitchen ? <Text fontWeight="bold">{group.kitchen.name}</Text> : null}
+              <Box as="ul" m="0" ps="5">
+                {group.products.map((product) => (
+                  <Box as="li" key={anchorOf(product)} mb="1">
+                    <Link href={`#${anchorOf(product)}`} color="accent.fg" fontWeight="bold">
+                      {product.name}
+                    </Link>
+                    {`: ${changeInWords(product)}`}
+                  </Box>
+                ))}
+              </Box>
+            </Stack>
+          ))}
+      </Stack>
+    </Box>
+  );
 }
 
 const sameLine = (a: StandIn, b: StandIn) => a.recipe === b.recipe && a.line === b.line;
@@ -47,6 +95,8 @@ function ProductList({ products, lookup, to, level }: ProductListProps) {
         <Box
           as="li"
           key={`${product.kitchen.id} ${product.product}`}
+          id={anchorOf(product)}
+          scrollMarginTop="24"
           borderTopWidth="1px"
           borderColor="border.subtle"
           pt="4"
@@ -131,6 +181,7 @@ export function SwapResult({ preview, lookup, children }: SwapResultProps) {
         <Text color="fg.muted">The recipes are shared by every kitchen: applying the swap changes them for all of them at once.</Text>
       ) : null}
       {products.length === 0 ? <Text color="fg.muted">No product for sale uses these recipes, so no label changes.</Text> : null}
+      {products.length > 1 ? <SwapSummary preview={preview} /> : null}
       {several ? (
         kitchens.map((kitchen) => (
           <KitchenGroup

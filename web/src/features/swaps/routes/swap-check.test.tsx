@@ -81,6 +81,14 @@ describe('Swap check', () => {
       'Corner Shop',
       'Market Stall',
     ]);
+    // Before the details, a line for each product at each kitchen reached, linking to its details.
+    const glance = within(result).getByRole('navigation', { name: 'At a glance' });
+    expect(glance).toHaveTextContent(/^At a glanceTest benchShortbread: .+Corner ShopShortbread: .+$/);
+    expect(glance).not.toHaveTextContent('Market Stall');
+    for (const link of within(glance).getAllByRole('link', { name: 'Shortbread' })) {
+      const target = document.getElementById(link.getAttribute('href')!.slice(1));
+      expect(target).toContainElement(screen.getAllByRole('heading', { level: 4, name: 'Shortbread' }).find((h) => target!.contains(h))!);
+    }
     const bench = within(result).getByRole('region', { name: 'Test bench' });
     expect(bench).toHaveTextContent('United Kingdom rules · 1 product affected');
     expect(within(bench).getByRole('heading', { level: 4, name: 'Shortbread' })).toBeInTheDocument();
