@@ -75,21 +75,6 @@ const LIST = [
   [literal('(`before` IS NOT NULL OR `after` IS NOT NULL)'), 'hasChange'],
 ] as const;
 
-/**
- * Of an event at no kitchen in particular (a sign-in, a sign-out, a refused sign-in), whether it
- * belongs on kitchen `siteId`'s trail: when the person it is about (who did it, or the account or
- * address it names) works there, or works at no kitchen (an unknown address, the command line).
- * So one kitchen's managers do not read when the people of another sign in.
- */
-function personWorksAt(siteId: number): WhereOptions {
-  const id = Number(siteId);
-  if (!Number.isSafeInteger(id)) throw new Error(`A kitchen's id is a whole number: ${String(siteId)}.`);
-  const person = `COALESCE(actor_id, IF(record_kind = 'user', record_id, NULL), (SELECT u.id FROM users u WHERE record_kind = 'email' AND u.email = record_id))`;
-  return literal(
-    `(NOT EXISTS (SELECT 1 FROM kitchen_roles kr WHERE kr.user_id = ${person}) OR EXISTS (SELECT 1 FROM kitchen_roles kr WHERE kr.user_id = ${person} AND kr.site_id = ${id}))`,
-  );
-}
-
 /** The only place that reads and adds rows of audit_events; it never updates or deletes one (nor could it: see migration 0009). */
 @Injectable()
 export class AuditRepository {
@@ -99,13 +84,26 @@ export class AuditRepository {
     await this.events.create({ ...event }, { transaction: t });
   }
 
+  /**
+   * Of an event at no kitchen in particular (a sign-in, a sign-out, a refused sign-in), whether it
+   * belongs on kitchen `siteId`'s trail: when the person it is about (who did it, or the account or
+   * address it names) works there, or works at no kitchen (an unknown address, the command line).
+   * So one kitchen's managers do not read when the people of another sign in.
+   */
+  private personWorksAt(siteId: number): WhereOptions {
+    const person = `COALESCE(actor_id, IF(record_kind = 'user', record_id, NULL), (SELECT u.id FROM users u WHERE record_kind = 'email' AND u.email = record_id))`;
+    // Over the person's roles: none at all gives NULL (shown), any at this kitchen 1 (shown).
+    const here = `(SELECT MAX(kr.site_id = ${this.events.sequelize!.escape(siteId)}) FROM kitchen_roles kr WHERE kr.user_id = ${person})`;
+    return literal(`COALESCE(${here}, 1) = 1`);
+  }
+
   private where(q: AuditSearch): WhereOptions {
     return {
       ...(q.siteId !== null
         ? {
             [Op.or]: [
               { siteId: q.siteId },
-              { [Op.and]: [{ siteId: null }, personWorksAt(q.siteId)] },
+              { [Op.and]: [{ siteId: null }, this.personWorksAt(q.siteId)] },
               { action: { [Op.in]: [...SHARED_BOOK_ACTIONS] } },
             ],
           }

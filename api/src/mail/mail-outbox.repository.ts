@@ -92,38 +92,38 @@ export class MailOutboxRepository {
 
   /** The newest mails first of the kitchen's outbox (see `ofKitchen`). */
   async page(siteId: number | null, limit: number, offset: number): Promise<{ mails: OutboxMail[]; total: number }> {
-    const { rows, count } = await this.mails.findAndCountAll({ where: ofKitchen(siteId), order: [['id', 'DESC']], limit, offset });
+    const { rows, count } = await this.mails.findAndCountAll({ where: this.ofKitchen(siteId), order: [['id', 'DESC']], limit, offset });
     return { mails: rows.map(toOutboxMail), total: count };
   }
 
   /** A mail of the kitchen's outbox, locked for the transaction; null when there is none (or it is another kitchen's). */
   async findForUpdate(id: string, siteId: number | null, transaction: Transaction): Promise<OutboxMail | null> {
-    const row = await this.mails.findOne({ where: { [Op.and]: [{ id }, ofKitchen(siteId)] }, transaction, lock: transaction.LOCK.UPDATE });
+    const row = await this.mails.findOne({
+      where: { [Op.and]: [{ id }, this.ofKitchen(siteId)] },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
     return row ? toOutboxMail(row) : null;
+  }
+
+  /**
+   * A kitchen's outbox: the mails about it, and those about no kitchen in particular (a password
+   * reset) that are to someone with a role there, or to nobody with a role anywhere (a person since
+   * taken off every kitchen), so that no kitchen's managers read another kitchen's mail. Before any
+   * kitchen is set up (null), every mail.
+   */
+  private ofKitchen(siteId: number | null): WhereOptions {
+    // No kitchen set up yet: no mail can be about one.
+    if (siteId === null) return {};
+    // Over the recipients' roles: none at all gives NULL (shown), any at this kitchen 1 (shown).
+    const here = `(SELECT MAX(kr.site_id = ${this.mails.sequelize!.escape(siteId)}) FROM kitchen_roles kr JOIN users u ON u.id = kr.user_id WHERE JSON_CONTAINS(recipients, JSON_QUOTE(u.email)))`;
+    return { [Op.or]: [{ siteId }, { [Op.and]: [{ siteId: null }, literal(`COALESCE(${here}, 1) = 1`)] }] };
   }
 
   /** A failed mail is queued again with its attempts from nought (its last error is kept until the next attempt). */
   async requeue(id: string, now: Date, transaction: Transaction) {
     await this.mails.update({ state: 'queued', attempts: 0, nextAttemptAt: now }, { where: { id, state: 'failed' }, transaction });
   }
-}
-
-/**
- * A kitchen's outbox: the mails about it, and those about no kitchen in particular (a password
- * reset) that are to someone with a role there, or to nobody with a role anywhere (a person since
- * taken off every kitchen), so that no kitchen's managers read another kitchen's mail. Before any
- * kitchen is set up (null), every mail.
- */
-function ofKitchen(siteId: number | null): WhereOptions {
-  // No kitchen set up yet: no mail can be about one.
-  if (siteId === null) return {};
-  const id = Number(siteId);
-  if (!Number.isSafeInteger(id)) throw new Error(`A kitchen's id is a whole number: ${String(siteId)}.`);
-  const worksAt = (where: string) =>
-    `EXISTS (SELECT 1 FROM kitchen_roles kr JOIN users u ON u.id = kr.user_id WHERE ${where} JSON_CONTAINS(recipients, JSON_QUOTE(u.email)))`;
-  return {
-    [Op.or]: [{ siteId: id }, { [Op.and]: [{ siteId: null }, literal(`(${worksAt(`kr.site_id = ${id} AND`)} OR NOT ${worksAt('')})`)] }],
-  };
 }
 
 function toOutboxMail(row: MailOutboxModel): OutboxMail {
