@@ -8,20 +8,42 @@ import type { AllergenSource, Claim, ClaimStatus, Control, ExemptForm, LineRole,
 /** Ids from the product down to the ingredient that brings something, e.g. ['cake', 'sponge', 'eggs']. */
 export type IdPath = string[];
 
-export interface ContainedAllergen {
+/**
+ * How many distinct paths a `via` list gives before it is shortened. A sub-recipe shared many
+ * times over (a buttercream in every layer of every cake) reaches a product by hundreds of paths;
+ * the list keeps its first paths, in the order of the product's lines, and beyond this many only
+ * the first path through each place not yet named: each line of the product's own recipe, in the
+ * mix and by contact apart. What it leaves out is counted (`viaMore`), never dropped silently.
+ */
+export const VIA_LISTED_AT_MOST = 8;
+
+/**
+ * Paths to a leaf, as a `via` list gives them: each distinct path once, shortened as
+ * VIA_LISTED_AT_MOST says, with the count of paths left out.
+ */
+export interface Provenance {
+  via: IdPath[];
+  /** Distinct paths not listed in `via` (absent when none was left out). */
+  viaMore?: number;
+}
+
+export interface ContainedAllergen extends Provenance {
   /** The regime's group code, e.g. 'gluten' (EU) or 'tree-nuts' (US). */
   allergen: string;
   label: string;
   sources: AllergenSource[];
   /** Species recorded for fish, crustaceans and molluscs (named in the US statement). */
   species?: string[];
-  /** Every path from the product to a leaf that brings this group. */
+  /** The distinct paths from the product to a leaf that brings this group (see Provenance). */
   via: IdPath[];
   /**
-   * The paths of `via` that pass through a contact line (a floured tin, a greased griddle): the
-   * allergen is still in the food and declared here, never as a may-contain. Absent when none does.
+   * The paths to this group that pass through a contact line (a floured tin, a greased griddle),
+   * shortened as `via` is: the allergen is still in the food and declared here, never as a
+   * may-contain. Absent when none does.
    */
   contactVia?: IdPath[];
+  /** Contact paths not listed in `contactVia` (absent when none was left out). */
+  contactViaMore?: number;
 }
 
 export interface MayContainAllergen {
@@ -38,7 +60,7 @@ export interface MayContainAllergen {
  * those out), so that a customer avoiding one source of a group (walnut, in a pecan tart) is told
  * of a may-contain of that source.
  */
-export interface PrecautionStatement {
+export interface PrecautionStatement extends Provenance {
   source: AllergenSource;
   /** The regime's groups the source counts under. */
   allergens: string[];
@@ -49,7 +71,7 @@ export interface PrecautionStatement {
   ingredientName: string | null;
   /** The kitchen's handling ('shared-equipment', 'shared-area'); null for an ingredient's statement. */
   controls: Exclude<Control, 'segregated'> | null;
-  /** Every path from the product to the ingredient (empty for the kitchen's handling). */
+  /** The distinct paths from the product to the ingredient (empty for the kitchen's handling; see Provenance). */
   via: IdPath[];
   /** The statement as a may-contain reason says it, e.g. "Supplier of Dark chocolate: may contain hazelnut". */
   message: string;
@@ -59,7 +81,7 @@ export interface PrecautionStatement {
  * A composition text that names an allergen without saying which (nuts, shellfish, gluten), in
  * the composition itself (the allergen is not known) or in a "may contain" clause.
  */
-export interface VagueMention {
+export interface VagueMention extends Provenance {
   ingredient: string;
   name: string;
   /** The word as written in the composition, e.g. 'nuts'. */
@@ -68,33 +90,38 @@ export interface VagueMention {
   precautionary: boolean;
   /** The sources the word may stand for (reference-data/lexicon.json). */
   mayMean: AllergenSource[];
-  via: IdPath[];
   /** The composition-vague warning's message. */
   message: string;
 }
 
 /** A leaf with no allergen statement: nothing about it can be proved. */
-export interface UnknownAllergens {
+export interface UnknownAllergens extends Provenance {
   ingredient: string;
   name: string;
-  via: IdPath[];
 }
 
 /** A source present in a form that this regime exempts from declaration. */
-export interface ExemptUse {
+export interface ExemptUse extends Provenance {
   ingredient: string;
   name: string;
   source: AllergenSource;
   form: ExemptForm;
   basis: string;
-  via: IdPath[];
 }
 
+/**
+ * One reason a claim does not hold, given by a leaf at one place of the product (a line of its own
+ * recipe, as VIA_LISTED_AT_MOST counts places): the first path by which it reaches it, and how many
+ * other distinct paths through the same place give the same reason.
+ */
 export interface ClaimReason {
-  /** The leaf ingredient id; null when the reason is the kitchen itself (shared handling). */
+  /** The leaf ingredient id; null when the reason is the kitchen itself (shared handling) or the product's figure. */
   leaf: string | null;
+  /** The first path from the product to the leaf through this place (empty when `leaf` is null). */
   path: IdPath;
   message: string;
+  /** Other distinct paths by which the same leaf gives the same reason through the same place (absent when none). */
+  morePaths?: number;
 }
 
 export interface ClaimResult {

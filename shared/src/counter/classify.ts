@@ -30,8 +30,10 @@ export interface CounterContains {
   label: string;
   /** The sources of the group that are theirs (for one avoided tree nut: that nut). */
   sources: AllergenSource[];
-  /** Every path from the product to a leaf that brings it. */
+  /** The distinct paths from the product to a leaf that brings it, as the declaration lists them (Provenance). */
   via: IdPath[];
+  /** Distinct paths not listed in `via` (absent when none was left out). */
+  viaMore?: number;
   /** The paths among them that pass through a contact line (a floured tin): contained all the same. */
   viaContact: IdPath[];
 }
@@ -204,6 +206,7 @@ export function customerVerdict(declaration: ProductDeclaration, ask: CustomerAs
         label: entry.label,
         sources,
         via: entry.via,
+        ...(entry.viaMore ? { viaMore: entry.viaMore } : {}),
         viaContact: entry.via.filter((p) => throughContact(declaration, p)),
       });
     }

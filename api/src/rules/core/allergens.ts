@@ -9,15 +9,17 @@ import {
   type ExemptUse,
   type MayContainAllergen,
   type PrecautionStatement,
+  type Provenance,
   type Site,
   type SourceEntry,
   type UnknownAllergens,
   type VagueHit,
   type VagueMention,
+  VIA_LISTED_AT_MOST,
 } from '@crumbproof/shared';
 import { scanCompositionShared } from './composition-scan';
 import type { AllergenGroup, Exemption, Lexicon, RegimeRules } from './reference-schema';
-import type { RolledLeaf } from './tree';
+import { PATH_SEPARATOR, type RolledLeaf } from './tree';
 
 export interface SourceUse {
   source: AllergenSource;
@@ -99,29 +101,39 @@ const pushUnique = <T>(list: T[], item: T) => {
 };
 
 /**
- * A via list that takes each distinct path once. Paths are told apart by identity: rollDown gives
- * two leaves with the same ids one array, and only when the product has such leaves (`repeated`)
- * can a path come again after another; one leaf adding itself twice (two sources of one group)
- * is the path just added.
+ * A via list that takes each distinct path once, shortened as VIA_LISTED_AT_MOST says: its first
+ * paths in leaf order, then only the first path through each place not yet listed (a line of the
+ * product's own recipe, in the mix and by contact apart), the others counted into `more` of the
+ * entry it fills. Paths are told apart by identity: rollDown gives two leaves with the same ids one
+ * array, and only when the product has such leaves (`repeated`) can a path come again after
+ * another; one leaf adding itself twice (two sources of one group) is the path just added.
  */
 export class PathList {
   private last: string[] | undefined;
   private readonly seen: Set<string[]> | undefined;
+  /** The places listed, each line's id; by contact with a mark after it. */
+  private readonly places = new Set<string>();
+  private more = 0;
+  /** `list` starts empty; `leftOut` is told the count of paths left out each time it grows. */
   constructor(
     readonly list: string[][],
     repeated: boolean,
+    private readonly leftOut: (count: number) => void,
   ) {
-    this.last = list[list.length - 1];
-    this.seen = repeated ? new Set(list) : undefined;
+    this.seen = repeated ? new Set() : undefined;
   }
-  add(path: string[]): void {
+  add(path: string[], contact: boolean): void {
     if (path === this.last) return;
     if (this.seen) {
       if (this.seen.has(path)) return;
       this.seen.add(path);
     }
     this.last = path;
-    this.list.push(path);
+    const place = contact ? `${path[1] ?? ''}${PATH_SEPARATOR}` : (path[1] ?? '');
+    if (this.list.length < VIA_LISTED_AT_MOST || !this.places.has(place)) {
+      this.list.push(path);
+      this.places.add(place);
+    } else this.leftOut(++this.more);
   }
 }
 
@@ -256,7 +268,7 @@ export interface AllergenLists {
 
 /**
  * Contains, precautionary statements, vague mentions, unknowns and exempt forms of a product's
- * leaves in one pass, each entry where its first leaf puts it with every distinct path to it.
+ * leaves in one pass, each entry where its first leaf puts it with its distinct paths (PathList).
  * Contains: the declared uses (exempt forms left out; sulphites only when the product declares
  * them), a path through a contact line also in contactVia: still in the food, so declared
  * (Regulation (EU) No 1169/2011 Art. 9(1)(c) and 21). Precautions: every precautionary
@@ -282,14 +294,15 @@ export function allergenLists(
   const unknown: UnknownAllergens[] = [];
   const exemptKept = new Map<string, PathList>();
   const exempt: ExemptUse[] = [];
-  const add = <T extends { via: string[][] }>(kept: Map<string, PathList>, out: T[], key: string, path: string[], make: () => T) => {
-    const same = kept.get(key);
-    if (same) same.add(path);
-    else {
+  const add = <T extends Provenance>(kept: Map<string, PathList>, out: T[], key: string, leaf: Leaf, make: () => T) => {
+    let list = kept.get(key);
+    if (!list) {
       const item = make();
       out.push(item);
-      kept.set(key, new PathList(item.via, repeated));
+      list = new PathList(item.via, repeated, (n) => (item.viaMore = n));
+      kept.set(key, list);
     }
+    list.add(leaf.path, leaf.contact);
   };
   const side = sulphitesDeclared ? 1 : 0;
   for (const leaf of leaves) {
@@ -301,7 +314,7 @@ export function allergenLists(
       let at = found.get(part.group.code);
       if (!at) {
         const entry: ContainedAllergen = { allergen: part.group.code, label: part.group.label, sources: [], via: [] };
-        at = { entry, via: new PathList(entry.via, repeated) };
+        at = { entry, via: new PathList(entry.via, repeated, (n) => (entry.viaMore = n)) };
         found.set(part.group.code, at);
       }
       const entry = at.entry;
@@ -310,41 +323,42 @@ export function allergenLists(
         entry.species ??= [];
         pushUnique(entry.species, part.species);
       }
-      at.via.add(path);
-      if (leaf.contact) (at.contactVia ??= new PathList((entry.contactVia ??= []), repeated)).add(path);
+      at.via.add(path, leaf.contact);
+      if (leaf.contact)
+        (at.contactVia ??= new PathList((entry.contactVia = []), repeated, (n) => (entry.contactViaMore = n))).add(path, true);
     }
     for (const part of digest.precautions) {
-      add(statements, precautions, part.key, path, () => ({
+      add(statements, precautions, part.key, leaf, () => ({
         source: part.source,
         allergens: [...part.allergens],
         origin: part.origin,
         ingredient: i.id,
         ingredientName: i.name,
         controls: null,
-        via: [path],
+        via: [],
         message: part.message,
       }));
     }
     for (const part of digest.vague) {
-      add(vagueKept, vague, `${i.id}|${part.key}`, path, () => ({
+      add(vagueKept, vague, `${i.id}|${part.key}`, leaf, () => ({
         ingredient: i.id,
         name: i.name,
         term: part.term,
         precautionary: part.precautionary,
         mayMean: [...part.mayMean],
-        via: [path],
+        via: [],
         message: part.message,
       }));
     }
-    if (!facts.known) add(unknownKept, unknown, i.id, path, () => ({ ingredient: i.id, name: i.name, via: [path] }));
+    if (!facts.known) add(unknownKept, unknown, i.id, leaf, () => ({ ingredient: i.id, name: i.name, via: [] }));
     for (const part of digest.exempt) {
-      add(exemptKept, exempt, `${i.id}|${part.key}`, path, () => ({
+      add(exemptKept, exempt, `${i.id}|${part.key}`, leaf, () => ({
         ingredient: i.id,
         name: i.name,
         source: part.source,
         form: part.form,
         basis: part.basis,
-        via: [path],
+        via: [],
       }));
     }
   }

@@ -139,6 +139,12 @@ interface LeafClaims {
   byClaim: LeafReason[][];
 }
 
+/** The reasons an ingredient gave at one place of a product, and (when the product repeats a path) the paths met there. */
+interface ReasonsAtPlace {
+  reasons: ClaimReason[];
+  seen: Set<string[]> | undefined;
+}
+
 interface IngredientClaims {
   inMix: LeafClaims;
   byContact: LeafClaims;
@@ -248,8 +254,9 @@ function leafClaims(f: IngredientFacts, said: IngredientSaid, rules: RegimeRules
 
 /**
  * The eight claims of a product from its leaves (tree.ts rollDown), each `fails` > `unverified` >
- * `ok` with its reasons, fails first, in the order the leaves give them, the same message by the
- * same path once. Vegan and vegetarian are about ingredients: recorded status, animal sources and
+ * `ok` with its reasons, fails first, in the order the leaves give them: a leaf's reason once at
+ * each place of the product (a line of its own recipe), its other paths through the place counted
+ * (`morePaths`), and the same message by the same path once. Vegan and vegetarian are about ingredients: recorded status, animal sources and
  * animal-derived terms. A free-from claim fails on any contains or may-contain of its sources and
  * the kitchen's shared handling of them, and is unverified when a leaf has no allergen statement.
  * Gluten-free (glutenSaid) also weighs the leaves' glutenMgPerKg on the finished weight, compared
@@ -272,6 +279,7 @@ export function claimsFor(
   const buckets: ClaimReason[][][][] = CLAIMS.map(() => [0, 1].map(() => Array.from({ length: SLOTS }, () => [])));
   let mg = 0;
   let measured = false;
+  const byPlace = new Map<LeafClaims, Map<string, ReasonsAtPlace>>();
   for (const leaf of leaves) {
     const f = leaf.facts;
     const id = f.ingredient.id;
@@ -288,8 +296,23 @@ export function claimsFor(
     }
     const at = leaf.contact ? own.byContact : own.inMix;
     if (at.messages.length === 0) continue;
+    // The ingredient's reasons are given once at each place of the product (a line of its own
+    // recipe, as PathList counts places): a later path through the same place counts into them.
+    let places = byPlace.get(at);
+    if (!places) byPlace.set(at, (places = new Map<string, ReasonsAtPlace>()));
+    const place = leaf.path[1] ?? '';
+    const same = places.get(place);
+    if (same) {
+      if (same.seen) {
+        if (same.seen.has(leaf.path)) continue;
+        same.seen.add(leaf.path);
+      }
+      for (const r of same.reasons) r.morePaths = (r.morePaths ?? 0) + 1;
+      continue;
+    }
     // One reason object per message at this leaf, shared by the claims that give it.
-    const reasons: Array<ClaimReason | undefined> = new Array<ClaimReason | undefined>(at.messages.length);
+    const reasons: ClaimReason[] = new Array<ClaimReason>(at.messages.length);
+    places.set(place, { reasons, seen: repeated ? new Set([leaf.path]) : undefined });
     for (let c = 0; c < CLAIMS.length; c++) {
       const list = at.byClaim[c];
       for (let n = 0; n < list.length; n++) {

@@ -9,7 +9,7 @@ import { nutritionLimitWarnings } from './sanity';
  * Changes whenever the engine's output changes shape or meaning, so that declarations kept in
  * the database are computed again rather than served stale.
  */
-export const ENGINE_VERSION = 9;
+export const ENGINE_VERSION = 10;
 
 /** A product's full declaration: allergens, claims and list (declare) with its nutrition. */
 export function declareProduct(book: Book, productId: string, refs: ReferenceData, opts: { regime?: Regime } = {}): ProductDeclaration {

@@ -41,6 +41,12 @@ interface ClaimReasonListProps {
   lookup: ItemLookup;
 }
 
+/** "1 other path", "11 other paths". */
+const otherPaths = (n: number) => `${n} other path${n === 1 ? '' : 's'}`;
+
+/** The place a reason's paths go through: the line of the product's own recipe (its second id). */
+const placeName = (path: readonly string[], lookup: ItemLookup) => lookup(path[1] ?? '')?.name ?? path[1] ?? '';
+
 /** Reasons shown before "Show N more reasons". */
 const FIRST_REASONS = 3;
 
@@ -63,7 +69,7 @@ export function ClaimReasonList({ reasons, lookup }: ClaimReasonListProps) {
               </Text>
               <InlinePath path={reason.path} lookup={lookup} />
               <Text as="span" color="fg.muted" textStyle="sm">
-                )
+                {reason.morePaths ? `, and by ${otherPaths(reason.morePaths)} through ${placeName(reason.path, lookup)}` : ''})
               </Text>
             </>
           ) : null}

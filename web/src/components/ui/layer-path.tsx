@@ -33,6 +33,15 @@ export function layerSteps(path: readonly string[], lookup: ItemLookup): LayerSt
   });
 }
 
+/**
+ * What a shortened path list left out (Provenance.viaMore): the paths not drawn, all through
+ * parts of the product a drawn path already names. Null when nothing was left out.
+ */
+export function morePathsText(more: number | undefined, productName: string): string | null {
+  if (!more) return null;
+  return `And ${more} more path${more === 1 ? '' : 's'} through the same parts of ${productName}, not drawn.`;
+}
+
 /** "Victoria sponge → Vanilla sponge → Butter". */
 export function pathText(path: readonly string[], lookup: ItemLookup): string {
   return path.map((id) => lookup(id)?.name ?? id).join(' → ');

@@ -13,7 +13,7 @@ import { motion, useReducedMotion } from 'framer-motion';
 import { useMemo, useState } from 'react';
 import { ClaimBasisMark, claimBasisWords, statementOnlyList } from '@/components/ui/claim-basis';
 import { buildItemLookup } from '@/components/ui/item-lookup';
-import { LayerPath, LayerPathLinks } from '@/components/ui/layer-path';
+import { LayerPath, LayerPathLinks, morePathsText } from '@/components/ui/layer-path';
 import { formatDateTime } from '@/lib/format';
 import { useCounterQuestions } from '../api/questions';
 import { listed, type LookupRow } from '../utils/lookup';
@@ -145,6 +145,11 @@ function WhereFrom({ verdict, declaration }: { verdict: CustomerVerdict; declara
                   </Box>
                 ))}
               </Box>
+              {c.viaMore ? (
+                <Text color="fg.muted" textStyle="sm">
+                  {morePathsText(c.viaMore, declaration.name)}
+                </Text>
+              ) : null}
             </Stack>
           ))}
         </Stack>

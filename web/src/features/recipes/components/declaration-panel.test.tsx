@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { mockApi, signedInAs } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render-app';
 import { declarationFor, RECIPES, REVISIONS } from '../testing/fixtures';
+import { CLAIMS_SUPPORTED_TITLE } from './declaration-panel';
 
 function showProduct(sulphites: SulphiteResult) {
   mockApi(
@@ -76,5 +77,36 @@ describe('Declaration panel: sulphites in words', () => {
       .closest('p')!;
     expect(line).toHaveTextContent(says);
     if (never) expect(line).not.toHaveTextContent(never);
+  });
+});
+
+describe('Declaration panel: a shortened path list says what it left out', () => {
+  it('counts the paths not drawn, under the allergen and under the claim reason', async () => {
+    const base = declarationFor();
+    const butterVia = ['victoria-sponge', 'vanilla-sponge', 'butter'];
+    mockApi(
+      signedInAs('front-of-house', {
+        'GET /api/recipes': { body: RECIPES },
+        'GET /api/recipes/victoria-sponge': { body: RECIPES[0] },
+        'GET /api/recipes/victoria-sponge/declaration': {
+          body: {
+            ...base,
+            contains: base.contains.map((c) => (c.allergen === 'milk' ? { ...c, viaMore: 11 } : c)),
+            claims: {
+              ...base.claims,
+              vegan: { status: 'fails', reasons: [{ leaf: 'butter', path: butterVia, message: 'Butter contains milk.', morePaths: 1 }] },
+            },
+          },
+        },
+        'GET /api/recipes/victoria-sponge/revisions': { body: REVISIONS },
+      }),
+    );
+    renderApp('/recipes/victoria-sponge');
+    const contains = await screen.findByRole('region', { name: 'Contains' });
+    expect(within(contains).getByText('And 11 more paths through the same parts of Victoria sponge, not drawn.')).toBeVisible();
+    // Wheat's list was not shortened: no count under it.
+    expect(within(contains).getAllByText(/more paths? through the same parts/)).toHaveLength(1);
+    const claims = screen.getByRole('region', { name: CLAIMS_SUPPORTED_TITLE });
+    expect(within(claims).getByText(/, and by 1 other path through Vanilla sponge\)/)).toBeVisible();
   });
 });

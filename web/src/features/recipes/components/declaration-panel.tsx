@@ -4,7 +4,7 @@ import { ClaimBasisLeaves, ClaimBasisLine, HOLDS_ON_STATEMENTS } from '@/compone
 import { ClaimReasonList } from '@/components/ui/claim-reasons';
 import { ClaimStatusLine } from '@/components/ui/claim-status';
 import { ErrorAlert } from '@/components/ui/error-alert';
-import { LayerPath, type ItemLookup } from '@/components/ui/layer-path';
+import { LayerPath, morePathsText, type ItemLookup } from '@/components/ui/layer-path';
 import { Panel, type HeadingLevel } from '@/components/ui/panel';
 import { QUID_KIND } from '@/components/ui/percent-kinds';
 import { Quantity } from '@/components/ui/quantity';
@@ -32,23 +32,40 @@ interface DeclarationPanelProps {
 /** The heading of the engine's claim results, worded apart from "Claims you want to make". */
 export const CLAIMS_SUPPORTED_TITLE = 'What the recipe supports';
 
-function Paths({ paths, lookup }: { paths: readonly string[][]; lookup: ItemLookup }) {
+interface PathsProps {
+  paths: readonly string[][];
+  /** Paths the declaration left out of the list (Provenance.viaMore). */
+  more?: number;
+  productName: string;
+  lookup: ItemLookup;
+}
+
+function Paths({ paths, more, productName, lookup }: PathsProps) {
   if (paths.length === 0) return null;
+  const moreText = morePathsText(more, productName);
   return (
-    <Box display="flex" flexWrap="wrap" gap="3" mt="2">
-      {paths.map((path) => (
-        <Box key={path.join('/')} minW="10rem" maxW="16rem">
-          <LayerPath path={path} lookup={lookup} />
-        </Box>
-      ))}
-    </Box>
+    <>
+      <Box display="flex" flexWrap="wrap" gap="3" mt="2">
+        {paths.map((path) => (
+          <Box key={path.join('/')} minW="10rem" maxW="16rem">
+            <LayerPath path={path} lookup={lookup} />
+          </Box>
+        ))}
+      </Box>
+      {moreText ? (
+        <Text color="fg.muted" textStyle="sm" mt="1">
+          {moreText}
+        </Text>
+      ) : null}
+    </>
   );
 }
 
 /** "From contact with Butter (greasing, dusting)", naming each item that reaches the product by contact once. */
-function contactWords(paths: readonly string[][], lookup: ItemLookup): string {
+function contactWords(paths: readonly string[][], more: number | undefined, lookup: ItemLookup): string {
   const names = [...new Set(paths.map((path) => lookup(path.at(-1) ?? '')?.name ?? path.at(-1) ?? ''))];
-  return `From contact with ${new Intl.ListFormat('en-GB').format(names)} (a contact line: greasing or dusting)`;
+  const others = more ? `, and by ${more} more path${more === 1 ? '' : 's'} through the same parts` : '';
+  return `From contact with ${new Intl.ListFormat('en-GB').format(names)} (a contact line: greasing or dusting)${others}`;
 }
 
 /** A product's declaration as Crumbproof computed it, in the order a label reads. */
@@ -85,10 +102,10 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted, cl
                   </Text>
                   {group.contactVia && group.contactVia.length > 0 ? (
                     <Text textStyle="sm" mt="1">
-                      {`${contactWords(group.contactVia, lookup)}: it is still in the food, so it is declared here, not as a may-contain.`}
+                      {`${contactWords(group.contactVia, group.contactViaMore, lookup)}: it is still in the food, so it is declared here, not as a may-contain.`}
                     </Text>
                   ) : null}
-                  <Paths paths={group.via} lookup={lookup} />
+                  <Paths paths={group.via} more={group.viaMore} productName={declaration.name} lookup={lookup} />
                 </Box>
               ))}
             </Box>
@@ -125,7 +142,7 @@ export function DeclarationPanel({ declaration, lookup, level = 'h2', wanted, cl
                   <Text color="fg.muted" textStyle="sm">
                     {`${leaf.name} has no allergen statement, so nothing about it can be proved.`}
                   </Text>
-                  <Paths paths={leaf.via} lookup={lookup} />
+                  <Paths paths={leaf.via} more={leaf.viaMore} productName={declaration.name} lookup={lookup} />
                 </Box>
               ))}
             </Box>

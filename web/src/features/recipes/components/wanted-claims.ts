@@ -16,7 +16,8 @@ export function wantedClaimNotices(wanted: readonly Claim[], declaration: Declar
       const leafName = reason.leaf ? (lookup(reason.leaf)?.name ?? reason.leaf) : null;
       const message = reason.message.replace(/\.$/, '');
       if (below.length < 2) return message;
-      const where = `(${below.join(' → ')})`;
+      const others = reason.morePaths ? `, and ${reason.morePaths} other path${reason.morePaths === 1 ? '' : 's'} through ${below[0]}` : '';
+      const where = `(${below.join(' → ')}${others})`;
       if (leafName && message.startsWith(leafName)) return `${leafName} ${where}${message.slice(leafName.length)}`;
       return `${message} ${where}`;
     });
