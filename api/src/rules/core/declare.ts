@@ -426,7 +426,8 @@ function declareChecked(book: Book, productId: string, refs: ReferenceData, regi
   for (const claim of tree.recipe.sale?.claims ?? []) {
     const result = claims[claim];
     if (result.status !== 'ok') {
-      const why = result.reasons.map((r) => r.message).join(' ');
+      // Each reason's words once, however many places of the product give it.
+      const why = [...new Set(result.reasons.map((r) => r.message))].join(' ');
       errors.push({
         code: 'claim-not-met',
         message: `${tree.recipe.name} is sold as ${claim}, but the claim ${result.status === 'fails' ? 'fails' : 'cannot be verified'}: ${why}`,

@@ -188,3 +188,26 @@ describe('provenance across the small synthetic kitchen', () => {
     }
   });
 });
+
+describe('a claim the product is sold with and does not hold', () => {
+  it('says each reason once in its error, however many places give it', () => {
+    const d = declare(
+      book(ingredients, [
+        ...layerRecipes,
+        recipe(
+          'cake',
+          layers.map((id) => [id, 50] as [string, number]),
+          { sale: { portionG: 80, claims: ['vegan'] } },
+        ),
+      ]),
+      'cake',
+      refs,
+    );
+    const [error] = d.errors.filter((e) => e.code === 'claim-not-met');
+    expect(error.message).toBe(
+      'Cake is sold as vegan, but the claim fails: Unsalted butter is recorded as not vegan. Unsalted butter contains milk.',
+    );
+    // Twelve places give each reason; the claim lists them all.
+    expect(d.claims.vegan.reasons).toHaveLength(2 * LAYERS);
+  });
+});
