@@ -47,6 +47,9 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
     private readonly sessions: SessionsRepository,
     private readonly jwt: JwtService,
   ) {
+    // passport-jwt's constructor refuses to build without an extractor and a key. They say what
+    // `authenticate` below does itself (the same cookie, the same key, HS256 only, expiry checked),
+    // so that it can keep each verified token; passport-jwt's own authenticate is never called.
     super({
       jwtFromRequest: ExtractJwt.fromExtractors([(req: FastifyRequest) => readSessionCookie(req)]),
       // passport-jwt hands the key to jsonwebtoken, which takes a KeyObject (its types say string or Buffer only).
