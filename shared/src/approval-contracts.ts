@@ -170,9 +170,15 @@ export function declaredChangeInWords(c: DeclaredChange): string[] {
   const out: string[] = [];
   const contains = c.added.filter((a) => a.how === 'contains');
   const may = c.added.filter((a) => a.how === 'may-contain');
+  // A group no longer contained that may still be in it is said in one sentence. (One now contained
+  // that was a may-contain is said by "Now contains" alone: declaredChange does not remove it.)
+  const lowered = may.filter((a) => c.containsRemoved.some((g) => g.allergen === a.allergen));
   if (contains.length) out.push(`Now contains ${list(contains.map(addedName))}.`);
-  if (may.length) out.push(`Now may contain ${list(may.map(addedName))}.`);
-  if (c.containsRemoved.length) out.push(`No longer contains ${list(c.containsRemoved.map((g) => g.label))}.`);
+  for (const a of lowered) out.push(`No longer contains ${a.label}, but may contain ${addedName(a) === a.label ? 'it' : addedName(a)}.`);
+  const mayNewly = may.filter((a) => !lowered.includes(a));
+  if (mayNewly.length) out.push(`Now may contain ${list(mayNewly.map(addedName))}.`);
+  const containsGone = c.containsRemoved.filter((g) => !lowered.some((a) => a.allergen === g.allergen));
+  if (containsGone.length) out.push(`No longer contains ${list(containsGone.map((g) => g.label))}.`);
   if (c.mayContainRemoved.length) out.push(`No longer may contain ${list(c.mayContainRemoved.map((g) => g.label))}.`);
   for (const n of c.notKnownAdded) out.push(`The allergens of ${n.name} are not known (it has no allergen statement).`);
   for (const n of c.notKnownRemoved) out.push(`The allergens of ${n.name} are known again, or it is no longer used.`);

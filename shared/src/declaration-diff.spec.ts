@@ -136,6 +136,33 @@ describe('declaredChange: what a customer or a label depends on', () => {
     expect(declaredChangeInWords(c)).toEqual(['Now contains nuts (walnut).', 'Now may contain nuts (hazelnut).']);
   });
 
+  it('says a group no longer contained that may still be in it in one sentence', () => {
+    const may = (source: 'hazelnut' | 'sesame') => precaution(source, source === 'sesame' ? ['sesame'] : ['nuts']);
+    const sesame = { allergen: 'sesame', label: 'sesame', sources: ['sesame' as const], via: [['p', 'x']] };
+    // Walnuts swapped for a seed paste made where hazelnut is handled: nuts go from contains to
+    // may contain (hazelnut); sesame from may contain to contains.
+    const before = declaration({
+      contains: [nuts(['walnut'])],
+      precautions: [may('sesame')],
+      mayContain: [{ allergen: 'sesame', label: 'sesame', why: [] }],
+    });
+    const after = declaration({
+      contains: [sesame],
+      precautions: [may('hazelnut')],
+      mayContain: [{ allergen: 'nuts', label: 'nuts', why: [] }],
+    });
+    expect(declaredChangeInWords(declaredChange(before, after))).toEqual([
+      'Now contains sesame.',
+      'No longer contains nuts, but may contain nuts (hazelnut).',
+    ]);
+    // The same group by the same name: "it".
+    const milk = { allergen: 'milk', label: 'milk', sources: ['milk' as const], via: [['p', 'butter']] };
+    const spread = declaration({ mayContain: [{ allergen: 'milk', label: 'milk', why: [] }] });
+    expect(declaredChangeInWords(declaredChange(declaration({ contains: [milk] }), spread))).toEqual([
+      'No longer contains milk, but may contain it.',
+    ]);
+  });
+
   it('is urgent when a claim that held is lost, not when an allergen is taken away', () => {
     const a = declaration({ contains: [nuts(['pecan'])] });
     const lost = declaration({ contains: [nuts(['pecan'])] });
