@@ -17,4 +17,21 @@ describe('the declarations written a piece at a time', () => {
       expect(text('declarations', items)).toBe(`${JSON.stringify({ declarations: items }, null, 2)}\n`);
     }
   });
+
+  it('reads items made as they are read one at a time, holding at most the one being written and the next', () => {
+    let made = 0;
+    function* numbers() {
+      for (let n = 0; n < 5; n++) {
+        made++;
+        yield { n };
+      }
+    }
+    const pieces: string[] = [];
+    for (const piece of indentedJsonPieces('declarations', numbers())) {
+      pieces.push(piece);
+      // The opening and each item written so far, plus the one read ahead.
+      expect(made).toBeLessThanOrEqual(pieces.length);
+    }
+    expect(pieces.join('')).toBe(`${JSON.stringify({ declarations: [0, 1, 2, 3, 4].map((n) => ({ n })) }, null, 2)}\n`);
+  });
 });
