@@ -102,7 +102,15 @@ function labelFor(regime: Regime, per100g: NutrientFigures, perPortion: Nutrient
  * Contact lines bring nothing.
  */
 export function computeNutrition(book: Book, recipeId: string, opts: NutritionOptions): NutritionDeclaration {
-  const roller = new NutritionRoller(book, opts.measures);
+  return nutritionOf(new NutritionRoller(book, opts.measures), recipeId, opts.regime);
+}
+
+/**
+ * A recipe's nutrition as computeNutrition gives it, from a roller of the book that may have rolled
+ * other recipes already (each recipe's rollup depends only on what is below it, so one roller serves
+ * every recipe of a book).
+ */
+export function nutritionOf(roller: NutritionRoller, recipeId: string, regime: Regime): NutritionDeclaration {
   const recipe = roller.recipe(recipeId);
   const r = roller.roll(recipeId);
   const portionG = recipe.sale?.portionG ?? null;
@@ -112,7 +120,7 @@ export function computeNutrition(book: Book, recipeId: string, opts: NutritionOp
   return {
     recipeId,
     recipeName: recipe.name,
-    regime: opts.regime,
+    regime,
     finishedWeightG: r.weightG,
     weightFrom: r.weightFrom,
     portionG,
@@ -122,6 +130,6 @@ export function computeNutrition(book: Book, recipeId: string, opts: NutritionOp
     missing: missingOf(r),
     unweighed: r.unweighed,
     sources: [...r.leaves.values()],
-    label: labelFor(opts.regime, per100g, perPortion, portionG),
+    label: labelFor(regime, per100g, perPortion, portionG),
   };
 }
