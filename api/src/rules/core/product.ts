@@ -39,7 +39,11 @@ export function declareProducts(book: Book, refs: ReferenceData, opts: { regime?
  * declaration reads beyond them (the site), so the whole book declares it alike. A book with
  * problems declares each recipe on its own closure, which may have none.
  */
-export function productDeclarer(book: Book, refs: ReferenceData, opts: { regime?: Regime } = {}): (productId: string) => ProductDeclaration {
+export function productDeclarer(
+  book: Book,
+  refs: ReferenceData,
+  opts: { regime?: Regime } = {},
+): (productId: string) => ProductDeclaration {
   const regime = opts.regime ?? book.site.regime;
   if (checkBook(book).length > 0) return (id) => declareProduct(closureOf(book, id), id, refs, { regime });
   const declareOne = declarerOfChecked(book, refs, regime);

@@ -39,7 +39,11 @@ export function canonicalJsonKept(value: unknown, known: WeakMap<object, string>
 }
 
 function keptText(value: unknown, known: WeakMap<object, string>): string | undefined {
-  if (value === null || typeof value !== 'object') return JSON.stringify(value) as string | undefined;
+  if (value === null || typeof value !== 'object') {
+    // No text for undefined, a function or a symbol (left out of an object, null in a list).
+    const text: string | undefined = JSON.stringify(value);
+    return text;
+  }
   const done = known.get(value);
   if (done !== undefined) return done;
   let text: string;
