@@ -123,39 +123,7 @@ export class DeclarationsService implements OnModuleInit {
     let memo = this.keptOf.get(kitchen);
     if (!memo) this.keptOf.set(kitchen, (memo = new Map<string, KeptServed>()));
     const missing = [...new Set(codes)].filter((code) => !memo.has(`${useRegime} ${code}`));
-    const work = this.workOf(kitchen);
-    const inputs = missing.map((code) => {
-      const head = heads.get(code);
-      if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
-      const slice = work.closures.of(code);
-      const items = work.closures.items(code).map(work.basisItem);
-      // The same bytes as canonicalJson of these inputs, with the text of each item of the book written once for the state.
-      const inputHash = createHash('sha256')
-        .update(
-          canonicalJsonKept(
-            { slice, items, siteId: site.id, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion },
-            work.texts,
-          ),
-        )
-        .digest('hex');
-      return { code, head, items, inputHash };
-    });
-    const found = await this.kept.findMany(
-      useRegime,
-      inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })),
-    );
-    const declareOne = work.declarer(useRegime);
-    const added = await this.kept.addMany(
-      inputs
-        .filter(({ head, inputHash }) => !found.has(`${head.rowId} ${inputHash}`))
-        .map(({ code, head, inputHash }) => ({
-          recipeId: head.rowId,
-          recipeRevision: head.revision,
-          regime: useRegime,
-          inputHash,
-          body: declareOne(code),
-        })),
-    );
+    const { inputs, found, added } = await this.keep(missing, useRegime, kitchen, (keys) => this.kept.findMany(useRegime, keys));
     for (const { code, head, items, inputHash } of inputs) {
       const key = `${head.rowId} ${inputHash}`;
       const kept = found.get(key) ?? added.get(key);
@@ -216,6 +184,50 @@ export class DeclarationsService implements OnModuleInit {
     };
     this.worksOf.set(state, work);
     return work;
+  }
+
+  /**
+   * The inputs of each product named, with what `find` finds kept for them (their rows to serve,
+   * or only which are kept to record) and those it does not find declared and kept.
+   */
+  private async keep<Found extends { has(key: string): boolean }>(
+    missing: readonly string[],
+    useRegime: Regime,
+    kitchen: KitchenState,
+    find: (keys: { recipeId: number; inputHash: string }[]) => Promise<Found>,
+  ) {
+    const { site, heads } = kitchen;
+    const work = this.workOf(kitchen);
+    const inputs = missing.map((code) => {
+      const head = heads.get(code);
+      if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
+      const slice = work.closures.of(code);
+      const items = work.closures.items(code).map(work.basisItem);
+      // The same bytes as canonicalJson of these inputs, with the text of each item of the book written once for the state.
+      const inputHash = createHash('sha256')
+        .update(
+          canonicalJsonKept(
+            { slice, items, siteId: site.id, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion },
+            work.texts,
+          ),
+        )
+        .digest('hex');
+      return { code, head, items, inputHash };
+    });
+    const found = await find(inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })));
+    const declareOne = work.declarer(useRegime);
+    const added = await this.kept.addMany(
+      inputs
+        .filter(({ head, inputHash }) => !found.has(`${head.rowId} ${inputHash}`))
+        .map(({ code, head, inputHash }) => ({
+          recipeId: head.rowId,
+          recipeRevision: head.revision,
+          regime: useRegime,
+          inputHash,
+          body: declareOne(code),
+        })),
+    );
+    return { inputs, found, added };
   }
 
   /**
@@ -326,8 +338,14 @@ export class DeclarationsService implements OnModuleInit {
   async record(ids?: readonly string[]): Promise<number> {
     const state = await this.books.state();
     const todo = ids ?? state.book.recipes.map((r) => r.id);
-    for (let from = 0; from < todo.length; from += RECORD_CHUNK)
-      await this.keptForProducts(todo.slice(from, from + RECORD_CHUNK), undefined, state);
+    // Kept, not served: neither read back nor held with the state (an import records thousands),
+    // so each is found in the store when it is first served. Those served already are kept.
+    const regime = state.book.site.regime;
+    const memo = this.keptOf.get(state);
+    const missing = [...new Set(todo)].filter((code) => !memo?.has(`${regime} ${code}`));
+    for (let from = 0; from < missing.length; from += RECORD_CHUNK)
+      // Only which are kept already is asked: their bodies are not read.
+      await this.keep(missing.slice(from, from + RECORD_CHUNK), regime, state, (keys) => this.kept.existing(regime, keys));
     return todo.length;
   }
 

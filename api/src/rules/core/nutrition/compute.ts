@@ -63,12 +63,14 @@ function missingOf(r: Rollup): MissingFigure[] {
   for (const k of ENERGY_NEEDS) for (const [id, ref] of r.missing[k]) energy.set(id, ref);
   const byKey = (key: FigureKey): Map<string, IngredientRef> => (key === 'energyKj' || key === 'energyKcal' ? energy : r.missing[key]);
   // List ingredients in recipe order (the order leaves were first met).
-  const order = [...r.leaves.keys()];
+  const order = new Map([...r.leaves.keys()].map((id, n) => [id, n]));
+  // An id not among the leaves sorts as indexOf placed it, first.
+  const at = (id: string) => order.get(id) ?? -1;
   const out: MissingFigure[] = [];
   for (const key of FIGURE_KEYS) {
     const m = byKey(key);
     if (m.size === 0) continue;
-    const ingredients = [...m.values()].sort((a, b) => order.indexOf(a.id) - order.indexOf(b.id));
+    const ingredients = [...m.values()].sort((a, b) => at(a.id) - at(b.id));
     out.push({ nutrient: key, ingredients });
   }
   return out;
