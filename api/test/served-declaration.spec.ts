@@ -64,6 +64,22 @@ describe('a served declaration and its basis (real MariaDB)', () => {
   const declarationRows = async () =>
     Number((await t.sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM declarations', { type: QueryTypes.SELECT }))[0].n);
 
+  it('has kept, once the import answered, the declaration of each recipe it wrote, which serving then reads', async () => {
+    const keptOf = () =>
+      t.sequelize.query<{ code: string; computedAt: Date }>(
+        `SELECT r.code AS code, d.created_at AS computedAt FROM declarations d JOIN recipes r ON r.id = d.recipe_id
+         WHERE r.code IN ('basis-dough', 'basis-biscuit') ORDER BY r.code`,
+        { type: QueryTypes.SELECT },
+      );
+    const kept = await keptOf();
+    expect(kept.map((k) => k.code)).toEqual(['basis-biscuit', 'basis-dough']);
+    const rows = await declarationRows();
+    const [biscuit, dough] = [await served('basis-biscuit'), await served('basis-dough')];
+    expect(Date.parse(biscuit.basis.computedAt)).toBe(new Date(kept[0].computedAt).getTime());
+    expect(Date.parse(dough.basis.computedAt)).toBe(new Date(kept[1].computedAt).getTime());
+    expect(await declarationRows()).toBe(rows);
+  });
+
   it('names the product first, then every ingredient and sub-recipe it is made from, each at its current revision', async () => {
     const d = await served('basis-biscuit');
     expect(d.basis.items).toEqual([

@@ -8,7 +8,7 @@ import { appAddress, type AppConfig } from '../config/config';
 import type { SiteRow } from '../kitchen/site.repository';
 import { MailService } from '../mail/mail.service';
 import { renderMail, type RenderedMail } from '../mail/templates/layout';
-import { recipesAbove } from '../rules/core/book-graph';
+import { recipesAboveAny } from '../rules/core/book-graph';
 import { ApprovalStatus, type ProductStatus } from './approval-status';
 
 /** A product as a mail lists it: its name and its change in sentences. */
@@ -106,8 +106,8 @@ export class ApprovalMails implements OnModuleInit {
   }
 
   private async approvalNeededAt(state: KitchenState, written: KitchenWritten, by: string, several: boolean): Promise<void> {
-    const touched = new Set<string>(written.recipes);
-    for (const id of [...written.ingredients, ...written.recipes]) for (const r of recipesAbove(state.book, id)) touched.add(r);
+    // Everything above any written item, in one walk of the book however many were written (an import writes thousands).
+    const touched = new Set<string>([...written.recipes, ...recipesAboveAny(state.book, [...written.ingredients, ...written.recipes])]);
     const codes = state.book.recipes.filter((r) => r.sale && touched.has(r.id)).map((r) => r.id);
     if (codes.length === 0) return;
     const waiting = (await this.status.of(state, codes)).filter((s) => s.state !== 'approved');

@@ -29,11 +29,18 @@ export interface ApiFigures extends LoadFigures {
 
 const CONNECTIONS = 100;
 
+/** A signed-in demo account: the headers of its requests, and the book id of the kitchen they name. */
+interface SignedIn {
+  headers: Record<string, string>;
+  /** The kitchen's id in the recipe book (null for the one kitchen of a book given as site). */
+  kitchenCode: string | null;
+}
+
 /**
  * Signs in a demo account and gives the headers of its requests: its session cookie and its first
  * kitchen (the demo manager works in two, and a request must name one).
  */
-async function signIn(base: string, email: string): Promise<Record<string, string>> {
+async function signIn(base: string, email: string): Promise<SignedIn> {
   const res = await fetch(`${base}/api/auth/sign-in`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', origin: base, 'sec-fetch-site': 'same-origin' },
@@ -47,7 +54,17 @@ async function signIn(base: string, email: string): Promise<Record<string, strin
   const me = await fetch(`${base}/api/me`, { headers: { cookie } });
   if (!me.ok) throw new Error(`GET /api/me for ${email} answered ${me.status}: ${await me.text()}`);
   const [kitchen] = ((await me.json()) as Me).kitchens;
-  return { cookie, ...(kitchen ? { [KITCHEN_HEADER]: String(kitchen.id) } : {}) };
+  return { headers: { cookie, ...(kitchen ? { [KITCHEN_HEADER]: String(kitchen.id) } : {}) }, kitchenCode: kitchen?.code ?? null };
+}
+
+/**
+ * The standard synthetic book as the import route takes it into a kitchen: given as `site` where
+ * the kitchen is the installation's only one (no book id), else as `sites` with the kitchen's id,
+ * since a book given as site names no kitchen of several (the demo has two).
+ */
+export function standardBookFor(kitchenCode: string | null): string {
+  const { site, ...book } = syntheticKitchen('standard');
+  return JSON.stringify(kitchenCode === null ? { ...book, site } : { ...book, sites: [{ ...site, id: kitchenCode }] });
 }
 
 function load(url: string, seconds: number, headers: Record<string, string> = {}): Promise<autocannon.Result> {
@@ -118,15 +135,15 @@ export async function measureApi(base: string, pid: number | null, seconds = 10)
   const manager = await signIn(base, 'manager@example.com');
   const counter = await signIn(base, 'counter@example.com');
   const { result: one, peakMb } = await withPeakRss(pid, () =>
-    routeAgainstBare(base, '/api/recipes/strawberry-layer-cake/declaration', manager, seconds),
+    routeAgainstBare(base, '/api/recipes/strawberry-layer-cake/declaration', manager.headers, seconds),
   );
-  const allProducts = await routeAgainstBare(base, '/api/counter/products', counter, seconds);
-  const book = JSON.stringify(syntheticKitchen('standard'));
+  const allProducts = await routeAgainstBare(base, '/api/counter/products', counter.headers, seconds);
+  const book = standardBookFor(manager.kitchenCode);
   const started = performance.now();
   const imported = await withPeakRss(pid, () =>
     fetch(`${base}/api/book/import`, {
       method: 'POST',
-      headers: { 'content-type': 'application/json', origin: base, 'sec-fetch-site': 'same-origin', ...manager },
+      headers: { 'content-type': 'application/json', origin: base, 'sec-fetch-site': 'same-origin', ...manager.headers },
       body: book,
     }).then(async (res) => {
       await res.arrayBuffer();

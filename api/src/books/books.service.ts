@@ -33,7 +33,7 @@ import { UsersRepository } from '../users/users.repository';
 import { atThresholdPrecision, compare } from '../rules/core/compare';
 import { sameData } from '../rules/core/same-data';
 import { siteView, type SiteView } from '../rules/core/site-view';
-import { buildTree } from '../rules/core/tree';
+import { indexBook, mixOfRecipe } from '../rules/core/tree';
 import { RulesService } from '../rules/rules.service';
 
 export interface ImportSummary {
@@ -325,9 +325,13 @@ export class BooksService {
    */
   private assertBakeLoss(book: Book, recipes: BookRecipe[], place: (r: BookRecipe) => string) {
     const fields: FieldError[] = [];
+    // One index of the book for every recipe: each one's weighed lines are worked out once.
+    const index = indexBook(book);
     for (const r of recipes) {
       if (r.finishedWeightG === undefined) continue;
-      const mix = atThresholdPrecision(buildTree(book, r.id).mixG);
+      const inBook = index.recipes.get(r.id);
+      if (!inBook) throw new Error(`There is no recipe '${r.id}' in this book.`);
+      const mix = atThresholdPrecision(mixOfRecipe(index, inBook));
       if (!compare(r.finishedWeightG, 'gt', mix)) continue;
       fields.push({
         path: place(r),

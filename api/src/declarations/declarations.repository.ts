@@ -52,6 +52,19 @@ export class DeclarationsRepository {
     return out;
   }
 
+  /** Which of several recipes' declarations under one regime are kept, by `${recipeId} ${inputHash}`; one query, no bodies read. */
+  async existing(regime: Regime, keys: readonly { recipeId: number; inputHash: string }[]): Promise<Set<string>> {
+    const out = new Set<string>();
+    if (keys.length === 0) return out;
+    const rows = await this.declarations.findAll({
+      where: { regime, inputHash: { [Op.in]: [...new Set(keys.map((k) => k.inputHash))] } },
+      attributes: ['recipeId', 'inputHash'],
+    });
+    const wanted = new Set(keys.map((k) => `${k.recipeId} ${k.inputHash}`));
+    for (const row of rows) if (wanted.has(`${row.recipeId} ${row.inputHash}`)) out.add(`${row.recipeId} ${row.inputHash}`);
+    return out;
+  }
+
   /** Keeps a declaration; when the same one was kept at the same moment elsewhere, that one is the one kept. */
   async add(values: NewDeclaration): Promise<KeptDeclaration> {
     try {

@@ -18,9 +18,9 @@ import { prepareJson, type PreparedJson } from '../common/prepared-json';
 import { validationError } from '../common/zod.pipe';
 import { BooksService, type KitchenState } from '../books/books.service';
 import { KitchenService } from '../kitchen/kitchen.service';
-import { closureItems, closureOf } from '../rules/core/book-graph';
+import { bookClosures, closureItems, closureOf, type BookClosures, type BookItemRef } from '../rules/core/book-graph';
 import { standInsOf, type SiteView } from '../rules/core/site-view';
-import { canonicalJson } from '../rules/core/same-data';
+import { canonicalJsonKept } from '../rules/core/same-data';
 import { RulesService } from '../rules/rules.service';
 import {
   SpecificationsService,
@@ -78,6 +78,8 @@ export class DeclarationsService implements OnModuleInit {
    * sale), for each kitchen state and the day they were served on (see prepared).
    */
   private readonly preparedOf = new WeakMap<KitchenState, Map<string, { today: string; answer: Promise<PreparedJson> }>>();
+  /** What declaring the products of each kitchen state shares, worked out as first asked for (see workOf). */
+  private readonly worksOf = new WeakMap<KitchenState, KitchenWork>();
   /** The review-by dates of each kitchen state's ingredients (see standingOf). */
   private readonly reviewByOf = new WeakMap<KitchenState['heads'], Promise<Map<number, string>>>();
 
@@ -121,39 +123,7 @@ export class DeclarationsService implements OnModuleInit {
     let memo = this.keptOf.get(kitchen);
     if (!memo) this.keptOf.set(kitchen, (memo = new Map<string, KeptServed>()));
     const missing = [...new Set(codes)].filter((code) => !memo.has(`${useRegime} ${code}`));
-    const inputs = missing.map((code) => {
-      const head = heads.get(code);
-      if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
-      const slice = closureOf(book, code);
-      const names = new Map([...slice.ingredients, ...slice.recipes].map((x) => [x.id, x.name]));
-      const items: DeclarationBasisItem[] = closureItems(book, code).map(({ id, kind }) => ({
-        id,
-        kind,
-        name: names.get(id)!,
-        revision: heads.get(id)!.revision,
-      }));
-      const inputHash = createHash('sha256')
-        .update(
-          canonicalJson({ slice, items, siteId: site.id, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion }),
-        )
-        .digest('hex');
-      return { code, head, slice, items, inputHash };
-    });
-    const found = await this.kept.findMany(
-      useRegime,
-      inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })),
-    );
-    const added = await this.kept.addMany(
-      inputs
-        .filter(({ head, inputHash }) => !found.has(`${head.rowId} ${inputHash}`))
-        .map(({ code, head, slice, inputHash }) => ({
-          recipeId: head.rowId,
-          recipeRevision: head.revision,
-          regime: useRegime,
-          inputHash,
-          body: this.rules.declare(slice, code, useRegime),
-        })),
-    );
+    const { inputs, found, added } = await this.keep(missing, useRegime, kitchen, (keys) => this.kept.findMany(useRegime, keys));
     for (const { code, head, items, inputHash } of inputs) {
       const key = `${head.rowId} ${inputHash}`;
       const kept = found.get(key) ?? added.get(key);
@@ -184,6 +154,80 @@ export class DeclarationsService implements OnModuleInit {
       heads,
     );
     return out.map((kept, n) => ({ ...kept, served: { ...kept.served, ...checks[n] } }));
+  }
+
+  /**
+   * What keeping declarations of a kitchen state's products shares, for the state: the closures of
+   * its book, the canonical text of each of its items (for the input hashes), each item as a basis
+   * names it, and a declarer of its book under each regime (productDeclarer: one run for all).
+   */
+  private workOf(state: KitchenState): KitchenWork {
+    let work = this.worksOf.get(state);
+    if (work) return work;
+    const { book, heads } = state;
+    const names = new Map([...book.ingredients, ...book.recipes].map((x) => [x.id, x.name]));
+    const basisItems = new Map<string, DeclarationBasisItem>();
+    const declarers = new Map<Regime, (code: string) => ProductDeclaration>();
+    work = {
+      closures: bookClosures(book),
+      texts: new WeakMap(),
+      basisItem: ({ id, kind }) => {
+        let item = basisItems.get(id);
+        if (!item) basisItems.set(id, (item = { id, kind, name: names.get(id)!, revision: heads.get(id)!.revision }));
+        return item;
+      },
+      declarer: (regime) => {
+        let declarer = declarers.get(regime);
+        if (!declarer) declarers.set(regime, (declarer = this.rules.declarer(book, regime)));
+        return declarer;
+      },
+    };
+    this.worksOf.set(state, work);
+    return work;
+  }
+
+  /**
+   * The inputs of each product named, with what `find` finds kept for them (their rows to serve,
+   * or only which are kept to record) and those it does not find declared and kept.
+   */
+  private async keep<Found extends { has(key: string): boolean }>(
+    missing: readonly string[],
+    useRegime: Regime,
+    kitchen: KitchenState,
+    find: (keys: { recipeId: number; inputHash: string }[]) => Promise<Found>,
+  ) {
+    const { site, heads } = kitchen;
+    const work = this.workOf(kitchen);
+    const inputs = missing.map((code) => {
+      const head = heads.get(code);
+      if (!head || head.kind !== 'recipe') throw new AppError('not-found', `There is no recipe '${code}'.`);
+      const slice = work.closures.of(code);
+      const items = work.closures.items(code).map(work.basisItem);
+      // The same bytes as canonicalJson of these inputs, with the text of each item of the book written once for the state.
+      const inputHash = createHash('sha256')
+        .update(
+          canonicalJsonKept(
+            { slice, items, siteId: site.id, siteVersion: site.version, regime: useRegime, refs: this.rules.referenceVersion },
+            work.texts,
+          ),
+        )
+        .digest('hex');
+      return { code, head, items, inputHash };
+    });
+    const found = await find(inputs.map((i) => ({ recipeId: i.head.rowId, inputHash: i.inputHash })));
+    const declareOne = work.declarer(useRegime);
+    const added = await this.kept.addMany(
+      inputs
+        .filter(({ head, inputHash }) => !found.has(`${head.rowId} ${inputHash}`))
+        .map(({ code, head, inputHash }) => ({
+          recipeId: head.rowId,
+          recipeRevision: head.revision,
+          regime: useRegime,
+          inputHash,
+          body: declareOne(code),
+        })),
+    );
+    return { inputs, found, added };
   }
 
   /**
@@ -294,8 +338,14 @@ export class DeclarationsService implements OnModuleInit {
   async record(ids?: readonly string[]): Promise<number> {
     const state = await this.books.state();
     const todo = ids ?? state.book.recipes.map((r) => r.id);
-    for (let from = 0; from < todo.length; from += RECORD_CHUNK)
-      await this.keptForProducts(todo.slice(from, from + RECORD_CHUNK), undefined, state);
+    // Kept, not served: neither read back nor held with the state (an import records thousands),
+    // so each is found in the store when it is first served. Those served already are kept.
+    const regime = state.book.site.regime;
+    const memo = this.keptOf.get(state);
+    const missing = [...new Set(todo)].filter((code) => !memo?.has(`${regime} ${code}`));
+    for (let from = 0; from < missing.length; from += RECORD_CHUNK)
+      // Only which are kept already is asked: their bodies are not read.
+      await this.keep(missing.slice(from, from + RECORD_CHUNK), regime, state, (keys) => this.kept.existing(regime, keys));
     return todo.length;
   }
 
@@ -311,6 +361,14 @@ export class DeclarationsService implements OnModuleInit {
       state,
     );
   }
+}
+
+/** What keeping the declarations of one kitchen state's products shares (DeclarationsService.workOf). */
+interface KitchenWork {
+  closures: BookClosures;
+  texts: WeakMap<object, string>;
+  basisItem: (item: BookItemRef) => DeclarationBasisItem;
+  declarer: (regime: Regime) => (code: string) => ProductDeclaration;
 }
 
 /** The lines below a product made at the view's kitchen with its own ingredient, as a basis names them (none: nothing). */

@@ -13,7 +13,7 @@ import {
   type Regime,
   type SourceEntry,
 } from '@crumbproof/shared';
-import { checkBook, declareProduct, ENGINE_VERSION, scanComposition } from './core';
+import { checkBook, declareProduct, ENGINE_VERSION, productDeclarer, scanComposition } from './core';
 import type { NutrientTable } from './core/nutrition/nutrient-table';
 import type { ReferenceData } from './core/reference-schema';
 import { loadNutrientTable } from './nutrients-data';
@@ -38,6 +38,14 @@ export class RulesService {
 
   declare(book: Book, productId: string, regime?: Regime): ProductDeclaration {
     return declareProduct(book, productId, this.refs, { regime });
+  }
+
+  /**
+   * Declares recipes of one book one at a time, each as `declare` on the recipe's closure gives it,
+   * sharing what they have in common (productDeclarer).
+   */
+  declarer(book: Book, regime?: Regime): (productId: string) => ProductDeclaration {
+    return productDeclarer(book, this.refs, { regime });
   }
 
   /** The terms the engine reads in a supplier's composition text, and where they disagree with the supplier's list. */

@@ -1,5 +1,8 @@
-import { closureItems, closureOf, recipesAbove, recipesAboveAny, usedIn } from './book-graph';
+import { bookSchema, type Book } from '@crumbproof/shared';
+import demo from '../../database/seeders/demo-book.json';
+import { bookClosures, closureItems, closureOf, recipesAbove, recipesAboveAny, usedIn } from './book-graph';
 import { book, ing, recipe } from './testing/book-builder';
+import { syntheticKitchen } from './testing/synthetic-kitchen';
 
 const ids = (refs: { id: string }[]) => refs.map((r) => r.id);
 
@@ -171,6 +174,63 @@ describe('closureItems and closureOf: what a product is declared from', () => {
     const reached = closureItems(chain(depth), 'layer-0');
     expect(reached).toHaveLength(depth + 1);
     expect(reached[depth]).toEqual({ id: 'flour', kind: 'ingredient' });
+  });
+});
+
+describe('bookClosures: the closures of many products of one book', () => {
+  /** Every item of the book, asked for in the given order: each gives what closureItems and closureOf give. */
+  const expectAlike = (kitchen: Book, ids: string[] = [...kitchen.recipes, ...kitchen.ingredients].map((x) => x.id)) => {
+    const closures = bookClosures(kitchen);
+    for (const id of [...ids, 'no-such-item']) {
+      expect([id, closures.items(id)]).toEqual([id, closureItems(kitchen, id)]);
+      expect([id, closures.of(id)]).toEqual([id, closureOf(kitchen, id)]);
+    }
+  };
+
+  it.each<[string, Book]>([
+    ['the demo kitchen', bookSchema.parse(demo)],
+    ['the small synthetic kitchen', syntheticKitchen('small')],
+  ])('gives every item of %s what walking it alone gives, products first or sub-recipes first', (_name, kitchen) => {
+    const ids = kitchen.recipes.map((r) => r.id);
+    expectAlike(kitchen, ids);
+    expectAlike(kitchen, [...ids].reverse());
+  });
+
+  it('gives a product 500 sub-recipes deep its whole chain', () => {
+    const kitchen = chain(500);
+    expect(bookClosures(kitchen).items('layer-0')).toHaveLength(501);
+    expectAlike(kitchen);
+  });
+
+  it('counts an item shared through stacked diamonds once', () => {
+    const kitchen = book([ing('butter')], stackedDiamonds(12, 'butter'));
+    expect(bookClosures(kitchen).items('level-12')).toHaveLength(3 * 12 + 2);
+    expectAlike(kitchen);
+  });
+
+  it('gives what walking alone gives on 300 small kitchens with cycles, repeated ids, QUID items and ids the book does not hold', () => {
+    let seed = 11;
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const pick = <T>(xs: T[]) => xs[Math.floor(next() * xs.length)];
+    for (let k = 0; k < 300; k++) {
+      const names = ['a', 'b', 'c', 'd', 'e', 'f', 'g'];
+      const acyclic = next() < 0.5;
+      const recipes = names.map((id, n) => {
+        // Half the kitchens use only recipes later in the list: no cycle.
+        const below = acyclic ? names.slice(n + 1) : names;
+        const uses = [...below, 'flour', 'sugar', 'salt', 'unknown'].filter(() => next() < 0.3);
+        const quid = next() < 0.2 ? [pick([...names, 'salt', 'nowhere'])] : undefined;
+        return recipe(
+          id,
+          (uses.length > 0 ? uses : ['sugar']).map((u) => [u, 10] as [string, number]),
+          quid ? { sale: { portionG: 10, quid } } : {},
+        );
+      });
+      const kitchen = book([ing('flour'), ing('sugar'), ing('salt')], recipes);
+      const repeated = next() < 0.2 ? { ...kitchen, ingredients: [...kitchen.ingredients, { ...ing('c'), contains: [] }] } : kitchen;
+      const ids = [...names, 'flour', 'salt'].sort(() => next() - 0.5);
+      expectAlike(repeated as Book, ids);
+    }
   });
 });
 

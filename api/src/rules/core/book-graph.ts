@@ -46,6 +46,88 @@ export function closureOf(book: Book, productId: string): Book {
   };
 }
 
+/** The closures of a book's products (closureItems, closureOf), for many products of one book. */
+export interface BookClosures {
+  /** closureItems(book, productId). */
+  items(productId: string): readonly BookItemRef[];
+  /** closureOf(book, productId). */
+  of(productId: string): Book;
+}
+
+/**
+ * closureItems and closureOf of many products of one book, from one index of the book and each
+ * recipe's items worked out once, however many products reach it. Where no recipe contains itself
+ * and every id is used once, a walk down a recipe's lines reaches, after the recipe, each line's
+ * items in turn as that line's item alone reaches them, less those reached before (whatever a
+ * recipe reaches is reached in full before the walk moves on): so a recipe's items are itself,
+ * then its lines' and QUID items' items, each once. In a book with a cycle or a repeated id
+ * (which checkBook refuses) each product is walked on its own, as closureItems does.
+ */
+export function bookClosures(book: Book): BookClosures {
+  const ingredients = new Map(book.ingredients.map((i, n) => [i.id, n]));
+  const recipes = new Map(book.recipes.map((r, n) => [r.id, n]));
+  let alone = ingredients.size + recipes.size !== new Set([...ingredients.keys(), ...recipes.keys()]).size;
+  alone ||= ingredients.size !== book.ingredients.length || recipes.size !== book.recipes.length;
+  const known = new Map<string, readonly BookItemRef[]>();
+  const open = new Set<string>();
+  const NONE: readonly BookItemRef[] = [];
+  // Null when the walk meets a recipe it is inside of (a cycle).
+  const itemsOf = (id: string): readonly BookItemRef[] | null => {
+    const done = known.get(id);
+    if (done) return done;
+    if (ingredients.has(id)) {
+      const one = [{ id, kind: 'ingredient' as const }];
+      known.set(id, one);
+      return one;
+    }
+    const at = recipes.get(id);
+    if (at === undefined) return NONE;
+    if (open.has(id)) return null;
+    open.add(id);
+    const recipe = book.recipes[at];
+    const out: BookItemRef[] = [{ id, kind: 'recipe' }];
+    const seen = new Set([id]);
+    for (const use of [...recipe.lines.map((l) => l.use), ...(recipe.sale?.quid ?? [])]) {
+      const below = itemsOf(use);
+      if (below === null) return null;
+      for (const item of below) {
+        if (seen.has(item.id)) continue;
+        seen.add(item.id);
+        out.push(item);
+      }
+    }
+    open.delete(id);
+    known.set(id, out);
+    return out;
+  };
+  const items = (productId: string): readonly BookItemRef[] => {
+    if (!alone) {
+      const found = itemsOf(productId);
+      if (found) return found;
+      alone = true;
+    }
+    return closureItems(book, productId);
+  };
+  return {
+    items,
+    of(productId) {
+      if (alone) return closureOf(book, productId);
+      const reached = items(productId);
+      if (alone) return closureOf(book, productId);
+      const positions = (kind: BookItemRef['kind'], index: Map<string, number>) =>
+        reached
+          .filter((i) => i.kind === kind)
+          .map((i) => index.get(i.id)!)
+          .sort((a, b) => a - b);
+      return {
+        ...book,
+        ingredients: positions('ingredient', ingredients).map((n) => book.ingredients[n]),
+        recipes: positions('recipe', recipes).map((n) => book.recipes[n]),
+      };
+    },
+  };
+}
+
 /** The ids of every recipe that uses the item at any depth, through its lines. */
 export function recipesAbove(book: Pick<Book, 'recipes'>, itemId: string): Set<string> {
   return recipesAboveAny(book, [itemId]);

@@ -45,6 +45,16 @@ export function declare(book: Book, productId: string, refs: ReferenceData, opts
   return declareChecked(book, productId, refs, opts.regime ?? book.site.regime, startRun(book));
 }
 
+/**
+ * Declares products of one book one at a time, each exactly as `declare` gives it, sharing one run
+ * (what declareAll shares) for a caller that declares many products of a book but not all at
+ * once. The book must have no problems (checkBook), which the caller has found.
+ */
+export function declarerOfChecked(book: Book, refs: ReferenceData, regime: Regime): (productId: string) => Declaration {
+  const run = startRun(book);
+  return (productId) => declareChecked(book, productId, refs, regime, run);
+}
+
 /** What each declared set was worked out with, so that declaring again after a change reuses it. */
 const RUNS = new WeakMap<DeclarationSet, Run>();
 

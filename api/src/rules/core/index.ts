@@ -18,4 +18,4 @@ export {
   type RegimeRules,
   type RegimesFile,
 } from './reference-schema';
-export { declareProduct, declareProducts, ENGINE_VERSION } from './product';
+export { declareEach, declareProduct, declareProducts, productDeclarer, ENGINE_VERSION } from './product';

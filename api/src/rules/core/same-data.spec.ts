@@ -1,4 +1,6 @@
-import { canonicalJson, sameData } from './same-data';
+import { canonicalJson, canonicalJsonKept, sameData } from './same-data';
+import { closureItems, closureOf } from './book-graph';
+import { syntheticKitchen } from './testing/synthetic-kitchen';
 
 describe('sameData: equal as data, whatever the order of keys', () => {
   it('finds an ingredient saved with its keys in another order unchanged', () => {
@@ -81,5 +83,35 @@ describe('canonicalJson', () => {
 
   it('keeps the order of lists, writing a missing entry as null as JSON does', () => {
     expect(canonicalJson([3, undefined, 1])).toBe('[3,null,1]');
+  });
+});
+
+describe('canonicalJsonKept: canonicalJson with the text of parts met before kept', () => {
+  it.each<[string, unknown]>([
+    ['nested objects and lists', { b: 1, a: { d: [{ z: 1, y: undefined, x: 2 }], c: null } }],
+    ['a missing entry and a hole in a list', Object.assign([3, undefined], { 3: 1 })],
+    ['keys JSON writes first (index keys)', { b: 1, 10: 'ten', 2: 'two', a: [{ 1: true, z: false }] }],
+    [
+      'a date, and an object whose toJSON gives nothing',
+      { at: new Date(Date.UTC(2026, 0, 2)), gone: { toJSON: () => undefined }, kept: 1 },
+    ],
+    ['functions and symbols, left out of objects and null in lists', { f: () => 1, s: Symbol('s'), list: [() => 1, Symbol('t')] }],
+    ['odd strings and numbers', { 'a"b': 'line\nbreak \u2028 \u0000', n: [-0, 1e21, Number.NaN, Infinity, 0.1] }],
+    ['plain values', 'text'],
+    ['nothing', undefined],
+  ])('writes %s as canonicalJson does', (_name, value) => {
+    const known = new WeakMap<object, string>();
+    expect(canonicalJsonKept(value, known)).toBe(canonicalJson(value));
+    expect(canonicalJsonKept(value, known)).toBe(canonicalJson(value));
+  });
+
+  it('writes the inputs of every product of a book as canonicalJson does, with one store for all', () => {
+    const kitchen = syntheticKitchen('small');
+    const known = new WeakMap<object, string>();
+    for (const r of kitchen.recipes) {
+      const inputs = { slice: closureOf(kitchen, r.id), items: closureItems(kitchen, r.id), siteId: 3, regime: 'EU' };
+      expect(canonicalJsonKept(inputs, known)).toBe(canonicalJson(inputs));
+    }
+    expect(known.has(kitchen.ingredients[0])).toBe(true);
   });
 });

@@ -63,12 +63,14 @@ function missingOf(r: Rollup): MissingFigure[] {
   for (const k of ENERGY_NEEDS) for (const [id, ref] of r.missing[k]) energy.set(id, ref);
   const byKey = (key: FigureKey): Map<string, IngredientRef> => (key === 'energyKj' || key === 'energyKcal' ? energy : r.missing[key]);
   // List ingredients in recipe order (the order leaves were first met).
-  const order = [...r.leaves.keys()];
+  const order = new Map([...r.leaves.keys()].map((id, n) => [id, n]));
+  // An id not among the leaves sorts as indexOf placed it, first.
+  const at = (id: string) => order.get(id) ?? -1;
   const out: MissingFigure[] = [];
   for (const key of FIGURE_KEYS) {
     const m = byKey(key);
     if (m.size === 0) continue;
-    const ingredients = [...m.values()].sort((a, b) => order.indexOf(a.id) - order.indexOf(b.id));
+    const ingredients = [...m.values()].sort((a, b) => at(a.id) - at(b.id));
     out.push({ nutrient: key, ingredients });
   }
   return out;
@@ -102,7 +104,15 @@ function labelFor(regime: Regime, per100g: NutrientFigures, perPortion: Nutrient
  * Contact lines bring nothing.
  */
 export function computeNutrition(book: Book, recipeId: string, opts: NutritionOptions): NutritionDeclaration {
-  const roller = new NutritionRoller(book, opts.measures);
+  return nutritionOf(new NutritionRoller(book, opts.measures), recipeId, opts.regime);
+}
+
+/**
+ * A recipe's nutrition as computeNutrition gives it, from a roller of the book that may have rolled
+ * other recipes already (each recipe's rollup depends only on what is below it, so one roller serves
+ * every recipe of a book).
+ */
+export function nutritionOf(roller: NutritionRoller, recipeId: string, regime: Regime): NutritionDeclaration {
   const recipe = roller.recipe(recipeId);
   const r = roller.roll(recipeId);
   const portionG = recipe.sale?.portionG ?? null;
@@ -112,7 +122,7 @@ export function computeNutrition(book: Book, recipeId: string, opts: NutritionOp
   return {
     recipeId,
     recipeName: recipe.name,
-    regime: opts.regime,
+    regime,
     finishedWeightG: r.weightG,
     weightFrom: r.weightFrom,
     portionG,
@@ -122,6 +132,6 @@ export function computeNutrition(book: Book, recipeId: string, opts: NutritionOp
     missing: missingOf(r),
     unweighed: r.unweighed,
     sources: [...r.leaves.values()],
-    label: labelFor(opts.regime, per100g, perPortion, portionG),
+    label: labelFor(regime, per100g, perPortion, portionG),
   };
 }

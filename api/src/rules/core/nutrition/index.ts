@@ -1,4 +1,5 @@
-export { computeNutrition, ENERGY_NEEDS } from './compute';
+export { computeNutrition, nutritionOf, ENERGY_NEEDS } from './compute';
+export { NutritionRoller } from './rollup';
 export type { NutritionOptions } from './compute';
 export { EU_ENERGY_FACTORS, SALT_PER_SODIUM, US_CALORIE_FACTORS, euEnergy, usCalories } from './energy';
 export type { EnergyInputs, UsCalorieInputs } from './energy';
