@@ -1,5 +1,5 @@
 import { REGIMES, type Regime } from '@crumbproof/shared';
-import { BookProblemsError, UnknownProductError, declareAtSite, declareSite } from '../rules/core';
+import { BookProblemsError, UnknownProductError, declareAtSite, declareSiteEach } from '../rules/core';
 import { loadReferenceData } from '../rules/reference-data';
 import { indentedJsonPieces } from './json-lines';
 import { fail, problemLines, readSiteView } from './read-book';
@@ -53,10 +53,11 @@ function main(): void {
 
   const refs = loadReferenceData();
   try {
-    const out = args.product
-      ? { declarations: [declareAtSite(view, args.product, refs, { regime: args.regime })] }
-      : declareSite(view, refs, { regime: args.regime });
-    for (const piece of indentedJsonPieces('declarations', out.declarations)) process.stdout.write(piece);
+    // Every product's declaration is written as it is worked out, so the whole set is never held.
+    const declarations = args.product
+      ? [declareAtSite(view, args.product, refs, { regime: args.regime })]
+      : declareSiteEach(view, refs, { regime: args.regime });
+    for (const piece of indentedJsonPieces('declarations', declarations)) process.stdout.write(piece);
   } catch (e) {
     if (e instanceof BookProblemsError) fail(problemLines(e.problems, view), 1);
     if (e instanceof UnknownProductError) fail([e.message], 1);

@@ -5,7 +5,7 @@
 export { checkBook } from './book-check';
 export { declare, declareAll, redeclareAfterChange, type DeclareOptions } from './declare';
 export { BookProblemsError, UnknownProductError, UnknownSiteError } from './errors';
-export { declareAtSite, declareSite, siteView, sitesOf, standInsOf, type SiteView } from './site-view';
+export { declareAtSite, declareSite, declareSiteEach, siteView, sitesOf, standInsOf, type SiteView } from './site-view';
 export { scanComposition } from './composition-scan';
 export { buildTree, leavesOf, type ProductTree, type TreeNode } from './tree';
 export { bookJsonSchema, bookJsonSchemaText } from './book-schema';

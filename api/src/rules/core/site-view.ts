@@ -11,9 +11,10 @@ import type {
   StandIn,
   Substitution,
 } from '@crumbproof/shared';
+import { checkBook } from './book-check';
 import { closureItems } from './book-graph';
-import { UnknownSiteError } from './errors';
-import { declareProduct } from './product';
+import { BookProblemsError, UnknownSiteError } from './errors';
+import { declareProduct, productDeclarer } from './product';
 import type { ReferenceData } from './reference-schema';
 
 /** One site's view of a recipe book: the one-site book the engine declares, and what stood in for what. */
@@ -90,13 +91,34 @@ export function declareAtSite(
   return view.site ? { ...declaration, site: view.site, standIns: standInsOf(view, productId) } : declaration;
 }
 
-/** Every product for sale at the view's site, in book order. */
+/**
+ * Every product for sale at the view's site, in book order, each worked out as it is read: the
+ * book checked once (BookProblemsError before the first, as declareAtSite throws) and every
+ * product declared through one run (productDeclarer), so a sub-recipe many products share is
+ * worked out once and a whole book's declarations need never be held at once.
+ */
+export function* declareSiteEach(
+  view: SiteView,
+  refs: ReferenceData,
+  opts: { regime?: Regime } = {},
+): Generator<ProductDeclaration | SiteProductDeclaration> {
+  const problems = checkBook(view.book);
+  if (problems.length > 0) throw new BookProblemsError(problems);
+  const declareOne = productDeclarer(view.book, refs, opts);
+  for (const recipe of view.book.recipes) {
+    if (!recipe.sale) continue;
+    const declaration = declareOne(recipe.id);
+    yield view.site ? { ...declaration, site: view.site, standIns: standInsOf(view, recipe.id) } : declaration;
+  }
+}
+
+/** Every product for sale at the view's site, in book order (declareSiteEach, held in one list). */
 export function declareSite(
   view: SiteView,
   refs: ReferenceData,
   opts: { regime?: Regime } = {},
 ): { declarations: Array<ProductDeclaration | SiteProductDeclaration> } {
-  return { declarations: view.book.recipes.filter((r) => r.sale).map((r) => declareAtSite(view, r.id, refs, opts)) };
+  return { declarations: [...declareSiteEach(view, refs, opts)] };
 }
 
 function standIn(recipe: BookRecipe, line: number, sub: Substitution, names: Map<string, string>): StandIn {
