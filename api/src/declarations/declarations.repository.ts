@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Declaration, ProductDeclaration, Regime } from '@crumbproof/shared';
-import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
+import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
 import { parseJson } from '../common/json-column';
 import { statementChunks } from '../common/statement-chunks';
 import { DeclarationModel } from './declaration.model';
@@ -85,17 +85,19 @@ export class DeclarationsRepository {
    */
   async addMany(values: readonly NewDeclaration[]): Promise<Map<string, KeptDeclaration>> {
     const out = new Map<string, KeptDeclaration>();
-    // Each body is made JSON once and sent as a bound parameter, which the driver writes as it is,
-    // where an ORM insert would escape every character of megabytes of JSON in script.
+    // Each body is made JSON once and sent as a parameter of a prepared statement, which the driver
+    // writes as its bytes, where a statement sent as text escapes every character of megabytes of
+    // JSON in script (half the time of an import's writes, measured).
     const rows = values.map((v) => ({ ...v, json: JSON.stringify(v.body) }));
     const sequelize = this.declarations.sequelize;
     if (!sequelize) throw new Error('The declarations table is not connected');
     for (const chunk of statementChunks(rows, (r) => Buffer.byteLength(r.json, 'utf8'), ADD_CHUNK)) {
       const now = new Date();
-      const tuples = chunk.map((_, n) => `(${[1, 2, 3, 4, 5, 6].map((k) => `$${n * 6 + k}`).join(', ')})`);
-      await sequelize.query(
+      const tuples = chunk.map(() => '(?, ?, ?, ?, ?, ?)');
+      await executePrepared(
+        sequelize,
         `INSERT IGNORE INTO declarations (recipe_id, recipe_revision, regime, input_hash, body, created_at) VALUES ${tuples.join(', ')}`,
-        { bind: chunk.flatMap((r) => [r.recipeId, r.recipeRevision, r.regime, r.inputHash, r.json, now]), type: QueryTypes.INSERT },
+        chunk.flatMap((r) => [r.recipeId, r.recipeRevision, r.regime, r.inputHash, r.json, now]),
       );
       const kept = await this.declarations.findAll({
         where: { regime: chunk[0].regime, inputHash: { [Op.in]: [...new Set(chunk.map((v) => v.inputHash))] } },
@@ -118,4 +120,23 @@ export class DeclarationsRepository {
     for (const r of rows) if (!out.has(r.recipeRevision)) out.set(r.recipeRevision, parseJson(r.body) as Declaration);
     return out;
   }
+}
+
+/**
+ * Runs a statement as a prepared one on a connection of the pool (MariaDB's binary protocol: each
+ * value goes as its bytes, nothing escaped). Sequelize sends every statement as text.
+ */
+async function executePrepared(sequelize: Sequelize, sql: string, values: unknown[]): Promise<void> {
+  const pool = sequelize.connectionManager;
+  const connection = (await pool.getConnection({ type: 'write' })) as PreparingConnection;
+  try {
+    await connection.execute(sql, values);
+  } finally {
+    pool.releaseConnection(connection);
+  }
+}
+
+/** A pooled connection of the mariadb driver, as Sequelize's pool gives it. */
+interface PreparingConnection {
+  execute(sql: string, values: unknown[]): Promise<unknown>;
 }
