@@ -5,7 +5,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { freePort, instance } from './mariadb.mjs';
-import { DB_USERS, dbEnv, run, startChild, step, waitForHttp } from './workspace.mjs';
+import { DB_USERS, ROOT, dbEnv, run, startChild, step, waitForHttp } from './workspace.mjs';
 
 /**
  * @typedef {object} ThrowawayApp
@@ -45,6 +45,8 @@ export async function startThrowawayApp({ name }) {
       JWT_SECRET: `${name}-secret-for-this-machine-only-0123456789abcdef`,
       DEMO_KITCHEN: 'true',
       LOG_LEVEL: 'error',
+      // The web app too, for what is measured in a browser (the counter's timing).
+      WEB_DIST: join(ROOT, 'web', 'dist'),
     };
     run('node', ['api/dist/cli/db.js', 'setup'], { env });
     const started = startChild('node', ['api/dist/main.js'], env);
