@@ -83,20 +83,27 @@ describe('the counter (real MariaDB)', () => {
     });
 
     it('reads the kitchen in the same number of queries for 5 products as for 45 (no query per product)', async () => {
+      // The fewest of three reads: on a loaded machine an instance that has not heard from the
+      // database for a while reads the kitchen again (change-feed.ts), a query that says nothing
+      // of the products; a query per product would show in every read.
       const count = async () => {
         await req('GET', '/api/counter/products', counter); // declares and keeps anything new
-        let queries = 0;
         const logging = t.sequelize.options.logging;
-        t.sequelize.options.logging = () => {
-          queries++;
-        };
+        const reads: { queries: number; products: number }[] = [];
         try {
-          const res = await req('GET', '/api/counter/products', counter);
-          expect(res.statusCode).toBe(200);
-          return { queries, products: res.json<CounterProductsView>().products.length };
+          for (let n = 0; n < 3; n++) {
+            let queries = 0;
+            t.sequelize.options.logging = () => {
+              queries++;
+            };
+            const res = await req('GET', '/api/counter/products', counter);
+            expect(res.statusCode).toBe(200);
+            reads.push({ queries, products: res.json<CounterProductsView>().products.length });
+          }
         } finally {
           t.sequelize.options.logging = logging;
         }
+        return { queries: Math.min(...reads.map((r) => r.queries)), products: reads[0].products };
       };
       const few = await count();
       const { site } = await book();
