@@ -2,7 +2,7 @@ import { Box, Button, Link, Text } from '@chakra-ui/react';
 import type { ClaimReason } from '@crumbproof/shared';
 import { Fragment, useState } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
-import { layerSteps, useCanOpenPath, type ItemLookup } from './layer-path';
+import { layerSteps, pathsCount, useCanOpenPath, type ItemLookup } from './layer-path';
 
 interface InlinePathProps {
   path: readonly string[];
@@ -41,9 +41,6 @@ interface ClaimReasonListProps {
   lookup: ItemLookup;
 }
 
-/** "1 other path", "11 other paths". */
-const otherPaths = (n: number) => `${n} other path${n === 1 ? '' : 's'}`;
-
 /** The place a reason's paths go through: the line of the product's own recipe (its second id). */
 const placeName = (path: readonly string[], lookup: ItemLookup) => lookup(path[1] ?? '')?.name ?? path[1] ?? '';
 
@@ -69,7 +66,7 @@ export function ClaimReasonList({ reasons, lookup }: ClaimReasonListProps) {
               </Text>
               <InlinePath path={reason.path} lookup={lookup} />
               <Text as="span" color="fg.muted" textStyle="sm">
-                {reason.morePaths ? `, and by ${otherPaths(reason.morePaths)} through ${placeName(reason.path, lookup)}` : ''})
+                {reason.morePaths ? `, and by ${pathsCount(reason.morePaths, 'other')} through ${placeName(reason.path, lookup)}` : ''})
               </Text>
             </>
           ) : null}

@@ -39,7 +39,12 @@ export function layerSteps(path: readonly string[], lookup: ItemLookup): LayerSt
  */
 export function morePathsText(more: number | undefined, productName: string): string | null {
   if (!more) return null;
-  return `And ${more} more path${more === 1 ? '' : 's'} through the same parts of ${productName}, not drawn.`;
+  return `And ${pathsCount(more, 'more')} through the same parts of ${productName}, not drawn.`;
+}
+
+/** "1 other path", "11 more paths": a count of paths a list left out, in words. */
+export function pathsCount(n: number, word: 'more' | 'other'): string {
+  return `${n} ${word} path${n === 1 ? '' : 's'}`;
 }
 
 /** "Victoria sponge → Vanilla sponge → Butter". */

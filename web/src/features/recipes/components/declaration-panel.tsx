@@ -4,7 +4,7 @@ import { ClaimBasisLeaves, ClaimBasisLine, HOLDS_ON_STATEMENTS } from '@/compone
 import { ClaimReasonList } from '@/components/ui/claim-reasons';
 import { ClaimStatusLine } from '@/components/ui/claim-status';
 import { ErrorAlert } from '@/components/ui/error-alert';
-import { LayerPath, morePathsText, type ItemLookup } from '@/components/ui/layer-path';
+import { LayerPath, morePathsText, pathsCount, type ItemLookup } from '@/components/ui/layer-path';
 import { Panel, type HeadingLevel } from '@/components/ui/panel';
 import { QUID_KIND } from '@/components/ui/percent-kinds';
 import { Quantity } from '@/components/ui/quantity';
@@ -64,7 +64,7 @@ function Paths({ paths, more, productName, lookup }: PathsProps) {
 /** "From contact with Butter (greasing, dusting)", naming each item that reaches the product by contact once. */
 function contactWords(paths: readonly string[][], more: number | undefined, lookup: ItemLookup): string {
   const names = [...new Set(paths.map((path) => lookup(path.at(-1) ?? '')?.name ?? path.at(-1) ?? ''))];
-  const others = more ? `, and by ${more} more path${more === 1 ? '' : 's'} through the same parts` : '';
+  const others = more ? `, and by ${pathsCount(more, 'more')} through the same parts` : '';
   return `From contact with ${new Intl.ListFormat('en-GB').format(names)} (a contact line: greasing or dusting)${others}`;
 }
 

@@ -1,5 +1,5 @@
 import { CLAIM_LABELS, type Claim, type Declaration } from '@crumbproof/shared';
-import type { ItemLookup } from '@/components/ui/layer-path';
+import { pathsCount, type ItemLookup } from '@/components/ui/layer-path';
 
 /**
  * "Vegan is wanted but fails: Butter (Vanilla sponge → Butter) contains milk." One sentence per
@@ -16,7 +16,7 @@ export function wantedClaimNotices(wanted: readonly Claim[], declaration: Declar
       const leafName = reason.leaf ? (lookup(reason.leaf)?.name ?? reason.leaf) : null;
       const message = reason.message.replace(/\.$/, '');
       if (below.length < 2) return message;
-      const others = reason.morePaths ? `, and ${reason.morePaths} other path${reason.morePaths === 1 ? '' : 's'} through ${below[0]}` : '';
+      const others = reason.morePaths ? `, and ${pathsCount(reason.morePaths, 'other')} through ${below[0]}` : '';
       const where = `(${below.join(' → ')}${others})`;
       if (leafName && message.startsWith(leafName)) return `${leafName} ${where}${message.slice(leafName.length)}`;
       return `${message} ${where}`;
